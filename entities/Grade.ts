@@ -1,0 +1,36 @@
+import { defineEntity, p } from "@mikro-orm/core";
+import { newId } from "../lib/ids";
+import { Shop } from "./Shop";
+
+export const GRADE_FAMILIES = ["carbon-steel", "hsla-steel", "stainless", "aluminium", "copper", "abrasion-resistant"] as const;
+export const GAUGE_FAMILIES = ["msg", "galvanized", "ussg", "awg"] as const;
+
+const measure = () => p.float().columnType("double precision");
+
+/** A material grade in a shop's catalog, with the strengths the shear checks use (MPa). */
+export const Grade = defineEntity({
+  name: "Grade",
+  tableName: "grades",
+  uniques: [{ properties: ["shop", "code"] }],
+  properties: {
+    id: p.string().primary().onCreate(() => newId("grade")),
+    shop: () => p.manyToOne(Shop).deleteRule("cascade"),
+    /** the code programs refer to, e.g. "A36" */
+    code: p.string(),
+    name: p.string(),
+    family: p.enum([...GRADE_FAMILIES]),
+    /** the standard the values come from, or a note that they are typical */
+    standard: p.string(),
+    yieldMpa: measure().nullable(),
+    tensileMpa: measure(),
+    /** true when tensileMpa is a typical value rather than a standard's minimum */
+    tensileTypical: p.boolean().default(false),
+    shearRatio: measure(),
+    gaugeFamily: p.enum([...GAUGE_FAMILIES]).nullable(),
+    hardnessHb: measure().nullable(),
+    notes: p.text().nullable(),
+    archivedAt: p.datetime().nullable(),
+    createdAt: p.datetime().onCreate(() => new Date()),
+    updatedAt: p.datetime().onCreate(() => new Date()).onUpdate(() => new Date()),
+  },
+});

@@ -1,0 +1,21 @@
+import { defineEntity, p } from "@mikro-orm/core";
+import { newId } from "../lib/ids";
+import { Shop } from "./Shop";
+import { User } from "./User";
+
+export const ROLES = ["owner", "admin", "developer", "viewer"] as const;
+export type Role = (typeof ROLES)[number];
+
+/** A user's role in one shop. A user may belong to several shops. */
+export const Membership = defineEntity({
+  name: "Membership",
+  tableName: "memberships",
+  uniques: [{ properties: ["user", "shop"] }],
+  properties: {
+    id: p.string().primary().onCreate(() => newId("membership")),
+    user: () => p.manyToOne(User).deleteRule("cascade"),
+    shop: () => p.manyToOne(Shop).deleteRule("cascade"),
+    role: p.enum([...ROLES]),
+    createdAt: p.datetime().onCreate(() => new Date()),
+  },
+});

@@ -1,0 +1,16 @@
+import { defineEntity, p } from "@mikro-orm/core";
+import { newId } from "../lib/ids";
+
+/** A person who signs in to the console. Belongs to shops through memberships. */
+export const User = defineEntity({
+  name: "User",
+  tableName: "users",
+  properties: {
+    id: p.string().primary().onCreate(() => newId("user")),
+    email: p.string().unique(),
+    name: p.string(),
+    passwordHash: p.string().nullable().hidden(),
+    createdAt: p.datetime().onCreate(() => new Date()),
+    updatedAt: p.datetime().onCreate(() => new Date()).onUpdate(() => new Date()),
+  },
+});

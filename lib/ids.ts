@@ -1,0 +1,29 @@
+import { monotonicFactory } from "ulidx";
+
+/**
+ * Public ids are a short prefix naming the kind of object, an underscore and a ULID:
+ * sortable by creation time, unique without a database round trip, and safe in URLs.
+ */
+export const ID_PREFIXES = {
+  shop: "shop",
+  user: "usr",
+  membership: "mem",
+  shear: "shr",
+  grade: "grd",
+} as const;
+
+export type IdKind = keyof typeof ID_PREFIXES;
+
+const ulid = monotonicFactory();
+
+export function newId(kind: IdKind): string {
+  return `${ID_PREFIXES[kind]}_${ulid()}`;
+}
+
+const ULID = /^[0-9A-HJKMNP-TV-Z]{26}$/;
+
+/** True when `id` looks like an id of that kind (used to answer 404 early for malformed ids). */
+export function isId(kind: IdKind, id: string): boolean {
+  const [prefix, rest] = id.split("_", 2);
+  return prefix === ID_PREFIXES[kind] && rest !== undefined && ULID.test(rest);
+}

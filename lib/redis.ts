@@ -1,0 +1,22 @@
+import { Redis } from "ioredis";
+
+export const DEFAULT_REDIS_URL = "redis://127.0.0.1:56379";
+
+const holder = globalThis as unknown as { __shearwireRedis?: Redis };
+
+/** The process-wide Redis connection (commands only; BullMQ opens its own). */
+export function getRedis(): Redis {
+  holder.__shearwireRedis ??= new Redis(process.env.REDIS_URL ?? DEFAULT_REDIS_URL, {
+    lazyConnect: true,
+    connectTimeout: 2000,
+    maxRetriesPerRequest: 1,
+    enableOfflineQueue: true,
+  });
+  return holder.__shearwireRedis;
+}
+
+export async function closeRedis() {
+  const r = holder.__shearwireRedis;
+  holder.__shearwireRedis = undefined;
+  if (r) await r.quit().catch(() => r.disconnect());
+}

@@ -1,0 +1,2 @@
+import type { EntityManager } from "@mikro-orm/postgresql";
+export async function seedDemo(_em: EntityManager) { return {}; }

@@ -1,0 +1,100 @@
+/**
+ * Cycle estimate: strokes × stroke time + backgauge moves × travel time +
+ * handling per turned piece and per sheet. Machine constants come from the
+ * shear profile; the stroke-time split below is ours.
+ */
+import type { EstimateReport, ShearProfile } from "./types";
+import type { FlowCut, FlowResult } from "./flow";
+import { DECIMALS, roundTo } from "./units";
+
+/**
+ * Stroke time (ours): a share of a full stroke is fixed (approach, reversal,
+ * return); the rest scales with the blade travel the cut needs, t + L · tan α,
+ * against the travel of a full stroke, t_rated + blade length · tan(max rake).
+ */
+export const STROKE_FIXED_FRACTION = 0.4;
+
+const RAD_PER_DEG = Math.PI / 180;
+/** Backgauge positions closer than this, mm, are the same position (no move). */
+const SAME_POSITION_MM = 1e-6;
+
+/** Seconds for one stroke cutting `cutLengthMm` of `thicknessMm` plate at `rakeDeg`. */
+export function strokeSeconds(cutLengthMm: number, thicknessMm: number, rakeDeg: number, shear: ShearProfile): number {
+  const full = 60 / shear.strokesPerMin;
+  const fullTravel = shear.ratedThicknessMm + shear.bladeLengthMm * Math.tan(shear.rakeMaxDeg * RAD_PER_DEG);
+  const travel = thicknessMm + cutLengthMm * Math.tan(Math.max(0, rakeDeg) * RAD_PER_DEG);
+  const share = fullTravel > 0 ? Math.min(1, Math.max(0, travel / fullTravel)) : 1;
+  return full * (STROKE_FIXED_FRACTION + (1 - STROKE_FIXED_FRACTION) * share);
+}
+
+export interface CycleEstimate {
+  strokes: number;
+  backgaugeMoves: number;
+  turns: number;
+  sheets: number;
+  seconds: { strokes: number; backgauge: number; turns: number; sheets: number; total: number };
+}
+
+export interface EstimateInput {
+  flow: FlowResult;
+  cuts: readonly FlowCut[];
+  sheets: number;
+  shear: ShearProfile;
+  rakeDeg: number;
+  thicknessMm: number;
+}
+
+/**
+ * Backgauge moves: the gauge is set to the first running group before the
+ * first sheet (not counted), moves whenever the next running group's setting
+ * differs, and moves back for each further sheet when the last and first
+ * settings differ. Travel at the profile's backgauge speed.
+ */
+function backgaugeTravel(flow: FlowResult, cuts: readonly FlowCut[], sheets: number): { moves: number; mm: number } {
+  const positions: number[] = [];
+  for (const g of flow.groups) if (g.strokes > 0) positions.push(cuts[g.index].backgaugeMm);
+  if (positions.length === 0) return { moves: 0, mm: 0 };
+  let moves = 0;
+  let mm = 0;
+  for (let i = 1; i < positions.length; i++) {
+    const d = Math.abs(positions[i] - positions[i - 1]);
+    if (d > SAME_POSITION_MM) {
+      moves++;
+      mm += d;
+    }
+  }
+  const back = Math.abs(positions[positions.length - 1] - positions[0]);
+  const returns = back > SAME_POSITION_MM ? sheets - 1 : 0;
+  return { moves: moves * sheets + returns, mm: mm * sheets + back * returns };
+}
+
+/** Estimate the run time of `sheets` sheets. */
+export function estimateCycle(i: EstimateInput): CycleEstimate {
+  let strokeSecondsPerSheet = 0;
+  for (const g of i.flow.groups) {
+    if (g.strokes > 0) strokeSecondsPerSheet += g.strokes * strokeSeconds(g.cutLengthMm, i.thicknessMm, i.rakeDeg, i.shear);
+  }
+  const gauge = backgaugeTravel(i.flow, i.cuts, i.sheets);
+  const turns = i.flow.turnedPieces * i.sheets;
+  const seconds = {
+    strokes: strokeSecondsPerSheet * i.sheets,
+    backgauge: i.shear.backgaugeSpeedMmPerS > 0 ? gauge.mm / i.shear.backgaugeSpeedMmPerS : 0,
+    turns: turns * i.shear.handlingSecondsPerTurn,
+    sheets: i.sheets * i.shear.handlingSecondsPerSheet,
+    total: 0,
+  };
+  seconds.total = seconds.strokes + seconds.backgauge + seconds.turns + seconds.sheets;
+  return { strokes: i.flow.strokes * i.sheets, backgaugeMoves: gauge.moves, turns, sheets: i.sheets, seconds };
+}
+
+/** The estimate as reported: seconds rounded to DECIMALS.seconds. */
+export function estimateReport(e: CycleEstimate): EstimateReport {
+  const s = (v: number): number => roundTo(v, DECIMALS.seconds);
+  return {
+    strokes: e.strokes,
+    backgaugeMoves: e.backgaugeMoves,
+    turns: e.turns,
+    sheets: e.sheets,
+    seconds: { strokes: s(e.seconds.strokes), backgauge: s(e.seconds.backgauge), turns: s(e.seconds.turns), sheets: s(e.seconds.sheets), total: s(e.seconds.total) },
+  };
+}

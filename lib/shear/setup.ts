@@ -1,0 +1,253 @@
+/**
+ * Setup recommendation: blade gap, rake, hold-down, crown, backgauge retract.
+ *
+ * Every value says whether it was computed or given, and why, in one short
+ * sentence with the rule and its inputs. Computed settings are recommendations
+ * for a qualified operator; the machine's manual and local codes come first.
+ */
+import type { GradeFamily, GradeProfile, LengthUnit, SetupReport, SetupValue, ShearProfile } from "./types";
+import { DULL_BLADE_FACTOR, rakeForForceDeg } from "./force";
+import { fmtDeg, fmtForce, fmtLength, fmtPct, fmtStrength, DECIMALS, roundTo, showLength } from "./units";
+
+/**
+ * Blade gap as a percentage of thickness, by family. The usual span is about
+ * 4–10 % (common practice): soft aluminium and copper low, mild steel in the
+ * middle (7 % is a common default), stainless higher. High-strength plate
+ * follows a plate maker's shearing guidance: 9–12 % for 65 ksi plate (we take
+ * 10 %), 16–18 % for 181 ksi plate (we take 16 % for abrasion-resistant plate).
+ */
+export const GAP_PCT_BY_FAMILY: Readonly<Record<GradeFamily, number>> = {
+  aluminium: 5,
+  copper: 5,
+  "carbon-steel": 7,
+  stainless: 9,
+  "hsla-steel": 10,
+  "abrasion-resistant": 16,
+};
+
+const FAMILY_LABEL: Readonly<Record<GradeFamily, string>> = {
+  aluminium: "aluminium",
+  copper: "copper",
+  "carbon-steel": "carbon steel",
+  stainless: "stainless steel",
+  "hsla-steel": "high-strength low-alloy steel",
+  "abrasion-resistant": "abrasion-resistant plate",
+};
+
+/** Rake recommendations are rounded up to this step, degrees (ours: a setting an operator can dial). */
+export const RAKE_STEP_DEG = 0.1;
+/** Hold-down rule (ours, no published rule found): full force at this yield strength, MPa (50 ksi class). */
+export const HOLD_DOWN_FULL_AT_YIELD_MPA = 345;
+/** Hold-down rule (ours): never below this share of full force, %. */
+export const HOLD_DOWN_MIN_PCT = 25;
+/** Hold-down rule (ours): when a grade states no yield, take this share of tensile as its yield. */
+export const YIELD_FROM_TENSILE_WHEN_MISSING = 0.5;
+/** Crown at full rated force when the shear profile gives none, mm (ours, a placeholder: set it from the machine's manual). */
+export const DEFAULT_CROWN_AT_RATED_MM = 0.2;
+/** Backgauge retract after clamping: about 0.1 in (common practice). */
+export const BACKGAUGE_RETRACT_MM = 2.54;
+
+export interface GapRecommendation {
+  mm: number;
+  idealMm: number;
+  pct: number;
+  clamped: "min" | "max" | null;
+}
+
+/** Gap = family percentage × thickness, clamped to the shear's gap range. */
+export function recommendGap(thicknessMm: number, family: GradeFamily, shear: ShearProfile): GapRecommendation {
+  const pct = GAP_PCT_BY_FAMILY[family];
+  const idealMm = (pct / 100) * thicknessMm;
+  if (idealMm < shear.gapMinMm) return { mm: shear.gapMinMm, idealMm, pct, clamped: "min" };
+  if (idealMm > shear.gapMaxMm) return { mm: shear.gapMaxMm, idealMm, pct, clamped: "max" };
+  return { mm: idealMm, idealMm, pct, clamped: null };
+}
+
+export interface RakeRecommendation {
+  deg: number;
+  /** dull: dull blades fit with margin; sharp: only sharp blades fit; over: nothing in range fits. */
+  basis: "dull" | "sharp" | "over";
+}
+
+const ceilToStep = (deg: number, step: number): number => roundTo(Math.ceil(deg / step - 1e-9) * step, 6);
+
+/**
+ * Lowest rake in the shear's range, in RAKE_STEP_DEG steps, at which the
+ * raked-blade force with dull blades (× DULL_BLADE_FACTOR) stays within the
+ * rated force. If no rake in range gives that margin, the lowest rake at which
+ * sharp blades fit; if none does, the largest rake.
+ */
+export function recommendRake(tensileMpa: number, thicknessMm: number, ratedKn: number, shear: ShearProfile): RakeRecommendation {
+  const fit = (forceKn: number): number | null => {
+    const deg = Math.max(shear.rakeMinDeg, ceilToStep(rakeForForceDeg(tensileMpa, thicknessMm, forceKn), RAKE_STEP_DEG));
+    return deg <= shear.rakeMaxDeg ? deg : null;
+  };
+  const dull = fit(ratedKn / DULL_BLADE_FACTOR);
+  if (dull !== null) return { deg: dull, basis: "dull" };
+  const sharp = fit(ratedKn);
+  if (sharp !== null) return { deg: sharp, basis: "sharp" };
+  return { deg: shear.rakeMaxDeg, basis: "over" };
+}
+
+export interface HoldDownRecommendation {
+  pct: number;
+  yieldMpa: number | null;
+  yieldFrom: "yield" | "tensile" | "none";
+}
+
+/**
+ * Hold-down (ours; no published rule found): share of full hold-down force
+ * proportional to yield strength, full force at HOLD_DOWN_FULL_AT_YIELD_MPA,
+ * between HOLD_DOWN_MIN_PCT and 100 %, rounded to whole per cent. Soft grades
+ * get less; finished or coated surfaces may need less still (operator's call).
+ */
+export function recommendHoldDown(grade: GradeProfile, tensileMpa: number | null): HoldDownRecommendation {
+  let yieldMpa: number | null = null;
+  let yieldFrom: HoldDownRecommendation["yieldFrom"] = "none";
+  if (grade.yieldMpa !== null && grade.yieldMpa > 0) {
+    yieldMpa = grade.yieldMpa;
+    yieldFrom = "yield";
+  } else if (tensileMpa !== null) {
+    yieldMpa = tensileMpa * YIELD_FROM_TENSILE_WHEN_MISSING;
+    yieldFrom = "tensile";
+  }
+  const raw = yieldMpa === null ? 100 : (100 * yieldMpa) / HOLD_DOWN_FULL_AT_YIELD_MPA;
+  return { pct: Math.round(Math.min(100, Math.max(HOLD_DOWN_MIN_PCT, raw))), yieldMpa, yieldFrom };
+}
+
+/** Crown (common practice: the correction is proportional to force): crown at rated force × required / rated. */
+export function recommendCrownMm(requiredKn: number, ratedKn: number, shear: ShearProfile): number {
+  const atRated = shear.crownAtRatedMm !== undefined && shear.crownAtRatedMm >= 0 ? shear.crownAtRatedMm : DEFAULT_CROWN_AT_RATED_MM;
+  return (atRated * requiredKn) / ratedKn;
+}
+
+/** Setup values a program gives, canonical units; null = not given. */
+export interface GivenSetup {
+  rakeDeg: number | null;
+  gapMm: number | null;
+  holdDownPct: number | null;
+  crownMm: number | null;
+  retractMm: number | null;
+}
+
+export const NOTHING_GIVEN: GivenSetup = Object.freeze({ rakeDeg: null, gapMm: null, holdDownPct: null, crownMm: null, retractMm: null });
+
+export interface SetupInputs {
+  grade: GradeProfile;
+  tensileMpa: number;
+  thicknessMm: number;
+  shear: ShearProfile;
+  ratedKn: number;
+  units: LengthUnit;
+  given: GivenSetup;
+  /** Required (sharp-blade) force of the program at a rake, kN. */
+  requiredKnAt: (rakeDeg: number) => number;
+}
+
+export interface ResolvedSetup {
+  rakeDeg: number;
+  gapMm: number;
+  holdDownPct: number;
+  crownMm: number;
+  retractMm: number;
+  requiredKn: number;
+  report: SetupReport;
+}
+
+/** Resolve every setup value (given wins, still reported against our rule) and explain it. */
+export function resolveSetup(i: SetupInputs): ResolvedSetup {
+  const u = i.units;
+  const rake = resolveRake(i);
+  const requiredKn = i.requiredKnAt(rake.deg);
+  const gap = resolveGap(i);
+  const holdDown = resolveHoldDown(i);
+  const crown = resolveCrown(i, requiredKn);
+  const retractMm = i.given.retractMm ?? BACKGAUGE_RETRACT_MM;
+  const retract: SetupValue =
+    i.given.retractMm !== null
+      ? given(showLength(retractMm, u), u, "Given in the program; about 0.1 in is usual so the piece is not trapped.")
+      : computed(showLength(retractMm, u), u, `Back the gauge off ${fmtLength(retractMm, u)} after the hold-down clamps so the piece is not trapped (common practice).`);
+  return {
+    rakeDeg: rake.deg,
+    gapMm: gap.mm,
+    holdDownPct: holdDown.pct,
+    crownMm: crown.mm,
+    retractMm,
+    requiredKn,
+    report: { bladeGap: gap.value, rake: rake.value, holdDown: holdDown.value, crown: crown.value, backgaugeRetract: retract },
+  };
+}
+
+const computed = (value: number, unit: string, why: string): SetupValue => ({ value, unit, source: "computed", why });
+const given = (value: number, unit: string, why: string): SetupValue => ({ value, unit, source: "given", why });
+const rangeText = (min: string, max: string): string => `${min}–${max}`;
+
+function resolveRake(i: SetupInputs): { deg: number; value: SetupValue } {
+  const { shear, units: u } = i;
+  const range = rangeText(fmtDeg(shear.rakeMinDeg), fmtDeg(shear.rakeMaxDeg));
+  const rated = fmtForce(i.ratedKn, u);
+  if (i.given.rakeDeg !== null) {
+    const deg = i.given.rakeDeg;
+    const f = i.requiredKnAt(deg);
+    const inRange = deg >= shear.rakeMinDeg && deg <= shear.rakeMaxDeg;
+    const where = inRange ? `inside this shear's ${range} range` : `OUTSIDE this shear's ${range} range`;
+    return { deg, value: given(roundTo(deg, DECIMALS.deg), "deg", `Given in the program, ${where}; the cut needs ${fmtForce(f, u)} of the ${rated} rating at this rake.`) };
+  }
+  const rec = recommendRake(i.tensileMpa, i.thicknessMm, i.ratedKn, shear);
+  const f = i.requiredKnAt(rec.deg);
+  const dull = fmtForce(f * DULL_BLADE_FACTOR, u);
+  let why: string;
+  if (rec.basis === "dull") {
+    why = `Lowest rake in this shear's ${range} range at which even dull blades (${DULL_BLADE_FACTOR} × ${fmtForce(f, u)} = ${dull}) stay within the ${rated} rating.`;
+  } else if (rec.basis === "sharp") {
+    why = `No rake in this shear's ${range} range keeps dull blades (${dull}) within the ${rated} rating; this is the lowest at which sharp blades (${fmtForce(f, u)}) do.`;
+  } else {
+    why = `Even this shear's largest rake needs ${fmtForce(f, u)}, over the ${rated} rating: this program cannot run on this shear.`;
+  }
+  return { deg: rec.deg, value: computed(roundTo(rec.deg, DECIMALS.deg), "deg", why) };
+}
+
+function resolveGap(i: SetupInputs): { mm: number; value: SetupValue } {
+  const { shear, units: u } = i;
+  const rec = recommendGap(i.thicknessMm, i.grade.family, shear);
+  const range = rangeText(fmtLength(shear.gapMinMm, u), fmtLength(shear.gapMaxMm, u));
+  const rule = `${rec.pct} % of the ${fmtLength(i.thicknessMm, u)} thickness for ${FAMILY_LABEL[i.grade.family]}`;
+  if (i.given.gapMm !== null) {
+    const mm = i.given.gapMm;
+    const inRange = mm >= shear.gapMinMm && mm <= shear.gapMaxMm;
+    const where = inRange ? `inside this shear's ${range} range` : `OUTSIDE this shear's ${range} range`;
+    return { mm, value: given(showLength(mm, u), u, `Given in the program, ${where}; our rule (${rule}) gives ${fmtLength(rec.mm, u)}.`) };
+  }
+  let why: string;
+  if (rec.clamped === "min") why = `${rule} would be ${fmtLength(rec.idealMm, u)}, below this shear's smallest gap, so its minimum is used.`;
+  else if (rec.clamped === "max") why = `${rule} would be ${fmtLength(rec.idealMm, u)}, above this shear's largest gap, so its maximum is used.`;
+  else why = `${rule} = ${fmtLength(rec.mm, u)}, inside this shear's ${range} range.`;
+  return { mm: rec.mm, value: computed(showLength(rec.mm, u), u, why) };
+}
+
+function resolveHoldDown(i: SetupInputs): { pct: number; value: SetupValue } {
+  const rec = recommendHoldDown(i.grade, i.tensileMpa);
+  const u = i.units;
+  if (i.given.holdDownPct !== null) {
+    return { pct: i.given.holdDownPct, value: given(roundTo(i.given.holdDownPct, DECIMALS.pct), "%", `Given in the program; our rule gives ${rec.pct} % for this grade.`) };
+  }
+  const full = fmtStrength(HOLD_DOWN_FULL_AT_YIELD_MPA, u);
+  let basis: string;
+  if (rec.yieldFrom === "yield" && rec.yieldMpa !== null) basis = `yield ${fmtStrength(rec.yieldMpa, u)} against full force at ${full}`;
+  else if (rec.yieldFrom === "tensile" && rec.yieldMpa !== null) basis = `no yield stated, half the tensile (${fmtStrength(rec.yieldMpa, u)}) against full force at ${full}`;
+  else basis = "no strength stated, so full force";
+  const why = `${rec.pct} % of full hold-down: ${basis}, kept within ${HOLD_DOWN_MIN_PCT}–100 % (our rule); use less on finished or coated surfaces.`;
+  return { pct: rec.pct, value: computed(rec.pct, "%", why) };
+}
+
+function resolveCrown(i: SetupInputs, requiredKn: number): { mm: number; value: SetupValue } {
+  const u = i.units;
+  if (i.given.crownMm !== null) {
+    return { mm: i.given.crownMm, value: given(showLength(i.given.crownMm, u), u, "Given in the program: centre gap tighter than the ends by this much.") };
+  }
+  const mm = recommendCrownMm(requiredKn, i.ratedKn, i.shear);
+  const atRated = i.shear.crownAtRatedMm !== undefined && i.shear.crownAtRatedMm >= 0 ? i.shear.crownAtRatedMm : DEFAULT_CROWN_AT_RATED_MM;
+  const share = fmtPct((100 * requiredKn) / i.ratedKn);
+  const why = `Centre gap ${fmtLength(mm, u)} tighter than the ends: ${fmtLength(atRated, u)} at full rated force × ${share} of the rating used (proportional rule, common practice).`;
+  return { mm, value: computed(showLength(mm, u), u, why) };
+}

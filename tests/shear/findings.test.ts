@@ -1,0 +1,121 @@
+import { describe, expect, it } from "vitest";
+import {
+  checkForce,
+  checkGivenSetup,
+  checkGroups,
+  checkHardness,
+  checkThickness,
+  findGrade,
+  FINDING_CATALOGUE,
+  finding,
+  inToMm,
+  NOTHING_GIVEN,
+  simulateFlow,
+  validationOf,
+  type FindingCode,
+  type FlowCut,
+  type GradeProfile,
+} from "@/lib/shear";
+import { DEMO_SHEAR } from "./fixtures";
+
+const cut = (backgaugeMm: number, count: number, over: Partial<FlowCut> = {}): FlowCut => ({ backgaugeMm, count, lengthMm: null, turn: false, scrap: false, ...over });
+
+const REQUIRED_CODES: FindingCode[] = [
+  "thickness_over_capacity",
+  "force_over_rating",
+  "cut_length_over_blade",
+  "backgauge_out_of_travel",
+  "backgauge_beyond_workpiece",
+  "group_cuts_nothing",
+  "gap_out_of_range",
+  "rake_out_of_range",
+  "hardness_over_blade_limit",
+  "strip_narrow",
+  "grade_unknown",
+  "gauge_unknown",
+  "units_inconsistent",
+];
+
+describe("finding catalogue", () => {
+  it("holds every required code with a severity and a meaning", () => {
+    for (const code of REQUIRED_CODES) {
+      expect(FINDING_CATALOGUE[code]).toBeDefined();
+      expect(FINDING_CATALOGUE[code].meaning.length).toBeGreaterThan(10); // every code documented (ours)
+    }
+    expect(FINDING_CATALOGUE.strip_narrow.severity).toBe("warning");
+    expect(FINDING_CATALOGUE.force_over_rating.severity).toBe("error");
+  });
+
+  it("validation is fail on any error, warn on warnings only, else pass", () => {
+    expect(validationOf([])).toBe("pass");
+    expect(validationOf([finding("strip_narrow", "/cuts/0", "m")])).toBe("warn");
+    expect(validationOf([finding("strip_narrow", "/cuts/0", "m"), finding("grade_unknown", "/grade", "m")])).toBe("fail");
+  });
+});
+
+describe("capacity checks", () => {
+  it("thickness over the grade's maximum, in the caller's units", () => {
+    const [f] = checkThickness(inToMm(0.3), { mm: inToMm(0.25), source: "model" }, "A36", "/thickness/value", "in");
+    expect(f).toMatchObject({ code: "thickness_over_capacity", severity: "error", pointer: "/thickness/value", limit: 0.25, actual: 0.3, unit: "in" }); // inputs echoed in inches
+    expect(checkThickness(inToMm(0.2), { mm: inToMm(0.25), source: "model" }, "A36", "/thickness/value", "in")).toEqual([]);
+  });
+
+  it("force over rating, else dull-blade margin", () => {
+    expect(checkForce(200, 100, 1.5, "/setup/rakeDeg", "mm")[0]).toMatchObject({ code: "force_over_rating", limit: 100, actual: 200, unit: "kN" }); // inputs echoed in kN
+    expect(checkForce(80, 100, 1.5, "/thickness", "mm")[0]).toMatchObject({ code: "force_dull_blade_margin", severity: "warning", actual: 120 }); // 1.5 × 80 kN (dull blades, common practice)
+    expect(checkForce(60, 100, 1.5, "/thickness", "mm")).toEqual([]);
+  });
+
+  it("grade harder than the blades allow", () => {
+    const ar = findGrade("AR400") as GradeProfile;
+    expect(checkHardness(ar, DEMO_SHEAR)[0]).toMatchObject({ code: "hardness_over_blade_limit", limit: 300, actual: 440, unit: "HB" }); // demo blades 300 HB; AR400 class up to 440 HB
+    expect(checkHardness(ar, { ...DEMO_SHEAR, maxBladeHardnessHb: null })).toEqual([]);
+  });
+
+  it("given gap and rake outside the machine's ranges", () => {
+    const out = checkGivenSetup({ ...NOTHING_GIVEN, gapMm: 2, rakeDeg: 0.2 }, "/setup/bladeGapMm", DEMO_SHEAR, "mm");
+    expect(out.map((f) => f.code)).toEqual(["gap_out_of_range", "rake_out_of_range"]);
+    expect(out[0]).toMatchObject({ limit: 1, actual: 2, unit: "mm" }); // demo profile: gap 0.05–1 mm
+    expect(out[1]).toMatchObject({ pointer: "/setup/rakeDeg", limit: 0.5, actual: 0.2, unit: "deg" }); // demo profile: rake 0.5–2.5°
+  });
+});
+
+describe("group checks", () => {
+  const run = (sheet: { lengthMm: number; widthMm: number }, cuts: FlowCut[], thicknessMm = 3) =>
+    checkGroups({ flow: simulateFlow(sheet, cuts), cuts, skip: cuts.map(() => false), shear: DEMO_SHEAR, thicknessMm, units: "mm" });
+  const codes = (fs: ReturnType<typeof run>) => fs.map((f) => f.code);
+
+  it("length of cut over the blade points at the sheet length", () => {
+    const f = run({ lengthMm: 3500, widthMm: 1000 }, [cut(200, 2)]);
+    expect(f[0]).toMatchObject({ code: "cut_length_over_blade", pointer: "/sheet/length", limit: 3100, actual: 3500 }); // demo blade 3100 mm
+  });
+
+  it("backgauge outside travel", () => {
+    expect(run({ lengthMm: 2000, widthMm: 3000 }, [cut(1200, 1)])[0]).toMatchObject({ code: "backgauge_out_of_travel", pointer: "/cuts/0/backgauge", limit: 1000 }); // demo travel 5–1000 mm
+  });
+
+  it("backgauge beyond the workpiece", () => {
+    const f = run({ lengthMm: 2000, widthMm: 300 }, [cut(100, 4)]);
+    expect(f[0]).toMatchObject({ code: "backgauge_beyond_workpiece", pointer: "/cuts/0/backgauge", limit: 100, actual: 100 }); // 300 − 2 × 100 left at stroke 3 (our piece-flow rule)
+    expect(f[0].message).toMatch(/stroke 3/);
+  });
+
+  it("group that cuts nothing", () => {
+    expect(codes(run({ lengthMm: 2000, widthMm: 300 }, [cut(100, 0)]))).toContain("group_cuts_nothing");
+    expect(codes(run({ lengthMm: 2000, widthMm: 300 }, [cut(100, 2), cut(50, 1)]))).toContain("group_cuts_nothing"); // remnant became a piece
+    expect(codes(run({ lengthMm: 2000, widthMm: 300 }, []))).toEqual(["program_cuts_nothing"]);
+  });
+
+  it("narrow strip: under 10 × thickness or 1/50 of its length (our rule)", () => {
+    const byThickness = run({ lengthMm: 1000, widthMm: 500 }, [cut(25, 2)], 3); // 25 mm < 10 × 3 mm
+    expect(byThickness[0]).toMatchObject({ code: "strip_narrow", severity: "warning", limit: 30, actual: 25 }); // our rule: 10 × 3 mm
+    const byLength = run({ lengthMm: 3000, widthMm: 500 }, [cut(50, 2)], 1); // 50 mm < 3000 / 50 = 60 mm
+    expect(byLength[0]).toMatchObject({ code: "strip_narrow", limit: 60 }); // our rule: 3000 mm / 50
+    expect(run({ lengthMm: 3000, widthMm: 500 }, [cut(50, 2, { scrap: true })], 1)).toEqual([]);
+  });
+
+  it("partial strokes and a length of cut longer than the workpiece", () => {
+    expect(codes(run({ lengthMm: 2000, widthMm: 500 }, [cut(100, 1, { lengthMm: 500 })]))).toEqual(["partial_stroke"]);
+    expect(codes(run({ lengthMm: 2000, widthMm: 500 }, [cut(100, 1, { lengthMm: 2500 })]))).toEqual(["cut_length_over_workpiece"]);
+  });
+});

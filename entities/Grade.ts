@@ -22,13 +22,15 @@ export const Grade = defineEntity({
     /** the standard the values come from, or a note that they are typical */
     standard: p.string(),
     yieldMpa: measure().nullable(),
-    tensileMpa: measure(),
-    /** true when tensileMpa is a typical value rather than a standard's minimum */
-    tensileTypical: p.boolean().default(false),
-    shearRatio: measure(),
+    tensileMinMpa: measure().nullable(),
+    tensileTypicalMpa: measure().nullable(),
+    tensileMaxMpa: measure().nullable(),
+    /** true when the strengths are typical values rather than a standard's minimums */
+    valuesAreTypical: p.boolean().default(false),
+    shearTensileRatio: measure(),
     gaugeFamily: p.enum([...GAUGE_FAMILIES]).nullable(),
     hardnessHb: measure().nullable(),
-    notes: p.text().nullable(),
+    note: p.text().nullable(),
     archivedAt: p.datetime().nullable(),
     createdAt: p.datetime().onCreate(() => new Date()),
     updatedAt: p.datetime().onCreate(() => new Date()).onUpdate(() => new Date()),

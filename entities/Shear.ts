@@ -30,13 +30,15 @@ export const Shear = defineEntity({
     gapMinMm: measure(),
     gapMaxMm: measure(),
     strokesPerMin: measure(),
-    backgaugeSpeedMmS: measure(),
-    handlingPerTurnS: measure(),
-    handlingPerSheetS: measure(),
+    backgaugeSpeedMmPerS: measure(),
+    handlingSecondsPerTurn: measure(),
+    handlingSecondsPerSheet: measure(),
     /** hardest material (Brinell) the fitted blades are meant for; null = not stated */
-    bladeMaxHardnessHb: measure().nullable(),
+    maxBladeHardnessHb: measure().nullable(),
     /** explicit maximum thickness per grade code, in mm; wins over the derived value */
-    gradeLimitsMm: p.json<Record<string, number>>().default("{}"),
+    gradeThicknessLimitsMm: p.json<Record<string, number>>().default("{}"),
+    /** crown correction at full rated force, mm; null = the core's default */
+    crownAtRatedMm: measure().nullable(),
     archivedAt: p.datetime().nullable(),
     createdAt: p.datetime().onCreate(() => new Date()),
     updatedAt: p.datetime().onCreate(() => new Date()).onUpdate(() => new Date()),

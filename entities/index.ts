@@ -1,10 +1,24 @@
+import type { InferEntity } from "@mikro-orm/core";
+import { ApiKey } from "./ApiKey";
+import { Event } from "./Event";
 import { Grade } from "./Grade";
+import { IdempotencyRecord } from "./IdempotencyRecord";
 import { Membership } from "./Membership";
+import { Program } from "./Program";
+import { RequestLog } from "./RequestLog";
 import { Shear } from "./Shear";
 import { Shop } from "./Shop";
 import { User } from "./User";
 
-export { Grade, Membership, Shear, Shop, User };
+export { ApiKey, Event, Grade, IdempotencyRecord, Membership, Program, RequestLog, Shear, Shop, User };
+
+export type ApiKeyEntity = InferEntity<typeof ApiKey>;
+export type EventEntity = InferEntity<typeof Event>;
+export type ProgramEntity = InferEntity<typeof Program>;
+export type GradeEntity = InferEntity<typeof Grade>;
+export type ShearEntity = InferEntity<typeof Shear>;
+export type ShopEntity = InferEntity<typeof Shop>;
+export type UserEntity = InferEntity<typeof User>;
 
 /** Every entity, for the ORM configuration. */
-export const entities = [Shop, User, Membership, Shear, Grade];
+export const entities = [Shop, User, Membership, Shear, Grade, ApiKey, RequestLog, IdempotencyRecord, Program, Event];

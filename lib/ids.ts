@@ -10,6 +10,10 @@ export const ID_PREFIXES = {
   membership: "mem",
   shear: "shr",
   grade: "grd",
+  apiKey: "key",
+  program: "prg",
+  event: "evt",
+  request: "req",
 } as const;
 
 export type IdKind = keyof typeof ID_PREFIXES;

@@ -12,6 +12,8 @@ export function getRedis(): Redis {
     maxRetriesPerRequest: 1,
     enableOfflineQueue: true,
   });
+  // Connection errors surface where they matter (health, rate limits); don't crash or spam.
+  holder.__shearwireRedis.on("error", () => undefined);
   return holder.__shearwireRedis;
 }
 

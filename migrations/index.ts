@@ -4,8 +4,10 @@
  * `npm run migration:create -- <name>` writes a new file here; add it to this list.
  */
 import type { MigrationObject } from "@mikro-orm/core";
-import { Migration20261201234041_initial } from "./Migration20261201234041_initial";
+import { Migration20261201234604_initial } from "./Migration20261201234604_initial";
+import { Migration20261201235446_api } from "./Migration20261201235446_api";
 
 export const migrationsList: MigrationObject[] = [
-  { name: "Migration20261201234041_initial", class: Migration20261201234041_initial },
+  { name: "Migration20261201234604_initial", class: Migration20261201234604_initial },
+  { name: "Migration20261201235446_api", class: Migration20261201235446_api },
 ];

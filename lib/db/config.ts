@@ -20,6 +20,7 @@ export function ormConfig(clientUrl = process.env.DATABASE_URL ?? DEFAULT_DATABA
       transactional: true,
       allOrNothing: true,
       snapshot: false,
+      silent: true,
       emit: "ts",
       fileName: (timestamp: string, name?: string) => `Migration${timestamp}${name ? `_${name}` : ""}`,
     },

@@ -1,2 +1,81 @@
-import type { EntityManager } from "@mikro-orm/postgresql";
-export async function seedDemo(_em: EntityManager) { return {}; }
+/**
+ * Demo data for a shop of our own invention. Every name, person, machine figure and order
+ * here is made up for the demo; only the grade library comes from published minimums.
+ * Idempotent: running it again leaves an existing demo shop as it is.
+ */
+import type { EntityManager, InferEntity, RequiredEntityData } from "@mikro-orm/postgresql";
+import bcrypt from "bcryptjs";
+import { Grade, Membership, Shear, Shop, User } from "../../entities";
+import type { Role } from "../../entities/Membership";
+import { GRADE_LIBRARY } from "../../lib/shear/grades";
+
+export const DEMO_SHOP = { name: "Ridgeback Sheet & Plate", slug: "ridgeback" };
+export const DEMO_PASSWORD = process.env.SHEARWIRE_DEMO_PASSWORD ?? "ridgeback-demo-2026";
+
+const PEOPLE: { email: string; name: string; role: Role }[] = [
+  { email: "ines.varga@ridgeback.example", name: "Ines Varga", role: "owner" },
+  { email: "tomas.reyes@ridgeback.example", name: "Tomas Reyes", role: "admin" },
+  { email: "priya.anand@ridgeback.example", name: "Priya Anand", role: "developer" },
+  { email: "gus.holloway@ridgeback.example", name: "Gus Holloway", role: "viewer" },
+];
+
+// Two invented machines of different capacity (figures are demo values, not any real model).
+const SHEARS: Omit<RequiredEntityData<InferEntity<typeof Shear>>, "shop">[] = [
+  {
+    name: "Bay 1 sheet shear",
+    description: "3 m light shear for sheet up to 6.35 mm mild steel. Demo machine.",
+    ratedThicknessMm: 6.35, ratedTensileMpa: 414, ratedRakeDeg: 1.5,
+    bladeLengthMm: 3100, backgaugeMinMm: 5, backgaugeMaxMm: 1000,
+    rakeMinDeg: 0.5, rakeMaxDeg: 2.5, gapMinMm: 0.03, gapMaxMm: 1.0,
+    strokesPerMin: 30, backgaugeSpeedMmPerS: 250, handlingSecondsPerTurn: 6, handlingSecondsPerSheet: 30,
+    maxBladeHardnessHb: 300, gradeThicknessLimitsMm: { "304": 4.0, "316": 4.0 },
+  },
+  {
+    name: "Bay 3 plate shear",
+    description: "3 m plate shear for plate up to 12.7 mm mild steel. Demo machine.",
+    ratedThicknessMm: 12.7, ratedTensileMpa: 414, ratedRakeDeg: 2.0,
+    bladeLengthMm: 3100, backgaugeMinMm: 10, backgaugeMaxMm: 1000,
+    rakeMinDeg: 1.0, rakeMaxDeg: 3.0, gapMinMm: 0.1, gapMaxMm: 2.0,
+    strokesPerMin: 12, backgaugeSpeedMmPerS: 150, handlingSecondsPerTurn: 15, handlingSecondsPerSheet: 60,
+    maxBladeHardnessHb: 450, gradeThicknessLimitsMm: {},
+  },
+];
+
+export interface DemoSummary {
+  shop: { id: string; name: string };
+  owner: { email: string; password: string };
+  shears: { id: string; name: string }[];
+  grades: number;
+}
+
+export async function seedDemo(em: EntityManager): Promise<DemoSummary> {
+  return em.transactional(async (tx) => {
+    let shop = await tx.findOne(Shop, { slug: DEMO_SHOP.slug });
+    if (!shop) {
+      shop = tx.create(Shop, DEMO_SHOP);
+      const hash = await bcrypt.hash(DEMO_PASSWORD, 10);
+      for (const person of PEOPLE) {
+        const user = (await tx.findOne(User, { email: person.email })) ??
+          tx.create(User, { email: person.email, name: person.name, passwordHash: hash });
+        tx.create(Membership, { user, shop, role: person.role });
+      }
+      for (const s of SHEARS) tx.create(Shear, { ...s, shop });
+      for (const g of GRADE_LIBRARY) {
+        tx.create(Grade, {
+          shop, code: g.code, name: g.name ?? g.code, family: g.family, standard: g.standard,
+          yieldMpa: g.yieldMpa, tensileMinMpa: g.tensileMinMpa, tensileTypicalMpa: g.tensileTypicalMpa,
+          tensileMaxMpa: g.tensileMaxMpa ?? null, valuesAreTypical: g.valuesAreTypical,
+          shearTensileRatio: g.shearTensileRatio, gaugeFamily: g.gaugeFamily, hardnessHb: g.hardnessHb, note: g.note ?? null,
+        });
+      }
+      await tx.flush();
+    }
+    const shears = await tx.find(Shear, { shop }, { orderBy: { name: "asc" } });
+    return {
+      shop: { id: shop.id, name: shop.name },
+      owner: { email: PEOPLE[0].email, password: DEMO_PASSWORD },
+      shears: shears.map((s) => ({ id: s.id, name: s.name })),
+      grades: await tx.count(Grade, { shop }),
+    };
+  });
+}

@@ -1,0 +1,5 @@
+import { listGauges } from "@/lib/api/operations/catalog";
+import { route } from "@/lib/api/route";
+import { gaugeTables } from "@/lib/services/setup";
+
+export const GET = route(listGauges, async ({ query }) => ({ body: gaugeTables(query.family) }));

@@ -1,0 +1,16 @@
+import { createProgram, listPrograms } from "@/lib/api/operations/programs";
+import { route } from "@/lib/api/route";
+import * as programs from "@/lib/services/programs";
+
+export const GET = route(listPrograms, async ({ em, principal, query }) => ({
+  body: await programs.listPrograms(em, principal.shopId, query),
+}));
+
+export const POST = route(createProgram, async ({ em, principal, body }) => {
+  const program = await programs.createProgram(em, principal.shopId, body);
+  return {
+    status: 201,
+    body: program,
+    headers: { ETag: programs.etagOf(program.revision), Location: `/api/v1/programs/${program.id}` },
+  };
+});

@@ -1,0 +1,23 @@
+import { defineEntity, p } from "@mikro-orm/core";
+import { newId } from "../lib/ids";
+import { Shop } from "./Shop";
+
+/**
+ * Something that happened to a shop's objects, written in the same transaction as the
+ * change itself (an outbox): a rolled-back change leaves no event.
+ */
+export const Event = defineEntity({
+  name: "Event",
+  tableName: "events",
+  indexes: [{ properties: ["shop", "id"] }, { properties: ["subjectId", "id"] }],
+  properties: {
+    id: p.string().primary().onCreate(() => newId("event")),
+    shop: () => p.manyToOne(Shop).deleteRule("cascade"),
+    /** e.g. program.created, program.released */
+    type: p.string(),
+    /** the id of the object the event is about */
+    subjectId: p.string(),
+    data: p.json<Record<string, unknown>>(),
+    createdAt: p.datetime().onCreate(() => new Date()),
+  },
+});

@@ -1,0 +1,47 @@
+import { defineEntity, p } from "@mikro-orm/core";
+import { newId } from "../lib/ids";
+import { Shear } from "./Shear";
+import { Shop } from "./Shop";
+
+export const PROGRAM_STATUSES = ["draft", "released", "claimed", "running", "completed", "failed", "cancelled"] as const;
+export type ProgramStatus = (typeof PROGRAM_STATUSES)[number];
+
+/**
+ * A cut program: the request as the caller sent it (in the caller's units), and what the
+ * shear core made of it when it was last checked. Only drafts change; each change bumps
+ * the revision, which is the ETag.
+ */
+export const Program = defineEntity({
+  name: "Program",
+  tableName: "programs",
+  uniques: [{ properties: ["shop", "reference"] }],
+  indexes: [
+    { properties: ["shop", "status", "id"] },
+    { properties: ["shop", "updatedAt", "id"] },
+  ],
+  properties: {
+    id: p.string().primary().onCreate(() => newId("program")),
+    shop: () => p.manyToOne(Shop).deleteRule("cascade"),
+    shear: () => p.manyToOne(Shear).deleteRule("restrict"),
+    reference: p.string(),
+    title: p.string().nullable(),
+    status: p.enum([...PROGRAM_STATUSES]).default("draft"),
+    revision: p.integer().version(),
+    /** the program as submitted (units, sheet, cuts, setup overrides …) */
+    input: p.json<Record<string, unknown>>(),
+    gradeCode: p.string(),
+    units: p.string(),
+    priority: p.integer().default(0),
+    dueAt: p.datetime().nullable(),
+    /** pass | warn | fail, and the full check: findings, setup, force, yield, estimate */
+    validation: p.string(),
+    check: p.json<Record<string, unknown>>(),
+    /** warning codes the caller acknowledged when releasing */
+    acknowledged: p.json<string[]>().default("[]"),
+    metadata: p.json<Record<string, string>>().default("{}"),
+    releasedAt: p.datetime().nullable(),
+    cancelledAt: p.datetime().nullable(),
+    createdAt: p.datetime().onCreate(() => new Date()),
+    updatedAt: p.datetime().onCreate(() => new Date()).onUpdate(() => new Date()),
+  },
+});

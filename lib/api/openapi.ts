@@ -1,0 +1,139 @@
+/**
+ * The OpenAPI 3.1 document, generated from the same operations the route handlers run.
+ */
+import { OpenAPIRegistry, OpenApiGeneratorV31 } from "@asteasolutions/zod-to-openapi";
+import type { RouteConfig } from "@asteasolutions/zod-to-openapi";
+import { Problem } from "../schemas/common";
+import { VERSION } from "../version";
+import type { Operation } from "./operation";
+import { API_PREFIX } from "./route";
+
+const ERROR_TEXT: Record<number, string> = {
+  400: "The request is malformed (for example, the body is not JSON).",
+  401: "No API key, or the key is unknown, revoked or expired.",
+  403: "The API key lacks the scope this operation needs.",
+  404: "Nothing with that id exists in this shop.",
+  409: "The request conflicts with the current state.",
+  412: "If-Match does not match the current revision.",
+  413: "The body is larger than the limit.",
+  415: "The body is not JSON.",
+  422: "The request does not match the schema, or the Idempotency-Key was used for another request.",
+  428: "If-Match is required.",
+  429: "Rate limit exceeded; see Retry-After.",
+  500: "Something went wrong on our side.",
+};
+
+const RATE_HEADERS = {
+  "RateLimit-Policy": { description: "The key's quota and window (IETF RateLimit header fields).", schema: { type: "string" as const } },
+  RateLimit: { description: "Requests left in the window and seconds until it resets.", schema: { type: "string" as const } },
+};
+const COMMON_HEADERS = {
+  "X-Request-Id": { description: "This request's id; quote it when you ask for help.", schema: { type: "string" as const } },
+};
+
+/** The error statuses an operation can answer, from what it declares. */
+export function errorStatuses(op: Operation): number[] {
+  const s = new Set<number>(op.errors ?? []);
+  s.add(500);
+  if (op.scope) [401, 403, 429].forEach((c) => s.add(c));
+  if (op.params || op.query || op.body) s.add(422);
+  if (op.params && "id" in op.params.shape) s.add(404);
+  if (op.body) [400, 413, 415].forEach((c) => s.add(c));
+  if (op.method === "post" && op.scope) [409, 422].forEach((c) => s.add(c));
+  if (op.ifMatch) [412, 428].forEach((c) => s.add(c));
+  return [...s].sort((a, b) => a - b);
+}
+
+const ERROR_NAMES: Record<number, string> = {
+  400: "BadRequest", 401: "Unauthorized", 403: "Forbidden", 404: "NotFound", 409: "Conflict", 412: "PreconditionFailed",
+  413: "PayloadTooLarge", 415: "UnsupportedMediaType", 422: "UnprocessableContent", 428: "PreconditionRequired",
+  429: "TooManyRequests", 500: "InternalError",
+};
+
+export function buildOpenApi(operations: Operation[], extra?: (registry: OpenAPIRegistry) => void) {
+  const registry = new OpenAPIRegistry();
+  const bearer = registry.registerComponent("securitySchemes", "apiKey", {
+    type: "http",
+    scheme: "bearer",
+    description: "An API key of your shop: `Authorization: Bearer swk_live_…`. Create one in the console or with `npm run key:create`.",
+  });
+  registry.register("Problem", Problem);
+  const headerRefs: Record<string, { $ref: string }> = {};
+  for (const [name, spec] of Object.entries({ ...COMMON_HEADERS, ...RATE_HEADERS, "Retry-After": { description: "Seconds to wait before retrying.", schema: { type: "integer" as const } } })) {
+    headerRefs[name] = { $ref: `#/components/headers/${registry.registerComponent("headers", name, spec).name}` };
+  }
+  const pick = (names: string[]) => Object.fromEntries(names.map((n) => [n, headerRefs[n]]));
+  const errorRef: Record<number, { $ref: string }> = {};
+  for (const [status, name] of Object.entries(ERROR_NAMES)) {
+    registry.registerComponent("responses", name, {
+      description: ERROR_TEXT[Number(status)],
+      headers: pick(Number(status) === 429 ? ["X-Request-Id", "RateLimit-Policy", "RateLimit", "Retry-After"] : ["X-Request-Id"]),
+      content: { "application/problem+json": { schema: { $ref: "#/components/schemas/Problem" } } },
+    });
+    errorRef[Number(status)] = { $ref: `#/components/responses/${name}` };
+  }
+  extra?.(registry);
+
+  for (const op of operations) {
+    const headers = pick(op.scope ? ["X-Request-Id", "RateLimit-Policy", "RateLimit"] : ["X-Request-Id"]);
+    const responses: RouteConfig["responses"] = {};
+    for (const [status, spec] of Object.entries(op.responses)) {
+      responses[status] = {
+        description: spec.description,
+        headers: { ...headers, ...(spec.headers ?? {}) },
+        ...(spec.schema ? { content: { "application/json": { schema: spec.schema } } } : {}),
+      };
+    }
+    for (const status of errorStatuses(op)) responses[String(status)] ??= errorRef[status] as never;
+    const requestHeaders = [];
+    if (op.method === "post" && op.scope) {
+      requestHeaders.push({
+        name: "Idempotency-Key", in: "header" as const, required: false,
+        description: "Makes a retry safe: the same key and body within 24 h return the first response.",
+        schema: { type: "string" as const, maxLength: 255 },
+      });
+    }
+    if (op.ifMatch) {
+      requestHeaders.push({
+        name: "If-Match", in: "header" as const, required: true,
+        description: "The ETag of the revision you read; a stale one answers 412.",
+        schema: { type: "string" as const },
+      });
+    }
+    registry.registerPath({
+      method: op.method,
+      path: `${API_PREFIX}${op.path}`,
+      operationId: op.operationId,
+      summary: op.summary,
+      description: op.description,
+      tags: op.tags,
+      security: op.scope ? [{ [bearer.name]: [op.scope] }] : [],
+      request: {
+        ...(op.params ? { params: op.params } : {}),
+        ...(op.query ? { query: op.query } : {}),
+        ...(op.body ? { body: { required: true, content: { "application/json": { schema: op.body } } } } : {}),
+      },
+      ...(requestHeaders.length ? { parameters: requestHeaders } : {}),
+      responses,
+      ...(op.scope ? { "x-required-scope": op.scope } : {}),
+    } as RouteConfig);
+  }
+
+  return new OpenApiGeneratorV31(registry.definitions).generateDocument({
+    openapi: "3.1.0",
+    info: {
+      title: "Shearwire API",
+      version: VERSION,
+      description:
+        "Push cut programs from your ERP, have them checked against the shear and the grade, release them to the machine-side gateway, and hear back through signed webhooks.\n\n" +
+        "Errors are `application/problem+json` (RFC 9457). Every POST accepts an `Idempotency-Key`. Lists page with `limit` and `cursor`.\n\n" +
+        "**Safety.** Computed settings are recommendations for a qualified operator, never a guarantee; the machine's manual, local codes and qualified people come first.",
+    },
+    servers: [{ url: "/", description: "This server" }],
+    tags: [
+      { name: "Programs", description: "Cut programs: create, check, release, cancel." },
+      { name: "Catalog", description: "Shears, grades, gauges and setup recommendations." },
+      { name: "Meta", description: "Health, the OpenAPI document and the JSON Schema." },
+    ],
+  });
+}

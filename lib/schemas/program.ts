@@ -1,0 +1,205 @@
+/**
+ * The cut program: what an ERP sends (ProgramInput), and what Shearwire answers (Program),
+ * with the shear core's check. This one schema validates requests, types the services,
+ * and is the JSON Schema served at /api/v1/schemas/cut-program.json.
+ */
+import { PROGRAM_STATUSES } from "../../entities/Program";
+import { z } from "./zod";
+
+const length = (d: string) => z.number().positive().max(100_000).openapi({ description: `${d}, in the program's units` });
+
+export const CutGroupInput = z
+  .object({
+    backgauge: length("Backgauge distance: the width of each piece this group cuts off"),
+    count: z.number().int().min(0).max(1000).openapi({ description: "Strokes at this setting, per workpiece the group runs on" }),
+    length: length("Length of cut; defaults to the presented edge, shorter for a partial stroke").optional(),
+    turn: z.boolean().optional().openapi({ description: "Take every piece the previous group made, turned 90°, and run this group on each" }),
+    scrap: z.boolean().optional().openapi({ description: "The pieces of this group are offcut (a trim cut)" }),
+    note: z.string().max(200).optional(),
+  })
+  .strict()
+  .openapi("CutGroup");
+
+export const SetupOverridesInput = z
+  .object({
+    rakeDeg: z.number().min(0).max(45).optional().openapi({ description: "Rake angle (degrees)" }),
+    bladeGapMm: z.number().min(0).max(50).optional(),
+    bladeGapIn: z.number().min(0).max(2).optional(),
+    holdDownPct: z.number().min(0).max(100).optional().openapi({ description: "Hold-down as a percentage of the machine's full hold-down force" }),
+    crownMm: z.number().min(0).max(5).optional(),
+    crownIn: z.number().min(0).max(0.2).optional(),
+    backgaugeRetractMm: z.number().min(0).max(100).optional(),
+    backgaugeRetractIn: z.number().min(0).max(4).optional(),
+  })
+  .strict()
+  .openapi("SetupOverrides", { description: "Setup values the program fixes itself; each overrides the computed one and is still checked." });
+
+export const Thickness = z
+  .union([
+    z.object({ value: length("Thickness") }).strict(),
+    z.object({ gauge: z.number().int().min(0).max(50).openapi({ description: "Gauge number in the grade's gauge system" }) }).strict(),
+  ])
+  .openapi("Thickness", { description: '`{ "value": n }` in the program\'s units, or `{ "gauge": n }` in the grade\'s gauge system.' });
+
+const programFields = {
+  reference: z.string().trim().min(1).max(100).openapi({ description: "Your order reference; unique per shop", example: "SO-2291/4" }),
+  title: z.string().max(200).optional(),
+  shear: z.string().min(1).max(64).openapi({ description: "The shear's id", example: "shr_01JEXAMPLE0000000000000000" }),
+  grade: z.string().trim().min(1).max(50).openapi({ description: "The grade's code in your catalog", example: "A36" }),
+  thickness: Thickness,
+  units: z.enum(["in", "mm"]).openapi({ description: "Units of every length in this program" }),
+  sheet: z
+    .object({
+      length: length("The edge presented to the blade"),
+      width: length("The dimension running toward the backgauge"),
+      count: z.number().int().min(1).max(10_000).openapi({ description: "Sheets; each runs the same program" }),
+    })
+    .strict()
+    .openapi("StockSheet"),
+  cuts: z.array(CutGroupInput).min(1).max(500),
+  setup: SetupOverridesInput.optional(),
+  priority: z.number().int().min(0).max(9).optional().openapi({ description: "0 (lowest) to 9 (highest); default 5" }),
+  dueAt: z.iso.datetime({ offset: true }).optional().openapi({ example: "2026-12-08T14:00:00Z" }),
+  metadata: z
+    .record(z.string().min(1).max(64), z.string().max(500))
+    .refine((m) => Object.keys(m).length <= 50, { message: "at most 50 metadata keys" })
+    .optional()
+    .openapi({ description: "Your own key-value pairs, returned as given", example: { erpLine: "4" } }),
+};
+
+export const ProgramInput = z.object(programFields).strict().openapi("ProgramInput", {
+  example: {
+    reference: "SO-2291/4",
+    title: "Side panels, lot 4",
+    shear: "shr_01JEXAMPLE0000000000000000",
+    grade: "A36",
+    thickness: { gauge: 10 },
+    units: "in",
+    sheet: { length: 120, width: 48, count: 2 },
+    cuts: [
+      { backgauge: 12, count: 3, note: "rip strips" },
+      { turn: true, backgauge: 16, length: 12, count: 7 },
+    ],
+    setup: { rakeDeg: 1.5 },
+    priority: 5,
+    dueAt: "2026-12-08T14:00:00Z",
+    metadata: { erpLine: "4" },
+  },
+});
+export const ProgramPatch = z
+  .object(programFields)
+  .partial()
+  .strict()
+  .refine((p) => Object.keys(p).length > 0, { message: "send at least one field to change" })
+  .openapi("ProgramPatch", { description: "Fields to replace; `cuts`, `sheet`, `setup` and `metadata` are replaced whole." });
+
+// ---------------------------------------------------------------- the check (the shear core's answer)
+
+const Quantity = { value: z.number(), unit: z.string() };
+const SetupValue = z.object({ ...Quantity, source: z.enum(["computed", "given"]), why: z.string() }).openapi("SetupValue");
+
+export const Finding = z
+  .object({
+    code: z.string().openapi({ description: "Stable code; see the finding list in the docs", example: "backgauge_beyond_workpiece" }),
+    severity: z.enum(["error", "warning"]).openapi({ description: "`error` blocks release; a `warning` must be acknowledged" }),
+    message: z.string(),
+    pointer: z.string().openapi({ description: "JSON pointer into the submitted program", example: "/cuts/1/backgauge" }),
+    limit: z.number().nullable(),
+    actual: z.number().nullable(),
+    unit: z.string().nullable(),
+  })
+  .openapi("Finding");
+
+const Piece = z.object({ group: z.number().int(), width: z.number(), length: z.number(), count: z.number().int() });
+const Totals = z.object({
+  blanks: z.number(), blankArea: z.number(), offcutPieces: z.number(), offcutArea: z.number(),
+  turnedPieces: z.number(), strokes: z.number(), stockArea: z.number(),
+});
+
+export const Check = z
+  .object({
+    validation: z.enum(["pass", "warn", "fail"]),
+    units: z.enum(["in", "mm"]).nullable(),
+    findings: z.array(Finding),
+    thickness: z
+      .object({ value: z.number(), unit: z.enum(["in", "mm"]), source: z.enum(["value", "gauge"]), gauge: z.number().nullable(), gaugeFamily: z.string().nullable() })
+      .nullable(),
+    setup: z
+      .object({ bladeGap: SetupValue, rake: SetupValue, holdDown: SetupValue, crown: SetupValue, backgaugeRetract: SetupValue })
+      .nullable()
+      .openapi({ description: "Recommendations for a qualified operator, each with its reason; never a guarantee." }),
+    force: z
+      .object({
+        unit: z.enum(["tonf", "kN"]),
+        required: z.number(),
+        rated: z.number(),
+        capacityUsedPct: z.number(),
+        dullBlade: z.object({ factor: z.number(), required: z.number(), capacityUsedPct: z.number() }),
+        rakeDeg: z.number(),
+        tensile: z.object({ ...Quantity, basis: z.enum(["minimum", "typical"]) }),
+        maxThicknessForGrade: z.object({ ...Quantity, source: z.enum(["shear-profile", "model"]), why: z.string() }),
+        byGroup: z.array(z.object({ group: z.number().int(), cutLength: z.number(), force: z.number(), model: z.enum(["raked", "straight"]) })),
+      })
+      .nullable(),
+    yield: z
+      .object({
+        lengthUnit: z.enum(["in", "mm"]),
+        areaUnit: z.enum(["in2", "mm2"]),
+        sheets: z.number().int(),
+        perSheet: Totals,
+        total: Totals,
+        utilisationPct: z.number(),
+        groups: z.array(z.object({ group: z.number().int(), workpieces: z.number(), strokes: z.number(), pieces: z.array(Piece), piecesBecome: z.enum(["blanks", "offcut", "turned"]) })),
+        blanks: z.array(Piece),
+        offcuts: z.array(Piece),
+      })
+      .nullable(),
+    estimate: z
+      .object({
+        strokes: z.number(), backgaugeMoves: z.number(), turns: z.number(), sheets: z.number(),
+        seconds: z.object({ strokes: z.number(), backgauge: z.number(), turns: z.number(), sheets: z.number(), total: z.number() }),
+      })
+      .nullable(),
+  })
+  .openapi("Check", { description: "What the shear core made of a program: findings, setup, force, yield and cycle estimate, in the program's units." });
+
+export const Program = z
+  .object({
+    id: z.string().openapi({ example: "prg_01JEXAMPLE0000000000000000" }),
+    status: z.enum(PROGRAM_STATUSES),
+    revision: z.number().int().openapi({ description: "Bumped by every change; the ETag is its quoted form" }),
+    ...programFields,
+    title: z.string().nullable(),
+    priority: z.number().int(),
+    dueAt: z.string().nullable(),
+    metadata: z.record(z.string(), z.string()),
+    validation: z.enum(["pass", "warn", "fail"]),
+    check: Check,
+    acknowledged: z.array(z.string()).openapi({ description: "Warning codes acknowledged at release" }),
+    releasedAt: z.string().nullable(),
+    cancelledAt: z.string().nullable(),
+    createdAt: z.string(),
+    updatedAt: z.string(),
+  })
+  .openapi("Program");
+
+export const ReleaseInput = z
+  .object({
+    acknowledge: z.array(z.string().max(64)).max(50).optional().openapi({ description: "Warning codes you have read and accept", example: ["strip_narrow"] }),
+  })
+  .strict()
+  .openapi("ReleaseInput");
+
+export const CancelInput = z.object({ reason: z.string().max(500).optional() }).strict().openapi("CancelInput");
+
+export const ProgramListQuery = z.object({
+  status: z.enum(PROGRAM_STATUSES).optional(),
+  shear: z.string().max(64).optional().openapi({ description: "Only programs for this shear id" }),
+  reference: z.string().max(100).optional().openapi({ description: "Only the program with this reference" }),
+  updated_since: z.iso.datetime({ offset: true }).optional().openapi({ description: "Only programs changed at or after this time" }),
+});
+
+export type ProgramInputT = z.infer<typeof ProgramInput>;
+export type ProgramPatchT = z.infer<typeof ProgramPatch>;
+export type ProgramT = z.infer<typeof Program>;
+export type CheckT = z.infer<typeof Check>;

@@ -1,0 +1,57 @@
+/** The shear resource: a machine's capacity profile. Millimetres, MPa, degrees, seconds. */
+import { z } from "./zod";
+
+const mm = (d: string) => z.number().positive().max(100_000).openapi({ description: `${d} (mm)` });
+const deg = (d: string) => z.number().min(0).max(45).openapi({ description: `${d} (degrees)` });
+
+const ShearFields = z.object({
+  name: z.string().trim().min(1).max(100).openapi({ example: "Bay 1 sheet shear" }),
+  description: z.string().max(1000).nullable().optional(),
+  ratedThicknessMm: mm("Thickness of the rating material the shear cuts at the rated rake"),
+  ratedTensileMpa: z.number().positive().max(3000).openapi({ description: "Tensile strength of the rating material (MPa); mild steel is usually rated at about 414 MPa (60 ksi)" }),
+  ratedRakeDeg: deg("Rake at which the rating applies"),
+  bladeLengthMm: mm("Blade length"),
+  backgaugeMinMm: z.number().min(0).max(100_000).openapi({ description: "Shortest backgauge setting (mm)" }),
+  backgaugeMaxMm: mm("Longest backgauge setting"),
+  rakeMinDeg: deg("Lowest rake"),
+  rakeMaxDeg: deg("Highest rake"),
+  gapMinMm: z.number().min(0).max(50).openapi({ description: "Smallest blade gap (mm)" }),
+  gapMaxMm: z.number().positive().max(50).openapi({ description: "Largest blade gap (mm)" }),
+  strokesPerMin: z.number().positive().max(200).openapi({ description: "Strokes per minute at full stroke" }),
+  backgaugeSpeedMmPerS: z.number().positive().max(10_000).openapi({ description: "Backgauge travel speed (mm/s)" }),
+  handlingSecondsPerTurn: z.number().min(0).max(3600).openapi({ description: "Handling time to turn one piece (s)" }),
+  handlingSecondsPerSheet: z.number().min(0).max(3600).openapi({ description: "Handling time to load one sheet (s)" }),
+  maxBladeHardnessHb: z.number().positive().max(800).nullable().optional().openapi({ description: "Hardest material the fitted blades are meant for (Brinell); null = not checked" }),
+  gradeThicknessLimitsMm: z.record(z.string().min(1).max(50), z.number().positive().max(1000)).optional()
+    .openapi({ description: "Explicit maximum thickness per grade code (mm); wins over the derived value", example: { "304": 4 } }),
+  crownAtRatedMm: z.number().min(0).max(5).nullable().optional().openapi({ description: "Crown correction at full rated force (mm); null = the default" }),
+});
+
+function ranges<T extends z.ZodType<Partial<z.infer<typeof ShearFields>>>>(schema: T) {
+  return schema.superRefine((s, ctx) => {
+    const pairs: [keyof typeof s, keyof typeof s][] = [["backgaugeMinMm", "backgaugeMaxMm"], ["rakeMinDeg", "rakeMaxDeg"], ["gapMinMm", "gapMaxMm"]];
+    for (const [lo, hi] of pairs) {
+      if (typeof s[lo] === "number" && typeof s[hi] === "number" && (s[lo] as number) > (s[hi] as number)) {
+        ctx.addIssue({ code: "custom", path: [lo as string], message: `must not exceed ${String(hi)}` });
+      }
+    }
+  });
+}
+
+export const ShearInput = ranges(ShearFields.strict()).openapi("ShearInput");
+export const ShearPatch = ranges(ShearFields.partial().strict()).openapi("ShearPatch");
+
+export const Shear = ShearFields.extend({
+  id: z.string().openapi({ example: "shr_01JEXAMPLE0000000000000000" }),
+  description: z.string().nullable(),
+  maxBladeHardnessHb: z.number().nullable(),
+  gradeThicknessLimitsMm: z.record(z.string(), z.number()),
+  crownAtRatedMm: z.number().nullable(),
+  archivedAt: z.string().nullable(),
+  createdAt: z.string(),
+  updatedAt: z.string(),
+}).openapi("Shear");
+
+export type ShearInputT = z.infer<typeof ShearInput>;
+export type ShearPatchT = z.infer<typeof ShearPatch>;
+export type ShearT = z.infer<typeof Shear>;

@@ -1,0 +1,108 @@
+/**
+ * API keys: created with a recognisable prefix, shown once, stored as a SHA-256 digest,
+ * scoped, optionally expiring and bound to shears, revocable with effect on the next request.
+ */
+import { createHash, randomBytes } from "node:crypto";
+import type { EntityManager } from "@mikro-orm/postgresql";
+import { ApiKey, Shop, type ApiKeyEntity } from "../../entities";
+import type { Scope } from "../../entities/ApiKey";
+import { notFound, unauthorized } from "../api/errors";
+
+export const KEY_PREFIX = "swk_live_";
+const VISIBLE = KEY_PREFIX.length + 4;
+/** last-used is written at most this often per key, so a busy key costs no write per request */
+const LAST_USED_RESOLUTION_MS = 30_000;
+
+export interface ApiKeyView {
+  id: string;
+  name: string;
+  prefix: string;
+  scopes: Scope[];
+  shearIds: string[];
+  expiresAt: string | null;
+  rateLimitPerMin: number | null;
+  revokedAt: string | null;
+  lastUsedAt: string | null;
+  createdAt: string;
+}
+
+export interface NewKey {
+  name: string;
+  scopes: Scope[];
+  shearIds?: string[];
+  expiresAt?: Date | null;
+  createdBy?: string | null;
+  rateLimitPerMin?: number | null;
+}
+
+const digest = (secret: string) => createHash("sha256").update(secret).digest("hex");
+
+export function viewKey(k: ApiKeyEntity): ApiKeyView {
+  return {
+    id: k.id,
+    name: k.name,
+    prefix: k.prefix,
+    scopes: k.scopes,
+    shearIds: k.shearIds,
+    expiresAt: k.expiresAt?.toISOString() ?? null,
+    rateLimitPerMin: k.rateLimitPerMin ?? null,
+    revokedAt: k.revokedAt?.toISOString() ?? null,
+    lastUsedAt: k.lastUsedAt?.toISOString() ?? null,
+    createdAt: k.createdAt.toISOString(),
+  };
+}
+
+export async function createKey(em: EntityManager, shopId: string, input: NewKey) {
+  const secret = `${KEY_PREFIX}${randomBytes(24).toString("base64url")}`;
+  const key = em.create(ApiKey, {
+    shop: em.getReference(Shop, shopId),
+    name: input.name,
+    prefix: secret.slice(0, VISIBLE),
+    hash: digest(secret),
+    scopes: [...new Set(input.scopes)],
+    shearIds: input.shearIds ?? [],
+    expiresAt: input.expiresAt ?? null,
+    rateLimitPerMin: input.rateLimitPerMin ?? null,
+    createdBy: input.createdBy ?? null,
+  });
+  await em.flush();
+  return { key: viewKey(key), secret };
+}
+
+export interface Principal {
+  keyId: string;
+  shopId: string;
+  scopes: Scope[];
+  shearIds: string[];
+  rateLimitPerMin: number | null;
+}
+
+/** Resolve an `Authorization: Bearer swk_live_…` header to its key, or throw 401. */
+export async function authenticate(em: EntityManager, header: string | null): Promise<Principal> {
+  const match = header?.match(/^Bearer\s+(\S+)$/i);
+  if (!match) throw unauthorized("Send an API key as `Authorization: Bearer swk_live_…`.");
+  const secret = match[1];
+  if (!secret.startsWith(KEY_PREFIX)) throw unauthorized("That is not a Shearwire API key.");
+  const key = await em.findOne(ApiKey, { hash: digest(secret) }, { disableIdentityMap: true });
+  const now = new Date();
+  if (!key) throw unauthorized("The API key is not valid.");
+  if (key.revokedAt) throw unauthorized("The API key was revoked.");
+  if (key.expiresAt && key.expiresAt <= now) throw unauthorized("The API key has expired.");
+  if (!key.lastUsedAt || now.getTime() - key.lastUsedAt.getTime() > LAST_USED_RESOLUTION_MS) {
+    await em.nativeUpdate(ApiKey, { id: key.id }, { lastUsedAt: now });
+  }
+  return { keyId: key.id, shopId: key.shop.id, scopes: key.scopes, shearIds: key.shearIds, rateLimitPerMin: key.rateLimitPerMin ?? null };
+}
+
+export async function listKeys(em: EntityManager, shopId: string): Promise<ApiKeyView[]> {
+  const keys = await em.find(ApiKey, { shop: shopId }, { orderBy: { createdAt: "desc" } });
+  return keys.map(viewKey);
+}
+
+export async function revokeKey(em: EntityManager, shopId: string, keyId: string): Promise<ApiKeyView> {
+  const key = await em.findOne(ApiKey, { id: keyId, shop: shopId });
+  if (!key) throw notFound("API key");
+  key.revokedAt ??= new Date();
+  await em.flush();
+  return viewKey(key);
+}

@@ -1,0 +1,243 @@
+/**
+ * Cut programs: create (checked by the shear core and stored with its findings, setup,
+ * yield and estimate), read, list, update drafts, dry-run check, release and cancel.
+ * Every change and its event are written in one transaction.
+ */
+import { OptimisticLockError, UniqueConstraintViolationException, type EntityManager, type FilterQuery } from "@mikro-orm/postgresql";
+import { Program, Shear, Shop, type ProgramEntity, type ShearEntity } from "../../entities";
+import type { ProgramStatus } from "../../entities/Program";
+import { ApiError, conflict, invalidRequest, notFound, preconditionFailed, preconditionRequired } from "../api/errors";
+import { decodeCursor, page } from "../api/pagination";
+import type { CheckT, ProgramInputT, ProgramPatchT, ProgramT } from "../schemas/program";
+import { checkProgram, type CheckResult } from "../shear";
+import { gradeByCode, gradeProfile, shearProfile } from "./catalog";
+import { recordEvent } from "./events";
+
+export const DEFAULT_PRIORITY = 5;
+const CANCELLABLE: ProgramStatus[] = ["draft", "released", "claimed", "running"];
+
+export const etagOf = (revision: number) => `"${revision}"`;
+
+export function viewProgram(p: ProgramEntity): ProgramT {
+  const input = p.input as ProgramInputT;
+  return {
+    id: p.id,
+    status: p.status,
+    revision: p.revision,
+    reference: p.reference,
+    title: p.title ?? null,
+    shear: p.shear.id,
+    grade: p.gradeCode,
+    thickness: input.thickness,
+    units: input.units,
+    sheet: input.sheet,
+    cuts: input.cuts,
+    ...(input.setup ? { setup: input.setup } : {}),
+    priority: p.priority,
+    dueAt: p.dueAt?.toISOString() ?? null,
+    metadata: p.metadata ?? {},
+    validation: p.validation as ProgramT["validation"],
+    check: p.check as CheckT,
+    acknowledged: p.acknowledged ?? [],
+    releasedAt: p.releasedAt?.toISOString() ?? null,
+    cancelledAt: p.cancelledAt?.toISOString() ?? null,
+    createdAt: p.createdAt.toISOString(),
+    updatedAt: p.updatedAt.toISOString(),
+  };
+}
+
+async function activeShear(em: EntityManager, shopId: string, id: string): Promise<ShearEntity> {
+  const shear = await em.findOne(Shear, { id, shop: shopId });
+  if (!shear || shear.archivedAt) {
+    const message = shear ? "that shear is archived" : "no shear with that id in this shop";
+    throw invalidRequest(`The program's shear cannot be used: ${message}.`, [{ location: "body", pointer: "/shear", message }]);
+  }
+  return shear;
+}
+
+/** Run the shear core on a program with the shop's current catalog. */
+export async function runCheck(em: EntityManager, shopId: string, input: ProgramInputT): Promise<{ shear: ShearEntity; check: CheckResult }> {
+  const shear = await activeShear(em, shopId, input.shear);
+  const grade = await gradeByCode(em, shopId, input.grade);
+  const check = checkProgram(input, { shear: shearProfile(shear), grade: grade ? gradeProfile(grade) : null });
+  return { shear, check };
+}
+
+export async function validateProgram(em: EntityManager, shopId: string, input: ProgramInputT): Promise<CheckT> {
+  return (await runCheck(em, shopId, input)).check as CheckT;
+}
+
+async function byReference(em: EntityManager, shopId: string, reference: string) {
+  return em.findOne(Program, { shop: shopId, reference }, { fields: ["id"], disableIdentityMap: true });
+}
+
+async function duplicateReference(em: EntityManager, shopId: string, reference: string): Promise<ApiError> {
+  const existing = await byReference(em, shopId, reference);
+  return conflict(`A program with reference "${reference}" already exists in this shop.`, { existingId: existing?.id ?? null });
+}
+
+function applyInput(program: ProgramEntity, input: ProgramInputT, check: CheckResult) {
+  program.input = input as unknown as Record<string, unknown>;
+  program.reference = input.reference;
+  program.title = input.title ?? null;
+  program.gradeCode = input.grade;
+  program.units = input.units;
+  program.priority = input.priority ?? DEFAULT_PRIORITY;
+  program.dueAt = input.dueAt ? new Date(input.dueAt) : null;
+  program.metadata = input.metadata ?? {};
+  program.validation = check.validation;
+  program.check = check as unknown as Record<string, unknown>;
+}
+
+export async function createProgram(em: EntityManager, shopId: string, input: ProgramInputT): Promise<ProgramT> {
+  const { shear, check } = await runCheck(em, shopId, input);
+  const existing = await byReference(em, shopId, input.reference);
+  if (existing) throw await duplicateReference(em, shopId, input.reference);
+  try {
+    return await em.transactional(async (tx) => {
+      const program = tx.create(Program, {
+        shop: tx.getReference(Shop, shopId), shear, reference: input.reference, gradeCode: input.grade, units: input.units,
+        input: {}, validation: check.validation, check: {},
+      });
+      applyInput(program, input, check);
+      await tx.flush();
+      const view = viewProgram(program);
+      recordEvent(tx, shopId, "program.created", program.id, { program: view });
+      return view;
+    });
+  } catch (err) {
+    if (err instanceof UniqueConstraintViolationException) throw await duplicateReference(em.fork(), shopId, input.reference);
+    throw err;
+  }
+}
+
+export async function getProgram(em: EntityManager, shopId: string, id: string): Promise<ProgramEntity> {
+  const program = await em.findOne(Program, { id, shop: shopId });
+  if (!program) throw notFound("program");
+  return program;
+}
+
+export interface ProgramFilter {
+  limit: number;
+  cursor?: string;
+  status?: ProgramStatus;
+  shear?: string;
+  reference?: string;
+  updated_since?: string;
+}
+
+export async function listPrograms(em: EntityManager, shopId: string, f: ProgramFilter) {
+  const before = decodeCursor(f.cursor);
+  const where: FilterQuery<ProgramEntity> = {
+    shop: shopId,
+    ...(f.status ? { status: f.status } : {}),
+    ...(f.shear ? { shear: f.shear } : {}),
+    ...(f.reference ? { reference: f.reference } : {}),
+    ...(f.updated_since ? { updatedAt: { $gte: new Date(f.updated_since) } } : {}),
+    ...(before ? { id: { $lt: before } } : {}),
+  };
+  const rows = await em.find(Program, where, { orderBy: { id: "desc" }, limit: f.limit + 1 });
+  const p = page(rows, f.limit);
+  return { data: p.data.map(viewProgram), next_cursor: p.next_cursor };
+}
+
+/** Check If-Match against the program's revision: 428 when missing, 412 when stale. */
+export function checkIfMatch(program: ProgramEntity, ifMatch: string | null) {
+  if (ifMatch === null) throw preconditionRequired("Send If-Match with the ETag you read (GET the program first).");
+  const tags = ifMatch.split(",").map((t) => t.trim().replace(/^W\//, ""));
+  if (!tags.includes("*") && !tags.includes(etagOf(program.revision))) {
+    throw preconditionFailed(`The program is at revision ${program.revision}; read it again and retry.`, { currentRevision: program.revision });
+  }
+}
+
+function mustBe(program: ProgramEntity, allowed: ProgramStatus[], action: string) {
+  if (!allowed.includes(program.status)) {
+    throw conflict(`A ${program.status} program cannot be ${action}.`, { currentStatus: program.status, allowedFrom: allowed });
+  }
+}
+
+export async function updateProgram(em: EntityManager, shopId: string, id: string, patch: ProgramPatchT, ifMatch: string | null): Promise<ProgramT> {
+  const program = await getProgram(em, shopId, id);
+  checkIfMatch(program, ifMatch);
+  mustBe(program, ["draft"], "edited");
+  const input = { ...(program.input as ProgramInputT), ...patch } as ProgramInputT;
+  if (patch.reference && patch.reference !== program.reference && (await byReference(em, shopId, patch.reference))) {
+    throw await duplicateReference(em, shopId, patch.reference);
+  }
+  const { shear, check } = await runCheck(em, shopId, input);
+  try {
+    return await em.transactional(async (tx) => {
+      const p = await tx.findOneOrFail(Program, { id });
+      if (p.revision !== program.revision) throw preconditionFailed(`The program changed meanwhile (revision ${p.revision}); read it again and retry.`, { currentRevision: p.revision });
+      p.shear = shear;
+      applyInput(p, input, check);
+      await tx.flush();
+      const view = viewProgram(p);
+      recordEvent(tx, shopId, "program.updated", p.id, { program: view, changed: Object.keys(patch) });
+      return view;
+    });
+  } catch (err) {
+    if (err instanceof OptimisticLockError) throw preconditionFailed("The program changed meanwhile; read it again and retry.");
+    if (err instanceof UniqueConstraintViolationException) throw await duplicateReference(em.fork(), shopId, input.reference);
+    throw err;
+  }
+}
+
+export async function releaseProgram(em: EntityManager, shopId: string, id: string, acknowledge: string[] = []): Promise<ProgramT> {
+  const program = await getProgram(em, shopId, id);
+  mustBe(program, ["draft"], "released");
+  // Check again: the shear or grade may have changed since the program was stored.
+  const { check } = await runCheck(em, shopId, program.input as ProgramInputT);
+  if (check.validation === "fail") {
+    throw new ApiError(409, "program-not-releasable", "The program has errors", "Fix the findings of severity `error` before releasing.", {
+      validation: check.validation, findings: check.findings,
+    });
+  }
+  const warnings = [...new Set(check.findings.filter((f) => f.severity === "warning").map((f) => f.code))];
+  const missing = warnings.filter((c) => !acknowledge.includes(c));
+  if (missing.length) {
+    throw new ApiError(409, "warnings-not-acknowledged", "Acknowledge the warnings to release",
+      `Release again with "acknowledge": ${JSON.stringify(warnings)} once you have read them.`,
+      { validation: check.validation, unacknowledged: missing, findings: check.findings.filter((f) => f.severity === "warning") });
+  }
+  return transition(em, shopId, program, "released", "program.released", (p) => {
+    p.validation = check.validation;
+    p.check = check as unknown as Record<string, unknown>;
+    p.acknowledged = warnings;
+    p.releasedAt = new Date();
+  });
+}
+
+export async function cancelProgram(em: EntityManager, shopId: string, id: string, reason?: string): Promise<ProgramT> {
+  const program = await getProgram(em, shopId, id);
+  mustBe(program, CANCELLABLE, "cancelled");
+  return transition(em, shopId, program, "cancelled", "program.cancelled", (p) => { p.cancelledAt = new Date(); }, { reason: reason ?? null });
+}
+
+async function transition(
+  em: EntityManager, shopId: string, program: ProgramEntity, to: ProgramStatus,
+  type: "program.released" | "program.cancelled", change: (p: ProgramEntity) => void, extra: Record<string, unknown> = {},
+): Promise<ProgramT> {
+  const from = program.status;
+  try {
+    return await em.transactional(async (tx) => {
+      // Only move from the state we read; a concurrent transition makes this one fail cleanly.
+      const p = await tx.findOneOrFail(Program, { id: program.id });
+      if (p.status !== from || p.revision !== program.revision) {
+        throw conflict(`The program changed meanwhile and is now ${p.status}.`, { currentStatus: p.status });
+      }
+      p.status = to;
+      change(p);
+      await tx.flush();
+      const view = viewProgram(p);
+      recordEvent(tx, shopId, type, p.id, { program: view, from, ...extra });
+      return view;
+    });
+  } catch (err) {
+    if (err instanceof OptimisticLockError) {
+      const now = await em.fork().findOne(Program, { id: program.id });
+      throw conflict(`The program changed meanwhile and is now ${now?.status}.`, { currentStatus: now?.status });
+    }
+    throw err;
+  }
+}

@@ -1,0 +1,88 @@
+import { spawn, spawnSync } from "node:child_process";
+import { existsSync, mkdirSync, openSync, readFileSync, rmSync, writeFileSync } from "node:fs";
+import path from "node:path";
+import { pidAlive, portInUse, ServiceError } from "./services";
+
+const root = path.resolve(import.meta.dirname, "..", "..");
+const bin = (name: string) => path.join(root, "node_modules", ".bin", name);
+
+/** A long-running process of ours (web server, worker …) started in the background with a pid file. */
+export interface Daemon {
+  name: string;
+  pidFile: string;
+  logFile: string;
+}
+
+export function daemon(dataRoot: string, name: string): Daemon {
+  return { name, pidFile: path.join(dataRoot, `${name}.pid`), logFile: path.join(dataRoot, "logs", `${name}.log`) };
+}
+
+function readPid(d: Daemon): number | null {
+  if (!existsSync(d.pidFile)) return null;
+  const pid = Number(readFileSync(d.pidFile, "utf8"));
+  return Number.isInteger(pid) && pid > 0 ? pid : null;
+}
+
+export function daemonRunning(d: Daemon): boolean {
+  return pidAlive(readPid(d));
+}
+
+export function startDaemon(d: Daemon, cmd: string, args: string[], env: NodeJS.ProcessEnv): number {
+  mkdirSync(path.dirname(d.logFile), { recursive: true });
+  const out = openSync(d.logFile, "a");
+  const child = spawn(cmd, args, { cwd: root, env, detached: true, stdio: ["ignore", out, out] });
+  child.unref();
+  writeFileSync(d.pidFile, String(child.pid));
+  return child.pid!;
+}
+
+/** Stop a daemon and its children (it leads its own process group). */
+export async function stopDaemon(d: Daemon): Promise<"stopped" | "not running"> {
+  const pid = readPid(d);
+  if (!pidAlive(pid)) {
+    rmSync(d.pidFile, { force: true });
+    return "not running";
+  }
+  const signal = (sig: NodeJS.Signals) => {
+    try {
+      process.kill(-pid!, sig);
+    } catch {
+      try { process.kill(pid!, sig); } catch { /* gone */ }
+    }
+  };
+  signal("SIGTERM");
+  for (let i = 0; i < 100 && pidAlive(pid); i++) await new Promise((r) => setTimeout(r, 100));
+  if (pidAlive(pid)) signal("SIGKILL");
+  rmSync(d.pidFile, { force: true });
+  return "stopped";
+}
+
+export function buildApp(env: NodeJS.ProcessEnv) {
+  const r = spawnSync(bin("next"), ["build"], { cwd: root, env, stdio: "inherit" });
+  if (r.status !== 0) throw new ServiceError("next build failed");
+}
+
+export async function startWeb(d: Daemon, port: number, env: NodeJS.ProcessEnv) {
+  if (await portInUse(port)) {
+    throw new ServiceError(`port ${port} on 127.0.0.1 is busy with another program; stop it or set PORT`);
+  }
+  startDaemon(d, bin("next"), ["start", "-H", "127.0.0.1", "-p", String(port)], env);
+}
+
+/** Wait until GET url answers 2xx, or fail with the daemon's log path. */
+export async function waitForHttp(url: string, d: Daemon | null, timeoutMs = 60_000) {
+  const deadline = Date.now() + timeoutMs;
+  let last = "no answer";
+  while (Date.now() < deadline) {
+    try {
+      const res = await fetch(url);
+      if (res.ok) return;
+      last = `HTTP ${res.status}: ${(await res.text()).slice(0, 300)}`;
+    } catch (err) {
+      last = (err as Error).message;
+    }
+    if (d && !daemonRunning(d)) break;
+    await new Promise((r) => setTimeout(r, 250));
+  }
+  throw new ServiceError(`${url} did not come up (${last})${d ? `; see ${d.logFile}` : ""}`);
+}

@@ -1,0 +1,178 @@
+/**
+ * Every operation of the OpenAPI document, called on the real server over HTTP, each
+ * response checked against the document. The last test fails if an operation was missed.
+ */
+import request from "supertest";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import * as catalogOps from "../../lib/api/operations/catalog";
+import { operations } from "../../lib/api/operations";
+import * as metaOps from "../../lib/api/operations/meta";
+import * as programOps from "../../lib/api/operations/programs";
+import { BASE_URL } from "../support/env";
+import { closeTestOrm, createTestShop, exampleProgram, TEST_SHEAR, type TestShop } from "../support/fixtures";
+import { doc, exercised, expectDocumented } from "../support/openapi";
+
+let shop: TestShop;
+const api = () => request(BASE_URL);
+const auth = () => ({ Authorization: `Bearer ${shop.key}` });
+
+beforeAll(async () => {
+  shop = await createTestShop("contract");
+});
+afterAll(closeTestOrm);
+
+describe("meta", () => {
+  it("health", async () => {
+    const res = await api().get("/api/v1/health");
+    expectDocumented(metaOps.getHealth, res);
+    expect(res.status).toBe(200);
+  });
+
+  it("serves the OpenAPI document it is tested against", async () => {
+    const res = await api().get("/api/v1/openapi.json");
+    expectDocumented(metaOps.getOpenApi, res);
+    expect(res.body).toEqual(doc);
+  });
+
+  it("serves the cut program JSON Schema", async () => {
+    const res = await api().get("/api/v1/schemas/cut-program.json");
+    expectDocumented(metaOps.getCutProgramSchema, res);
+    expect(res.body.$schema).toBe("https://json-schema.org/draft/2020-12/schema");
+    expect(res.body.required).toEqual(expect.arrayContaining(["reference", "shear", "grade", "thickness", "units", "sheet", "cuts"]));
+  });
+});
+
+describe("catalog", () => {
+  let shearId: string;
+  let gradeId: string;
+
+  it("lists, creates, reads, changes and archives shears", async () => {
+    const list = await api().get("/api/v1/shears?limit=1").set(auth());
+    expectDocumented(catalogOps.listShears, list);
+    expect(list.body.data).toHaveLength(1);
+
+    const created = await api().post("/api/v1/shears").set(auth()).send({ ...TEST_SHEAR, name: "Contract shear" });
+    expectDocumented(catalogOps.createShear, created);
+    expect(created.status).toBe(201);
+    shearId = created.body.id;
+    expect(shearId).toMatch(/^shr_[0-9A-Z]{26}$/);
+
+    const read = await api().get(`/api/v1/shears/${shearId}`).set(auth());
+    expectDocumented(catalogOps.getShear, read);
+    expect(read.body).toEqual(created.body);
+
+    const changed = await api().patch(`/api/v1/shears/${shearId}`).set(auth()).send({ strokesPerMin: 25, gradeThicknessLimitsMm: { "304": 3 } });
+    expectDocumented(catalogOps.updateShear, changed);
+    expect(changed.body).toMatchObject({ strokesPerMin: 25, gradeThicknessLimitsMm: { "304": 3 } });
+
+    const archived = await api().post(`/api/v1/shears/${shearId}/archive`).set(auth());
+    expectDocumented(catalogOps.archiveShear, archived);
+    expect(archived.body.archivedAt).not.toBeNull();
+    const active = await api().get("/api/v1/shears").set(auth());
+    expect(active.body.data.map((s: { id: string }) => s.id)).not.toContain(shearId);
+    const all = await api().get("/api/v1/shears?include_archived=true").set(auth());
+    expect(all.body.data.map((s: { id: string }) => s.id)).toContain(shearId);
+  });
+
+  it("lists, creates, reads, changes and archives grades", async () => {
+    const list = await api().get("/api/v1/grades?family=stainless").set(auth());
+    expectDocumented(catalogOps.listGrades, list);
+    expect(list.body.data.every((g: { family: string }) => g.family === "stainless")).toBe(true);
+
+    const created = await api().post("/api/v1/grades").set(auth()).send({
+      code: "S355", name: "Structural steel (demo entry)", family: "hsla-steel", standard: "entered by the shop",
+      yieldMpa: 355, tensileMinMpa: 470, gaugeFamily: null,
+    });
+    expectDocumented(catalogOps.createGrade, created);
+    expect(created.status).toBe(201);
+    expect(created.body.shearTensileRatio).toBeGreaterThan(0);
+    gradeId = created.body.id;
+
+    const read = await api().get(`/api/v1/grades/${gradeId}`).set(auth());
+    expectDocumented(catalogOps.getGrade, read);
+
+    const changed = await api().patch(`/api/v1/grades/${gradeId}`).set(auth()).send({ hardnessHb: 160 });
+    expectDocumented(catalogOps.updateGrade, changed);
+    expect(changed.body.hardnessHb).toBe(160);
+
+    const archived = await api().post(`/api/v1/grades/${gradeId}/archive`).set(auth());
+    expectDocumented(catalogOps.archiveGrade, archived);
+    expect(archived.body.archivedAt).not.toBeNull();
+  });
+
+  it("reads the gauge tables", async () => {
+    const res = await api().get("/api/v1/gauges").set(auth());
+    expectDocumented(catalogOps.listGauges, res);
+    expect(res.body.data.map((t: { family: string }) => t.family)).toEqual(["msg", "galvanized", "ussg", "awg"]);
+    const msg = res.body.data[0].rows.find((r: { gauge: number }) => r.gauge === 10);
+    expect(msg.in).toBeCloseTo(0.1345, 4); // Manufacturers' Standard Gauge chart: 10 ga = 0.1345 in
+  });
+
+  it("recommends a setup without a program", async () => {
+    const res = await api().post("/api/v1/setup").set(auth()).send({ shear: shop.shearId, grade: "A36", thickness: { gauge: 10 }, units: "in" });
+    expectDocumented(catalogOps.recommendSetup, res);
+    expect(res.body.thickness.value).toBeCloseTo(0.1345, 4);
+    expect(res.body.setup.bladeGap.why).toMatch(/thickness/);
+    expect(res.body.findings).toEqual([]);
+
+    const over = await api().post("/api/v1/setup").set(auth()).send({ shear: shop.shearId, grade: "A36", thickness: { value: 12 }, units: "mm" });
+    expect(over.body.findings.map((f: { code: string }) => f.code)).toContain("thickness_over_capacity");
+  });
+});
+
+describe("programs", () => {
+  let id: string;
+  let etag: string;
+
+  it("checks a program without storing it", async () => {
+    const res = await api().post("/api/v1/programs/validate").set(auth()).send(exampleProgram(shop.shearId));
+    expectDocumented(programOps.validateProgram, res);
+    expect(res.body).toMatchObject({ validation: "pass", findings: [] });
+    const none = await api().get("/api/v1/programs").set(auth());
+    expect(none.body.data).toEqual([]);
+  });
+
+  it("creates a program with its check", async () => {
+    const res = await api().post("/api/v1/programs").set(auth()).send(exampleProgram(shop.shearId, "SO-2291/4"));
+    expectDocumented(programOps.createProgram, res);
+    expect(res.status).toBe(201);
+    id = res.body.id;
+    etag = res.headers.etag;
+    expect(res.headers.location).toBe(`/api/v1/programs/${id}`);
+    expect(etag).toBe('"1"');
+    // the cut-program worked example of our API docs: 56 blanks, 62 strokes, 93.3 % of the stock used
+    expect(res.body.check.yield.total).toMatchObject({ blanks: 56, strokes: 62 });
+    expect(res.body.check.yield.utilisationPct).toBe(93.3);
+  });
+
+  it("reads and lists programs", async () => {
+    const read = await api().get(`/api/v1/programs/${id}`).set(auth());
+    expectDocumented(programOps.getProgram, read);
+    expect(read.headers.etag).toBe(etag);
+    const list = await api().get("/api/v1/programs?status=draft&reference=SO-2291%2F4").set(auth());
+    expectDocumented(programOps.listPrograms, list);
+    expect(list.body.data.map((p: { id: string }) => p.id)).toEqual([id]);
+  });
+
+  it("changes a draft with If-Match", async () => {
+    const res = await api().patch(`/api/v1/programs/${id}`).set(auth()).set("If-Match", etag).send({ title: "Side panels, lot 4 (rev B)" });
+    expectDocumented(programOps.updateProgram, res);
+    expect(res.body.revision).toBe(2);
+    etag = res.headers.etag;
+  });
+
+  it("releases and cancels", async () => {
+    const released = await api().post(`/api/v1/programs/${id}/release`).set(auth()).send({});
+    expectDocumented(programOps.releaseProgram, released);
+    expect(released.body.status).toBe("released");
+    const cancelled = await api().post(`/api/v1/programs/${id}/cancel`).set(auth()).send({ reason: "order withdrawn" });
+    expectDocumented(programOps.cancelProgram, cancelled);
+    expect(cancelled.body.status).toBe("cancelled");
+  });
+});
+
+describe("the document", () => {
+  it("has been exercised operation by operation", () => {
+    expect([...exercised].sort()).toEqual(operations.map((o) => o.operationId).sort());
+  });
+});

@@ -1,0 +1,44 @@
+import { MikroORM } from "@mikro-orm/postgresql";
+import bcrypt from "bcryptjs";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { Grade, Membership, Shear, User } from "../../entities";
+import { ormConfig } from "../../lib/db/config";
+import { migrateUp } from "../../lib/db/migrate";
+import { isId } from "../../lib/ids";
+import { DEMO_PASSWORD, seedDemo } from "../../scripts/lib/seed";
+import { recreateDatabase } from "../support/db";
+
+let orm: MikroORM;
+
+beforeAll(async () => {
+  orm = await MikroORM.init(ormConfig(await recreateDatabase("shearwire_seed")));
+  await migrateUp(orm);
+});
+afterAll(async () => orm?.close(true));
+
+describe("demo seed", () => {
+  it("creates the demo shop with two shears of different capacity, the grade library and an owner", async () => {
+    const demo = await seedDemo(orm.em.fork());
+    expect(isId("shop", demo.shop.id)).toBe(true);
+    expect(demo.shears).toHaveLength(2);
+    for (const s of demo.shears) expect(isId("shear", s.id)).toBe(true);
+
+    const em = orm.em.fork();
+    const shears = await em.find(Shear, {}, { orderBy: { ratedThicknessMm: "asc" } });
+    expect(shears[0].ratedThicknessMm).toBeLessThan(shears[1].ratedThicknessMm);
+    expect(await em.count(Grade, { shop: demo.shop.id })).toBe(demo.grades);
+    expect(demo.grades).toBeGreaterThanOrEqual(8);
+
+    const owner = await em.findOneOrFail(User, { email: demo.owner.email });
+    expect(await bcrypt.compare(DEMO_PASSWORD, owner.passwordHash!)).toBe(true);
+    const membership = await em.findOneOrFail(Membership, { user: owner, shop: demo.shop.id });
+    expect(membership.role).toBe("owner");
+  });
+
+  it("is idempotent", async () => {
+    const first = await seedDemo(orm.em.fork());
+    const second = await seedDemo(orm.em.fork());
+    expect(second).toEqual(first);
+    expect(await orm.em.fork().count(Shear)).toBe(2);
+  });
+});

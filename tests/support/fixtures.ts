@@ -1,0 +1,81 @@
+/** Test fixtures written straight to the test database: shops, catalog, keys. */
+import { MikroORM } from "@mikro-orm/postgresql";
+import { Grade, Shear, Shop } from "../../entities";
+import { SCOPES, type Scope } from "../../entities/ApiKey";
+import { ormConfig } from "../../lib/db/config";
+import { createKey } from "../../lib/services/keys";
+import { GRADE_LIBRARY } from "../../lib/shear/grades";
+import { DATABASE_URL } from "./env";
+
+let orm: MikroORM | undefined;
+
+export async function testOrm(): Promise<MikroORM> {
+  orm ??= await MikroORM.init(ormConfig(DATABASE_URL));
+  return orm;
+}
+
+export async function closeTestOrm() {
+  await orm?.close(true);
+  orm = undefined;
+}
+
+let counter = 0;
+
+/** A machine profile for tests (invented figures): a 3 m shear rated 6.35 mm at 414 MPa and 1.5°. */
+export const TEST_SHEAR = {
+  ratedThicknessMm: 6.35, ratedTensileMpa: 414, ratedRakeDeg: 1.5, bladeLengthMm: 3100,
+  backgaugeMinMm: 5, backgaugeMaxMm: 1000, rakeMinDeg: 0.5, rakeMaxDeg: 2.5, gapMinMm: 0.03, gapMaxMm: 1,
+  strokesPerMin: 30, backgaugeSpeedMmPerS: 250, handlingSecondsPerTurn: 6, handlingSecondsPerSheet: 30,
+  maxBladeHardnessHb: 300, gradeThicknessLimitsMm: {},
+};
+
+export interface TestShop {
+  shopId: string;
+  shearId: string;
+  /** a key with every scope */
+  key: string;
+}
+
+/** A new shop with one shear, the grade library and an all-scopes key. */
+export async function createTestShop(label = "shop"): Promise<TestShop> {
+  const em = (await testOrm()).em.fork();
+  const slug = `${label}-${process.pid}-${Date.now()}-${counter++}`;
+  const shop = em.create(Shop, { name: `Test ${slug}`, slug });
+  const shear = em.create(Shear, { ...TEST_SHEAR, name: "Test shear", shop });
+  for (const g of GRADE_LIBRARY) {
+    em.create(Grade, {
+      shop, code: g.code, name: g.name ?? g.code, family: g.family, standard: g.standard, yieldMpa: g.yieldMpa,
+      tensileMinMpa: g.tensileMinMpa, tensileTypicalMpa: g.tensileTypicalMpa, tensileMaxMpa: g.tensileMaxMpa ?? null,
+      valuesAreTypical: g.valuesAreTypical, shearTensileRatio: g.shearTensileRatio, gaugeFamily: g.gaugeFamily, hardnessHb: g.hardnessHb,
+    });
+  }
+  await em.flush();
+  const { secret } = await createKey(em, shop.id, { name: "all scopes", scopes: [...SCOPES] });
+  return { shopId: shop.id, shearId: shear.id, key: secret };
+}
+
+export async function keyFor(shopId: string, scopes: Scope[], extra: { expiresAt?: Date; rateLimitPerMin?: number } = {}) {
+  const em = (await testOrm()).em.fork();
+  return createKey(em, shopId, { name: `test ${scopes.join(",")}`, scopes, ...extra });
+}
+
+/** The cut-program worked example of our API docs, on a given shear. */
+export function exampleProgram(shearId: string, reference = `SO-${Date.now()}-${counter++}`) {
+  return {
+    reference,
+    title: "Side panels, lot 4",
+    shear: shearId,
+    grade: "A36",
+    thickness: { gauge: 10 },
+    units: "in" as const,
+    sheet: { length: 120, width: 48, count: 2 },
+    cuts: [
+      { backgauge: 12, count: 3, note: "rip strips" },
+      { turn: true, backgauge: 16, length: 12, count: 7 },
+    ],
+    setup: { rakeDeg: 1.5 },
+    priority: 5,
+    dueAt: "2026-12-08T14:00:00Z",
+    metadata: { erpLine: "4" },
+  };
+}

@@ -7,7 +7,7 @@ import { spawnSync } from "node:child_process";
 import { existsSync, mkdirSync, readFileSync, rmSync } from "node:fs";
 import path from "node:path";
 import { appEnv } from "./lib/env";
-import { startAll, stopAll, testProfile } from "./lib/services";
+import { findChromium, startAll, stopAll, testProfile } from "./lib/services";
 import { buildApp } from "./lib/web";
 
 const root = path.resolve(import.meta.dirname, "..");
@@ -33,9 +33,11 @@ async function main(): Promise<number> {
   let totals = { passed: 0, failed: 1 };
   let status = 1;
   try {
+    findChromium(); // the browser tests drive Debian's Chromium
     await startAll(profile);
     const env = { ...appEnv(profile, 3100), SHEARWIRE_DIST_DIR: ".next-test" };
     console.log("[test] building the app into .next-test");
+    rmSync(path.join(root, ".next-test"), { recursive: true, force: true }); // a clean build, nothing stale
     buildApp(env);
     const vitest = spawnSync(
       path.join(root, "node_modules", ".bin", "vitest"),

@@ -24,6 +24,7 @@ export const GET = ApiReference({
   theme: "none",
   customCss: palette,
   hideClientButton: false,
+  showDeveloperTools: "never",
   telemetry: false,
   authentication: { preferredSecurityScheme: "apiKey" },
   defaultHttpClient: { targetKey: "shell", clientKey: "curl" },

@@ -96,6 +96,15 @@ export function findRedisServer(install = true): string {
   return findRedisServer(false);
 }
 
+/** Debian's Chromium, for the browser tests (installed with apt as root when missing). */
+export function findChromium(install = true): string {
+  const found = which("chromium");
+  if (found) return found;
+  if (!install) throw new ServiceError("Chromium is not installed (apt-get install chromium)");
+  aptInstall("chromium", "Chromium");
+  return findChromium(false);
+}
+
 // ---------------------------------------------------------------- PostgreSQL
 
 export interface PgOptions {

@@ -6,7 +6,6 @@
  */
 import type { EntityManager } from "@mikro-orm/postgresql";
 import type { z } from "zod";
-import { RequestLog } from "../../entities";
 import { requestEm } from "../db/orm";
 import { newId } from "../ids";
 import { authenticate, type Principal } from "../services/keys";
@@ -16,6 +15,7 @@ import {
 import * as idempotency from "./idempotency";
 import type { Infer, Operation } from "./operation";
 import { consume } from "./rate-limit";
+import { logRequest } from "./request-log";
 
 export const API_PREFIX = "/api/v1";
 export const MAX_BODY_BYTES = Number(process.env.SHEARWIRE_MAX_BODY_BYTES ?? 1_048_576);
@@ -101,12 +101,18 @@ export function route<P extends z.ZodObject<z.ZodRawShape> | undefined, Q extend
     let reserved = false;
     let response: Response;
     let errorType: string | null = null;
+    /** Server-Timing entries, so integrators can see where a slow request spent its time */
+    const timing: string[] = [];
 
     try {
       if (op.scope) {
         em = await requestEm();
+        let t = performance.now();
         principal = await authenticate(em, request.headers.get("authorization"));
+        timing.push(`auth;dur=${(performance.now() - t).toFixed(1)}`);
+        t = performance.now();
         Object.assign(headers, await consume(principal.keyId, principal.rateLimitPerMin));
+        timing.push(`ratelimit;dur=${(performance.now() - t).toFixed(1)}`);
         if (!principal.scopes.includes(op.scope)) {
           throw forbidden(`This operation needs the \`${op.scope}\` scope; the key has ${principal.scopes.map((s) => `\`${s}\``).join(", ") || "none"}.`, { requiredScope: op.scope });
         }
@@ -142,11 +148,14 @@ export function route<P extends z.ZodObject<z.ZodRawShape> | undefined, Q extend
         reserved = true;
       }
 
+      const handlerStarted = performance.now();
       const reply = await handler({
         // public operations (no scope) get no entity manager; they open what they need themselves
         em: em as EntityManager, principal: principal!, params, query, body, request, requestId, ifMatch,
       });
       const status = reply.status ?? 200;
+      timing.push(`handler;dur=${(performance.now() - handlerStarted).toFixed(1)}`);
+      headers["Server-Timing"] = timing.join(", ");
       response = json(status, reply.body, { ...(reply.headers ?? {}), ...headers });
       if (reserved) await idempotency.complete(em!, principal!.keyId, idemKey!, { status, body: reply.body ?? null, headers: reply.headers ?? {} });
       return response;
@@ -163,9 +172,8 @@ export function route<P extends z.ZodObject<z.ZodRawShape> | undefined, Q extend
       return response;
     } finally {
       // Public operations (health, the documents) are not logged: they carry no key and no shop.
-      if (em) await em
-        .fork()
-        .insert(RequestLog, {
+      if (em) {
+        logRequest({
           id: requestId,
           shopId: principal?.shopId ?? null,
           keyId: principal?.keyId ?? null,
@@ -177,8 +185,8 @@ export function route<P extends z.ZodObject<z.ZodRawShape> | undefined, Q extend
           idempotencyKey: idemKey,
           errorType,
           createdAt: new Date(),
-        })
-        .catch((e) => console.error(`[api] could not log request ${requestId}:`, e));
+        });
+      }
     }
   };
 }

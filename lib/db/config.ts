@@ -24,7 +24,7 @@ export function ormConfig(clientUrl = process.env.DATABASE_URL ?? DEFAULT_DATABA
       emit: "ts",
       fileName: (timestamp: string, name?: string) => `Migration${timestamp}${name ? `_${name}` : ""}`,
     },
-    pool: { min: 0, max: Number(process.env.SHEARWIRE_DB_POOL ?? 10) },
+    pool: { min: 0, max: Number(process.env.SHEARWIRE_DB_POOL ?? 20) },
     debug: process.env.SHEARWIRE_SQL_DEBUG === "1",
     allowGlobalContext: false,
   });

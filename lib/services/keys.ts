@@ -83,15 +83,32 @@ export async function authenticate(em: EntityManager, header: string | null): Pr
   if (!match) throw unauthorized("Send an API key as `Authorization: Bearer swk_live_…`.");
   const secret = match[1];
   if (!secret.startsWith(KEY_PREFIX)) throw unauthorized("That is not a Shearwire API key.");
-  const key = await em.findOne(ApiKey, { hash: digest(secret) }, { disableIdentityMap: true });
+  // One indexed lookup per request, without hydrating an entity: this runs before every call.
+  const [key] = await em.getConnection().execute<KeyRow[]>(
+    "select id, shop_id, scopes, shear_ids, rate_limit_per_min, expires_at, revoked_at, last_used_at from api_keys where hash = ?",
+    [digest(secret)],
+  );
   const now = new Date();
   if (!key) throw unauthorized("The API key is not valid.");
-  if (key.revokedAt) throw unauthorized("The API key was revoked.");
-  if (key.expiresAt && key.expiresAt <= now) throw unauthorized("The API key has expired.");
-  if (!key.lastUsedAt || now.getTime() - key.lastUsedAt.getTime() > LAST_USED_RESOLUTION_MS) {
-    await em.nativeUpdate(ApiKey, { id: key.id }, { lastUsedAt: now });
+  if (key.revoked_at) throw unauthorized("The API key was revoked.");
+  if (key.expires_at && new Date(key.expires_at) <= now) throw unauthorized("The API key has expired.");
+  if (!key.last_used_at || now.getTime() - new Date(key.last_used_at).getTime() > LAST_USED_RESOLUTION_MS) {
+    // Not awaited: recording the time must not slow the request down.
+    em.getConnection().execute("update api_keys set last_used_at = ? where id = ?", [now, key.id])
+      .catch((err) => console.error("[keys] could not record last use:", err));
   }
-  return { keyId: key.id, shopId: key.shop.id, scopes: key.scopes, shearIds: key.shearIds, rateLimitPerMin: key.rateLimitPerMin ?? null };
+  return { keyId: key.id, shopId: key.shop_id, scopes: key.scopes, shearIds: key.shear_ids, rateLimitPerMin: key.rate_limit_per_min };
+}
+
+interface KeyRow {
+  id: string;
+  shop_id: string;
+  scopes: Scope[];
+  shear_ids: string[];
+  rate_limit_per_min: number | null;
+  expires_at: Date | null;
+  revoked_at: Date | null;
+  last_used_at: Date | null;
 }
 
 export async function listKeys(em: EntityManager, shopId: string): Promise<ApiKeyView[]> {

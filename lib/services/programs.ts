@@ -57,8 +57,7 @@ async function activeShear(em: EntityManager, shopId: string, id: string): Promi
 
 /** Run the shear core on a program with the shop's current catalog. */
 export async function runCheck(em: EntityManager, shopId: string, input: ProgramInputT): Promise<{ shear: ShearEntity; check: CheckResult }> {
-  const shear = await activeShear(em, shopId, input.shear);
-  const grade = await gradeByCode(em, shopId, input.grade);
+  const [shear, grade] = await Promise.all([activeShear(em, shopId, input.shear), gradeByCode(em, shopId, input.grade)]);
   const check = checkProgram(input, { shear: shearProfile(shear), grade: grade ? gradeProfile(grade) : null });
   return { shear, check };
 }
@@ -90,8 +89,7 @@ function applyInput(program: ProgramEntity, input: ProgramInputT, check: CheckRe
 }
 
 export async function createProgram(em: EntityManager, shopId: string, input: ProgramInputT): Promise<ProgramT> {
-  const { shear, check } = await runCheck(em, shopId, input);
-  const existing = await byReference(em, shopId, input.reference);
+  const [{ shear, check }, existing] = await Promise.all([runCheck(em, shopId, input), byReference(em, shopId, input.reference)]);
   if (existing) throw await duplicateReference(em, shopId, input.reference);
   try {
     return await em.transactional(async (tx) => {

@@ -3,7 +3,7 @@
  * pagination and filters, the outbox events, and what gets logged.
  */
 import request from "supertest";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
 import { Event, RequestLog } from "../../entities";
 import * as ops from "../../lib/api/operations/programs";
 import { BASE_URL } from "../support/env";
@@ -197,12 +197,18 @@ describe("request log", () => {
     const id = res.headers["x-request-id"];
     expect(id).toMatch(/^req_/);
     const em = (await testOrm()).em.fork();
-    const row = await em.findOneOrFail(RequestLog, { id });
+    // rows are written in batches a fraction of a second after the response
+    const row = await vi.waitFor(() => em.findOneOrFail(RequestLog, { id }, { disableIdentityMap: true }), { timeout: 5000, interval: 100 });
     expect(row).toMatchObject({ shopId: shop.shopId, method: "POST", route: "/api/v1/programs", status: 201, idempotencyKey: "log-check-1" });
     expect(row.latencyMs).toBeGreaterThan(0);
     const raw = JSON.stringify(await em.getConnection().execute("select * from request_logs where id = ?", [id]));
     expect(raw).not.toContain(shop.key);
     expect(raw).not.toContain("LOG-SECRET-REF");
+  });
+
+  it("says where the time went (Server-Timing)", async () => {
+    const res = await api().get("/api/v1/shears").set(auth());
+    expect(res.headers["server-timing"]).toMatch(/^auth;dur=[\d.]+, ratelimit;dur=[\d.]+, handler;dur=[\d.]+$/);
   });
 
   it("sends no-store and a request id on every authenticated response, errors included", async () => {

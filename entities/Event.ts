@@ -9,7 +9,7 @@ import { Shop } from "./Shop";
 export const Event = defineEntity({
   name: "Event",
   tableName: "events",
-  indexes: [{ properties: ["shop", "id"] }, { properties: ["subjectId", "id"] }],
+  indexes: [{ properties: ["shop", "id"] }, { properties: ["subjectId", "id"] }, { properties: ["dispatchedAt"] }],
   properties: {
     id: p.string().primary().onCreate(() => newId("event")),
     shop: () => p.manyToOne(Shop).deleteRule("cascade"),
@@ -18,6 +18,8 @@ export const Event = defineEntity({
     /** the id of the object the event is about */
     subjectId: p.string(),
     data: p.json<Record<string, unknown>>(),
+    /** when the event was fanned out into deliveries, one per subscribed endpoint */
+    dispatchedAt: p.datetime().nullable(),
     createdAt: p.datetime().onCreate(() => new Date()),
   },
 });

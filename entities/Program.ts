@@ -17,6 +17,8 @@ export const Program = defineEntity({
   uniques: [{ properties: ["shop", "reference"] }],
   indexes: [
     { properties: ["shop", "status", "id"] },
+    { properties: ["shear", "status", "priority", "dueAt"] },
+    { properties: ["status", "leaseExpiresAt"] },
     { properties: ["shop", "updatedAt", "id"] },
   ],
   properties: {
@@ -41,6 +43,19 @@ export const Program = defineEntity({
     metadata: p.json<Record<string, string>>().default("{}"),
     releasedAt: p.datetime().nullable(),
     cancelledAt: p.datetime().nullable(),
+    // The gateway's lease while the program is claimed or running.
+    /** the API key (a gateway's) that holds the lease */
+    claimedBy: p.string().nullable(),
+    leaseExpiresAt: p.datetime().nullable(),
+    /** how many times a lease on this program expired (a gateway went quiet) */
+    leaseExpiries: p.integer().default(0),
+    claimedAt: p.datetime().nullable(),
+    startedAt: p.datetime().nullable(),
+    finishedAt: p.datetime().nullable(),
+    /** the last progress report: groups and strokes done */
+    progress: p.json<{ groupsDone: number; strokesDone: number; piecesDone?: number } | null>().nullable(),
+    /** the completion or failure report */
+    outcome: p.json<Record<string, unknown> | null>().nullable(),
     createdAt: p.datetime().onCreate(() => new Date()),
     updatedAt: p.datetime().onCreate(() => new Date()).onUpdate(() => new Date()),
   },

@@ -1,5 +1,7 @@
 import type { InferEntity } from "@mikro-orm/core";
 import { ApiKey } from "./ApiKey";
+import { Delivery } from "./Delivery";
+import { DeliveryAttempt } from "./DeliveryAttempt";
 import { Event } from "./Event";
 import { Grade } from "./Grade";
 import { IdempotencyRecord } from "./IdempotencyRecord";
@@ -9,10 +11,13 @@ import { RequestLog } from "./RequestLog";
 import { Shear } from "./Shear";
 import { Shop } from "./Shop";
 import { User } from "./User";
+import { WebhookEndpoint } from "./WebhookEndpoint";
 
-export { ApiKey, Event, Grade, IdempotencyRecord, Membership, Program, RequestLog, Shear, Shop, User };
+export { ApiKey, Delivery, DeliveryAttempt, Event, Grade, IdempotencyRecord, Membership, Program, RequestLog, Shear, Shop, User, WebhookEndpoint };
 
 export type ApiKeyEntity = InferEntity<typeof ApiKey>;
+export type DeliveryEntity = InferEntity<typeof Delivery>;
+export type WebhookEndpointEntity = InferEntity<typeof WebhookEndpoint>;
 export type EventEntity = InferEntity<typeof Event>;
 export type ProgramEntity = InferEntity<typeof Program>;
 export type GradeEntity = InferEntity<typeof Grade>;
@@ -21,4 +26,4 @@ export type ShopEntity = InferEntity<typeof Shop>;
 export type UserEntity = InferEntity<typeof User>;
 
 /** Every entity, for the ORM configuration. */
-export const entities = [Shop, User, Membership, Shear, Grade, ApiKey, RequestLog, IdempotencyRecord, Program, Event];
+export const entities = [Shop, User, Membership, Shear, Grade, ApiKey, RequestLog, IdempotencyRecord, Program, Event, WebhookEndpoint, Delivery, DeliveryAttempt];

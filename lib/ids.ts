@@ -14,6 +14,9 @@ export const ID_PREFIXES = {
   program: "prg",
   event: "evt",
   request: "req",
+  endpoint: "whe",
+  delivery: "dlv",
+  attempt: "att",
 } as const;
 
 export type IdKind = keyof typeof ID_PREFIXES;

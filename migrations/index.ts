@@ -6,8 +6,10 @@
 import type { MigrationObject } from "@mikro-orm/core";
 import { Migration20261201234604_initial } from "./Migration20261201234604_initial";
 import { Migration20261201235446_api } from "./Migration20261201235446_api";
+import { Migration20261202001919_hub } from "./Migration20261202001919_hub";
 
 export const migrationsList: MigrationObject[] = [
   { name: "Migration20261201234604_initial", class: Migration20261201234604_initial },
   { name: "Migration20261201235446_api", class: Migration20261201235446_api },
+  { name: "Migration20261202001919_hub", class: Migration20261202001919_hub },
 ];

@@ -3,7 +3,7 @@ import { devProfile, stopAll } from "./lib/services";
 import { daemon, stopDaemon } from "./lib/web";
 
 const profile = devProfile();
-for (const name of ["web"]) {
+for (const name of ["web", "worker", "mail"]) {
   console.log(`[down] ${name}: ${await stopDaemon(daemon(profile.dataRoot, name))}`);
 }
 const res = await stopAll(profile);

@@ -10,7 +10,8 @@ import { appEnv } from "./lib/env";
 import { demoKey } from "./lib/demo-key";
 import { seedDemo } from "./lib/seed";
 import { devProfile, startAll, ServiceError } from "./lib/services";
-import { buildApp, daemon, startWeb, stopDaemon, waitForHttp } from "./lib/web";
+import path from "node:path";
+import { buildApp, daemon, startMail, startWeb, startWorker, stopDaemon, waitForHttp } from "./lib/web";
 
 const port = Number(process.env.PORT ?? 3000);
 
@@ -33,11 +34,17 @@ async function main() {
   }
 
   const web = daemon(profile.dataRoot, "web");
-  if ((await stopDaemon(web)) === "stopped") console.log("[up] stopped the previous web server");
+  const worker = daemon(profile.dataRoot, "worker");
+  const mail = daemon(profile.dataRoot, "mail");
+  for (const d of [web, worker, mail]) {
+    if ((await stopDaemon(d)) === "stopped") console.log(`[up] stopped the previous ${d.name} process`);
+  }
   if (process.env.SHEARWIRE_SKIP_BUILD !== "1") {
     console.log("[up] building the app (next build)");
     buildApp(env);
   }
+  await startMail(mail, profile.mail, env);
+  startWorker(worker, env);
   await startWeb(web, port, env);
   await waitForHttp(`${env.SHEARWIRE_BASE_URL}/api/v1/health`, web);
 
@@ -48,6 +55,7 @@ Shearwire is running at ${base}
   Console        ${base}/console
   API reference  ${base}/docs
   Health         ${base}/api/v1/health
+  Mail inbox     http://127.0.0.1:${profile.mail.httpPort}/   (every e-mail the product sends lands here)
 
   Demo shop      ${demo.shop.name}
   Sign in as     ${demo.owner.email}
@@ -57,7 +65,9 @@ Shearwire is running at ${base}
 
   Try it:  curl -H "Authorization: Bearer ${apiKey}" ${base}/api/v1/shears
 
-  Logs           ${web.logFile}
+  Logs           ${path.dirname(web.logFile)}/{web,worker,mail}.log
+  Gateway sim    npm run gateway:sim -- --shear ${demo.shears[0].id} --key ${apiKey}
+  Webhooks       npm run webhook:listen -- --port 4000 --secret <whsec_… of an endpoint you add for http://127.0.0.1:4000/>
   Stop with      npm run down
 
 Safety: settings Shearwire computes are recommendations for a qualified operator. The

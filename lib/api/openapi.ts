@@ -132,6 +132,8 @@ export function buildOpenApi(operations: Operation[], extra?: (registry: OpenAPI
     servers: [{ url: "/", description: "This server" }],
     tags: [
       { name: "Programs", description: "Cut programs: create, check, release, cancel." },
+      { name: "Gateway", description: "For the gateway beside each shear: claim released programs under a lease, report the run." },
+      { name: "Webhooks", description: "Endpoints that hear about every change, signed per Standard Webhooks; the events and each delivery attempt." },
       { name: "Catalog", description: "Shears, grades, gauges and setup recommendations." },
       { name: "Meta", description: "Health, the OpenAPI document and the JSON Schema." },
     ],

@@ -178,6 +178,18 @@ export const Program = z
     acknowledged: z.array(z.string()).openapi({ description: "Warning codes acknowledged at release" }),
     releasedAt: z.string().nullable(),
     cancelledAt: z.string().nullable(),
+    run: z
+      .object({
+        claimedBy: z.string().nullable().openapi({ description: "The gateway key holding the lease" }),
+        claimedAt: z.string().nullable(),
+        leaseExpiresAt: z.string().nullable(),
+        leaseExpiries: z.number().int().openapi({ description: "How often a gateway went quiet and the program went back to `released`" }),
+        startedAt: z.string().nullable(),
+        finishedAt: z.string().nullable(),
+        progress: z.object({ groupsDone: z.number().int(), strokesDone: z.number().int(), piecesDone: z.number().int().optional() }).nullable(),
+        outcome: z.record(z.string(), z.unknown()).nullable().openapi({ description: "The completion or failure report" }),
+      })
+      .openapi("ProgramRun", { description: "What happened at the machine." }),
     createdAt: z.string(),
     updatedAt: z.string(),
   })

@@ -5,14 +5,18 @@
 import type { EntityManager } from "@mikro-orm/postgresql";
 import { Event, Shop } from "../../entities";
 
-export const EVENT_TYPES = [
-  "program.created", "program.updated", "program.released", "program.claimed", "program.started",
-  "program.progressed", "program.completed", "program.failed", "program.cancelled", "program.lease_expired",
-  "endpoint.test",
-] as const;
-export type EventType = (typeof EVENT_TYPES)[number];
+import type { EventType } from "./event-types";
 
-/** Stage an event in the unit of work; it is written by the caller's flush/commit. */
-export function recordEvent(em: EntityManager, shopId: string, type: EventType, subjectId: string, data: Record<string, unknown>) {
-  return em.create(Event, { shop: em.getReference(Shop, shopId), type, subjectId, data });
+export { EVENT_TYPES, type EventType } from "./event-types";
+
+export const OUTBOX_CHANNEL = "shearwire_outbox";
+
+/**
+ * Stage an event in the caller's transaction, and wake the worker when that transaction
+ * commits (PostgreSQL delivers NOTIFY on commit only, so a rolled-back change wakes no one).
+ */
+export async function recordEvent(em: EntityManager, shopId: string, type: EventType, subjectId: string, data: Record<string, unknown>) {
+  const event = em.create(Event, { shop: em.getReference(Shop, shopId), type, subjectId, data });
+  await em.execute(`select pg_notify('${OUTBOX_CHANNEL}', '')`);
+  return event;
 }

@@ -11,7 +11,7 @@ import { decodeCursor, page } from "../api/pagination";
 import type { CheckT, ProgramInputT, ProgramPatchT, ProgramT } from "../schemas/program";
 import { checkProgram, type CheckResult } from "../shear";
 import { gradeByCode, gradeProfile, shearProfile } from "./catalog";
-import { recordEvent } from "./events";
+import { recordEvent, type EventType } from "./events";
 
 export const DEFAULT_PRIORITY = 5;
 const CANCELLABLE: ProgramStatus[] = ["draft", "released", "claimed", "running"];
@@ -41,6 +41,16 @@ export function viewProgram(p: ProgramEntity): ProgramT {
     acknowledged: p.acknowledged ?? [],
     releasedAt: p.releasedAt?.toISOString() ?? null,
     cancelledAt: p.cancelledAt?.toISOString() ?? null,
+    run: {
+      claimedBy: p.claimedBy ?? null,
+      claimedAt: p.claimedAt?.toISOString() ?? null,
+      leaseExpiresAt: p.leaseExpiresAt?.toISOString() ?? null,
+      leaseExpiries: p.leaseExpiries ?? 0,
+      startedAt: p.startedAt?.toISOString() ?? null,
+      finishedAt: p.finishedAt?.toISOString() ?? null,
+      progress: p.progress ?? null,
+      outcome: p.outcome ?? null,
+    },
     createdAt: p.createdAt.toISOString(),
     updatedAt: p.updatedAt.toISOString(),
   };
@@ -100,7 +110,7 @@ export async function createProgram(em: EntityManager, shopId: string, input: Pr
       applyInput(program, input, check);
       await tx.flush();
       const view = viewProgram(program);
-      recordEvent(tx, shopId, "program.created", program.id, { program: view });
+      await recordEvent(tx, shopId, "program.created", program.id, { program: view });
       return view;
     });
   } catch (err) {
@@ -148,7 +158,7 @@ export function checkIfMatch(program: ProgramEntity, ifMatch: string | null) {
   }
 }
 
-function mustBe(program: ProgramEntity, allowed: ProgramStatus[], action: string) {
+export function mustBe(program: ProgramEntity, allowed: ProgramStatus[], action: string) {
   if (!allowed.includes(program.status)) {
     throw conflict(`A ${program.status} program cannot be ${action}.`, { currentStatus: program.status, allowedFrom: allowed });
   }
@@ -171,7 +181,7 @@ export async function updateProgram(em: EntityManager, shopId: string, id: strin
       applyInput(p, input, check);
       await tx.flush();
       const view = viewProgram(p);
-      recordEvent(tx, shopId, "program.updated", p.id, { program: view, changed: Object.keys(patch) });
+      await recordEvent(tx, shopId, "program.updated", p.id, { program: view, changed: Object.keys(patch) });
       return view;
     });
   } catch (err) {
@@ -209,12 +219,20 @@ export async function releaseProgram(em: EntityManager, shopId: string, id: stri
 export async function cancelProgram(em: EntityManager, shopId: string, id: string, reason?: string): Promise<ProgramT> {
   const program = await getProgram(em, shopId, id);
   mustBe(program, CANCELLABLE, "cancelled");
-  return transition(em, shopId, program, "cancelled", "program.cancelled", (p) => { p.cancelledAt = new Date(); }, { reason: reason ?? null });
+  return transition(em, shopId, program, "cancelled", "program.cancelled", (p) => {
+    p.cancelledAt = new Date();
+    p.leaseExpiresAt = null;
+  }, { reason: reason ?? null });
 }
 
-async function transition(
+/**
+ * Move a program to another state (or the same one, for progress), with its event, in one
+ * transaction. Only from the state and revision that were read: a concurrent change makes
+ * this one answer 409 with the state it found.
+ */
+export async function transition(
   em: EntityManager, shopId: string, program: ProgramEntity, to: ProgramStatus,
-  type: "program.released" | "program.cancelled", change: (p: ProgramEntity) => void, extra: Record<string, unknown> = {},
+  type: EventType, change: (p: ProgramEntity) => void, extra: Record<string, unknown> = {},
 ): Promise<ProgramT> {
   const from = program.status;
   try {
@@ -228,7 +246,7 @@ async function transition(
       change(p);
       await tx.flush();
       const view = viewProgram(p);
-      recordEvent(tx, shopId, type, p.id, { program: view, from, ...extra });
+      await recordEvent(tx, shopId, type, p.id, { program: view, from, ...extra });
       return view;
     });
   } catch (err) {

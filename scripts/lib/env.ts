@@ -25,5 +25,8 @@ export function appEnv(profile: Profile, port: number): NodeJS.ProcessEnv {
     NEXTAUTH_URL: process.env.NEXTAUTH_URL ?? baseUrl,
     NEXTAUTH_SECRET: process.env.NEXTAUTH_SECRET ?? persistentSecret(profile.dataRoot, "nextauth"),
     SHEARWIRE_BASE_URL: process.env.SHEARWIRE_BASE_URL ?? baseUrl,
+    SMTP_URL: process.env.SMTP_URL ?? `smtp://127.0.0.1:${profile.mail.smtpPort}`,
+    // A local install is on-premises: the shop's ERP usually sits on its own LAN.
+    SHEARWIRE_ALLOW_PRIVATE_WEBHOOKS: process.env.SHEARWIRE_ALLOW_PRIVATE_WEBHOOKS ?? "1",
   };
 }

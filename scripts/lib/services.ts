@@ -268,11 +268,18 @@ export async function stopRedis(opts: RedisOptions): Promise<"stopped" | "not ru
 
 // ---------------------------------------------------------------- both, by profile
 
+export interface MailOptions {
+  smtpPort: number;
+  httpPort: number;
+  dir: string;
+}
+
 export interface Profile {
   name: "dev" | "test";
   dataRoot: string;
   pg: PgOptions;
   redis: RedisOptions;
+  mail: MailOptions;
 }
 
 const envNum = (name: string, fallback: number) => (process.env[name] ? Number(process.env[name]) : fallback);
@@ -291,6 +298,7 @@ export function devProfile(projectDir = process.cwd()): Profile {
       database: "shearwire",
     },
     redis: { dataDir: path.join(dataRoot, "redis"), port: envNum("SHEARWIRE_REDIS_PORT", 56379) },
+    mail: { smtpPort: envNum("SHEARWIRE_SMTP_PORT", 2525), httpPort: envNum("SHEARWIRE_INBOX_PORT", 2580), dir: path.join(dataRoot, "mail") },
   };
 }
 
@@ -308,6 +316,7 @@ export function testProfile(): Profile {
       database: "shearwire_test",
     },
     redis: { dataDir: path.join(dataRoot, "redis"), port: envNum("SHEARWIRE_TEST_REDIS_PORT", 56389) },
+    mail: { smtpPort: envNum("SHEARWIRE_TEST_SMTP_PORT", 2526), httpPort: envNum("SHEARWIRE_TEST_INBOX_PORT", 2581), dir: path.join(dataRoot, "mail") },
   };
 }
 

@@ -69,6 +69,20 @@ export async function startWeb(d: Daemon, port: number, env: NodeJS.ProcessEnv) 
   startDaemon(d, bin("next"), ["start", "-H", "127.0.0.1", "-p", String(port)], env);
 }
 
+/** The worker process (webhooks, sweepers) in the background. */
+export function startWorker(d: Daemon, env: NodeJS.ProcessEnv) {
+  return startDaemon(d, bin("tsx"), [path.join(root, "scripts", "worker.ts")], env);
+}
+
+/** The fake SMTP server and its inbox page, in the background. */
+export async function startMail(d: Daemon, mail: { smtpPort: number; httpPort: number; dir: string }, env: NodeJS.ProcessEnv) {
+  for (const port of [mail.smtpPort, mail.httpPort]) {
+    if (await portInUse(port)) throw new ServiceError(`port ${port} on 127.0.0.1 is busy with another program; the fake mail server cannot start there`);
+  }
+  startDaemon(d, bin("tsx"), [path.join(root, "scripts", "mail-server.ts"), "--smtp", String(mail.smtpPort), "--http", String(mail.httpPort), "--dir", mail.dir], env);
+  await waitForHttp(`http://127.0.0.1:${mail.httpPort}/messages`, d, 30_000);
+}
+
 /** Wait until GET url answers 2xx, or fail with the daemon's log path. */
 export async function waitForHttp(url: string, d: Daemon | null, timeoutMs = 60_000) {
   const deadline = Date.now() + timeoutMs;

@@ -7,7 +7,10 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import * as catalogOps from "../../lib/api/operations/catalog";
 import { operations } from "../../lib/api/operations";
 import * as metaOps from "../../lib/api/operations/meta";
+import * as gatewayOps from "../../lib/api/operations/gateway";
 import * as programOps from "../../lib/api/operations/programs";
+import * as webhookOps from "../../lib/api/operations/webhooks";
+import { startReceiver, type Receiver } from "../support/receiver";
 import { BASE_URL } from "../support/env";
 import { closeTestOrm, createTestShop, exampleProgram, TEST_SHEAR, type TestShop } from "../support/fixtures";
 import { doc, exercised, expectDocumented } from "../support/openapi";
@@ -168,6 +171,95 @@ describe("programs", () => {
     const cancelled = await api().post(`/api/v1/programs/${id}/cancel`).set(auth()).send({ reason: "order withdrawn" });
     expectDocumented(programOps.cancelProgram, cancelled);
     expect(cancelled.body.status).toBe("cancelled");
+  });
+});
+
+describe("gateway", () => {
+  async function released() {
+    const created = await api().post("/api/v1/programs").set(auth()).send(exampleProgram(shop.shearId));
+    await api().post(`/api/v1/programs/${created.body.id}/release`).set(auth()).send({}).expect(200);
+    return created.body.id as string;
+  }
+
+  it("claims, keeps, starts, reports and completes", async () => {
+    const id = await released();
+    const claim = await api().post(`/api/v1/shears/${shop.shearId}/claims`).set(auth()).send({ waitSeconds: 0 });
+    expectDocumented(gatewayOps.claimProgram, claim);
+    expect(claim.body.program).toMatchObject({ id, status: "claimed" });
+    const hb = await api().post(`/api/v1/programs/${id}/heartbeat`).set(auth()).send({ leaseSeconds: 120 });
+    expectDocumented(gatewayOps.heartbeatProgram, hb);
+    expect(hb.body.lease.seconds).toBe(120);
+    const started = await api().post(`/api/v1/programs/${id}/start`).set(auth());
+    expectDocumented(gatewayOps.startProgram, started);
+    const progressed = await api().post(`/api/v1/programs/${id}/progress`).set(auth()).send({ groupsDone: 2, strokesDone: 10 });
+    expectDocumented(gatewayOps.reportProgress, progressed);
+    expect(progressed.body.run.progress).toEqual({ groupsDone: 2, strokesDone: 10 });
+    const done = await api().post(`/api/v1/programs/${id}/complete`).set(auth()).send({ goodPieces: 56, scrappedPieces: 0 });
+    expectDocumented(gatewayOps.completeProgram, done);
+    expect(done.body).toMatchObject({ status: "completed", run: { outcome: { result: "completed", goodPieces: 56 } } });
+  });
+
+  it("reports a failed run, and answers 204 when nothing is released", async () => {
+    const id = await released();
+    await api().post(`/api/v1/shears/${shop.shearId}/claims`).set(auth()).send({}).expect(200);
+    const failed = await api().post(`/api/v1/programs/${id}/fail`).set(auth()).send({ reason: "guard_tripped", message: "rear guard opened" });
+    expectDocumented(gatewayOps.failProgram, failed);
+    expect(failed.body.status).toBe("failed");
+    const none = await api().post(`/api/v1/shears/${shop.shearId}/claims`).set(auth()).send({ waitSeconds: 0 });
+    expectDocumented(gatewayOps.claimProgram, none);
+    expect(none.status).toBe(204);
+  });
+});
+
+describe("webhooks", () => {
+  let receiver: Receiver;
+  let endpointId: string;
+  beforeAll(async () => { receiver = await startReceiver(); });
+  afterAll(async () => receiver.close());
+
+  it("adds, lists, reads and changes an endpoint", async () => {
+    const created = await api().post("/api/v1/webhook-endpoints").set(auth()).send({ url: receiver.url, description: "contract", eventTypes: ["program.created"] });
+    expectDocumented(webhookOps.createEndpoint, created);
+    expect(created.body.secret).toMatch(/^whsec_/);
+    endpointId = created.body.endpoint.id;
+    const list = await api().get("/api/v1/webhook-endpoints").set(auth());
+    expectDocumented(webhookOps.listEndpoints, list);
+    const read = await api().get(`/api/v1/webhook-endpoints/${endpointId}`).set(auth());
+    expectDocumented(webhookOps.getEndpoint, read);
+    expect(JSON.stringify(read.body)).not.toContain(created.body.secret);
+    const changed = await api().patch(`/api/v1/webhook-endpoints/${endpointId}`).set(auth()).send({ eventTypes: [] });
+    expectDocumented(webhookOps.updateEndpoint, changed);
+  });
+
+  it("sends a test event, rotates the secret, and shows deliveries", async () => {
+    const test = await api().post(`/api/v1/webhook-endpoints/${endpointId}/test`).set(auth());
+    expectDocumented(webhookOps.testEndpoint, test);
+    expect(test.status).toBe(202);
+    await receiver.waitFor(1);
+    const rotated = await api().post(`/api/v1/webhook-endpoints/${endpointId}/rotate-secret`).set(auth()).send({ overlapHours: 1 });
+    expectDocumented(webhookOps.rotateSecret, rotated);
+    expect(rotated.body.endpoint.secretRotation).not.toBeNull();
+    const deliveries = await api().get(`/api/v1/webhook-endpoints/${endpointId}/deliveries`).set(auth());
+    expectDocumented(webhookOps.listEndpointDeliveries, deliveries);
+  });
+
+  it("lists events, reads one with its deliveries, and resends it", async () => {
+    const events = await api().get("/api/v1/events?type=endpoint.test").set(auth());
+    expectDocumented(webhookOps.listEvents, events);
+    const eventId = events.body.data[0].id;
+    const event = await api().get(`/api/v1/events/${eventId}`).set(auth());
+    expectDocumented(webhookOps.getEvent, event);
+    const deliveries = await api().get(`/api/v1/events/${eventId}/deliveries`).set(auth());
+    expectDocumented(webhookOps.listEventDeliveries, deliveries);
+    const resent = await api().post(`/api/v1/events/${eventId}/resend`).set(auth()).send({ endpoint: endpointId });
+    expectDocumented(webhookOps.resendEvent, resent);
+    expect(resent.status).toBe(202);
+  });
+
+  it("removes an endpoint", async () => {
+    const res = await api().delete(`/api/v1/webhook-endpoints/${endpointId}`).set(auth());
+    expectDocumented(webhookOps.deleteEndpoint, res);
+    expect(res.status).toBe(204);
   });
 });
 

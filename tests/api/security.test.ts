@@ -43,6 +43,23 @@ function bodyFor(op: Operation): object | undefined {
       return { note: "changed" };
     case "recommendSetup":
       return { shear: mine.shearId, grade: "A36", thickness: { value: 2 }, units: "mm" };
+    case "claimProgram":
+      return { waitSeconds: 0 };
+    case "heartbeatProgram":
+    case "rotateWebhookSecret":
+      return {};
+    case "reportProgress":
+      return { groupsDone: 1, strokesDone: 1 };
+    case "completeProgram":
+      return { goodPieces: 1 };
+    case "failProgram":
+      return { reason: "other" };
+    case "createWebhookEndpoint":
+      return { url: "http://127.0.0.1:9/hook" };
+    case "updateWebhookEndpoint":
+      return { description: "changed" };
+    case "resendEvent":
+      return { endpoint: foreign.whe };
     default:
       throw new Error(`no sample body for ${op.operationId}`);
   }
@@ -69,6 +86,9 @@ beforeAll(async () => {
   foreign.shr = theirs.shearId;
   const grades = await request(BASE_URL).get("/api/v1/grades?limit=1").set("Authorization", `Bearer ${theirs.key}`).expect(200);
   foreign.grd = grades.body.data[0].id;
+  foreign.whe = (await post("/api/v1/webhook-endpoints", { url: "http://127.0.0.1:9/theirs" })).body.endpoint.id;
+  const events = await request(BASE_URL).get("/api/v1/events?limit=1").set("Authorization", `Bearer ${theirs.key}`).expect(200);
+  foreign.evt = events.body.data[0].id;
 });
 afterAll(closeTestOrm);
 
@@ -91,7 +111,8 @@ describe.each(secured.map((op) => [op.operationId, op] as const))("%s", (_name, 
 
   if (op.path.includes("{id}")) {
     it("answers 404 for another shop's object, saying nothing about it", async () => {
-      const prefix = op.path.startsWith("/programs") ? "prg" : op.path.startsWith("/shears") ? "shr" : "grd";
+      const prefixes: [string, string][] = [["/programs", "prg"], ["/shears", "shr"], ["/grades", "grd"], ["/webhook-endpoints", "whe"], ["/events", "evt"]];
+      const prefix = prefixes.find(([p]) => op.path.startsWith(p))![1];
       const res = await call(op, pathFor(op, foreign[prefix]), mine.key);
       expectDocumented(op, res);
       expect(res.status).toBe(404);

@@ -17,6 +17,7 @@ const profile: Profile = {
   dataRoot,
   pg: { dataDir: path.join(dataRoot, "pg"), port: 55452, user: "shearwire", password: "s3cret-test", database: "svc_test" },
   redis: { dataDir: path.join(dataRoot, "redis"), port: 56399 },
+  mail: { smtpPort: 2599, httpPort: 2598, dir: path.join(dataRoot, "mail") },
 };
 
 async function sql<T = unknown>(query: string): Promise<T[]> {

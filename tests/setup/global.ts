@@ -9,11 +9,10 @@ import path from "node:path";
 import { MikroORM } from "@mikro-orm/postgresql";
 import { ormConfig } from "../../lib/db/config";
 import { migrateUp } from "../../lib/db/migrate";
-import { appEnv } from "../../scripts/lib/env";
 import { startAll, stopAll } from "../../scripts/lib/services";
-import { buildApp, daemon, startWeb, stopDaemon, waitForHttp } from "../../scripts/lib/web";
+import { buildApp, daemon, startMail, startWeb, startWorker, stopDaemon, waitForHttp } from "../../scripts/lib/web";
 import { recreateDatabase } from "../support/db";
-import { BASE_URL, profile, TEST_DIST_DIR, TEST_PORT } from "../support/env";
+import { BASE_URL, profile, TEST_DIST_DIR, TEST_PORT, testAppEnv, WORKER_DAEMON } from "../support/env";
 
 export default async function setup() {
   process.env.SHEARWIRE_QUIET ??= "1";
@@ -26,15 +25,19 @@ export default async function setup() {
     await orm.close(true);
   }
 
-  const env = { ...appEnv(profile, TEST_PORT), SHEARWIRE_DIST_DIR: TEST_DIST_DIR, DATABASE_URL: url };
+  const env = testAppEnv(url);
   if (process.env.SHEARWIRE_REBUILD === "1" || !existsSync(path.join(TEST_DIST_DIR, "BUILD_ID"))) buildApp(env);
   const web = daemon(profile.dataRoot, "web-test");
-  await stopDaemon(web);
+  const worker = daemon(profile.dataRoot, WORKER_DAEMON);
+  const mail = daemon(profile.dataRoot, "mail-test");
+  for (const d of [web, worker, mail]) await stopDaemon(d);
+  await startMail(mail, profile.mail, env);
+  startWorker(worker, env);
   await startWeb(web, TEST_PORT, env);
   await waitForHttp(`${BASE_URL}/api/v1/health`, web);
 
   return async () => {
-    await stopDaemon(web);
+    for (const d of [web, worker, mail]) await stopDaemon(d);
     if (started.pg === "started" && !process.env.SHEARWIRE_KEEP_SERVICES) await stopAll(profile);
   };
 }

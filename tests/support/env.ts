@@ -1,4 +1,5 @@
 /** Where the test suite's own services and server live (see scripts/lib/services.ts testProfile). */
+import { appEnv } from "../../scripts/lib/env";
 import { databaseUrl, redisUrl, testProfile } from "../../scripts/lib/services";
 
 export const profile = testProfile();
@@ -7,3 +8,18 @@ export const BASE_URL = `http://127.0.0.1:${TEST_PORT}`;
 export const DATABASE_URL = databaseUrl(profile.pg);
 export const REDIS_URL = redisUrl(profile.redis);
 export const TEST_DIST_DIR = ".next-test";
+export const WORKER_DAEMON = "worker-test";
+export const INBOX_URL = `http://127.0.0.1:${profile.mail.httpPort}/messages`;
+
+/** The environment of the test server and worker: webhook schedule ×0.001, disable after 3 failures. */
+export function testAppEnv(databaseUrlOverride = DATABASE_URL): NodeJS.ProcessEnv {
+  return {
+    ...appEnv(profile, TEST_PORT),
+    SHEARWIRE_DIST_DIR: TEST_DIST_DIR,
+    DATABASE_URL: databaseUrlOverride,
+    SHEARWIRE_WEBHOOK_TIME_SCALE: "0.001",
+    SHEARWIRE_WEBHOOK_DISABLE_AFTER: "3",
+    SHEARWIRE_ALLOW_PRIVATE_WEBHOOKS: "1",
+    SHEARWIRE_QUIET: "1",
+  };
+}

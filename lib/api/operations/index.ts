@@ -1,7 +1,9 @@
 /** Every operation of API v1; the OpenAPI document and the route-file test read this list. */
 import type { Operation } from "../operation";
 import { catalogOperations } from "./catalog";
+import { gatewayOperations } from "./gateway";
 import { metaOperations } from "./meta";
 import { programOperations } from "./programs";
+import { webhookOperations } from "./webhooks";
 
-export const operations: Operation[] = [...programOperations, ...catalogOperations, ...metaOperations] as Operation[];
+export const operations: Operation[] = [...programOperations, ...gatewayOperations, ...webhookOperations, ...catalogOperations, ...metaOperations] as Operation[];

@@ -1,0 +1,7 @@
+import { heartbeatProgram } from "@/lib/api/operations/gateway";
+import { route } from "@/lib/api/route";
+import * as gateway from "@/lib/services/gateway";
+
+export const POST = route(heartbeatProgram, async ({ em, principal, params, body }) => ({
+  body: await gateway.heartbeat(em, principal, params.id, body?.leaseSeconds),
+}));

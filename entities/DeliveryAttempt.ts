@@ -1,0 +1,20 @@
+import { defineEntity, p } from "@mikro-orm/core";
+import { newId } from "../lib/ids";
+import { Delivery } from "./Delivery";
+
+/** One HTTP attempt of a delivery: when, what came back, how long it took. */
+export const DeliveryAttempt = defineEntity({
+  name: "DeliveryAttempt",
+  tableName: "delivery_attempts",
+  indexes: [{ properties: ["delivery", "id"] }],
+  properties: {
+    id: p.string().primary().onCreate(() => newId("attempt")),
+    delivery: () => p.manyToOne(Delivery).deleteRule("cascade"),
+    attemptedAt: p.datetime(),
+    statusCode: p.integer().nullable(),
+    latencyMs: p.float().columnType("double precision"),
+    /** the first characters of the response body */
+    responseExcerpt: p.text().nullable(),
+    error: p.text().nullable(),
+  },
+});

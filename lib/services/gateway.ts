@@ -1,0 +1,150 @@
+/**
+ * The machine side: gateways claim released programs under a lease (never two at once:
+ * FOR UPDATE SKIP LOCKED), keep it with heartbeats, and report start, progress, completion
+ * or failure. A sweeper returns programs whose lease ran out to `released`.
+ */
+import type { EntityManager } from "@mikro-orm/postgresql";
+import type { z } from "zod";
+import { Program, Shear, type ProgramEntity } from "../../entities";
+import type { ProgramStatus } from "../../entities/Program";
+import { conflict, forbidden, notFound } from "../api/errors";
+import type { CompletionReport, FailureReport, ProgressReport } from "../schemas/gateway";
+import type { ProgramT } from "../schemas/program";
+import { recordEvent } from "./events";
+import type { Principal } from "./keys";
+import { getProgram, mustBe, transition, viewProgram } from "./programs";
+
+export const DEFAULT_LEASE_SECONDS = 60;
+const POLL_MS = 250;
+
+function boundTo(principal: Principal, shearId: string) {
+  if (principal.shearIds.length && !principal.shearIds.includes(shearId)) {
+    throw forbidden(`This gateway key is bound to ${principal.shearIds.join(", ")}, not to ${shearId}.`, { shearIds: principal.shearIds });
+  }
+}
+
+const leaseUntil = (seconds: number) => new Date(Date.now() + seconds * 1000);
+
+/** Return to `released` every program of the shop (or one shear) whose lease has run out. */
+export async function sweepExpiredLeases(em: EntityManager, scope: { shopId?: string; shearId?: string } = {}): Promise<string[]> {
+  return em.transactional(async (tx) => {
+    const rows = await tx.execute<{ id: string }[]>(
+      `select id from programs where status in ('claimed', 'running') and lease_expires_at < now()
+       ${scope.shopId ? "and shop_id = ?" : ""} ${scope.shearId ? "and shear_id = ?" : ""}
+       order by lease_expires_at limit 100 for update skip locked`,
+      [scope.shopId, scope.shearId].filter(Boolean) as string[],
+    );
+    const returned: string[] = [];
+    for (const { id } of rows) {
+      const p = await tx.findOneOrFail(Program, { id }, { populate: ["shop"] });
+      const from = p.status;
+      const gateway = p.claimedBy;
+      const expiredAt = p.leaseExpiresAt;
+      p.status = "released";
+      p.claimedBy = null;
+      p.leaseExpiresAt = null;
+      p.leaseExpiries = (p.leaseExpiries ?? 0) + 1;
+      await tx.flush();
+      await recordEvent(tx, p.shop.id, "program.lease_expired", p.id, {
+        program: viewProgram(p),
+        from,
+        gateway,
+        reason: `No heartbeat from gateway key ${gateway} before the lease ran out at ${expiredAt?.toISOString()}; the program is released again.`,
+      });
+      returned.push(p.id);
+    }
+    return returned;
+  });
+}
+
+/** Claim the next released program of a shear: highest priority, then earliest due, then oldest. */
+async function claimOnce(em: EntityManager, principal: Principal, shearId: string, leaseSeconds: number): Promise<ProgramT | null> {
+  return em.transactional(async (tx) => {
+    const rows = await tx.execute<{ id: string }[]>(
+      `update programs set status = 'claimed', claimed_by = ?, claimed_at = now(), lease_expires_at = ?,
+         progress = null, outcome = null, started_at = null, revision = revision + 1, updated_at = now()
+       where id = (
+         select id from programs where shop_id = ? and shear_id = ? and status = 'released'
+         order by priority desc, due_at asc nulls last, id asc
+         limit 1 for update skip locked)
+       returning id`,
+      [principal.keyId, leaseUntil(leaseSeconds), principal.shopId, shearId],
+    );
+    if (!rows.length) return null;
+    const p = await tx.findOneOrFail(Program, { id: rows[0].id });
+    const view = viewProgram(p);
+    await recordEvent(tx, principal.shopId, "program.claimed", p.id, { program: view, from: "released", gateway: principal.keyId });
+    return view;
+  });
+}
+
+export async function claimNext(
+  em: EntityManager, principal: Principal, shearId: string,
+  opts: { waitSeconds?: number; leaseSeconds?: number; signal?: AbortSignal },
+): Promise<{ program: ProgramT; lease: { expiresAt: string; seconds: number } } | null> {
+  const shear = await em.findOne(Shear, { id: shearId, shop: principal.shopId });
+  if (!shear) throw notFound("shear");
+  boundTo(principal, shearId);
+  const seconds = opts.leaseSeconds ?? DEFAULT_LEASE_SECONDS;
+  const deadline = Date.now() + (opts.waitSeconds ?? 0) * 1000;
+  for (;;) {
+    await sweepExpiredLeases(em.fork(), { shopId: principal.shopId, shearId });
+    const program = await claimOnce(em.fork(), principal, shearId, seconds);
+    if (program) return { program, lease: { expiresAt: program.run.leaseExpiresAt!, seconds } };
+    if (Date.now() + POLL_MS > deadline || opts.signal?.aborted) return null;
+    await new Promise((r) => setTimeout(r, POLL_MS));
+  }
+}
+
+/** The program, held by this gateway, in one of the given states. */
+async function held(em: EntityManager, principal: Principal, id: string, allowed: ProgramStatus[], action: string): Promise<ProgramEntity> {
+  const program = await getProgram(em, principal.shopId, id);
+  boundTo(principal, program.shear.id);
+  mustBe(program, allowed, action);
+  if (program.claimedBy !== principal.keyId) {
+    throw conflict("Another gateway holds this program's lease.", { currentStatus: program.status });
+  }
+  return program;
+}
+
+export async function heartbeat(em: EntityManager, principal: Principal, id: string, leaseSeconds = DEFAULT_LEASE_SECONDS) {
+  const program = await held(em, principal, id, ["claimed", "running"], "kept");
+  program.leaseExpiresAt = leaseUntil(leaseSeconds);
+  await em.flush();
+  return { program: viewProgram(program), lease: { expiresAt: program.leaseExpiresAt.toISOString(), seconds: leaseSeconds } };
+}
+
+export async function start(em: EntityManager, principal: Principal, id: string) {
+  const program = await held(em, principal, id, ["claimed"], "started");
+  return transition(em, principal.shopId, program, "running", "program.started", (p) => {
+    p.startedAt = new Date();
+    p.leaseExpiresAt = leaseUntil(DEFAULT_LEASE_SECONDS);
+  });
+}
+
+export async function progress(em: EntityManager, principal: Principal, id: string, report: z.infer<typeof ProgressReport>) {
+  const program = await held(em, principal, id, ["running"], "reported on");
+  const { leaseSeconds, ...counts } = report;
+  return transition(em, principal.shopId, program, "running", "program.progressed", (p) => {
+    p.progress = counts;
+    p.leaseExpiresAt = leaseUntil(leaseSeconds ?? DEFAULT_LEASE_SECONDS);
+  }, { progress: counts });
+}
+
+export async function complete(em: EntityManager, principal: Principal, id: string, report: z.infer<typeof CompletionReport>) {
+  const program = await held(em, principal, id, ["running"], "completed");
+  return transition(em, principal.shopId, program, "completed", "program.completed", (p) => {
+    p.finishedAt = new Date();
+    p.leaseExpiresAt = null;
+    p.outcome = { result: "completed", ...report };
+  }, { outcome: report });
+}
+
+export async function fail(em: EntityManager, principal: Principal, id: string, report: z.infer<typeof FailureReport>) {
+  const program = await held(em, principal, id, ["claimed", "running"], "failed");
+  return transition(em, principal.shopId, program, "failed", "program.failed", (p) => {
+    p.finishedAt = new Date();
+    p.leaseExpiresAt = null;
+    p.outcome = { result: "failed", ...report };
+  }, { outcome: report });
+}

@@ -9,7 +9,7 @@ export const User = defineEntity({
     id: p.string().primary().onCreate(() => newId("user")),
     email: p.string().unique(),
     name: p.string(),
-    passwordHash: p.string().nullable().hidden(),
+    passwordHash: p.string().nullable(),
     createdAt: p.datetime().onCreate(() => new Date()),
     updatedAt: p.datetime().onCreate(() => new Date()).onUpdate(() => new Date()),
   },

@@ -6,16 +6,9 @@
  */
 import http from "node:http";
 import autocannon from "autocannon";
-import { MikroORM } from "@mikro-orm/postgresql";
 import pg from "pg";
-import { Grade, Shear, Shop } from "../entities";
-import { SCOPES } from "../entities/ApiKey";
-import { ormConfig } from "../lib/db/config";
-import { migrateUp } from "../lib/db/migrate";
-import { createKey } from "../lib/services/keys";
-import { GRADE_LIBRARY } from "../lib/shear/grades";
+import { benchDatabase } from "./lib/bench-setup";
 import { appEnv } from "./lib/env";
-import { databaseUrl, startAll, testProfile } from "./lib/services";
 import { buildApp, daemon, startWeb, stopDaemon, waitForHttp } from "./lib/web";
 
 const CONNECTIONS = 32;
@@ -24,35 +17,9 @@ const PORT = 3210;
 const BARE_PORT = 3211;
 const DIST = ".next-test";
 
-const profile = testProfile();
-process.env.SHEARWIRE_QUIET = "1";
-await startAll(profile);
-const admin = new pg.Client({ connectionString: databaseUrl({ ...profile.pg, database: "postgres" }) });
-await admin.connect();
-await admin.query('drop database if exists "shearwire_bench" with (force)');
-await admin.query('create database "shearwire_bench"');
-await admin.end();
-const url = databaseUrl({ ...profile.pg, database: "shearwire_bench" });
-
-const orm = await MikroORM.init(ormConfig(url));
-await migrateUp(orm);
-const em = orm.em.fork();
-const shop = em.create(Shop, { name: "Bench shop", slug: "bench" });
-const shear = em.create(Shear, {
-  shop, name: "Bench shear", ratedThicknessMm: 6.35, ratedTensileMpa: 414, ratedRakeDeg: 1.5, bladeLengthMm: 3100,
-  backgaugeMinMm: 5, backgaugeMaxMm: 1000, rakeMinDeg: 0.5, rakeMaxDeg: 2.5, gapMinMm: 0.03, gapMaxMm: 1,
-  strokesPerMin: 30, backgaugeSpeedMmPerS: 250, handlingSecondsPerTurn: 6, handlingSecondsPerSheet: 30,
-});
-for (const g of GRADE_LIBRARY) {
-  em.create(Grade, {
-    shop, code: g.code, name: g.name ?? g.code, family: g.family, standard: g.standard, yieldMpa: g.yieldMpa,
-    tensileMinMpa: g.tensileMinMpa, tensileTypicalMpa: g.tensileTypicalMpa, valuesAreTypical: g.valuesAreTypical,
-    shearTensileRatio: g.shearTensileRatio, gaugeFamily: g.gaugeFamily, hardnessHb: g.hardnessHb,
-  });
-}
-await em.flush();
-const { secret } = await createKey(em, shop.id, { name: "bench", scopes: [...SCOPES], rateLimitPerMin: 10_000_000 });
+const { profile, url, orm, shearId, key: secret } = await benchDatabase("shearwire_bench");
 await orm.close(true);
+const shear = { id: shearId };
 
 let n = 0;
 const program = () => JSON.stringify({

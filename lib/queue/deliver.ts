@@ -9,12 +9,15 @@ import https from "node:https";
 import type { EntityManager } from "@mikro-orm/postgresql";
 import { Webhook } from "svix";
 import { Delivery, DeliveryAttempt, type DeliveryEntity, type WebhookEndpointEntity } from "../../entities";
+import { newId } from "../ids";
 import { resolveReceiver } from "./ssrf";
 import { delayBefore, disableAfter, MAX_ATTEMPTS, retryAfterMs } from "./schedule";
 
 export const TIMEOUT_MS = 15_000;
 const EXCERPT_CHARS = 500;
 const USER_AGENT = "Shearwire-Webhooks/1";
+// Connections to receivers are kept open between deliveries (a socket is only ever opened to an address that passed the check).
+const agents = { http: new http.Agent({ keepAlive: true, maxSockets: 64 }), https: new https.Agent({ keepAlive: true, maxSockets: 64 }) };
 
 export interface HttpResult {
   status: number | null;
@@ -43,13 +46,15 @@ export async function post(urlText: string, body: string, headers: Record<string
   } catch (err) {
     return done({ status: null, headers: {}, excerpt: null, error: (err as Error).message });
   }
-  const client = url.protocol === "https:" ? https : http;
+  const secure = url.protocol === "https:";
+  const client = secure ? https : http;
   return new Promise((resolve) => {
     const req = client.request(url, {
       method: "POST",
       headers: { ...headers, "content-type": "application/json", "content-length": Buffer.byteLength(body), "user-agent": USER_AGENT },
       lookup: (_host, _opts, cb) => (cb as (e: null, a: string, f: number) => void)(null, target.address, target.family),
       timeout: TIMEOUT_MS,
+      agent: secure ? agents.https : agents.http,
     });
     const timer = setTimeout(() => req.destroy(new Error(`no answer within ${TIMEOUT_MS / 1000} s`)), TIMEOUT_MS);
     req.on("timeout", () => req.destroy(new Error(`no answer within ${TIMEOUT_MS / 1000} s`)));
@@ -83,30 +88,61 @@ export type AttemptOutcome =
  * Make the next attempt of a pending delivery. The attempt number is claimed first, so two
  * workers that got the same job do not both record it.
  */
-export async function attemptDelivery(em: EntityManager, deliveryId: string, expectedAttempt?: number): Promise<AttemptOutcome> {
-  const delivery = await em.findOne(Delivery, { id: deliveryId }, { populate: ["endpoint", "event"] });
-  if (!delivery || delivery.status !== "pending") return { kind: "done", status: delivery?.status ?? "skipped" };
-  if (expectedAttempt !== undefined && delivery.attempts + 1 !== expectedAttempt) return { kind: "done", status: delivery.status };
-  const endpoint = delivery.endpoint;
-  if (!endpoint.enabled) {
-    delivery.status = "skipped";
-    delivery.lastError = `endpoint disabled: ${endpoint.disabledReason ?? "disabled"}`;
-    delivery.nextAttemptAt = null;
-    await em.flush();
-    return { kind: "done", status: "skipped" };
-  }
-  const attempt = delivery.attempts + 1;
-  const claimed = await em.nativeUpdate(Delivery, { id: deliveryId, attempts: delivery.attempts, status: "pending" }, { attempts: attempt });
-  if (claimed === 0) return { kind: "done", status: delivery.status };
+interface ClaimedRow {
+  attempts: number;
+  url: string;
+  secret: string;
+  previous_secret: string | null;
+  previous_secret_expires_at: Date | null;
+  consecutive_failures: number;
+  event_id: string;
+  event_type: string;
+  event_data: unknown;
+  event_created_at: Date;
+}
 
-  const event = delivery.event;
+/**
+ * Make the next attempt of a pending delivery. The attempt number is claimed first (one
+ * UPDATE that also reads the endpoint and event), so two workers that got the same job do
+ * not both send it; a success is then recorded in one more statement.
+ */
+export async function attemptDelivery(em: EntityManager, deliveryId: string, expectedAttempt?: number): Promise<AttemptOutcome> {
+  const conn = em.getConnection();
+  const [row] = await conn.execute<ClaimedRow[]>(
+    `update deliveries d set attempts = d.attempts + 1, updated_at = now()
+     from webhook_endpoints e, events ev
+     where d.id = ? and d.status = 'pending' and e.id = d.endpoint_id and ev.id = d.event_id and e.enabled
+       ${expectedAttempt !== undefined ? "and d.attempts = ?" : ""}
+     returning d.attempts, e.url, e.secret, e.previous_secret, e.previous_secret_expires_at, e.consecutive_failures,
+       ev.id as event_id, ev.type as event_type, ev.data as event_data, ev.created_at as event_created_at`,
+    expectedAttempt !== undefined ? [deliveryId, expectedAttempt - 1] : [deliveryId],
+  );
+  if (!row) return skipOrNothing(em, deliveryId);
+  const attempt = row.attempts;
+
   const sentAt = new Date();
-  const payload = JSON.stringify({ type: event.type, timestamp: event.createdAt.toISOString(), data: event.data });
-  const result = await post(endpoint.url, payload, {
-    "webhook-id": event.id,
+  const payload = JSON.stringify({ type: row.event_type, timestamp: new Date(row.event_created_at).toISOString(), data: row.event_data });
+  const endpoint = { secret: row.secret, previousSecret: row.previous_secret, previousSecretExpiresAt: row.previous_secret_expires_at ? new Date(row.previous_secret_expires_at) : null };
+  const result = await post(row.url, payload, {
+    "webhook-id": row.event_id,
     "webhook-timestamp": String(Math.floor(sentAt.getTime() / 1000)),
-    "webhook-signature": signatures(endpoint, event.id, sentAt, payload),
+    "webhook-signature": signatures(endpoint, row.event_id, sentAt, payload),
   });
+  const ok = result.status !== null && result.status >= 200 && result.status <= 299;
+
+  if (ok) {
+    // The common case, in one statement: the attempt row, the delivery, and the endpoint's failure count.
+    await conn.execute(
+      `with attempt as (
+         insert into delivery_attempts (id, delivery_id, attempted_at, status_code, latency_ms, response_excerpt, error)
+         values (?, ?, ?, ?, ?, ?, null)),
+       endpoint as (
+         update webhook_endpoints set consecutive_failures = 0 where id = (select endpoint_id from deliveries where id = ?) and consecutive_failures <> 0)
+       update deliveries set status = 'succeeded', next_attempt_at = null, last_status_code = ?, last_error = null, updated_at = now() where id = ?`,
+      [newId("attempt"), deliveryId, sentAt, result.status, result.latencyMs, result.excerpt, deliveryId, result.status, deliveryId],
+    );
+    return { kind: "done", status: "succeeded" };
+  }
 
   return em.transactional(async (tx) => {
     const d = await tx.findOneOrFail(Delivery, { id: deliveryId }, { populate: ["endpoint"] });
@@ -117,14 +153,7 @@ export async function attemptDelivery(em: EntityManager, deliveryId: string, exp
     });
     d.attempts = attempt;
     d.lastStatusCode = result.status;
-    d.lastError = result.error ?? (result.status !== null && (result.status < 200 || result.status > 299) ? `HTTP ${result.status}` : null);
-    const ok = result.status !== null && result.status >= 200 && result.status <= 299;
-    if (ok) {
-      d.status = "succeeded";
-      d.nextAttemptAt = null;
-      ep.consecutiveFailures = 0;
-      return { kind: "done", status: "succeeded" } as const;
-    }
+    d.lastError = result.error ?? `HTTP ${result.status}`;
     ep.consecutiveFailures += 1;
     if (result.status === 410) {
       // The receiver says it is gone for good: stop sending to it.
@@ -149,6 +178,20 @@ export async function attemptDelivery(em: EntityManager, deliveryId: string, exp
     d.nextAttemptAt = new Date(Date.now() + delayMs);
     return { kind: "retry", attempt: attempt + 1, delayMs } as const;
   });
+}
+
+/** Nothing was claimed: the delivery is done, already taken, or its endpoint is disabled (then it is skipped). */
+async function skipOrNothing(em: EntityManager, deliveryId: string): Promise<AttemptOutcome> {
+  const delivery = await em.findOne(Delivery, { id: deliveryId }, { populate: ["endpoint"] });
+  if (!delivery) return { kind: "done", status: "skipped" };
+  if (delivery.status === "pending" && !delivery.endpoint.enabled) {
+    delivery.status = "skipped";
+    delivery.lastError = `endpoint disabled: ${delivery.endpoint.disabledReason ?? "disabled"}`;
+    delivery.nextAttemptAt = null;
+    await em.flush();
+    return { kind: "done", status: "skipped" };
+  }
+  return { kind: "done", status: delivery.status };
 }
 
 function disable(ep: WebhookEndpointEntity, reason: string): AttemptOutcome {

@@ -15,7 +15,7 @@ import { sweepExpiredLeases } from "../services/gateway";
 import { mailEndpointDisabled } from "../services/mail";
 import { attemptDelivery } from "./deliver";
 import { dispatchPending, overdueDeliveries } from "./dispatch";
-import { bullConnection, closeQueue, enqueueAttempt, QUEUE_NAME, type DeliveryJob } from "./queue";
+import { bullConnection, closeQueue, enqueueAttempt, enqueueFirstAttempts, QUEUE_NAME, type DeliveryJob } from "./queue";
 
 const log = (msg: string) => console.log(`[worker] ${new Date().toISOString()} ${msg}`);
 
@@ -36,7 +36,7 @@ export async function runWorker({ concurrency = Number(process.env.SHEARWIRE_WOR
         try {
           for (;;) {
             const ids = await dispatchPending(fork());
-            await Promise.all(ids.map((id) => enqueueAttempt(id, 1)));
+            await enqueueFirstAttempts(ids);
             if (ids.length < 200) break;
           }
         } catch (err) {
@@ -67,7 +67,8 @@ export async function runWorker({ concurrency = Number(process.env.SHEARWIRE_WOR
         await mailEndpointDisabled(em, ep.shop.id, ep, outcome.reason).catch((err) => log(`mail failed: ${err.message}`));
       }
     },
-    { connection: bullConnection(), concurrency, stalledInterval: 5_000, maxStalledCount: 5 },
+    // A worker that dies loses its job locks within 10 s; another run then takes the job up again.
+    { connection: bullConnection(), concurrency, lockDuration: 10_000, stalledInterval: 5_000, maxStalledCount: 5 },
   );
   worker.on("error", (err) => log(`queue: ${err.message}`));
 

@@ -91,8 +91,9 @@ export async function claimNext(
     await sweepExpiredLeases(em.fork(), { shopId: principal.shopId, shearId });
     const program = await claimOnce(em.fork(), principal, shearId, seconds);
     if (program) return { program, lease: { expiresAt: program.run.leaseExpiresAt!, seconds } };
-    if (Date.now() + POLL_MS > deadline || opts.signal?.aborted) return null;
-    await new Promise((r) => setTimeout(r, POLL_MS));
+    const left = deadline - Date.now();
+    if (left <= 0 || opts.signal?.aborted) return null;
+    await new Promise((r) => setTimeout(r, Math.min(POLL_MS, left)));
   }
 }
 

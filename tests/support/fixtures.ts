@@ -1,6 +1,6 @@
 /** Test fixtures written straight to the test database: shops, catalog, keys. */
 import { MikroORM } from "@mikro-orm/postgresql";
-import { Grade, Shear, Shop } from "../../entities";
+import { Grade, Membership, Shear, Shop, User } from "../../entities";
 import { SCOPES, type Scope } from "../../entities/ApiKey";
 import { ormConfig } from "../../lib/db/config";
 import { createKey } from "../../lib/services/keys";
@@ -34,6 +34,8 @@ export interface TestShop {
   shearId: string;
   /** a key with every scope */
   key: string;
+  /** the e-mail addresses of its owner and admin */
+  admins: string[];
 }
 
 /** A new shop with one shear, the grade library and an all-scopes key. */
@@ -49,9 +51,14 @@ export async function createTestShop(label = "shop"): Promise<TestShop> {
       valuesAreTypical: g.valuesAreTypical, shearTensileRatio: g.shearTensileRatio, gaugeFamily: g.gaugeFamily, hardnessHb: g.hardnessHb,
     });
   }
+  const admins = [`owner-${slug}@test.example`, `admin-${slug}@test.example`];
+  for (const [i, email] of [...admins, `viewer-${slug}@test.example`].entries()) {
+    const user = em.create(User, { email, name: `Test person ${i}`, passwordHash: null });
+    em.create(Membership, { user, shop, role: (["owner", "admin", "viewer"] as const)[i] });
+  }
   await em.flush();
   const { secret } = await createKey(em, shop.id, { name: "all scopes", scopes: [...SCOPES] });
-  return { shopId: shop.id, shearId: shear.id, key: secret };
+  return { shopId: shop.id, shearId: shear.id, key: secret, admins };
 }
 
 export async function keyFor(shopId: string, scopes: Scope[], extra: { expiresAt?: Date; rateLimitPerMin?: number } = {}) {

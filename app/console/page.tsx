@@ -1,15 +1,44 @@
 import Link from "next/link";
-import { Logo } from "@/components/Logo";
+import { Badge, PageHeader, Stat } from "@/components/ui";
+import { PROGRAM_STATUSES } from "@/entities/Program";
+import { currentMember } from "@/lib/auth/session";
+import { requestEm } from "@/lib/db/orm";
+import { overview } from "@/lib/services/overview";
 
-export const metadata = { title: "Console" };
+export const metadata = { title: "Overview" };
 
-export default function ConsolePlaceholder() {
+export default async function Overview() {
+  const member = await currentMember();
+  const o = await overview(await requestEm(), member.shopId);
+  const peak = Math.max(1, ...o.requestsPerMinute.map((m) => m.n));
   return (
-    <main className="mx-auto max-w-xl px-6 py-16">
-      <Logo />
-      <h1 className="mt-8 text-2xl font-semibold">The console is being built</h1>
-      <p className="mt-3 text-ink-muted">Sign-in, keys, webhooks, logs, programs, the catalog and the team will live here.</p>
-      <Link className="mt-6 inline-block text-edge hover:underline" href="/">Back to the start page</Link>
-    </main>
+    <>
+      <PageHeader title="Overview" lead={`${member.shopName}: the last hour of API traffic, the last day of webhook deliveries, and every program by state.`} />
+      <section className="grid grid-cols-2 gap-3 lg:grid-cols-4">
+        <Stat label="API requests, last hour" value={o.requestsLastHour} />
+        <Stat label="Error rate" value={`${o.errorRatePct} %`} hint="5xx and 429 answers" />
+        <Stat label="Deliveries succeeded, 24 h" value={o.deliverySuccessPct === null ? "—" : `${o.deliverySuccessPct} %`} hint={`${o.failedDeliveries} gave up`} />
+        <Stat label="Endpoints disabled" value={o.disabledEndpoints} hint={o.disabledEndpoints ? "see Webhooks" : "all receiving"} />
+      </section>
+      <section className="mt-6 rounded-md border border-scale-200 bg-white p-4">
+        <h2 className="text-sm font-semibold">Requests per minute</h2>
+        <div className="mt-3 flex h-24 items-end gap-px" role="img" aria-label="Requests per minute over the last hour">
+          {o.requestsPerMinute.length === 0 && <p className="text-sm text-ink-muted">No API requests in the last hour.</p>}
+          {o.requestsPerMinute.map((m) => (
+            <div key={m.minute} title={`${m.minute.slice(11, 16)} UTC: ${m.n}`} className="w-2 bg-edge" style={{ height: `${(m.n / peak) * 100}%` }} />
+          ))}
+        </div>
+      </section>
+      <section className="mt-6">
+        <h2 className="mb-2 text-sm font-semibold">Programs by state</h2>
+        <div className="flex flex-wrap gap-2">
+          {PROGRAM_STATUSES.map((s) => (
+            <Link key={s} href={`/console/programs?status=${s}`} className="flex items-center gap-2 rounded-md border border-scale-200 bg-white px-3 py-2 hover:border-ink">
+              <Badge value={s} /> <span className="font-mono">{o.programsByStatus[s] ?? 0}</span>
+            </Link>
+          ))}
+        </div>
+      </section>
+    </>
   );
 }

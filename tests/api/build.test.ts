@@ -22,7 +22,7 @@ describe("the built app", () => {
   });
 
   it("pages load nothing from another host", async () => {
-    for (const page of ["/", "/console", "/problems", "/problems/not-found"]) {
+    for (const page of ["/", "/signin", "/problems", "/problems/not-found"]) {
       const html = (await request(BASE_URL).get(page).expect(200)).text;
       const external = [...html.matchAll(/(?:src|href)="(https?:\/\/[^"]+)"/g)].map((m) => m[1]);
       expect(external, page).toEqual([]);

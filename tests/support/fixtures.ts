@@ -1,5 +1,6 @@
 /** Test fixtures written straight to the test database: shops, catalog, keys. */
 import { MikroORM } from "@mikro-orm/postgresql";
+import bcrypt from "bcryptjs";
 import { Grade, Membership, Shear, Shop, User } from "../../entities";
 import { SCOPES, type Scope } from "../../entities/ApiKey";
 import { ormConfig } from "../../lib/db/config";
@@ -21,6 +22,10 @@ export async function closeTestOrm() {
 
 let counter = 0;
 
+/** Every test person signs in with this password (bcrypt, low cost to keep tests quick). */
+export const TEST_PASSWORD = "test-password-1";
+const TEST_PASSWORD_HASH = bcrypt.hashSync(TEST_PASSWORD, 4);
+
 /** A machine profile for tests (invented figures): a 3 m shear rated 6.35 mm at 414 MPa and 1.5°. */
 export const TEST_SHEAR = {
   ratedThicknessMm: 6.35, ratedTensileMpa: 414, ratedRakeDeg: 1.5, bladeLengthMm: 3100,
@@ -36,6 +41,8 @@ export interface TestShop {
   key: string;
   /** the e-mail addresses of its owner and admin */
   admins: string[];
+  /** the e-mail address of its viewer */
+  viewer: string;
 }
 
 /** A new shop with one shear, the grade library and an all-scopes key. */
@@ -53,12 +60,12 @@ export async function createTestShop(label = "shop"): Promise<TestShop> {
   }
   const admins = [`owner-${slug}@test.example`, `admin-${slug}@test.example`];
   for (const [i, email] of [...admins, `viewer-${slug}@test.example`].entries()) {
-    const user = em.create(User, { email, name: `Test person ${i}`, passwordHash: null });
+    const user = em.create(User, { email, name: `Test person ${i}`, passwordHash: TEST_PASSWORD_HASH });
     em.create(Membership, { user, shop, role: (["owner", "admin", "viewer"] as const)[i] });
   }
   await em.flush();
   const { secret } = await createKey(em, shop.id, { name: "all scopes", scopes: [...SCOPES] });
-  return { shopId: shop.id, shearId: shear.id, key: secret, admins };
+  return { shopId: shop.id, shearId: shear.id, key: secret, admins, viewer: `viewer-${slug}@test.example` };
 }
 
 export async function keyFor(shopId: string, scopes: Scope[], extra: { expiresAt?: Date; rateLimitPerMin?: number } = {}) {

@@ -1,0 +1,40 @@
+import Link from "next/link";
+import type { ReactNode } from "react";
+import { LogoMark } from "@/components/Logo";
+import { Nav } from "@/components/console/Nav";
+import { SignOut } from "@/components/console/SignOut";
+import { currentMember } from "@/lib/auth/session";
+import { switchShop } from "./actions";
+
+export const dynamic = "force-dynamic";
+
+export default async function ConsoleLayout({ children }: { children: ReactNode }) {
+  const member = await currentMember();
+  return (
+    <div className="grid min-h-screen grid-cols-[13rem_1fr]">
+      <aside className="flex flex-col gap-6 border-r border-scale-200 bg-scale-100 px-3 py-4">
+        <Link href="/console" className="flex items-center gap-2 px-2 font-semibold"><LogoMark size={22} /> Shearwire</Link>
+        <form action={switchShop} className="px-2">
+          <label className="text-[11px] uppercase tracking-wide text-ink-muted" htmlFor="shop">Shop</label>
+          {member.shops.length > 1 ? (
+            <div className="mt-1 flex gap-1">
+              <select id="shop" name="shop" defaultValue={member.shopId} className="w-full rounded border border-scale-300 bg-white px-1 py-1 text-sm">
+                {member.shops.map((s) => <option key={s.id} value={s.id}>{s.name}</option>)}
+              </select>
+              <button className="rounded border border-scale-300 px-2 text-xs">Go</button>
+            </div>
+          ) : (
+            <p id="shop" className="mt-1 text-sm font-medium">{member.shopName}</p>
+          )}
+        </form>
+        <Nav />
+        <div className="mt-auto px-2 text-xs">
+          <p className="font-medium">{member.name}</p>
+          <p className="text-ink-muted">{member.email} · <span data-testid="role">{member.role}</span></p>
+          <SignOut />
+        </div>
+      </aside>
+      <div className="min-w-0 px-8 py-6">{children}</div>
+    </div>
+  );
+}

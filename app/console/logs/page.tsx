@@ -1,0 +1,58 @@
+import Link from "next/link";
+import { Badge, PageHeader, Table, Td, when } from "@/components/ui";
+import { currentMember } from "@/lib/auth/session";
+import { requestEm } from "@/lib/db/orm";
+import { listKeys } from "@/lib/services/keys";
+import { listRequests, routesSeen, type LogFilter } from "@/lib/services/logs";
+
+export const metadata = { title: "Request log" };
+
+const HOURS = { "1": "last hour", "24": "last day", "168": "last week" } as const;
+
+export default async function Logs({ searchParams }: { searchParams: Promise<Record<string, string | undefined>> }) {
+  const member = await currentMember();
+  const q = await searchParams;
+  const em = await requestEm();
+  const hours = q.hours && q.hours in HOURS ? Number(q.hours) : 24;
+  const filter: LogFilter = {
+    limit: 100, cursor: q.cursor, keyId: q.key || undefined, route: q.route || undefined,
+    statusClass: ["2xx", "3xx", "4xx", "5xx"].includes(q.status ?? "") ? (q.status as LogFilter["statusClass"]) : undefined,
+    from: new Date(Date.now() - hours * 3_600_000),
+  };
+  const [rows, keys, routes] = await Promise.all([listRequests(em, member.shopId, filter), listKeys(em, member.shopId), routesSeen(em, member.shopId)]);
+  const keyName = new Map(keys.map((k) => [k.id, `${k.name} (${k.prefix}…)`]));
+  return (
+    <>
+      <PageHeader title="Request log" lead="Every API call with a key of this shop: who, what, how it went. Bodies and secrets are never logged." />
+      <form className="mb-3 flex flex-wrap items-end gap-2 text-sm">
+        <label className="grid gap-0.5 text-xs">Key
+          <select name="key" defaultValue={q.key ?? ""} className="rounded border border-scale-300 px-2 py-1 text-sm"><option value="">any</option>{keys.map((k) => <option key={k.id} value={k.id}>{keyName.get(k.id)}</option>)}</select>
+        </label>
+        <label className="grid gap-0.5 text-xs">Route
+          <select name="route" defaultValue={q.route ?? ""} className="rounded border border-scale-300 px-2 py-1 text-sm"><option value="">any</option>{routes.map((r) => <option key={r}>{r}</option>)}</select>
+        </label>
+        <label className="grid gap-0.5 text-xs">Status
+          <select name="status" defaultValue={q.status ?? ""} className="rounded border border-scale-300 px-2 py-1 text-sm"><option value="">any</option>{["2xx", "3xx", "4xx", "5xx"].map((s) => <option key={s}>{s}</option>)}</select>
+        </label>
+        <label className="grid gap-0.5 text-xs">Time
+          <select name="hours" defaultValue={String(hours)} className="rounded border border-scale-300 px-2 py-1 text-sm">{Object.entries(HOURS).map(([h, l]) => <option key={h} value={h}>{l}</option>)}</select>
+        </label>
+        <button className="rounded-md bg-ink px-3 py-1.5 text-scale-50">Filter</button>
+      </form>
+      <Table head={["When", "Method", "Path", "Status", "Latency", "Key", "Request id"]} empty="No requests match.">
+        {rows.data.map((r) => (
+          <tr key={r.id}>
+            <Td mono>{when(r.createdAt)}</Td>
+            <Td mono>{r.method}</Td>
+            <Td mono>{r.path}</Td>
+            <Td><Badge value={r.status < 300 ? "succeeded" : r.status < 500 ? "warning" : "error"} label={String(r.status)} /></Td>
+            <Td mono>{r.latencyMs} ms</Td>
+            <Td>{r.keyId ? keyName.get(r.keyId) ?? r.keyId : "—"}</Td>
+            <Td mono><Link className="text-edge hover:underline" href={`/console/logs/${r.id}`}>{r.id}</Link></Td>
+          </tr>
+        ))}
+      </Table>
+      {rows.next_cursor && <Link className="mt-3 inline-block text-sm text-edge hover:underline" href={`/console/logs?${new URLSearchParams({ ...Object.fromEntries(Object.entries(q).filter(([, v]) => v)) as Record<string, string>, cursor: rows.next_cursor })}`}>Older requests →</Link>}
+    </>
+  );
+}

@@ -1,0 +1,38 @@
+"use client";
+
+import { signIn } from "next-auth/react";
+import { useRouter, useSearchParams } from "next/navigation";
+import { useState } from "react";
+
+export function SignInForm() {
+  const router = useRouter();
+  const params = useSearchParams();
+  const [error, setError] = useState<string | null>(params.get("error") === "no-shop" ? "Your account belongs to no shop yet." : null);
+  const [busy, setBusy] = useState(false);
+
+  async function submit(form: FormData) {
+    setBusy(true);
+    setError(null);
+    const res = await signIn("credentials", { email: form.get("email"), password: form.get("password"), redirect: false });
+    setBusy(false);
+    if (res?.ok) router.push(params.get("callbackUrl") ?? "/console");
+    else setError("That e-mail and password do not match an account.");
+  }
+
+  return (
+    <form action={submit} className="mt-8 space-y-4">
+      <label className="block text-sm font-medium">
+        E-mail
+        <input name="email" type="email" required autoComplete="username" autoFocus className="mt-1 w-full rounded-md border border-scale-300 bg-white px-3 py-2" />
+      </label>
+      <label className="block text-sm font-medium">
+        Password
+        <input name="password" type="password" required autoComplete="current-password" className="mt-1 w-full rounded-md border border-scale-300 bg-white px-3 py-2" />
+      </label>
+      {error && <p role="alert" className="rounded-md bg-fault-light px-3 py-2 text-sm text-fault">{error}</p>}
+      <button disabled={busy} className="w-full rounded-md bg-ink px-4 py-2 font-medium text-scale-50 hover:bg-ink-soft disabled:opacity-60">
+        {busy ? "Signing in…" : "Sign in"}
+      </button>
+    </form>
+  );
+}

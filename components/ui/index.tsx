@@ -1,0 +1,77 @@
+import type { ReactNode } from "react";
+
+export function PageHeader({ title, children, lead }: { title: string; lead?: ReactNode; children?: ReactNode }) {
+  return (
+    <header className="mb-5 flex items-start justify-between gap-4">
+      <div>
+        <h1 className="text-xl font-semibold tracking-tight">{title}</h1>
+        {lead && <p className="mt-0.5 text-sm text-ink-muted">{lead}</p>}
+      </div>
+      {children && <div className="flex items-center gap-2">{children}</div>}
+    </header>
+  );
+}
+
+const TONES: Record<string, string> = {
+  draft: "bg-scale-200 text-ink-soft",
+  released: "bg-edge-light text-edge-dark",
+  claimed: "bg-edge-light text-edge-dark",
+  running: "bg-edge text-white",
+  completed: "bg-ok-light text-ok",
+  failed: "bg-fault-light text-fault",
+  cancelled: "bg-scale-200 text-ink-muted line-through",
+  pass: "bg-ok-light text-ok",
+  warn: "bg-caution-light text-caution-dark",
+  fail: "bg-fault-light text-fault",
+  succeeded: "bg-ok-light text-ok",
+  pending: "bg-caution-light text-caution-dark",
+  skipped: "bg-scale-200 text-ink-muted",
+  error: "bg-fault-light text-fault",
+  warning: "bg-caution-light text-caution-dark",
+  enabled: "bg-ok-light text-ok",
+  disabled: "bg-fault-light text-fault",
+  revoked: "bg-fault-light text-fault",
+  active: "bg-ok-light text-ok",
+  expired: "bg-scale-200 text-ink-muted",
+};
+
+export function Badge({ value, label }: { value: string; label?: string }) {
+  return <span className={`inline-block rounded px-1.5 py-0.5 font-mono text-[11px] ${TONES[value] ?? "bg-scale-200"}`}>{label ?? value}</span>;
+}
+
+export function Table({ head, children, empty }: { head: string[]; children: ReactNode; empty?: string }) {
+  const rows = Array.isArray(children) ? children.length : children ? 1 : 0;
+  return (
+    <div className="overflow-x-auto rounded-md border border-scale-200 bg-white">
+      <table className="w-full text-left text-sm">
+        <thead className="border-b border-scale-200 bg-scale-50 text-[11px] uppercase tracking-wide text-ink-muted">
+          <tr>{head.map((h) => <th key={h} className="px-3 py-2 font-medium">{h}</th>)}</tr>
+        </thead>
+        <tbody className="divide-y divide-scale-100">{children}</tbody>
+      </table>
+      {rows === 0 && <p className="px-3 py-6 text-center text-sm text-ink-muted">{empty ?? "Nothing here yet."}</p>}
+    </div>
+  );
+}
+
+export function Td({ children, mono, className = "" }: { children?: ReactNode; mono?: boolean; className?: string }) {
+  return <td className={`px-3 py-2 align-top ${mono ? "font-mono text-xs" : ""} ${className}`}>{children}</td>;
+}
+
+export function Notice({ tone = "info", children }: { tone?: "info" | "error" | "success"; children: ReactNode }) {
+  const cls = tone === "error" ? "bg-fault-light text-fault" : tone === "success" ? "bg-ok-light text-ok" : "bg-edge-light text-edge-dark";
+  return <div role={tone === "error" ? "alert" : "status"} className={`rounded-md px-3 py-2 text-sm ${cls}`}>{children}</div>;
+}
+
+export function Stat({ label, value, hint }: { label: string; value: ReactNode; hint?: string }) {
+  return (
+    <div className="rounded-md border border-scale-200 bg-white px-4 py-3">
+      <p className="text-[11px] uppercase tracking-wide text-ink-muted">{label}</p>
+      <p className="mt-1 font-mono text-2xl">{value}</p>
+      {hint && <p className="text-xs text-ink-muted">{hint}</p>}
+    </div>
+  );
+}
+
+export const when = (d: Date | string | null | undefined) =>
+  d ? new Date(d).toISOString().replace("T", " ").slice(0, 19) + " UTC" : "—";

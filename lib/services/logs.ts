@@ -1,0 +1,39 @@
+/** The request log of a shop: filters by key, route, status class and time. */
+import type { EntityManager, FilterQuery, InferEntity } from "@mikro-orm/postgresql";
+import { RequestLog } from "../../entities";
+import { decodeCursor, page } from "../api/pagination";
+
+export interface LogFilter {
+  keyId?: string;
+  route?: string;
+  statusClass?: "2xx" | "3xx" | "4xx" | "5xx";
+  from?: Date;
+  to?: Date;
+  limit: number;
+  cursor?: string;
+}
+
+export async function listRequests(em: EntityManager, shopId: string, f: LogFilter) {
+  const before = decodeCursor(f.cursor);
+  const cls = f.statusClass ? Number(f.statusClass[0]) * 100 : null;
+  const where: FilterQuery<InferEntity<typeof RequestLog>> = {
+    shopId,
+    ...(f.keyId ? { keyId: f.keyId } : {}),
+    ...(f.route ? { route: f.route } : {}),
+    ...(cls ? { status: { $gte: cls, $lt: cls + 100 } } : {}),
+    ...(f.from || f.to ? { createdAt: { ...(f.from ? { $gte: f.from } : {}), ...(f.to ? { $lte: f.to } : {}) } } : {}),
+    ...(before ? { id: { $lt: before } } : {}),
+  };
+  const rows = await em.find(RequestLog, where, { orderBy: { id: "desc" }, limit: f.limit + 1 });
+  return page(rows, f.limit);
+}
+
+export async function getRequest(em: EntityManager, shopId: string, id: string) {
+  return em.findOne(RequestLog, { id, shopId });
+}
+
+/** Routes seen in the shop's log, for the filter. */
+export async function routesSeen(em: EntityManager, shopId: string): Promise<string[]> {
+  const rows = await em.getConnection().execute<{ route: string }[]>("select distinct route from request_logs where shop_id = ? order by route", [shopId]);
+  return rows.map((r) => r.route);
+}

@@ -1,0 +1,162 @@
+/**
+ * The console in headless Chromium against the built app and real PostgreSQL: sign in, keys
+ * (secret once, used, revoked), webhooks (add, test, delivery), programs with their drawing,
+ * and roles enforced by the server. Every page is saved as a screenshot for review.
+ */
+import path from "node:path";
+import type { Browser, Page } from "playwright-core";
+import request from "supertest";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { createProgram } from "../../lib/services/programs";
+import { launch, SCREENSHOTS } from "../support/browser";
+import { BASE_URL } from "../support/env";
+import { closeTestOrm, createTestShop, exampleProgram, TEST_PASSWORD, testOrm, type TestShop } from "../support/fixtures";
+import { startReceiver, type Receiver } from "../support/receiver";
+
+let browser: Browser;
+let shop: TestShop;
+let receiver: Receiver;
+
+beforeAll(async () => {
+  browser = await launch();
+  shop = await createTestShop("console");
+  receiver = await startReceiver();
+});
+afterAll(async () => {
+  await browser?.close();
+  await receiver?.close();
+  await closeTestOrm();
+});
+
+async function signIn(page: Page, email: string) {
+  await page.goto(`${BASE_URL}/console`);
+  await page.waitForURL(/\/signin/);
+  await page.getByLabel("E-mail").fill(email);
+  await page.getByLabel("Password").fill(TEST_PASSWORD);
+  await page.getByRole("button", { name: "Sign in" }).click();
+  await page.waitForURL(`${BASE_URL}/console`);
+}
+
+const shot = (page: Page, name: string) => page.screenshot({ path: path.join(SCREENSHOTS, `console-${name}.png`), fullPage: true });
+
+describe("the console", () => {
+  it("sends a visitor without a session to sign-in, and refuses a wrong password", async () => {
+    const page = await browser.newPage();
+    await page.goto(`${BASE_URL}/console/keys`);
+    await page.waitForURL(/\/signin\?callbackUrl=%2Fconsole%2Fkeys/);
+    await shot(page, "signin");
+    await page.getByLabel("E-mail").fill(shop.admins[0]);
+    await page.getByLabel("Password").fill("not the password");
+    await page.getByRole("button", { name: "Sign in" }).click();
+    // (Next's route announcer is an empty alert too: look for ours by its words)
+    await page.getByRole("alert").filter({ hasText: "do not match" }).waitFor();
+    await page.close();
+  });
+
+  it("creates a key, shows its secret once, and the API honours it until it is revoked", async () => {
+    const page = await browser.newPage({ viewport: { width: 1400, height: 900 } });
+    await signIn(page, shop.admins[0]);
+    await shot(page, "overview");
+    await page.goto(`${BASE_URL}/console/keys`);
+    await page.getByLabel("Name").fill("Browser test key");
+    await page.getByLabel("catalog:read").check();
+    await page.getByRole("button", { name: "Create key" }).click();
+    const secret = (await page.getByTestId("secret").textContent())!;
+    expect(secret).toMatch(/^swk_live_/);
+    await shot(page, "keys-created");
+
+    await request(BASE_URL).get("/api/v1/shears").set("Authorization", `Bearer ${secret}`).expect(200);
+
+    await page.goto(`${BASE_URL}/console/keys`);
+    expect(await page.content()).not.toContain(secret); // shown once
+    const row = page.getByRole("row", { name: /Browser test key/ });
+    page.once("dialog", (d) => d.accept());
+    await row.getByRole("button", { name: "Revoke" }).click();
+    await row.getByText("revoked").waitFor();
+    await shot(page, "keys");
+    await request(BASE_URL).get("/api/v1/shears").set("Authorization", `Bearer ${secret}`).expect(401);
+    await page.close();
+  });
+
+  it("adds a webhook endpoint, sends a test event and shows the delivery", async () => {
+    const page = await browser.newPage({ viewport: { width: 1400, height: 900 } });
+    await signIn(page, shop.admins[0]);
+    await page.goto(`${BASE_URL}/console/webhooks`);
+    await page.getByLabel("URL").fill(receiver.url);
+    await page.getByLabel("Description").fill("Browser test receiver");
+    await page.getByRole("button", { name: "Add endpoint" }).click();
+    expect(await page.getByTestId("webhook-secret").textContent()).toMatch(/^whsec_/);
+    await page.reload();
+    await page.getByRole("button", { name: "Send test event" }).click();
+    await receiver.waitFor(1);
+    for (let i = 0; i < 20; i++) {
+      await page.reload();
+      if (await page.getByTestId("delivery").filter({ hasText: "succeeded" }).count()) break;
+      await page.waitForTimeout(250);
+    }
+    expect(await page.getByTestId("delivery").filter({ hasText: "endpoint.test" }).count()).toBeGreaterThan(0);
+    await shot(page, "webhooks");
+    await page.goto(`${BASE_URL}/console/events`);
+    await page.getByText("endpoint.test").first().waitFor();
+    await shot(page, "events");
+    await page.close();
+  });
+
+  it("shows a program with its findings, setup, safety caution and drawing", async () => {
+    const em = (await testOrm()).em.fork();
+    const good = await createProgram(em, shop.shopId, exampleProgram(shop.shearId, "CONSOLE-1"));
+    const bad = exampleProgram(shop.shearId, "CONSOLE-2");
+    bad.cuts[1].backgauge = 130;
+    const faulty = await createProgram(em.fork(), shop.shopId, bad);
+    const page = await browser.newPage({ viewport: { width: 1400, height: 1000 } });
+    await signIn(page, shop.admins[0]);
+    await page.goto(`${BASE_URL}/console/programs`);
+    await page.getByRole("link", { name: "CONSOLE-1" }).waitFor();
+    await shot(page, "programs");
+    await page.goto(`${BASE_URL}/console/programs/${good.id}`);
+    await page.getByText("Safety first").waitFor();
+    expect(await page.locator("svg[role=img] > line").count()).toBe(3 + 4 * 7); // 3 rips, then 7 crosscuts in each of 4 strips
+    await page.getByText("Blade gap").waitFor();
+    await shot(page, "program");
+    await page.goto(`${BASE_URL}/console/programs/${faulty.id}`);
+    await page.getByText("/cuts/1/backgauge").first().waitFor();
+    await shot(page, "program-findings");
+    await page.goto(`${BASE_URL}/console/logs`);
+    await shot(page, "logs");
+    const first = page.getByRole("link", { name: /^req_/ }).first();
+    if (await first.count()) {
+      await first.click();
+      await page.getByText("Bodies and secrets are never logged.").waitFor();
+      await shot(page, "log-detail");
+    }
+    await page.close();
+  });
+
+  it("refuses key creation to a viewer on the server, not only in the page", async () => {
+    const context = await browser.newContext();
+    const page = await context.newPage();
+    // An admin opens the key form…
+    await signIn(page, shop.admins[1]);
+    await page.goto(`${BASE_URL}/console/keys`);
+    await page.getByLabel("Name").fill("Made by a viewer");
+    await page.getByLabel("programs:read").check();
+    // …then, in the same browser, the session becomes a viewer's.
+    const other = await context.newPage();
+    await other.goto(`${BASE_URL}/console`);
+    await other.getByRole("button", { name: "Sign out" }).click();
+    await other.waitForURL(/\/signin/);
+    await other.getByLabel("E-mail").fill(shop.viewer);
+    await other.getByLabel("Password").fill(TEST_PASSWORD);
+    await other.getByRole("button", { name: "Sign in" }).click();
+    await other.waitForURL(`${BASE_URL}/console`);
+    expect(await other.getByTestId("role").textContent()).toBe("viewer");
+    await other.goto(`${BASE_URL}/console/keys`);
+    expect(await other.getByRole("button", { name: "Create key" }).count()).toBe(0);
+    // The stale form is sent with the viewer's session: the server says no and creates nothing.
+    await page.getByRole("button", { name: "Create key" }).click();
+    await page.getByRole("alert").filter({ hasText: "viewer" }).waitFor();
+    const { ApiKey } = await import("../../entities");
+    expect(await (await testOrm()).em.fork().count(ApiKey, { name: "Made by a viewer" })).toBe(0);
+    await context.close();
+  });
+});

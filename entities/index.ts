@@ -5,6 +5,7 @@ import { DeliveryAttempt } from "./DeliveryAttempt";
 import { Event } from "./Event";
 import { Grade } from "./Grade";
 import { IdempotencyRecord } from "./IdempotencyRecord";
+import { Invitation } from "./Invitation";
 import { Membership } from "./Membership";
 import { Program } from "./Program";
 import { RequestLog } from "./RequestLog";
@@ -13,7 +14,7 @@ import { Shop } from "./Shop";
 import { User } from "./User";
 import { WebhookEndpoint } from "./WebhookEndpoint";
 
-export { ApiKey, Delivery, DeliveryAttempt, Event, Grade, IdempotencyRecord, Membership, Program, RequestLog, Shear, Shop, User, WebhookEndpoint };
+export { ApiKey, Delivery, DeliveryAttempt, Event, Grade, IdempotencyRecord, Invitation, Membership, Program, RequestLog, Shear, Shop, User, WebhookEndpoint };
 
 export type ApiKeyEntity = InferEntity<typeof ApiKey>;
 export type DeliveryEntity = InferEntity<typeof Delivery>;
@@ -26,4 +27,4 @@ export type ShopEntity = InferEntity<typeof Shop>;
 export type UserEntity = InferEntity<typeof User>;
 
 /** Every entity, for the ORM configuration. */
-export const entities = [Shop, User, Membership, Shear, Grade, ApiKey, RequestLog, IdempotencyRecord, Program, Event, WebhookEndpoint, Delivery, DeliveryAttempt];
+export const entities = [Shop, User, Membership, Shear, Grade, ApiKey, RequestLog, IdempotencyRecord, Program, Event, WebhookEndpoint, Delivery, DeliveryAttempt, Invitation];

@@ -17,6 +17,7 @@ export const ID_PREFIXES = {
   endpoint: "whe",
   delivery: "dlv",
   attempt: "att",
+  invitation: "inv",
 } as const;
 
 export type IdKind = keyof typeof ID_PREFIXES;

@@ -19,11 +19,13 @@ export function SignInForm() {
     else setError("That e-mail and password do not match an account.");
   }
 
+  const joined = params.get("joined");
   return (
     <form action={submit} className="mt-8 space-y-4">
+      {joined && <p role="status" className="rounded-md bg-ok-light px-3 py-2 text-sm text-ok">Welcome aboard. Sign in with your new password.</p>}
       <label className="block text-sm font-medium">
         E-mail
-        <input name="email" type="email" required autoComplete="username" autoFocus className="mt-1 w-full rounded-md border border-scale-300 bg-white px-3 py-2" />
+        <input name="email" type="email" required autoComplete="username" autoFocus defaultValue={params.get("joined") ?? ""} className="mt-1 w-full rounded-md border border-scale-300 bg-white px-3 py-2" />
       </label>
       <label className="block text-sm font-medium">
         Password

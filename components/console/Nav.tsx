@@ -6,10 +6,12 @@ import { usePathname } from "next/navigation";
 const ITEMS = [
   { href: "/console", label: "Overview" },
   { href: "/console/programs", label: "Programs" },
+  { href: "/console/upload", label: "Upload" },
   { href: "/console/keys", label: "API keys" },
   { href: "/console/webhooks", label: "Webhooks" },
   { href: "/console/events", label: "Events" },
   { href: "/console/logs", label: "Request log" },
+  { href: "/console/team", label: "Team" },
 ];
 
 export function Nav() {

@@ -10,6 +10,7 @@ export const PERMISSIONS = {
   "webhooks:manage": "admin",
   "catalog:manage": "admin",
   "programs:release": "admin",
+  "programs:write": "admin",
   "team:manage": "owner",
 } as const satisfies Record<string, Role>;
 

@@ -9,7 +9,7 @@ import request from "supertest";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { createProgram } from "../../lib/services/programs";
 import { launch, SCREENSHOTS } from "../support/browser";
-import { BASE_URL } from "../support/env";
+import { BASE_URL, INBOX_URL } from "../support/env";
 import { closeTestOrm, createTestShop, exampleProgram, TEST_PASSWORD, testOrm, type TestShop } from "../support/fixtures";
 import { startReceiver, type Receiver } from "../support/receiver";
 
@@ -129,6 +129,70 @@ describe("the console", () => {
       await page.getByText("Bodies and secrets are never logged.").waitFor();
       await shot(page, "log-detail");
     }
+    await page.close();
+  });
+
+  it("uploads a CSV cut list: one bad row is shown and nothing is imported; fixed, it imports", async () => {
+    const page = await browser.newPage({ viewport: { width: 1400, height: 900 } });
+    await signIn(page, shop.admins[0]);
+    const header = "reference,title,shear,grade,thickness,gauge,units,sheet_length,sheet_width,sheet_count,backgauge,count,length,turn,scrap,note,priority,due_at";
+    const good = (ref: string) => [
+      `${ref},Brackets,${shop.shearId},A36,,10,in,120,48,1,12,3,,,,rips,5,`,
+      `${ref},,,,,,,,,,16,7,12,yes,,,,`,
+    ];
+    const bad = [header, ...good("UP-1"), `UP-2,Plates,${shop.shearId},A36,0.25,,in,96,48,1,twelve,2,,,,,,`, ...good("UP-3")].join("\n");
+    await page.goto(`${BASE_URL}/console/upload`);
+    await page.setInputFiles("input[type=file]", { name: "cut-list.csv", mimeType: "text/csv", buffer: Buffer.from(bad) });
+    await page.getByRole("button", { name: "Check and import" }).click();
+    const errors = page.getByTestId("upload-errors");
+    await errors.waitFor();
+    expect(await errors.textContent()).toMatch(/row 4 · backgauge: "twelve" is not a number/);
+    await shot(page, "upload-errors");
+    const { Program } = await import("../../entities");
+    const count = () => testOrm().then((o) => o.em.fork().count(Program, { shop: shop.shopId, reference: { $like: "UP-%" } }));
+    expect(await count()).toBe(0);
+
+    const fixed = [header, ...good("UP-1"), ...good("UP-3")].join("\n");
+    await page.setInputFiles("input[type=file]", { name: "cut-list.csv", mimeType: "text/csv", buffer: Buffer.from(fixed) });
+    await page.getByRole("button", { name: "Check and import" }).click();
+    await page.getByTestId("upload-created").waitFor();
+    expect(await count()).toBe(2);
+    await shot(page, "upload");
+    await page.close();
+  });
+
+  it("invites someone by e-mail; the link in the mail sets the password and they sign in", async () => {
+    const page = await browser.newPage({ viewport: { width: 1400, height: 900 } });
+    await signIn(page, shop.admins[0]);
+    await page.goto(`${BASE_URL}/console/team`);
+    const email = `new-${Date.now()}@test.example`;
+    await page.getByLabel("E-mail").fill(email);
+    await page.getByLabel("Role", { exact: true }).last().selectOption("developer");
+    await page.getByRole("button", { name: "Send invitation" }).click();
+    await page.getByText(`Invitation sent to ${email}`).waitFor();
+    await shot(page, "team");
+    let link = "";
+    for (let i = 0; i < 40 && !link; i++) {
+      const inbox = (await (await fetch(INBOX_URL)).json()) as { to: string[]; text: string }[];
+      link = inbox.find((m) => m.to.includes(email))?.text.match(/https?:\/\/\S+\/invite\/\S+/)?.[0] ?? "";
+      if (!link) await page.waitForTimeout(250);
+    }
+    expect(link).toContain("/invite/");
+    const fresh = await browser.newContext();
+    const p2 = await fresh.newPage();
+    await p2.goto(link);
+    await p2.getByLabel("Your name").fill("New Colleague");
+    await p2.getByLabel(/Choose a password/).fill("a-long-enough-password");
+    await p2.getByRole("button", { name: "Join and sign in" }).click();
+    await p2.waitForURL(/\/signin\?joined=/);
+    await p2.getByLabel("Password").fill("a-long-enough-password");
+    await p2.getByRole("button", { name: "Sign in" }).click();
+    await p2.waitForURL(`${BASE_URL}/console`);
+    expect(await p2.getByTestId("role").textContent()).toBe("developer");
+    // the link works once
+    await p2.goto(link);
+    await p2.getByText("This invitation cannot be used").waitFor();
+    await fresh.close();
     await page.close();
   });
 

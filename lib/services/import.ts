@@ -1,0 +1,132 @@
+/**
+ * Cut lists from files: a CSV with one row per cut group (rows sharing a reference make one
+ * program), or a JSON file with one program or a list of them. Every program is validated
+ * with the same schema as the API; any error names its row, and then nothing is imported.
+ */
+import type { EntityManager } from "@mikro-orm/postgresql";
+import { parse } from "csv-parse/sync";
+import { ApiError } from "../api/errors";
+import { ProgramInput, type ProgramInputT } from "../schemas/program";
+import { createProgram } from "./programs";
+
+export const CSV_COLUMNS = [
+  "reference", "title", "shear", "grade", "thickness", "gauge", "units", "sheet_length", "sheet_width", "sheet_count",
+  "backgauge", "count", "length", "turn", "scrap", "note", "priority", "due_at",
+] as const;
+
+export interface RowError {
+  /** 1-based line in the file (the header is line 1), or the program's index in a JSON list */
+  row: number;
+  field: string;
+  message: string;
+}
+
+interface Parsed {
+  programs: { input: unknown; rows: number[] }[];
+  errors: RowError[];
+}
+
+const num = (v: string | undefined) => (v === undefined || v.trim() === "" ? undefined : Number(v));
+const bool = (v: string | undefined) => (v === undefined || v.trim() === "" ? undefined : ["1", "true", "yes", "y"].includes(v.trim().toLowerCase()));
+const text = (v: string | undefined) => (v === undefined || v.trim() === "" ? undefined : v.trim());
+
+export function parseCsv(content: string): Parsed {
+  let records: Record<string, string>[];
+  try {
+    records = parse(content, { columns: (h: string[]) => h.map((c) => c.trim().toLowerCase()), skip_empty_lines: true, trim: true, bom: true });
+  } catch (err) {
+    return { programs: [], errors: [{ row: 0, field: "file", message: `not readable as CSV: ${(err as Error).message}` }] };
+  }
+  const errors: RowError[] = [];
+  if (records.length && !("reference" in records[0])) {
+    return { programs: [], errors: [{ row: 1, field: "header", message: `the first line must name the columns: ${CSV_COLUMNS.join(", ")}` }] };
+  }
+  const byRef = new Map<string, { input: Record<string, unknown>; rows: number[] }>();
+  const NUMERIC = ["thickness", "gauge", "sheet_length", "sheet_width", "sheet_count", "backgauge", "count", "length", "priority"];
+  records.forEach((r, i) => {
+    const line = i + 2;
+    for (const col of NUMERIC) {
+      if (text(r[col]) !== undefined && !Number.isFinite(Number(r[col]))) errors.push({ row: line, field: col, message: `"${r[col]}" is not a number` });
+    }
+    const ref = text(r.reference);
+    if (!ref) {
+      errors.push({ row: line, field: "reference", message: "every row needs the program's reference" });
+      return;
+    }
+    let p = byRef.get(ref);
+    if (!p) {
+      const thickness = num(r.gauge) !== undefined ? { gauge: num(r.gauge) } : { value: num(r.thickness) };
+      p = {
+        rows: [],
+        input: {
+          reference: ref, title: text(r.title), shear: text(r.shear), grade: text(r.grade), thickness, units: text(r.units),
+          sheet: { length: num(r.sheet_length), width: num(r.sheet_width), count: num(r.sheet_count) ?? 1 },
+          cuts: [], priority: num(r.priority), dueAt: text(r.due_at),
+        },
+      };
+      byRef.set(ref, p);
+    }
+    p.rows.push(line);
+    (p.input.cuts as unknown[]).push(JSON.parse(JSON.stringify({
+      backgauge: num(r.backgauge), count: num(r.count), length: num(r.length), turn: bool(r.turn), scrap: bool(r.scrap), note: text(r.note),
+    })));
+  });
+  return { programs: [...byRef.values()].map((p) => ({ input: JSON.parse(JSON.stringify(p.input)), rows: p.rows })), errors };
+}
+
+export function parseJson(content: string): Parsed {
+  let value: unknown;
+  try {
+    value = JSON.parse(content);
+  } catch (err) {
+    return { programs: [], errors: [{ row: 0, field: "file", message: `not valid JSON: ${(err as Error).message}` }] };
+  }
+  const list = Array.isArray(value) ? value : [value];
+  return { programs: list.map((input, i) => ({ input, rows: [i + 1] })), errors: [] };
+}
+
+/** Validate every program; an error inside cuts/N points at the N-th row of that program. */
+export function validate(parsed: Parsed): { inputs: ProgramInputT[]; errors: RowError[] } {
+  const errors = [...parsed.errors];
+  const inputs: ProgramInputT[] = [];
+  const seen = new Set<string>();
+  for (const p of parsed.programs) {
+    const result = ProgramInput.safeParse(p.input);
+    if (!result.success) {
+      for (const issue of result.error.issues) {
+        const cut = issue.path[0] === "cuts" && typeof issue.path[1] === "number" ? issue.path[1] : null;
+        errors.push({ row: cut !== null ? p.rows[cut] ?? p.rows[0] : p.rows[0], field: issue.path.join(".") || "program", message: issue.message });
+      }
+      continue;
+    }
+    if (seen.has(result.data.reference)) errors.push({ row: p.rows[0], field: "reference", message: `reference ${result.data.reference} appears twice` });
+    seen.add(result.data.reference);
+    inputs.push(result.data);
+  }
+  return { inputs, errors: errors.sort((a, b) => a.row - b.row) };
+}
+
+/** Create every program in one transaction: all of them, or none. */
+export async function importPrograms(em: EntityManager, shopId: string, inputs: ProgramInputT[], rowsOf: (i: number) => number) {
+  const errors: RowError[] = [];
+  const created = await em.transactional(async (tx) => {
+    const out: { id: string; reference: string; validation: string }[] = [];
+    for (const [i, input] of inputs.entries()) {
+      try {
+        const p = await createProgram(tx, shopId, input);
+        out.push({ id: p.id, reference: p.reference, validation: p.validation });
+      } catch (err) {
+        if (!(err instanceof ApiError)) throw err;
+        errors.push({ row: rowsOf(i), field: (err.extensions.errors as { pointer: string }[] | undefined)?.[0]?.pointer.slice(1) ?? "program", message: err.message });
+      }
+    }
+    if (errors.length) throw new ImportRefused();
+    return out;
+  }).catch((err) => {
+    if (err instanceof ImportRefused) return null;
+    throw err;
+  });
+  return created ? { created, errors: [] } : { created: [], errors };
+}
+
+class ImportRefused extends Error {}

@@ -1,0 +1,94 @@
+/**
+ * The team of a shop: members and their roles, invitations by e-mail (the link sets the
+ * password), removal. A shop always keeps at least one owner.
+ */
+import { createHash, randomBytes } from "node:crypto";
+import type { EntityManager } from "@mikro-orm/postgresql";
+import bcrypt from "bcryptjs";
+import { Invitation, Membership, Shop, User } from "../../entities";
+import type { Role } from "../../entities/Membership";
+import { conflict, invalidRequest, notFound } from "../api/errors";
+import { sendMail } from "./mail";
+
+const INVITE_DAYS = 7;
+const digest = (token: string) => createHash("sha256").update(token).digest("hex");
+export const MIN_PASSWORD = 10;
+
+export async function listTeam(em: EntityManager, shopId: string) {
+  const members = await em.find(Membership, { shop: shopId }, { populate: ["user"], orderBy: { createdAt: "asc" } });
+  const invitations = await em.find(Invitation, { shop: shopId, acceptedAt: null, revokedAt: null, expiresAt: { $gt: new Date() } }, { orderBy: { createdAt: "desc" } });
+  return {
+    members: members.map((m) => ({ id: m.id, userId: m.user.id, name: m.user.name, email: m.user.email, role: m.role })),
+    invitations: invitations.map((i) => ({ id: i.id, email: i.email, role: i.role, expiresAt: i.expiresAt.toISOString() })),
+  };
+}
+
+export async function invite(em: EntityManager, shopId: string, by: { userId: string; name: string }, email: string, role: Role) {
+  const address = email.trim().toLowerCase();
+  if (!/^[^\s@]+@[^\s@]+\.[^\s@]+$/.test(address)) throw invalidRequest("That is not an e-mail address.", [{ location: "body", pointer: "/email", message: "not an e-mail address" }]);
+  const existing = await em.findOne(Membership, { shop: shopId, user: { email: address } });
+  if (existing) throw conflict(`${address} is already in this shop.`);
+  const shop = await em.findOneOrFail(Shop, { id: shopId });
+  const token = randomBytes(24).toString("base64url");
+  em.create(Invitation, {
+    shop, email: address, role, tokenHash: digest(token), invitedBy: by.userId,
+    expiresAt: new Date(Date.now() + INVITE_DAYS * 86_400_000),
+  });
+  await em.flush();
+  const link = `${process.env.SHEARWIRE_BASE_URL ?? "http://127.0.0.1:3000"}/invite/${token}`;
+  await sendMail([address], `${by.name} invited you to ${shop.name} on Shearwire`, [
+    `${by.name} invited you to join ${shop.name} on Shearwire as ${role}.`,
+    "",
+    `Set your password and sign in here (the link works for ${INVITE_DAYS} days, once):`,
+    link,
+  ].join("\n"));
+  return { link };
+}
+
+export async function findInvitation(em: EntityManager, token: string) {
+  const inv = await em.findOne(Invitation, { tokenHash: digest(token) }, { populate: ["shop"] });
+  if (!inv || inv.acceptedAt || inv.revokedAt || inv.expiresAt <= new Date()) return null;
+  return inv;
+}
+
+/** Accept an invitation: set the password (or keep an existing account's) and join the shop. */
+export async function acceptInvitation(em: EntityManager, token: string, name: string, password: string) {
+  if (password.length < MIN_PASSWORD) throw invalidRequest(`Choose a password of at least ${MIN_PASSWORD} characters.`, [{ location: "body", pointer: "/password", message: "too short" }]);
+  return em.transactional(async (tx) => {
+    const inv = await findInvitation(tx, token);
+    if (!inv) throw notFound("invitation (it may have expired or been used)");
+    let user = await tx.findOne(User, { email: inv.email });
+    const hash = await bcrypt.hash(password, 10);
+    if (!user) user = tx.create(User, { email: inv.email, name: name.trim() || inv.email, passwordHash: hash });
+    else if (!user.passwordHash) user.passwordHash = hash;
+    tx.create(Membership, { user, shop: inv.shop, role: inv.role });
+    inv.acceptedAt = new Date();
+    return { email: inv.email };
+  });
+}
+
+async function owners(em: EntityManager, shopId: string) {
+  return em.count(Membership, { shop: shopId, role: "owner" });
+}
+
+export async function changeRole(em: EntityManager, shopId: string, membershipId: string, role: Role) {
+  const m = await em.findOne(Membership, { id: membershipId, shop: shopId });
+  if (!m) throw notFound("member");
+  if (m.role === "owner" && role !== "owner" && (await owners(em, shopId)) <= 1) throw conflict("A shop keeps at least one owner: make someone else owner first.");
+  m.role = role;
+  await em.flush();
+}
+
+export async function removeMember(em: EntityManager, shopId: string, membershipId: string) {
+  const m = await em.findOne(Membership, { id: membershipId, shop: shopId });
+  if (!m) throw notFound("member");
+  if (m.role === "owner" && (await owners(em, shopId)) <= 1) throw conflict("The last owner cannot be removed.");
+  await em.remove(m).flush();
+}
+
+export async function revokeInvitation(em: EntityManager, shopId: string, id: string) {
+  const inv = await em.findOne(Invitation, { id, shop: shopId });
+  if (!inv) throw notFound("invitation");
+  inv.revokedAt ??= new Date();
+  await em.flush();
+}

@@ -2,8 +2,9 @@ import { defineEntity, p } from "@mikro-orm/core";
 import { newId } from "../lib/ids";
 import { Shop } from "./Shop";
 
-export const GRADE_FAMILIES = ["carbon-steel", "hsla-steel", "stainless", "aluminium", "copper", "abrasion-resistant"] as const;
-export const GAUGE_FAMILIES = ["msg", "galvanized", "ussg", "awg"] as const;
+import { GAUGE_FAMILIES, GRADE_FAMILIES } from "../lib/schemas/enums";
+
+export { GAUGE_FAMILIES, GRADE_FAMILIES };
 
 const measure = () => p.float().columnType("double precision");
 

@@ -3,8 +3,9 @@ import { newId } from "../lib/ids";
 import { Shop } from "./Shop";
 import { User } from "./User";
 
-export const ROLES = ["owner", "admin", "developer", "viewer"] as const;
-export type Role = (typeof ROLES)[number];
+import { ROLES, type Role } from "../lib/schemas/enums";
+
+export { ROLES, type Role };
 
 /** A user's role in one shop. A user may belong to several shops. */
 export const Membership = defineEntity({

@@ -3,8 +3,9 @@ import { newId } from "../lib/ids";
 import { Shear } from "./Shear";
 import { Shop } from "./Shop";
 
-export const PROGRAM_STATUSES = ["draft", "released", "claimed", "running", "completed", "failed", "cancelled"] as const;
-export type ProgramStatus = (typeof PROGRAM_STATUSES)[number];
+import { PROGRAM_STATUSES, type ProgramStatus } from "../lib/schemas/enums";
+
+export { PROGRAM_STATUSES, type ProgramStatus };
 
 /**
  * A cut program: the request as the caller sent it (in the caller's units), and what the

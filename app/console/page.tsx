@@ -1,4 +1,5 @@
 import Link from "next/link";
+import { RequestsChart } from "@/components/console/RequestsChart";
 import { Badge, PageHeader, Stat } from "@/components/ui";
 import { PROGRAM_STATUSES } from "@/entities/Program";
 import { currentMember } from "@/lib/auth/session";
@@ -10,7 +11,6 @@ export const metadata = { title: "Overview" };
 export default async function Overview() {
   const member = await currentMember();
   const o = await overview(await requestEm(), member.shopId);
-  const peak = Math.max(1, ...o.requestsPerMinute.map((m) => m.n));
   return (
     <>
       <PageHeader title="Overview" lead={`${member.shopName}: the last hour of API traffic, the last day of webhook deliveries, and every program by state.`} />
@@ -21,13 +21,8 @@ export default async function Overview() {
         <Stat label="Endpoints disabled" value={o.disabledEndpoints} hint={o.disabledEndpoints ? "see Webhooks" : "all receiving"} />
       </section>
       <section className="mt-6 rounded-md border border-scale-200 bg-white p-4">
-        <h2 className="text-sm font-semibold">Requests per minute</h2>
-        <div className="mt-3 flex h-24 items-end gap-px" role="img" aria-label="Requests per minute over the last hour">
-          {o.requestsPerMinute.length === 0 && <p className="text-sm text-ink-muted">No API requests in the last hour.</p>}
-          {o.requestsPerMinute.map((m) => (
-            <div key={m.minute} title={`${m.minute.slice(11, 16)} UTC: ${m.n}`} className="w-2 bg-edge" style={{ height: `${(m.n / peak) * 100}%` }} />
-          ))}
-        </div>
+        <h2 className="text-sm font-semibold">Requests per minute (UTC)</h2>
+        <div className="mt-3"><RequestsChart data={o.requestsPerMinute} /></div>
       </section>
       <section className="mt-6">
         <h2 className="mb-2 text-sm font-semibold">Programs by state</h2>

@@ -11,6 +11,8 @@ const ITEMS = [
   { href: "/console/webhooks", label: "Webhooks" },
   { href: "/console/events", label: "Events" },
   { href: "/console/logs", label: "Request log" },
+  { href: "/console/shears", label: "Shears" },
+  { href: "/console/grades", label: "Grades" },
   { href: "/console/team", label: "Team" },
 ];
 

@@ -1,5 +1,5 @@
 /** The grade resource: a material in the shop's catalog, strengths in MPa. */
-import { GAUGE_FAMILIES, GRADE_FAMILIES } from "../../entities/Grade";
+import { GAUGE_FAMILIES, GRADE_FAMILIES } from "./enums";
 import { z } from "./zod";
 
 const mpa = (d: string) => z.number().positive().max(3000).nullable().openapi({ description: `${d} (MPa)` });

@@ -3,7 +3,7 @@
  * with the shear core's check. This one schema validates requests, types the services,
  * and is the JSON Schema served at /api/v1/schemas/cut-program.json.
  */
-import { PROGRAM_STATUSES } from "../../entities/Program";
+import { PROGRAM_STATUSES } from "./enums";
 import { z } from "./zod";
 
 const length = (d: string) => z.number().positive().max(100_000).openapi({ description: `${d}, in the program's units` });

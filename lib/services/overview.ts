@@ -32,6 +32,16 @@ export async function overview(em: EntityManager, shopId: string) {
     failedDeliveries: Number(deliveries.failing),
     disabledEndpoints: Number(endpoints.disabled),
     programsByStatus: Object.fromEntries(byStatus.map((r) => [r.status, Number(r.n)])) as Record<string, number>,
-    requestsPerMinute: perMinute.map((r) => ({ minute: new Date(r.minute).toISOString(), n: Number(r.n) })),
+    requestsPerMinute: lastHour(perMinute.map((r) => ({ minute: new Date(r.minute).toISOString(), n: Number(r.n) }))),
   };
+}
+
+/** Every minute of the last hour, with zeros where nothing came in. */
+function lastHour(counts: { minute: string; n: number }[]) {
+  const byMinute = new Map(counts.map((c) => [c.minute, c.n]));
+  const now = Math.floor(Date.now() / 60_000) * 60_000;
+  return Array.from({ length: 60 }, (_, i) => {
+    const minute = new Date(now - (59 - i) * 60_000).toISOString();
+    return { minute, n: byMinute.get(minute) ?? 0 };
+  });
 }

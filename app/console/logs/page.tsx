@@ -1,9 +1,9 @@
-import Link from "next/link";
-import { Badge, PageHeader, Table, Td, when } from "@/components/ui";
+import { PageHeader } from "@/components/ui";
 import { currentMember } from "@/lib/auth/session";
 import { requestEm } from "@/lib/db/orm";
 import { listKeys } from "@/lib/services/keys";
-import { listRequests, routesSeen, type LogFilter } from "@/lib/services/logs";
+import { routesSeen, type LogFilter } from "@/lib/services/logs";
+import { RequestTable } from "@/components/console/RequestTable";
 
 export const metadata = { title: "Request log" };
 
@@ -14,12 +14,10 @@ export default async function Logs({ searchParams }: { searchParams: Promise<Rec
   const q = await searchParams;
   const em = await requestEm();
   const hours = q.hours && q.hours in HOURS ? Number(q.hours) : 24;
-  const filter: LogFilter = {
-    limit: 100, cursor: q.cursor, keyId: q.key || undefined, route: q.route || undefined,
+  const filter: Pick<LogFilter, "statusClass"> = {
     statusClass: ["2xx", "3xx", "4xx", "5xx"].includes(q.status ?? "") ? (q.status as LogFilter["statusClass"]) : undefined,
-    from: new Date(Date.now() - hours * 3_600_000),
   };
-  const [rows, keys, routes] = await Promise.all([listRequests(em, member.shopId, filter), listKeys(em, member.shopId), routesSeen(em, member.shopId)]);
+  const [keys, routes] = await Promise.all([listKeys(em, member.shopId), routesSeen(em, member.shopId)]);
   const keyName = new Map(keys.map((k) => [k.id, `${k.name} (${k.prefix}…)`]));
   return (
     <>
@@ -39,20 +37,8 @@ export default async function Logs({ searchParams }: { searchParams: Promise<Rec
         </label>
         <button className="rounded-md bg-ink px-3 py-1.5 text-scale-50">Filter</button>
       </form>
-      <Table head={["When", "Method", "Path", "Status", "Latency", "Key", "Request id"]} empty="No requests match.">
-        {rows.data.map((r) => (
-          <tr key={r.id}>
-            <Td mono>{when(r.createdAt)}</Td>
-            <Td mono>{r.method}</Td>
-            <Td mono>{r.path}</Td>
-            <Td><Badge value={r.status < 300 ? "succeeded" : r.status < 500 ? "warning" : "error"} label={String(r.status)} /></Td>
-            <Td mono>{r.latencyMs} ms</Td>
-            <Td>{r.keyId ? keyName.get(r.keyId) ?? r.keyId : "—"}</Td>
-            <Td mono><Link className="text-edge hover:underline" href={`/console/logs/${r.id}`}>{r.id}</Link></Td>
-          </tr>
-        ))}
-      </Table>
-      {rows.next_cursor && <Link className="mt-3 inline-block text-sm text-edge hover:underline" href={`/console/logs?${new URLSearchParams({ ...Object.fromEntries(Object.entries(q).filter(([, v]) => v)) as Record<string, string>, cursor: rows.next_cursor })}`}>Older requests →</Link>}
+      <RequestTable query={new URLSearchParams({ hours: String(hours), ...(q.key ? { key: q.key } : {}), ...(q.route ? { route: q.route } : {}), ...(filter.statusClass ? { status: filter.statusClass } : {}) }).toString()} keyNames={Object.fromEntries(keyName)} />
+      <p className="mt-2 text-xs text-ink-muted">Refreshes every 5 seconds. Click a column to sort.</p>
     </>
   );
 }

@@ -1,0 +1,28 @@
+import { NextResponse } from "next/server";
+import { currentMember } from "@/lib/auth/session";
+import { requestEm } from "@/lib/db/orm";
+import { listRequests, type LogFilter } from "@/lib/services/logs";
+
+export const dynamic = "force-dynamic";
+
+/** The console's request log feed (session, any role of the shop): newest first, filtered. */
+export async function GET(request: Request) {
+  const member = await currentMember();
+  const q = new URL(request.url).searchParams;
+  const hours = [1, 24, 168].includes(Number(q.get("hours"))) ? Number(q.get("hours")) : 24;
+  const status = q.get("status");
+  const filter: LogFilter = {
+    limit: 100, cursor: q.get("cursor") ?? undefined, keyId: q.get("key") || undefined, route: q.get("route") || undefined,
+    statusClass: status && ["2xx", "3xx", "4xx", "5xx"].includes(status) ? (status as LogFilter["statusClass"]) : undefined,
+    from: new Date(Date.now() - hours * 3_600_000),
+  };
+  try {
+    const page = await listRequests(await requestEm(), member.shopId, filter);
+    return NextResponse.json(
+      { data: page.data.map((r) => ({ ...r, createdAt: r.createdAt.toISOString() })), next_cursor: page.next_cursor },
+      { headers: { "Cache-Control": "no-store" } },
+    );
+  } catch {
+    return NextResponse.json({ error: "The log could not be read; try again." }, { status: 400 });
+  }
+}

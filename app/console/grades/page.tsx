@@ -1,0 +1,42 @@
+import Link from "next/link";
+import { GradeForm } from "@/components/console/CatalogForms";
+import { PageHeader, Table, Td } from "@/components/ui";
+import { can } from "@/lib/auth/roles";
+import { currentMember } from "@/lib/auth/session";
+import { requestEm } from "@/lib/db/orm";
+import { listGrades } from "@/lib/services/catalog";
+
+export const metadata = { title: "Grades" };
+
+export default async function Grades() {
+  const member = await currentMember();
+  const grades = await listGrades(await requestEm(), member.shopId, { limit: 200 });
+  return (
+    <>
+      <PageHeader title="Grades" lead="Materials programs may name, with the strengths the checks use." />
+      <div className="grid gap-6 2xl:grid-cols-[1fr_28rem]">
+        <Table head={["Code", "Name", "Family", "Yield", "Tensile", "Shear / tensile", "Gauges", "Hardness", "Standard"]} empty="No grades yet.">
+          {grades.data.map((g) => (
+            <tr key={g.id}>
+              <Td mono><Link className="text-edge hover:underline" href={`/console/grades/${g.id}`}>{g.code}</Link></Td>
+              <Td>{g.name}</Td>
+              <Td>{g.family}</Td>
+              <Td mono>{g.yieldMpa ?? "—"}{g.yieldMpa ? " MPa" : ""}</Td>
+              <Td mono>{g.tensileMinMpa ? `≥ ${g.tensileMinMpa}` : g.tensileTypicalMpa ? `≈ ${g.tensileTypicalMpa}` : "—"} MPa{g.valuesAreTypical ? " (typical)" : ""}</Td>
+              <Td mono>{g.shearTensileRatio}</Td>
+              <Td mono>{g.gaugeFamily ?? "—"}</Td>
+              <Td mono>{g.hardnessHb ? `${g.hardnessHb} HB` : "—"}</Td>
+              <Td className="text-xs text-ink-muted">{g.standard}</Td>
+            </tr>
+          ))}
+        </Table>
+        {can(member.role, "catalog:manage") && (
+          <section className="rounded-md border border-scale-200 bg-white p-4">
+            <h2 className="mb-3 text-sm font-semibold">Add a grade</h2>
+            <GradeForm />
+          </section>
+        )}
+      </div>
+    </>
+  );
+}

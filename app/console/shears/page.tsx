@@ -1,0 +1,42 @@
+import Link from "next/link";
+import { ShearForm } from "@/components/console/CatalogForms";
+import { PageHeader, Table, Td } from "@/components/ui";
+import { can } from "@/lib/auth/roles";
+import { currentMember } from "@/lib/auth/session";
+import { requestEm } from "@/lib/db/orm";
+import { listShears } from "@/lib/services/catalog";
+
+export const metadata = { title: "Shears" };
+
+export default async function Shears() {
+  const member = await currentMember();
+  const shears = await listShears(await requestEm(), member.shopId, { limit: 200 });
+  return (
+    <>
+      <PageHeader title="Shears" lead="The capacity of each machine. Programs are checked against these figures: keep them true to the maker's plate and manual." />
+      <div className="grid gap-6 2xl:grid-cols-[1fr_28rem]">
+        <Table head={["Name", "Rating", "Blade", "Backgauge", "Rake", "Blade gap", "Strokes", "Blades to", "Id"]} empty="No shears yet.">
+          {shears.data.map((s) => (
+            <tr key={s.id}>
+              <Td><Link className="text-edge hover:underline" href={`/console/shears/${s.id}`}>{s.name}</Link></Td>
+              <Td mono>{s.ratedThicknessMm} mm at {s.ratedTensileMpa} MPa, {s.ratedRakeDeg}°</Td>
+              <Td mono>{s.bladeLengthMm} mm</Td>
+              <Td mono>{s.backgaugeMinMm}–{s.backgaugeMaxMm} mm</Td>
+              <Td mono>{s.rakeMinDeg}–{s.rakeMaxDeg}°</Td>
+              <Td mono>{s.gapMinMm}–{s.gapMaxMm} mm</Td>
+              <Td mono>{s.strokesPerMin}/min</Td>
+              <Td mono>{s.maxBladeHardnessHb ? `${s.maxBladeHardnessHb} HB` : "—"}</Td>
+              <Td mono>{s.id}</Td>
+            </tr>
+          ))}
+        </Table>
+        {can(member.role, "catalog:manage") && (
+          <section className="rounded-md border border-scale-200 bg-white p-4">
+            <h2 className="mb-3 text-sm font-semibold">Add a shear</h2>
+            <ShearForm />
+          </section>
+        )}
+      </div>
+    </>
+  );
+}

@@ -1,0 +1,115 @@
+"use client";
+
+import { zodResolver } from "@hookform/resolvers/zod";
+import { useRouter } from "next/navigation";
+import { useState } from "react";
+import { useForm, type FieldValues, type Resolver } from "react-hook-form";
+import { saveGrade, saveShear, type CatalogState } from "@/app/console/catalog-actions";
+import { GAUGE_FAMILIES, GRADE_FAMILIES } from "@/lib/schemas/enums";
+import { GradeInput, GradePatch } from "@/lib/schemas/grade";
+import { ShearInput, ShearPatch } from "@/lib/schemas/shear";
+
+type Field = { name: string; label: string; unit?: string; kind?: "text" | "number" | "select"; options?: readonly string[]; optional?: boolean };
+
+const SHEAR_FIELDS: Field[] = [
+  { name: "name", label: "Name", kind: "text" },
+  { name: "description", label: "Description", kind: "text", optional: true },
+  { name: "ratedThicknessMm", label: "Rated thickness", unit: "mm" },
+  { name: "ratedTensileMpa", label: "Rated at tensile", unit: "MPa" },
+  { name: "ratedRakeDeg", label: "Rated at rake", unit: "°" },
+  { name: "bladeLengthMm", label: "Blade length", unit: "mm" },
+  { name: "backgaugeMinMm", label: "Backgauge from", unit: "mm" },
+  { name: "backgaugeMaxMm", label: "Backgauge to", unit: "mm" },
+  { name: "rakeMinDeg", label: "Rake from", unit: "°" },
+  { name: "rakeMaxDeg", label: "Rake to", unit: "°" },
+  { name: "gapMinMm", label: "Blade gap from", unit: "mm" },
+  { name: "gapMaxMm", label: "Blade gap to", unit: "mm" },
+  { name: "strokesPerMin", label: "Strokes", unit: "/min" },
+  { name: "backgaugeSpeedMmPerS", label: "Backgauge speed", unit: "mm/s" },
+  { name: "handlingSecondsPerTurn", label: "Handling per turn", unit: "s" },
+  { name: "handlingSecondsPerSheet", label: "Handling per sheet", unit: "s" },
+  { name: "maxBladeHardnessHb", label: "Blades good to", unit: "HB", optional: true },
+];
+
+const GRADE_FIELDS: Field[] = [
+  { name: "code", label: "Code", kind: "text" },
+  { name: "name", label: "Name", kind: "text" },
+  { name: "family", label: "Family", kind: "select", options: GRADE_FAMILIES },
+  { name: "standard", label: "Standard", kind: "text" },
+  { name: "yieldMpa", label: "Yield", unit: "MPa", optional: true },
+  { name: "tensileMinMpa", label: "Tensile, minimum", unit: "MPa", optional: true },
+  { name: "tensileTypicalMpa", label: "Tensile, typical", unit: "MPa", optional: true },
+  { name: "tensileMaxMpa", label: "Tensile, maximum", unit: "MPa", optional: true },
+  { name: "shearTensileRatio", label: "Shear / tensile", optional: true },
+  { name: "gaugeFamily", label: "Gauge system", kind: "select", options: ["", ...GAUGE_FAMILIES], optional: true },
+  { name: "hardnessHb", label: "Hardness", unit: "HB", optional: true },
+  { name: "note", label: "Note", kind: "text", optional: true },
+];
+
+/** Empty inputs become null (optional) or undefined, numbers become numbers, before the schema sees them. */
+function clean(fields: Field[], values: Record<string, unknown>, editing: boolean) {
+  const out: Record<string, unknown> = {};
+  for (const f of fields) {
+    const v = values[f.name];
+    if (v === "" || v === undefined || v === null) {
+      if (f.optional) out[f.name] = f.kind === "text" && f.name !== "note" && f.name !== "description" ? undefined : null;
+      else if (!editing) out[f.name] = undefined;
+      continue;
+    }
+    out[f.name] = f.kind === "text" || f.kind === "select" ? v : Number(v);
+  }
+  if (editing && "code" in out) delete out.code; // a grade's code does not change
+  return JSON.parse(JSON.stringify(out)) as Record<string, unknown>;
+}
+
+function CatalogForm({ fields, schema, initial, save, editing }: {
+  fields: Field[]; schema: typeof ShearInput | typeof ShearPatch | typeof GradeInput | typeof GradePatch;
+  initial: Record<string, unknown>; save: (data: unknown) => Promise<CatalogState>; editing: boolean;
+}) {
+  const router = useRouter();
+  const [result, setResult] = useState<CatalogState>(null);
+  const resolver: Resolver<FieldValues> = async (values, ctx, opts) =>
+    (zodResolver(schema as never) as Resolver<FieldValues>)(clean(fields, values, editing), ctx, opts);
+  const form = useForm<FieldValues>({ resolver, defaultValues: Object.fromEntries(fields.map((f) => [f.name, initial[f.name] ?? ""])) });
+  const errors = form.formState.errors;
+  const onSubmit = form.handleSubmit(async () => {
+    const res = await save(clean(fields, form.getValues(), editing));
+    setResult(res);
+    if (res?.ok) router.refresh();
+    if (res?.ok && !editing) form.reset();
+  });
+  return (
+    <form onSubmit={onSubmit} className="grid grid-cols-2 gap-x-3 gap-y-2 text-sm" noValidate>
+      {fields.map((f) => {
+        const message = (errors[f.name]?.message as string | undefined) ?? result?.fieldErrors?.[f.name];
+        return (
+          <label key={f.name} className={`grid gap-0.5 ${f.kind === "text" && f.name !== "code" ? "col-span-2" : ""}`}>
+            <span className="text-xs">{f.label}{f.unit ? ` (${f.unit})` : ""}{f.optional ? "" : " *"}</span>
+            {f.kind === "select" ? (
+              <select {...form.register(f.name)} className="rounded border border-scale-300 px-2 py-1">
+                {f.options!.map((o) => <option key={o} value={o}>{o || "none"}</option>)}
+              </select>
+            ) : (
+              <input {...form.register(f.name)} inputMode={f.kind === "text" ? undefined : "decimal"} disabled={editing && f.name === "code"}
+                aria-invalid={message ? true : undefined} className="rounded border border-scale-300 px-2 py-1 aria-[invalid]:border-fault disabled:bg-scale-100" />
+            )}
+            {message && <span role="alert" className="text-xs text-fault">{message}</span>}
+          </label>
+        );
+      })}
+      <div className="col-span-2 flex items-center gap-3">
+        <button disabled={form.formState.isSubmitting} className="rounded-md bg-ink px-3 py-1.5 font-medium text-scale-50 disabled:opacity-60">{editing ? "Save changes" : "Add"}</button>
+        {result?.ok && <span role="status" className="text-ok">{result.ok}</span>}
+        {result?.error && !result.fieldErrors && <span role="alert" className="text-fault">{result.error}</span>}
+      </div>
+    </form>
+  );
+}
+
+export function ShearForm({ id, initial = {} }: { id?: string; initial?: Record<string, unknown> }) {
+  return <CatalogForm fields={SHEAR_FIELDS} schema={id ? ShearPatch : ShearInput} initial={initial} editing={Boolean(id)} save={(d) => saveShear(id ?? null, d)} />;
+}
+
+export function GradeForm({ id, initial = {} }: { id?: string; initial?: Record<string, unknown> }) {
+  return <CatalogForm fields={GRADE_FIELDS} schema={id ? GradePatch : GradeInput} initial={initial} editing={Boolean(id)} save={(d) => saveGrade(id ?? null, d)} />;
+}

@@ -97,7 +97,7 @@ describe("the console", () => {
     expect(await page.getByTestId("delivery").filter({ hasText: "endpoint.test" }).count()).toBeGreaterThan(0);
     await shot(page, "webhooks");
     await page.goto(`${BASE_URL}/console/events`);
-    await page.getByText("endpoint.test").first().waitFor();
+    await page.getByTestId("event-row").filter({ hasText: "endpoint.test" }).first().waitFor();
     await shot(page, "events");
     await page.close();
   });
@@ -154,8 +154,33 @@ describe("the console", () => {
     await page.getByRole("link", { name: "A36" }).click();
     await page.getByRole("button", { name: "Save changes" }).waitFor();
     await shot(page, "grade");
+    await page.getByRole("link", { name: "← Grades" }).click();
+    await page.goto(`${BASE_URL}/console/shears/${shop.shearId}`);
+    await page.getByRole("button", { name: "Save changes" }).waitFor();
+    await shot(page, "shear");
+    await page.goto(`${BASE_URL}/console/programs/prg_01J00000000000000000000000`);
+    await page.getByText("Nothing with that id exists in this shop.").waitFor();
     await page.goto(`${BASE_URL}/console`);
     await shot(page, "overview-traffic");
+    await page.close();
+  });
+
+  it("lets a person in two shops switch between them, each showing its own data", async () => {
+    const second = await createTestShop("console-second");
+    const { Membership, User } = await import("../../entities");
+    const em = (await testOrm()).em.fork();
+    const owner = await em.findOneOrFail(User, { email: shop.admins[0] });
+    em.create(Membership, { user: owner, shop: second.shopId, role: "viewer" });
+    await em.flush();
+    const page = await browser.newPage({ viewport: { width: 1400, height: 900 } });
+    await signIn(page, shop.admins[0]);
+    expect(await page.getByTestId("role").textContent()).toBe("owner");
+    await page.getByLabel("Shop").selectOption(second.shopId);
+    await page.getByRole("button", { name: "Go" }).click();
+    await page.getByTestId("role").filter({ hasText: "viewer" }).waitFor();
+    await page.goto(`${BASE_URL}/console/keys`);
+    expect(await page.getByRole("button", { name: "Create key" }).count()).toBe(0); // a viewer there
+    await shot(page, "switched-shop");
     await page.close();
   });
 
@@ -208,6 +233,8 @@ describe("the console", () => {
     const fresh = await browser.newContext();
     const p2 = await fresh.newPage();
     await p2.goto(link);
+    await p2.getByLabel("Your name").waitFor();
+    await p2.screenshot({ path: path.join(SCREENSHOTS, "invite.png") });
     await p2.getByLabel("Your name").fill("New Colleague");
     await p2.getByLabel(/Choose a password/).fill("a-long-enough-password");
     await p2.getByRole("button", { name: "Join and sign in" }).click();

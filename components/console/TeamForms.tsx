@@ -14,7 +14,7 @@ function Result({ state }: { state: TeamState }) {
 export function InviteForm() {
   const [state, act, pending] = useActionState<TeamState, FormData>(inviteAction, null);
   return (
-    <form action={act} className="grid gap-3 rounded-md border border-scale-200 bg-white p-4 text-sm">
+    <form action={act} className="grid content-start gap-3 self-start rounded-md border border-scale-200 bg-white p-4 text-sm">
       <h2 className="font-semibold">Invite someone</h2>
       <label className="grid gap-1">E-mail <input name="email" type="email" required className="rounded border border-scale-300 px-2 py-1.5" /></label>
       <label className="grid gap-1">Role

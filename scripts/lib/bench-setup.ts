@@ -1,12 +1,12 @@
 /** A fresh database with one shop, shear, grade library and an unthrottled key, for the benchmarks. */
 import { MikroORM } from "@mikro-orm/postgresql";
 import pg from "pg";
-import { Grade, Shear, Shop } from "../../entities";
+import { Shear, Shop } from "../../entities";
 import { SCOPES } from "../../entities/ApiKey";
 import { ormConfig } from "../../lib/db/config";
 import { migrateUp } from "../../lib/db/migrate";
 import { createKey } from "../../lib/services/keys";
-import { GRADE_LIBRARY } from "../../lib/shear/grades";
+import { addGradeLibrary } from "./seed";
 import { databaseUrl, startAll, testProfile } from "./services";
 
 export async function benchDatabase(name: string) {
@@ -29,13 +29,7 @@ export async function benchDatabase(name: string) {
     backgaugeMinMm: 5, backgaugeMaxMm: 1000, rakeMinDeg: 0.5, rakeMaxDeg: 2.5, gapMinMm: 0.03, gapMaxMm: 1,
     strokesPerMin: 30, backgaugeSpeedMmPerS: 250, handlingSecondsPerTurn: 6, handlingSecondsPerSheet: 30,
   });
-  for (const g of GRADE_LIBRARY) {
-    em.create(Grade, {
-      shop, code: g.code, name: g.name ?? g.code, family: g.family, standard: g.standard, yieldMpa: g.yieldMpa,
-      tensileMinMpa: g.tensileMinMpa, tensileTypicalMpa: g.tensileTypicalMpa, valuesAreTypical: g.valuesAreTypical,
-      shearTensileRatio: g.shearTensileRatio, gaugeFamily: g.gaugeFamily, hardnessHb: g.hardnessHb,
-    });
-  }
+  addGradeLibrary(em, shop);
   await em.flush();
   const { secret } = await createKey(em, shop.id, { name: "bench", scopes: [...SCOPES], rateLimitPerMin: 10_000_000 });
   return { profile, url, orm, shopId: shop.id, shearId: shear.id, key: secret };

@@ -5,7 +5,7 @@
  */
 import type { EntityManager, InferEntity, RequiredEntityData } from "@mikro-orm/postgresql";
 import bcrypt from "bcryptjs";
-import { Grade, Membership, Shear, Shop, User } from "../../entities";
+import { Grade, Membership, Shear, Shop, User, type ShopEntity } from "../../entities";
 import type { Role } from "../../entities/Membership";
 import { GRADE_LIBRARY } from "../../lib/shear/grades";
 
@@ -41,6 +41,18 @@ const SHEARS: Omit<RequiredEntityData<InferEntity<typeof Shear>>, "shop">[] = [
   },
 ];
 
+/** The published-minimums grade library, as catalog rows of a shop (staged; the caller flushes). */
+export function addGradeLibrary(em: EntityManager, shop: ShopEntity) {
+  for (const g of GRADE_LIBRARY) {
+    em.create(Grade, {
+      shop, code: g.code, name: g.name ?? g.code, family: g.family, standard: g.standard,
+      yieldMpa: g.yieldMpa, tensileMinMpa: g.tensileMinMpa, tensileTypicalMpa: g.tensileTypicalMpa,
+      tensileMaxMpa: g.tensileMaxMpa ?? null, valuesAreTypical: g.valuesAreTypical,
+      shearTensileRatio: g.shearTensileRatio, gaugeFamily: g.gaugeFamily, hardnessHb: g.hardnessHb, note: g.note ?? null,
+    });
+  }
+}
+
 export interface DemoSummary {
   shop: { id: string; name: string };
   owner: { email: string; password: string };
@@ -60,14 +72,7 @@ export async function seedDemo(em: EntityManager): Promise<DemoSummary> {
         tx.create(Membership, { user, shop, role: person.role });
       }
       for (const s of SHEARS) tx.create(Shear, { ...s, shop });
-      for (const g of GRADE_LIBRARY) {
-        tx.create(Grade, {
-          shop, code: g.code, name: g.name ?? g.code, family: g.family, standard: g.standard,
-          yieldMpa: g.yieldMpa, tensileMinMpa: g.tensileMinMpa, tensileTypicalMpa: g.tensileTypicalMpa,
-          tensileMaxMpa: g.tensileMaxMpa ?? null, valuesAreTypical: g.valuesAreTypical,
-          shearTensileRatio: g.shearTensileRatio, gaugeFamily: g.gaugeFamily, hardnessHb: g.hardnessHb, note: g.note ?? null,
-        });
-      }
+      addGradeLibrary(tx, shop);
       await tx.flush();
     }
     const shears = await tx.find(Shear, { shop }, { orderBy: { name: "asc" } });

@@ -219,7 +219,7 @@ describe("the console", () => {
     await page.goto(`${BASE_URL}/console/team`);
     const email = `new-${Date.now()}@test.example`;
     await page.getByLabel("E-mail").fill(email);
-    await page.getByLabel("Role", { exact: true }).last().selectOption("developer");
+    await page.locator("form", { hasText: "Send invitation" }).getByLabel("Role").selectOption("developer");
     await page.getByRole("button", { name: "Send invitation" }).click();
     await page.getByText(`Invitation sent to ${email}`).waitFor();
     await shot(page, "team");

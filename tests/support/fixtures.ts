@@ -1,11 +1,11 @@
 /** Test fixtures written straight to the test database: shops, catalog, keys. */
 import { MikroORM } from "@mikro-orm/postgresql";
 import bcrypt from "bcryptjs";
-import { Grade, Membership, Shear, Shop, User } from "../../entities";
+import { Membership, Shear, Shop, User } from "../../entities";
 import { SCOPES, type Scope } from "../../entities/ApiKey";
 import { ormConfig } from "../../lib/db/config";
 import { createKey } from "../../lib/services/keys";
-import { GRADE_LIBRARY } from "../../lib/shear/grades";
+import { addGradeLibrary } from "../../scripts/lib/seed";
 import { DATABASE_URL } from "./env";
 
 let orm: MikroORM | undefined;
@@ -51,13 +51,7 @@ export async function createTestShop(label = "shop"): Promise<TestShop> {
   const slug = `${label}-${process.pid}-${Date.now()}-${counter++}`;
   const shop = em.create(Shop, { name: `Test ${slug}`, slug });
   const shear = em.create(Shear, { ...TEST_SHEAR, name: "Test shear", shop });
-  for (const g of GRADE_LIBRARY) {
-    em.create(Grade, {
-      shop, code: g.code, name: g.name ?? g.code, family: g.family, standard: g.standard, yieldMpa: g.yieldMpa,
-      tensileMinMpa: g.tensileMinMpa, tensileTypicalMpa: g.tensileTypicalMpa, tensileMaxMpa: g.tensileMaxMpa ?? null,
-      valuesAreTypical: g.valuesAreTypical, shearTensileRatio: g.shearTensileRatio, gaugeFamily: g.gaugeFamily, hardnessHb: g.hardnessHb,
-    });
-  }
+  addGradeLibrary(em, shop);
   const admins = [`owner-${slug}@test.example`, `admin-${slug}@test.example`];
   for (const [i, email] of [...admins, `viewer-${slug}@test.example`].entries()) {
     const user = em.create(User, { email, name: `Test person ${i}`, passwordHash: TEST_PASSWORD_HASH });

@@ -16,7 +16,7 @@ const columns = [
       ? <Link className="font-mono text-xs text-edge hover:underline" href={`/console/programs/${c.getValue()}`}>{c.getValue()}</Link>
       : <span className="font-mono text-xs">{c.getValue()}</span>,
   }),
-  col.accessor("id", { header: "Event id", cell: (c) => <span className="font-mono text-xs">{c.getValue()}</span> }),
+  col.accessor("id", { header: "Event id", cell: (c) => <Link className="font-mono text-xs text-edge hover:underline" href={`/console/events/${c.getValue()}`}>{c.getValue()}</Link> }),
 ];
 
 export function EventsTable({ type }: { type?: string }) {

@@ -35,6 +35,23 @@ export function NewEndpointForm({ types }: { types: readonly string[] }) {
   );
 }
 
+/** Change which event types an endpoint receives. */
+export function FilterForm({ id, types, chosen }: { id: string; types: readonly string[]; chosen: string[] }) {
+  const [state, act, pending] = useActionState<HookState, FormData>(endpointAction, null);
+  return (
+    <details className="mt-2 text-sm">
+      <summary className="cursor-pointer text-xs text-edge">Change the event types</summary>
+      <form action={act} className="mt-2 grid grid-cols-2 gap-1 sm:grid-cols-3">
+        <input type="hidden" name="id" value={id} />
+        <input type="hidden" name="action" value="filter" />
+        {types.map((t) => <label key={t} className="flex items-center gap-1.5 font-mono text-xs"><input type="checkbox" name="eventTypes" value={t} defaultChecked={chosen.includes(t)} /> {t}</label>)}
+        <button disabled={pending} className="col-span-full justify-self-start rounded border border-scale-300 px-2 py-1 text-xs">Save event types (none = all)</button>
+      </form>
+      <Result state={state} />
+    </details>
+  );
+}
+
 export function EndpointButtons({ id, enabled, manage, test }: { id: string; enabled: boolean; manage: boolean; test: boolean }) {
   const [state, act, pending] = useActionState<HookState, FormData>(endpointAction, null);
   const button = (action: string, label: string) => (

@@ -99,6 +99,10 @@ describe("the console", () => {
     await page.goto(`${BASE_URL}/console/events`);
     await page.getByTestId("event-row").filter({ hasText: "endpoint.test" }).first().waitFor();
     await shot(page, "events");
+    await page.getByTestId("event-row").filter({ hasText: "endpoint.test" }).first().getByRole("link", { name: /^evt_/ }).click();
+    await page.getByText("Deliveries and their attempts").waitFor();
+    expect(await page.getByRole("cell", { name: receiver.url }).count()).toBeGreaterThan(0);
+    await shot(page, "event");
     await page.close();
   });
 

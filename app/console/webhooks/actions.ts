@@ -51,6 +51,12 @@ export async function endpointAction(_prev: HookState, form: FormData): Promise<
       revalidatePath("/console/webhooks");
       return { ok: action === "enable" ? "Enabled." : "Disabled." };
     }
+    if (action === "filter") {
+      const types = form.getAll("eventTypes").map(String).filter((t) => (EVENT_TYPES as readonly string[]).includes(t));
+      await webhooks.updateEndpoint(em, member.shopId, id, { eventTypes: types });
+      revalidatePath("/console/webhooks");
+      return { ok: types.length ? `Now receives ${types.length} event type${types.length === 1 ? "" : "s"}.` : "Now receives every event type." };
+    }
     if (action === "resend") {
       await webhooks.resend(em, member.shopId, String(form.get("event")), id);
       revalidatePath("/console/webhooks");

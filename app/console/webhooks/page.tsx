@@ -1,4 +1,5 @@
-import { EndpointButtons, NewEndpointForm, ResendButton } from "@/components/console/WebhookForms";
+import Link from "next/link";
+import { EndpointButtons, FilterForm, NewEndpointForm, ResendButton } from "@/components/console/WebhookForms";
 import { Badge, PageHeader, Table, Td, when } from "@/components/ui";
 import { can } from "@/lib/auth/roles";
 import { currentMember } from "@/lib/auth/session";
@@ -33,11 +34,12 @@ export default async function Webhooks() {
                 <Badge value={e.enabled ? "enabled" : "disabled"} />
               </div>
               <div className="mt-2"><EndpointButtons id={e.id} enabled={e.enabled} manage={manage} test={test} /></div>
+              {manage && <FilterForm id={e.id} types={EVENT_TYPES} chosen={e.eventTypes} />}
               <h3 className="mb-1 mt-4 text-xs font-semibold uppercase tracking-wide text-ink-muted">Recent deliveries</h3>
               <Table head={["Event", "State", "Attempts", "Last answer", "Next try", ""]} empty="Nothing sent yet.">
                 {deliveries[i].data.map((d) => (
                   <tr key={d.id} data-testid="delivery">
-                    <Td mono>{d.eventType}<br /><span className="text-ink-muted">{d.eventId}</span></Td>
+                    <Td mono>{d.eventType}<br /><Link className="text-edge hover:underline" href={`/console/events/${d.eventId}`}>{d.eventId}</Link></Td>
                     <Td><Badge value={d.status} /></Td>
                     <Td mono>
                       {d.attemptLog.map((a) => (

@@ -67,25 +67,28 @@ const programFields = {
     .openapi({ description: "Your own key-value pairs, returned as given", example: { erpLine: "4" } }),
 };
 
-export const ProgramInput = z.object(programFields).strict().openapi("ProgramInput", {
-  example: {
-    reference: "SO-2291/4",
-    title: "Side panels, lot 4",
-    shear: "shr_01JEXAMPLE0000000000000000",
-    grade: "A36",
-    thickness: { gauge: 10 },
-    units: "in",
-    sheet: { length: 120, width: 48, count: 2 },
-    cuts: [
-      { backgauge: 12, count: 3, note: "rip strips" },
-      { turn: true, backgauge: 16, length: 12, count: 7 },
-    ],
-    setup: { rakeDeg: 1.5 },
-    priority: 5,
-    dueAt: "2026-12-08T14:00:00Z",
-    metadata: { erpLine: "4" },
-  },
-});
+/** The worked example of the cut-program documentation: two 120 × 48 in sheets of 10 ga A36, ripped and crosscut to 16 × 12 in blanks. */
+const ProgramShape = z.object(programFields).strict();
+
+export const EXAMPLE_PROGRAM: z.infer<typeof ProgramShape> = {
+  reference: "SO-2291/4",
+  title: "Side panels, lot 4",
+  shear: "shr_01JEXAMPLE0000000000000000",
+  grade: "A36",
+  thickness: { gauge: 10 },
+  units: "in",
+  sheet: { length: 120, width: 48, count: 2 },
+  cuts: [
+    { backgauge: 12, count: 3, note: "rip strips" },
+    { turn: true, backgauge: 16, length: 12, count: 7 },
+  ],
+  setup: { rakeDeg: 1.5 },
+  priority: 5,
+  dueAt: "2026-12-08T14:00:00Z",
+  metadata: { erpLine: "4" },
+};
+
+export const ProgramInput = ProgramShape.openapi("ProgramInput", { example: EXAMPLE_PROGRAM });
 export const ProgramPatch = z
   .object(programFields)
   .partial()

@@ -5,6 +5,7 @@
  */
 import type { CutProgram, ShearProfile } from "@/lib/shear";
 import { inToMm, ksiToMpa } from "@/lib/shear";
+import { EXAMPLE_PROGRAM } from "@/lib/schemas/program";
 
 export const DEMO_SHEAR: ShearProfile = Object.freeze({
   id: "shr_demo",
@@ -27,23 +28,7 @@ export const DEMO_SHEAR: ShearProfile = Object.freeze({
 });
 
 /** The cut-program worked example in our API docs. */
-export const WORKED_EXAMPLE: CutProgram = Object.freeze({
-  reference: "SO-2291/4",
-  title: "Side panels, lot 4",
-  shear: "shr_demo",
-  grade: "A36",
-  thickness: { gauge: 10 },
-  units: "in",
-  sheet: { length: 120, width: 48, count: 2 },
-  cuts: [
-    { backgauge: 12, count: 3, note: "rip strips" },
-    { turn: true, backgauge: 16, length: 12, count: 7 },
-  ],
-  setup: { rakeDeg: 1.5 },
-  priority: 5,
-  dueAt: "2026-12-08T14:00:00Z",
-  metadata: { erpLine: "4" },
-}) as CutProgram;
+export const WORKED_EXAMPLE: CutProgram = Object.freeze({ ...structuredClone(EXAMPLE_PROGRAM), shear: "shr_demo" }) as CutProgram;
 
 /** A deep copy to edit in a test. */
 export const clone = <T>(v: T): T => JSON.parse(JSON.stringify(v)) as T;

@@ -6,6 +6,7 @@ import { SCOPES, type Scope } from "../../entities/ApiKey";
 import { ormConfig } from "../../lib/db/config";
 import { createKey } from "../../lib/services/keys";
 import { addGradeLibrary } from "../../scripts/lib/seed";
+import { EXAMPLE_PROGRAM } from "../../lib/schemas/program";
 import { DATABASE_URL } from "./env";
 
 let orm: MikroORM | undefined;
@@ -69,21 +70,5 @@ export async function keyFor(shopId: string, scopes: Scope[], extra: { expiresAt
 
 /** The cut-program worked example of our API docs, on a given shear. */
 export function exampleProgram(shearId: string, reference = `SO-${Date.now()}-${counter++}`) {
-  return {
-    reference,
-    title: "Side panels, lot 4",
-    shear: shearId,
-    grade: "A36",
-    thickness: { gauge: 10 },
-    units: "in" as const,
-    sheet: { length: 120, width: 48, count: 2 },
-    cuts: [
-      { backgauge: 12, count: 3, note: "rip strips" },
-      { turn: true, backgauge: 16, length: 12, count: 7 },
-    ],
-    setup: { rakeDeg: 1.5 },
-    priority: 5,
-    dueAt: "2026-12-08T14:00:00Z",
-    metadata: { erpLine: "4" },
-  };
+  return { ...structuredClone(EXAMPLE_PROGRAM), shear: shearId, reference };
 }

@@ -2,26 +2,34 @@
  * A drawing of one sheet of a cut program: the sheet, each stroke's cut line, the pieces of
  * every group, and the offcut. Groups named by a finding are drawn in the fault colour.
  * Follows the program's piece flow: a group cuts strips off its workpieces against the
- * backgauge; a turned group takes the previous group's pieces, turned 90°.
+ * backgauge; a turned group takes the pieces of the group before it (or of group `from`),
+ * turned 90°, so its strokes run across the other way.
  */
-interface Cut { backgauge: number; count: number; turn?: boolean; scrap?: boolean }
+interface Cut { backgauge: number; count: number; turn?: boolean; from?: number; scrap?: boolean }
 interface Rect { x: number; y: number; w: number; h: number }
 interface Piece extends Rect { group: number }
+type Axis = "y" | "x"; // y: strokes across the sheet's width; x: strokes along its length
 
 const TOLERANCE = 1e-6;
 
 export function layoutSheet(sheet: { length: number; width: number }, cuts: Cut[]) {
-  let axis: "y" | "x" = "y"; // y: strips across the sheet; x: crosscuts along a turned strip
+  let axis: Axis = "y";
   let workpieces: Rect[] = [{ x: 0, y: 0, w: sheet.length, h: sheet.width }];
-  let lastPieces: Piece[] = [];
-  const pieces: Piece[] = [];
+  const made: { pieces: Piece[]; axis: Axis; turned: boolean }[] = [];
+  const offcut: Rect[] = [];
   const lines: { x1: number; y1: number; x2: number; y2: number; group: number }[] = [];
   cuts.forEach((cut, group) => {
-    if (cut.turn) {
-      workpieces = lastPieces.length ? lastPieces : workpieces;
-      axis = axis === "y" ? "x" : "y";
+    if (cut.turn && group === 0) axis = "x";
+    else if (cut.turn) {
+      offcut.push(...workpieces);
+      const source = made[cut.from ?? group - 1];
+      if (source && !source.turned) {
+        source.turned = true;
+        workpieces = source.pieces;
+        axis = source.axis === "y" ? "x" : "y";
+      } else workpieces = [];
     }
-    const made: Piece[] = [];
+    const pieces: Piece[] = [];
     const remnants: Rect[] = [];
     for (const wp of workpieces) {
       let rest = { ...wp };
@@ -29,33 +37,33 @@ export function layoutSheet(sheet: { length: number; width: number }, cuts: Cut[
         const size = axis === "y" ? rest.h : rest.w;
         if (cut.backgauge >= size - TOLERANCE) break;
         if (axis === "y") {
-          made.push({ x: rest.x, y: rest.y, w: rest.w, h: cut.backgauge, group });
+          pieces.push({ x: rest.x, y: rest.y, w: rest.w, h: cut.backgauge, group });
           lines.push({ x1: rest.x, y1: rest.y + cut.backgauge, x2: rest.x + rest.w, y2: rest.y + cut.backgauge, group });
           rest = { ...rest, y: rest.y + cut.backgauge, h: rest.h - cut.backgauge };
         } else {
-          made.push({ x: rest.x, y: rest.y, w: cut.backgauge, h: rest.h, group });
+          pieces.push({ x: rest.x, y: rest.y, w: cut.backgauge, h: rest.h, group });
           lines.push({ x1: rest.x + cut.backgauge, y1: rest.y, x2: rest.x + cut.backgauge, y2: rest.y + rest.h, group });
           rest = { ...rest, x: rest.x + cut.backgauge, w: rest.w - cut.backgauge };
         }
       }
       const left = axis === "y" ? rest.h : rest.w;
-      if (Math.abs(left - cut.backgauge) < 1e-3) made.push({ ...rest, group });
+      if (Math.abs(left - cut.backgauge) < 1e-3) pieces.push({ ...rest, group });
       else if (left > TOLERANCE) remnants.push(rest);
     }
-    pieces.push(...made);
-    lastPieces = made;
+    made.push({ pieces, axis, turned: false });
     workpieces = remnants;
   });
-  return { pieces, lines, offcut: workpieces };
+  offcut.push(...workpieces);
+  // Pieces that a turned group cuts up are not final: their parts and leftovers are.
+  const finalPieces = made.filter((m) => !m.turned).flatMap((m) => m.pieces);
+  return { pieces: made.flatMap((m) => m.pieces), finalPieces, lines, offcut };
 }
 
 export function CutDrawing({ sheet, cuts, units, faultyGroups = [] }: {
   sheet: { length: number; width: number }; cuts: Cut[]; units: string; faultyGroups?: number[];
 }) {
-  const { pieces, lines } = layoutSheet(sheet, cuts);
+  const { finalPieces, lines } = layoutSheet(sheet, cuts);
   const pad = Math.max(sheet.length, sheet.width) * 0.04;
-  // Pieces that a following turned group cuts up are not drawn: their parts and leftovers are.
-  const finalPieces = pieces.filter((p) => !cuts[p.group + 1]?.turn);
   return (
     <figure className="rounded-md border border-scale-200 bg-white p-3">
       <svg viewBox={`${-pad} ${-pad} ${sheet.length + 2 * pad} ${sheet.width + 2 * pad}`} className="h-auto w-full" role="img"

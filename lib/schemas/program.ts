@@ -13,7 +13,8 @@ export const CutGroupInput = z
     backgauge: length("Backgauge distance: the width of each piece this group cuts off"),
     count: z.number().int().min(0).max(1000).openapi({ description: "Strokes at this setting, per workpiece the group runs on" }),
     length: length("Length of cut; defaults to the presented edge, shorter for a partial stroke").optional(),
-    turn: z.boolean().optional().openapi({ description: "Take every piece the previous group made, turned 90°, and run this group on each" }),
+    turn: z.boolean().optional().openapi({ description: "Take every piece the previous group made (or group `from` made), turned 90°, and run this group on each" }),
+    from: z.number().int().min(0).max(499).optional().openapi({ description: "With `turn`: the 0-based index of the earlier group whose pieces this group takes (default: the group just before). Lets one program rip strips of several widths and then crosscut each kind." }),
     scrap: z.boolean().optional().openapi({ description: "The pieces of this group are offcut (a trim cut)" }),
     note: z.string().max(200).optional(),
   })

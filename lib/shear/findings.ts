@@ -191,7 +191,8 @@ export function checkGroups(c: FlowCheckInput): Finding[] {
       continue;
     }
     if (g.workpieces === 0) {
-      const reason = cut.turn ? "the group before it made no pieces to turn" : "the groups before it used up the workpiece";
+      const source = cut.from ?? i - 1;
+      const reason = cut.turn ? `group ${source + 1} left no pieces to turn` : "the groups before it used up the workpiece";
       out.push(finding("group_cuts_nothing", at, `${capital(groupName(i))} has nothing to cut: ${reason}.`, null, 0, "workpieces"));
       continue;
     }

@@ -7,10 +7,14 @@
  * - A group without `turn` keeps cutting the current workpiece(s); each stroke
  *   cuts off a piece `backgauge` wide (no kerf on a shear) and the workpiece's
  *   width toward the backgauge shrinks by that much.
- * - A group with `turn` takes, one by one, every piece the previous group made,
- *   turned 90° (the piece's cut width becomes the presented edge), and runs on
- *   each. Workpiece remnants it does not take are offcut. On the first group,
+ * - A group with `turn` takes, one by one, every piece the previous group made
+ *   (or, with `from`, the pieces an earlier group made), turned 90° (the
+ *   piece's cut width becomes the presented edge), and runs on each. Workpiece
+ *   remnants it does not take are offcut. A group's pieces are turned at most
+ *   once; a second turning group finds nothing to take. On the first group,
  *   `turn` turns the stock sheet itself (its width becomes the presented edge).
+ *   `from` lets one program rip strips of several widths and then crosscut
+ *   each kind: rip A, rip B, turn from A and crosscut, turn from B and crosscut.
  * - After a group's last stroke on a workpiece, the remnant is a piece of that
  *   group when its width equals the backgauge within REMNANT_TOLERANCE_MM;
  *   otherwise it stays the workpiece for a following group without `turn`,
@@ -41,6 +45,8 @@ export interface FlowCut {
   count: number;
   lengthMm: number | null;
   turn: boolean;
+  /** With `turn`: the earlier group whose pieces are taken; null = the group just before. */
+  from?: number | null;
   scrap: boolean;
 }
 
@@ -177,34 +183,35 @@ export function simulateFlow(sheet: FlowSheet, cuts: readonly FlowCut[]): FlowRe
   const blanks: Rect[] = [];
   const offcuts: Rect[] = [];
   let work: Rect[] = [stock];
-  let previous: FlowGroup | null = null;
   let turnedPieces = 0;
-
-  const settle = (g: FlowGroup | null): void => {
-    if (g === null) return;
-    for (const p of g.pieces) addRect(g.piecesBecome === "offcut" ? offcuts : blanks, p);
-  };
 
   for (let index = 0; index < cuts.length; index++) {
     const cut = cuts[index];
-    if (cut.turn && previous === null) {
+    if (cut.turn && index === 0) {
       turnedPieces += 1;
       work = [turned(stock)];
-    } else if (cut.turn && previous !== null) {
+    } else if (cut.turn) {
       for (const w of work) addRect(offcuts, w);
-      previous.piecesBecome = "turned";
-      turnedPieces += sumCount(previous.pieces);
-      work = previous.pieces.map(turned);
-    } else {
-      settle(previous);
+      const from = cut.from ?? index - 1;
+      const source = from >= 0 && from < index ? groups[from] : undefined;
+      if (source && source.piecesBecome !== "turned") {
+        source.piecesBecome = "turned";
+        turnedPieces += sumCount(source.pieces);
+        work = source.pieces.map(turned);
+      } else {
+        work = [];
+      }
     }
     const run = runGroup(index, cut, work);
     groups.push(run.group);
     work = run.nextWork;
-    previous = run.group;
   }
-  settle(previous);
   for (const w of work) addRect(offcuts, w);
+  // Pieces no group turned are what the program makes: blanks, or offcut from a scrap group.
+  for (const g of groups) {
+    if (g.piecesBecome === "turned") continue;
+    for (const p of g.pieces) addRect(g.piecesBecome === "offcut" ? offcuts : blanks, p);
+  }
 
   return {
     groups,

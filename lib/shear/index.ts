@@ -110,7 +110,7 @@ function readCut(v: unknown, i: number, u: LengthUnit, out: Finding[]): { cut: F
   const group = `Group ${i + 1}`;
   if (!isObject(v)) {
     invalid(out, at, `${group}`, "an object with backgauge and count", v);
-    return { cut: { backgaugeMm: 0, count: 0, lengthMm: null, turn: false, scrap: false }, ok: false };
+    return { cut: { backgaugeMm: 0, count: 0, lengthMm: null, turn: false, from: null, scrap: false }, ok: false };
   }
   let ok = true;
   const fail = (field: string, label: string, rule: string): void => {
@@ -123,13 +123,19 @@ function readCut(v: unknown, i: number, u: LengthUnit, out: Finding[]): { cut: F
   if (!isAbsent(v.turn) && typeof v.turn !== "boolean") fail("turn", "turn", "true or false");
   if (!isAbsent(v.scrap) && typeof v.scrap !== "boolean") fail("scrap", "scrap", "true or false");
   const turn = v.turn === true;
-  if (!ok) return { cut: { backgaugeMm: 0, count: 0, lengthMm: null, turn, scrap: false }, ok };
+  if (!isAbsent(v.from)) {
+    if (!turn) fail("from", "from", "given only with turn: true");
+    else if (!(Number.isInteger(v.from) && (v.from as number) >= 0 && (v.from as number) < i)) fail("from", "from", `the index of an earlier group (0 to ${i - 1})`);
+  }
+  const from = turn && ok && !isAbsent(v.from) ? (v.from as number) : null;
+  if (!ok) return { cut: { backgaugeMm: 0, count: 0, lengthMm: null, turn, from: null, scrap: false }, ok };
   return {
     cut: {
       backgaugeMm: lengthToMm(v.backgauge as number, u),
       count: v.count as number,
       lengthMm: isAbsent(v.length) ? null : lengthToMm(v.length as number, u),
       turn,
+      from,
       scrap: v.scrap === true,
     },
     ok,
@@ -220,6 +226,19 @@ function readProgram(input: unknown, out: Finding[]): ReadProgram | null {
       const r = readCut(c, i, u, out);
       cuts.push(r.cut);
       skip.push(!r.ok);
+    });
+    // Each group's pieces can be taken by one turning group only.
+    const takenBy = new Map<number, number>();
+    cuts.forEach((c, i) => {
+      if (!c.turn || i === 0 || skip[i]) return;
+      const source = c.from ?? i - 1;
+      const earlier = takenBy.get(source);
+      if (earlier === undefined) {
+        takenBy.set(source, i);
+        return;
+      }
+      out.push(finding("value_invalid", `/cuts/${i}/${c.from === null ? "turn" : "from"}`, `Group ${i + 1} turns the pieces of group ${source + 1}, but group ${earlier + 1} already took them; each group's pieces can be turned once.`));
+      skip[i] = true;
     });
   } else {
     invalid(out, "/cuts", "Cuts", "a list of cut groups", input.cuts);

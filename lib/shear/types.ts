@@ -51,8 +51,10 @@ export interface CutGroup {
   count: number;
   /** Length of cut in the program's units; defaults to the presented edge. Shorter = partial stroke. */
   length?: number;
-  /** Take every piece of the previous group, turned 90°, and run this group on each. */
+  /** Take every piece of the previous group (or of group `from`), turned 90°, and run this group on each. */
   turn?: boolean;
+  /** With `turn`: the 0-based index of the earlier group whose pieces this group takes; default the group just before. */
+  from?: number;
   /** The pieces of this group are offcut (a trim cut). */
   scrap?: boolean;
   note?: string;

@@ -128,3 +128,38 @@ describe("properties", () => {
     fc.assert(fc.property(program, (p) => JSON.stringify(simulateFlow(p, p.cuts)) === JSON.stringify(simulateFlow(p, p.cuts))));
   });
 });
+
+describe("turning the pieces of an earlier group (from)", () => {
+  // Hand arithmetic: a 2000 × 1000 mm sheet ripped into two 300 mm and two 200 mm strips
+  // (300 + 300 + 200 + 200 = 1000; the last 200 mm is the remnant of the second rip group),
+  // then each kind crosscut: 300 mm strips at 500 mm (4 per strip), 200 mm strips at 400 mm (5 per strip).
+  const cuts = [cut(300, 2), cut(200, 1), cut(500, 3, { turn: true, from: 0 }), cut(400, 4, { turn: true, from: 1 })];
+  const flow = simulateFlow({ lengthMm: 2000, widthMm: 1000 }, cuts);
+
+  it("both strip kinds are crosscut and the sheet is used whole", () => {
+    expect(flow.groups.map((g) => g.piecesBecome)).toEqual(["turned", "turned", "blanks", "blanks"]);
+    expect(flow.groups[2].workpieces).toBe(2); // two 300 mm strips
+    expect(flow.groups[3].workpieces).toBe(2); // two 200 mm strips
+    expect(flow.blanks).toEqual([
+      { widthMm: 500, lengthMm: 300, count: 8, group: 2 }, // 2 strips × 4
+      { widthMm: 400, lengthMm: 200, count: 10, group: 3 }, // 2 strips × 5
+    ]);
+    expect(flow.offcuts).toEqual([]);
+    expect(flow.blankAreaMm2).toBe(2000 * 1000); // 8 × 500 × 300 + 10 × 400 × 200
+    expect(flow.strokes).toBe(2 + 1 + 2 * 3 + 2 * 4);
+    expect(flow.turnedPieces).toBe(4);
+  });
+
+  it("without from, only the last rip group's strips are crosscut and the others stay strips", () => {
+    const f = simulateFlow({ lengthMm: 2000, widthMm: 1000 }, [cut(300, 2), cut(200, 1), cut(400, 4, { turn: true })]);
+    expect(f.blanks).toEqual([
+      { widthMm: 300, lengthMm: 2000, count: 2, group: 0 },
+      { widthMm: 400, lengthMm: 200, count: 10, group: 2 },
+    ]);
+  });
+
+  it("a group's pieces are turned once: a second group taking them finds nothing", () => {
+    const f = simulateFlow({ lengthMm: 2000, widthMm: 1000 }, [cut(300, 2), cut(500, 3, { turn: true, from: 0 }), cut(500, 3, { turn: true, from: 0 })]);
+    expect(f.groups[2].workpieces).toBe(0);
+  });
+});

@@ -200,6 +200,27 @@ describe("findings from checkProgram", () => {
     expect(check(null).findings[0]).toMatchObject({ code: "value_invalid", pointer: "" });
   });
 
+  it("from: only with turn, only an earlier group, and each group's pieces turned once", () => {
+    const ptrs = (r: CheckResult) => r.findings.filter((f) => f.code === "value_invalid").map((f) => f.pointer);
+    expect(ptrs(check(edit((p) => (p.cuts = [{ backgauge: 12, count: 3 }, { backgauge: 16, count: 7, from: 0 }]))))).toEqual(["/cuts/1/from"]);
+    expect(ptrs(check(edit((p) => (p.cuts = [{ backgauge: 12, count: 3 }, { backgauge: 16, count: 7, turn: true, from: 1 }]))))).toEqual(["/cuts/1/from"]);
+    const twice = check(edit((p) => (p.cuts = [{ backgauge: 12, count: 3 }, { backgauge: 16, count: 7, turn: true, from: 0 }, { backgauge: 16, count: 7, turn: true, from: 0 }])));
+    expect(ptrs(twice)).toEqual(["/cuts/2/from"]);
+    // A strip kind ripped first and crosscut after another kind: worked example sheet, 12 in and 8 in strips.
+    const two = check(
+      edit((p) => {
+        p.cuts = [
+          { backgauge: 12, count: 2 }, // two 12 in strips, 24 in left
+          { backgauge: 8, count: 2 }, // three 8 in strips (the 8 in remnant is the third)
+          { backgauge: 16, count: 7, turn: true, from: 0 },
+          { backgauge: 20, count: 5, turn: true, from: 1 },
+        ];
+      }),
+    );
+    expect(two.findings.filter((f) => f.severity === "error")).toEqual([]);
+    expect(two.yield?.perSheet.blanks).toBe(2 * 7 + 3 * 6); // hand arithmetic: 7 per 12 in strip (8 in offcut), 6 per 8 in strip (120 = 6 × 20)
+  });
+
   it("every code in a result is in the catalogue with the catalogue's severity", () => {
     const r = check(edit((p) => (p.thickness = { value: 0.3 })));
     for (const f of r.findings) expect(f.severity).toBe(FINDING_CATALOGUE[f.code].severity);

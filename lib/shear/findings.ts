@@ -186,7 +186,7 @@ export function checkGroups(c: FlowCheckInput): Finding[] {
     const cut = c.cuts[i];
     const at = `/cuts/${i}`;
     if (c.shear) out.push(...checkBackgaugeTravel(cut, i, c.shear, u));
-    if (cut.count === 0) {
+    if (cut.count === 0 && g.pieces.length === 0) {
       out.push(finding("group_cuts_nothing", `${at}/count`, `${capital(groupName(i))} has nothing to cut: its count is 0.`, null, 0, "strokes"));
       continue;
     }

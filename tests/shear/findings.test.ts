@@ -106,6 +106,16 @@ describe("group checks", () => {
     expect(codes(run({ lengthMm: 2000, widthMm: 300 }, []))).toEqual(["program_cuts_nothing"]);
   });
 
+  it("a group of 0 strokes that names the remnant as its piece is not a fault", () => {
+    // 300 mm: one 100 mm strip, then the 200 mm left is named as a 200 mm strip without a stroke (our piece-flow rule)
+    const cuts = [cut(100, 1), cut(200, 0)];
+    expect(run({ lengthMm: 2000, widthMm: 300 }, cuts)).toEqual([]);
+    const flow = simulateFlow({ lengthMm: 2000, widthMm: 300 }, cuts);
+    expect(flow.blanks.map((b) => [b.widthMm, b.count])).toEqual([[100, 1], [200, 1]]);
+    expect(flow.strokes).toBe(1);
+    expect(codes(run({ lengthMm: 2000, widthMm: 300 }, [cut(100, 1), cut(150, 0)]))).toContain("group_cuts_nothing"); // 200 left is not 150
+  });
+
   it("narrow strip: under 10 × thickness or 1/50 of its length (our rule)", () => {
     const byThickness = run({ lengthMm: 1000, widthMm: 500 }, [cut(25, 2)], 3); // 25 mm < 10 × 3 mm
     expect(byThickness[0]).toMatchObject({ code: "strip_narrow", severity: "warning", limit: 30, actual: 25 }); // our rule: 10 × 3 mm

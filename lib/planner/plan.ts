@@ -1,12 +1,17 @@
 /**
  * Planning demand onto stock sheets with two-stage patterns a shear can cut: rip strips
- * across the sheet, turn each strip and crosscut it into blanks. Greedy by pattern: for
- * every stock size still on hand, build the fullest pattern that the remaining demand can
- * use (strips chosen by value per unit of height, each filled by a knapsack along the
- * strip and capped by what is still wanted), keep the fullest, repeat it as often as the
- * demand and the stock allow, and go again. Never produces more than asked. Blanks that
- * fit no sheet are reported, not dropped. Pure: no I/O; integer dimensions.
+ * across the sheet, turn each strip and crosscut it into blanks (a piece narrower than its
+ * strip is trimmed to width by a third, turned cut). Greedy by pattern: for every stock
+ * size still on hand (presented either way round the blade allows), build candidate
+ * patterns for what is still wanted (strips chosen by value per unit of height or by area,
+ * each filled by a knapsack along the strip and capped by what is still wanted), score them
+ * by the objective, repeat the best as often as the demand and the stock allow, and go
+ * again. Every pattern is written as a cut program and run through the shear core's piece
+ * flow before it is kept (`program.ts`). Never produces more than asked plus the
+ * over-production allowance. Blanks that fit no sheet within the shear's limits are
+ * reported, not dropped. Pure: no I/O; integer dimensions (the caller's grid).
  */
+import { writePattern, type Leftover, type PlacedStrip, type PlanCut, type StripIn } from "./program";
 
 export interface Blank {
   label: string;
@@ -24,6 +29,28 @@ export interface Stock {
   count: number | null;
 }
 
+export type Objective = "fewest_sheets" | "least_waste" | "fewest_strokes";
+
+export interface PlanOptions {
+  objective?: Objective;
+  /** trim cut off the sheet's first edge before ripping (0: none) */
+  trim?: number;
+  /** extra pieces allowed per blank, as a percentage of its quantity (rounded down); 0: never more than asked */
+  overProductionPct?: number;
+  /** leftovers at least this size (either way round) are reusable offcuts; null: none are */
+  reusable?: { length: number; width: number } | null;
+  /** count reusable offcuts as stock returned: they are not waste when patterns are scored and utilisation is reported */
+  offcutsAsStock?: boolean;
+  /** the shear: longest cut (the blade) and the backgauge's travel; null: no limits */
+  limits?: { bladeLength: number; backgaugeMin: number; backgaugeMax: number } | null;
+  /** millimetres per grid unit, for the piece-flow check of each pattern (default 1) */
+  mmPerUnit?: number;
+}
+
+/** "fewest_strokes" takes the patterns with fewest strokes and turns per blank among those within this much utilisation of the fullest. */
+export const STROKES_UTILISATION_SLACK = 0.05;
+
+/** A piece on the sheet as presented (x along the blade); `turned` is relative to the stock sheet's length. */
 export interface Placement {
   blank: number;
   x: number;
@@ -40,11 +67,32 @@ export interface StripPlan {
   pieces: Placement[];
 }
 
+export interface Offcut extends Leftover {
+  reusable: boolean;
+}
+
 export interface SheetPattern {
   stock: number;
+  /** the stock sheet's width is presented to the blade (its length is longer than the blade, or this way round was better) */
+  rotated: boolean;
+  /** the sheet as presented: length along the blade, width toward the backgauge */
+  length: number;
+  width: number;
   repeats: number;
   strips: StripPlan[];
+  offcuts: Offcut[];
+  cuts: PlanCut[];
+  /** per sheet */
+  strokes: number;
+  turns: number;
   utilisation: number;
+}
+
+export interface Unplaced {
+  blank: number;
+  quantity: number;
+  kind: "unplaceable" | "stock_short";
+  reason: string;
 }
 
 export interface Plan {
@@ -52,8 +100,18 @@ export interface Plan {
   sheetsUsed: number;
   /** pieces placed per blank, over all repeats */
   produced: number[];
-  unplaced: { blank: number; quantity: number; reason: string }[];
+  /** pieces beyond the quantity asked, per blank (never more than the allowance) */
+  extra: number[];
+  unplaced: Unplaced[];
+  /** stock sizes the shear cannot take either way round */
+  unusableStock: number[];
+  /** blank area over stock area */
   utilisation: number;
+  /** blank area over stock area less the reusable offcuts */
+  netUtilisation: number;
+  reusable: { length: number; width: number; count: number }[];
+  strokes: number;
+  turns: number;
 }
 
 interface Variant { blank: number; along: number; tall: number; turned: boolean }
@@ -67,12 +125,25 @@ function variants(blanks: Blank[]): Variant[] {
   return out;
 }
 
+/** A sheet as it meets the blade: what may go along and across it. */
+interface Presented {
+  stock: number;
+  rotated: boolean;
+  length: number;
+  width: number;
+  /** usable width after the trim */
+  usable: number;
+  /** variants that fit this way round within the shear's limits */
+  vs: Variant[];
+  /** tallest strip the shear can crosscut and gauge */
+  maxHeight: number;
+}
+
 /** Unbounded knapsack tables, kept per strip length, height and set of blanks still wanted (they rarely change). */
 type Tables = Map<string, { items: Variant[]; pick: Int32Array }>;
 
-/** Fill a strip of this length and height with what is still wanted: unbounded knapsack by area, then capped. */
-function fillStrip(length: number, height: number, vs: Variant[], left: number[], tables: Tables): Variant[] {
-  const items = vs.filter((v) => v.tall <= height && v.along <= length && left[v.blank] > 0);
+/** Fill a strip of this length and height with what may still be placed: unbounded knapsack by area, then capped. */
+function fillStrip(length: number, height: number, items: Variant[], cap: number[], tables: Tables): Variant[] {
   if (!items.length) return [];
   const key = `${length}|${height}|${items.map((v) => `${v.blank}${v.turned ? "t" : ""}`).join(",")}`;
   let table = tables.get(key);
@@ -105,7 +176,7 @@ function fillStrip(length: number, height: number, vs: Variant[], left: number[]
       continue;
     }
     const it = items[i];
-    if ((used.get(it.blank) ?? 0) < left[it.blank]) {
+    if ((used.get(it.blank) ?? 0) < cap[it.blank]) {
       chosen.push(it);
       used.set(it.blank, (used.get(it.blank) ?? 0) + 1);
     }
@@ -114,7 +185,7 @@ function fillStrip(length: number, height: number, vs: Variant[], left: number[]
   // Capping may leave room: top it up greedily with the largest pieces still wanted.
   let room = length - chosen.reduce((s, v) => s + v.along, 0);
   for (const it of [...items].sort((a, b) => b.along * b.tall - a.along * a.tall)) {
-    while (it.along <= room && (used.get(it.blank) ?? 0) < left[it.blank]) {
+    while (it.along <= room && (used.get(it.blank) ?? 0) < cap[it.blank]) {
       chosen.push(it);
       used.set(it.blank, (used.get(it.blank) ?? 0) + 1);
       room -= it.along;
@@ -123,101 +194,236 @@ function fillStrip(length: number, height: number, vs: Variant[], left: number[]
   return chosen;
 }
 
+type Rule = "density" | "area";
+
 /**
- * The fullest pattern for one sheet given what is still wanted. Strips are added one at a
- * time, chosen by `rule`: the most blank area per unit of strip height, or the most area.
+ * Strips for one sheet given what may still be placed, added one at a time by `rule`: the
+ * most blank area per unit of strip height, or the most area. `exact` keeps to pieces as
+ * tall as their strip (no trimming cut).
  */
-function buildPattern(stock: Stock, vs: Variant[], left: number[], rule: "density" | "area", tables: Tables): { strips: { height: number; pieces: Variant[] }[]; area: number } {
-  const want = [...left];
-  const strips: { height: number; pieces: Variant[] }[] = [];
-  let free = stock.width;
-  let area = 0;
+function buildStrips(p: Presented, cap: number[], rule: Rule, exact: boolean, tol: number, tables: Tables): StripIn[] {
+  const want = [...cap];
+  const strips: StripIn[] = [];
+  let free = p.usable;
   for (;;) {
-    const heights = [...new Set(vs.filter((v) => v.tall <= free && v.along <= stock.length && want[v.blank] > 0).map((v) => v.tall))];
-    let bestStrip: { height: number; pieces: Variant[]; area: number } | null = null;
+    const open = p.vs.filter((v) => v.tall <= free && want[v.blank] > 0);
+    const heights = [...new Set(open.map((v) => v.tall))].filter((h) => h <= p.maxHeight);
+    let best: { height: number; pieces: Variant[]; area: number } | null = null;
     for (const h of heights) {
-      const pieces = fillStrip(stock.length, h, vs, want, tables);
+      // A piece narrower than its strip is trimmed by one more cut; its offcut must not be a piece itself.
+      const items = open.filter((v) => v.tall === h || (!exact && v.tall < h - tol && Math.abs(h - 2 * v.tall) > tol));
+      const pieces = fillStrip(p.length, h, items, want, tables);
       const a = pieces.reduce((s, v) => s + v.along * v.tall, 0);
-      const better = !bestStrip || (rule === "density" ? a / h > bestStrip.area / bestStrip.height : a > bestStrip.area);
-      if (a > 0 && better) bestStrip = { height: h, pieces, area: a };
+      const better = !best || (rule === "density" ? a / h > best.area / best.height : a > best.area);
+      if (a > 0 && better) best = { height: h, pieces, area: a };
     }
-    if (!bestStrip) break;
-    strips.push({ height: bestStrip.height, pieces: bestStrip.pieces });
-    for (const v of bestStrip.pieces) want[v.blank] -= 1;
-    free -= bestStrip.height;
-    area += bestStrip.area;
+    if (!best) break;
+    strips.push({ height: best.height, pieces: best.pieces.map((v) => ({ blank: v.blank, along: v.along, tall: v.tall, turned: v.turned })) });
+    for (const v of best.pieces) want[v.blank] -= 1;
+    free -= best.height;
   }
-  return { strips, area };
+  return strips;
 }
 
-export function planBlanks(stock: Stock[], blanks: Blank[]): Plan {
-  const vs = variants(blanks);
-  const left = blanks.map((b) => Math.max(0, Math.floor(b.quantity)));
-  const onHand = stock.map((s) => s.count);
-  const unplaced: Plan["unplaced"] = [];
-  blanks.forEach((b, i) => {
-    const fits = stock.some((s) => vs.some((v) => v.blank === i && v.along <= s.length && v.tall <= s.width));
-    if (!fits && left[i] > 0) {
-      unplaced.push({ blank: i, quantity: left[i], reason: `${b.length} × ${b.width} fits on none of the stock sheets${b.canTurn ? " even turned" : ""}` });
-      left[i] = 0;
+const isReusable = (o: { length: number; width: number }, min: { length: number; width: number } | null | undefined) =>
+  !!min && Math.min(o.length, o.width) >= Math.min(min.length, min.width) && Math.max(o.length, o.width) >= Math.max(min.length, min.width);
+
+interface Candidate {
+  p: Presented;
+  strips: PlacedStrip[];
+  offcuts: Offcut[];
+  cuts: PlanCut[];
+  strokes: number;
+  turns: number;
+  blanksArea: number;
+  reusableArea: number;
+  pieces: number;
+  uses: Map<number, number>;
+}
+
+/** How the shear's limits and the sheets on hand shape where each blank can go. */
+function present(stock: Stock[], vs: Variant[], o: PlanOptions): { ways: Presented[]; unusable: number[] } {
+  const lim = o.limits ?? null;
+  const trim = o.trim ?? 0;
+  const tol = 0.1 / (o.mmPerUnit ?? 1);
+  const ways: Presented[] = [];
+  const unusable: number[] = [];
+  stock.forEach((s, i) => {
+    const turns = s.length === s.width ? [false] : [false, true];
+    let any = false;
+    for (const rotated of turns) {
+      const length = rotated ? s.width : s.length;
+      const width = rotated ? s.length : s.width;
+      if (lim && length > lim.bladeLength) continue;
+      if (width - trim <= tol) continue;
+      any = true;
+      const maxHeight = Math.min(width - trim, lim ? Math.min(lim.bladeLength, lim.backgaugeMax) : Infinity);
+      // Grain follows the sheet: on a sheet presented the other way round, every blank is presented the other way round too.
+      const these = rotated ? vs.map((v) => ({ ...v, along: v.tall, tall: v.along })) : vs;
+      const fits = these.filter(
+        (v) => v.along <= length && v.tall <= maxHeight && (!lim || (v.along >= lim.backgaugeMin && v.along <= lim.backgaugeMax && v.tall >= lim.backgaugeMin)),
+      );
+      ways.push({ stock: i, rotated, length, width, usable: width - trim, vs: fits, maxHeight });
     }
+    if (!any) unusable.push(i);
   });
+  return { ways, unusable };
+}
+
+function whyUnplaceable(b: Blank, stock: Stock[], o: PlanOptions): string {
+  const lim = o.limits;
+  const dims = `${b.length} × ${b.width}`;
+  if (lim) {
+    const gauged = [b.length, b.width].filter((d) => d >= lim.backgaugeMin && d <= lim.backgaugeMax);
+    if (!gauged.length) return `${dims}: neither edge is within the backgauge's travel (${lim.backgaugeMin} to ${lim.backgaugeMax})`;
+    if (Math.min(b.length, b.width) < lim.backgaugeMin) return `${dims}: ${Math.min(b.length, b.width)} is shorter than the backgauge's nearest setting (${lim.backgaugeMin})`;
+  }
+  const turnNote = b.canTurn ? " even turned" : " (it may not be turned)";
+  return `${dims} fits on none of the stock sheets within the shear's blade and backgauge${turnNote}`;
+}
+
+export function planBlanks(stock: Stock[], blanks: Blank[], options: PlanOptions = {}): Plan {
+  const o = { objective: "fewest_sheets" as Objective, trim: 0, overProductionPct: 0, mmPerUnit: 1, ...options };
+  const tol = 0.1 / o.mmPerUnit; // the shear core's remnant tolerance, 0.1 mm, in grid units
+  const vs = variants(blanks);
+  const { ways, unusable } = present(stock, vs, o);
+  const quantity = blanks.map((b) => Math.max(0, Math.floor(b.quantity)));
+  const allowance = quantity.map((q) => Math.floor((q * o.overProductionPct) / 100));
+  const produced = blanks.map(() => 0);
+  const onHand = stock.map((s) => s.count);
+  const unplaced: Unplaced[] = [];
+  const placeable = blanks.map((_, i) => ways.some((w) => w.vs.some((v) => v.blank === i)));
+  blanks.forEach((b, i) => {
+    if (!placeable[i] && quantity[i] > 0) unplaced.push({ blank: i, quantity: quantity[i], kind: "unplaceable", reason: whyUnplaceable(b, stock, o) });
+  });
+  const left = () => quantity.map((q, i) => (placeable[i] ? Math.max(0, q - produced[i]) : 0));
   const patterns: SheetPattern[] = [];
   const tables: Tables = new Map();
-  while (left.some((n) => n > 0)) {
-    let best: { stock: number; strips: { height: number; pieces: Variant[] }[]; utilisation: number } | null = null;
-    stock.forEach((s, si) => {
-      if (onHand[si] !== null && onHand[si]! <= 0) return;
-      for (const rule of ["density", "area"] as const) {
-        const p = buildPattern(s, vs, left, rule, tables);
-        const utilisation = p.area / (s.length * s.width);
-        if (p.strips.length && (!best || utilisation > best.utilisation)) best = { stock: si, strips: p.strips, utilisation };
+  const exacts = o.objective === "fewest_strokes" ? [false, true] : [false];
+  const minGauge = o.limits?.backgaugeMin ?? 0;
+
+  for (;;) {
+    const need = left();
+    if (!need.some((n) => n > 0)) break;
+    const cap = quantity.map((q, i) => (placeable[i] && (need[i] > 0 || allowance[i] > 0) ? Math.max(0, q + allowance[i] - produced[i]) : 0));
+    const candidates: Candidate[] = [];
+    for (const p of ways) {
+      if (onHand[p.stock] !== null && onHand[p.stock]! <= 0) continue;
+      for (const exact of exacts) {
+        for (const rule of ["density", "area"] as const) {
+          let strips = buildStrips(p, cap, rule, exact, tol, tables);
+          // A pattern must serve what is still wanted, not only the allowance.
+          if (!strips.some((s) => s.pieces.some((pc) => need[pc.blank] > 0))) continue;
+          let written = writePattern({ length: p.length, width: p.width }, o.trim, strips, o.mmPerUnit, minGauge);
+          // When no order of groups satisfies the remnant rule (two pieces that the shear cannot tell
+          // apart, say), give up pieces from the end until the program makes exactly what it shows.
+          while (!written && strips.length) {
+            const last = strips[strips.length - 1];
+            strips = last.pieces.length > 1 ? [...strips.slice(0, -1), { ...last, pieces: last.pieces.slice(0, -1) }] : strips.slice(0, -1);
+            if (strips.length) written = writePattern({ length: p.length, width: p.width }, o.trim, strips, o.mmPerUnit, minGauge);
+          }
+          if (!written || !strips.some((s) => s.pieces.some((pc) => need[pc.blank] > 0))) continue;
+          const offcuts = written.leftovers.map((l) => ({ ...l, reusable: l.kind !== "trim" && isReusable(l, o.reusable) }));
+          const uses = new Map<number, number>();
+          let blanksArea = 0;
+          let pieces = 0;
+          for (const st of written.strips) for (const pc of st.pieces) {
+            uses.set(pc.blank, (uses.get(pc.blank) ?? 0) + 1);
+            blanksArea += pc.along * pc.tall;
+            pieces += 1;
+          }
+          const reusableArea = offcuts.filter((x) => x.reusable).reduce((s, x) => s + x.length * x.width, 0);
+          candidates.push({ p, strips: written.strips, offcuts, cuts: written.cuts, strokes: written.strokes, turns: written.turns, blanksArea, reusableArea, pieces, uses });
+        }
       }
-    });
-    if (!best) break;
-    const chosen = best as { stock: number; strips: { height: number; pieces: Variant[] }[]; utilisation: number };
-    const uses = new Map<number, number>();
-    for (const st of chosen.strips) for (const v of st.pieces) uses.set(v.blank, (uses.get(v.blank) ?? 0) + 1);
-    let repeats = Math.min(...[...uses].map(([b, n]) => Math.floor(left[b] / n)));
-    const have = onHand[chosen.stock];
+    }
+    if (!candidates.length) break;
+    const best = choose(candidates, o);
+    const need2 = left();
+    let repeats = Infinity;
+    let useful = 0;
+    for (const [b, n] of best.uses) {
+      repeats = Math.min(repeats, Math.floor(cap[b] / n));
+      if (need2[b] > 0) useful = Math.max(useful, Math.ceil(need2[b] / n));
+    }
+    repeats = Math.min(repeats, useful);
+    const have = onHand[best.p.stock];
     if (have !== null) repeats = Math.min(repeats, have);
     repeats = Math.max(1, repeats);
-    for (const [b, n] of uses) left[b] -= n * repeats;
-    if (have !== null) onHand[chosen.stock] = have - repeats;
-    let y = 0;
-    const strips: StripPlan[] = chosen.strips.map((st) => {
-      let x = 0;
-      const pieces = st.pieces.map((v) => {
-        const p = { blank: v.blank, x, y, length: v.along, width: v.tall, turned: v.turned };
-        x += v.along;
-        return p;
-      });
-      const plan = { y, height: st.height, pieces };
-      y += st.height;
-      return plan;
+    for (const [b, n] of best.uses) produced[b] += n * repeats;
+    if (have !== null) onHand[best.p.stock] = have - repeats;
+    patterns.push({
+      stock: best.p.stock,
+      rotated: best.p.rotated,
+      length: best.p.length,
+      width: best.p.width,
+      repeats,
+      strips: best.strips.map((st) => ({
+        y: st.y,
+        height: st.height,
+        pieces: st.pieces.map((pc) => ({ blank: pc.blank, x: pc.x, y: pc.y, length: pc.along, width: pc.tall, turned: pc.turned })),
+      })),
+      offcuts: best.offcuts,
+      cuts: best.cuts,
+      strokes: best.strokes,
+      turns: best.turns,
+      utilisation: best.blanksArea / (best.p.length * best.p.width),
     });
-    patterns.push({ stock: chosen.stock, repeats, strips, utilisation: chosen.utilisation });
   }
-  left.forEach((n, i) => {
-    if (n > 0) unplaced.push({ blank: i, quantity: n, reason: "not enough stock on hand" });
+  left().forEach((n, i) => {
+    if (n > 0) unplaced.push({ blank: i, quantity: n, kind: "stock_short", reason: "not enough stock on hand" });
   });
-  const produced = blanks.map(() => 0);
   let usedArea = 0;
   let stockArea = 0;
+  let reusableArea = 0;
+  const reusable = new Map<string, { length: number; width: number; count: number }>();
   for (const p of patterns) {
-    stockArea += stock[p.stock].length * stock[p.stock].width * p.repeats;
-    for (const st of p.strips) for (const pc of st.pieces) {
-      produced[pc.blank] += p.repeats;
-      usedArea += pc.length * pc.width * p.repeats;
+    stockArea += p.length * p.width * p.repeats;
+    for (const st of p.strips) for (const pc of st.pieces) usedArea += pc.length * pc.width * p.repeats;
+    for (const x of p.offcuts) {
+      if (!x.reusable) continue;
+      reusableArea += x.length * x.width * p.repeats;
+      const [a, b] = x.length >= x.width ? [x.length, x.width] : [x.width, x.length];
+      const r = reusable.get(`${a}x${b}`) ?? { length: a, width: b, count: 0 };
+      r.count += p.repeats;
+      reusable.set(`${a}x${b}`, r);
     }
   }
   return {
     patterns,
     sheetsUsed: patterns.reduce((s, p) => s + p.repeats, 0),
     produced,
+    extra: produced.map((n, i) => Math.max(0, n - quantity[i])),
     unplaced,
+    unusableStock: unusable,
     utilisation: stockArea ? usedArea / stockArea : 0,
+    netUtilisation: stockArea - reusableArea > 0 ? usedArea / (stockArea - reusableArea) : 0,
+    reusable: [...reusable.values()].sort((a, b) => b.length * b.width - a.length * a.width),
+    strokes: patterns.reduce((s, p) => s + p.strokes * p.repeats, 0),
+    turns: patterns.reduce((s, p) => s + p.turns * p.repeats, 0),
   };
+}
+
+/** The objective's pick among candidate patterns for the next sheets. */
+function choose(cs: Candidate[], o: PlanOptions): Candidate {
+  const area = (c: Candidate) => c.p.length * c.p.width;
+  const fill = (c: Candidate) => (c.blanksArea + (o.offcutsAsStock ? c.reusableArea : 0)) / area(c);
+  const by = (score: (c: Candidate) => number, tie: (c: Candidate) => number) =>
+    cs.reduce((best, c) => (score(c) > score(best) + 1e-12 || (Math.abs(score(c) - score(best)) <= 1e-12 && tie(c) > tie(best)) ? c : best));
+  switch (o.objective) {
+    case "least_waste":
+      return by(fill, (c) => c.blanksArea);
+    case "fewest_strokes": {
+      const top = Math.max(...cs.map(fill));
+      const near = cs.filter((c) => fill(c) >= top - STROKES_UTILISATION_SLACK);
+      return near.reduce((best, c) => {
+        const h = (x: Candidate) => (x.strokes + x.turns) / x.pieces;
+        return h(c) < h(best) - 1e-12 || (Math.abs(h(c) - h(best)) <= 1e-12 && fill(c) > fill(best)) ? c : best;
+      });
+    }
+    default:
+      return by((c) => c.blanksArea, fill);
+  }
 }
 
 /** The simplest lower bound on sheets: total blank area over one sheet's area (one stock size). */

@@ -9,31 +9,59 @@ import { readdirSync, readFileSync } from "node:fs";
 import path from "node:path";
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
-import { areaLowerBound, planBlanks, type Blank, type Plan, type Stock } from "../../lib/planner/plan";
+import { areaLowerBound, planBlanks, type Blank, type Plan, type PlanOptions, type Stock } from "../../lib/planner/plan";
+import { simulateFlow } from "../../lib/shear/flow";
 
-function checkPlan(plan: Plan, stock: Stock[], blanks: Blank[]) {
+const sizeKey = (a: number, b: number) => (a <= b ? `${a}x${b}` : `${b}x${a}`);
+
+function checkPlan(plan: Plan, stock: Stock[], blanks: Blank[], options: PlanOptions = {}) {
   blanks.forEach((b, i) => {
     const unplaced = plan.unplaced.filter((u) => u.blank === i).reduce((s, u) => s + u.quantity, 0);
-    expect(plan.produced[i] + unplaced, `blank ${i}`).toBe(b.quantity);
+    const allowance = Math.floor((b.quantity * (options.overProductionPct ?? 0)) / 100);
+    expect(plan.produced[i] - plan.extra[i] + unplaced, `blank ${i}`).toBe(b.quantity);
+    expect(plan.extra[i]).toBeLessThanOrEqual(allowance);
   });
   for (const p of plan.patterns) {
     const sheet = stock[p.stock];
-    let y = 0;
+    expect(p.rotated ? [p.width, p.length] : [p.length, p.width]).toEqual([sheet.length, sheet.width]);
+    let y = p.strips[0]?.y ?? 0;
+    expect(y).toBeGreaterThanOrEqual(options.trim ?? 0);
+    const rects: { x: number; y: number; l: number; w: number }[] = [];
     for (const st of p.strips) {
-      expect(st.y).toBe(y);
+      expect(st.y).toBe(y); // strips follow each other across the sheet: each rip is a full cut of the sheet
       y += st.height;
-      let x = 0;
+      let x = st.pieces[0]?.x ?? 0;
       for (const pc of st.pieces) {
         expect(pc.x).toBe(x); // pieces follow each other along the strip: each crosscut is a full cut of the strip
+        expect(pc.y).toBe(st.y);
         x += pc.length;
-        expect(pc.width).toBeLessThanOrEqual(st.height);
+        expect(pc.width).toBeLessThanOrEqual(st.height); // and a narrower piece is trimmed by a full cut of that piece
         const b = blanks[pc.blank];
-        expect([pc.length, pc.width]).toEqual(pc.turned ? [b.width, b.length] : [b.length, b.width]);
+        expect([pc.length, pc.width]).toEqual(pc.turned !== p.rotated ? [b.width, b.length] : [b.length, b.width]); // grain follows the sheet
         if (pc.turned) expect(b.canTurn).toBe(true);
+        rects.push({ x: pc.x, y: pc.y, l: pc.length, w: pc.width });
       }
-      expect(x).toBeLessThanOrEqual(sheet.length);
+      expect(x).toBeLessThanOrEqual(p.length);
     }
-    expect(y).toBeLessThanOrEqual(sheet.width);
+    expect(y).toBeLessThanOrEqual(p.width);
+    // Pieces and offcuts tile the sheet: nothing overlaps, everything lies on the sheet, the areas add up.
+    for (const o of p.offcuts) rects.push({ x: o.x, y: o.y, l: o.length, w: o.width });
+    for (const r of rects) {
+      expect(r.x >= 0 && r.y >= 0 && r.x + r.l <= p.length && r.y + r.w <= p.width).toBe(true);
+    }
+    for (let i = 0; i < rects.length; i++) for (let j = i + 1; j < rects.length; j++) {
+      const a = rects[i], b = rects[j];
+      expect(a.x < b.x + b.l && b.x < a.x + a.l && a.y < b.y + b.w && b.y < a.y + a.w, "overlap").toBe(false);
+    }
+    expect(rects.reduce((s, r) => s + r.l * r.w, 0)).toBe(p.length * p.width);
+    // The pattern's program, run through the shear core's piece flow, makes exactly its pieces.
+    const flow = simulateFlow({ lengthMm: p.length, widthMm: p.width }, p.cuts.map((c) => ({ backgaugeMm: c.backgauge, count: c.count, lengthMm: null, turn: !!c.turn, from: c.from ?? null, scrap: !!c.scrap })));
+    const made = new Map<string, number>();
+    for (const b of flow.blanks) made.set(sizeKey(b.widthMm, b.lengthMm), (made.get(sizeKey(b.widthMm, b.lengthMm)) ?? 0) + b.count);
+    const want = new Map<string, number>();
+    for (const st of p.strips) for (const pc of st.pieces) want.set(sizeKey(pc.length, pc.width), (want.get(sizeKey(pc.length, pc.width)) ?? 0) + 1);
+    expect(made).toEqual(want);
+    expect(flow.groups.every((g) => g.beyond === null)).toBe(true);
   }
   const used = new Map<number, number>();
   for (const p of plan.patterns) used.set(p.stock, (used.get(p.stock) ?? 0) + p.repeats);
@@ -51,14 +79,125 @@ describe("planning blanks onto sheets", () => {
 
   it("reports a blank that fits no sheet instead of dropping it", () => {
     const plan = planBlanks([{ length: 100, width: 50, count: null }], [{ label: "too long", length: 120, width: 10, quantity: 3 }, { label: "ok", length: 10, width: 10, quantity: 2 }]);
-    expect(plan.unplaced).toEqual([{ blank: 0, quantity: 3, reason: expect.stringMatching(/fits on none/) }]);
+    expect(plan.unplaced).toEqual([{ blank: 0, quantity: 3, kind: "unplaceable", reason: expect.stringMatching(/fits on none/) }]);
     expect(plan.produced).toEqual([0, 2]);
   });
 
   it("keeps to the sheets on hand and says what is left", () => {
     const plan = planBlanks([{ length: 10, width: 10, count: 1 }], [{ label: "a", length: 10, width: 10, quantity: 3 }]);
     expect(plan.sheetsUsed).toBe(1);
-    expect(plan.unplaced).toEqual([{ blank: 0, quantity: 2, reason: "not enough stock on hand" }]);
+    expect(plan.unplaced).toEqual([{ blank: 0, quantity: 2, kind: "stock_short", reason: "not enough stock on hand" }]);
+  });
+
+  it("trims the first edge: strips start after the trim, and the program's first group cuts it off as scrap", () => {
+    // 120 × 48 in sheets, 1/2 in trim: 47.5 in left, so three 12 in strips (not four) per sheet for 16 × 12 blanks
+    const plan = planBlanks([{ length: 240, width: 96, count: null }], [{ label: "panel", length: 32, width: 24, quantity: 21 }], { trim: 1 });
+    checkPlan(plan, [{ length: 240, width: 96, count: null }], [{ label: "panel", length: 32, width: 24, quantity: 21 }], { trim: 1 });
+    expect(plan.patterns[0].cuts[0]).toMatchObject({ backgauge: 1, count: 1, scrap: true });
+    expect(plan.patterns[0].strips[0].y).toBe(1);
+    expect(plan.patterns[0].strips).toHaveLength(3); // hand arithmetic: 95 / 24 = 3.96
+    expect(plan.patterns[0].offcuts.find((o) => o.kind === "trim")).toMatchObject({ y: 0, width: 1, reusable: false });
+  });
+
+  it("keeps within the shear: presents a sheet the other way round when it is longer than the blade, and reports blanks beyond the backgauge", () => {
+    const stock: Stock[] = [{ length: 3000, width: 1500, count: null }];
+    const blanks: Blank[] = [{ label: "a", length: 500, width: 400, quantity: 10, canTurn: true }, { label: "long", length: 1400, width: 1200, quantity: 1, canTurn: true }];
+    const limits = { bladeLength: 2500, backgaugeMin: 10, backgaugeMax: 1000 };
+    const plan = planBlanks(stock, blanks, { limits });
+    checkPlan(plan, stock, blanks);
+    expect(plan.patterns.every((p) => p.rotated && p.length === 1500)).toBe(true); // 3000 > 2500 blade: the 1500 edge goes to the blade
+    for (const p of plan.patterns) for (const c of p.cuts) expect(c.backgauge).toBeLessThanOrEqual(1000);
+    expect(plan.unplaced).toEqual([{ blank: 1, quantity: 1, kind: "unplaceable", reason: expect.stringMatching(/backgauge/) }]);
+    const none = planBlanks([{ length: 3000, width: 2600, count: null }], blanks, { limits });
+    expect(none.unusableStock).toEqual([0]);
+    expect(none.unplaced.map((u) => u.kind)).toEqual(["unplaceable", "unplaceable"]);
+  });
+
+  it("over-production: never without an allowance, never beyond it, and said per blank", () => {
+    // 7 blanks 50 × 50 on 100 × 100 sheets: 4 per sheet, so 2 sheets hold 8; the eighth is an extra only with an allowance
+    const stock: Stock[] = [{ length: 100, width: 100, count: null }];
+    const blanks: Blank[] = [{ label: "sq", length: 50, width: 50, quantity: 7 }];
+    const strict = planBlanks(stock, blanks);
+    expect(strict.produced).toEqual([7]);
+    expect(strict.extra).toEqual([0]);
+    const loose = planBlanks(stock, blanks, { overProductionPct: 15 }); // floor(7 × 15 %) = 1 extra allowed
+    checkPlan(loose, stock, blanks, { overProductionPct: 15 });
+    expect(loose.produced).toEqual([8]);
+    expect(loose.extra).toEqual([1]);
+    expect(loose.sheetsUsed).toBe(2);
+  });
+
+  it("reusable offcuts: reported by size, and counted as stock returned in the net utilisation", () => {
+    // One 1200 × 400 blank on a 2000 × 1000 sheet: an 800 × 400 strip end and a 2000 × 600 sheet end are left
+    const stock: Stock[] = [{ length: 2000, width: 1000, count: 1 }];
+    const blanks: Blank[] = [{ label: "a", length: 1200, width: 400, quantity: 1 }];
+    const plan = planBlanks(stock, blanks, { reusable: { length: 500, width: 300 } });
+    checkPlan(plan, stock, blanks);
+    expect(plan.reusable).toEqual([{ length: 2000, width: 600, count: 1 }, { length: 800, width: 400, count: 1 }]);
+    expect(plan.utilisation).toBeCloseTo(0.24, 9); // 480 000 / 2 000 000
+    expect(plan.netUtilisation).toBeCloseTo(1, 9); // 480 000 / (2 000 000 − 1 200 000 − 320 000)
+    const none = planBlanks(stock, blanks);
+    expect(none.reusable).toEqual([]);
+    expect(none.netUtilisation).toBeCloseTo(0.24, 9);
+  });
+
+  it("objectives: fewest sheets takes the bigger sheet, least waste the fuller one, fewest strokes avoids trimming cuts", () => {
+    // 30 × 20 blanks; a 100 × 60 sheet holds 9 (3 × 3, 100 % of 90 × 60 … 90 %), a 60 × 40 sheet holds 4 (100 %)
+    const stock: Stock[] = [{ length: 100, width: 60, count: null }, { length: 60, width: 40, count: null }];
+    const blanks: Blank[] = [{ label: "b", length: 30, width: 20, quantity: 36, canTurn: false }];
+    const sheets = planBlanks(stock, blanks, { objective: "fewest_sheets" });
+    const waste = planBlanks(stock, blanks, { objective: "least_waste" });
+    checkPlan(sheets, stock, blanks);
+    checkPlan(waste, stock, blanks);
+    expect(sheets.sheetsUsed).toBe(4); // hand arithmetic: 36 / 9
+    expect(sheets.utilisation).toBeCloseTo(0.9, 9);
+    expect(waste.sheetsUsed).toBe(9); // 36 / 4
+    expect(waste.utilisation).toBeCloseTo(1, 9);
+    // 4 of 60 × 30 and 4 of 40 × 28 on 100 × 60 sheets, grain fixed. Least waste: two 30 strips, each 60 × 30 + 40 × 28
+    // with the 40 × 28 trimmed from 30 (5840 / 6000 = 97.3 %); per sheet 1 rip + 2 crosscuts + 2 trims = 5 strokes,
+    // 2 strips + 2 pieces turned = 4 turns. Fewest strokes: the sheet presented the other way round, a 60 strip of two
+    // 30-wide p and a 40 strip of two 28-wide q: the same 97.3 %, 1 + 1 + 2 = 4 strokes and 2 turns (hand arithmetic).
+    const mixed: Blank[] = [{ label: "p", length: 60, width: 30, quantity: 4, canTurn: false }, { label: "q", length: 40, width: 28, quantity: 4, canTurn: false }];
+    const sheet: Stock[] = [{ length: 100, width: 60, count: null }];
+    const lw = planBlanks(sheet, mixed, { objective: "least_waste" });
+    const fs = planBlanks(sheet, mixed, { objective: "fewest_strokes" });
+    checkPlan(lw, sheet, mixed);
+    checkPlan(fs, sheet, mixed);
+    expect([lw.sheetsUsed, fs.sheetsUsed]).toEqual([2, 2]);
+    expect(lw.utilisation).toBeCloseTo(5840 / 6000, 9);
+    expect(fs.utilisation).toBeCloseTo(5840 / 6000, 9);
+    expect([lw.strokes, lw.turns]).toEqual([10, 8]);
+    expect([fs.strokes, fs.turns]).toEqual([8, 4]);
+    expect(fs.patterns.flatMap((p) => p.offcuts).filter((o) => o.kind === "piece-trim")).toEqual([]);
+  });
+
+  it("holds its promises for any demand and any options (property)", () => {
+    const blank = fc.record({
+      label: fc.constant("b"), length: fc.integer({ min: 1, max: 120 }), width: fc.integer({ min: 1, max: 80 }),
+      quantity: fc.integer({ min: 0, max: 12 }), canTurn: fc.boolean(),
+    });
+    const sheet = fc.record({ length: fc.integer({ min: 20, max: 150 }), width: fc.integer({ min: 20, max: 100 }), count: fc.option(fc.integer({ min: 0, max: 6 }), { nil: null }) });
+    const options = fc.record({
+      objective: fc.constantFrom("fewest_sheets", "least_waste", "fewest_strokes") as fc.Arbitrary<PlanOptions["objective"]>,
+      trim: fc.integer({ min: 0, max: 5 }),
+      overProductionPct: fc.integer({ min: 0, max: 30 }),
+      reusable: fc.option(fc.record({ length: fc.integer({ min: 5, max: 60 }), width: fc.integer({ min: 5, max: 40 }) }), { nil: null }),
+      offcutsAsStock: fc.boolean(),
+      limits: fc.option(fc.record({ bladeLength: fc.integer({ min: 60, max: 160 }), backgaugeMin: fc.integer({ min: 1, max: 5 }), backgaugeMax: fc.integer({ min: 40, max: 120 }) }), { nil: null }),
+    });
+    fc.assert(
+      fc.property(fc.array(sheet, { minLength: 1, maxLength: 3 }), fc.array(blank, { minLength: 1, maxLength: 8 }), options, (stock, blanks, o) => {
+        const plan = planBlanks(stock, blanks, o);
+        checkPlan(plan, stock, blanks, o);
+        if (o.limits) for (const p of plan.patterns) {
+          expect(p.length).toBeLessThanOrEqual(o.limits.bladeLength);
+          for (const c of p.cuts) expect(c.backgauge).toBeLessThanOrEqual(o.limits.backgaugeMax);
+        }
+        // unlimited stock of a usable size: nothing placeable is left over
+        if (stock.every((s) => s.count === null)) expect(plan.unplaced.filter((u) => u.kind === "stock_short")).toEqual([]);
+      }),
+      { numRuns: 150, seed: 11 },
+    );
   });
 
   it("holds its promises for any demand (property)", () => {
@@ -90,6 +229,7 @@ describe("2D bin-packing classes (sheets against the area lower bound)", () => {
     const stock: Stock[] = [{ ...sheet, count: null }];
     const plan = planBlanks(stock, blanks);
     checkPlan(plan, stock, blanks);
+    expect(plan.unplaced, d.Name).toEqual([]); // unlimited stock: everything is placed
     const c = byClass.get(cls) ?? { sheets: 0, bound: 0, n: 0 };
     c.sheets += plan.sheetsUsed;
     c.bound += areaLowerBound(sheet, blanks);

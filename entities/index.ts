@@ -7,6 +7,7 @@ import { Grade } from "./Grade";
 import { IdempotencyRecord } from "./IdempotencyRecord";
 import { Invitation } from "./Invitation";
 import { Membership } from "./Membership";
+import { Plan } from "./Plan";
 import { Program } from "./Program";
 import { RequestLog } from "./RequestLog";
 import { Shear } from "./Shear";
@@ -14,17 +15,18 @@ import { Shop } from "./Shop";
 import { User } from "./User";
 import { WebhookEndpoint } from "./WebhookEndpoint";
 
-export { ApiKey, Delivery, DeliveryAttempt, Event, Grade, IdempotencyRecord, Invitation, Membership, Program, RequestLog, Shear, Shop, User, WebhookEndpoint };
+export { ApiKey, Delivery, DeliveryAttempt, Event, Grade, IdempotencyRecord, Invitation, Membership, Plan, Program, RequestLog, Shear, Shop, User, WebhookEndpoint };
 
 export type ApiKeyEntity = InferEntity<typeof ApiKey>;
 export type DeliveryEntity = InferEntity<typeof Delivery>;
 export type WebhookEndpointEntity = InferEntity<typeof WebhookEndpoint>;
 export type EventEntity = InferEntity<typeof Event>;
 export type ProgramEntity = InferEntity<typeof Program>;
+export type PlanEntity = InferEntity<typeof Plan>;
 export type GradeEntity = InferEntity<typeof Grade>;
 export type ShearEntity = InferEntity<typeof Shear>;
 export type ShopEntity = InferEntity<typeof Shop>;
 export type UserEntity = InferEntity<typeof User>;
 
 /** Every entity, for the ORM configuration. */
-export const entities = [Shop, User, Membership, Shear, Grade, ApiKey, RequestLog, IdempotencyRecord, Program, Event, WebhookEndpoint, Delivery, DeliveryAttempt, Invitation];
+export const entities = [Shop, User, Membership, Shear, Grade, ApiKey, RequestLog, IdempotencyRecord, Program, Event, WebhookEndpoint, Delivery, DeliveryAttempt, Invitation, Plan];

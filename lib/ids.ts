@@ -18,6 +18,7 @@ export const ID_PREFIXES = {
   delivery: "dlv",
   attempt: "att",
   invitation: "inv",
+  plan: "pln",
 } as const;
 
 export type IdKind = keyof typeof ID_PREFIXES;

@@ -132,6 +132,7 @@ export function buildOpenApi(operations: Operation[], extra?: (registry: OpenAPI
     servers: [{ url: "/", description: "This server" }],
     tags: [
       { name: "Programs", description: "Cut programs: create, check, release, cancel." },
+      { name: "Plans", description: "From order lines to cut programs: blanks planned onto the stock on hand in patterns the shear can cut, then written as draft programs." },
       { name: "Gateway", description: "For the gateway beside each shear: claim released programs under a lease, report the run." },
       { name: "Webhooks", description: "Endpoints that hear about every change, signed per Standard Webhooks; the events and each delivery attempt." },
       { name: "Catalog", description: "Shears, grades, gauges and setup recommendations." },

@@ -45,6 +45,8 @@ export interface PlanOptions {
   limits?: { bladeLength: number; backgaugeMin: number; backgaugeMax: number } | null;
   /** millimetres per grid unit, for the piece-flow check of each pattern (default 1) */
   mmPerUnit?: number;
+  /** how a grid length reads in the programs' notes (default: the number) */
+  show?: (v: number) => string;
 }
 
 /** "fewest_strokes" takes the patterns with fewest strokes and turns per blank among those within this much utilisation of the fullest. */
@@ -314,13 +316,13 @@ export function planBlanks(stock: Stock[], blanks: Blank[], options: PlanOptions
           let strips = buildStrips(p, cap, rule, exact, tol, tables);
           // A pattern must serve what is still wanted, not only the allowance.
           if (!strips.some((s) => s.pieces.some((pc) => need[pc.blank] > 0))) continue;
-          let written = writePattern({ length: p.length, width: p.width }, o.trim, strips, o.mmPerUnit, minGauge);
+          let written = writePattern({ length: p.length, width: p.width }, o.trim, strips, o.mmPerUnit, minGauge, o.show);
           // When no order of groups satisfies the remnant rule (two pieces that the shear cannot tell
           // apart, say), give up pieces from the end until the program makes exactly what it shows.
           while (!written && strips.length) {
             const last = strips[strips.length - 1];
             strips = last.pieces.length > 1 ? [...strips.slice(0, -1), { ...last, pieces: last.pieces.slice(0, -1) }] : strips.slice(0, -1);
-            if (strips.length) written = writePattern({ length: p.length, width: p.width }, o.trim, strips, o.mmPerUnit, minGauge);
+            if (strips.length) written = writePattern({ length: p.length, width: p.width }, o.trim, strips, o.mmPerUnit, minGauge, o.show);
           }
           if (!written || !strips.some((s) => s.pieces.some((pc) => need[pc.blank] > 0))) continue;
           const offcuts = written.leftovers.map((l) => ({ ...l, reusable: l.kind !== "trim" && isReusable(l, o.reusable) }));

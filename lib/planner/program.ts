@@ -131,13 +131,13 @@ interface Layout {
   kinds: (Kind & { lead: number })[];
 }
 
-function emit(sheet: { length: number; width: number }, trim: number, layout: Layout, tol: number): { cuts: PlanCut[]; strips: PlacedStrip[]; leftovers: Leftover[] } {
+function emit(sheet: { length: number; width: number }, trim: number, layout: Layout, tol: number, f: (v: number) => string): { cuts: PlanCut[]; strips: PlacedStrip[]; leftovers: Leftover[] } {
   const cuts: PlanCut[] = [];
   const strips: PlacedStrip[] = [];
   const leftovers: Leftover[] = [];
   const { lead, kinds } = layout;
   if (lead > 0) {
-    cuts.push({ backgauge: lead, count: 1, scrap: true, note: lead > trim && trim > 0 ? `trim the first edge (${trim}) and cut off ${lead - trim} of the sheet's spare width` : lead === trim ? "trim the first edge" : `cut off ${lead} of the sheet's spare width first` });
+    cuts.push({ backgauge: lead, count: 1, scrap: true, note: lead > trim && trim > 0 ? `trim the first edge (${f(trim)}) and cut off ${f(lead - trim)} of the sheet's spare width` : lead === trim ? "trim the first edge" : `cut off ${f(lead)} of the sheet's spare width first` });
     leftovers.push({ x: 0, y: 0, length: sheet.length, width: lead, kind: trim > 0 ? "trim" : "sheet-end" });
   }
   const usable = sheet.width - lead;
@@ -147,7 +147,7 @@ function emit(sheet: { length: number; width: number }, trim: number, layout: La
   kinds.forEach((k, i) => {
     ripAt.push(cuts.length);
     const last = i === kinds.length - 1;
-    cuts.push({ backgauge: k.height, count: last && exact ? k.count - 1 : k.count, note: `rip ${k.count} × ${k.height} strip${k.count > 1 ? "s" : ""}` });
+    cuts.push({ backgauge: k.height, count: last && exact ? k.count - 1 : k.count, note: `rip ${k.count} × ${f(k.height)} strip${k.count > 1 ? "s" : ""}` });
   });
   if (!exact) leftovers.push({ x: 0, y: lead + used, length: sheet.length, width: usable - used, kind: "sheet-end" });
   let y = lead;
@@ -161,22 +161,22 @@ function emit(sheet: { length: number; width: number }, trim: number, layout: La
       if (ripAt[i] !== cuts.length - 1) cut.from = ripAt[i];
     };
     if (k.lead > 0) {
-      const cut: PlanCut = { backgauge: k.lead, count: 1, scrap: true, note: `turn the ${k.height} strips; cut off ${k.lead} of their spare length first` };
+      const cut: PlanCut = { backgauge: k.lead, count: 1, scrap: true, note: `turn the ${f(k.height)} strips; cut off ${f(k.lead)} of their spare length first` };
       turnFrom(cut);
       cuts.push(cut);
     }
     k.segments.forEach((g, j) => {
       const last = j === k.segments.length - 1;
-      const cut: PlanCut = { backgauge: g.along, count: last && full ? g.count - 1 : g.count, note: `crosscut ${g.count} × ${g.along}` };
+      const cut: PlanCut = { backgauge: g.along, count: last && full ? g.count - 1 : g.count, note: `crosscut ${g.count} × ${f(g.along)}` };
       if (j === 0 && k.lead === 0) {
         turnFrom(cut);
-        cut.note = `turn the ${k.height} strips; ${cut.note}`;
+        cut.note = `turn the ${f(k.height)} strips; ${cut.note}`;
       }
       if (g.tall < k.height) trimSources.push(cuts.length);
       cuts.push(cut);
     });
     for (const g of k.segments) {
-      if (g.tall < k.height) trims.push({ backgauge: g.tall, count: 1, turn: true, note: `turn the ${g.along} × ${k.height} pieces; trim to ${g.tall}` });
+      if (g.tall < k.height) trims.push({ backgauge: g.tall, count: 1, turn: true, note: `turn the ${f(g.along)} × ${f(k.height)} pieces; trim to ${f(g.tall)}` });
     }
     for (let n = 0; n < k.count; n++) {
       let x = 0;
@@ -232,7 +232,7 @@ const sizeKey = (a: number, b: number) => (a <= b ? `${a}x${b}` : `${b}x${a}`);
  * `mmPerUnit` converts the grid to millimetres for that check; `minGauge` is the nearest
  * backgauge setting (a lead-off cut is never shorter).
  */
-export function writePattern(sheet: { length: number; width: number }, trim: number, strips: StripIn[], mmPerUnit: number, minGauge = 0): WrittenPattern | null {
+export function writePattern(sheet: { length: number; width: number }, trim: number, strips: StripIn[], mmPerUnit: number, minGauge = 0, show: (v: number) => string = String): WrittenPattern | null {
   if (!strips.length) return null;
   const tol = REMNANT_TOLERANCE_MM / mmPerUnit;
   const want = new Map<string, number>();
@@ -251,7 +251,7 @@ export function writePattern(sheet: { length: number; width: number }, trim: num
     if (kinds.length === rip.order.length) layouts.push({ lead: rip.lead, kinds });
   }
   for (const layout of layouts) {
-    const written = emit(sheet, trim, layout, tol);
+    const written = emit(sheet, trim, layout, tol, show);
     const mm = (v: number) => v * mmPerUnit;
     const flowCuts: FlowCut[] = written.cuts.map((c) => ({ backgaugeMm: mm(c.backgauge), count: c.count, lengthMm: null, turn: c.turn === true, from: c.from ?? null, scrap: c.scrap === true }));
     const flow = simulateFlow({ lengthMm: mm(sheet.length), widthMm: mm(sheet.width) }, flowCuts);

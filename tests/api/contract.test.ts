@@ -9,10 +9,11 @@ import { operations } from "../../lib/api/operations";
 import * as metaOps from "../../lib/api/operations/meta";
 import * as gatewayOps from "../../lib/api/operations/gateway";
 import * as programOps from "../../lib/api/operations/programs";
+import * as planOps from "../../lib/api/operations/plans";
 import * as webhookOps from "../../lib/api/operations/webhooks";
 import { startReceiver, type Receiver } from "../support/receiver";
 import { BASE_URL } from "../support/env";
-import { closeTestOrm, createTestShop, exampleProgram, TEST_SHEAR, type TestShop } from "../support/fixtures";
+import { closeTestOrm, createTestShop, examplePlan, exampleProgram, TEST_SHEAR, type TestShop } from "../support/fixtures";
 import { doc, exercised, expectDocumented } from "../support/openapi";
 
 let shop: TestShop;
@@ -171,6 +172,35 @@ describe("programs", () => {
     const cancelled = await api().post(`/api/v1/programs/${id}/cancel`).set(auth()).send({ reason: "order withdrawn" });
     expectDocumented(programOps.cancelProgram, cancelled);
     expect(cancelled.body.status).toBe("cancelled");
+  });
+});
+
+describe("plans", () => {
+  let planId: string;
+
+  it("plans, lists, reads and writes the programs", async () => {
+    const created = await api().post("/api/v1/plans").set(auth()).send(examplePlan(shop.shearId));
+    expectDocumented(planOps.createPlan, created);
+    expect(created.status).toBe(201);
+    planId = created.body.id;
+    expect(created.headers.location).toBe(`/api/v1/plans/${planId}`);
+
+    const list = await api().get("/api/v1/plans?limit=5").set(auth());
+    expectDocumented(planOps.listPlans, list);
+    expect(list.body.data[0].id).toBe(planId);
+
+    const read = await api().get(`/api/v1/plans/${planId}`).set(auth());
+    expectDocumented(planOps.getPlan, read);
+    expect(read.body).toEqual(created.body);
+
+    const written = await api().post(`/api/v1/plans/${planId}/programs`).set(auth()).send({ priority: 7 });
+    expectDocumented(planOps.writePlanPrograms, written);
+    expect(written.status).toBe(201);
+    expect(written.body.data).toHaveLength(created.body.patterns.length);
+
+    const again = await api().post(`/api/v1/plans/${planId}/programs`).set(auth()).send({});
+    expectDocumented(planOps.writePlanPrograms, again);
+    expect(again.status).toBe(409);
   });
 });
 

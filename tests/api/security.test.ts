@@ -10,7 +10,7 @@ import type { Operation } from "../../lib/api/operation";
 import { operations } from "../../lib/api/operations";
 import { revokeKey } from "../../lib/services/keys";
 import { BASE_URL } from "../support/env";
-import { closeTestOrm, createTestShop, exampleProgram, keyFor, TEST_SHEAR, testOrm, type TestShop } from "../support/fixtures";
+import { closeTestOrm, createTestShop, examplePlan, exampleProgram, keyFor, TEST_SHEAR, testOrm, type TestShop } from "../support/fixtures";
 import { expectDocumented } from "../support/openapi";
 
 let mine: TestShop;
@@ -27,6 +27,10 @@ function bodyFor(op: Operation): object | undefined {
     case "createProgram":
     case "validateProgram":
       return exampleProgram(mine.shearId);
+    case "createPlan":
+      return examplePlan(mine.shearId);
+    case "writePlanPrograms":
+      return {};
     case "updateProgram":
       return { title: "changed" };
     case "releaseProgram":
@@ -84,6 +88,7 @@ beforeAll(async () => {
     request(BASE_URL).post(path).set("Authorization", `Bearer ${theirs.key}`).send(body).expect(201);
   foreign.prg = (await post("/api/v1/programs", exampleProgram(theirs.shearId))).body.id;
   foreign.shr = theirs.shearId;
+  foreign.pln = (await post("/api/v1/plans", examplePlan(theirs.shearId))).body.id;
   const grades = await request(BASE_URL).get("/api/v1/grades?limit=1").set("Authorization", `Bearer ${theirs.key}`).expect(200);
   foreign.grd = grades.body.data[0].id;
   foreign.whe = (await post("/api/v1/webhook-endpoints", { url: "http://127.0.0.1:9/theirs" })).body.endpoint.id;
@@ -111,7 +116,7 @@ describe.each(secured.map((op) => [op.operationId, op] as const))("%s", (_name, 
 
   if (op.path.includes("{id}")) {
     it("answers 404 for another shop's object, saying nothing about it", async () => {
-      const prefixes: [string, string][] = [["/programs", "prg"], ["/shears", "shr"], ["/grades", "grd"], ["/webhook-endpoints", "whe"], ["/events", "evt"]];
+      const prefixes: [string, string][] = [["/programs", "prg"], ["/plans", "pln"], ["/shears", "shr"], ["/grades", "grd"], ["/webhook-endpoints", "whe"], ["/events", "evt"]];
       const prefix = prefixes.find(([p]) => op.path.startsWith(p))![1];
       const res = await call(op, pathFor(op, foreign[prefix]), mine.key);
       expectDocumented(op, res);

@@ -7,6 +7,7 @@ import { ormConfig } from "../../lib/db/config";
 import { createKey } from "../../lib/services/keys";
 import { addGradeLibrary } from "../../scripts/lib/seed";
 import { EXAMPLE_PROGRAM } from "../../lib/schemas/program";
+import { EXAMPLE_PLAN } from "../../lib/schemas/plan";
 import { DATABASE_URL } from "./env";
 
 let orm: MikroORM | undefined;
@@ -71,4 +72,9 @@ export async function keyFor(shopId: string, scopes: Scope[], extra: { expiresAt
 /** The cut-program worked example of our API docs, on a given shear. */
 export function exampleProgram(shearId: string, reference = `SO-${Date.now()}-${counter++}`) {
   return { ...structuredClone(EXAMPLE_PROGRAM), shear: shearId, reference };
+}
+
+/** The plan example of our API docs (an invented order), on a given shear. */
+export function examplePlan(shearId: string, reference = `PL-${Date.now()}-${counter++}`) {
+  return { ...structuredClone(EXAMPLE_PLAN), shear: shearId, reference };
 }

@@ -3,7 +3,8 @@ import type { Operation } from "../operation";
 import { catalogOperations } from "./catalog";
 import { gatewayOperations } from "./gateway";
 import { metaOperations } from "./meta";
+import { planOperations } from "./plans";
 import { programOperations } from "./programs";
 import { webhookOperations } from "./webhooks";
 
-export const operations: Operation[] = [...programOperations, ...gatewayOperations, ...webhookOperations, ...catalogOperations, ...metaOperations] as Operation[];
+export const operations: Operation[] = [...programOperations, ...planOperations, ...gatewayOperations, ...webhookOperations, ...catalogOperations, ...metaOperations] as Operation[];

@@ -1,0 +1,180 @@
+/**
+ * Plans: order lines (blanks) and the stock on hand in; sheet patterns a shear can cut, the
+ * demand they meet, and the cut programs they become, out. One schema validates requests,
+ * types the service and documents the API.
+ */
+import { Check, CutGroupInput, Finding, Program, Thickness } from "./program";
+import { z } from "./zod";
+
+const length = (d: string) => z.number().positive().max(100_000).openapi({ description: `${d}, in the plan's units` });
+
+export const PLAN_OBJECTIVES = ["fewest_sheets", "least_waste", "fewest_strokes"] as const;
+
+export const StockInput = z
+  .object({
+    length: length("The sheet's length (its rolling direction; presented to the blade unless it is longer than the blade)"),
+    width: length("The sheet's width"),
+    count: z.number().int().min(0).max(100_000).nullable().optional().openapi({ description: "Sheets on hand; omit or null for as many as needed" }),
+    label: z.string().max(100).optional(),
+  })
+  .strict()
+  .openapi("PlanStock");
+
+export const BlankInput = z
+  .object({
+    label: z.string().trim().min(1).max(100).openapi({ description: "Your name for the blank: an order line, a part number", example: "SO-2291/4 side panel" }),
+    length: length("The blank's length (along the sheet's length unless turned)"),
+    width: length("The blank's width"),
+    quantity: z.number().int().min(1).max(100_000),
+    canTurn: z.boolean().optional().openapi({ description: "May the blank lie turned 90° on the sheet? Default true; send false when grain or finish direction must follow the sheet's length." }),
+  })
+  .strict()
+  .openapi("PlanBlank");
+
+export const PlanOptionsInput = z
+  .object({
+    objective: z.enum(PLAN_OBJECTIVES).optional().openapi({ description: "`fewest_sheets` (default): the most blank area per sheet; `least_waste`: the highest share of each sheet used (reusable offcuts count as used when `offcutsAsStock`); `fewest_strokes`: the fewest strokes and turns per blank among patterns within 5 points of the fullest." }),
+    trim: z.number().min(0).max(1000).optional().openapi({ description: "Trim cut off the sheet's first edge before ripping, in the plan's units (0 or omitted: none)" }),
+    overProductionPct: z.number().min(0).max(100).optional().openapi({ description: "Extra pieces allowed per blank, as a percentage of its quantity (rounded down). 0 (default): never more than asked." }),
+    reusableOffcut: z
+      .object({ length: length("Shortest long edge of a reusable offcut"), width: length("Shortest short edge of a reusable offcut") })
+      .strict()
+      .optional()
+      .openapi({ description: "Leftovers at least this size (either way round) are listed as reusable offcuts." }),
+    offcutsAsStock: z.boolean().optional().openapi({ description: "Count reusable offcuts as stock returned: not waste in the objective or the net utilisation." }),
+  })
+  .strict()
+  .openapi("PlanOptions");
+
+const PlanShape = z
+  .object({
+    reference: z.string().trim().min(1).max(80).optional().openapi({ description: "Your reference; the programs written from the plan are named `<reference>/A`, `/B`, …", example: "WK49-A36-10GA" }),
+    title: z.string().max(200).optional(),
+    shear: z.string().min(1).max(64).openapi({ description: "The shear's id", example: "shr_01JEXAMPLE0000000000000000" }),
+    grade: z.string().trim().min(1).max(50).openapi({ example: "A36" }),
+    thickness: Thickness,
+    units: z.enum(["in", "mm"]),
+    stock: z.array(StockInput).min(1).max(20),
+    blanks: z.array(BlankInput).min(1).max(200),
+    options: PlanOptionsInput.optional(),
+  })
+  .strict();
+
+/** An example order (invented): this week's 10 ga A36 side panels and gussets on 120 × 48 in and 96 × 48 in sheets. */
+export const EXAMPLE_PLAN: z.infer<typeof PlanShape> = {
+  reference: "WK49-A36-10GA",
+  title: "Week 49, 10 ga A36",
+  shear: "shr_01JEXAMPLE0000000000000000",
+  grade: "A36",
+  thickness: { gauge: 10 },
+  units: "in",
+  stock: [{ length: 120, width: 48, count: 10 }, { length: 96, width: 48 }],
+  blanks: [
+    { label: "side panel", length: 16, width: 12, quantity: 56 },
+    { label: "gusset", length: 10, width: 8, quantity: 40, canTurn: false },
+  ],
+  options: { objective: "fewest_sheets", trim: 0.25, reusableOffcut: { length: 24, width: 12 } },
+};
+
+export const PlanInput = PlanShape.openapi("PlanInput", { example: EXAMPLE_PLAN });
+
+const Piece = z.object({
+  blank: z.number().int().openapi({ description: "Index into `blanks`" }),
+  label: z.string(),
+  x: z.number().openapi({ description: "Distance along the blade from the sheet's corner" }),
+  y: z.number().openapi({ description: "Distance from the first edge (toward the backgauge)" }),
+  length: z.number().openapi({ description: "Along the blade" }),
+  width: z.number().openapi({ description: "Toward the backgauge" }),
+  turned: z.boolean().openapi({ description: "Lies turned 90° to the stock sheet's length" }),
+});
+
+export const PlanPattern = z
+  .object({
+    key: z.string().openapi({ description: "A, B, C …; the program written for it ends in this", example: "A" }),
+    stock: z.number().int().openapi({ description: "Index into `stock`" }),
+    sheet: z.object({ length: z.number(), width: z.number() }).openapi({ description: "The sheet as presented: length along the blade" }),
+    rotated: z.boolean().openapi({ description: "The stock sheet's width is presented to the blade" }),
+    repeats: z.number().int().openapi({ description: "Sheets cut to this pattern (the program's `sheet.count`)" }),
+    utilisationPct: z.number(),
+    strips: z.array(z.object({ y: z.number(), height: z.number(), pieces: z.array(Piece) })),
+    offcuts: z.array(
+      z.object({
+        x: z.number(), y: z.number(), length: z.number(), width: z.number(),
+        kind: z.enum(["trim", "sheet-end", "strip-end", "piece-trim"]),
+        reusable: z.boolean(),
+      }),
+    ),
+    strokes: z.number().int().openapi({ description: "Per sheet" }),
+    turns: z.number().int().openapi({ description: "Pieces turned, per sheet" }),
+    cuts: z.array(CutGroupInput).openapi({ description: "The cut groups of the program this pattern becomes" }),
+    check: z
+      .object({ validation: Check.shape.validation, findings: z.array(Finding), estimate: Check.shape.estimate })
+      .openapi({ description: "The shear core's check of that program: findings and the cycle estimate for all its sheets" }),
+  })
+  .openapi("PlanPattern");
+
+export const PlanFinding = z
+  .object({
+    code: z.enum(["blank_unplaceable", "stock_short", "over_production", "stock_unusable", "pattern_not_releasable"]),
+    severity: z.enum(["error", "warning"]),
+    message: z.string(),
+    pointer: z.string().openapi({ description: "JSON pointer into the plan request", example: "/blanks/2" }),
+    actual: z.number().nullable(),
+  })
+  .openapi("PlanFinding");
+
+export const Plan = z
+  .object({
+    id: z.string().openapi({ example: "pln_01JEXAMPLE0000000000000000" }),
+    status: z.enum(["complete", "partial"]).openapi({ description: "`partial`: some blanks could not be placed; see `findings`" }),
+    reference: z.string().nullable(),
+    title: z.string().nullable(),
+    shear: z.string(),
+    grade: z.string(),
+    thickness: Thickness,
+    units: z.enum(["in", "mm"]),
+    stock: z.array(StockInput.extend({ count: z.number().int().nullable(), used: z.number().int() })),
+    blanks: z.array(BlankInput.extend({ canTurn: z.boolean(), planned: z.number().int(), extra: z.number().int(), short: z.number().int() })),
+    options: z.object({
+      objective: z.enum(PLAN_OBJECTIVES),
+      trim: z.number(),
+      overProductionPct: z.number(),
+      reusableOffcut: z.object({ length: z.number(), width: z.number() }).nullable(),
+      offcutsAsStock: z.boolean(),
+    }),
+    summary: z.object({
+      sheets: z.number().int(),
+      patterns: z.number().int(),
+      blanksAsked: z.number().int(),
+      blanksPlanned: z.number().int(),
+      extra: z.number().int(),
+      short: z.number().int(),
+      utilisationPct: z.number().openapi({ description: "Blank area over the area of the sheets used" }),
+      netUtilisationPct: z.number().openapi({ description: "Blank area over the sheets' area less the reusable offcuts" }),
+      strokes: z.number().int(),
+      turns: z.number().int(),
+      estimateSeconds: z.number().openapi({ description: "The shear core's cycle estimate for every sheet of the plan" }),
+    }),
+    patterns: z.array(PlanPattern),
+    reusableOffcuts: z.array(z.object({ length: z.number(), width: z.number(), count: z.number().int() })),
+    findings: z.array(PlanFinding),
+    programs: z.array(z.object({ pattern: z.string(), id: z.string() })).openapi({ description: "The programs written from this plan; empty until `POST /plans/{id}/programs`" }),
+    createdAt: z.string(),
+  })
+  .openapi("Plan");
+
+export const WriteProgramsInput = z
+  .object({
+    referencePrefix: z.string().trim().min(1).max(90).optional().openapi({ description: "Programs are named `<prefix>/A`, `/B`, …; default the plan's reference, or its id" }),
+    priority: z.number().int().min(0).max(9).optional(),
+    dueAt: z.iso.datetime({ offset: true }).optional(),
+    metadata: z.record(z.string().min(1).max(64), z.string().max(500)).refine((m) => Object.keys(m).length <= 40, { message: "at most 40 metadata keys" }).optional(),
+  })
+  .strict()
+  .openapi("WriteProgramsInput");
+
+export const WrittenPrograms = z.object({ plan: z.string(), data: z.array(Program) }).openapi("WrittenPrograms");
+
+export type PlanInputT = z.infer<typeof PlanInput>;
+export type PlanT = z.infer<typeof Plan>;
+export type WriteProgramsInputT = z.infer<typeof WriteProgramsInput>;

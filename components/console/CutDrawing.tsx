@@ -59,8 +59,12 @@ export function layoutSheet(sheet: { length: number; width: number }, cuts: Cut[
   return { pieces: made.flatMap((m) => m.pieces), finalPieces, lines, offcut };
 }
 
-export function CutDrawing({ sheet, cuts, units, faultyGroups = [] }: {
+export function CutDrawing({ sheet, cuts, units, faultyGroups = [], marks = [], reusable = [] }: {
   sheet: { length: number; width: number }; cuts: Cut[]; units: string; faultyGroups?: number[];
+  /** labels written on the sheet (a plan's blanks), in the drawing's coordinates */
+  marks?: { x: number; y: number; w: number; h: number; text: string }[];
+  /** leftovers worth keeping, outlined */
+  reusable?: { x: number; y: number; w: number; h: number }[];
 }) {
   const { finalPieces, lines } = layoutSheet(sheet, cuts);
   const pad = Math.max(sheet.length, sheet.width) * 0.04;
@@ -82,12 +86,22 @@ export function CutDrawing({ sheet, cuts, units, faultyGroups = [] }: {
         {lines.map((l, i) => (
           <line key={i} {...l} stroke={faultyGroups.includes(l.group) ? "#b42318" : "#0a6267"} strokeWidth={pad / (faultyGroups.includes(l.group) ? 6 : 12)} />
         ))}
+        {reusable.map((r, i) => (
+          <rect key={`r${i}`} x={r.x} y={r.y} width={r.w} height={r.h} fill="none" stroke="#7a5b00" strokeDasharray={`${pad / 4} ${pad / 6}`} strokeWidth={pad / 12} />
+        ))}
+        {marks.map((m, i) => {
+          const size = Math.min(m.h * 0.35, m.w / Math.max(4, m.text.length * 0.62), pad * 0.7);
+          return size >= pad * 0.22 ? (
+            <text key={`m${i}`} x={m.x + m.w / 2} y={m.y + m.h / 2} fontSize={size} textAnchor="middle" dominantBaseline="middle" fill="#0b3a3d">{m.text}</text>
+          ) : null;
+        })}
         <text x={0} y={-pad / 3} fontSize={pad * 0.8} fill="#5b6573">blade side · {sheet.length} {units}</text>
       </svg>
       <figcaption className="mt-2 flex flex-wrap gap-4 text-xs text-ink-muted">
         <span><i className="mr-1 inline-block h-2.5 w-2.5 bg-edge-light align-middle" />blanks</span>
         <span><i className="mr-1 inline-block h-2.5 w-2.5 bg-caution-light align-middle" />trim (scrap)</span>
         <span><i className="mr-1 inline-block h-2.5 w-2.5 bg-scale-300 align-middle" />offcut</span>
+        {reusable.length > 0 && <span><i className="mr-1 inline-block h-2.5 w-2.5 border border-dashed border-caution align-middle" />reusable offcut</span>}
         <span><i className="mr-1 inline-block h-0.5 w-4 bg-fault align-middle" />cuts with a finding</span>
       </figcaption>
     </figure>

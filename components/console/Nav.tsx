@@ -6,6 +6,7 @@ import { usePathname } from "next/navigation";
 const ITEMS = [
   { href: "/console", label: "Overview" },
   { href: "/console/programs", label: "Programs" },
+  { href: "/console/plans", label: "Plans" },
   { href: "/console/upload", label: "Upload" },
   { href: "/console/keys", label: "API keys" },
   { href: "/console/webhooks", label: "Webhooks" },

@@ -4,11 +4,12 @@
  * types the service and documents the API.
  */
 import { Check, CutGroupInput, Finding, Program, Thickness } from "./program";
+import { PLAN_OBJECTIVES } from "./enums";
 import { z } from "./zod";
 
 const length = (d: string) => z.number().positive().max(100_000).openapi({ description: `${d}, in the plan's units` });
 
-export const PLAN_OBJECTIVES = ["fewest_sheets", "least_waste", "fewest_strokes"] as const;
+export { PLAN_OBJECTIVES };
 
 export const StockInput = z
   .object({
@@ -133,8 +134,19 @@ export const Plan = z
     grade: z.string(),
     thickness: Thickness,
     units: z.enum(["in", "mm"]),
-    stock: z.array(StockInput.extend({ count: z.number().int().nullable(), used: z.number().int() })),
-    blanks: z.array(BlankInput.extend({ canTurn: z.boolean(), planned: z.number().int(), extra: z.number().int(), short: z.number().int() })),
+    stock: z.array(
+      z.object({ length: z.number(), width: z.number(), count: z.number().int().nullable(), label: z.string().optional(), used: z.number().int().openapi({ description: "Sheets of this size the plan uses" }) }).openapi("PlanStockUse"),
+    ),
+    blanks: z.array(
+      z
+        .object({
+          label: z.string(), length: z.number(), width: z.number(), quantity: z.number().int(), canTurn: z.boolean(),
+          planned: z.number().int().openapi({ description: "Pieces the patterns make" }),
+          extra: z.number().int().openapi({ description: "Pieces beyond the quantity (within the allowance)" }),
+          short: z.number().int().openapi({ description: "Pieces not planned; see `findings`" }),
+        })
+        .openapi("PlanDemand"),
+    ),
     options: z.object({
       objective: z.enum(PLAN_OBJECTIVES),
       trim: z.number(),

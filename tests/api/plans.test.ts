@@ -62,7 +62,7 @@ describe("mixed demand in millimetres", () => {
       { label: "base", length: 600, width: 400, quantity: 10 },
       { label: "side", length: 450, width: 300, quantity: 12 },
       { label: "tab", length: 250, width: 150, quantity: 30 },
-      { label: "lid", length: 1200, width: 500, quantity: 4, canTurn: false },
+      { label: "lid", length: 950, width: 500, quantity: 4, canTurn: false },
       { label: "strap", length: 980, width: 62.5, quantity: 9 },
     ],
     options: { trim: 5, reusableOffcut: { length: 300, width: 200 } },

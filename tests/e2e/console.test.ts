@@ -217,6 +217,44 @@ describe("the console", () => {
     await page.close();
   });
 
+  it("plans a cut list: a bad row is named and nothing is stored; fixed, each sheet pattern is drawn and its programs are written", async () => {
+    const page = await browser.newPage({ viewport: { width: 1400, height: 1000 } });
+    await signIn(page, shop.admins[0]);
+    const { Plan, Program } = await import("../../entities");
+    const plans = () => testOrm().then((o) => o.em.fork().count(Plan, { shop: shop.shopId }));
+    const before = await plans();
+    await page.goto(`${BASE_URL}/console/plans/new`);
+    await page.getByLabel("Reference").fill("E2E-PLAN");
+    await page.getByLabel("Thickness", { exact: true }).fill("3");
+    await page.getByLabel(/Stock on hand/).fill("2500, 1250, 4\n3000, 1500");
+    const bad = "label,length,width,quantity,can_turn\nbase,600,400,10,yes\nside,450,three hundred,12,yes\n";
+    await page.setInputFiles("input[type=file]", { name: "blanks.csv", mimeType: "text/csv", buffer: Buffer.from(bad) });
+    await page.getByRole("button", { name: "Plan" }).click();
+    const errors = page.getByTestId("plan-errors");
+    await errors.waitFor();
+    expect(await errors.textContent()).toMatch(/row 3 · width: "three hundred" is not a number/);
+    expect(await plans()).toBe(before);
+
+    const good = "label,length,width,quantity,can_turn\nbase,600,400,10,yes\nside,450,300,12,yes\ntab,250,150,30,no\n";
+    await page.setInputFiles("input[type=file]", { name: "blanks.csv", mimeType: "text/csv", buffer: Buffer.from(good) });
+    await page.getByLabel("Trim first edge by").fill("5");
+    await page.getByRole("button", { name: "Plan" }).click();
+    await page.waitForURL(/\/console\/plans\/pln_/);
+    await page.getByTestId("pattern-A").waitFor();
+    expect(await page.getByTestId("pattern-A").locator("svg rect").count()).toBeGreaterThan(3);
+    expect(await page.getByRole("note", { name: "Safety" }).count()).toBe(1); // the safety caution
+    await shot(page, "plan");
+    await page.getByRole("button", { name: /Write \d+ draft program/ }).click();
+    await page.getByTestId("plan-programs").waitFor();
+    const planId = page.url().split("/").pop()!;
+    const written = await testOrm().then((o) => o.em.fork().find(Program, { shop: shop.shopId, metadata: { plan: planId } }));
+    expect(written.length).toBeGreaterThan(0);
+    expect(written.every((p) => p.reference.startsWith("E2E-PLAN/") && p.status === "draft")).toBe(true);
+    await page.goto(`${BASE_URL}/console/plans`);
+    await shot(page, "plans");
+    await page.close();
+  });
+
   it("invites someone by e-mail; the link in the mail sets the password and they sign in", async () => {
     const page = await browser.newPage({ viewport: { width: 1400, height: 900 } });
     await signIn(page, shop.admins[0]);

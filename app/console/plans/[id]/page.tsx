@@ -1,0 +1,132 @@
+import Link from "next/link";
+import { notFound } from "next/navigation";
+import { CutDrawing } from "@/components/console/CutDrawing";
+import { WritePrograms } from "@/components/console/PlanActions";
+import { SafetyNote } from "@/components/SafetyNote";
+import { Badge, PageHeader, Stat, Table, Td } from "@/components/ui";
+import { ApiError } from "@/lib/api/errors";
+import { can } from "@/lib/auth/roles";
+import { currentMember } from "@/lib/auth/session";
+import { requestEm } from "@/lib/db/orm";
+import { PLAN_OBJECTIVE_LABELS } from "@/lib/schemas/enums";
+import { getPlan, viewPlan } from "@/lib/services/plans";
+
+export const metadata = { title: "Plan" };
+
+const fmtTime = (s: number) => (s >= 3600 ? `${Math.floor(s / 3600)} h ${Math.round((s % 3600) / 60)} min` : `${Math.round(s / 60)} min`);
+
+export default async function PlanPage({ params }: { params: Promise<{ id: string }> }) {
+  const { id } = await params;
+  const member = await currentMember();
+  const entity = await getPlan(await requestEm(), member.shopId, id).catch((err) => {
+    if (err instanceof ApiError && err.status === 404) notFound();
+    throw err;
+  });
+  const plan = viewPlan(entity);
+  const u = plan.units;
+  const s = plan.summary;
+  const written = new Map(plan.programs.map((p) => [p.pattern, p.id]));
+
+  return (
+    <>
+      <p className="mb-1 text-xs"><Link href="/console/plans" className="text-edge hover:underline">← Plans</Link></p>
+      <PageHeader title={`${plan.reference ?? plan.id}${plan.title ? ` · ${plan.title}` : ""}`}
+        lead={<span className="font-mono text-xs">{plan.id} · {plan.grade} · {"gauge" in plan.thickness ? `${plan.thickness.gauge} ga` : `${plan.thickness.value} ${u}`} · {PLAN_OBJECTIVE_LABELS[plan.options.objective]}{plan.options.trim ? ` · trim ${plan.options.trim} ${u}` : ""}</span>}>
+        <Badge value={plan.status === "complete" ? "pass" : "warn"} label={plan.status} />
+      </PageHeader>
+
+      <div className="mb-6 grid gap-3 sm:grid-cols-3 lg:grid-cols-6">
+        <Stat label="Sheets" value={s.sheets} hint={`${s.patterns} pattern${s.patterns === 1 ? "" : "s"}`} />
+        <Stat label="Blanks" value={`${s.blanksPlanned} / ${s.blanksAsked}`} hint={s.short ? `${s.short} not planned` : s.extra ? `${s.extra} extra` : "as asked"} />
+        <Stat label="Stock used" value={`${s.utilisationPct} %`} hint={plan.options.reusableOffcut ? `${s.netUtilisationPct} % less kept offcuts` : "blank area ÷ sheet area"} />
+        <Stat label="Strokes" value={s.strokes} />
+        <Stat label="Turns" value={s.turns} />
+        <Stat label="Estimate" value={fmtTime(s.estimateSeconds)} hint="at the shear, all sheets" />
+      </div>
+
+      <div className="grid gap-6 xl:grid-cols-[1fr_22rem]">
+        <div className="space-y-6">
+          {plan.findings.length > 0 && (
+            <section>
+              <h2 className="mb-2 text-sm font-semibold">Findings</h2>
+              <Table head={["Severity", "Code", "Where", "Message"]}>
+                {plan.findings.map((f, i) => (
+                  <tr key={i}><Td><Badge value={f.severity} /></Td><Td mono>{f.code}</Td><Td mono>{f.pointer}</Td><Td>{f.message}</Td></tr>
+                ))}
+              </Table>
+            </section>
+          )}
+
+          <SafetyNote />
+
+          {plan.patterns.map((p) => {
+            const faulty = [...new Set(p.check.findings.map((f) => /^\/cuts\/(\d+)/.exec(f.pointer)?.[1]).filter(Boolean).map(Number))];
+            const marks = p.strips.flatMap((st) => st.pieces.map((pc) => ({ x: pc.x, y: pc.y, w: pc.length, h: pc.width, text: pc.label })));
+            const reusable = p.offcuts.filter((o) => o.reusable).map((o) => ({ x: o.x, y: o.y, w: o.length, h: o.width }));
+            const programId = written.get(p.key);
+            return (
+              <section key={p.key} data-testid={`pattern-${p.key}`}>
+                <h2 className="mb-2 flex flex-wrap items-baseline gap-2 text-sm font-semibold">
+                  Pattern {p.key} · {p.repeats} sheet{p.repeats === 1 ? "" : "s"} of {plan.stock[p.stock].length} × {plan.stock[p.stock].width} {u}
+                  <span className="font-normal text-ink-muted">{p.rotated ? "width to the blade · " : ""}{p.utilisationPct} % used · {p.strokes} strokes, {p.turns} turns per sheet</span>
+                  <Badge value={p.check.validation} label={`check: ${p.check.validation}`} />
+                  {programId && <Link href={`/console/programs/${programId}`} className="font-normal text-edge hover:underline">program →</Link>}
+                </h2>
+                <CutDrawing sheet={p.sheet} cuts={p.cuts} units={u} faultyGroups={faulty} marks={marks} reusable={reusable} />
+                <details className="mt-2 text-xs text-ink-muted">
+                  <summary className="cursor-pointer">The program: {p.cuts.length} groups{p.check.findings.length ? ` · ${p.check.findings.length} finding${p.check.findings.length === 1 ? "" : "s"}` : ""}</summary>
+                  <ol className="mt-1 space-y-0.5">
+                    {p.cuts.map((c, i) => (
+                      <li key={i} className={faulty.includes(i) ? "text-fault" : ""}>
+                        <span className="font-mono">/cuts/{i}</span>: {c.count} stroke{c.count === 1 ? "" : "s"} at {c.backgauge} {u}{c.note ? ` · ${c.note}` : ""}
+                      </li>
+                    ))}
+                  </ol>
+                  {p.check.findings.map((f, i) => <p key={i} className={f.severity === "error" ? "text-fault" : "text-caution-dark"}>{f.code}: {f.message}</p>)}
+                </details>
+              </section>
+            );
+          })}
+        </div>
+
+        <aside className="space-y-6">
+          {plan.programs.length ? (
+            <section className="rounded-md border border-scale-200 bg-white p-4 text-sm" data-testid="plan-programs">
+              <h2 className="mb-2 font-semibold">Programs written</h2>
+              <ul className="space-y-0.5">{plan.programs.map((p) => <li key={p.id}><Link href={`/console/programs/${p.id}`} className="text-edge hover:underline">Pattern {p.pattern}</Link> <span className="font-mono text-xs text-ink-muted">{p.id}</span></li>)}</ul>
+            </section>
+          ) : plan.patterns.length && can(member.role, "programs:write") ? (
+            <WritePrograms plan={plan.id} defaultPrefix={plan.reference ?? plan.id} patterns={plan.patterns.length} />
+          ) : null}
+
+          <section className="rounded-md border border-scale-200 bg-white p-4 text-sm">
+            <h2 className="mb-2 font-semibold">Demand</h2>
+            <Table head={["Blank", "Size", "Asked", "Planned"]}>
+              {plan.blanks.map((b, i) => (
+                <tr key={i}>
+                  <Td>{b.label}{b.canTurn ? "" : <span className="text-ink-muted" title="grain or finish follows the sheet"> ⟂</span>}</Td>
+                  <Td mono>{b.length} × {b.width}</Td>
+                  <Td mono>{b.quantity}</Td>
+                  <Td mono className={b.short ? "text-fault" : b.extra ? "text-caution-dark" : ""}>{b.planned}{b.short ? ` (−${b.short})` : b.extra ? ` (+${b.extra})` : ""}</Td>
+                </tr>
+              ))}
+            </Table>
+          </section>
+
+          <section className="rounded-md border border-scale-200 bg-white p-4 text-sm">
+            <h2 className="mb-2 font-semibold">Stock</h2>
+            <ul className="space-y-0.5 font-mono text-xs">
+              {plan.stock.map((st, i) => <li key={i}>{st.length} × {st.width} {u}: {st.used} used{st.count !== null ? ` of ${st.count}` : ""}</li>)}
+            </ul>
+            {plan.reusableOffcuts.length > 0 && (
+              <>
+                <h3 className="mb-1 mt-3 font-semibold">Offcuts to keep</h3>
+                <ul className="space-y-0.5 font-mono text-xs">{plan.reusableOffcuts.map((o, i) => <li key={i}>{o.count} × {o.length} × {o.width} {u}</li>)}</ul>
+              </>
+            )}
+          </section>
+        </aside>
+      </div>
+    </>
+  );
+}

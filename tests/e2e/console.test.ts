@@ -234,6 +234,8 @@ describe("the console", () => {
     await errors.waitFor();
     expect(await errors.textContent()).toMatch(/row 3 · width: "three hundred" is not a number/);
     expect(await plans()).toBe(before);
+    expect(await page.getByLabel("Thickness", { exact: true }).inputValue()).toBe("3"); // what was sent is shown again
+    expect(await page.getByLabel(/paste its rows/).inputValue()).toContain("three hundred"); // the file's rows, to fix in place
 
     const good = "label,length,width,quantity,can_turn\nbase,600,400,10,yes\nside,450,300,12,yes\ntab,250,150,30,no\n";
     await page.setInputFiles("input[type=file]", { name: "blanks.csv", mimeType: "text/csv", buffer: Buffer.from(good) });

@@ -67,7 +67,7 @@ export default async function ProgramPage({ params }: { params: Promise<{ id: st
             <ol className="mt-2 space-y-0.5 text-xs text-ink-muted">
               {p.cuts.map((cut, i) => (
                 <li key={i} className={faultyGroups.includes(i) ? "text-fault" : ""}>
-                  <span className="font-mono">/cuts/{i}</span>: {cut.turn ? "turn each piece, then " : ""}{cut.count} stroke{cut.count === 1 ? "" : "s"} at {cut.backgauge} {p.units}
+                  <span className="font-mono">/cuts/{i}</span>: {cut.turn ? (cut.from !== undefined ? `turn each piece of /cuts/${cut.from}, then ` : "turn each piece, then ") : ""}{cut.count} stroke{cut.count === 1 ? "" : "s"} at {cut.backgauge} {p.units}
                   {cut.length ? `, ${cut.length} ${p.units} long` : ""}{cut.scrap ? " (trim)" : ""}{cut.note ? ` · ${cut.note}` : ""}
                 </li>
               ))}

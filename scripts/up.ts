@@ -62,6 +62,7 @@ Shearwire is running at ${base}
   Password       ${demo.owner.password}
   Demo API key   ${apiKey}   (every scope)
   Shears         ${demo.shears.map((s) => `${s.id} ${s.name}`).join("\n                 ")}
+  Demo plan      ${base}/console/plans/${demo.plan.id}   (${demo.plan.reference}: a week's order laid out on the sheets in stock)
 
   Try it:  curl -H "Authorization: Bearer ${apiKey}" ${base}/api/v1/shears
 

@@ -5,7 +5,8 @@
  */
 import type { EntityManager, InferEntity, RequiredEntityData } from "@mikro-orm/postgresql";
 import bcrypt from "bcryptjs";
-import { Grade, Membership, Shear, Shop, User, type ShopEntity } from "../../entities";
+import { Grade, Membership, Plan, Shear, Shop, User, type ShopEntity } from "../../entities";
+import { createPlan, viewPlan } from "../../lib/services/plans";
 import type { Role } from "../../entities/Membership";
 import { GRADE_LIBRARY } from "../../lib/shear/grades";
 
@@ -58,10 +59,30 @@ export interface DemoSummary {
   owner: { email: string; password: string };
   shears: { id: string; name: string }[];
   grades: number;
+  plan: { id: string; reference: string | null };
 }
 
+/** A week's order of our own invention for the demo shop: 3 mm A36 cabinet parts, planned on Bay 1. */
+const DEMO_PLAN = {
+  reference: "RB-W49-A36-3",
+  title: "Week 49 cabinet parts, 3 mm A36 (demo order)",
+  grade: "A36",
+  thickness: { value: 3 },
+  units: "mm" as const,
+  stock: [{ length: 2500, width: 1250, count: 12, label: "rack A" }, { length: 3000, width: 1500, count: 4, label: "rack B" }],
+  blanks: [
+    { label: "cabinet side", length: 900, width: 450, quantity: 16, canTurn: false },
+    { label: "shelf", length: 860, width: 380, quantity: 24 },
+    { label: "back panel", length: 860, width: 600, quantity: 8 },
+    { label: "door skin", length: 700, width: 420, quantity: 16, canTurn: false },
+    { label: "gusset", length: 150, width: 150, quantity: 64 },
+    { label: "kick plate", length: 860, width: 100, quantity: 8 },
+  ],
+  options: { objective: "fewest_sheets" as const, trim: 5, reusableOffcut: { length: 500, width: 300 } },
+};
+
 export async function seedDemo(em: EntityManager): Promise<DemoSummary> {
-  return em.transactional(async (tx) => {
+  const summary = await em.transactional(async (tx) => {
     let shop = await tx.findOne(Shop, { slug: DEMO_SHOP.slug });
     if (!shop) {
       shop = tx.create(Shop, DEMO_SHOP);
@@ -83,4 +104,7 @@ export async function seedDemo(em: EntityManager): Promise<DemoSummary> {
       grades: await tx.count(Grade, { shop }),
     };
   });
+  const existing = await em.findOne(Plan, { shop: summary.shop.id }, { orderBy: { id: "asc" } });
+  const plan = existing ? viewPlan(existing) : await createPlan(em, summary.shop.id, { ...DEMO_PLAN, shear: summary.shears[0].id });
+  return { ...summary, plan: { id: plan.id, reference: plan.reference } };
 }

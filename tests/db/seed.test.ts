@@ -1,7 +1,7 @@
 import { MikroORM } from "@mikro-orm/postgresql";
 import bcrypt from "bcryptjs";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { Grade, Membership, Shear, User } from "../../entities";
+import { Grade, Membership, Plan, Shear, User } from "../../entities";
 import { ormConfig } from "../../lib/db/config";
 import { migrateUp } from "../../lib/db/migrate";
 import { isId } from "../../lib/ids";
@@ -35,10 +35,20 @@ describe("demo seed", () => {
     expect(membership.role).toBe("owner");
   });
 
+  it("plans the demo order on the first shear: everything placed, within the sheets on hand", async () => {
+    const demo = await seedDemo(orm.em.fork());
+    const plan = await orm.em.fork().findOneOrFail(Plan, { id: demo.plan.id });
+    const result = plan.result as { status: string; findings: unknown[]; stock: { count: number | null; used: number }[]; summary: { short: number } };
+    expect(result.status).toBe("complete");
+    expect(result.summary.short).toBe(0);
+    for (const s of result.stock) if (s.count !== null) expect(s.used).toBeLessThanOrEqual(s.count);
+  });
+
   it("is idempotent", async () => {
     const first = await seedDemo(orm.em.fork());
     const second = await seedDemo(orm.em.fork());
     expect(second).toEqual(first);
     expect(await orm.em.fork().count(Shear)).toBe(2);
+    expect(await orm.em.fork().count(Plan)).toBe(1);
   });
 });

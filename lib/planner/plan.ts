@@ -12,6 +12,7 @@
  * reported, not dropped. Pure: no I/O; integer dimensions (the caller's grid).
  */
 import { writePattern, type Leftover, type PlacedStrip, type PlanCut, type StripIn } from "./program";
+import { bestTwoStagePattern } from "./two-stage";
 
 export interface Blank {
   label: string;
@@ -251,7 +252,8 @@ function present(stock: Stock[], vs: Variant[], o: PlanOptions): { ways: Present
   const ways: Presented[] = [];
   const unusable: number[] = [];
   stock.forEach((s, i) => {
-    const turns = s.length === s.width ? [false] : [false, true];
+    // A square sheet turned is the same sheet, unless some blank must keep its grain: then strips across are another pattern.
+    const turns = s.length === s.width && vs.every((v) => v.turned || vs.some((w) => w.blank === v.blank && w.turned)) ? [false] : [false, true];
     let any = false;
     for (const rotated of turns) {
       const length = rotated ? s.width : s.length;
@@ -284,6 +286,25 @@ function whyUnplaceable(b: Blank, stock: Stock[], o: PlanOptions): string {
   return `${dims} fits on none of the stock sheets within the shear's blade and backgauge${turnNote}`;
 }
 
+/**
+ * The best two-stage pattern for one sheet by exact dynamic programming (`two-stage.ts`), when
+ * what may still be placed is too much for one sheet to run out of any blank: then the
+ * unbounded optimum is also the best capped one. Null when a blank could run out.
+ */
+function exactPattern(p: Presented, cap: number[]): StripIn[] | null {
+  const open = p.vs.filter((v) => cap[v.blank] > 0);
+  if (!open.length) return null;
+  const sheetArea = p.length * p.usable;
+  if (open.some((v) => cap[v.blank] < Math.floor(sheetArea / (v.along * v.tall)))) return null;
+  const best = bestTwoStagePattern({ length: p.length, width: p.usable }, open.map((v) => ({ length: v.along, width: v.tall })), "length");
+  const strips: StripIn[] = [];
+  for (const st of best.strips.filter((x) => x.height <= p.maxHeight).sort((a, b) => b.height - a.height)) {
+    const pieces = st.pieces.flatMap((x) => Array.from({ length: x.count }, () => ({ blank: open[x.index].blank, along: open[x.index].along, tall: open[x.index].tall, turned: open[x.index].turned })));
+    for (let i = 0; i < st.count; i++) strips.push({ height: st.height, pieces: pieces.map((pc) => ({ ...pc })) });
+  }
+  return strips.length ? strips : null;
+}
+
 export function planBlanks(stock: Stock[], blanks: Blank[], options: PlanOptions = {}): Plan {
   const o = { objective: "fewest_sheets" as Objective, trim: 0, overProductionPct: 0, mmPerUnit: 1, ...options };
   const tol = 0.1 / o.mmPerUnit; // the shear core's remnant tolerance, 0.1 mm, in grid units
@@ -309,35 +330,38 @@ export function planBlanks(stock: Stock[], blanks: Blank[], options: PlanOptions
     if (!need.some((n) => n > 0)) break;
     const cap = quantity.map((q, i) => (placeable[i] && (need[i] > 0 || allowance[i] > 0) ? Math.max(0, q + allowance[i] - produced[i]) : 0));
     const candidates: Candidate[] = [];
+    const consider = (p: Presented, first: StripIn[]) => {
+      let strips = first;
+      // A pattern must serve what is still wanted, not only the allowance.
+      if (!strips.some((s) => s.pieces.some((pc) => need[pc.blank] > 0))) return;
+      let written = writePattern({ length: p.length, width: p.width }, o.trim, strips, o.mmPerUnit, minGauge, o.show);
+      // When no order of groups satisfies the remnant rule (two pieces that the shear cannot tell
+      // apart, say), give up pieces from the end until the program makes exactly what it shows.
+      while (!written && strips.length) {
+        const last = strips[strips.length - 1];
+        strips = last.pieces.length > 1 ? [...strips.slice(0, -1), { ...last, pieces: last.pieces.slice(0, -1) }] : strips.slice(0, -1);
+        if (strips.length) written = writePattern({ length: p.length, width: p.width }, o.trim, strips, o.mmPerUnit, minGauge, o.show);
+      }
+      if (!written || !strips.some((s) => s.pieces.some((pc) => need[pc.blank] > 0))) return;
+      const offcuts = written.leftovers.map((l) => ({ ...l, reusable: l.kind !== "trim" && isReusable(l, o.reusable) }));
+      const uses = new Map<number, number>();
+      let blanksArea = 0;
+      let pieces = 0;
+      for (const st of written.strips) for (const pc of st.pieces) {
+        uses.set(pc.blank, (uses.get(pc.blank) ?? 0) + 1);
+        blanksArea += pc.along * pc.tall;
+        pieces += 1;
+      }
+      const reusableArea = offcuts.filter((x) => x.reusable).reduce((s, x) => s + x.length * x.width, 0);
+      candidates.push({ p, strips: written.strips, offcuts, cuts: written.cuts, strokes: written.strokes, turns: written.turns, blanksArea, reusableArea, pieces, uses });
+    };
     for (const p of ways) {
       if (onHand[p.stock] !== null && onHand[p.stock]! <= 0) continue;
       for (const exact of exacts) {
-        for (const rule of ["density", "area"] as const) {
-          let strips = buildStrips(p, cap, rule, exact, tol, tables);
-          // A pattern must serve what is still wanted, not only the allowance.
-          if (!strips.some((s) => s.pieces.some((pc) => need[pc.blank] > 0))) continue;
-          let written = writePattern({ length: p.length, width: p.width }, o.trim, strips, o.mmPerUnit, minGauge, o.show);
-          // When no order of groups satisfies the remnant rule (two pieces that the shear cannot tell
-          // apart, say), give up pieces from the end until the program makes exactly what it shows.
-          while (!written && strips.length) {
-            const last = strips[strips.length - 1];
-            strips = last.pieces.length > 1 ? [...strips.slice(0, -1), { ...last, pieces: last.pieces.slice(0, -1) }] : strips.slice(0, -1);
-            if (strips.length) written = writePattern({ length: p.length, width: p.width }, o.trim, strips, o.mmPerUnit, minGauge, o.show);
-          }
-          if (!written || !strips.some((s) => s.pieces.some((pc) => need[pc.blank] > 0))) continue;
-          const offcuts = written.leftovers.map((l) => ({ ...l, reusable: l.kind !== "trim" && isReusable(l, o.reusable) }));
-          const uses = new Map<number, number>();
-          let blanksArea = 0;
-          let pieces = 0;
-          for (const st of written.strips) for (const pc of st.pieces) {
-            uses.set(pc.blank, (uses.get(pc.blank) ?? 0) + 1);
-            blanksArea += pc.along * pc.tall;
-            pieces += 1;
-          }
-          const reusableArea = offcuts.filter((x) => x.reusable).reduce((s, x) => s + x.length * x.width, 0);
-          candidates.push({ p, strips: written.strips, offcuts, cuts: written.cuts, strokes: written.strokes, turns: written.turns, blanksArea, reusableArea, pieces, uses });
-        }
+        for (const rule of ["density", "area"] as const) consider(p, buildStrips(p, cap, rule, exact, tol, tables));
       }
+      const dp = exactPattern(p, cap);
+      if (dp) consider(p, dp);
     }
     if (!candidates.length) break;
     const best = choose(candidates, o);

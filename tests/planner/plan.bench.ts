@@ -21,4 +21,13 @@ describe("planner", () => {
       console.log(`plan: ${plan.sheetsUsed} sheets, ${(plan.utilisation * 100).toFixed(1)} % of their area is blanks (the area bound is 100 %); at least ${areaLowerBound(stock[0], blanks)} sheets even if all were the largest size (target time < 2 s)`);
     },
   });
+  bench("the same, objective fewest strokes and turns", () => {
+    planBlanks(stock, blanks, { objective: "fewest_strokes" });
+  }, {
+    iterations: 3,
+    teardown: () => {
+      const plan = planBlanks(stock, blanks, { objective: "fewest_strokes" });
+      console.log(`fewest strokes: ${plan.sheetsUsed} sheets, ${(plan.utilisation * 100).toFixed(1)} %, ${plan.strokes} strokes and ${plan.turns} turns (fewest sheets: ${planBlanks(stock, blanks).strokes} strokes and ${planBlanks(stock, blanks).turns} turns)`);
+    },
+  });
 });

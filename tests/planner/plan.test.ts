@@ -11,6 +11,7 @@ import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import { areaLowerBound, planBlanks, type Blank, type Plan, type PlanOptions, type Stock } from "../../lib/planner/plan";
 import { simulateFlow } from "../../lib/shear/flow";
+import { gcut, TABLE } from "./gcut";
 
 const sizeKey = (a: number, b: number) => (a <= b ? `${a}x${b}` : `${b}x${a}`);
 
@@ -245,5 +246,25 @@ describe("2D bin-packing classes (sheets against the area lower bound)", () => {
     console.log(`two-stage planner on the bin-packing classes:\n  ${rows.join("\n  ")}`);
     expect(byClass.size).toBe(10);
     for (const [cls, c] of byClass) expect(c.sheets / c.bound, cls).toBeLessThanOrEqual(LIMIT[cls] ?? 1.3);
+  });
+});
+
+describe("one sheet of each gcut instance through the whole planner (program written and checked)", () => {
+  // Demand larger than one sheet holds, sheets counted 1, no rotation (as in gcut). Target: the two-stage
+  // values listed beside the data (computed independently, not published); bound: the published optimum.
+  const rows: string[] = [];
+  it.each(TABLE)("gcut%d", (n, alongL, alongW, optimum) => {
+    const { sheet, pieces } = gcut(n);
+    const blanks: Blank[] = pieces.map((p, i) => ({ label: `p${i}`, length: p.length, width: p.width, quantity: Math.ceil((sheet.length * sheet.width) / (p.length * p.width)) + 1, canTurn: false }));
+    const stock: Stock[] = [{ ...sheet, count: 1 }];
+    const plan = planBlanks(stock, blanks);
+    checkPlan(plan, stock, blanks);
+    expect(plan.sheetsUsed).toBe(1);
+    const value = plan.patterns[0].strips.reduce((s, st) => s + st.pieces.reduce((t, pc) => t + (pieces[pc.blank].value ?? 0), 0), 0);
+    const target = Math.max(alongL, alongW);
+    rows.push(`gcut${n}: ${value} (two-stage target ${target}, ${(100 * value / target).toFixed(2)} %; optimum ${optimum})`);
+    expect(value).toBeLessThanOrEqual(optimum);
+    expect(value).toBe(target); // every listed two-stage value, with the program for it written and checked
+    if (n === 13) console.log(`planner, one sheet per gcut instance:\n  ${rows.join("\n  ")}`);
   });
 });

@@ -70,7 +70,7 @@ export function CutDrawing({ sheet, cuts, units, faultyGroups = [], marks = [], 
   const pad = Math.max(sheet.length, sheet.width) * 0.04;
   return (
     <figure className="rounded-md border border-scale-200 bg-white p-3">
-      <svg viewBox={`${-pad} ${-pad} ${sheet.length + 2 * pad} ${sheet.width + 2 * pad}`} className="h-auto w-full" role="img"
+      <svg viewBox={`${-pad} ${-pad} ${sheet.length + 2 * pad} ${sheet.width + 2 * pad}`} className="mx-auto block h-auto max-h-[32rem] w-full" role="img"
         aria-label={`One sheet, ${sheet.length} × ${sheet.width} ${units}, cut in ${cuts.length} groups`}>
         <defs>
           <pattern id="offcut" width={pad / 2} height={pad / 2} patternUnits="userSpaceOnUse" patternTransform="rotate(45)">

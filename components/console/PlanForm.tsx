@@ -15,16 +15,19 @@ export function PlanForm({ shears, grades }: { shears: { id: string; name: strin
       <div className="grid gap-3 sm:grid-cols-3">
         <label className="grid gap-1">Reference <input name="reference" defaultValue={v("reference")} maxLength={80} placeholder="WK49-A36-3MM" className={input} /></label>
         <label className="grid gap-1 sm:col-span-2">Title <input name="title" defaultValue={v("title")} maxLength={200} placeholder="Week 49, 3 mm A36" className={input} /></label>
-        <label className="grid gap-1">Shear
-          <select name="shear" defaultValue={v("shear")} required className={input}>{shears.map((s) => <option key={s.id} value={s.id}>{s.name}</option>)}</select>
+        <label className="grid min-w-0 gap-1">Shear
+          <select name="shear" defaultValue={v("shear")} required className={`${input} w-full min-w-0`}>{shears.map((s) => <option key={s.id} value={s.id}>{s.name}</option>)}</select>
         </label>
-        <label className="grid gap-1">Grade
-          <select name="grade" defaultValue={v("grade")} required className={input}>{grades.map((g) => <option key={g.code} value={g.code}>{g.code} · {g.name}</option>)}</select>
+        <label className="grid min-w-0 gap-1">Grade
+          <select name="grade" defaultValue={v("grade")} required className={`${input} w-full min-w-0`}>{grades.map((g) => <option key={g.code} value={g.code}>{g.code} · {g.name}</option>)}</select>
         </label>
-        <div className="grid grid-cols-[1fr_auto_auto] items-end gap-1">
-          <label className="grid gap-1">Thickness <input name="thickness" defaultValue={v("thickness")} required inputMode="decimal" placeholder="3" className={input} /></label>
-          <select name="thicknessKind" defaultValue={v("thicknessKind", "value")} aria-label="Thickness as" className={input}><option value="value">value</option><option value="gauge">gauge</option></select>
-          <select name="units" defaultValue={v("units", "mm")} aria-label="Units" className={input}><option value="mm">mm</option><option value="in">in</option></select>
+        <div className="grid min-w-0 gap-1">
+          <label htmlFor="plan-thickness">Thickness</label>
+          <div className="flex gap-1">
+            <input id="plan-thickness" name="thickness" defaultValue={v("thickness")} required inputMode="decimal" placeholder="3" className={`${input} min-w-0 flex-1`} />
+            <select name="thicknessKind" defaultValue={v("thicknessKind", "value")} aria-label="Thickness as" className={input}><option value="value">value</option><option value="gauge">gauge</option></select>
+            <select name="units" defaultValue={v("units", "mm")} aria-label="Units" className={input}><option value="mm">mm</option><option value="in">in</option></select>
+          </div>
         </div>
       </div>
       <div className="grid gap-3 sm:grid-cols-2">

@@ -147,7 +147,8 @@ function emit(sheet: { length: number; width: number }, trim: number, layout: La
   kinds.forEach((k, i) => {
     ripAt.push(cuts.length);
     const last = i === kinds.length - 1;
-    cuts.push({ backgauge: k.height, count: last && exact ? k.count - 1 : k.count, note: `rip ${k.count} × ${f(k.height)} strip${k.count > 1 ? "s" : ""}` });
+    const remnant = last && exact;
+    cuts.push({ backgauge: k.height, count: remnant ? k.count - 1 : k.count, note: `rip ${k.count} × ${f(k.height)} strip${k.count > 1 ? "s" : ""}${remnant ? " (the last is what is left)" : ""}` });
   });
   if (!exact) leftovers.push({ x: 0, y: lead + used, length: sheet.length, width: usable - used, kind: "sheet-end" });
   let y = lead;
@@ -167,7 +168,8 @@ function emit(sheet: { length: number; width: number }, trim: number, layout: La
     }
     k.segments.forEach((g, j) => {
       const last = j === k.segments.length - 1;
-      const cut: PlanCut = { backgauge: g.along, count: last && full ? g.count - 1 : g.count, note: `crosscut ${g.count} × ${f(g.along)}` };
+      const remnant = last && full;
+      const cut: PlanCut = { backgauge: g.along, count: remnant ? g.count - 1 : g.count, note: `crosscut ${g.count} × ${f(g.along)}${remnant ? " (the last is what is left)" : ""}` };
       if (j === 0 && k.lead === 0) {
         turnFrom(cut);
         cut.note = `turn the ${f(k.height)} strips; ${cut.note}`;

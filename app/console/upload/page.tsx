@@ -1,3 +1,4 @@
+import Link from "next/link";
 import { UploadForm } from "@/components/console/UploadForm";
 import { PageHeader } from "@/components/ui";
 import { can } from "@/lib/auth/roles";
@@ -11,6 +12,7 @@ export default async function Upload() {
   return (
     <>
       <PageHeader title="Upload a cut list" lead="Each program is checked like one sent to the API and stored as a draft. If any row has a problem, nothing is imported." />
+      <p className="mb-4 text-sm text-ink-muted">A list of blanks rather than cut groups? <Link href="/console/plans/new" className="text-edge hover:underline">Plan it onto your sheets</Link> and write the programs from the plan.</p>
       {can(member.role, "programs:write") ? <UploadForm /> : <p className="text-sm text-ink-muted">Your role ({member.role}) can read programs; admins and owners import them.</p>}
       <section className="mt-8 max-w-3xl text-sm">
         <h2 className="font-semibold">CSV layout</h2>

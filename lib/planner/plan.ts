@@ -119,13 +119,14 @@ export interface Plan {
 
 interface Variant { blank: number; along: number; tall: number; turned: boolean }
 
+/** Every way each blank may lie, largest first (the greedy top-up of a strip relies on the order). */
 function variants(blanks: Blank[]): Variant[] {
   const out: Variant[] = [];
   blanks.forEach((b, i) => {
     out.push({ blank: i, along: b.length, tall: b.width, turned: false });
     if (b.canTurn && b.length !== b.width) out.push({ blank: i, along: b.width, tall: b.length, turned: true });
   });
-  return out;
+  return out.sort((a, b) => b.along * b.tall - a.along * a.tall || a.blank - b.blank || Number(a.turned) - Number(b.turned));
 }
 
 /** A sheet as it meets the blade: what may go along and across it. */
@@ -142,32 +143,62 @@ interface Presented {
   maxHeight: number;
 }
 
+/**
+ * Knapsack work, in table cells, that one plan may spend on tables for the exact set of blanks
+ * still wanted; past it, a strip height reuses one table for every blank that fits it (capped
+ * when the strip is filled, so a little less full) and the exact one-sheet pattern is no longer
+ * tried. Keeps large orders (hundreds of blank types) to seconds; counted, so plans stay
+ * reproducible.
+ */
+export const PLAN_WORK_BUDGET = 150_000_000;
+/** Past this much work in all, strips are filled greedily, largest blank first: a plan of any size ends in seconds. */
+export const PLAN_WORK_LIMIT = 2 * PLAN_WORK_BUDGET;
+
 /** Unbounded knapsack tables, kept per strip length, height and set of blanks still wanted (they rarely change). */
-type Tables = Map<string, { items: Variant[]; pick: Int32Array }>;
+interface Tables {
+  map: Map<string, { items: Variant[]; pick: Int32Array }>;
+  work: number;
+}
 
 /** Fill a strip of this length and height with what may still be placed: unbounded knapsack by area, then capped. */
-function fillStrip(length: number, height: number, items: Variant[], cap: number[], tables: Tables): Variant[] {
-  if (!items.length) return [];
-  const key = `${length}|${height}|${items.map((v) => `${v.blank}${v.turned ? "t" : ""}`).join(",")}`;
-  let table = tables.get(key);
+function fillStrip(length: number, height: number, open: Variant[], all: () => Variant[], cap: number[], tables: Tables, setKey: string): Variant[] {
+  if (!open.length) return [];
+  if (tables.work > PLAN_WORK_LIMIT) return topUp([], length, open, cap, new Map());
+  tables.work += length; // reading the table back
+  let items = open;
+  // `setKey` names the blanks still wanted and the strip rule: with the height, it fixes `open`.
+  let key = `${length}|${height}|${setKey}`;
+  if (!tables.map.has(key) && tables.work + length * items.length > PLAN_WORK_BUDGET) {
+    items = all();
+    key = `${length}|${height}|${setKey.split("|")[0]}|all`;
+  }
+  let table = tables.map.get(key);
   if (!table) {
+    tables.work += length * items.length; // counted even past the budget, toward the limit
+    // Items shortest first in flat arrays, so each capacity stops at the first item too long for it.
+    const order = items.map((_, i) => i).sort((a, b) => items[a].along - items[b].along);
+    const al = Int32Array.from(order, (i) => items[i].along);
+    const val = Float64Array.from(order, (i) => items[i].along * items[i].tall);
+    const n = order.length;
     const best = new Float64Array(length + 1);
     const pick = new Int32Array(length + 1).fill(-1);
     for (let c = 1; c <= length; c++) {
-      best[c] = best[c - 1];
-      for (let i = 0; i < items.length; i++) {
-        const it = items[i];
-        if (it.along <= c) {
-          const v = best[c - it.along] + it.along * it.tall;
-          if (v > best[c]) {
-            best[c] = v;
-            pick[c] = i;
-          }
+      let b = best[c - 1];
+      let k = -1;
+      for (let j = 0; j < n; j++) {
+        const a = al[j];
+        if (a > c) break;
+        const v = best[c - a] + val[j];
+        if (v > b || (v === b && k >= 0 && order[j] < order[k])) { // ties go to the larger blank (items come largest first)
+          b = v;
+          k = j;
         }
       }
+      best[c] = b;
+      if (k >= 0) pick[c] = order[k];
     }
     table = { items, pick };
-    tables.set(key, table);
+    tables.map.set(key, table);
   }
   const pick = table.pick;
   const chosen: Variant[] = [];
@@ -186,8 +217,13 @@ function fillStrip(length: number, height: number, items: Variant[], cap: number
     c -= it.along;
   }
   // Capping may leave room: top it up greedily with the largest pieces still wanted.
+  return topUp(chosen, length, open, cap, used);
+}
+
+/** Fill what room is left along a strip with the largest pieces still wanted. */
+function topUp(chosen: Variant[], length: number, items: Variant[], cap: number[], used: Map<number, number>): Variant[] {
   let room = length - chosen.reduce((s, v) => s + v.along, 0);
-  for (const it of [...items].sort((a, b) => b.along * b.tall - a.along * a.tall)) {
+  for (const it of items) { // variants are kept largest first
     while (it.along <= room && (used.get(it.blank) ?? 0) < cap[it.blank]) {
       chosen.push(it);
       used.set(it.blank, (used.get(it.blank) ?? 0) + 1);
@@ -210,12 +246,13 @@ function buildStrips(p: Presented, cap: number[], rule: Rule, exact: boolean, to
   let free = p.usable;
   for (;;) {
     const open = p.vs.filter((v) => v.tall <= free && want[v.blank] > 0);
+    const setKey = `${p.stock}${p.rotated ? "r" : ""}${exact ? "e" : "t"}|${want.map((n) => (n > 0 ? 1 : 0)).join("")}`;
     const heights = [...new Set(open.map((v) => v.tall))].filter((h) => h <= p.maxHeight);
     let best: { height: number; pieces: Variant[]; area: number } | null = null;
     for (const h of heights) {
       // A piece narrower than its strip is trimmed by one more cut; its offcut must not be a piece itself.
-      const items = open.filter((v) => v.tall === h || (!exact && v.tall < h - tol && Math.abs(h - 2 * v.tall) > tol));
-      const pieces = fillStrip(p.length, h, items, want, tables);
+      const fits = (v: Variant) => v.tall === h || (!exact && v.tall < h - tol && Math.abs(h - 2 * v.tall) > tol);
+      const pieces = fillStrip(p.length, h, open.filter(fits), () => p.vs.filter(fits), want, tables, setKey);
       const a = pieces.reduce((s, v) => s + v.along * v.tall, 0);
       const better = !best || (rule === "density" ? a / h > best.area / best.height : a > best.area);
       if (a > 0 && better) best = { height: h, pieces, area: a };
@@ -291,11 +328,14 @@ function whyUnplaceable(b: Blank, stock: Stock[], o: PlanOptions): string {
  * what may still be placed is too much for one sheet to run out of any blank: then the
  * unbounded optimum is also the best capped one. Null when a blank could run out.
  */
-function exactPattern(p: Presented, cap: number[]): StripIn[] | null {
+function exactPattern(p: Presented, cap: number[], tables: Tables): StripIn[] | null {
   const open = p.vs.filter((v) => cap[v.blank] > 0);
   if (!open.length) return null;
   const sheetArea = p.length * p.usable;
   if (open.some((v) => cap[v.blank] < Math.floor(sheetArea / (v.along * v.tall)))) return null;
+  const work = new Set(open.map((v) => v.tall)).size * p.length * open.length + p.usable * open.length;
+  if (tables.work + work > PLAN_WORK_BUDGET) return null;
+  tables.work += work;
   const best = bestTwoStagePattern({ length: p.length, width: p.usable }, open.map((v) => ({ length: v.along, width: v.tall })), "length");
   const strips: StripIn[] = [];
   for (const st of best.strips.filter((x) => x.height <= p.maxHeight).sort((a, b) => b.height - a.height)) {
@@ -321,7 +361,7 @@ export function planBlanks(stock: Stock[], blanks: Blank[], options: PlanOptions
   });
   const left = () => quantity.map((q, i) => (placeable[i] ? Math.max(0, q - produced[i]) : 0));
   const patterns: SheetPattern[] = [];
-  const tables: Tables = new Map();
+  const tables: Tables = { map: new Map(), work: 0 };
   const exacts = o.objective === "fewest_strokes" ? [false, true] : [false];
   const minGauge = o.limits?.backgaugeMin ?? 0;
 
@@ -360,7 +400,7 @@ export function planBlanks(stock: Stock[], blanks: Blank[], options: PlanOptions
       for (const exact of exacts) {
         for (const rule of ["density", "area"] as const) consider(p, buildStrips(p, cap, rule, exact, tol, tables));
       }
-      const dp = exactPattern(p, cap);
+      const dp = exactPattern(p, cap, tables);
       if (dp) consider(p, dp);
     }
     if (!candidates.length) break;

@@ -30,4 +30,10 @@ describe("planner", () => {
       console.log(`fewest strokes: ${plan.sheetsUsed} sheets, ${(plan.utilisation * 100).toFixed(1)} %, ${plan.strokes} strokes and ${plan.turns} turns (fewest sheets: ${planBlanks(stock, blanks).strokes} strokes and ${planBlanks(stock, blanks).turns} turns)`);
     },
   });
+  // The largest order a plan takes: 200 blank types (the schema's limit), 1000 pieces. No target; the
+  // knapsack work budget (PLAN_WORK_BUDGET) keeps it to seconds.
+  const many: Blank[] = Array.from({ length: 200 }, (_, i) => ({ label: `M${i + 1}`, length: 100 + rand(900), width: 50 + rand(450), quantity: 5, canTurn: i % 4 !== 0 }));
+  bench("200 blank types, 1000 pieces, 3 sheet sizes", () => {
+    planBlanks(stock, many);
+  }, { iterations: 2 });
 });

@@ -239,13 +239,13 @@ describe("2D bin-packing classes (sheets against the area lower bound)", () => {
   }
 
   // Class 9 is mostly items larger than half the bin, so the area bound is far below any
-  // packing there (from memory); every other class must stay within 30 % of it.
+  // packing there (from memory); every other class must stay within 25 % of it.
   const LIMIT: Record<string, number> = { CLASS09: 1.6 };
-  it("stays within 30 % above the area bound (class 9: 60 %), and reports it", () => {
+  it("stays within 25 % above the area bound (class 9: 60 %), and reports it", () => {
     const rows = [...byClass].sort().map(([cls, c]) => `${cls}: ${c.n} instances, ${c.sheets} sheets, area bound ${c.bound} (×${(c.sheets / c.bound).toFixed(3)})`);
     console.log(`two-stage planner on the bin-packing classes:\n  ${rows.join("\n  ")}`);
     expect(byClass.size).toBe(10);
-    for (const [cls, c] of byClass) expect(c.sheets / c.bound, cls).toBeLessThanOrEqual(LIMIT[cls] ?? 1.3);
+    for (const [cls, c] of byClass) expect(c.sheets / c.bound, cls).toBeLessThanOrEqual(LIMIT[cls] ?? 1.25);
   });
 });
 

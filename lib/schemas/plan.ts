@@ -116,7 +116,7 @@ export const PlanPattern = z
 
 export const PlanFinding = z
   .object({
-    code: z.enum(["blank_unplaceable", "stock_short", "over_production", "stock_unusable", "pattern_not_releasable"]),
+    code: z.enum(["blank_unplaceable", "stock_short", "over_production", "stock_unusable", "trim_out_of_travel", "pattern_not_releasable"]),
     severity: z.enum(["error", "warning"]),
     message: z.string(),
     pointer: z.string().openapi({ description: "JSON pointer into the plan request", example: "/blanks/2" }),

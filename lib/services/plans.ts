@@ -141,6 +141,14 @@ export async function computePlan(em: EntityManager, shopId: string, input: Plan
   planned.extra.forEach((n, i) => {
     if (n > 0) findings.push({ code: "over_production", severity: "warning", pointer: `/blanks/${i}`, actual: n, message: `"${input.blanks[i].label}": ${n} more than the ${input.blanks[i].quantity} asked (within the ${o.overProductionPct ?? 0} % allowance).` });
   });
+  const trim = o.trim ?? 0;
+  const travel = { min: profile.backgaugeMinMm / unitMm, max: profile.backgaugeMaxMm / unitMm };
+  if (trim > 0 && (trim < travel.min - 1e-9 || trim > travel.max + 1e-9)) {
+    findings.push({
+      code: "trim_out_of_travel", severity: "error", pointer: "/options/trim", actual: trim,
+      message: `A trim of ${trim} ${input.units} is outside this shear's backgauge travel (${round(travel.min, 4)} to ${round(travel.max, 4)} ${input.units}): the trim cut cannot be gauged, and the programs will not release.`,
+    });
+  }
   for (const s of planned.unusableStock) {
     findings.push({ code: "stock_unusable", severity: "warning", pointer: `/stock/${s}`, actual: null, message: `Stock ${input.stock[s].length} × ${input.stock[s].width} ${input.units} is longer than this shear's blade both ways round; it was not used.` });
   }

@@ -139,6 +139,48 @@ describe("findings instead of silent drops", () => {
   });
 });
 
+describe("inches and the shear's limits", () => {
+  it("plans fractional inches on their own grid and writes programs in inches", async () => {
+    const res = await plan({
+      shear: shop.shearId, grade: "A36", thickness: { gauge: 12 }, units: "in",
+      stock: [{ length: 120, width: 48 }],
+      blanks: [{ label: "bracket", length: 16.5, width: 12.25, quantity: 20 }, { label: "clip", length: 3.125, width: 2.0625, quantity: 40 }],
+      options: { trim: 0.25 },
+    });
+    expect(res.status).toBe(201);
+    expect(res.body.status).toBe("complete");
+    expect(res.body.findings).toEqual([]);
+    for (const p of res.body.patterns) {
+      expect(p.cuts[0]).toMatchObject({ backgauge: 0.25, scrap: true });
+      expect(p.check.validation).not.toBe("fail");
+    }
+    const written = await write(res.body.id);
+    const made = new Map<string, number>();
+    for (const prg of written.body.data) for (const b of prg.check.yield.blanks) made.set(sizeKey(b.width, b.length), (made.get(sizeKey(b.width, b.length)) ?? 0) + b.count);
+    expect(made).toEqual(new Map([[sizeKey(16.5, 12.25), 20], [sizeKey(3.125, 2.0625), 40]])); // the shear core counts what was asked
+  });
+
+  it("a trim closer than the backgauge can reach is a finding, not a silent program fault", async () => {
+    const res = await plan({
+      shear: shop.shearId, grade: "A36", thickness: { gauge: 12 }, units: "in",
+      stock: [{ length: 120, width: 48 }], blanks: [{ label: "bracket", length: 16.5, width: 12.25, quantity: 4 }],
+      options: { trim: 0.125 }, // 3.175 mm; the test shear's backgauge comes no closer than 5 mm
+    });
+    expect(res.body.findings).toEqual(expect.arrayContaining([expect.objectContaining({ code: "trim_out_of_travel", severity: "error", pointer: "/options/trim", actual: 0.125 })]));
+  });
+
+  it("a thickness the shear cannot take still plans, and says the programs will not release", async () => {
+    const res = await plan({
+      shear: shop.shearId, grade: "A36", thickness: { value: 12 }, units: "mm", // the test shear is rated 6.35 mm
+      stock: [{ length: 2000, width: 1000 }],
+      blanks: [{ label: "plate", length: 500, width: 500, quantity: 4 }],
+    });
+    expect(res.status).toBe(201);
+    expect(res.body.patterns[0].check.findings.map((f: { code: string }) => f.code)).toContain("thickness_over_capacity");
+    expect(res.body.findings).toEqual([expect.objectContaining({ code: "pattern_not_releasable", severity: "warning", pointer: "/patterns/0" })]);
+  });
+});
+
 describe("bad input", () => {
   it("is refused with a problem pointing at the field, and stores nothing", async () => {
     const before = (await api().get("/api/v1/plans?limit=200").set(auth())).body.data.length;

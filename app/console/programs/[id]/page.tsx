@@ -35,7 +35,12 @@ export default async function ProgramPage({ params }: { params: Promise<{ id: st
   return (
     <>
       <p className="mb-1 text-xs"><Link href="/console/programs" className="text-edge hover:underline">← Programs</Link></p>
-      <PageHeader title={`${p.reference}${p.title ? ` · ${p.title}` : ""}`} lead={<span className="font-mono text-xs">{p.id} · revision {p.revision} · {p.grade} · {p.units}</span>}>
+      <PageHeader title={`${p.reference}${p.title ? ` · ${p.title}` : ""}`} lead={
+        <span className="font-mono text-xs">
+          {p.id} · revision {p.revision} · {p.grade} · {p.units}
+          {p.metadata.plan?.startsWith("pln_") && <> · <Link href={`/console/plans/${p.metadata.plan}`} className="text-edge hover:underline">pattern {p.metadata.pattern ?? "?"} of plan {p.metadata.plan}</Link></>}
+        </span>
+      }>
         <Badge value={p.status} /> <Badge value={p.validation} label={`check: ${p.validation}`} />
       </PageHeader>
 

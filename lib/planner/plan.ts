@@ -363,7 +363,7 @@ export function planBlanks(stock: Stock[], blanks: Blank[], options: PlanOptions
   const patterns: SheetPattern[] = [];
   const tables: Tables = { map: new Map(), work: 0 };
   const exacts = o.objective === "fewest_strokes" ? [false, true] : [false];
-  const minGauge = o.limits?.backgaugeMin ?? 0;
+  const gauge = { min: o.limits?.backgaugeMin ?? 0, max: o.limits?.backgaugeMax ?? Infinity };
 
   for (;;) {
     const need = left();
@@ -374,13 +374,13 @@ export function planBlanks(stock: Stock[], blanks: Blank[], options: PlanOptions
       let strips = first;
       // A pattern must serve what is still wanted, not only the allowance.
       if (!strips.some((s) => s.pieces.some((pc) => need[pc.blank] > 0))) return;
-      let written = writePattern({ length: p.length, width: p.width }, o.trim, strips, o.mmPerUnit, minGauge, o.show);
+      let written = writePattern({ length: p.length, width: p.width }, o.trim, strips, o.mmPerUnit, gauge, o.show);
       // When no order of groups satisfies the remnant rule (two pieces that the shear cannot tell
       // apart, say), give up pieces from the end until the program makes exactly what it shows.
       while (!written && strips.length) {
         const last = strips[strips.length - 1];
         strips = last.pieces.length > 1 ? [...strips.slice(0, -1), { ...last, pieces: last.pieces.slice(0, -1) }] : strips.slice(0, -1);
-        if (strips.length) written = writePattern({ length: p.length, width: p.width }, o.trim, strips, o.mmPerUnit, minGauge, o.show);
+        if (strips.length) written = writePattern({ length: p.length, width: p.width }, o.trim, strips, o.mmPerUnit, gauge, o.show);
       }
       if (!written || !strips.some((s) => s.pieces.some((pc) => need[pc.blank] > 0))) return;
       const offcuts = written.leftovers.map((l) => ({ ...l, reusable: l.kind !== "trim" && isReusable(l, o.reusable) }));

@@ -67,8 +67,9 @@ export interface WrittenPattern {
   turns: number;
 }
 
-interface Segment { along: number; tall: number; blank: number; turned: boolean; count: number }
-interface Kind { height: number; count: number; segments: Segment[] }
+interface Segment { along: number; tall: number; count: number }
+/** Strips alike in height and in the sizes of their pieces: one rip group, crosscut alike. Which blank each piece is does not matter to the shear. */
+interface Kind { height: number; count: number; segments: Segment[]; instances: PieceIn[][] }
 
 function kindsOf(strips: StripIn[]): Kind[] {
   const kinds = new Map<string, Kind>();
@@ -77,13 +78,15 @@ function kindsOf(strips: StripIn[]): Kind[] {
     const segments: Segment[] = [];
     for (const p of sorted) {
       const last = segments[segments.length - 1];
-      if (last && last.along === p.along && last.tall === p.tall && last.blank === p.blank && last.turned === p.turned) last.count += 1;
-      else segments.push({ along: p.along, tall: p.tall, blank: p.blank, turned: p.turned, count: 1 });
+      if (last && last.along === p.along && last.tall === p.tall) last.count += 1;
+      else segments.push({ along: p.along, tall: p.tall, count: 1 });
     }
-    const key = `${s.height}|${segments.map((g) => `${g.along}x${g.tall}b${g.blank}${g.turned ? "t" : ""}*${g.count}`).join(",")}`;
+    const key = `${s.height}|${segments.map((g) => `${g.along}x${g.tall}*${g.count}`).join(",")}`;
     const k = kinds.get(key);
-    if (k) k.count += 1;
-    else kinds.set(key, { height: s.height, count: 1, segments });
+    if (k) {
+      k.count += 1;
+      k.instances.push(sorted);
+    } else kinds.set(key, { height: s.height, count: 1, segments, instances: [sorted] });
   }
   return [...kinds.values()];
 }
@@ -138,7 +141,7 @@ function emit(sheet: { length: number; width: number }, trim: number, layout: La
   const { lead, kinds } = layout;
   if (lead > 0) {
     cuts.push({ backgauge: lead, count: 1, scrap: true, note: lead > trim && trim > 0 ? `trim the first edge (${f(trim)}) and cut off ${f(lead - trim)} of the sheet's spare width` : lead === trim ? "trim the first edge" : `cut off ${f(lead)} of the sheet's spare width first` });
-    leftovers.push({ x: 0, y: 0, length: sheet.length, width: lead, kind: trim > 0 ? "trim" : "sheet-end" });
+    leftovers.push({ x: 0, y: 0, length: sheet.length, width: lead, kind: lead > trim ? "sheet-end" : "trim" });
   }
   const usable = sheet.width - lead;
   const used = kinds.reduce((s, k) => s + k.height * k.count, 0);
@@ -187,9 +190,11 @@ function emit(sheet: { length: number; width: number }, trim: number, layout: La
         x = k.lead;
       }
       const pieces: PlacedPiece[] = [];
+      const mine = [...k.instances[n]]; // this strip's own blanks, handed out in cutting order
       for (const g of k.segments) {
         for (let c = 0; c < g.count; c++) {
-          pieces.push({ blank: g.blank, along: g.along, tall: g.tall, turned: g.turned, x, y });
+          const own = mine.splice(mine.findIndex((pc) => pc.along === g.along && pc.tall === g.tall), 1)[0];
+          pieces.push({ blank: own.blank, along: g.along, tall: g.tall, turned: own.turned, x, y });
           if (g.tall < k.height) leftovers.push({ x, y: y + g.tall, length: g.along, width: k.height - g.tall, kind: "piece-trim" });
           x += g.along;
         }
@@ -206,19 +211,22 @@ function emit(sheet: { length: number; width: number }, trim: number, layout: La
   return { cuts, strips, leftovers };
 }
 
-/** Lead-off lengths to try: none, then the whole spare, then smaller parts of it. */
-function leads(spare: number, minGauge: number, tol: number): number[] {
+/** Lead-off lengths to try: none, then the whole spare, then parts of it; the whole cut (with the trim) stays within the backgauge's travel. */
+function leads(spare: number, fixedLead: number, gauge: { min: number; max: number }, tol: number): number[] {
   const out = [0];
   if (spare <= tol) return out;
-  const cands = [spare, Math.floor(spare / 2), Math.floor(spare / 3), spare - 1, spare - 2, Math.floor((2 * spare) / 3)];
-  for (const c of cands) if (c >= Math.max(1, minGauge) && c <= spare && !out.includes(c)) out.push(c);
+  const low = Math.max(1, gauge.min - fixedLead);
+  const cands = [spare, Math.floor(spare / 2), Math.floor(spare / 3), spare - 1, spare - 2, Math.floor((2 * spare) / 3), low, low + 1, gauge.max - fixedLead];
+  for (const c of cands) {
+    if (c >= low && c <= spare && fixedLead + c <= gauge.max && !out.includes(c)) out.push(c);
+  }
   return out;
 }
 
 /** An order for the groups of one workpiece, with a lead-off when no order works without one. */
-function arrangeWithLead<T extends { size: number; count: number }>(items: T[], total: number, fixedLead: number, minGauge: number, tol: number): { order: T[]; lead: number } | null {
+function arrangeWithLead<T extends { size: number; count: number }>(items: T[], total: number, fixedLead: number, gauge: { min: number; max: number }, tol: number): { order: T[]; lead: number } | null {
   const used = items.reduce((s, it) => s + it.size * it.count, 0);
-  for (const extra of leads(total - fixedLead - used, minGauge, tol)) {
+  for (const extra of leads(total - fixedLead - used, fixedLead, gauge, tol)) {
     const lead = fixedLead + extra;
     if (lead > 0 && Math.abs(total - lead - lead) <= tol) continue; // the rest would become lead-off too
     const order = arrange(items, total - lead, tol);
@@ -234,7 +242,14 @@ const sizeKey = (a: number, b: number) => (a <= b ? `${a}x${b}` : `${b}x${a}`);
  * `mmPerUnit` converts the grid to millimetres for that check; `minGauge` is the nearest
  * backgauge setting (a lead-off cut is never shorter).
  */
-export function writePattern(sheet: { length: number; width: number }, trim: number, strips: StripIn[], mmPerUnit: number, minGauge = 0, show: (v: number) => string = String): WrittenPattern | null {
+export function writePattern(
+  sheet: { length: number; width: number },
+  trim: number,
+  strips: StripIn[],
+  mmPerUnit: number,
+  gauge: { min: number; max: number } = { min: 0, max: Infinity },
+  show: (v: number) => string = String,
+): WrittenPattern | null {
   if (!strips.length) return null;
   const tol = REMNANT_TOLERANCE_MM / mmPerUnit;
   const want = new Map<string, number>();
@@ -242,11 +257,11 @@ export function writePattern(sheet: { length: number; width: number }, trim: num
   const base = kindsOf(strips).sort((a, b) => b.height - a.height || b.count - a.count);
   const layouts: Layout[] = [];
   for (const first of [base, [...base].reverse()]) {
-    const rip = arrangeWithLead(first.map((k) => ({ k, size: k.height, count: k.count })), sheet.width, trim, minGauge, tol);
+    const rip = arrangeWithLead(first.map((k) => ({ k, size: k.height, count: k.count })), sheet.width, trim, gauge, tol);
     if (!rip) continue;
     const kinds: Layout["kinds"] = [];
     for (const { k } of rip.order) {
-      const segs = arrangeWithLead(k.segments.map((g) => ({ g, size: g.along, count: g.count })), sheet.length, 0, minGauge, tol);
+      const segs = arrangeWithLead(k.segments.map((g) => ({ g, size: g.along, count: g.count })), sheet.length, 0, gauge, tol);
       if (!segs) break;
       kinds.push({ ...k, lead: segs.lead, segments: segs.order.map((x) => x.g) });
     }
@@ -258,12 +273,23 @@ export function writePattern(sheet: { length: number; width: number }, trim: num
     const flowCuts: FlowCut[] = written.cuts.map((c) => ({ backgaugeMm: mm(c.backgauge), count: c.count, lengthMm: null, turn: c.turn === true, from: c.from ?? null, scrap: c.scrap === true }));
     const flow = simulateFlow({ lengthMm: mm(sheet.length), widthMm: mm(sheet.width) }, flowCuts);
     if (flow.groups.some((g) => g.beyond !== null || g.workpieces === 0 || (g.strokes === 0 && g.pieces.length === 0))) continue;
-    const got = new Map<string, number>();
+    // Each blank the flow makes must be a wanted size, within the remnant tolerance (the last piece of an
+    // exactly filled strip is what is left, up to 0.1 mm over), and the counts must agree.
+    const left = new Map(want);
+    let matches = true;
     for (const b of flow.blanks) {
-      const k = sizeKey(Math.round(b.widthMm / mmPerUnit), Math.round(b.lengthMm / mmPerUnit));
-      got.set(k, (got.get(k) ?? 0) + b.count);
+      const [a, c] = [b.widthMm, b.lengthMm].sort((x, y) => x - y);
+      const key = [...left.keys()].find((k) => {
+        const [p, q] = k.split("x").map((v) => Number(v) * mmPerUnit);
+        return Math.abs(p - a) <= REMNANT_TOLERANCE_MM + 1e-9 && Math.abs(q - c) <= REMNANT_TOLERANCE_MM + 1e-9 && (left.get(k) ?? 0) >= b.count;
+      });
+      if (key === undefined) {
+        matches = false;
+        break;
+      }
+      left.set(key, left.get(key)! - b.count);
     }
-    if (got.size !== want.size || [...want].some(([k, n]) => got.get(k) !== n)) continue;
+    if (!matches || [...left.values()].some((n) => n !== 0)) continue;
     return { ...written, strokes: flow.strokes, turns: flow.turnedPieces };
   }
   return null;

@@ -10,7 +10,7 @@ import { conflict, invalidRequest, notFound } from "../api/errors";
 import { decodeCursor, page } from "../api/pagination";
 import { planBlanks, type Plan as PlannerResult } from "../planner/plan";
 import type { PlanInputT, PlanT, WriteProgramsInputT } from "../schemas/plan";
-import type { ProgramInputT, ProgramT } from "../schemas/program";
+import { ProgramInput, type ProgramInputT, type ProgramT } from "../schemas/program";
 import { checkProgram, type LengthUnit } from "../shear";
 import { gradeByCode, gradeProfile, shearProfile } from "./catalog";
 import { createProgram } from "./programs";
@@ -63,10 +63,10 @@ export async function computePlan(em: EntityManager, shopId: string, input: Plan
   const g = gridFor(input);
   const unitMm = MM_PER_UNIT[input.units];
   const toGrid = (v: number) => Math.round(v * g);
-  const fromGrid = (v: number) => round(v / g, 4);
+  const fromGrid = (v: number) => round(v / g, 9); // exact on every grid (1/64 in = 0.015625); 9 places only drop float noise
   const o = input.options ?? {};
   const canTurn = (b: PlanInputT["blanks"][number]) => b.canTurn ?? true;
-  const reusable = o.reusableOffcut ? { length: toGrid(o.reusableOffcut.length), width: toGrid(o.reusableOffcut.width) } : null;
+  const reusable = o.reusableOffcut ? { length: Math.ceil(o.reusableOffcut.length * g - 1e-9), width: Math.ceil(o.reusableOffcut.width * g - 1e-9) } : null;
   const planned: PlannerResult = planBlanks(
     input.stock.map((s) => ({ length: toGrid(s.length), width: toGrid(s.width), count: s.count ?? null })),
     input.blanks.map((b) => ({ label: b.label, length: toGrid(b.length), width: toGrid(b.width), quantity: b.quantity, canTurn: canTurn(b) })),
@@ -96,6 +96,13 @@ export async function computePlan(em: EntityManager, shopId: string, input: Plan
       sheet: { length: fromGrid(p.length), width: fromGrid(p.width), count: p.repeats }, cuts,
     };
     const check = checkProgram(program, { shear: profile, grade: gradeP });
+    const valid = ProgramInput.safeParse({ ...program, reference: `plan/${key}` });
+    if (!valid.success) {
+      findings.push({
+        code: "pattern_not_releasable", severity: "warning", pointer: `/patterns/${i}`, actual: null,
+        message: `Pattern ${key}'s program is outside what a cut program may hold (${valid.error.issues[0].path.join(".")}: ${valid.error.issues[0].message}); it cannot be written.`,
+      });
+    }
     estimateSeconds += check.estimate?.seconds.total ?? 0;
     if (check.validation === "fail") {
       findings.push({
@@ -150,7 +157,9 @@ export async function computePlan(em: EntityManager, shopId: string, input: Plan
     });
   }
   for (const s of planned.unusableStock) {
-    findings.push({ code: "stock_unusable", severity: "warning", pointer: `/stock/${s}`, actual: null, message: `Stock ${input.stock[s].length} × ${input.stock[s].width} ${input.units} is longer than this shear's blade both ways round; it was not used.` });
+    const st = input.stock[s];
+    const why = Math.max(st.length, st.width) <= trim ? `is no wider than the ${trim} ${input.units} trim` : `is longer than this shear's blade both ways round`;
+    findings.push({ code: "stock_unusable", severity: "warning", pointer: `/stock/${s}`, actual: null, message: `Stock ${st.length} × ${st.width} ${input.units} ${why}; it was not used.` });
   }
 
   const used = input.stock.map(() => 0);
@@ -253,7 +262,9 @@ export async function writePrograms(em: EntityManager, shopId: string, id: strin
         ...(opts.dueAt ? { dueAt: opts.dueAt } : {}),
         metadata: { ...(opts.metadata ?? {}), plan: plan.id, pattern: p.key },
       };
-      written.push(await createProgram(tx, shopId, input));
+      const valid = ProgramInput.safeParse(input);
+      if (!valid.success) throw conflict(`Pattern ${p.key} cannot be written as a cut program: ${valid.error.issues[0].path.join(".")}: ${valid.error.issues[0].message}.`, { pattern: p.key });
+      written.push(await createProgram(tx, shopId, valid.data));
     }
     row.programs = written.map((w, i) => ({ pattern: view.patterns[i].key, id: w.id }));
     await tx.flush();

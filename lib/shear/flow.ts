@@ -118,7 +118,8 @@ function addRect(list: Rect[], r: Rect): void {
 /** Number of strokes that cut something on a workpiece `widthMm` wide at backgauge `bg`. */
 export function strokesThatCut(widthMm: number, bg: number): number {
   if (!(bg > 0) || !(widthMm > REMNANT_TOLERANCE_MM)) return 0;
-  return Math.max(0, Math.ceil((widthMm - REMNANT_TOLERANCE_MM) / bg) - 1);
+  // SAME_SIZE_MM keeps float noise at the tolerance's edge (1000.1 − 0.1 = 1000.0000000000001) from adding a stroke.
+  return Math.max(0, Math.ceil((widthMm - REMNANT_TOLERANCE_MM - SAME_SIZE_MM) / bg) - 1);
 }
 
 interface GroupRun {
@@ -153,7 +154,7 @@ function runGroup(index: number, cut: FlowCut, work: readonly Rect[]): GroupRun 
       if (beyond === null) beyond = { strokes: lost, firstStroke: n + 1, remainingMm: remaining };
       else beyond.strokes += lost;
     }
-    if (bg > 0 && Math.abs(remaining - bg) <= REMNANT_TOLERANCE_MM) {
+    if (bg > 0 && Math.abs(remaining - bg) <= REMNANT_TOLERANCE_MM + SAME_SIZE_MM) {
       addRect(pieces, { widthMm: remaining, lengthMm: w.lengthMm, count: w.count, group: index });
     } else {
       addRect(nextWork, { widthMm: remaining, lengthMm: w.lengthMm, count: w.count, group: n > 0 ? index : w.group });

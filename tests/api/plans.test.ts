@@ -160,6 +160,20 @@ describe("inches and the shear's limits", () => {
     expect(made).toEqual(new Map([[sizeKey(16.5, 12.25), 20], [sizeKey(3.125, 2.0625), 40]])); // the shear core counts what was asked
   });
 
+  it("keeps 1/32 and 1/64 in exact, so the written program makes every blank", async () => {
+    const res = await plan({
+      shear: shop.shearId, grade: "A36", thickness: { gauge: 16 }, units: "in",
+      stock: [{ length: 82.5, width: 12 }],
+      blanks: [{ label: "tab", length: 1.03125, width: 12, quantity: 80, canTurn: false }, { label: "shim", length: 2.015625, width: 6, quantity: 2, canTurn: false }],
+    });
+    expect(res.status).toBe(201);
+    expect(res.body.patterns.flatMap((p: { cuts: { backgauge: number }[] }) => p.cuts.map((c) => c.backgauge))).toContain(1.03125);
+    const written = await write(res.body.id);
+    const total = (label: number) => written.body.data.reduce((n: number, prg: { check: { yield: { blanks: { width: number; length: number; count: number }[] } } }) =>
+      n + prg.check.yield.blanks.filter((b) => Math.abs(Math.min(b.width, b.length) - [1.03125, 2.015625][label]) < 0.001).reduce((m, b) => m + b.count, 0), 0);
+    expect([total(0), total(1)]).toEqual([80, 2]); // the shear core counts every blank asked for (it shows sizes rounded to 4 places)
+  });
+
   it("a trim closer than the backgauge can reach is a finding, not a silent program fault", async () => {
     const res = await plan({
       shear: shop.shearId, grade: "A36", thickness: { gauge: 12 }, units: "in",

@@ -172,6 +172,34 @@ describe("planning blanks onto sheets", () => {
     expect(fs.patterns.flatMap((p) => p.offcuts).filter((o) => o.kind === "piece-trim")).toEqual([]);
   });
 
+  it("pieces of the same size from different order lines share a strip (the shear cannot tell them apart)", () => {
+    const stock: Stock[] = [{ length: 1000, width: 250, count: null }];
+    const blanks: Blank[] = [{ label: "a", length: 500, width: 250, quantity: 1 }, { label: "b", length: 500, width: 250, quantity: 1 }];
+    const plan = planBlanks(stock, blanks);
+    checkPlan(plan, stock, blanks);
+    expect(plan.sheetsUsed).toBe(1); // hand arithmetic: 2 × 500 = 1000
+    expect(plan.patterns[0].strips[0].pieces.map((p) => p.blank).sort()).toEqual([0, 1]);
+  });
+
+  it("a cut that takes off the trim and spare width stays within the backgauge's travel", () => {
+    const stock: Stock[] = [{ length: 1000, width: 2010, count: null }];
+    const blanks: Blank[] = [{ label: "a", length: 1000, width: 1000, quantity: 1, canTurn: false }];
+    const limits = { bladeLength: 3100, backgaugeMin: 5, backgaugeMax: 1000 };
+    const plan = planBlanks(stock, blanks, { trim: 10, limits });
+    checkPlan(plan, stock, blanks, { trim: 10 });
+    expect(plan.sheetsUsed).toBe(1);
+    for (const c of plan.patterns[0].cuts) expect(c.backgauge).toBeGreaterThanOrEqual(5), expect(c.backgauge).toBeLessThanOrEqual(1000);
+  });
+
+  it("on a 0.1 mm grid, spare width within the remnant tolerance does not cost a sheet", () => {
+    // 1000 × 1000.1 mm sheet (grid 0.1 mm): four 250 mm strips, the last 0.1 mm over (within 0.1 mm, our piece-flow rule)
+    const stock: Stock[] = [{ length: 10000, width: 10001, count: null }];
+    const blanks: Blank[] = [{ label: "s", length: 10000, width: 2500, quantity: 4, canTurn: false }];
+    const plan = planBlanks(stock, blanks, { mmPerUnit: 0.1 });
+    expect(plan.sheetsUsed).toBe(1);
+    expect(plan.produced).toEqual([4]);
+  });
+
   it("holds its promises for any demand and any options (property)", () => {
     const blank = fc.record({
       label: fc.constant("b"), length: fc.integer({ min: 1, max: 120 }), width: fc.integer({ min: 1, max: 80 }),
@@ -192,7 +220,10 @@ describe("planning blanks onto sheets", () => {
         checkPlan(plan, stock, blanks, o);
         if (o.limits) for (const p of plan.patterns) {
           expect(p.length).toBeLessThanOrEqual(o.limits.bladeLength);
-          for (const c of p.cuts) expect(c.backgauge).toBeLessThanOrEqual(o.limits.backgaugeMax);
+          for (const c of p.cuts) {
+            expect(c.backgauge).toBeLessThanOrEqual(o.limits.backgaugeMax);
+            if (!(c.scrap && c.backgauge === o.trim)) expect(c.backgauge).toBeGreaterThanOrEqual(o.limits.backgaugeMin); // the trim is the caller's
+          }
         }
         // unlimited stock of a usable size: nothing placeable is left over
         if (stock.every((s) => s.count === null)) expect(plan.unplaced.filter((u) => u.kind === "stock_short")).toEqual([]);

@@ -14,8 +14,6 @@ import { appEnv } from "./lib/env";
 import { daemon, startWorker, stopDaemon } from "./lib/web";
 
 const ENDPOINTS = 10;
-const EVENTS = Number(process.env.BENCH_EVENTS ?? 300);
-const RATE = Number(process.env.BENCH_EVENT_RATE ?? 30); // events per second (× 10 endpoints = deliveries offered per second)
 
 process.env.SHEARWIRE_ALLOW_PRIVATE_WEBHOOKS = "1"; // the receivers are on loopback
 const { profile, url, orm, shopId, shearId } = await benchDatabase("shearwire_bench_hooks");
@@ -46,32 +44,57 @@ for (const s of servers) {
 
 const worker = daemon(profile.dataRoot, "worker-bench");
 await stopDaemon(worker);
-startWorker(worker, { ...appEnv(profile, 3212), DATABASE_URL: url, SHEARWIRE_ALLOW_PRIVATE_WEBHOOKS: "1" });
-await new Promise((r) => setTimeout(r, 3000)); // let the worker connect
-
-const started = Date.now();
-for (let i = 0; i < EVENTS; i++) {
-  const due = started + (i * 1000) / RATE;
-  if (due > Date.now()) await new Promise((r) => setTimeout(r, due - Date.now()));
-  await createProgram(orm.em.fork(), shopId, {
-    reference: `HOOK-${i}`, shear: shearId, grade: "A36", thickness: { gauge: 10 }, units: "in",
-    sheet: { length: 120, width: 48, count: 1 }, cuts: [{ backgauge: 12, count: 3 }],
-  });
+// BENCH_EXTERNAL_WORKER=1: a worker you started yourself (under a profiler, say) against the printed database does the work.
+if (process.env.BENCH_EXTERNAL_WORKER === "1") {
+  console.log(`external worker: DATABASE_URL=${url} REDIS_URL=${appEnv(profile, 3212).REDIS_URL}; starting in 10 s`);
+  await new Promise((r) => setTimeout(r, 10_000));
+} else {
+  startWorker(worker, { ...appEnv(profile, 3212), DATABASE_URL: url, SHEARWIRE_ALLOW_PRIVATE_WEBHOOKS: "1" });
+  await new Promise((r) => setTimeout(r, 3000)); // let the worker connect
 }
-const expected = EVENTS * ENDPOINTS;
-const deadline = Date.now() + 120_000;
-while (received < expected && Date.now() < deadline) await new Promise((r) => setTimeout(r, 100));
+
+/** Offer `events` changes at `rate` per second; wait for every delivery; report throughput and latency. */
+async function phase(name: string, events: number, rate: number, quiet = false) {
+  latencies.length = 0;
+  received = 0;
+  const started = Date.now();
+  // Changes are started on schedule and may overlap (up to 8 at once), as requests from many clients would.
+  const inFlight = new Set<Promise<unknown>>();
+  for (let i = 0; i < events; i++) {
+    const due = started + (i * 1000) / rate;
+    if (due > Date.now()) await new Promise((r) => setTimeout(r, due - Date.now()));
+    while (inFlight.size >= 8) await Promise.race(inFlight);
+    const change: Promise<unknown> = createProgram(orm.em.fork(), shopId, {
+      reference: `HOOK-${name}-${i}`, shear: shearId, grade: "A36", thickness: { gauge: 10 }, units: "in",
+      sheet: { length: 120, width: 48, count: 1 }, cuts: [{ backgauge: 12, count: 3 }],
+    }).finally(() => inFlight.delete(change));
+    inFlight.add(change);
+  }
+  await Promise.all(inFlight);
+  const generatedIn = (Date.now() - started) / 1000;
+  const expected = events * ENDPOINTS;
+  const deadline = Date.now() + 120_000;
+  while (received < expected && Date.now() < deadline) await new Promise((r) => setTimeout(r, 100));
+  const sorted = [...latencies].sort((a, b) => a - b);
+  const pct = (p: number) => sorted[Math.min(sorted.length - 1, Math.floor((p / 100) * sorted.length))] ?? NaN;
+  const seconds = (lastReceipt - started) / 1000;
+  const got = received / seconds;
+  if (quiet) return;
+  // At the target load the rate measured cannot exceed what is offered; keeping up within 2 % is meeting it.
+  const keptUp = got >= 300 || (rate * ENDPOINTS >= 300 && got >= 0.98 * rate * ENDPOINTS);
+  console.log(`
+Webhooks, ${name}: ${events} events at ${rate}/s, each to ${ENDPOINTS} loopback endpoints (${expected} deliveries, ${rate * ENDPOINTS}/s offered)
+  delivered         ${received} of ${expected} in ${seconds.toFixed(1)} s = ${got.toFixed(0)} deliveries/s   (target ≥ 300: ${keptUp ? "met" : "NOT met"})
+  changes written   in ${generatedIn.toFixed(1)} s (asked: ${(events / rate).toFixed(1)} s)
+  change → receipt  p50 ${pct(50)} ms   p99 ${pct(99)} ms   ${rate * ENDPOINTS > 300 ? "(more offered than the target on purpose: a queue builds)" : `(target p50 < 150 ms: ${pct(50) < 150 ? "met" : "NOT met"})`}`);
+}
+
+// A warm-up (a worker runs for days; its first seconds are not its speed), then capacity: more offered
+// than the target, so the rate measured is what the worker can do; then the target load itself.
+await phase("warm-up", 100, 20, true);
+await phase("capacity", Number(process.env.BENCH_EVENTS ?? 400), Number(process.env.BENCH_EVENT_RATE ?? 40));
+await phase("at 300/s", 300, 30);
 await stopDaemon(worker);
 servers.forEach((s) => s.close());
 await orm.close(true);
-
-const sorted = [...latencies].sort((a, b) => a - b);
-const pct = (p: number) => sorted[Math.min(sorted.length - 1, Math.floor((p / 100) * sorted.length))] ?? NaN;
-const seconds = (lastReceipt - started) / 1000;
-const rate = received / seconds;
-console.log(`
-Webhooks: ${EVENTS} events at ${RATE}/s, each to ${ENDPOINTS} loopback endpoints (${expected} deliveries)
-  delivered         ${received} of ${expected} in ${seconds.toFixed(1)} s = ${rate.toFixed(0)} deliveries/s   (target ≥ 300: ${rate >= 300 ? "met" : "NOT met"})
-  change → receipt  p50 ${pct(50)} ms   p99 ${pct(99)} ms   (target p50 < 150 ms: ${pct(50) < 150 ? "met" : "NOT met"})
-`);
 process.exit(0);

@@ -27,11 +27,23 @@ export interface HttpResult {
   latencyMs: number;
 }
 
+const signers = new Map<string, Webhook>();
+/** One signer per secret (decoding the secret once). */
+function signer(secret: string): Webhook {
+  let w = signers.get(secret);
+  if (!w) {
+    if (signers.size > 1000) signers.clear();
+    w = new Webhook(secret);
+    signers.set(secret, w);
+  }
+  return w;
+}
+
 /** Sign a payload with every secret that is currently valid for the endpoint. */
 export function signatures(endpoint: Pick<WebhookEndpointEntity, "secret" | "previousSecret" | "previousSecretExpiresAt">, id: string, at: Date, payload: string, now = new Date()): string {
   const secrets = [endpoint.secret];
   if (endpoint.previousSecret && endpoint.previousSecretExpiresAt && endpoint.previousSecretExpiresAt > now) secrets.push(endpoint.previousSecret);
-  return secrets.map((s) => new Webhook(s).sign(id, at, payload)).join(" ");
+  return secrets.map((s) => signer(s).sign(id, at, payload)).join(" ");
 }
 
 /** POST to the receiver at the address that passed the address check. */
@@ -96,9 +108,26 @@ interface ClaimedRow {
   previous_secret_expires_at: Date | null;
   consecutive_failures: number;
   event_id: string;
-  event_type: string;
-  event_data: unknown;
-  event_created_at: Date;
+}
+
+/**
+ * The body of each event's webhook, kept for the last events sent: an event goes to every
+ * subscribed endpoint with the same body, so it is read and serialised once, not once per
+ * endpoint. Events never change once written.
+ */
+const bodies = new Map<string, string>();
+const BODIES_KEPT = 2000;
+
+async function bodyOf(em: EntityManager, eventId: string): Promise<string> {
+  const kept = bodies.get(eventId);
+  if (kept !== undefined) return kept;
+  const [ev] = await em.getConnection().execute<{ type: string; data: unknown; created_at: Date }[]>(
+    "select type, data, created_at from events where id = ?", [eventId],
+  );
+  const body = JSON.stringify({ type: ev.type, timestamp: new Date(ev.created_at).toISOString(), data: ev.data });
+  bodies.set(eventId, body);
+  if (bodies.size > BODIES_KEPT) bodies.delete(bodies.keys().next().value as string);
+  return body;
 }
 
 /**
@@ -110,18 +139,17 @@ export async function attemptDelivery(em: EntityManager, deliveryId: string, exp
   const conn = em.getConnection();
   const [row] = await conn.execute<ClaimedRow[]>(
     `update deliveries d set attempts = d.attempts + 1, updated_at = now()
-     from webhook_endpoints e, events ev
-     where d.id = ? and d.status = 'pending' and e.id = d.endpoint_id and ev.id = d.event_id and e.enabled
+     from webhook_endpoints e
+     where d.id = ? and d.status = 'pending' and e.id = d.endpoint_id and e.enabled
        ${expectedAttempt !== undefined ? "and d.attempts = ?" : ""}
-     returning d.attempts, e.url, e.secret, e.previous_secret, e.previous_secret_expires_at, e.consecutive_failures,
-       ev.id as event_id, ev.type as event_type, ev.data as event_data, ev.created_at as event_created_at`,
+     returning d.attempts, e.url, e.secret, e.previous_secret, e.previous_secret_expires_at, e.consecutive_failures, d.event_id`,
     expectedAttempt !== undefined ? [deliveryId, expectedAttempt - 1] : [deliveryId],
   );
   if (!row) return skipOrNothing(em, deliveryId);
   const attempt = row.attempts;
 
   const sentAt = new Date();
-  const payload = JSON.stringify({ type: row.event_type, timestamp: new Date(row.event_created_at).toISOString(), data: row.event_data });
+  const payload = await bodyOf(em, row.event_id);
   const endpoint = { secret: row.secret, previousSecret: row.previous_secret, previousSecretExpiresAt: row.previous_secret_expires_at ? new Date(row.previous_secret_expires_at) : null };
   const result = await post(row.url, payload, {
     "webhook-id": row.event_id,

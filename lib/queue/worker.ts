@@ -15,7 +15,7 @@ import { sweepExpiredLeases } from "../services/gateway";
 import { mailEndpointDisabled } from "../services/mail";
 import { attemptDelivery } from "./deliver";
 import { dispatchPending, overdueDeliveries } from "./dispatch";
-import { bullConnection, closeQueue, enqueueAttempt, enqueueFirstAttempts, QUEUE_NAME, type DeliveryJob } from "./queue";
+import { bullConnection, closeQueue, enqueueAttempt, QUEUE_NAME, type DeliveryJob } from "./queue";
 
 const log = (msg: string) => console.log(`[worker] ${new Date().toISOString()} ${msg}`);
 
@@ -36,7 +36,8 @@ export async function runWorker({ concurrency = Number(process.env.SHEARWIRE_WOR
         try {
           for (;;) {
             const ids = await dispatchPending(fork());
-            await enqueueFirstAttempts(ids);
+            backlog.push(...ids);
+            pump();
             if (ids.length < 200) break;
           }
         } catch (err) {
@@ -55,18 +56,38 @@ export async function runWorker({ concurrency = Number(process.env.SHEARWIRE_WOR
   await listener.connect();
   await listener.query(`listen ${OUTBOX_CHANNEL}`);
 
+  const attempt = async (deliveryId: string, n: number) => {
+    const outcome = await attemptDelivery(fork(), deliveryId, n);
+    if (outcome.kind === "retry") await enqueueAttempt(deliveryId, outcome.attempt, outcome.delayMs);
+    if (outcome.kind === "endpoint-disabled") {
+      log(`disabled ${outcome.endpointId}: ${outcome.reason}`);
+      const em = fork();
+      const ep = await em.findOneOrFail(WebhookEndpoint, { id: outcome.endpointId });
+      await mailEndpointDisabled(em, ep.shop.id, ep, outcome.reason).catch((err) => log(`mail failed: ${err.message}`));
+    }
+  };
+
+  // First attempts run here as soon as their deliveries are written, without a trip through the
+  // queue; retries go through BullMQ (they wait). A first attempt lost with this process is
+  // overdue within seconds and queued again by the sweeper, so delivery stays at least once.
+  const backlog: string[] = [];
+  const inFlight = new Set<Promise<void>>();
+  const pump = () => {
+    while (inFlight.size < concurrency && backlog.length) {
+      const id = backlog.shift()!;
+      const run: Promise<void> = attempt(id, 1)
+        .catch((err) => log(`attempt failed: ${(err as Error).message}`))
+        .finally(() => {
+          inFlight.delete(run);
+          pump();
+        });
+      inFlight.add(run);
+    }
+  };
+
   const worker = new Worker<DeliveryJob>(
     QUEUE_NAME,
-    async (job) => {
-      const outcome = await attemptDelivery(fork(), job.data.deliveryId, job.data.attempt);
-      if (outcome.kind === "retry") await enqueueAttempt(job.data.deliveryId, outcome.attempt, outcome.delayMs);
-      if (outcome.kind === "endpoint-disabled") {
-        log(`disabled ${outcome.endpointId}: ${outcome.reason}`);
-        const em = fork();
-        const ep = await em.findOneOrFail(WebhookEndpoint, { id: outcome.endpointId });
-        await mailEndpointDisabled(em, ep.shop.id, ep, outcome.reason).catch((err) => log(`mail failed: ${err.message}`));
-      }
-    },
+    async (job) => attempt(job.data.deliveryId, job.data.attempt),
     // A worker that dies loses its job locks within 10 s; another run then takes the job up again.
     { connection: bullConnection(), concurrency, lockDuration: 10_000, stalledInterval: 5_000, maxStalledCount: 5 },
   );
@@ -96,6 +117,8 @@ export async function runWorker({ concurrency = Number(process.env.SHEARWIRE_WOR
 
   return async function stop() {
     timers.forEach(clearInterval);
+    backlog.length = 0; // not started: the sweeper of the next worker queues them
+    await Promise.all([...inFlight]);
     await worker.close();
     await listener.end().catch(() => undefined);
     await closeQueue();

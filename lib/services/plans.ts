@@ -5,7 +5,7 @@
  * stored, with their events), all or nothing.
  */
 import { LockMode, type EntityManager } from "@mikro-orm/postgresql";
-import { Plan, Shear, Shop, type PlanEntity, type ShearEntity } from "../../entities";
+import { Plan, Shop, type PlanEntity, type ShearEntity } from "../../entities";
 import { conflict, invalidRequest, notFound } from "../api/errors";
 import { decodeCursor, page } from "../api/pagination";
 import { planBlanks, type Plan as PlannerResult } from "../planner/plan";
@@ -13,7 +13,7 @@ import type { PlanInputT, PlanT, WriteProgramsInputT } from "../schemas/plan";
 import { ProgramInput, type ProgramInputT, type ProgramT } from "../schemas/program";
 import { checkProgram, type LengthUnit } from "../shear";
 import { gradeByCode, gradeProfile, shearProfile } from "./catalog";
-import { createProgram } from "./programs";
+import { activeShear, createProgram } from "./programs";
 
 const MM_PER_UNIT: Record<LengthUnit, number> = { mm: 1, in: 25.4 };
 /** Grid steps tried, finest last: whole units, halves … 1/64 in, tenths, hundredths, thousandths. */
@@ -44,20 +44,11 @@ function gridFor(input: PlanInputT): number {
   ]);
 }
 
-async function activeShear(em: EntityManager, shopId: string, id: string): Promise<ShearEntity> {
-  const shear = await em.findOne(Shear, { id, shop: shopId });
-  if (!shear || shear.archivedAt) {
-    const message = shear ? "that shear is archived" : "no shear with that id in this shop";
-    throw invalidRequest(`The plan's shear cannot be used: ${message}.`, [{ location: "body", pointer: "/shear", message }]);
-  }
-  return shear;
-}
-
 const patternKey = (i: number): string => (i < 26 ? String.fromCharCode(65 + i) : `${patternKey(Math.floor(i / 26) - 1)}${String.fromCharCode(65 + (i % 26))}`);
 
 /** Plan without storing: the planner's answer in the caller's units, each pattern checked by the shear core. */
 export async function computePlan(em: EntityManager, shopId: string, input: PlanInputT): Promise<{ shear: ShearEntity; result: Omit<PlanT, "id" | "programs" | "createdAt"> }> {
-  const [shear, grade] = await Promise.all([activeShear(em, shopId, input.shear), gradeByCode(em, shopId, input.grade)]);
+  const [shear, grade] = await Promise.all([activeShear(em, shopId, input.shear, "plan"), gradeByCode(em, shopId, input.grade)]);
   const profile = shearProfile(shear);
   const gradeP = grade ? gradeProfile(grade) : null;
   const g = gridFor(input);

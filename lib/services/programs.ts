@@ -56,11 +56,12 @@ export function viewProgram(p: ProgramEntity): ProgramT {
   };
 }
 
-async function activeShear(em: EntityManager, shopId: string, id: string): Promise<ShearEntity> {
+/** The shear a program or plan names, if it is this shop's and not archived; else 422 pointing at `/shear`. */
+export async function activeShear(em: EntityManager, shopId: string, id: string, what = "program"): Promise<ShearEntity> {
   const shear = await em.findOne(Shear, { id, shop: shopId });
   if (!shear || shear.archivedAt) {
     const message = shear ? "that shear is archived" : "no shear with that id in this shop";
-    throw invalidRequest(`The program's shear cannot be used: ${message}.`, [{ location: "body", pointer: "/shear", message }]);
+    throw invalidRequest(`The ${what}'s shear cannot be used: ${message}.`, [{ location: "body", pointer: "/shear", message }]);
   }
   return shear;
 }

@@ -32,12 +32,6 @@ export async function enqueueAttempt(deliveryId: string, attempt: number, delayM
   await deliveryQueue().add("deliver", { deliveryId, attempt }, { jobId: `${deliveryId}-${attempt}`, delay: Math.max(0, delayMs) });
 }
 
-/** Queue the first attempt of many deliveries in one round trip. */
-export async function enqueueFirstAttempts(deliveryIds: string[]) {
-  if (!deliveryIds.length) return;
-  await deliveryQueue().addBulk(deliveryIds.map((deliveryId) => ({ name: "deliver", data: { deliveryId, attempt: 1 }, opts: { jobId: `${deliveryId}-1` } })));
-}
-
 export async function closeQueue() {
   const q = holder.__shearwireQueue;
   holder.__shearwireQueue = undefined;

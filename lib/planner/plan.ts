@@ -13,6 +13,7 @@
  */
 import { writePattern, type Leftover, type PlacedStrip, type PlanCut, type StripIn } from "./program";
 import { bestTwoStagePattern } from "./two-stage";
+import { REMNANT_TOLERANCE_MM } from "../shear/flow";
 
 export interface Blank {
   label: string;
@@ -285,7 +286,7 @@ interface Candidate {
 function present(stock: Stock[], vs: Variant[], o: PlanOptions): { ways: Presented[]; unusable: number[] } {
   const lim = o.limits ?? null;
   const trim = o.trim ?? 0;
-  const tol = 0.1 / (o.mmPerUnit ?? 1);
+  const tol = REMNANT_TOLERANCE_MM / (o.mmPerUnit ?? 1);
   const ways: Presented[] = [];
   const unusable: number[] = [];
   stock.forEach((s, i) => {
@@ -347,7 +348,7 @@ function exactPattern(p: Presented, cap: number[], tables: Tables): StripIn[] | 
 
 export function planBlanks(stock: Stock[], blanks: Blank[], options: PlanOptions = {}): Plan {
   const o = { objective: "fewest_sheets" as Objective, trim: 0, overProductionPct: 0, mmPerUnit: 1, ...options };
-  const tol = 0.1 / o.mmPerUnit; // the shear core's remnant tolerance, 0.1 mm, in grid units
+  const tol = REMNANT_TOLERANCE_MM / o.mmPerUnit; // the shear core's remnant tolerance, in grid units
   const vs = variants(blanks);
   const { ways, unusable } = present(stock, vs, o);
   const quantity = blanks.map((b) => Math.max(0, Math.floor(b.quantity)));
@@ -405,12 +406,11 @@ export function planBlanks(stock: Stock[], blanks: Blank[], options: PlanOptions
     }
     if (!candidates.length) break;
     const best = choose(candidates, o);
-    const need2 = left();
     let repeats = Infinity;
     let useful = 0;
     for (const [b, n] of best.uses) {
       repeats = Math.min(repeats, Math.floor(cap[b] / n));
-      if (need2[b] > 0) useful = Math.max(useful, Math.ceil(need2[b] / n));
+      if (need[b] > 0) useful = Math.max(useful, Math.ceil(need[b] / n));
     }
     repeats = Math.min(repeats, useful);
     const have = onHand[best.p.stock];

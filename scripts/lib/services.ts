@@ -175,11 +175,18 @@ export async function startPostgres(opts: PgOptions): Promise<"started" | "reuse
     );
   }
   log(`starting PostgreSQL on 127.0.0.1:${opts.port}`);
-  run(path.join(bin, "pg_ctl"), [
-    "-D", opts.dataDir, "-l", path.join(opts.dataDir, "server.log"), "-w", "-t", "60",
-    "-o", `-p ${opts.port} -c listen_addresses=127.0.0.1 -c unix_socket_directories='${opts.dataDir}'`,
-    "start",
-  ], { asPostgres: true });
+  const logFile = path.join(opts.dataDir, "server.log");
+  try {
+    run(path.join(bin, "pg_ctl"), [
+      "-D", opts.dataDir, "-l", logFile, "-w", "-t", "60",
+      "-o", `-p ${opts.port} -c listen_addresses=127.0.0.1 -c unix_socket_directories='${opts.dataDir}'`,
+      "start",
+    ], { asPostgres: true });
+  } catch (err) {
+    // pg_ctl only says "examine the log output": say what the server said.
+    const tail = existsSync(logFile) ? readFileSync(logFile, "utf8").trim().split("\n").slice(-12).join("\n") : "(no server log)";
+    throw new ServiceError(`${(err as Error).message}\nPostgreSQL's log (${logFile}), last lines:\n${tail}`);
+  }
   await ensureDatabase(opts);
   return "started";
 }

@@ -47,7 +47,7 @@ export interface PlanOptions {
   limits?: { bladeLength: number; backgaugeMin: number; backgaugeMax: number } | null;
   /** millimetres per grid unit, for the piece-flow check of each pattern (default 1) */
   mmPerUnit?: number;
-  /** how a grid length reads in the programs' notes (default: the number) */
+  /** how a grid length reads in the programs' notes and the reasons given (default: the number) */
   show?: (v: number) => string;
 }
 
@@ -312,13 +312,14 @@ function present(stock: Stock[], vs: Variant[], o: PlanOptions): { ways: Present
   return { ways, unusable };
 }
 
-function whyUnplaceable(b: Blank, stock: Stock[], o: PlanOptions): string {
+function whyUnplaceable(b: Blank, o: PlanOptions): string {
   const lim = o.limits;
-  const dims = `${b.length} × ${b.width}`;
+  const f = o.show ?? String;
+  const dims = `${f(b.length)} × ${f(b.width)}`;
   if (lim) {
     const gauged = [b.length, b.width].filter((d) => d >= lim.backgaugeMin && d <= lim.backgaugeMax);
-    if (!gauged.length) return `${dims}: neither edge is within the backgauge's travel (${lim.backgaugeMin} to ${lim.backgaugeMax})`;
-    if (Math.min(b.length, b.width) < lim.backgaugeMin) return `${dims}: ${Math.min(b.length, b.width)} is shorter than the backgauge's nearest setting (${lim.backgaugeMin})`;
+    if (!gauged.length) return `${dims}: neither edge is within the backgauge's travel (${f(lim.backgaugeMin)} to ${f(lim.backgaugeMax)})`;
+    if (Math.min(b.length, b.width) < lim.backgaugeMin) return `${dims}: ${f(Math.min(b.length, b.width))} is shorter than the backgauge's nearest setting (${f(lim.backgaugeMin)})`;
   }
   const turnNote = b.canTurn ? " even turned" : " (it may not be turned)";
   return `${dims} fits on none of the stock sheets within the shear's blade and backgauge${turnNote}`;
@@ -358,7 +359,7 @@ export function planBlanks(stock: Stock[], blanks: Blank[], options: PlanOptions
   const unplaced: Unplaced[] = [];
   const placeable = blanks.map((_, i) => ways.some((w) => w.vs.some((v) => v.blank === i)));
   blanks.forEach((b, i) => {
-    if (!placeable[i] && quantity[i] > 0) unplaced.push({ blank: i, quantity: quantity[i], kind: "unplaceable", reason: whyUnplaceable(b, stock, o) });
+    if (!placeable[i] && quantity[i] > 0) unplaced.push({ blank: i, quantity: quantity[i], kind: "unplaceable", reason: whyUnplaceable(b, o) });
   });
   const left = () => quantity.map((q, i) => (placeable[i] ? Math.max(0, q - produced[i]) : 0));
   const patterns: SheetPattern[] = [];

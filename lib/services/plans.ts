@@ -73,7 +73,7 @@ export async function computePlan(em: EntityManager, shopId: string, input: Plan
         backgaugeMax: Math.floor((profile.backgaugeMaxMm / unitMm) * g + 1e-9),
       },
       mmPerUnit: unitMm / g,
-      show: (v) => `${fromGrid(v)}`,
+      show: (v) => `${fromGrid(v)} ${input.units}`,
     },
   );
 
@@ -132,7 +132,7 @@ export async function computePlan(em: EntityManager, shopId: string, input: Plan
       pointer: `/blanks/${u.blank}`,
       actual: u.quantity,
       message: u.kind === "unplaceable"
-        ? `"${input.blanks[u.blank].label}": ${u.quantity} not planned. ${u.reason.replace(/\d+(?:\.\d+)?/g, (n) => String(fromGrid(Number(n))))}.`
+        ? `"${input.blanks[u.blank].label}": ${u.quantity} not planned. ${u.reason}.`
         : `"${input.blanks[u.blank].label}": ${u.quantity} not planned: not enough stock on hand.`,
     });
   }

@@ -3,7 +3,7 @@
  * demand they meet, and the cut programs they become, out. One schema validates requests,
  * types the service and documents the API.
  */
-import { Check, CutGroupInput, Finding, Program, Thickness } from "./program";
+import { Check, CutGroupInput, Finding, jobFields, Program, Thickness } from "./program";
 import { PLAN_OBJECTIVES } from "./enums";
 import { z } from "./zod";
 
@@ -51,10 +51,8 @@ const PlanShape = z
   .object({
     reference: z.string().trim().min(1).max(80).optional().openapi({ description: "Your reference; the programs written from the plan are named `<reference>/A`, `/B`, …", example: "WK49-A36-10GA" }),
     title: z.string().max(200).optional(),
-    shear: z.string().min(1).max(64).openapi({ description: "The shear's id", example: "shr_01JEXAMPLE0000000000000000" }),
-    grade: z.string().trim().min(1).max(50).openapi({ example: "A36" }),
-    thickness: Thickness,
-    units: z.enum(["in", "mm"]),
+    ...jobFields(),
+    units: z.enum(["in", "mm"]).openapi({ description: "Units of every length in this plan" }),
     stock: z.array(StockInput).min(1).max(20),
     blanks: z.array(BlankInput).min(1).max(200),
     options: PlanOptionsInput.optional(),

@@ -42,12 +42,17 @@ export const Thickness = z
   ])
   .openapi("Thickness", { description: '`{ "value": n }` in the program\'s units, or `{ "gauge": n }` in the grade\'s gauge system.' });
 
-const programFields = {
-  reference: z.string().trim().min(1).max(100).openapi({ description: "Your order reference; unique per shop", example: "SO-2291/4" }),
-  title: z.string().max(200).optional(),
+/** What a program or a plan is cut on and from: the shear, the grade and its thickness. */
+export const jobFields = () => ({
   shear: z.string().min(1).max(64).openapi({ description: "The shear's id", example: "shr_01JEXAMPLE0000000000000000" }),
   grade: z.string().trim().min(1).max(50).openapi({ description: "The grade's code in your catalog", example: "A36" }),
   thickness: Thickness,
+});
+
+const programFields = {
+  reference: z.string().trim().min(1).max(100).openapi({ description: "Your order reference; unique per shop", example: "SO-2291/4" }),
+  title: z.string().max(200).optional(),
+  ...jobFields(),
   units: z.enum(["in", "mm"]).openapi({ description: "Units of every length in this program" }),
   sheet: z
     .object({

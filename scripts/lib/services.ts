@@ -15,6 +15,10 @@ import { createHash } from "node:crypto";
 
 export class ServiceError extends Error {}
 
+/** How long to wait, and in what steps, for a port held by a closing connection (TIME_WAIT lasts up to 60 s). */
+const PORT_WAIT_MAX_MS = 75_000;
+const PORT_WAIT_STEP_MS = 2_000;
+
 const isRoot = () => typeof process.getuid === "function" && process.getuid() === 0;
 
 function log(message: string) {
@@ -176,16 +180,27 @@ export async function startPostgres(opts: PgOptions): Promise<"started" | "reuse
   }
   log(`starting PostgreSQL on 127.0.0.1:${opts.port}`);
   const logFile = path.join(opts.dataDir, "server.log");
-  try {
-    run(path.join(bin, "pg_ctl"), [
-      "-D", opts.dataDir, "-l", logFile, "-w", "-t", "60",
-      "-o", `-p ${opts.port} -c listen_addresses=127.0.0.1 -c unix_socket_directories='${opts.dataDir}'`,
-      "start",
-    ], { asPostgres: true });
-  } catch (err) {
-    // pg_ctl only says "examine the log output": say what the server said.
-    const tail = existsSync(logFile) ? readFileSync(logFile, "utf8").trim().split("\n").slice(-12).join("\n") : "(no server log)";
-    throw new ServiceError(`${(err as Error).message}\nPostgreSQL's log (${logFile}), last lines:\n${tail}`);
+  const logTail = () => (existsSync(logFile) ? readFileSync(logFile, "utf8").trim().split("\n").slice(-12).join("\n") : "(no server log)");
+  // A closed connection that used this port as its own (client) port keeps it for up to a minute
+  // (TIME_WAIT): nothing listens, yet the server cannot bind. Wait it out, as PostgreSQL's hint says.
+  for (let waited = 0; ; waited += PORT_WAIT_STEP_MS) {
+    try {
+      run(path.join(bin, "pg_ctl"), [
+        "-D", opts.dataDir, "-l", logFile, "-w", "-t", "60",
+        "-o", `-p ${opts.port} -c listen_addresses=127.0.0.1 -c unix_socket_directories='${opts.dataDir}'`,
+        "start",
+      ], { asPostgres: true });
+      break;
+    } catch (err) {
+      const tail = logTail();
+      if (/Address already in use/.test(tail.split("\n").slice(-6).join("\n")) && waited < PORT_WAIT_MAX_MS) {
+        if (waited === 0) log(`port ${opts.port} is still held by a closing connection; waiting for it (up to ${PORT_WAIT_MAX_MS / 1000} s)`);
+        await new Promise((r) => setTimeout(r, PORT_WAIT_STEP_MS));
+        continue;
+      }
+      // pg_ctl only says "examine the log output": say what the server said.
+      throw new ServiceError(`${(err as Error).message}\nPostgreSQL's log (${logFile}), last lines:\n${tail}`);
+    }
   }
   await ensureDatabase(opts);
   return "started";
@@ -248,17 +263,27 @@ export async function startRedis(opts: RedisOptions): Promise<"started" | "reuse
     );
   }
   log(`starting Redis on 127.0.0.1:${opts.port}`);
-  run(server, [
-    "--port", String(opts.port), "--bind", "127.0.0.1", "--protected-mode", "yes",
-    "--dir", opts.dataDir, "--daemonize", "yes",
-    "--pidfile", path.join(opts.dataDir, "redis.pid"), "--logfile", path.join(opts.dataDir, "redis.log"),
-    "--save", "60 1", "--appendonly", "no", "--maxmemory-policy", "noeviction",
-  ]);
-  for (let i = 0; i < 100; i++) {
-    if (redisRunning(opts) && (await portInUse(opts.port))) return "started";
-    await new Promise((r) => setTimeout(r, 100));
+  const logFile = path.join(opts.dataDir, "redis.log");
+  for (let waited = 0; ; waited += PORT_WAIT_STEP_MS) {
+    const logged = existsSync(logFile) ? readFileSync(logFile, "utf8").length : 0;
+    run(server, [
+      "--port", String(opts.port), "--bind", "127.0.0.1", "--protected-mode", "yes",
+      "--dir", opts.dataDir, "--daemonize", "yes",
+      "--pidfile", path.join(opts.dataDir, "redis.pid"), "--logfile", logFile,
+      "--save", "60 1", "--appendonly", "no", "--maxmemory-policy", "noeviction",
+    ]);
+    for (let i = 0; i < 100; i++) {
+      if (redisRunning(opts) && (await portInUse(opts.port))) return "started";
+      if (i > 5 && !redisRunning(opts)) break; // it exited
+      await new Promise((r) => setTimeout(r, 100));
+    }
+    // The same wait as PostgreSQL's for a port still held by a closing connection.
+    const said = existsSync(logFile) ? readFileSync(logFile, "utf8").slice(logged) : "";
+    if (!/Address already in use/.test(said) || waited >= PORT_WAIT_MAX_MS) break;
+    if (waited === 0) log(`port ${opts.port} is still held by a closing connection; waiting for it (up to ${PORT_WAIT_MAX_MS / 1000} s)`);
+    await new Promise((r) => setTimeout(r, PORT_WAIT_STEP_MS));
   }
-  throw new ServiceError(`Redis did not start; see ${path.join(opts.dataDir, "redis.log")}`);
+  throw new ServiceError(`Redis did not start; see ${logFile}`);
 }
 
 export async function stopRedis(opts: RedisOptions): Promise<"stopped" | "not running"> {

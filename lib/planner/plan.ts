@@ -140,8 +140,10 @@ interface Presented {
   usable: number;
   /** variants that fit this way round within the shear's limits */
   vs: Variant[];
-  /** tallest strip the shear can crosscut and gauge */
+  /** tallest strip the shear can crosscut */
   maxHeight: number;
+  /** the backgauge's reach: a piece trimmed to width by a third cut is gauged at its width */
+  gaugeMax: number;
 }
 
 /**
@@ -252,7 +254,7 @@ function buildStrips(p: Presented, cap: number[], rule: Rule, exact: boolean, to
     let best: { height: number; pieces: Variant[]; area: number } | null = null;
     for (const h of heights) {
       // A piece narrower than its strip is trimmed by one more cut; its offcut must not be a piece itself.
-      const fits = (v: Variant) => v.tall === h || (!exact && v.tall < h - tol && Math.abs(h - 2 * v.tall) > tol);
+      const fits = (v: Variant) => v.tall === h || (!exact && v.tall < h - tol && v.tall <= p.gaugeMax && Math.abs(h - 2 * v.tall) > tol);
       const pieces = fillStrip(p.length, h, open.filter(fits), () => p.vs.filter(fits), want, tables, setKey);
       const a = pieces.reduce((s, v) => s + v.along * v.tall, 0);
       const better = !best || (rule === "density" ? a / h > best.area / best.height : a > best.area);
@@ -299,13 +301,15 @@ function present(stock: Stock[], vs: Variant[], o: PlanOptions): { ways: Present
       if (lim && length > lim.bladeLength) continue;
       if (width - trim <= tol) continue;
       any = true;
-      const maxHeight = Math.min(width - trim, lim ? Math.min(lim.bladeLength, lim.backgaugeMax) : Infinity);
+      // A strip taller than the backgauge reaches can still be the sheet's last (its remnant), and a piece
+      // longer than that the last of its strip: the program writer places them so, or gives them up.
+      const maxHeight = Math.min(width - trim, lim ? lim.bladeLength : Infinity);
       // Grain follows the sheet: on a sheet presented the other way round, every blank is presented the other way round too.
       const these = rotated ? vs.map((v) => ({ ...v, along: v.tall, tall: v.along })) : vs;
       const fits = these.filter(
-        (v) => v.along <= length && v.tall <= maxHeight && (!lim || (v.along >= lim.backgaugeMin && v.along <= lim.backgaugeMax && v.tall >= lim.backgaugeMin)),
+        (v) => v.along <= length && v.tall <= maxHeight && (!lim || (v.along >= lim.backgaugeMin && v.tall >= lim.backgaugeMin)),
       );
-      ways.push({ stock: i, rotated, length, width, usable: width - trim, vs: fits, maxHeight });
+      ways.push({ stock: i, rotated, length, width, usable: width - trim, vs: fits, maxHeight, gaugeMax: lim ? lim.backgaugeMax : Infinity });
     }
     if (!any) unusable.push(i);
   });
@@ -316,13 +320,9 @@ function whyUnplaceable(b: Blank, o: PlanOptions): string {
   const lim = o.limits;
   const f = o.show ?? String;
   const dims = `${f(b.length)} × ${f(b.width)}`;
-  if (lim) {
-    const gauged = [b.length, b.width].filter((d) => d >= lim.backgaugeMin && d <= lim.backgaugeMax);
-    if (!gauged.length) return `${dims}: neither edge is within the backgauge's travel (${f(lim.backgaugeMin)} to ${f(lim.backgaugeMax)})`;
-    if (Math.min(b.length, b.width) < lim.backgaugeMin) return `${dims}: ${f(Math.min(b.length, b.width))} is shorter than the backgauge's nearest setting (${f(lim.backgaugeMin)})`;
-  }
+  if (lim && Math.min(b.length, b.width) < lim.backgaugeMin) return `${dims}: ${f(Math.min(b.length, b.width))} is narrower than the backgauge's nearest setting (${f(lim.backgaugeMin)})`;
   const turnNote = b.canTurn ? " even turned" : " (it may not be turned)";
-  return `${dims} fits on none of the stock sheets within the shear's blade and backgauge${turnNote}`;
+  return `${dims} fits on none of the stock sheets within the shear's blade${turnNote}`;
 }
 
 /**
@@ -438,7 +438,13 @@ export function planBlanks(stock: Stock[], blanks: Blank[], options: PlanOptions
     });
   }
   left().forEach((n, i) => {
-    if (n > 0) unplaced.push({ blank: i, quantity: n, kind: "stock_short", reason: "not enough stock on hand" });
+    if (n <= 0) return;
+    // Short of stock, or can the shear not cut even one of it from any sheet (a strip or piece its
+    // backgauge cannot reach, with no spare to take off first)?
+    const alone = ways.some((p) => p.vs.some((v) => v.blank === i && writePattern({ length: p.length, width: p.width }, o.trim, [{ height: v.tall, pieces: [{ blank: i, along: v.along, tall: v.tall, turned: v.turned }] }], o.mmPerUnit, gauge) !== null));
+    unplaced.push(alone
+      ? { blank: i, quantity: n, kind: "stock_short", reason: "not enough stock on hand" }
+      : { blank: i, quantity: n, kind: "unplaceable", reason: `${(o.show ?? String)(blanks[i].length)} × ${(o.show ?? String)(blanks[i].width)} cannot be cut from any of the stock sheets within the backgauge's travel` });
   });
   let usedArea = 0;
   let stockArea = 0;

@@ -98,7 +98,7 @@ function kindsOf(strips: StripIn[]): Kind[] {
  * fill the workpiece exactly (then it is the last piece, named without a stroke). Depth-first,
  * preferring the given order; null when no order works within the search budget.
  */
-export function arrange<T extends { size: number; count: number }>(items: T[], total: number, tol: number): T[] | null {
+export function arrange<T extends { size: number; count: number }>(items: T[], total: number, tol: number, maxGauge = Infinity): T[] | null {
   const used = items.reduce((s, it) => s + it.size * it.count, 0);
   const exact = total - used <= tol;
   let budget = 5000;
@@ -117,6 +117,8 @@ export function arrange<T extends { size: number; count: number }>(items: T[], t
       const last = order.length === items.length - 1;
       const after = left - it.size * it.count;
       if (!(last && exact) && Math.abs(after - it.size) <= tol) continue;
+      // Beyond the backgauge's reach only as the last piece, named as the remnant without a stroke.
+      if (it.size > maxGauge && !(last && exact && it.count === 1)) continue;
       taken[i] = true;
       order.push(it);
       if (go(after)) return true;
@@ -229,7 +231,7 @@ function arrangeWithLead<T extends { size: number; count: number }>(items: T[], 
   for (const extra of leads(total - fixedLead - used, fixedLead, gauge, tol)) {
     const lead = fixedLead + extra;
     if (lead > 0 && Math.abs(total - lead - lead) <= tol) continue; // the rest would become lead-off too
-    const order = arrange(items, total - lead, tol);
+    const order = arrange(items, total - lead, tol, gauge.max);
     if (order) return { order, lead };
   }
   return null;
@@ -269,6 +271,8 @@ export function writePattern(
   }
   for (const layout of layouts) {
     const written = emit(sheet, trim, layout, tol, show);
+    // Every stroke is gauged within the travel (a trim the caller asked for is theirs, and reported).
+    if (written.cuts.some((c, i) => c.count > 0 && c.backgauge > gauge.max && !(i === 0 && c.scrap && c.backgauge === trim))) continue;
     const mm = (v: number) => v * mmPerUnit;
     const flowCuts: FlowCut[] = written.cuts.map((c) => ({ backgaugeMm: mm(c.backgauge), count: c.count, lengthMm: null, turn: c.turn === true, from: c.from ?? null, scrap: c.scrap === true }));
     const flow = simulateFlow({ lengthMm: mm(sheet.length), widthMm: mm(sheet.width) }, flowCuts);

@@ -185,7 +185,8 @@ export function checkGroups(c: FlowCheckInput): Finding[] {
     if (c.skip[i]) continue;
     const cut = c.cuts[i];
     const at = `/cuts/${i}`;
-    if (c.shear) out.push(...checkBackgaugeTravel(cut, i, c.shear, u));
+    // A group of 0 strokes only names the remnant as its piece: the backgauge is not set for it.
+    if (c.shear && cut.count > 0) out.push(...checkBackgaugeTravel(cut, i, c.shear, u));
     if (cut.count === 0 && g.pieces.length === 0) {
       out.push(finding("group_cuts_nothing", `${at}/count`, `${capital(groupName(i))} has nothing to cut: its count is 0.`, null, 0, "strokes"));
       continue;

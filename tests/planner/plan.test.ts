@@ -100,15 +100,17 @@ describe("planning blanks onto sheets", () => {
     expect(plan.patterns[0].offcuts.find((o) => o.kind === "trim")).toMatchObject({ y: 0, width: 1, reusable: false });
   });
 
-  it("keeps within the shear: presents a sheet the other way round when it is longer than the blade, and reports blanks beyond the backgauge", () => {
+  it("keeps within the shear: presents a sheet the other way round when it is longer than the blade; a piece beyond the backgauge's reach only as a remnant", () => {
     const stock: Stock[] = [{ length: 3000, width: 1500, count: null }];
     const blanks: Blank[] = [{ label: "a", length: 500, width: 400, quantity: 10, canTurn: true }, { label: "long", length: 1400, width: 1200, quantity: 1, canTurn: true }];
     const limits = { bladeLength: 2500, backgaugeMin: 10, backgaugeMax: 1000 };
     const plan = planBlanks(stock, blanks, { limits });
     checkPlan(plan, stock, blanks);
     expect(plan.patterns.every((p) => p.rotated && p.length === 1500)).toBe(true); // 3000 > 2500 blade: the 1500 edge goes to the blade
-    for (const p of plan.patterns) for (const c of p.cuts) expect(c.backgauge).toBeLessThanOrEqual(1000);
-    expect(plan.unplaced).toEqual([{ blank: 1, quantity: 1, kind: "unplaceable", reason: expect.stringMatching(/backgauge/) }]);
+    expect(plan.unplaced).toEqual([]); // the 1400 × 1200 blank: both edges beyond the 1000 backgauge, cut as what is left
+    for (const p of plan.patterns) for (const c of p.cuts) if (c.count > 0) expect(c.backgauge).toBeLessThanOrEqual(1000);
+    const narrow = planBlanks(stock, [{ label: "wire", length: 500, width: 5, quantity: 2 }], { limits });
+    expect(narrow.unplaced).toEqual([{ blank: 0, quantity: 2, kind: "unplaceable", reason: expect.stringMatching(/narrower than the backgauge's nearest setting/) }]);
     const none = planBlanks([{ length: 3000, width: 2600, count: null }], blanks, { limits });
     expect(none.unusableStock).toEqual([0]);
     expect(none.unplaced.map((u) => u.kind)).toEqual(["unplaceable", "unplaceable"]);
@@ -221,6 +223,7 @@ describe("planning blanks onto sheets", () => {
         if (o.limits) for (const p of plan.patterns) {
           expect(p.length).toBeLessThanOrEqual(o.limits.bladeLength);
           for (const c of p.cuts) {
+            if (c.count === 0) continue; // names the remnant: no stroke, the backgauge is not set
             expect(c.backgauge).toBeLessThanOrEqual(o.limits.backgaugeMax);
             if (!(c.scrap && c.backgauge === o.trim)) expect(c.backgauge).toBeGreaterThanOrEqual(o.limits.backgaugeMin); // the trim is the caller's
           }

@@ -68,7 +68,7 @@ export default async function PlanPage({ params }: { params: Promise<{ id: strin
               <section key={p.key} data-testid={`pattern-${p.key}`}>
                 <h2 className="mb-2 flex flex-wrap items-baseline gap-2 text-sm font-semibold">
                   Pattern {p.key} · {p.repeats} sheet{p.repeats === 1 ? "" : "s"} of {plan.stock[p.stock].length} × {plan.stock[p.stock].width} {u}
-                  <span className="font-normal text-ink-muted">{p.rotated ? "width to the blade · " : ""}{p.utilisationPct} % used · {p.strokes} strokes, {p.turns} turns per sheet</span>
+                  <span className="font-normal text-ink-muted">{p.rotated ? "width to the blade · " : ""}{p.utilisationPct} % used · {p.strokes} stroke{p.strokes === 1 ? "" : "s"}, {p.turns} turn{p.turns === 1 ? "" : "s"} per sheet</span>
                   <Badge value={p.check.validation} label={`check: ${p.check.validation}`} />
                   {programId && <Link href={`/console/programs/${programId}`} className="font-normal text-edge hover:underline">program →</Link>}
                 </h2>

@@ -43,8 +43,8 @@ export class ApiError extends Error {
 
 export const badRequest = (detail: string, ext?: Record<string, unknown>) =>
   new ApiError(400, "bad-request", "The request is malformed", detail, ext);
-export const invalidRequest = (detail: string, errors: { location: string; pointer: string; message: string }[]) =>
-  new ApiError(422, "invalid-request", "The request does not match the schema", detail, { errors });
+export const invalidRequest = (detail: string, errors: { location: string; pointer: string; message: string }[], ext: Record<string, unknown> = {}) =>
+  new ApiError(422, "invalid-request", "The request does not match the schema", detail, { errors, ...ext });
 export const unauthorized = (detail: string) =>
   new ApiError(401, "unauthorized", "Authentication required", detail, {}, { "WWW-Authenticate": 'Bearer realm="shearwire"' });
 export const forbidden = (detail: string, ext?: Record<string, unknown>) =>

@@ -49,6 +49,15 @@ export interface PlanOptions {
   mmPerUnit?: number;
   /** how a grid length reads in the programs' notes and the reasons given (default: the number) */
   show?: (v: number) => string;
+  /** told after every sheet pattern is chosen (for a progress report; must not change anything) */
+  onProgress?: (progress: PlanProgress) => void;
+}
+
+/** How far a plan has come: sheet patterns chosen and the pieces they place, of those wanted. */
+export interface PlanProgress {
+  patterns: number;
+  piecesPlaced: number;
+  piecesWanted: number;
 }
 
 /** "fewest_strokes" takes the patterns with fewest strokes and turns per blank among those within this much utilisation of the fullest. */
@@ -435,6 +444,11 @@ export function planBlanks(stock: Stock[], blanks: Blank[], options: PlanOptions
       strokes: best.strokes,
       turns: best.turns,
       utilisation: best.blanksArea / (best.p.length * best.p.width),
+    });
+    o.onProgress?.({
+      patterns: patterns.length,
+      piecesPlaced: produced.reduce((s, n, i) => s + Math.min(n, quantity[i]), 0),
+      piecesWanted: quantity.reduce((s, q, i) => s + (placeable[i] ? q : 0), 0),
     });
   }
   left().forEach((n, i) => {

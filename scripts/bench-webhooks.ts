@@ -10,12 +10,13 @@ import type { AddressInfo } from "node:net";
 import { createProgram } from "../lib/services/programs";
 import { createEndpoint } from "../lib/services/webhooks";
 import { benchDatabase } from "./lib/bench-setup";
+import { LOOPBACK_ONLY } from "../lib/network";
 import { appEnv } from "./lib/env";
 import { daemon, startWorker, stopDaemon } from "./lib/web";
 
 const ENDPOINTS = 10;
 
-process.env.SHEARWIRE_ALLOW_PRIVATE_WEBHOOKS = "1"; // the receivers are on loopback
+process.env.SHEARWIRE_PRIVATE_RECEIVERS = LOOPBACK_ONLY; // the receivers are on loopback
 const { profile, url, orm, shopId, shearId } = await benchDatabase("shearwire_bench_hooks");
 
 const latencies: number[] = [];
@@ -39,7 +40,7 @@ const servers = await Promise.all(
   })),
 );
 for (const s of servers) {
-  await createEndpoint(orm.em.fork(), shopId, { url: `http://127.0.0.1:${(s.address() as AddressInfo).port}/`, eventTypes: ["program.created"] });
+  await createEndpoint(orm.em.fork(), shopId, { url: `http://localhost:${(s.address() as AddressInfo).port}/`, eventTypes: ["program.created"] });
 }
 
 const worker = daemon(profile.dataRoot, "worker-bench");
@@ -49,7 +50,7 @@ if (process.env.BENCH_EXTERNAL_WORKER === "1") {
   console.log(`external worker: DATABASE_URL=${url} REDIS_URL=${appEnv(profile, 3212).REDIS_URL}; starting in 10 s`);
   await new Promise((r) => setTimeout(r, 10_000));
 } else {
-  startWorker(worker, { ...appEnv(profile, 3212), DATABASE_URL: url, SHEARWIRE_ALLOW_PRIVATE_WEBHOOKS: "1" });
+  startWorker(worker, { ...appEnv(profile, 3212), DATABASE_URL: url, SHEARWIRE_PRIVATE_RECEIVERS: LOOPBACK_ONLY });
   await new Promise((r) => setTimeout(r, 3000)); // let the worker connect
 }
 

@@ -2,7 +2,7 @@
  * A sample webhook receiver: verifies each delivery's Standard Webhooks signature, skips
  * webhook-ids it has seen (delivery is at least once), and prints the events.
  *   npm run webhook:listen -- --port 4000 --secret whsec_…
- * Register http://127.0.0.1:4000/ as an endpoint (the local install allows loopback receivers).
+ * Register http://localhost:4000/ as an endpoint (the local install allows receivers on this machine).
  */
 import http from "node:http";
 import { parseArgs } from "node:util";

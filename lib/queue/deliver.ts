@@ -10,7 +10,7 @@ import type { EntityManager } from "@mikro-orm/postgresql";
 import { Webhook } from "svix";
 import { Delivery, DeliveryAttempt, type DeliveryEntity, type WebhookEndpointEntity } from "../../entities";
 import { newId } from "../ids";
-import { resolveReceiver } from "./ssrf";
+import { pinnedLookup, resolveReceiver, type CheckedAddress } from "../network";
 import { delayBefore, disableAfter, MAX_ATTEMPTS, retryAfterMs } from "./schedule";
 
 export const TIMEOUT_MS = 15_000;
@@ -51,10 +51,10 @@ export async function post(urlText: string, body: string, headers: Record<string
   const started = performance.now();
   const done = (r: Omit<HttpResult, "latencyMs">): HttpResult => ({ ...r, latencyMs: Math.round((performance.now() - started) * 10) / 10 });
   let url: URL;
-  let target: { address: string; family: 4 | 6 };
+  let targets: CheckedAddress[];
   try {
     url = new URL(urlText);
-    target = await resolveReceiver(url);
+    targets = await resolveReceiver(url);
   } catch (err) {
     return done({ status: null, headers: {}, excerpt: null, error: (err as Error).message });
   }
@@ -64,7 +64,7 @@ export async function post(urlText: string, body: string, headers: Record<string
     const req = client.request(url, {
       method: "POST",
       headers: { ...headers, "content-type": "application/json", "content-length": Buffer.byteLength(body), "user-agent": USER_AGENT },
-      lookup: (_host, _opts, cb) => (cb as (e: null, a: string, f: number) => void)(null, target.address, target.family),
+      lookup: pinnedLookup(targets) as unknown as http.RequestOptions["lookup"],
       timeout: TIMEOUT_MS,
       agent: secure ? agents.https : agents.http,
     });

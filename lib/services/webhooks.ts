@@ -4,12 +4,11 @@
  */
 import { randomBytes } from "node:crypto";
 import type { EntityManager } from "@mikro-orm/postgresql";
-import ipaddr from "ipaddr.js";
 import { Delivery, DeliveryAttempt, Event, Shop, WebhookEndpoint, type DeliveryEntity, type EventEntity, type WebhookEndpointEntity } from "../../entities";
 import { conflict, invalidRequest, notFound } from "../api/errors";
 import { decodeCursor, page } from "../api/pagination";
 import { enqueueAttempt } from "../queue/queue";
-import { isPublicAddress, privateReceiversAllowed } from "../queue/ssrf";
+import { literalRefusal } from "../network";
 import type { DeliveryT, EndpointT } from "../schemas/webhook";
 import type { EventType } from "./event-types";
 import { recordEvent } from "./events";
@@ -30,13 +29,9 @@ export function viewEndpoint(e: WebhookEndpointEntity, now = new Date()): Endpoi
 }
 
 /** Refuse, at once, a literal address this install will never send to (names are checked at send time). */
-function checkUrl(url: string) {
-  const host = new URL(url).hostname.replace(/^\[|\]$/g, "");
-  const literal = ipaddr.isValid(host) ? host : host === "localhost" ? "127.0.0.1" : null;
-  if (literal && !privateReceiversAllowed() && !isPublicAddress(literal)) {
-    const message = "loopback, private and link-local receivers are not allowed on this install";
-    throw invalidRequest(`The URL cannot be used: ${message}.`, [{ location: "body", pointer: "/url", message }]);
-  }
+export function checkUrl(url: string) {
+  const why = literalRefusal(new URL(url));
+  if (why) throw invalidRequest(`The URL cannot be used: ${why}.`, [{ location: "body", pointer: "/url", message: why }]);
 }
 
 export async function findEndpoint(em: EntityManager, shopId: string, id: string) {

@@ -1,6 +1,7 @@
 import { randomBytes } from "node:crypto";
 import { existsSync, mkdirSync, readFileSync, writeFileSync } from "node:fs";
 import path from "node:path";
+import { LOOPBACK_ONLY } from "../../lib/network";
 import { databaseUrl, redisUrl, type Profile } from "./services";
 
 /** A secret generated once per data folder and kept there (never committed). */
@@ -26,7 +27,7 @@ export function appEnv(profile: Profile, port: number): NodeJS.ProcessEnv {
     NEXTAUTH_SECRET: process.env.NEXTAUTH_SECRET ?? persistentSecret(profile.dataRoot, "nextauth"),
     SHEARWIRE_BASE_URL: process.env.SHEARWIRE_BASE_URL ?? baseUrl,
     SMTP_URL: process.env.SMTP_URL ?? `smtp://127.0.0.1:${profile.mail.smtpPort}`,
-    // A local install is on-premises: the shop's ERP usually sits on its own LAN.
-    SHEARWIRE_ALLOW_PRIVATE_WEBHOOKS: process.env.SHEARWIRE_ALLOW_PRIVATE_WEBHOOKS ?? "1",
+    // A local install may send webhooks to receivers on this machine only; a shop adds its ERP's LAN address here.
+    SHEARWIRE_PRIVATE_RECEIVERS: process.env.SHEARWIRE_PRIVATE_RECEIVERS ?? LOOPBACK_ONLY,
   };
 }

@@ -11,7 +11,7 @@ describe("npm run webhook:listen", () => {
     const shop = await createTestShop("listen");
     const auth = { Authorization: `Bearer ${shop.key}` };
     const port = 4711;
-    const created = await request(BASE_URL).post("/api/v1/webhook-endpoints").set(auth).send({ url: `http://127.0.0.1:${port}/` }).expect(201);
+    const created = await request(BASE_URL).post("/api/v1/webhook-endpoints").set(auth).send({ url: `http://localhost:${port}/` }).expect(201);
     const child = spawn("node_modules/.bin/tsx", ["scripts/webhook-listen.ts", "--port", String(port), "--secret", created.body.secret], { stdio: ["ignore", "pipe", "pipe"] });
     let out = "";
     child.stdout.on("data", (d) => (out += d));

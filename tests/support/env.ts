@@ -1,4 +1,5 @@
 /** Where the test suite's own services and server live (see scripts/lib/services.ts testProfile). */
+import { LOOPBACK_ONLY } from "../../lib/network";
 import { appEnv } from "../../scripts/lib/env";
 import { databaseUrl, redisUrl, testProfile } from "../../scripts/lib/services";
 
@@ -19,7 +20,7 @@ export function testAppEnv(databaseUrlOverride = DATABASE_URL): NodeJS.ProcessEn
     DATABASE_URL: databaseUrlOverride,
     SHEARWIRE_WEBHOOK_TIME_SCALE: "0.001",
     SHEARWIRE_WEBHOOK_DISABLE_AFTER: "3",
-    SHEARWIRE_ALLOW_PRIVATE_WEBHOOKS: "1",
+    SHEARWIRE_PRIVATE_RECEIVERS: LOOPBACK_ONLY,
     SHEARWIRE_QUIET: "1",
   };
 }

@@ -48,6 +48,7 @@ export async function startReceiver(respond: Responder = () => ({ status: 204 })
     });
   });
   await new Promise<void>((resolve) => server.listen(0, "127.0.0.1", resolve));
-  r.url = `http://127.0.0.1:${(server.address() as AddressInfo).port}/hook`;
+  // Receivers are named by host name, as an ERP's always are (the address is checked after DNS).
+  r.url = `http://localhost:${(server.address() as AddressInfo).port}/hook`;
   return r;
 }

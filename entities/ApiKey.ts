@@ -18,7 +18,7 @@ export const ApiKey = defineEntity({
   properties: {
     id: p.string().primary().onCreate(() => newId("apiKey")),
     shop: () => p.manyToOne(Shop).deleteRule("cascade"),
-    name: p.string(),
+    name: p.text(),
     /** the first characters of the secret, safe to show (e.g. "swk_live_7KQ2") */
     prefix: p.string(),
     /** hex SHA-256 of the whole secret */

@@ -17,11 +17,11 @@ export const Grade = defineEntity({
     id: p.string().primary().onCreate(() => newId("grade")),
     shop: () => p.manyToOne(Shop).deleteRule("cascade"),
     /** the code programs refer to, e.g. "A36" */
-    code: p.string(),
-    name: p.string(),
+    code: p.text(),
+    name: p.text(),
     family: p.enum([...GRADE_FAMILIES]),
     /** the standard the values come from, or a note that they are typical */
-    standard: p.string(),
+    standard: p.text(),
     yieldMpa: measure().nullable(),
     tensileMinMpa: measure().nullable(),
     tensileTypicalMpa: measure().nullable(),

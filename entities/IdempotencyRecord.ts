@@ -13,7 +13,7 @@ export const IdempotencyRecord = defineEntity({
     keyId: p.string().primary(),
     idempotencyKey: p.string().primary(),
     method: p.string(),
-    path: p.string(),
+    path: p.text(),
     /** SHA-256 of method, path and body: the same key with another request is refused */
     fingerprint: p.string(),
     responseStatus: p.integer().nullable(),

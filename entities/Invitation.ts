@@ -10,7 +10,7 @@ export const Invitation = defineEntity({
   properties: {
     id: p.string().primary().onCreate(() => newId("invitation")),
     shop: () => p.manyToOne(Shop).deleteRule("cascade"),
-    email: p.string(),
+    email: p.text(),
     role: p.enum([...ROLES]),
     /** SHA-256 of the token in the link */
     tokenHash: p.string().unique(),

@@ -17,8 +17,8 @@ export const Plan = defineEntity({
     id: p.string().primary().onCreate(() => newId("plan")),
     shop: () => p.manyToOne(Shop).deleteRule("cascade"),
     shear: () => p.manyToOne(Shear).deleteRule("restrict"),
-    reference: p.string().nullable(),
-    title: p.string().nullable(),
+    reference: p.text().nullable(),
+    title: p.text().nullable(),
     /** complete | partial */
     status: p.string(),
     input: p.json<Record<string, unknown>>(),

@@ -12,12 +12,12 @@ export const RequestLog = defineEntity({
     keyId: p.string().nullable(),
     method: p.string(),
     /** the route template, e.g. /api/v1/programs/{id} */
-    route: p.string(),
+    route: p.text(),
     /** the path as called, without the query string */
-    path: p.string(),
+    path: p.text(),
     status: p.integer(),
     latencyMs: p.float().columnType("double precision"),
-    idempotencyKey: p.string().nullable(),
+    idempotencyKey: p.text().nullable(),
     errorType: p.string().nullable(),
     createdAt: p.datetime().onCreate(() => new Date()),
   },

@@ -16,7 +16,7 @@ export const Shear = defineEntity({
   properties: {
     id: p.string().primary().onCreate(() => newId("shear")),
     shop: () => p.manyToOne(Shop).deleteRule("cascade"),
-    name: p.string(),
+    name: p.text(),
     description: p.text().nullable(),
     /** the rating: the thickness of the rating material the shear cuts at the rated rake */
     ratedThicknessMm: measure(),

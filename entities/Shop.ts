@@ -7,7 +7,7 @@ export const Shop = defineEntity({
   tableName: "shops",
   properties: {
     id: p.string().primary().onCreate(() => newId("shop")),
-    name: p.string(),
+    name: p.text(),
     slug: p.string().unique(),
     createdAt: p.datetime().onCreate(() => new Date()),
     updatedAt: p.datetime().onCreate(() => new Date()).onUpdate(() => new Date()),

@@ -7,8 +7,8 @@ export const User = defineEntity({
   tableName: "users",
   properties: {
     id: p.string().primary().onCreate(() => newId("user")),
-    email: p.string().unique(),
-    name: p.string(),
+    email: p.text().unique(),
+    name: p.text(),
     passwordHash: p.string().nullable(),
     createdAt: p.datetime().onCreate(() => new Date()),
     updatedAt: p.datetime().onCreate(() => new Date()).onUpdate(() => new Date()),

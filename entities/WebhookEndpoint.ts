@@ -13,12 +13,12 @@ export const WebhookEndpoint = defineEntity({
     id: p.string().primary().onCreate(() => newId("endpoint")),
     shop: () => p.manyToOne(Shop).deleteRule("cascade"),
     url: p.text(),
-    description: p.string().nullable(),
+    description: p.text().nullable(),
     /** event types this endpoint receives; empty = every type */
     eventTypes: p.json<string[]>().default("[]"),
     enabled: p.boolean().default(true),
     /** why it was disabled: by a person, after repeated failures, or because the receiver answered 410 */
-    disabledReason: p.string().nullable(),
+    disabledReason: p.text().nullable(),
     secret: p.string().hidden(),
     previousSecret: p.string().nullable(),
     previousSecretExpiresAt: p.datetime().nullable(),

@@ -12,7 +12,8 @@ export function decodeCursor(cursor: string | undefined): string | null {
   if (!cursor) return null;
   try {
     const value = JSON.parse(Buffer.from(cursor, "base64url").toString("utf8"));
-    if (typeof value?.after === "string" && value.after.length <= 64) return value.after;
+    // Only an id of ours (a short prefix and a ULID) can come back: nothing else reaches the database.
+    if (typeof value?.after === "string" && /^[a-z]{2,5}_[0-9A-HJKMNP-TV-Z]{26}$/.test(value.after)) return value.after;
   } catch {
     /* fall through */
   }

@@ -2,6 +2,8 @@
  * Request-log rows are buffered and written in batches (one multi-row INSERT every 250 ms or
  * 200 rows) so logging costs no database round trip on the request's own path. The buffer
  * is flushed when the process stops; rows are lost only if the process is killed outright.
+ * Caller-chosen text (the path, the Idempotency-Key) is cut to a bounded length first, and a
+ * batch the database refuses is written again row by row, so one bad row never costs the others.
  */
 import { RequestLog } from "../../entities";
 import { getOrm } from "../db/orm";
@@ -27,8 +29,12 @@ type State = { rows: RequestLogRow[]; timer?: NodeJS.Timeout; writing: Promise<v
 const holder = globalThis as unknown as { __shearwireRequestLog?: State };
 const state: State = (holder.__shearwireRequestLog ??= { rows: [], writing: Promise.resolve() });
 
+/** Longest path and Idempotency-Key kept in the log (a longer one is cut, marked with an ellipsis). */
+export const LOGGED_TEXT_MAX = 1000;
+const cut = (text: string) => (text.length > LOGGED_TEXT_MAX ? `${text.slice(0, LOGGED_TEXT_MAX - 1)}…` : text);
+
 export function logRequest(row: RequestLogRow) {
-  state.rows.push(row);
+  state.rows.push({ ...row, path: cut(row.path), idempotencyKey: row.idempotencyKey === null ? null : cut(row.idempotencyKey) });
   if (!state.hooked) {
     state.hooked = true;
     process.once("beforeExit", () => void flushRequestLog());
@@ -47,10 +53,27 @@ export function flushRequestLog(): Promise<void> {
   const rows = state.rows.splice(0);
   if (rows.length) {
     state.writing = state.writing.then(async () => {
-      try {
-        await (await getOrm()).em.fork().insertMany(RequestLog, rows);
-      } catch (err) {
+      const orm = await getOrm().catch((err) => {
         console.error(`[api] could not write ${rows.length} request-log rows:`, err);
+        return null;
+      });
+      if (!orm) return;
+      try {
+        await orm.em.fork().insertMany(RequestLog, rows);
+      } catch (err) {
+        if (rows.length === 1) {
+          console.error(`[api] could not write request-log row ${rows[0].id}:`, err);
+          return;
+        }
+        // One bad row must not cost the others: write them one at a time, losing only what fails alone.
+        let lost = 0;
+        for (const row of rows) {
+          await orm.em.fork().insert(RequestLog, row).catch((rowErr) => {
+            lost += 1;
+            console.error(`[api] could not write request-log row ${row.id}:`, rowErr);
+          });
+        }
+        if (lost) console.error(`[api] ${lost} of ${rows.length} request-log rows could not be written`);
       }
     });
   }

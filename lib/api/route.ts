@@ -1,14 +1,18 @@
 /**
- * The one wrapper every /api/v1 route handler goes through: request id, API-key auth and
- * scope, rate limit, zod parsing of path, query and body, Idempotency-Key on POST, errors
- * as problem+json, `Cache-Control: no-store`, and a request-log row. Handlers receive
- * parsed input and an entity manager of their own, call a service, and return data.
+ * The one wrapper every /api/v1 route handler goes through, in named steps: authorise (API
+ * key, scope, rate limit), read the input (path, query and body, each parsed by the
+ * operation's zod schema after the one text rule of `lib/text.ts`), reserve the
+ * Idempotency-Key, run the handler, respond (problem+json for every error, request id,
+ * `Cache-Control: no-store`, Server-Timing), and log the request. Handlers receive parsed
+ * input and an entity manager of their own, call a service, and return data.
  */
 import type { EntityManager } from "@mikro-orm/postgresql";
 import type { z } from "zod";
 import { requestEm } from "../db/orm";
 import { newId } from "../ids";
 import { authenticate, type Principal } from "../services/keys";
+import { SECURITY_HEADERS } from "../security-headers";
+import { findUnsafeText } from "../text";
 import {
   ApiError, badRequest, forbidden, internalError, invalidRequest, payloadTooLarge, unsupportedMediaType,
 } from "./errors";
@@ -39,10 +43,11 @@ export interface Reply {
 }
 
 type RouteContext = { params: Promise<Record<string, string | string[]>> };
+type Location = "body" | "query" | "path" | "header";
 
 const escapePointer = (s: string | number | symbol) => String(s).replace(/~/g, "~0").replace(/\//g, "~1");
 
-export function zodErrors(location: "body" | "query" | "path" | "header", error: z.ZodError) {
+export function zodErrors(location: Location, error: z.ZodError) {
   return error.issues.map((i) => ({
     location,
     pointer: i.path.length ? `/${i.path.map(escapePointer).join("/")}` : "",
@@ -50,22 +55,51 @@ export function zodErrors(location: "body" | "query" | "path" | "header", error:
   }));
 }
 
+const plural = (n: number, word: string) => `${n} ${word}${n === 1 ? "" : "s"}`;
+
+/** Refuse text that cannot be stored (NUL, broken Unicode) before any schema or service sees it. */
+function refuseUnsafeText(value: unknown, location: Exclude<Location, "header">) {
+  const bad = findUnsafeText(value);
+  if (bad) {
+    const where = bad.pointer || "(root)";
+    throw invalidRequest(`The ${location} ${where} ${bad.message}.`, [{ location, pointer: bad.pointer, message: bad.message }]);
+  }
+}
+
 function parse<T extends z.ZodType | undefined>(schema: T | undefined, value: unknown, location: "body" | "query" | "path"): Infer<T> {
   if (!schema) return undefined as Infer<T>;
+  refuseUnsafeText(value, location);
   const result = schema.safeParse(value);
   if (!result.success) {
     const errors = zodErrors(location, result.error);
-    throw invalidRequest(`The ${location === "path" ? "path" : location} has ${errors.length} problem${errors.length === 1 ? "" : "s"}: ${errors.map((e) => `${e.pointer || "(root)"} ${e.message}`).join("; ")}.`, errors);
+    throw invalidRequest(`The ${location} has ${plural(errors.length, "problem")}: ${errors.map((e) => `${e.pointer || "(root)"} ${e.message}`).join("; ")}.`, errors);
   }
   return result.data as Infer<T>;
 }
 
-async function readBody(request: Request): Promise<string> {
+/** Read the body as UTF-8, stopping as soon as it passes the limit (a chunked body is never read whole first). */
+export async function readBody(request: Request, limit = MAX_BODY_BYTES): Promise<string> {
   const declared = Number(request.headers.get("content-length") ?? 0);
-  if (declared > MAX_BODY_BYTES) throw payloadTooLarge(MAX_BODY_BYTES);
-  const text = await request.text();
-  if (Buffer.byteLength(text) > MAX_BODY_BYTES) throw payloadTooLarge(MAX_BODY_BYTES);
-  return text;
+  if (declared > limit) throw payloadTooLarge(limit);
+  if (!request.body) return "";
+  const reader = request.body.getReader();
+  const chunks: Uint8Array[] = [];
+  let size = 0;
+  for (;;) {
+    const { done, value } = await reader.read();
+    if (done) break;
+    size += value.byteLength;
+    if (size > limit) {
+      await reader.cancel().catch(() => undefined);
+      throw payloadTooLarge(limit);
+    }
+    chunks.push(value);
+  }
+  try {
+    return new TextDecoder("utf-8", { fatal: true }).decode(Buffer.concat(chunks));
+  } catch {
+    throw badRequest("The body is not valid UTF-8.");
+  }
 }
 
 function queryObject(url: URL): Record<string, string | string[]> {
@@ -83,6 +117,124 @@ function json(status: number, body: unknown, headers: Record<string, string>, pr
   return new Response(body === undefined || status === 204 ? null : JSON.stringify(body), { status, headers: h });
 }
 
+/** One request's state as it goes through the steps. */
+interface Call {
+  started: number;
+  requestId: string;
+  url: URL;
+  method: string;
+  routeTemplate: string;
+  headers: Record<string, string>;
+  /** Server-Timing entries, so integrators can see where a slow request spent its time */
+  timing: string[];
+  em?: EntityManager;
+  principal?: Principal;
+  idempotencyKey: string | null;
+  reserved: boolean;
+  errorType: string | null;
+}
+
+async function timed<T>(call: Call, name: string, work: () => Promise<T>): Promise<T> {
+  const started = performance.now();
+  try {
+    return await work();
+  } finally {
+    call.timing.push(`${name};dur=${(performance.now() - started).toFixed(1)}`);
+  }
+}
+
+/** Step 1: the API key, its rate limit and the operation's scope (public operations skip this). */
+async function authorise(call: Call, op: Operation, request: Request) {
+  if (!op.scope) return;
+  const em = (call.em = await requestEm());
+  const principal = (call.principal = await timed(call, "auth", () => authenticate(em, request.headers.get("authorization"))));
+  Object.assign(call.headers, await timed(call, "ratelimit", () => consume(principal.keyId, principal.rateLimitPerMin)));
+  if (!principal.scopes.includes(op.scope)) {
+    throw forbidden(`This operation needs the \`${op.scope}\` scope; the key has ${principal.scopes.map((s) => `\`${s}\``).join(", ") || "none"}.`, { requiredScope: op.scope });
+  }
+}
+
+/** Step 2: path, query and body, parsed by the operation's schemas. */
+async function readInput<P, Q, B>(op: Operation, request: Request, context: RouteContext, url: URL) {
+  const params = parse(op.params, await context.params, "path") as P;
+  const query = parse(op.query, queryObject(url), "query") as Q;
+  let rawBody = "";
+  let body = undefined as B;
+  if (op.body) {
+    rawBody = await readBody(request);
+    const type = request.headers.get("content-type") ?? "";
+    if (rawBody.length > 0 && !/^application\/([\w.+-]+\+)?json\b/i.test(type)) throw unsupportedMediaType();
+    let value: unknown;
+    try {
+      value = rawBody.length ? JSON.parse(rawBody) : undefined;
+    } catch (err) {
+      throw badRequest(`The body is not valid JSON: ${(err as Error).message}`);
+    }
+    body = parse(op.body, value, "body") as B;
+  }
+  return { params, query, body, rawBody };
+}
+
+/** Step 3: reserve the Idempotency-Key, or answer with the response stored for it. */
+async function reserveIdempotency(call: Call, op: Operation, request: Request, rawBody: string): Promise<Response | null> {
+  if (op.method !== "post" || !call.principal) return null;
+  const key = request.headers.get("idempotency-key");
+  if (key === null) return null;
+  call.idempotencyKey = key;
+  idempotency.checkKeyFormat(key);
+  const path = call.url.pathname;
+  const claim = await idempotency.claim(call.em!, call.principal.keyId, key, call.method, path, idempotency.fingerprint(call.method, path, rawBody));
+  if (claim.kind === "replay") {
+    const r = claim.response;
+    return json(r.status, r.body, { ...r.headers, ...call.headers, "Idempotent-Replayed": "true" }, r.status >= 400);
+  }
+  call.reserved = true;
+  return null;
+}
+
+/** Step 4a: the handler's reply, stored under the Idempotency-Key when one was reserved. */
+async function respond(call: Call, reply: Reply): Promise<Response> {
+  const status = reply.status ?? 200;
+  call.headers["Server-Timing"] = call.timing.join(", ");
+  const response = json(status, reply.body, { ...(reply.headers ?? {}), ...call.headers });
+  if (call.reserved) {
+    await idempotency.complete(call.em!, call.principal!.keyId, call.idempotencyKey!, { status, body: reply.body ?? null, headers: reply.headers ?? {} });
+  }
+  return response;
+}
+
+/** Step 4b: any error as problem+json; a reservation is kept for a refusal, released for our own failure. */
+async function respondWithProblem(call: Call, err: unknown): Promise<Response> {
+  const apiError = err instanceof ApiError ? err : internalError();
+  if (!(err instanceof ApiError)) console.error(`[api] ${call.requestId} ${call.method} ${call.routeTemplate}:`, err);
+  call.errorType = apiError.slug;
+  const problem = apiError.toProblem(call.requestId, call.url.pathname);
+  if (call.reserved) {
+    const { keyId } = call.principal!;
+    if (apiError.status >= 500) await idempotency.release(call.em!, keyId, call.idempotencyKey!).catch(() => undefined);
+    else await idempotency.complete(call.em!, keyId, call.idempotencyKey!, { status: apiError.status, body: problem, headers: apiError.headers }).catch(() => undefined);
+  }
+  return json(apiError.status, problem, { ...apiError.headers, ...call.headers }, true);
+}
+
+/** Step 5: the request log (public operations, which carry no key and no shop, are not logged). */
+function log(call: Call, status: number) {
+  if (!call.em) return;
+  logRequest({
+    id: call.requestId,
+    shopId: call.principal?.shopId ?? null,
+    keyId: call.principal?.keyId ?? null,
+    method: call.method,
+    route: call.routeTemplate,
+    path: call.url.pathname,
+    status,
+    latencyMs: Math.round((performance.now() - call.started) * 100) / 100,
+    idempotencyKey: call.idempotencyKey,
+    errorType: call.errorType,
+    createdAt: new Date(),
+  });
+}
+
 export function route<P extends z.ZodObject<z.ZodRawShape> | undefined, Q extends z.ZodObject<z.ZodRawShape> | undefined, B extends z.ZodType | undefined>(
   op: Operation<P, Q, B>,
   handler: (ctx: HandlerContext<Infer<P>, Infer<Q>, Infer<B>>) => Promise<Reply>,
@@ -91,102 +243,31 @@ export function route<P extends z.ZodObject<z.ZodRawShape> | undefined, Q extend
   const method = op.method.toUpperCase();
 
   return async function handle(request: Request, context: RouteContext): Promise<Response> {
-    const started = performance.now();
-    const requestId = newId("request");
-    const url = new URL(request.url);
-    const headers: Record<string, string> = { "X-Request-Id": requestId, "Cache-Control": "no-store" };
-    let em: EntityManager | undefined;
-    let principal: Principal | null = null;
-    let idemKey: string | null = null;
-    let reserved = false;
-    let response: Response;
-    let errorType: string | null = null;
-    /** Server-Timing entries, so integrators can see where a slow request spent its time */
-    const timing: string[] = [];
-
+    const call: Call = {
+      started: performance.now(), requestId: newId("request"), url: new URL(request.url), method, routeTemplate,
+      headers: {}, timing: [], idempotencyKey: null, reserved: false, errorType: null,
+    };
+    call.headers = { ...SECURITY_HEADERS, "X-Request-Id": call.requestId, "Cache-Control": "no-store" };
+    let response: Response | undefined;
     try {
-      if (op.scope) {
-        em = await requestEm();
-        let t = performance.now();
-        principal = await authenticate(em, request.headers.get("authorization"));
-        timing.push(`auth;dur=${(performance.now() - t).toFixed(1)}`);
-        t = performance.now();
-        Object.assign(headers, await consume(principal.keyId, principal.rateLimitPerMin));
-        timing.push(`ratelimit;dur=${(performance.now() - t).toFixed(1)}`);
-        if (!principal.scopes.includes(op.scope)) {
-          throw forbidden(`This operation needs the \`${op.scope}\` scope; the key has ${principal.scopes.map((s) => `\`${s}\``).join(", ") || "none"}.`, { requiredScope: op.scope });
-        }
-      }
-      const params = parse(op.params, await context.params, "path");
-      const query = parse(op.query, queryObject(url), "query");
-
-      let rawBody = "";
-      let body: Infer<B> = undefined as Infer<B>;
-      if (op.body) {
-        rawBody = await readBody(request);
-        const type = request.headers.get("content-type") ?? "";
-        if (rawBody.length > 0 && !/^application\/([\w.+-]+\+)?json\b/i.test(type)) throw unsupportedMediaType();
-        let value: unknown;
-        try {
-          value = rawBody.length ? JSON.parse(rawBody) : undefined;
-        } catch (err) {
-          throw badRequest(`The body is not valid JSON: ${(err as Error).message}`);
-        }
-        body = parse(op.body, value, "body");
-      }
-
-      const ifMatch = request.headers.get("if-match");
-      idemKey = op.method === "post" ? request.headers.get("idempotency-key") : null;
-      if (idemKey !== null && principal) {
-        idempotency.checkKeyFormat(idemKey);
-        const claim = await idempotency.claim(em!, principal.keyId, idemKey, method, url.pathname, idempotency.fingerprint(method, url.pathname, rawBody));
-        if (claim.kind === "replay") {
-          const r = claim.response;
-          response = json(r.status, r.body, { ...r.headers, ...headers, "Idempotent-Replayed": "true" }, r.status >= 400);
-          return response;
-        }
-        reserved = true;
-      }
-
-      const handlerStarted = performance.now();
-      const reply = await handler({
-        // public operations (no scope) get no entity manager; they open what they need themselves
-        em: em as EntityManager, principal: principal!, params, query, body, request, requestId, ifMatch,
-      });
-      const status = reply.status ?? 200;
-      timing.push(`handler;dur=${(performance.now() - handlerStarted).toFixed(1)}`);
-      headers["Server-Timing"] = timing.join(", ");
-      response = json(status, reply.body, { ...(reply.headers ?? {}), ...headers });
-      if (reserved) await idempotency.complete(em!, principal!.keyId, idemKey!, { status, body: reply.body ?? null, headers: reply.headers ?? {} });
-      return response;
-    } catch (err) {
-      const apiError = err instanceof ApiError ? err : internalError();
-      if (!(err instanceof ApiError)) console.error(`[api] ${requestId} ${method} ${routeTemplate}:`, err);
-      errorType = apiError.slug;
-      const problem = apiError.toProblem(requestId, url.pathname);
-      response = json(apiError.status, problem, { ...apiError.headers, ...headers }, true);
-      if (reserved) {
-        if (apiError.status >= 500) await idempotency.release(em!, principal!.keyId, idemKey!).catch(() => undefined);
-        else await idempotency.complete(em!, principal!.keyId, idemKey!, { status: apiError.status, body: problem, headers: apiError.headers }).catch(() => undefined);
-      }
-      return response;
-    } finally {
-      // Public operations (health, the documents) are not logged: they carry no key and no shop.
-      if (em) {
-        logRequest({
-          id: requestId,
-          shopId: principal?.shopId ?? null,
-          keyId: principal?.keyId ?? null,
-          method,
-          route: routeTemplate,
-          path: url.pathname,
-          status: response!?.status ?? 500,
-          latencyMs: Math.round((performance.now() - started) * 100) / 100,
-          idempotencyKey: idemKey,
-          errorType,
-          createdAt: new Date(),
+      await authorise(call, op as Operation, request);
+      const input = await readInput<Infer<P>, Infer<Q>, Infer<B>>(op as Operation, request, context, call.url);
+      response = (await reserveIdempotency(call, op as Operation, request, input.rawBody)) ?? undefined;
+      if (!response) {
+        const handlerStarted = performance.now();
+        const reply = await handler({
+          // public operations (no scope) get no entity manager; they open what they need themselves
+          em: call.em as EntityManager, principal: call.principal!, params: input.params, query: input.query, body: input.body,
+          request, requestId: call.requestId, ifMatch: request.headers.get("if-match"),
         });
+        call.timing.push(`handler;dur=${(performance.now() - handlerStarted).toFixed(1)}`);
+        response = await respond(call, reply);
       }
+    } catch (err) {
+      response = await respondWithProblem(call, err);
+    } finally {
+      log(call, response?.status ?? 500);
     }
+    return response;
   };
 }

@@ -7,6 +7,9 @@ export const FAILURE_REASONS = [
   "backgauge_fault", "hydraulic_fault", "power_loss", "other",
 ] as const;
 
+/** A count a run reports; checked against the program as well (a run cannot make more than its program). */
+const count = () => z.number().int().min(0).max(10_000_000);
+
 const leaseSeconds = z.number().int().min(10).max(600).optional().openapi({ description: "Lease length in seconds (default 60)" });
 
 export const ClaimRequest = z
@@ -24,9 +27,9 @@ export const HeartbeatRequest = z.object({ leaseSeconds }).strict().openapi("Hea
 
 export const ProgressReport = z
   .object({
-    groupsDone: z.number().int().min(0).openapi({ description: "Cut groups finished, over all sheets so far" }),
-    strokesDone: z.number().int().min(0),
-    piecesDone: z.number().int().min(0).optional(),
+    groupsDone: count().openapi({ description: "Cut groups finished, over all sheets so far (at most the program's groups × sheets)" }),
+    strokesDone: count().openapi({ description: "Strokes made so far (at most the program's strokes)" }),
+    piecesDone: count().optional().openapi({ description: "Blanks made so far (at most the program's blanks)" }),
     leaseSeconds,
   })
   .strict()
@@ -34,9 +37,9 @@ export const ProgressReport = z
 
 export const CompletionReport = z
   .object({
-    goodPieces: z.number().int().min(0),
-    scrappedPieces: z.number().int().min(0).default(0),
-    sheetsUsed: z.number().int().min(0).optional(),
+    goodPieces: count().openapi({ description: "Good blanks made; with `scrappedPieces`, at most the program's blanks" }),
+    scrappedPieces: count().default(0),
+    sheetsUsed: count().optional().openapi({ description: "Sheets cut (at most the program's `sheet.count`)" }),
     notes: z.string().max(2000).optional(),
   })
   .strict()
@@ -46,8 +49,8 @@ export const FailureReport = z
   .object({
     reason: z.enum(FAILURE_REASONS).openapi({ description: "Why the run stopped" }),
     message: z.string().max(2000).optional(),
-    goodPieces: z.number().int().min(0).optional(),
-    scrappedPieces: z.number().int().min(0).optional(),
+    goodPieces: count().optional(),
+    scrappedPieces: count().optional(),
   })
   .strict()
   .openapi("FailureReport");

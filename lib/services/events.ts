@@ -10,6 +10,13 @@ import type { EventType } from "./event-types";
 export { EVENT_TYPES, type EventType } from "./event-types";
 
 export const OUTBOX_CHANNEL = "shearwire_outbox";
+/** Notified with a shear's id when one of its programs becomes claimable (released, or back after a lease ran out). */
+export const RELEASED_CHANNEL = "shearwire_released";
+
+/** Wake the gateways waiting on this shear when the caller's transaction commits. */
+export async function announceRelease(em: EntityManager, shearId: string) {
+  await em.execute(`select pg_notify('${RELEASED_CHANNEL}', ?)`, [shearId]);
+}
 
 /**
  * Stage an event in the caller's transaction, and wake the worker when that transaction

@@ -7,15 +7,17 @@ import type { EntityManager } from "@mikro-orm/postgresql";
 import type { z } from "zod";
 import { Program, Shear, type ProgramEntity } from "../../entities";
 import type { ProgramStatus } from "../../entities/Program";
-import { conflict, forbidden, notFound } from "../api/errors";
+import { conflict, forbidden, invalidRequest, notFound } from "../api/errors";
 import type { CompletionReport, FailureReport, ProgressReport } from "../schemas/gateway";
 import type { ProgramT } from "../schemas/program";
-import { recordEvent } from "./events";
+import { waitForNotification } from "../db/notify";
+import { announceRelease, RELEASED_CHANNEL, recordEvent } from "./events";
 import type { Principal } from "./keys";
 import { getProgram, mustBe, transition, viewProgram } from "./programs";
 
 export const DEFAULT_LEASE_SECONDS = 60;
-const POLL_MS = 250;
+/** A waiting gateway is woken by the release itself (NOTIFY on commit); this slow poll is only a safety net. */
+const SAFETY_POLL_MS = 5_000;
 
 function boundTo(principal: Principal, shearId: string) {
   if (principal.shearIds.length && !principal.shearIds.includes(shearId)) {
@@ -45,6 +47,7 @@ export async function sweepExpiredLeases(em: EntityManager, scope: { shopId?: st
       p.leaseExpiresAt = null;
       p.leaseExpiries = (p.leaseExpiries ?? 0) + 1;
       await tx.flush();
+      await announceRelease(tx, p.shear.id);
       await recordEvent(tx, p.shop.id, "program.lease_expired", p.id, {
         program: viewProgram(p),
         from,
@@ -88,12 +91,25 @@ export async function claimNext(
   const seconds = opts.leaseSeconds ?? DEFAULT_LEASE_SECONDS;
   const deadline = Date.now() + (opts.waitSeconds ?? 0) * 1000;
   for (;;) {
-    await sweepExpiredLeases(em.fork(), { shopId: principal.shopId, shearId });
-    const program = await claimOnce(em.fork(), principal, shearId, seconds);
-    if (program) return { program, lease: { expiresAt: program.run.leaseExpiresAt!, seconds } };
+    // Listen before looking, so a program released in between still wakes this wait.
     const left = deadline - Date.now();
-    if (left <= 0 || opts.signal?.aborted) return null;
-    await new Promise((r) => setTimeout(r, Math.min(POLL_MS, left)));
+    const stop = new AbortController();
+    const signal = opts.signal ? AbortSignal.any([stop.signal, opts.signal]) : stop.signal;
+    const woken = left > 0 ? waitForNotification(RELEASED_CHANNEL, shearId, Math.min(SAFETY_POLL_MS, left), signal) : null;
+    try {
+      await sweepExpiredLeases(em.fork(), { shopId: principal.shopId, shearId });
+      const program = await claimOnce(em.fork(), principal, shearId, seconds);
+      if (program) return { program, lease: { expiresAt: program.run.leaseExpiresAt!, seconds } };
+      if (!woken || opts.signal?.aborted) return null;
+      await woken;
+      if (Date.now() >= deadline || opts.signal?.aborted) {
+        // One last look: the wait may have ended on the very notification of a release.
+        const last = await claimOnce(em.fork(), principal, shearId, seconds);
+        return last ? { program: last, lease: { expiresAt: last.run.leaseExpiresAt!, seconds } } : null;
+      }
+    } finally {
+      stop.abort();
+    }
   }
 }
 
@@ -106,6 +122,39 @@ async function held(em: EntityManager, principal: Principal, id: string, allowed
     throw conflict("Another gateway holds this program's lease.", { currentStatus: program.status });
   }
   return program;
+}
+
+/** What the program can make, from its stored check: a run's report may not claim more. */
+function programTotals(program: ProgramEntity) {
+  const check = program.check as { yield?: { total?: { blanks?: number; strokes?: number } } | null };
+  const input = program.input as { sheet?: { count?: number }; cuts?: unknown[] };
+  const sheets = input.sheet?.count ?? 1;
+  return {
+    blanks: check.yield?.total?.blanks ?? 0,
+    strokes: check.yield?.total?.strokes ?? 0,
+    groups: (input.cuts?.length ?? 0) * sheets,
+    sheets,
+  };
+}
+
+type Limit = { field: string; value: number | undefined; max: number; what: string };
+
+/** Refuse a report that claims more than the program makes (422 naming the field, the value and the limit). */
+function withinProgram(limits: Limit[]) {
+  const over = limits.filter((l) => l.value !== undefined && l.value > l.max);
+  if (!over.length) return;
+  const errors = over.map((l) => ({ location: "body", pointer: `/${l.field}`, message: `is ${l.value}; the program has ${l.max} ${l.what}` }));
+  throw invalidRequest(`The report claims more than the program makes: ${errors.map((e) => `${e.pointer} ${e.message}`).join("; ")}.`, errors);
+}
+
+/** Progress only moves forward: a count below the last report is refused too. */
+function notBackwards(program: ProgramEntity, report: { groupsDone: number; strokesDone: number; piecesDone?: number }) {
+  const last = program.progress as { groupsDone?: number; strokesDone?: number; piecesDone?: number } | null | undefined;
+  if (!last) return;
+  const errors = (["groupsDone", "strokesDone", "piecesDone"] as const)
+    .filter((k) => report[k] !== undefined && last[k] !== undefined && report[k]! < last[k]!)
+    .map((k) => ({ location: "body", pointer: `/${k}`, message: `is ${report[k]}, below the ${last[k]} reported before; progress only moves forward` }));
+  if (errors.length) throw invalidRequest(`Progress went backwards: ${errors.map((e) => `${e.pointer} ${e.message}`).join("; ")}.`, errors);
 }
 
 export async function heartbeat(em: EntityManager, principal: Principal, id: string, leaseSeconds = DEFAULT_LEASE_SECONDS) {
@@ -126,6 +175,13 @@ export async function start(em: EntityManager, principal: Principal, id: string)
 export async function progress(em: EntityManager, principal: Principal, id: string, report: z.infer<typeof ProgressReport>) {
   const program = await held(em, principal, id, ["running"], "reported on");
   const { leaseSeconds, ...counts } = report;
+  const totals = programTotals(program);
+  withinProgram([
+    { field: "groupsDone", value: counts.groupsDone, max: totals.groups, what: "cut groups over all its sheets" },
+    { field: "strokesDone", value: counts.strokesDone, max: totals.strokes, what: "strokes" },
+    { field: "piecesDone", value: counts.piecesDone, max: totals.blanks, what: "blanks" },
+  ]);
+  notBackwards(program, counts);
   return transition(em, principal.shopId, program, "running", "program.progressed", (p) => {
     p.progress = counts;
     p.leaseExpiresAt = leaseUntil(leaseSeconds ?? DEFAULT_LEASE_SECONDS);
@@ -134,6 +190,11 @@ export async function progress(em: EntityManager, principal: Principal, id: stri
 
 export async function complete(em: EntityManager, principal: Principal, id: string, report: z.infer<typeof CompletionReport>) {
   const program = await held(em, principal, id, ["running"], "completed");
+  const totals = programTotals(program);
+  withinProgram([
+    { field: "goodPieces", value: report.goodPieces + (report.scrappedPieces ?? 0), max: totals.blanks, what: "blanks (good and scrapped pieces together)" },
+    { field: "sheetsUsed", value: report.sheetsUsed, max: totals.sheets, what: "sheets" },
+  ]);
   return transition(em, principal.shopId, program, "completed", "program.completed", (p) => {
     p.finishedAt = new Date();
     p.leaseExpiresAt = null;
@@ -143,6 +204,9 @@ export async function complete(em: EntityManager, principal: Principal, id: stri
 
 export async function fail(em: EntityManager, principal: Principal, id: string, report: z.infer<typeof FailureReport>) {
   const program = await held(em, principal, id, ["claimed", "running"], "failed");
+  withinProgram([
+    { field: "goodPieces", value: (report.goodPieces ?? 0) + (report.scrappedPieces ?? 0), max: programTotals(program).blanks, what: "blanks (good and scrapped pieces together)" },
+  ]);
   return transition(em, principal.shopId, program, "failed", "program.failed", (p) => {
     p.finishedAt = new Date();
     p.leaseExpiresAt = null;

@@ -11,7 +11,7 @@ import { decodeCursor, page } from "../api/pagination";
 import type { CheckT, ProgramInputT, ProgramPatchT, ProgramT } from "../schemas/program";
 import { checkProgram, type CheckResult } from "../shear";
 import { gradeByCode, gradeProfile, shearProfile } from "./catalog";
-import { recordEvent, type EventType } from "./events";
+import { announceRelease, recordEvent, type EventType } from "./events";
 
 export const DEFAULT_PRIORITY = 5;
 const CANCELLABLE: ProgramStatus[] = ["draft", "released", "claimed", "running"];
@@ -246,6 +246,7 @@ export async function transition(
       p.status = to;
       change(p);
       await tx.flush();
+      if (to === "released") await announceRelease(tx, p.shear.id);
       const view = viewProgram(p);
       await recordEvent(tx, shopId, type, p.id, { program: view, from, ...extra });
       return view;

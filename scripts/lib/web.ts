@@ -66,7 +66,7 @@ export async function startWeb(d: Daemon, port: number, env: NodeJS.ProcessEnv) 
   if (await portInUse(port)) {
     throw new ServiceError(`port ${port} on 127.0.0.1 is busy with another program; stop it or set PORT`);
   }
-  startDaemon(d, bin("next"), ["start", "-H", "127.0.0.1", "-p", String(port)], env);
+  startDaemon(d, bin("tsx"), [path.join(root, "scripts", "web-server.ts"), "--port", String(port)], env);
 }
 
 /** The worker process (webhooks, sweepers) in the background. */

@@ -2,10 +2,11 @@
  * The conventions every route shares: Idempotency-Key, rate limits, body limits and media
  * types, and generated invalid bodies that must answer 4xx problem+json and store nothing.
  */
+import http from "node:http";
 import fc from "fast-check";
 import request from "supertest";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { Event, IdempotencyRecord, Program } from "../../entities";
+import { Event, IdempotencyRecord, Program, RequestLog } from "../../entities";
 import { BASE_URL } from "../support/env";
 import { closeTestOrm, createTestShop, exampleProgram, keyFor, testOrm, type TestShop } from "../support/fixtures";
 
@@ -17,6 +18,18 @@ beforeAll(async () => {
   shop = await createTestShop("conventions");
 });
 afterAll(closeTestOrm);
+
+/** A request with any method (fetch refuses TRACE and the like). */
+function raw(method: string, path: string): Promise<http.IncomingMessage> {
+  return new Promise((resolve, reject) => {
+    const req = http.request(`${BASE_URL}${path}`, { method }, (res) => {
+      res.resume();
+      resolve(res);
+    });
+    req.on("error", reject);
+    req.end();
+  });
+}
 
 const programCount = async (shopId: string) => (await testOrm()).em.fork().count(Program, { shop: shopId });
 
@@ -153,5 +166,85 @@ describe("bodies", () => {
       { numRuns: 60, seed: 20261201 },
     );
     expect(await programCount(own.shopId)).toBe(0);
+  });
+});
+
+describe("what callers choose cannot break the request or the log", () => {
+  it("answers a path of 300+ characters without a 500, with or without an Idempotency-Key, and logs the other requests of the same batch", async () => {
+    const other = await createTestShop("log-neighbour");
+    const longId = `prg_${"A".repeat(400)}`;
+    const [plain, keyed, neighbour] = await Promise.all([
+      api().get(`/api/v1/programs/${longId}`).set(auth()),
+      api().post(`/api/v1/programs/${longId}/cancel`).set(auth()).set("Idempotency-Key", "long-path-1").send({}),
+      api().get("/api/v1/shears").set("Authorization", `Bearer ${other.key}`),
+    ]);
+    expect(plain.status).toBeLessThan(500);
+    expect(keyed.status).toBeLessThan(500);
+    expect(neighbour.status).toBe(200);
+    // The rows are written in one batch within a second; the other shop's row is among them.
+    const em = (await testOrm()).em.fork();
+    const ids = [plain.headers["x-request-id"], keyed.headers["x-request-id"], neighbour.headers["x-request-id"]];
+    let found = 0;
+    for (let i = 0; i < 40 && found < 3; i++) {
+      await new Promise((r) => setTimeout(r, 100));
+      found = await em.count(RequestLog, { id: { $in: ids } });
+    }
+    expect(found).toBe(3);
+    const long = await em.findOneOrFail(RequestLog, { id: plain.headers["x-request-id"] });
+    expect(long.path.length).toBeGreaterThan(255);
+  });
+
+  it("answers TRACE and other methods nothing serves with 405 problem+json and Allow", async () => {
+    for (const [method, path] of [["TRACE", "/api/v1/programs"], ["PROPFIND", "/api/v1/programs"], ["MKCOL", "/console"]]) {
+      const res = await raw(method, path);
+      expect(res.statusCode, method).toBe(405);
+      expect(res.headers.allow).toMatch(/GET/);
+      expect(res.headers["content-type"]).toMatch(/problem\+json/);
+      expect(res.headers["x-content-type-options"]).toBe("nosniff");
+    }
+    // A method the API serves, on a route that does not take it: 405 too (from the framework).
+    expect((await raw("DELETE", "/api/v1/health")).statusCode).toBe(405);
+  });
+
+  it("stops reading a chunked body at the limit: the 413 comes while the client is still sending", async () => {
+    const total = 64 * 1024 * 1024;
+    const { status, sentBeforeAnswer } = await new Promise<{ status: number; sentBeforeAnswer: number }>((resolve, reject) => {
+      let sent = 0;
+      let answered = false;
+      const req = http.request(`${BASE_URL}/api/v1/programs`, { method: "POST", headers: { ...auth(), "Content-Type": "application/json" } }, (res) => {
+        answered = true;
+        res.resume();
+        resolve({ status: res.statusCode ?? 0, sentBeforeAnswer: sent });
+        req.destroy();
+      });
+      req.on("error", (err) => { if (!answered) reject(err); });
+      const chunk = Buffer.alloc(64 * 1024, "x");
+      const write = () => {
+        while (!answered && sent < total) {
+          sent += chunk.length;
+          if (!req.write(chunk)) return void req.once("drain", write);
+        }
+        if (!answered) req.end();
+      };
+      req.write('{"reference":"R","title":"');
+      write();
+    });
+    expect(status).toBe(413);
+    expect(sentBeforeAnswer).toBeLessThan(total);
+  });
+
+  it("refuses NUL and broken Unicode where they arrive, naming the place", async () => {
+    const body = { ...exampleProgram(shop.shearId), metadata: { line: "a\ud800b" } };
+    const res = await api().post("/api/v1/programs").set(auth()).set("Content-Type", "application/json").send(JSON.stringify(body));
+    expect(res.status).toBe(422);
+    expect(res.body.errors).toEqual([{ location: "body", pointer: "/metadata/line", message: expect.stringMatching(/unpaired UTF-16 surrogate/) }]);
+    const query = await api().get("/api/v1/programs?reference=a%00b").set(auth());
+    expect(query.status).toBe(422);
+    expect(query.body.errors[0]).toMatchObject({ location: "query", pointer: "/reference" });
+    const path = await api().get("/api/v1/programs/prg_%00").set(auth());
+    expect(path.status).toBe(422);
+    expect(path.body.errors[0]).toMatchObject({ location: "path", pointer: "/id" });
+    const cursor = Buffer.from(JSON.stringify({ after: "prg_\u0000" })).toString("base64url");
+    expect((await api().get(`/api/v1/programs?cursor=${cursor}`).set(auth())).status).toBe(400);
   });
 });

@@ -7,7 +7,7 @@ import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
 import { Event, Program } from "../../entities";
 import { createProgram, releaseProgram } from "../../lib/services/programs";
 import { BASE_URL } from "../support/env";
-import { closeTestOrm, createTestShop, exampleProgram, keyFor, testOrm, type TestShop } from "../support/fixtures";
+import { closeTestOrm, createTestShop, exampleProgram, keyFor, TEST_SHEAR, testOrm, type TestShop } from "../support/fixtures";
 
 const api = () => request(BASE_URL);
 const bearer = (key: string) => ({ Authorization: `Bearer ${key}` });
@@ -27,7 +27,7 @@ async function releasedPrograms(shop: TestShop, n: number, extra: (i: number) =>
 afterAll(closeTestOrm);
 
 describe("claims", () => {
-  it("gives each of 200 released programs to exactly one of 16 concurrent gateways", async () => {
+  it("gives each of 200 released programs to exactly one of 16 concurrent gateways", { timeout: 120_000 }, async () => {
     const shop = await createTestShop("claims");
     const ids = await releasedPrograms(shop, 200);
     const keys = await Promise.all(Array.from({ length: 16 }, () => keyFor(shop.shopId, ["gateway"])));
@@ -85,7 +85,10 @@ describe("claims", () => {
     const other = await createTestShop("bound-other");
     const em = (await testOrm()).em.fork();
     const { createKey } = await import("../../lib/services/keys");
-    const { secret } = await createKey(em, shop.shopId, { name: "bound", scopes: ["gateway"], shearIds: ["shr_01J00000000000000000000000"] });
+    const { Shear } = await import("../../entities");
+    const second = em.create(Shear, { ...TEST_SHEAR, name: "Second shear", shop: shop.shopId });
+    await em.flush();
+    const { secret } = await createKey(em, shop.shopId, { name: "bound", scopes: ["gateway"], shearIds: [second.id] });
     const bound = await api().post(`/api/v1/shears/${shop.shearId}/claims`).set(bearer(secret)).send({});
     expect(bound.status).toBe(403);
     const foreign = await api().post(`/api/v1/shears/${other.shearId}/claims`).set(bearer(shop.key)).send({});
@@ -181,3 +184,43 @@ describe("the lifecycle", () => {
     ]);
   });
 });
+
+describe("run reports are checked against the program", () => {
+  let shop: TestShop;
+  beforeAll(async () => { shop = await createTestShop("reports"); });
+
+  async function running() {
+    const [id] = await releasedPrograms(shop, 1);
+    await api().post(`/api/v1/shears/${shop.shearId}/claims`).set(bearer(shop.key)).send({}).expect(200);
+    await api().post(`/api/v1/programs/${id}/start`).set(bearer(shop.key)).expect(200);
+    return id;
+  }
+
+  it("refuses more pieces, strokes, groups or sheets than the program makes, naming the field and the limit", async () => {
+    // The worked example: 56 blanks from 62 strokes on 2 sheets of 2 cut groups (its check says so).
+    const id = await running();
+    const huge = await api().post(`/api/v1/programs/${id}/complete`).set(bearer(shop.key)).send({ goodPieces: 9_007_199_254_740_991 });
+    expect(huge.status).toBe(422);
+    const tooMany = await api().post(`/api/v1/programs/${id}/complete`).set(bearer(shop.key)).send({ goodPieces: 50, scrappedPieces: 7 });
+    expect(tooMany.status).toBe(422);
+    expect(tooMany.body.errors[0]).toMatchObject({ pointer: "/goodPieces", message: expect.stringMatching(/is 57; the program has 56 blanks/) });
+    const sheets = await api().post(`/api/v1/programs/${id}/complete`).set(bearer(shop.key)).send({ goodPieces: 56, sheetsUsed: 3 });
+    expect(sheets.body.errors[0]).toMatchObject({ pointer: "/sheetsUsed", message: expect.stringMatching(/the program has 2 sheets/) });
+    const strokes = await api().post(`/api/v1/programs/${id}/progress`).set(bearer(shop.key)).send({ groupsDone: 5, strokesDone: 63 });
+    expect(strokes.status).toBe(422);
+    expect(strokes.body.errors.map((e: { pointer: string }) => e.pointer)).toEqual(["/groupsDone", "/strokesDone"]);
+    const stored = await (await testOrm()).em.fork().findOneOrFail(Program, { id });
+    expect(stored.status).toBe("running");
+    expect(stored.outcome ?? null).toBeNull();
+    await api().post(`/api/v1/programs/${id}/complete`).set(bearer(shop.key)).send({ goodPieces: 55, scrappedPieces: 1, sheetsUsed: 2 }).expect(200);
+  });
+
+  it("lets progress only move forward", async () => {
+    const id = await running();
+    await api().post(`/api/v1/programs/${id}/progress`).set(bearer(shop.key)).send({ groupsDone: 2, strokesDone: 31 }).expect(200);
+    const back = await api().post(`/api/v1/programs/${id}/progress`).set(bearer(shop.key)).send({ groupsDone: 1, strokesDone: 31 });
+    expect(back.status).toBe(422);
+    expect(back.body.errors[0]).toMatchObject({ pointer: "/groupsDone", message: expect.stringMatching(/below the 2 reported before/) });
+  });
+});
+

@@ -1,0 +1,63 @@
+/**
+ * The web server: Next.js behind a thin Node HTTP server of our own. It exists for what
+ * Next cannot do itself: a request with a method that the Fetch standard forbids (TRACE,
+ * TRACK, CONNECT) makes Next fail with a 500 before any of our code runs, and other unknown
+ * methods get a bare 400. Every method outside the HTTP methods this product serves is
+ * answered here with 405, `Allow` and the same security headers as every other response.
+ * Likewise a path whose percent-encoding is not UTF-8 (`/programs/%FF`) makes Next fail with
+ * a 500; it is answered here with 400.
+ * Usage: tsx scripts/web-server.ts --port 3000 (always on 127.0.0.1).
+ */
+import http from "node:http";
+import path from "node:path";
+import { parseArgs } from "node:util";
+import next from "next";
+import { SECURITY_HEADERS } from "../lib/security-headers";
+
+const { values } = parseArgs({ options: { port: { type: "string", default: process.env.PORT ?? "3000" }, host: { type: "string", default: "127.0.0.1" } } });
+const port = Number(values.port);
+const hostname = values.host!;
+const SERVED = ["GET", "HEAD", "POST", "PUT", "PATCH", "DELETE", "OPTIONS"];
+const ALLOW = SERVED.join(", ");
+
+const app = next({ dev: false, dir: path.resolve(import.meta.dirname, ".."), hostname, port });
+await app.prepare();
+const handle = app.getRequestHandler();
+
+function problem(res: http.ServerResponse, status: number, slug: string, title: string, detail: string, instance: string, headers: Record<string, string> = {}) {
+  res.writeHead(status, { ...SECURITY_HEADERS, ...headers, "Content-Type": "application/problem+json", "Cache-Control": "no-store" });
+  res.end(JSON.stringify({ type: `/problems/${slug}`, title, status, detail, instance: instance.slice(0, 2000) }));
+}
+
+/** True when every percent-escape of the path decodes as UTF-8. */
+function decodable(path: string): boolean {
+  try {
+    decodeURIComponent(path);
+    return true;
+  } catch {
+    return false;
+  }
+}
+
+const server = http.createServer((req, res) => {
+  const path = (req.url ?? "/").split("?")[0];
+  if (!SERVED.includes(req.method ?? "")) {
+    problem(res, 405, "method-not-allowed", "Method not allowed", `${req.method} is not served here; use one of ${ALLOW}.`, path, { Allow: ALLOW });
+    return;
+  }
+  if (!decodable(path)) {
+    problem(res, 400, "bad-request", "The request is malformed", "The path has a percent-escape that is not UTF-8.", "/");
+    return;
+  }
+  // The client address the sign-in throttle counts by: the socket's, unless a proxy in front is trusted to say.
+  if (process.env.SHEARWIRE_TRUST_PROXY !== "1") req.headers["x-forwarded-for"] = req.socket.remoteAddress ?? "unknown";
+  void handle(req, res);
+});
+server.listen(port, hostname, () => console.log(`▲ Shearwire web server on http://${hostname}:${port}`));
+
+for (const signal of ["SIGTERM", "SIGINT"] as const) {
+  process.once(signal, () => {
+    server.close(() => process.exit(0));
+    setTimeout(() => process.exit(0), 5_000).unref();
+  });
+}

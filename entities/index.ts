@@ -1,5 +1,6 @@
 import type { InferEntity } from "@mikro-orm/core";
 import { ApiKey } from "./ApiKey";
+import { ConsoleSession } from "./ConsoleSession";
 import { Delivery } from "./Delivery";
 import { DeliveryAttempt } from "./DeliveryAttempt";
 import { Event } from "./Event";
@@ -12,10 +13,11 @@ import { Program } from "./Program";
 import { RequestLog } from "./RequestLog";
 import { Shear } from "./Shear";
 import { Shop } from "./Shop";
+import { SignInAttempt } from "./SignInAttempt";
 import { User } from "./User";
 import { WebhookEndpoint } from "./WebhookEndpoint";
 
-export { ApiKey, Delivery, DeliveryAttempt, Event, Grade, IdempotencyRecord, Invitation, Membership, Plan, Program, RequestLog, Shear, Shop, User, WebhookEndpoint };
+export { ApiKey, ConsoleSession, Delivery, DeliveryAttempt, Event, Grade, IdempotencyRecord, Invitation, Membership, Plan, Program, RequestLog, Shear, Shop, SignInAttempt, User, WebhookEndpoint };
 
 export type ApiKeyEntity = InferEntity<typeof ApiKey>;
 export type DeliveryEntity = InferEntity<typeof Delivery>;
@@ -29,4 +31,4 @@ export type ShopEntity = InferEntity<typeof Shop>;
 export type UserEntity = InferEntity<typeof User>;
 
 /** Every entity, for the ORM configuration. */
-export const entities = [Shop, User, Membership, Shear, Grade, ApiKey, RequestLog, IdempotencyRecord, Program, Event, WebhookEndpoint, Delivery, DeliveryAttempt, Invitation, Plan];
+export const entities = [Shop, User, Membership, Shear, Grade, ApiKey, RequestLog, IdempotencyRecord, Program, Event, WebhookEndpoint, Delivery, DeliveryAttempt, Invitation, Plan, ConsoleSession, SignInAttempt];

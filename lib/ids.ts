@@ -19,6 +19,8 @@ export const ID_PREFIXES = {
   attempt: "att",
   invitation: "inv",
   plan: "pln",
+  session: "ses",
+  signInAttempt: "sia",
 } as const;
 
 export type IdKind = keyof typeof ID_PREFIXES;

@@ -3,11 +3,17 @@
 import { signIn } from "next-auth/react";
 import { useRouter, useSearchParams } from "next/navigation";
 import { useState } from "react";
+import { safeCallbackPath } from "@/lib/auth/redirect";
+
+const NOTICES: Record<string, string> = {
+  "no-shop": "Your account belongs to no shop yet.",
+  "session-ended": "Your session ended (you signed out, or your access changed). Sign in again.",
+};
 
 export function SignInForm() {
   const router = useRouter();
   const params = useSearchParams();
-  const [error, setError] = useState<string | null>(params.get("error") === "no-shop" ? "Your account belongs to no shop yet." : null);
+  const [error, setError] = useState<string | null>(NOTICES[params.get("error") ?? ""] ?? null);
   const [busy, setBusy] = useState(false);
 
   async function submit(form: FormData) {
@@ -15,7 +21,9 @@ export function SignInForm() {
     setError(null);
     const res = await signIn("credentials", { email: form.get("email"), password: form.get("password"), redirect: false });
     setBusy(false);
-    if (res?.ok) router.push(params.get("callbackUrl") ?? "/console");
+    // Only a path on this site is followed after signing in; anything else goes to the console.
+    if (res?.ok && !res.error) router.push(safeCallbackPath(params.get("callbackUrl")));
+    else if (res?.error && res.error !== "CredentialsSignin") setError(res.error);
     else setError("That e-mail and password do not match an account.");
   }
 

@@ -4,7 +4,7 @@ import { zodResolver } from "@hookform/resolvers/zod";
 import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { useForm, type FieldValues, type Resolver } from "react-hook-form";
-import { saveGrade, saveShear, type CatalogState } from "@/app/console/catalog-actions";
+import { saveGrade, saveShear } from "@/app/console/catalog-actions";
 import { GAUGE_FAMILIES, GRADE_FAMILIES } from "@/lib/schemas/enums";
 import { GradeInput, GradePatch } from "@/lib/schemas/grade";
 import { ShearInput, ShearPatch } from "@/lib/schemas/shear";
@@ -62,9 +62,18 @@ function clean(fields: Field[], values: Record<string, unknown>, editing: boolea
   return JSON.parse(JSON.stringify(out)) as Record<string, unknown>;
 }
 
+type CatalogState = { ok?: string; error?: string; fieldErrors?: Record<string, string> } | null;
+
+/** What a save answered, for the form: a message, or the problem with its field errors. */
+function stateOf(result: { data?: { message?: string }; serverError?: { message: string; fieldErrors?: Record<string, string> }; validationErrors?: unknown } | undefined): CatalogState {
+  if (result?.serverError) return { error: result.serverError.message, fieldErrors: result.serverError.fieldErrors };
+  if (result?.validationErrors) return { error: "The form could not be read; reload the page and try again." };
+  return { ok: result?.data?.message ?? "Saved." };
+}
+
 function CatalogForm({ fields, schema, initial, save, editing }: {
   fields: Field[]; schema: typeof ShearInput | typeof ShearPatch | typeof GradeInput | typeof GradePatch;
-  initial: Record<string, unknown>; save: (data: unknown) => Promise<CatalogState>; editing: boolean;
+  initial: Record<string, unknown>; save: (data: Record<string, unknown>) => Promise<Parameters<typeof stateOf>[0]>; editing: boolean;
 }) {
   const router = useRouter();
   const [result, setResult] = useState<CatalogState>(null);
@@ -73,7 +82,7 @@ function CatalogForm({ fields, schema, initial, save, editing }: {
   const form = useForm<FieldValues>({ resolver, defaultValues: Object.fromEntries(fields.map((f) => [f.name, initial[f.name] ?? ""])) });
   const errors = form.formState.errors;
   const onSubmit = form.handleSubmit(async () => {
-    const res = await save(clean(fields, form.getValues(), editing));
+    const res = stateOf(await save(clean(fields, form.getValues(), editing)));
     setResult(res);
     if (res?.ok) router.refresh();
     if (res?.ok && !editing) form.reset();
@@ -107,9 +116,9 @@ function CatalogForm({ fields, schema, initial, save, editing }: {
 }
 
 export function ShearForm({ id, initial = {} }: { id?: string; initial?: Record<string, unknown> }) {
-  return <CatalogForm fields={SHEAR_FIELDS} schema={id ? ShearPatch : ShearInput} initial={initial} editing={Boolean(id)} save={(d) => saveShear(id ?? null, d)} />;
+  return <CatalogForm fields={SHEAR_FIELDS} schema={id ? ShearPatch : ShearInput} initial={initial} editing={Boolean(id)} save={(data) => saveShear({ id: id ?? null, data })} />;
 }
 
 export function GradeForm({ id, initial = {} }: { id?: string; initial?: Record<string, unknown> }) {
-  return <CatalogForm fields={GRADE_FIELDS} schema={id ? GradePatch : GradeInput} initial={initial} editing={Boolean(id)} save={(d) => saveGrade(id ?? null, d)} />;
+  return <CatalogForm fields={GRADE_FIELDS} schema={id ? GradePatch : GradeInput} initial={initial} editing={Boolean(id)} save={(data) => saveGrade({ id: id ?? null, data })} />;
 }

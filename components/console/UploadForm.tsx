@@ -1,20 +1,23 @@
 "use client";
 
 import Link from "next/link";
-import { useActionState } from "react";
-import { uploadAction, type UploadState } from "@/app/console/upload/actions";
+import { uploadAction } from "@/app/console/upload/actions";
+import { ActionMessage, useConsoleForm } from "./useConsoleForm";
 
 export function UploadForm() {
-  const [state, act, pending] = useActionState<UploadState, FormData>(uploadAction, null);
+  const form = useConsoleForm(uploadAction);
+  const pending = form.pending;
+  const state = form.result.data;
   return (
     <div className="space-y-4">
-      <form action={act} className="flex items-center gap-3 rounded-md border border-scale-200 bg-white p-4 text-sm">
+      <form ref={form.formRef} onSubmit={form.onSubmit} className="flex items-center gap-3 rounded-md border border-scale-200 bg-white p-4 text-sm">
         <label className="grid gap-1">Cut list (.csv) or programs (.json)
           <input type="file" name="file" accept=".csv,.json,text/csv,application/json" required />
         </label>
         <button disabled={pending} className="rounded-md bg-ink px-3 py-1.5 font-medium text-scale-50 disabled:opacity-60">{pending ? "Checking…" : "Check and import"}</button>
       </form>
-      {state?.error && <p role="alert" className="text-sm text-fault">{state.error}</p>}
+      <ActionMessage result={form.result} success="" />
+      {state?.message && <p role="alert" className="text-sm text-fault">{state.message}</p>}
       {state?.errors && (
         <div role="alert" className="rounded-md border border-fault/40 bg-fault-light p-4 text-sm" data-testid="upload-errors">
           <p className="font-semibold text-fault">Nothing was imported: fix these rows and upload the file again.</p>

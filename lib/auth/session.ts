@@ -9,6 +9,7 @@ import { redirect } from "next/navigation";
 import { Membership } from "../../entities";
 import type { Role } from "../../entities/Membership";
 import { requestEm } from "../db/orm";
+import { sessionActive } from "../services/sessions";
 import { authOptions } from "./options";
 import { can, type Permission } from "./roles";
 
@@ -26,12 +27,13 @@ export interface Member {
 
 export class NotAllowedError extends Error {}
 
-/** The current member, or a redirect to sign-in. */
+/** The current member, or a redirect to sign-in (no session, or one that was ended on the server). */
 export async function currentMember(): Promise<Member> {
   const session = await getServerSession(authOptions);
-  const userId = (session?.user as { id?: string } | undefined)?.id;
-  if (!userId) redirect("/signin");
+  const { id: userId, sid } = (session?.user as { id?: string; sid?: string } | undefined) ?? {};
+  if (!userId || !sid) redirect("/signin");
   const em = await requestEm();
+  if (!(await sessionActive(em, sid, userId))) redirect("/signin?error=session-ended");
   const memberships = await em.find(Membership, { user: userId }, { populate: ["shop", "user"], orderBy: { createdAt: "asc" } });
   if (!memberships.length) redirect("/signin?error=no-shop");
   const wanted = (await cookies()).get(SHOP_COOKIE)?.value;

@@ -4,9 +4,9 @@
  */
 import { createHash, randomBytes } from "node:crypto";
 import type { EntityManager } from "@mikro-orm/postgresql";
-import { ApiKey, Shop, type ApiKeyEntity } from "../../entities";
+import { ApiKey, Shear, Shop, type ApiKeyEntity } from "../../entities";
 import type { Scope } from "../../entities/ApiKey";
-import { notFound, unauthorized } from "../api/errors";
+import { invalidRequest, notFound, unauthorized } from "../api/errors";
 
 export const KEY_PREFIX = "swk_live_";
 const VISIBLE = KEY_PREFIX.length + 4;
@@ -52,7 +52,20 @@ export function viewKey(k: ApiKeyEntity): ApiKeyView {
   };
 }
 
+/** A key may be bound only to this shop's shears that are in use. */
+async function checkShears(em: EntityManager, shopId: string, shearIds: string[]) {
+  if (!shearIds.length) return;
+  const found = await em.find(Shear, { id: { $in: shearIds }, shop: shopId, archivedAt: null }, { fields: ["id"] });
+  const known = new Set(found.map((s) => s.id));
+  const index = shearIds.findIndex((id) => !known.has(id));
+  if (index >= 0) {
+    const message = "no shear in use with that id in this shop";
+    throw invalidRequest(`The key cannot be bound to ${shearIds[index]}: ${message}.`, [{ location: "body", pointer: `/shears/${index}`, message }]);
+  }
+}
+
 export async function createKey(em: EntityManager, shopId: string, input: NewKey) {
+  await checkShears(em, shopId, input.shearIds ?? []);
   const secret = `${KEY_PREFIX}${randomBytes(24).toString("base64url")}`;
   const key = em.create(ApiKey, {
     shop: em.getReference(Shop, shopId),

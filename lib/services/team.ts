@@ -8,11 +8,12 @@ import bcrypt from "bcryptjs";
 import { Invitation, Membership, Shop, User } from "../../entities";
 import type { Role } from "../../entities/Membership";
 import { conflict, invalidRequest, notFound } from "../api/errors";
+import { MIN_PASSWORD } from "../schemas/team";
 import { sendMail } from "./mail";
+import { endUserSessions } from "./sessions";
 
 const INVITE_DAYS = 7;
 const digest = (token: string) => createHash("sha256").update(token).digest("hex");
-export const MIN_PASSWORD = 10;
 
 export async function listTeam(em: EntityManager, shopId: string) {
   const members = await em.find(Membership, { shop: shopId }, { populate: ["user"], orderBy: { createdAt: "asc" } });
@@ -60,7 +61,10 @@ export async function acceptInvitation(em: EntityManager, token: string, name: s
     let user = await tx.findOne(User, { email: inv.email });
     const hash = await bcrypt.hash(password, 10);
     if (!user) user = tx.create(User, { email: inv.email, name: name.trim() || inv.email, passwordHash: hash });
-    else if (!user.passwordHash) user.passwordHash = hash;
+    else if (!user.passwordHash) {
+      user.passwordHash = hash;
+      await endUserSessions(tx, user.id, "password-changed");
+    }
     tx.create(Membership, { user, shop: inv.shop, role: inv.role });
     inv.acceptedAt = new Date();
     return { email: inv.email };
@@ -75,15 +79,20 @@ export async function changeRole(em: EntityManager, shopId: string, membershipId
   const m = await em.findOne(Membership, { id: membershipId, shop: shopId });
   if (!m) throw notFound("member");
   if (m.role === "owner" && role !== "owner" && (await owners(em, shopId)) <= 1) throw conflict("A shop keeps at least one owner: make someone else owner first.");
+  const changed = m.role !== role;
   m.role = role;
   await em.flush();
+  // The person's sessions carried the old role: end them, so the new one applies from their next sign-in.
+  if (changed) await endUserSessions(em, m.user.id, "role-changed");
 }
 
 export async function removeMember(em: EntityManager, shopId: string, membershipId: string) {
   const m = await em.findOne(Membership, { id: membershipId, shop: shopId });
   if (!m) throw notFound("member");
   if (m.role === "owner" && (await owners(em, shopId)) <= 1) throw conflict("The last owner cannot be removed.");
+  const userId = m.user.id;
   await em.remove(m).flush();
+  await endUserSessions(em, userId, "removed");
 }
 
 export async function revokeInvitation(em: EntityManager, shopId: string, id: string) {

@@ -1,6 +1,6 @@
 import { KeyForm } from "@/components/console/KeyForm";
 import { Badge, PageHeader, Table, Td, when } from "@/components/ui";
-import { ConfirmButton } from "@/components/ui/ConfirmButton";
+import { ActionForm } from "@/components/console/ActionForm";
 import { Shear } from "@/entities";
 import { SCOPES } from "@/entities/ApiKey";
 import { can } from "@/lib/auth/roles";
@@ -34,10 +34,8 @@ export default async function Keys() {
               <Td><Badge value={state(k)} /></Td>
               <Td>
                 {manage && !k.revokedAt && (
-                  <form action={revokeKeyAction}>
-                    <input type="hidden" name="id" value={k.id} />
-                    <ConfirmButton className="text-xs text-fault hover:underline" question={`Revoke ${k.name} (${k.prefix}…)? Requests with it fail from the next one on.`}>Revoke</ConfirmButton>
-                  </form>
+                  <ActionForm action={revokeKeyAction} fields={{ id: k.id }} label={`Revoke key ${k.name}`} buttonClassName="text-xs text-fault hover:underline"
+                    confirm={`Revoke ${k.name} (${k.prefix}…)? Requests with it fail from the next one on.`}>Revoke</ActionForm>
                 )}
               </Td>
             </tr>

@@ -3,14 +3,13 @@
 import { revalidatePath } from "next/cache";
 import { redirect } from "next/navigation";
 import { ApiError } from "@/lib/api/errors";
-import { requirePermission } from "@/lib/auth/session";
-import { requestEm } from "@/lib/db/orm";
+import { zfd } from "zod-form-data";
+import { memberAction } from "@/lib/auth/action";
 import { PlanInput } from "@/lib/schemas/plan";
+import { z } from "@/lib/schemas/zod";
 import { parseBlanksCsv, type RowError } from "@/lib/services/import";
 import { createPlan, writePrograms } from "@/lib/services/plans";
 
-/** What went wrong, and what was sent (the form shows it again: a form action resets the form). */
-export type PlanFormState = { error?: string; errors?: RowError[]; fields?: { field: string; message: string }[]; values?: Record<string, string> } | null;
 
 const MAX_BYTES = 1_048_576;
 const text = (v: FormDataEntryValue | null) => (typeof v === "string" && v.trim() !== "" ? v.trim() : undefined);
@@ -24,35 +23,25 @@ function parseStock(v: string | undefined) {
   });
 }
 
-/** The planner form: blanks from an uploaded cut list (CSV) or pasted rows, checked with the API's schema. */
-export async function planAction(_prev: PlanFormState, form: FormData): Promise<PlanFormState> {
-  const state = await planOrRefuse(form);
-  if (typeof state === "string") {
-    revalidatePath("/console/plans");
-    redirect(`/console/plans/${state}`);
-  }
-  return state;
-}
+/** Why nothing was planned; `csv` is an uploaded file's rows, for the form to show in its rows box to be fixed there. */
+export type PlanRefusal = { message?: string; errors?: RowError[]; fields?: { field: string; message: string }[]; csv?: string };
 
-async function planOrRefuse(form: FormData): Promise<string | NonNullable<PlanFormState>> {
-  const values: Record<string, string> = {};
-  for (const [k, v] of form.entries()) if (typeof v === "string") values[k] = v;
-  const refuse = (s: Omit<NonNullable<PlanFormState>, "values">) => ({ ...s, values });
-  let id: string;
-  try {
-    const member = await requirePermission("programs:write");
+/** The planner form: blanks from an uploaded cut list (CSV) or pasted rows, checked with the API's schema. */
+export const planAction = memberAction("programs:write")
+  .inputSchema(z.instanceof(FormData))
+  .action(async ({ parsedInput: form, ctx: { member, em } }): Promise<{ refused: PlanRefusal }> => {
+    let fromFile: string | undefined;
+    const refused = (r: PlanRefusal) => ({ refused: { ...r, csv: fromFile } });
     const file = form.get("file");
     let csv = text(form.get("blanks"));
     if (file instanceof File && file.size > 0) {
-      if (file.size > MAX_BYTES) return refuse({ error: "The file is larger than 1 MiB." });
-      csv = await file.text();
-      values.blanks = csv; // shown in the rows box, to be fixed there
+      if (file.size > MAX_BYTES) return refused({ message: "The file is larger than 1 MiB." });
+      csv = fromFile = await file.text();
     }
-    if (!csv) return refuse({ error: "Upload a cut list (.csv) or paste its rows." });
+    if (!csv) return refused({ message: "Upload a cut list (.csv) or paste its rows." });
     const parsed = parseBlanksCsv(csv);
-    if (parsed.errors.length) return refuse({ errors: parsed.errors });
+    if (parsed.errors.length) return refused({ errors: parsed.errors });
     const thicknessKind = text(form.get("thicknessKind")) ?? "value";
-    const objective = text(form.get("objective"));
     const reusableLength = num(form.get("reusableLength"));
     const reusableWidth = num(form.get("reusableWidth"));
     const input = {
@@ -65,7 +54,7 @@ async function planOrRefuse(form: FormData): Promise<string | NonNullable<PlanFo
       stock: parseStock(text(form.get("stock"))),
       blanks: parsed.blanks,
       options: JSON.parse(JSON.stringify({
-        objective,
+        objective: text(form.get("objective")),
         trim: num(form.get("trim")),
         overProductionPct: num(form.get("overProductionPct")),
         reusableOffcut: reusableLength && reusableWidth ? { length: reusableLength, width: reusableWidth } : undefined,
@@ -74,7 +63,7 @@ async function planOrRefuse(form: FormData): Promise<string | NonNullable<PlanFo
     };
     const result = PlanInput.safeParse(input);
     if (!result.success) {
-      return refuse({
+      return refused({
         fields: result.error.issues.map((i) => {
           const [head, row, ...rest] = i.path;
           const field = head === "blanks" && typeof row === "number" ? `row ${row + 2}${rest.length ? ` · ${rest.join(".")}` : ""}` : i.path.join(".") || "form";
@@ -82,29 +71,23 @@ async function planOrRefuse(form: FormData): Promise<string | NonNullable<PlanFo
         }),
       });
     }
-    const plan = await createPlan(await requestEm(), member.shopId, result.data);
-    id = plan.id;
-  } catch (err) {
-    if (err instanceof ApiError) {
+    let id: string;
+    try {
+      id = (await createPlan(em, member.shopId, result.data)).id;
+    } catch (err) {
+      if (!(err instanceof ApiError) || err.status >= 500) throw err;
       const errs = (err.extensions.errors as { pointer: string; message: string }[] | undefined) ?? [];
-      return refuse({ error: err.message, fields: errs.map((e) => ({ field: e.pointer.slice(1).replace(/\//g, "."), message: e.message })) });
+      return refused({ message: err.message, fields: errs.map((e) => ({ field: e.pointer.slice(1).replace(/\//g, "."), message: e.message })) });
     }
-    return refuse({ error: (err as Error).message });
-  }
-  return id;
-}
+    revalidatePath("/console/plans");
+    redirect(`/console/plans/${id}`);
+  });
 
-export type WriteState = { error?: string } | null;
-
-export async function writeProgramsAction(_prev: WriteState, form: FormData): Promise<WriteState> {
-  const id = String(form.get("plan") ?? "");
-  try {
-    const member = await requirePermission("programs:write");
-    await writePrograms(await requestEm(), member.shopId, id, { referencePrefix: text(form.get("prefix")) });
-  } catch (err) {
-    return { error: (err as Error).message };
-  }
-  revalidatePath(`/console/plans/${id}`);
-  revalidatePath("/console/programs");
-  return null;
-}
+export const writeProgramsAction = memberAction("programs:write")
+  .inputSchema(zfd.formData({ plan: zfd.text(z.string().max(64)), prefix: zfd.text(z.string().trim().max(90).optional()) }))
+  .action(async ({ parsedInput, ctx: { member, em } }) => {
+    const written = await writePrograms(em, member.shopId, parsedInput.plan, { referencePrefix: parsedInput.prefix });
+    revalidatePath(`/console/plans/${parsedInput.plan}`);
+    revalidatePath("/console/programs");
+    return { message: `${written.data.length} draft program${written.data.length === 1 ? "" : "s"} written.` };
+  });

@@ -1,29 +1,26 @@
 "use server";
 
 import { revalidatePath } from "next/cache";
-import { ApiError } from "@/lib/api/errors";
-import { requirePermission } from "@/lib/auth/session";
-import { requestEm } from "@/lib/db/orm";
+import { zfd } from "zod-form-data";
+import { memberAction } from "@/lib/auth/action";
+import { z } from "@/lib/schemas/zod";
 import { cancelProgram, releaseProgram } from "@/lib/services/programs";
 
-export type ActionState = { ok?: string; error?: string } | null;
+const id = zfd.text(z.string().max(64));
 
-/** Release or cancel, for roles allowed to; the services apply the same rules as the API. */
-export async function programAction(_prev: ActionState, form: FormData): Promise<ActionState> {
-  try {
-    const member = await requirePermission("programs:release");
-    const id = String(form.get("id"));
-    const em = await requestEm();
-    if (form.get("action") === "release") {
-      const ack = form.getAll("acknowledge").map(String);
-      await releaseProgram(em, member.shopId, id, ack);
-      revalidatePath(`/console/programs/${id}`);
-      return { ok: "Released: the gateway beside the shear can claim it now." };
-    }
-    await cancelProgram(em, member.shopId, id, "cancelled in the console");
-    revalidatePath(`/console/programs/${id}`);
-    return { ok: "Cancelled." };
-  } catch (err) {
-    return { error: err instanceof ApiError ? err.message : (err as Error).message };
-  }
-}
+/** Release for roles allowed to; the service applies the same rules as the API (a fresh check, warnings acknowledged). */
+export const releaseAction = memberAction("programs:release")
+  .inputSchema(zfd.formData({ id, acknowledge: zfd.repeatable(z.array(z.string().max(64)).max(50)) }))
+  .action(async ({ parsedInput, ctx: { member, em } }) => {
+    await releaseProgram(em, member.shopId, parsedInput.id, parsedInput.acknowledge);
+    revalidatePath(`/console/programs/${parsedInput.id}`);
+    return { message: "Released: the gateway beside the shear can claim it now." };
+  });
+
+export const cancelAction = memberAction("programs:release")
+  .inputSchema(zfd.formData({ id }))
+  .action(async ({ parsedInput, ctx: { member, em } }) => {
+    await cancelProgram(em, member.shopId, parsedInput.id, "cancelled in the console");
+    revalidatePath(`/console/programs/${parsedInput.id}`);
+    return { message: "Cancelled." };
+  });

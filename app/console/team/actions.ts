@@ -1,40 +1,43 @@
 "use server";
 
 import { revalidatePath } from "next/cache";
-import { ROLES, type Role } from "@/entities/Membership";
-import { ApiError } from "@/lib/api/errors";
-import { requirePermission } from "@/lib/auth/session";
-import { requestEm } from "@/lib/db/orm";
+import { zfd } from "zod-form-data";
+import { memberAction } from "@/lib/auth/action";
+import { ROLES } from "@/lib/schemas/enums";
+import { InviteInput } from "@/lib/schemas/team";
+import { z } from "@/lib/schemas/zod";
 import * as team from "@/lib/services/team";
 
-export type TeamState = { ok?: string; error?: string } | null;
-const role = (v: FormDataEntryValue | null): Role => (ROLES.includes(String(v) as Role) ? (String(v) as Role) : "viewer");
-const fail = (err: unknown): TeamState => ({ error: err instanceof ApiError ? err.message : (err as Error).message });
+const id = zfd.text(z.string().max(64));
+const done = <T extends object>(value: T) => {
+  revalidatePath("/console/team");
+  return value;
+};
 
-export async function inviteAction(_prev: TeamState, form: FormData): Promise<TeamState> {
-  try {
-    const member = await requirePermission("team:manage");
-    const email = String(form.get("email") ?? "");
-    await team.invite(await requestEm(), member.shopId, member, email, role(form.get("role")));
-    revalidatePath("/console/team");
-    return { ok: `Invitation sent to ${email}.` };
-  } catch (err) {
-    return fail(err);
-  }
-}
+export const inviteAction = memberAction("team:manage")
+  .inputSchema(zfd.formData({ email: zfd.text(InviteInput.shape.email), role: zfd.text(InviteInput.shape.role) }))
+  .action(async ({ parsedInput, ctx: { member, em } }) => {
+    await team.invite(em, member.shopId, member, parsedInput.email, parsedInput.role);
+    return done({ message: `Invitation sent to ${parsedInput.email}.` });
+  });
 
-export async function memberAction(_prev: TeamState, form: FormData): Promise<TeamState> {
-  try {
-    const member = await requirePermission("team:manage");
-    const em = await requestEm();
-    const id = String(form.get("id"));
-    const action = String(form.get("action"));
-    if (action === "role") await team.changeRole(em, member.shopId, id, role(form.get("role")));
-    else if (action === "remove") await team.removeMember(em, member.shopId, id);
-    else if (action === "revoke-invite") await team.revokeInvitation(em, member.shopId, id);
-    revalidatePath("/console/team");
-    return { ok: "Saved." };
-  } catch (err) {
-    return fail(err);
-  }
-}
+export const changeRoleAction = memberAction("team:manage")
+  .inputSchema(zfd.formData({ id, role: zfd.text(z.enum(ROLES)) }))
+  .action(async ({ parsedInput, ctx: { member, em } }) => {
+    await team.changeRole(em, member.shopId, parsedInput.id, parsedInput.role);
+    return done({ message: `Now ${parsedInput.role}.` });
+  });
+
+export const removeMemberAction = memberAction("team:manage")
+  .inputSchema(zfd.formData({ id }))
+  .action(async ({ parsedInput, ctx: { member, em } }) => {
+    await team.removeMember(em, member.shopId, parsedInput.id);
+    return done({ message: "Removed." });
+  });
+
+export const withdrawInviteAction = memberAction("team:manage")
+  .inputSchema(zfd.formData({ id }))
+  .action(async ({ parsedInput, ctx: { member, em } }) => {
+    await team.revokeInvitation(em, member.shopId, parsedInput.id);
+    return done({ message: "Withdrawn." });
+  });

@@ -30,14 +30,14 @@ export default async function Team() {
                 <Td>{m.name}{m.userId === member.userId ? " (you)" : ""}</Td>
                 <Td mono>{m.email}</Td>
                 <Td><Badge value="draft" label={m.role} /></Td>
-                {manage && <Td><MemberControls id={m.id} role={m.role} self={m.userId === member.userId} /></Td>}
+                {manage && <Td><MemberControls id={m.id} name={m.name} role={m.role} self={m.userId === member.userId} /></Td>}
               </tr>
             ))}
           </Table>
           {invitations.length > 0 && (
             <Table head={["Invited", "Role", "Link expires", ""]}>
               {invitations.map((i) => (
-                <tr key={i.id}><Td mono>{i.email}</Td><Td>{i.role}</Td><Td mono>{when(i.expiresAt)}</Td><Td>{manage && <RevokeInvite id={i.id} />}</Td></tr>
+                <tr key={i.id}><Td mono>{i.email}</Td><Td>{i.role}</Td><Td mono>{when(i.expiresAt)}</Td><Td>{manage && <RevokeInvite id={i.id} email={i.email} />}</Td></tr>
               ))}
             </Table>
           )}

@@ -1,69 +1,60 @@
 "use server";
 
 import { revalidatePath } from "next/cache";
-import { ApiError } from "@/lib/api/errors";
-import { requirePermission } from "@/lib/auth/session";
-import { requestEm } from "@/lib/db/orm";
-import { EVENT_TYPES } from "@/lib/services/event-types";
+import { zfd } from "zod-form-data";
+import { memberAction } from "@/lib/auth/action";
+import { EndpointInput, EventType } from "@/lib/schemas/webhook";
+import { z } from "@/lib/schemas/zod";
 import * as webhooks from "@/lib/services/webhooks";
 
-export type HookState = { secret?: string; ok?: string; error?: string } | null;
+// The API's own schema: the same address rules (http or https, length) and the same event types.
+const fields = EndpointInput.shape;
+const id = zfd.text(z.string().max(64));
+const done = <T extends object>(value: T) => {
+  revalidatePath("/console/webhooks");
+  return value;
+};
 
-const message = (err: unknown) => (err instanceof ApiError ? err.message : (err as Error).message);
+export const createEndpointAction = memberAction("webhooks:manage")
+  .inputSchema(zfd.formData({ url: zfd.text(fields.url), description: zfd.text(fields.description), eventTypes: zfd.repeatable(z.array(EventType).max(50)) }))
+  .action(async ({ parsedInput, ctx: { member, em } }) => {
+    const { secret } = await webhooks.createEndpoint(em, member.shopId, parsedInput);
+    return done({ secret, message: "Endpoint added." });
+  });
 
-export async function createEndpointAction(_prev: HookState, form: FormData): Promise<HookState> {
-  try {
-    const member = await requirePermission("webhooks:manage");
-    const types = form.getAll("eventTypes").map(String).filter((t) => (EVENT_TYPES as readonly string[]).includes(t));
-    const url = String(form.get("url") ?? "");
-    try {
-      new URL(url);
-    } catch {
-      return { error: "Enter a full http:// or https:// address." };
-    }
-    const { secret } = await webhooks.createEndpoint(await requestEm(), member.shopId, { url, description: String(form.get("description") ?? "") || undefined, eventTypes: types });
-    revalidatePath("/console/webhooks");
-    return { secret, ok: "Endpoint added." };
-  } catch (err) {
-    return { error: message(err) };
-  }
-}
+export const testEndpointAction = memberAction("webhooks:test")
+  .inputSchema(zfd.formData({ id }))
+  .action(async ({ parsedInput, ctx: { member, em } }) => {
+    await webhooks.sendTestEvent(em, member.shopId, parsedInput.id);
+    return done({ message: "Test event queued; its delivery appears below in a moment." });
+  });
 
-export async function endpointAction(_prev: HookState, form: FormData): Promise<HookState> {
-  const id = String(form.get("id"));
-  const action = String(form.get("action"));
-  try {
-    if (action === "test") {
-      const member = await requirePermission("webhooks:test");
-      await webhooks.sendTestEvent(await requestEm(), member.shopId, id);
-      revalidatePath("/console/webhooks");
-      return { ok: "Test event queued; its delivery appears below in a moment." };
-    }
-    const member = await requirePermission("webhooks:manage");
-    const em = await requestEm();
-    if (action === "rotate") {
-      const { secret } = await webhooks.rotateSecret(em, member.shopId, id);
-      revalidatePath("/console/webhooks");
-      return { secret, ok: "New secret. For 24 hours deliveries carry signatures with both secrets." };
-    }
-    if (action === "enable" || action === "disable") {
-      await webhooks.updateEndpoint(em, member.shopId, id, { enabled: action === "enable" });
-      revalidatePath("/console/webhooks");
-      return { ok: action === "enable" ? "Enabled." : "Disabled." };
-    }
-    if (action === "filter") {
-      const types = form.getAll("eventTypes").map(String).filter((t) => (EVENT_TYPES as readonly string[]).includes(t));
-      await webhooks.updateEndpoint(em, member.shopId, id, { eventTypes: types });
-      revalidatePath("/console/webhooks");
-      return { ok: types.length ? `Now receives ${types.length} event type${types.length === 1 ? "" : "s"}.` : "Now receives every event type." };
-    }
-    if (action === "resend") {
-      await webhooks.resend(em, member.shopId, String(form.get("event")), id);
-      revalidatePath("/console/webhooks");
-      return { ok: "Resent." };
-    }
-    return { error: "Unknown action." };
-  } catch (err) {
-    return { error: message(err) };
-  }
-}
+export const rotateSecretAction = memberAction("webhooks:manage")
+  .inputSchema(zfd.formData({ id }))
+  .action(async ({ parsedInput, ctx: { member, em } }) => {
+    const { secret } = await webhooks.rotateSecret(em, member.shopId, parsedInput.id);
+    return done({ secret, message: "New secret. For 24 hours deliveries carry signatures with both secrets." });
+  });
+
+export const setEnabledAction = memberAction("webhooks:manage")
+  .inputSchema(zfd.formData({ id, enabled: zfd.text(z.enum(["true", "false"])) }))
+  .action(async ({ parsedInput, ctx: { member, em } }) => {
+    const enabled = parsedInput.enabled === "true";
+    await webhooks.updateEndpoint(em, member.shopId, parsedInput.id, { enabled });
+    return done({ message: enabled ? "Enabled." : "Disabled." });
+  });
+
+export const eventTypesAction = memberAction("webhooks:manage")
+  .inputSchema(zfd.formData({ id, eventTypes: zfd.repeatable(z.array(EventType).max(50)) }))
+  .action(async ({ parsedInput, ctx: { member, em } }) => {
+    const types = parsedInput.eventTypes;
+    await webhooks.updateEndpoint(em, member.shopId, parsedInput.id, { eventTypes: types });
+    return done({ message: types.length ? `Now receives ${types.length} event type${types.length === 1 ? "" : "s"}.` : "Now receives every event type." });
+  });
+
+export const resendAction = memberAction("webhooks:manage")
+  .inputSchema(zfd.formData({ id, event: zfd.text(z.string().max(64)) }))
+  .action(async ({ parsedInput, ctx: { member, em } }) => {
+    await webhooks.resend(em, member.shopId, parsedInput.event, parsedInput.id);
+    return done({ message: "Resent." });
+  });

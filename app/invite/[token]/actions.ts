@@ -1,16 +1,16 @@
 "use server";
 
 import { redirect } from "next/navigation";
-import { ApiError } from "@/lib/api/errors";
-import { requestEm } from "@/lib/db/orm";
+import { zfd } from "zod-form-data";
+import { publicAction } from "@/lib/auth/action";
+import { AcceptInput } from "@/lib/schemas/team";
 import { acceptInvitation } from "@/lib/services/team";
 
-export async function acceptAction(_prev: { error?: string } | null, form: FormData) {
-  let email: string;
-  try {
-    ({ email } = await acceptInvitation(await requestEm(), String(form.get("token")), String(form.get("name") ?? ""), String(form.get("password") ?? "")));
-  } catch (err) {
-    return { error: err instanceof ApiError ? err.message : "Something went wrong; try the link again." };
-  }
-  redirect(`/signin?joined=${encodeURIComponent(email)}`);
-}
+const fields = AcceptInput.shape;
+
+export const acceptAction = publicAction
+  .inputSchema(zfd.formData({ token: zfd.text(fields.token), name: zfd.text(fields.name), password: zfd.text(fields.password) }))
+  .action(async ({ parsedInput, ctx: { em } }) => {
+    const { email } = await acceptInvitation(em, parsedInput.token, parsedInput.name, parsedInput.password);
+    redirect(`/signin?joined=${encodeURIComponent(email)}`);
+  });

@@ -3,7 +3,7 @@ import { notFound } from "next/navigation";
 import { archiveAction } from "@/app/console/catalog-actions";
 import { ShearForm } from "@/components/console/CatalogForms";
 import { PageHeader } from "@/components/ui";
-import { ConfirmButton } from "@/components/ui/ConfirmButton";
+import { ActionForm } from "@/components/console/ActionForm";
 import { Shear } from "@/entities";
 import { can } from "@/lib/auth/roles";
 import { currentMember } from "@/lib/auth/session";
@@ -24,9 +24,7 @@ export default async function ShearPage({ params }: { params: Promise<{ id: stri
       <p className="mb-1 text-xs"><Link href="/console/shears" className="text-edge hover:underline">← Shears</Link></p>
       <PageHeader title={s.name} lead={<span className="font-mono text-xs">{s.id}{s.archivedAt ? " · archived" : ""}</span>}>
         {manage && !s.archivedAt && (
-          <form action={archiveAction}><input type="hidden" name="id" value={s.id} />
-            <ConfirmButton question="Archive this shear? It takes no new programs." className="rounded border border-fault/50 px-2 py-1 text-xs text-fault">Archive</ConfirmButton>
-          </form>
+          <ActionForm action={archiveAction} fields={{ id: s.id }} confirm="Archive this shear? It takes no new programs." buttonClassName="rounded border border-fault/50 px-2 py-1 text-xs text-fault">Archive</ActionForm>
         )}
       </PageHeader>
       <section className="max-w-2xl rounded-md border border-scale-200 bg-white p-4">

@@ -27,7 +27,8 @@
  * Identical pieces are kept as one size with a count, so a group's cost does
  * not grow with its stroke count.
  */
-import type { GroupYield, LengthUnit, PieceReport, YieldReport, YieldTotals } from "./types";
+import type { LengthUnit } from "./types";
+import type { GroupYield, PieceReport, YieldReport, YieldTotals } from "./reports";
 import { areaUnitFor, showArea, showLength, showPct } from "./units";
 
 /** Remnant width equal to the backgauge within this, mm (≈ 0.004 in: about a backgauge's positioning accuracy, common practice). */

@@ -5,7 +5,8 @@
  * sentence with the rule and its inputs. Computed settings are recommendations
  * for a qualified operator; the machine's manual and local codes come first.
  */
-import type { GradeFamily, GradeProfile, LengthUnit, SetupReport, SetupValue, ShearProfile } from "./types";
+import type { GradeFamily, GradeProfile, LengthUnit, ShearProfile } from "./types";
+import type { SetupReport, SetupValue } from "./reports";
 import { DULL_BLADE_FACTOR, rakeForForceDeg } from "./force";
 import { fmtDeg, fmtForce, fmtLength, fmtPct, fmtStrength, DECIMALS, roundTo, showLength } from "./units";
 

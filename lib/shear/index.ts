@@ -15,6 +15,7 @@ export * from "./gauges";
 export * from "./grades";
 export * from "./force";
 export * from "./setup";
+export * from "./gap";
 export * from "./flow";
 export * from "./findings";
 export * from "./estimate";

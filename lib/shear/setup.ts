@@ -8,23 +8,8 @@
 import type { GradeFamily, GradeProfile, LengthUnit, ShearProfile } from "./types";
 import type { SetupReport, SetupValue } from "./reports";
 import { DULL_BLADE_FACTOR, rakeForForceDeg } from "./force";
-import { fmtDeg, fmtForce, fmtLength, fmtPct, fmtStrength, DECIMALS, roundTo, showLength } from "./units";
-
-/**
- * Blade gap as a percentage of thickness, by family. The usual span is about
- * 4–10 % (common practice): soft aluminium and copper low, mild steel in the
- * middle (7 % is a common default), stainless higher. High-strength plate
- * follows a plate maker's shearing guidance: 9–12 % for 65 ksi plate (we take
- * 10 %), 16–18 % for 181 ksi plate (we take 16 % for abrasion-resistant plate).
- */
-export const GAP_PCT_BY_FAMILY: Readonly<Record<GradeFamily, number>> = {
-  aluminium: 5,
-  copper: 5,
-  "carbon-steel": 7,
-  stainless: 9,
-  "hsla-steel": 10,
-  "abrasion-resistant": 16,
-};
+import { GAP_RULES, recommendGap } from "./gap";
+import { fmtDeg, fmtForce, fmtLength, fmtNumber, fmtPct, fmtStrength, DECIMALS, roundTo, showLength } from "./units";
 
 const FAMILY_LABEL: Readonly<Record<GradeFamily, string>> = {
   aluminium: "aluminium",
@@ -47,22 +32,6 @@ export const YIELD_FROM_TENSILE_WHEN_MISSING = 0.5;
 export const DEFAULT_CROWN_AT_RATED_MM = 0.2;
 /** Backgauge retract after clamping: about 0.1 in (common practice). */
 export const BACKGAUGE_RETRACT_MM = 2.54;
-
-export interface GapRecommendation {
-  mm: number;
-  idealMm: number;
-  pct: number;
-  clamped: "min" | "max" | null;
-}
-
-/** Gap = family percentage × thickness, clamped to the shear's gap range. */
-export function recommendGap(thicknessMm: number, family: GradeFamily, shear: ShearProfile): GapRecommendation {
-  const pct = GAP_PCT_BY_FAMILY[family];
-  const idealMm = (pct / 100) * thicknessMm;
-  if (idealMm < shear.gapMinMm) return { mm: shear.gapMinMm, idealMm, pct, clamped: "min" };
-  if (idealMm > shear.gapMaxMm) return { mm: shear.gapMaxMm, idealMm, pct, clamped: "max" };
-  return { mm: idealMm, idealMm, pct, clamped: null };
-}
 
 export interface RakeRecommendation {
   deg: number;
@@ -208,23 +177,29 @@ function resolveRake(i: SetupInputs): { deg: number; value: SetupValue } {
   return { deg: rec.deg, value: computed(roundTo(rec.deg, DECIMALS.deg), "deg", why) };
 }
 
-function resolveGap(i: SetupInputs): { mm: number; value: SetupValue } {
-  const { shear, units: u } = i;
-  const rec = recommendGap(i.thicknessMm, i.grade.family, shear);
-  const range = rangeText(fmtLength(shear.gapMinMm, u), fmtLength(shear.gapMaxMm, u));
-  const rule = `${rec.pct} % of the ${fmtLength(i.thicknessMm, u)} thickness for ${FAMILY_LABEL[i.grade.family]}`;
-  if (i.given.gapMm !== null) {
-    const mm = i.given.gapMm;
+function resolveGap(inputs: SetupInputs): { mm: number; value: SetupValue } {
+  const { shear, units } = inputs;
+  const family = inputs.grade.family;
+  const recommendation = recommendGap(inputs.thicknessMm, family, shear);
+  const range = rangeText(fmtLength(shear.gapMinMm, units), fmtLength(shear.gapMaxMm, units));
+  const anchors = GAP_RULES[family];
+  const rule =
+    `${fmtNumber(recommendation.pct, 1)} % of the ${fmtLength(inputs.thicknessMm, units)} thickness for ${FAMILY_LABEL[family]} ` +
+    `(the share falls as material gets thicker: ${anchors.thin.pct} % at ${fmtLength(anchors.thin.thicknessMm, units)}, ${anchors.thick.pct} % at ${fmtLength(anchors.thick.thicknessMm, units)})`;
+  if (inputs.given.gapMm !== null) {
+    const mm = inputs.given.gapMm;
     const inRange = mm >= shear.gapMinMm && mm <= shear.gapMaxMm;
     const where = inRange ? `inside this shear's ${range} range` : `OUTSIDE this shear's ${range} range`;
-    return { mm, value: given(showLength(mm, u), u, `Given in the program, ${where}; our rule (${rule}) gives ${fmtLength(rec.mm, u)}.`) };
+    return { mm, value: given(showLength(mm, units), units, `Given in the program, ${where}; our rule, ${rule}, gives ${fmtLength(recommendation.mm, units)}.`) };
   }
   let why: string;
-  if (rec.clamped === "min") why = `${rule} would be ${fmtLength(rec.idealMm, u)}, below this shear's smallest gap, so its minimum is used.`;
-  else if (rec.clamped === "max") why = `${rule} would be ${fmtLength(rec.idealMm, u)}, above this shear's largest gap, so its maximum is used.`;
-  else why = `${rule} = ${fmtLength(rec.mm, u)}, inside this shear's ${range} range.`;
-  return { mm: rec.mm, value: computed(showLength(rec.mm, u), u, why) };
+  if (recommendation.clamped === "min") why = `${capitalise(rule)} would be ${fmtLength(recommendation.idealMm, units)}, below this shear's smallest gap, so its minimum is used.`;
+  else if (recommendation.clamped === "max") why = `${capitalise(rule)} would be ${fmtLength(recommendation.idealMm, units)}, above this shear's largest gap, so its maximum is used.`;
+  else why = `${capitalise(rule)} = ${fmtLength(recommendation.mm, units)}, inside this shear's ${range} range.`;
+  return { mm: recommendation.mm, value: computed(showLength(recommendation.mm, units), units, why) };
 }
+
+const capitalise = (text: string): string => text.charAt(0).toUpperCase() + text.slice(1);
 
 function resolveHoldDown(i: SetupInputs): { pct: number; value: SetupValue } {
   const rec = recommendHoldDown(i.grade, i.tensileMpa);

@@ -134,7 +134,15 @@ export const Check = z
       .object({ value: z.number(), unit: z.enum(["in", "mm"]), source: z.enum(["value", "gauge"]), gauge: z.number().nullable(), gaugeFamily: z.string().nullable() })
       .nullable(),
     setup: z
-      .object({ bladeGap: SetupValue, rake: SetupValue, holdDown: SetupValue, crown: SetupValue, backgaugeRetract: SetupValue })
+      .object({
+        bladeGap: SetupValue.openapi({ description: "The gap the material needs at this thickness (set at the blade ends)" }),
+        gapEnds: SetupValue.optional().openapi({ description: "Gap to set at the ends of the blade (absent from checks stored before it was reported)" }),
+        gapCentre: SetupValue.optional().openapi({ description: "Gap to set at the centre: the ends less the crown (absent from checks stored before it was reported)" }),
+        rake: SetupValue,
+        holdDown: SetupValue,
+        crown: SetupValue.openapi({ description: "Ends minus centre: a baseline with no load plus a part proportional to the force" }),
+        backgaugeRetract: SetupValue,
+      })
       .nullable()
       .openapi({ description: "Recommendations for a qualified operator, each with its reason; never a guarantee." }),
     force: z

@@ -24,7 +24,8 @@ const ShearFields = z.object({
   maxBladeHardnessHb: z.number().positive().max(800).nullable().optional().openapi({ description: "Hardest material the fitted blades are meant for (Brinell); null = not checked" }),
   gradeThicknessLimitsMm: z.record(z.string().min(1).max(50), z.number().positive().max(1000)).optional()
     .openapi({ description: "Explicit maximum thickness per grade code (mm); wins over the derived value", example: { "304": 4 } }),
-  crownAtRatedMm: z.number().min(0).max(5).nullable().optional().openapi({ description: "Crown correction at full rated force (mm); null = the default" }),
+  crownAtRatedMm: z.number().min(0).max(5).nullable().optional().openapi({ description: "Force-proportional part of the crown (centre gap tighter than the ends) at full rated force (mm); null = the default" }),
+  crownBaselineMm: z.number().min(0).max(1).nullable().optional().openapi({ description: "Gap at the blade ends less the gap at the centre with no load, for blade and seat straightness and the beam's geometry (mm); null = the default, 0.0508 mm (0.002 in)" }),
 });
 
 function ranges<T extends z.ZodType<Partial<z.infer<typeof ShearFields>>>>(schema: T) {
@@ -47,6 +48,7 @@ export const Shear = ShearFields.extend({
   maxBladeHardnessHb: z.number().nullable(),
   gradeThicknessLimitsMm: z.record(z.string(), z.number()),
   crownAtRatedMm: z.number().nullable(),
+  crownBaselineMm: z.number().nullable(),
   archivedAt: z.string().nullable(),
   createdAt: z.string(),
   updatedAt: z.string(),

@@ -14,7 +14,7 @@ import { fmtLength, mmToIn } from "./units";
 const SHEAR_POSITIVE_FIELDS = ["ratedThicknessMm", "ratedTensileMpa", "ratedRakeDeg", "bladeLengthMm", "strokesPerMin", "backgaugeSpeedMmPerS", "rakeMaxDeg", "gapMaxMm", "backgaugeMaxMm"] as const;
 const SHEAR_NON_NEGATIVE_FIELDS = ["backgaugeMinMm", "rakeMinDeg", "gapMinMm", "handlingSecondsPerTurn", "handlingSecondsPerSheet"] as const;
 /** Optional machine figures: kept when usable, else left out so the core's default applies. */
-const SHEAR_OPTIONAL_NON_NEGATIVE_FIELDS = ["crownAtRatedMm"] as const;
+const SHEAR_OPTIONAL_NON_NEGATIVE_FIELDS = ["crownAtRatedMm", "crownBaselineMm"] as const;
 
 /** The shear profile if it is usable (a clean copy), else a finding. */
 export function usableShear(shear: unknown, out: Finding[]): ShearProfile | null {

@@ -1,6 +1,6 @@
 /**
  * Blade gap (clearance between the upper and lower blade) by material family
- * and thickness.
+ * and thickness, and the gap at the centre of the blade and at its ends.
  *
  * One fixed percentage per family cannot hold over the whole range: published
  * gap guidance gives the gap falling as a share of thickness as material gets
@@ -10,7 +10,9 @@
  * move it by equal steps), and outside them it stays at the nearer anchor.
  * The result is clamped to the shear's gap range by `recommendGap`.
  */
-import type { GradeFamily, ShearProfile } from "./types";
+import type { GradeFamily, LengthUnit, ShearProfile } from "./types";
+import type { SetupValue } from "./reports";
+import { fmtLength, fmtPct, inToMm, showLength } from "./units";
 
 export interface GapAnchor {
   thicknessMm: number;
@@ -88,4 +90,93 @@ export function recommendGap(thicknessMm: number, family: GradeFamily, shear: Sh
   if (idealMm < shear.gapMinMm) return { mm: shear.gapMinMm, idealMm, pct, clamped: "min" };
   if (idealMm > shear.gapMaxMm) return { mm: shear.gapMaxMm, idealMm, pct, clamped: "max" };
   return { mm: idealMm, idealMm, pct, clamped: null };
+}
+
+// ---------------------------------------------------------------------------
+// Gap at the centre and at the ends (crown)
+// ---------------------------------------------------------------------------
+
+/**
+ * Ends-minus-centre gap with no load, when the shear profile gives none, mm:
+ * 0.002 in. A US Navy shipfitter training manual (NAVEDTRA 14119, the drop
+ * shear) sets the knives 0.002 in closer at the centre than at the ends "to
+ * allow for flexing of the knives during shearing" (0.010 in at the first and
+ * last hold-downs, 0.008 in at the centre); a mechanical squaring shear
+ * maker's manual gives 0.001 in less at the centre. Both are fixed settings,
+ * the same for every job, so they are the baseline: blades and their seats are
+ * never perfectly straight, and a moving beam on a pivot or inclined guides
+ * does not pass the fixed blade at one distance along its length.
+ */
+export const DEFAULT_CROWN_BASELINE_MM = inToMm(0.002);
+/** Force-proportional crown at full rated force when the profile gives none, mm (ours, a placeholder: set it from the machine's manual). */
+export const DEFAULT_CROWN_AT_RATED_MM = 0.2;
+
+export interface CrownRecommendation {
+  /** Ends minus centre, mm. */
+  mm: number;
+  baselineMm: number;
+  /** The part proportional to the force of the cut (ram and bed deflection under load). */
+  forceMm: number;
+  baselineFromProfile: boolean;
+  atRatedMm: number;
+  atRatedFromProfile: boolean;
+  /** Share of the rated force the cut uses, %. */
+  forceSharePct: number;
+}
+
+const usableFigure = (value: number | null | undefined): value is number => typeof value === "number" && Number.isFinite(value) && value >= 0;
+
+/**
+ * Crown = baseline + crown at rated force × required / rated. Under load the
+ * ram (upper beam) and the bed bow apart between their supports, opening the
+ * gap most at mid-length, in proportion to the force (common practice);
+ * setting the centre tighter by that much gives an even gap while cutting.
+ */
+export function recommendCrown(requiredKn: number, ratedKn: number, shear: ShearProfile): CrownRecommendation {
+  const baselineFromProfile = usableFigure(shear.crownBaselineMm);
+  const atRatedFromProfile = usableFigure(shear.crownAtRatedMm);
+  const baselineMm = baselineFromProfile ? (shear.crownBaselineMm as number) : DEFAULT_CROWN_BASELINE_MM;
+  const atRatedMm = atRatedFromProfile ? (shear.crownAtRatedMm as number) : DEFAULT_CROWN_AT_RATED_MM;
+  const share = ratedKn > 0 && Number.isFinite(requiredKn) ? Math.max(0, requiredKn / ratedKn) : 0;
+  const forceMm = atRatedMm * share;
+  return { mm: baselineMm + forceMm, baselineMm, forceMm, baselineFromProfile, atRatedMm, atRatedFromProfile, forceSharePct: 100 * share };
+}
+
+/** The crown alone, mm (ends minus centre). */
+export const recommendCrownMm = (requiredKn: number, ratedKn: number, shear: ShearProfile): number => recommendCrown(requiredKn, ratedKn, shear).mm;
+
+export const computedSetting = (value: number, unit: string, why: string): SetupValue => ({ value, unit, source: "computed", why });
+export const givenSetting = (value: number, unit: string, why: string): SetupValue => ({ value, unit, source: "given", why });
+
+/** The crown as a setup value, with both parts and their reasons. */
+export function describeCrown(requiredKn: number, ratedKn: number, shear: ShearProfile, units: LengthUnit, givenMm: number | null): { mm: number; value: SetupValue } {
+  const rule = recommendCrown(requiredKn, ratedKn, shear);
+  const baseline = `${fmtLength(rule.baselineMm, units)} with no load (${rule.baselineFromProfile ? "this shear's figure" : "0.002 in, a published shop setting"}: blades, seats and beam are not perfectly straight and the moving beam does not pass the fixed blade at one distance)`;
+  const force = `${fmtLength(rule.forceMm, units)} for the load (${fmtLength(rule.atRatedMm, units)} at full rated force${rule.atRatedFromProfile ? ", this shear's figure" : ", our placeholder"} × ${fmtPct(rule.forceSharePct)} of the rating: ram and bed bow apart under load, opening the gap at mid-length)`;
+  if (givenMm !== null) {
+    return { mm: givenMm, value: givenSetting(showLength(givenMm, units), units, `Given in the program: centre gap tighter than the ends by this much; our rule gives ${fmtLength(rule.mm, units)} = ${baseline} + ${force}.`) };
+  }
+  return { mm: rule.mm, value: computedSetting(showLength(rule.mm, units), units, `Centre ${fmtLength(rule.mm, units)} tighter than the ends = ${baseline} + ${force}.`) };
+}
+
+/**
+ * Gap at the ends and at the centre. The ends take the blade gap the material
+ * needs; the centre is set tighter by the crown so that under load the gap at
+ * mid-length opens to about the same. Never below zero.
+ */
+export function describeCentreAndEnds(gapMm: number, gapGiven: boolean, crownMm: number, units: LengthUnit): { centreMm: number; endsMm: number; centre: SetupValue; ends: SetupValue } {
+  const endsMm = gapMm;
+  const centreMm = Math.max(0, gapMm - crownMm);
+  const endsWhy = `${gapGiven ? "The blade gap given in the program" : "The blade gap for this material and thickness"}, set at both ends of the blade, where the beam barely deflects.`;
+  const centreWhy =
+    gapMm - crownMm >= 0
+      ? `The ends' ${fmtLength(endsMm, units)} less the ${fmtLength(crownMm, units)} crown, so the gap at mid-length opens back to about ${fmtLength(endsMm, units)} while cutting.`
+      : `The crown (${fmtLength(crownMm, units)}) is more than the gap (${fmtLength(endsMm, units)}): the centre cannot be set tighter than touching. Check the gap and crown against the machine's manual.`;
+  const make = gapGiven ? givenSetting : computedSetting;
+  return {
+    centreMm,
+    endsMm,
+    centre: computedSetting(showLength(centreMm, units), units, centreWhy),
+    ends: make(showLength(endsMm, units), units, endsWhy),
+  };
 }

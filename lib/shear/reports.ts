@@ -16,7 +16,12 @@ export interface SetupValue extends Quantity {
 }
 
 export interface SetupReport {
+  /** The gap the material needs (the gap at the ends). */
   bladeGap: SetupValue;
+  /** Gap to set at the ends of the blade. */
+  gapEnds: SetupValue;
+  /** Gap to set at the centre: the ends less the crown. */
+  gapCentre: SetupValue;
   rake: SetupValue;
   holdDown: SetupValue;
   crown: SetupValue;

@@ -1,5 +1,6 @@
 /**
- * Setup recommendation: blade gap, rake, hold-down, crown, backgauge retract.
+ * Setup recommendation: blade gap (at the centre and the ends), rake, hold-down,
+ * crown, backgauge retract.
  *
  * Every value says whether it was computed or given, and why, in one short
  * sentence with the rule and its inputs. Computed settings are recommendations
@@ -8,8 +9,8 @@
 import type { GradeFamily, GradeProfile, LengthUnit, ShearProfile } from "./types";
 import type { SetupReport, SetupValue } from "./reports";
 import { DULL_BLADE_FACTOR, rakeForForceDeg } from "./force";
-import { GAP_RULES, recommendGap } from "./gap";
-import { fmtDeg, fmtForce, fmtLength, fmtNumber, fmtPct, fmtStrength, DECIMALS, roundTo, showLength } from "./units";
+import { GAP_RULES, computedSetting as computed, describeCentreAndEnds, describeCrown, givenSetting as given, recommendGap } from "./gap";
+import { fmtDeg, fmtForce, fmtLength, fmtNumber, fmtStrength, DECIMALS, roundTo, showLength } from "./units";
 
 const FAMILY_LABEL: Readonly<Record<GradeFamily, string>> = {
   aluminium: "aluminium",
@@ -28,8 +29,6 @@ export const HOLD_DOWN_FULL_AT_YIELD_MPA = 345;
 export const HOLD_DOWN_MIN_PCT = 25;
 /** Hold-down rule (ours): when a grade states no yield, take this share of tensile as its yield. */
 export const YIELD_FROM_TENSILE_WHEN_MISSING = 0.5;
-/** Crown at full rated force when the shear profile gives none, mm (ours, a placeholder: set it from the machine's manual). */
-export const DEFAULT_CROWN_AT_RATED_MM = 0.2;
 /** Backgauge retract after clamping: about 0.1 in (common practice). */
 export const BACKGAUGE_RETRACT_MM = 2.54;
 
@@ -85,12 +84,6 @@ export function recommendHoldDown(grade: GradeProfile, tensileMpa: number | null
   return { pct: Math.round(Math.min(100, Math.max(HOLD_DOWN_MIN_PCT, raw))), yieldMpa, yieldFrom };
 }
 
-/** Crown (common practice: the correction is proportional to force): crown at rated force × required / rated. */
-export function recommendCrownMm(requiredKn: number, ratedKn: number, shear: ShearProfile): number {
-  const atRated = shear.crownAtRatedMm !== undefined && shear.crownAtRatedMm >= 0 ? shear.crownAtRatedMm : DEFAULT_CROWN_AT_RATED_MM;
-  return (atRated * requiredKn) / ratedKn;
-}
-
 /** Setup values a program gives, canonical units; null = not given. */
 export interface GivenSetup {
   rakeDeg: number | null;
@@ -117,6 +110,7 @@ export interface SetupInputs {
 export interface ResolvedSetup {
   rakeDeg: number;
   gapMm: number;
+  gapCentreMm: number;
   holdDownPct: number;
   crownMm: number;
   retractMm: number;
@@ -125,58 +119,66 @@ export interface ResolvedSetup {
 }
 
 /** Resolve every setup value (given wins, still reported against our rule) and explain it. */
-export function resolveSetup(i: SetupInputs): ResolvedSetup {
-  const u = i.units;
-  const rake = resolveRake(i);
-  const requiredKn = i.requiredKnAt(rake.deg);
-  const gap = resolveGap(i);
-  const holdDown = resolveHoldDown(i);
-  const crown = resolveCrown(i, requiredKn);
-  const retractMm = i.given.retractMm ?? BACKGAUGE_RETRACT_MM;
+export function resolveSetup(inputs: SetupInputs): ResolvedSetup {
+  const units = inputs.units;
+  const rake = resolveRake(inputs);
+  const requiredKn = inputs.requiredKnAt(rake.deg);
+  const gap = resolveGap(inputs);
+  const holdDown = resolveHoldDown(inputs);
+  const crown = describeCrown(requiredKn, inputs.ratedKn, inputs.shear, units, inputs.given.crownMm);
+  const centreAndEnds = describeCentreAndEnds(gap.mm, inputs.given.gapMm !== null, crown.mm, units);
+  const retractMm = inputs.given.retractMm ?? BACKGAUGE_RETRACT_MM;
   const retract: SetupValue =
-    i.given.retractMm !== null
-      ? given(showLength(retractMm, u), u, "Given in the program; about 0.1 in is usual so the piece is not trapped.")
-      : computed(showLength(retractMm, u), u, `Back the gauge off ${fmtLength(retractMm, u)} after the hold-down clamps so the piece is not trapped (common practice).`);
+    inputs.given.retractMm !== null
+      ? given(showLength(retractMm, units), units, "Given in the program; about 0.1 in is usual so the piece is not trapped.")
+      : computed(showLength(retractMm, units), units, `Back the gauge off ${fmtLength(retractMm, units)} after the hold-down clamps so the piece is not trapped (common practice).`);
   return {
     rakeDeg: rake.deg,
     gapMm: gap.mm,
+    gapCentreMm: centreAndEnds.centreMm,
     holdDownPct: holdDown.pct,
     crownMm: crown.mm,
     retractMm,
     requiredKn,
-    report: { bladeGap: gap.value, rake: rake.value, holdDown: holdDown.value, crown: crown.value, backgaugeRetract: retract },
+    report: {
+      bladeGap: gap.value,
+      gapEnds: centreAndEnds.ends,
+      gapCentre: centreAndEnds.centre,
+      rake: rake.value,
+      holdDown: holdDown.value,
+      crown: crown.value,
+      backgaugeRetract: retract,
+    },
   };
 }
 
-const computed = (value: number, unit: string, why: string): SetupValue => ({ value, unit, source: "computed", why });
-const given = (value: number, unit: string, why: string): SetupValue => ({ value, unit, source: "given", why });
 const rangeText = (min: string, max: string): string => `${min}–${max}`;
 
-function resolveRake(i: SetupInputs): { deg: number; value: SetupValue } {
-  const { shear, units: u } = i;
+function resolveRake(inputs: SetupInputs): { deg: number; value: SetupValue } {
+  const { shear, units } = inputs;
   const range = rangeText(fmtDeg(shear.rakeMinDeg), fmtDeg(shear.rakeMaxDeg));
-  const rated = fmtForce(i.ratedKn, u);
-  if (i.given.rakeDeg !== null) {
-    const deg = i.given.rakeDeg;
-    const f = i.requiredKnAt(deg);
+  const rated = fmtForce(inputs.ratedKn, units);
+  if (inputs.given.rakeDeg !== null) {
+    const deg = inputs.given.rakeDeg;
+    const forceKn = inputs.requiredKnAt(deg);
     const inRange = deg >= shear.rakeMinDeg && deg <= shear.rakeMaxDeg;
     const where = inRange ? `inside this shear's ${range} range` : `OUTSIDE this shear's ${range} range`;
-    return { deg, value: given(roundTo(deg, DECIMALS.deg), "deg", `Given in the program, ${where}; the cut needs ${fmtForce(f, u)} of the ${rated} rating at this rake.`) };
+    return { deg, value: given(roundTo(deg, DECIMALS.deg), "deg", `Given in the program, ${where}; the cut needs ${fmtForce(forceKn, units)} of the ${rated} rating at this rake.`) };
   }
-  const rec = recommendRake(i.tensileMpa, i.thicknessMm, i.ratedKn, shear);
-  const f = i.requiredKnAt(rec.deg);
-  const dull = fmtForce(f * DULL_BLADE_FACTOR, u);
+  const recommendation = recommendRake(inputs.tensileMpa, inputs.thicknessMm, inputs.ratedKn, shear);
+  const forceKn = inputs.requiredKnAt(recommendation.deg);
+  const sharp = fmtForce(forceKn, units);
+  const dull = fmtForce(forceKn * DULL_BLADE_FACTOR, units);
   let why: string;
-  if (rec.basis === "dull") {
-    why = `Lowest rake in this shear's ${range} range at which even dull blades (${DULL_BLADE_FACTOR} × ${fmtForce(f, u)} = ${dull}) stay within the ${rated} rating.`;
-  } else if (rec.basis === "sharp") {
-    why = `No rake in this shear's ${range} range keeps dull blades (${dull}) within the ${rated} rating; this is the lowest at which sharp blades (${fmtForce(f, u)}) do.`;
+  if (recommendation.basis === "dull") {
+    why = `Lowest rake in this shear's ${range} range at which even dull blades (${DULL_BLADE_FACTOR} × ${sharp} = ${dull}) stay within the ${rated} rating.`;
+  } else if (recommendation.basis === "sharp") {
+    why = `No rake in this shear's ${range} range keeps dull blades (${dull}) within the ${rated} rating; this is the lowest at which sharp blades (${sharp}) do.`;
   } else {
-    why = `Even this shear's largest rake needs ${fmtForce(f, u)}, over the ${rated} rating: this program cannot run on this shear.`;
+    why = `Even this shear's largest rake needs ${sharp}, over the ${rated} rating: this program cannot run on this shear.`;
   }
-  return { deg: rec.deg, value: computed(roundTo(rec.deg, DECIMALS.deg), "deg", why) };
+  return { deg: recommendation.deg, value: computed(roundTo(recommendation.deg, DECIMALS.deg), "deg", why) };
 }
-
 function resolveGap(inputs: SetupInputs): { mm: number; value: SetupValue } {
   const { shear, units } = inputs;
   const family = inputs.grade.family;
@@ -201,29 +203,17 @@ function resolveGap(inputs: SetupInputs): { mm: number; value: SetupValue } {
 
 const capitalise = (text: string): string => text.charAt(0).toUpperCase() + text.slice(1);
 
-function resolveHoldDown(i: SetupInputs): { pct: number; value: SetupValue } {
-  const rec = recommendHoldDown(i.grade, i.tensileMpa);
-  const u = i.units;
-  if (i.given.holdDownPct !== null) {
-    return { pct: i.given.holdDownPct, value: given(roundTo(i.given.holdDownPct, DECIMALS.pct), "%", `Given in the program; our rule gives ${rec.pct} % for this grade.`) };
+function resolveHoldDown(inputs: SetupInputs): { pct: number; value: SetupValue } {
+  const recommendation = recommendHoldDown(inputs.grade, inputs.tensileMpa);
+  const units = inputs.units;
+  if (inputs.given.holdDownPct !== null) {
+    return { pct: inputs.given.holdDownPct, value: given(roundTo(inputs.given.holdDownPct, DECIMALS.pct), "%", `Given in the program; our rule gives ${recommendation.pct} % for this grade.`) };
   }
-  const full = fmtStrength(HOLD_DOWN_FULL_AT_YIELD_MPA, u);
+  const full = fmtStrength(HOLD_DOWN_FULL_AT_YIELD_MPA, units);
   let basis: string;
-  if (rec.yieldFrom === "yield" && rec.yieldMpa !== null) basis = `yield ${fmtStrength(rec.yieldMpa, u)} against full force at ${full}`;
-  else if (rec.yieldFrom === "tensile" && rec.yieldMpa !== null) basis = `no yield stated, half the tensile (${fmtStrength(rec.yieldMpa, u)}) against full force at ${full}`;
+  if (recommendation.yieldFrom === "yield" && recommendation.yieldMpa !== null) basis = `yield ${fmtStrength(recommendation.yieldMpa, units)} against full force at ${full}`;
+  else if (recommendation.yieldFrom === "tensile" && recommendation.yieldMpa !== null) basis = `no yield stated, half the tensile (${fmtStrength(recommendation.yieldMpa, units)}) against full force at ${full}`;
   else basis = "no strength stated, so full force";
-  const why = `${rec.pct} % of full hold-down: ${basis}, kept within ${HOLD_DOWN_MIN_PCT}–100 % (our rule); use less on finished or coated surfaces.`;
-  return { pct: rec.pct, value: computed(rec.pct, "%", why) };
-}
-
-function resolveCrown(i: SetupInputs, requiredKn: number): { mm: number; value: SetupValue } {
-  const u = i.units;
-  if (i.given.crownMm !== null) {
-    return { mm: i.given.crownMm, value: given(showLength(i.given.crownMm, u), u, "Given in the program: centre gap tighter than the ends by this much.") };
-  }
-  const mm = recommendCrownMm(requiredKn, i.ratedKn, i.shear);
-  const atRated = i.shear.crownAtRatedMm !== undefined && i.shear.crownAtRatedMm >= 0 ? i.shear.crownAtRatedMm : DEFAULT_CROWN_AT_RATED_MM;
-  const share = fmtPct((100 * requiredKn) / i.ratedKn);
-  const why = `Centre gap ${fmtLength(mm, u)} tighter than the ends: ${fmtLength(atRated, u)} at full rated force × ${share} of the rating used (proportional rule, common practice).`;
-  return { mm, value: computed(showLength(mm, u), u, why) };
+  const why = `${recommendation.pct} % of full hold-down: ${basis}, kept within ${HOLD_DOWN_MIN_PCT}–100 % (our rule); use less on finished or coated surfaces.`;
+  return { pct: recommendation.pct, value: computed(recommendation.pct, "%", why) };
 }

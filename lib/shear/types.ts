@@ -129,8 +129,10 @@ export interface ShearProfile {
   handlingSecondsPerSheet: number;
   /** Explicit maximum thickness per grade code; wins over the force model. */
   gradeThicknessLimitsMm?: Record<string, number>;
-  /** Crown correction (centre gap tighter than the ends) at full rated force. Default: DEFAULT_CROWN_AT_RATED_MM. */
+  /** Force-proportional part of the crown (centre gap tighter than the ends) at full rated force. Default: DEFAULT_CROWN_AT_RATED_MM. */
   crownAtRatedMm?: number;
+  /** Ends-minus-centre gap with no load (blade and seat straightness, the beam's geometry). Default: DEFAULT_CROWN_BASELINE_MM. */
+  crownBaselineMm?: number;
 }
 
 /** A material grade as the core needs it. All canonical units. */

@@ -3,6 +3,7 @@ import { unit } from "mathjs";
 import {
   BACKGAUGE_RETRACT_MM,
   DEFAULT_CROWN_AT_RATED_MM,
+  DEFAULT_CROWN_BASELINE_MM,
   DULL_BLADE_FACTOR,
   findGrade,
   gradeTensile,
@@ -79,9 +80,16 @@ describe("hold-down (our rule: proportional to yield)", () => {
 });
 
 describe("crown and retract", () => {
-  it("crown is proportional to force (common practice)", () => {
-    expect(recommendCrownMm(RATED / 2, RATED, DEMO_SHEAR)).toBeCloseTo(DEFAULT_CROWN_AT_RATED_MM / 2, 12);
-    expect(recommendCrownMm(RATED, RATED, { ...DEMO_SHEAR, crownAtRatedMm: 0.3 })).toBeCloseTo(0.3, 12);
+  it("crown = a baseline with no load + a part proportional to force (common practice)", () => {
+    expect(DEFAULT_CROWN_BASELINE_MM).toBe(unit(0.002, "inch").toNumber("mm")); // US Navy shipfitter manual (NAVEDTRA 14119): centre 0.002 in less than the ends
+    expect(recommendCrownMm(0, RATED, DEMO_SHEAR)).toBeCloseTo(DEFAULT_CROWN_BASELINE_MM, 12); // thin sheet: the baseline, not zero
+    expect(recommendCrownMm(RATED / 2, RATED, DEMO_SHEAR)).toBeCloseTo(DEFAULT_CROWN_BASELINE_MM + DEFAULT_CROWN_AT_RATED_MM / 2, 12);
+    expect(recommendCrownMm(RATED, RATED, { ...DEMO_SHEAR, crownAtRatedMm: 0.3, crownBaselineMm: 0.025 })).toBeCloseTo(0.325, 12); // profile figures win
+  });
+  it("the published fixed differences are a few thousandths of an inch", () => {
+    const baselineIn = unit(DEFAULT_CROWN_BASELINE_MM, "mm").toNumber("inch");
+    expect(baselineIn).toBeGreaterThanOrEqual(0.001); // a mechanical squaring shear maker's manual: centre 0.001 in less than the ends
+    expect(baselineIn).toBeLessThanOrEqual(0.002); // US Navy shipfitter manual: 0.010 in at the ends, 0.008 in at the centre
   });
   it("backgauge backs off about 0.1 in (common practice)", () => {
     expect(BACKGAUGE_RETRACT_MM).toBe(unit(0.1, "inch").toNumber("mm")); // mathjs
@@ -113,6 +121,24 @@ describe("resolveSetup", () => {
     expect(s.report.bladeGap.why).toContain("6 % of the 0.1345 in thickness"); // 6.0 % at 10 ga on the 7 % → 5 % rule
     expect(s.report.bladeGap.why).toMatch(/falls as material gets thicker/);
     expect(s.report.backgaugeRetract.value).toBe(0.1); // common practice
+  });
+
+  it("reports the gap at the ends and at the centre, the centre tighter by the crown", () => {
+    const s = resolveSetup(inputs());
+    expect(s.report.gapEnds.value).toBe(s.report.bladeGap.value);
+    expect(s.report.gapCentre.value).toBeCloseTo(s.report.gapEnds.value - s.report.crown.value, 4);
+    expect(s.report.crown.value).toBeGreaterThanOrEqual(0.002); // never near zero on sheet: the 0.002 in baseline (US Navy shipfitter manual)
+    expect(s.report.crown.why).toMatch(/no load/);
+    expect(s.report.crown.why).toMatch(/under load/);
+    expect(s.report.gapCentre.why).toMatch(/crown/);
+    expect(s.report.gapEnds.why).toMatch(/ends/);
+  });
+
+  it("never sets the centre below touching", () => {
+    const s = resolveSetup(inputs({ given: { ...NOTHING_GIVEN, gapMm: 0.01, crownMm: 0.05 } }));
+    expect(s.gapCentreMm).toBe(0);
+    expect(s.report.gapCentre.why).toMatch(/more than the gap/);
+    expect(s.report.gapEnds.source).toBe("given");
   });
 
   it("a given value wins, is marked given, and our rule is still shown", () => {

@@ -31,6 +31,8 @@ export const Shear = defineEntity({
     gapMaxMm: measure(),
     strokesPerMin: measure(),
     backgaugeSpeedMmPerS: measure(),
+    /** the backgauge's stated repeatability (±), mm; null = not stated (the core's default remnant tolerance) */
+    backgaugeRepeatabilityMm: measure().nullable(),
     handlingSecondsPerTurn: measure(),
     handlingSecondsPerSheet: measure(),
     /** hardest material (Brinell) the fitted blades are meant for; null = not stated */

@@ -10,6 +10,7 @@ import { Migration20261202001919_hub } from "./Migration20261202001919_hub";
 import { Migration20261202005416_team } from "./Migration20261202005416_team";
 import { Migration20261202021005_plans } from "./Migration20261202021005_plans";
 import { Migration20261202160000_shear_crown_baseline } from "./Migration20261202160000_shear_crown_baseline";
+import { Migration20261202163000_backgauge_repeatability } from "./Migration20261202163000_backgauge_repeatability";
 
 export const migrationsList: MigrationObject[] = [
   { name: "Migration20261201234604_initial", class: Migration20261201234604_initial },
@@ -18,4 +19,5 @@ export const migrationsList: MigrationObject[] = [
   { name: "Migration20261202005416_team", class: Migration20261202005416_team },
   { name: "Migration20261202021005_plans", class: Migration20261202021005_plans },
   { name: "Migration20261202160000_shear_crown_baseline", class: Migration20261202160000_shear_crown_baseline },
+  { name: "Migration20261202163000_backgauge_repeatability", class: Migration20261202163000_backgauge_repeatability },
 ];

@@ -8,8 +8,9 @@ import type { CheckResult, ForceReport, SetupReport, ThicknessReport } from "./r
 import type { ProgramRead, ThicknessRead } from "./read";
 import { isObject, isPositive, readProgram } from "./read";
 import { checkUnitsSuspect, resolveGrade, resolveTensile, resolveThickness, usableShear } from "./context";
-import { validationOf, checkThickness, checkForce, checkHardness, checkGivenSetup, checkGroups } from "./findings";
-import { simulateFlow, yieldReport, type FlowResult } from "./flow";
+import { validationOf, checkThickness, checkForce, checkHardness, checkGivenSetup } from "./findings";
+import { checkGroups } from "./groups";
+import { remnantToleranceMm, simulateFlow, yieldReport, type FlowResult } from "./flow";
 import { cutForce, forceReport, maxThicknessForGradeMm, rakedForceKn, ratedForceKn, straightForceKn, type CutForce } from "./force";
 import { gradeShearStrengthMpa, gradeTensile, type GradeTensile } from "./grades";
 import { resolveSetup, NOTHING_GIVEN, type ResolvedSetup } from "./setup";
@@ -116,7 +117,7 @@ export function checkProgram(input: CutProgram | unknown, context: CheckContext)
   const tensile = resolveTensile(grade, findings);
   const thicknessMm = resolveThickness(program.thickness, grade, program.gradeCode, findings);
   if (shear !== null) findings.push(...checkUnitsSuspect(program, shear));
-  const flow = program.sheet !== null ? simulateFlow(program.sheet, program.cuts) : null;
+  const flow = program.sheet !== null ? simulateFlow(program.sheet, program.cuts, { toleranceMm: remnantToleranceMm(shear) }) : null;
 
   let forced: ForceAndSetup | null = null;
   if (shear !== null && grade !== null && tensile !== null && thicknessMm !== null && program.thickness !== null) {

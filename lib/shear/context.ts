@@ -16,6 +16,9 @@ const SHEAR_NON_NEGATIVE_FIELDS = ["backgaugeMinMm", "rakeMinDeg", "gapMinMm", "
 /** Optional machine figures: kept when usable, else left out so the core's default applies. */
 const SHEAR_OPTIONAL_NON_NEGATIVE_FIELDS = ["crownAtRatedMm", "crownBaselineMm"] as const;
 
+/** Optional machine figures that must be more than zero. */
+const SHEAR_OPTIONAL_POSITIVE_FIELDS = ["backgaugeRepeatabilityMm"] as const;
+
 /** The shear profile if it is usable (a clean copy), else a finding. */
 export function usableShear(shear: unknown, out: Finding[]): ShearProfile | null {
   if (!isObject(shear)) {
@@ -34,6 +37,7 @@ export function usableShear(shear: unknown, out: Finding[]): ShearProfile | null
   for (const field of [...SHEAR_POSITIVE_FIELDS, ...SHEAR_NON_NEGATIVE_FIELDS]) clean[field] = shear[field];
   clean.maxBladeHardnessHb = isPositive(shear.maxBladeHardnessHb) ? shear.maxBladeHardnessHb : null;
   for (const field of SHEAR_OPTIONAL_NON_NEGATIVE_FIELDS) if (isNonNegative(shear[field])) clean[field] = shear[field];
+  for (const field of SHEAR_OPTIONAL_POSITIVE_FIELDS) if (isPositive(shear[field])) clean[field] = shear[field];
   if (isObject(shear.gradeThicknessLimitsMm)) {
     const limits: Record<string, number> = {};
     for (const [code, mm] of Object.entries(shear.gradeThicknessLimitsMm)) if (isPositive(mm)) limits[code] = mm;

@@ -16,7 +16,8 @@
  *   `from` lets one program rip strips of several widths and then crosscut
  *   each kind: rip A, rip B, turn from A and crosscut, turn from B and crosscut.
  * - After a group's last stroke on a workpiece, the remnant is a piece of that
- *   group when its width equals the backgauge within REMNANT_TOLERANCE_MM;
+ *   group when its width equals the backgauge within the remnant tolerance
+ *   (the shear's backgauge repeatability, else REMNANT_TOLERANCE_MM);
  *   otherwise it stays the workpiece for a following group without `turn`,
  *   and is offcut when no such group follows.
  * - A stroke whose backgauge is not smaller than the remaining width (less the
@@ -31,8 +32,23 @@ import type { LengthUnit } from "./types";
 import type { GroupYield, PieceReport, YieldReport, YieldTotals } from "./reports";
 import { areaUnitFor, showArea, showLength, showPct } from "./units";
 
-/** Remnant width equal to the backgauge within this, mm (≈ 0.004 in: about a backgauge's positioning accuracy, common practice). */
+/**
+ * Remnant width equal to the backgauge within this, mm (≈ 0.004 in: about a
+ * backgauge's positioning accuracy, common practice), when the shear profile
+ * states no backgauge repeatability; a stated repeatability takes its place.
+ */
 export const REMNANT_TOLERANCE_MM = 0.1;
+
+/** The remnant tolerance for a shear: its stated backgauge repeatability, else REMNANT_TOLERANCE_MM. */
+export function remnantToleranceMm(shear: { backgaugeRepeatabilityMm?: number | null } | null | undefined): number {
+  const stated = shear?.backgaugeRepeatabilityMm;
+  return typeof stated === "number" && Number.isFinite(stated) && stated > 0 ? stated : REMNANT_TOLERANCE_MM;
+}
+
+export interface FlowOptions {
+  /** Remnant tolerance, mm (default REMNANT_TOLERANCE_MM). */
+  toleranceMm?: number;
+}
 /** Sizes closer than this, mm, are the same size (floating-point noise, not a tolerance). */
 const SAME_SIZE_MM = 1e-6;
 
@@ -116,11 +132,11 @@ function addRect(list: Rect[], r: Rect): void {
   list.push({ ...r });
 }
 
-/** Number of strokes that cut something on a workpiece `widthMm` wide at backgauge `bg`. */
-export function strokesThatCut(widthMm: number, bg: number): number {
-  if (!(bg > 0) || !(widthMm > REMNANT_TOLERANCE_MM)) return 0;
+/** Number of strokes that cut something on a workpiece `widthMm` wide at backgauge `backgaugeMm`. */
+export function strokesThatCut(widthMm: number, backgaugeMm: number, toleranceMm: number = REMNANT_TOLERANCE_MM): number {
+  if (!(backgaugeMm > 0) || !(widthMm > toleranceMm)) return 0;
   // SAME_SIZE_MM keeps float noise at the tolerance's edge (1000.1 − 0.1 = 1000.0000000000001) from adding a stroke.
-  return Math.max(0, Math.ceil((widthMm - REMNANT_TOLERANCE_MM - SAME_SIZE_MM) / bg) - 1);
+  return Math.max(0, Math.ceil((widthMm - toleranceMm - SAME_SIZE_MM) / backgaugeMm) - 1);
 }
 
 interface GroupRun {
@@ -129,7 +145,7 @@ interface GroupRun {
 }
 
 /** Run one group's strokes on every workpiece. */
-function runGroup(index: number, cut: FlowCut, work: readonly Rect[]): GroupRun {
+function runGroup(index: number, cut: FlowCut, work: readonly Rect[], toleranceMm: number): GroupRun {
   const bg = cut.backgaugeMm;
   const pieces: Rect[] = [];
   const nextWork: Rect[] = [];
@@ -141,13 +157,13 @@ function runGroup(index: number, cut: FlowCut, work: readonly Rect[]): GroupRun 
   for (const w of work) {
     workpieces += w.count;
     presented = Math.max(presented, w.lengthMm);
-    if (cut.lengthMm !== null && cut.lengthMm > w.lengthMm + REMNANT_TOLERANCE_MM) lengthOver = true;
-    if (cut.count > 0 && cut.lengthMm !== null && cut.lengthMm < w.lengthMm - REMNANT_TOLERANCE_MM) {
+    if (cut.lengthMm !== null && cut.lengthMm > w.lengthMm + toleranceMm) lengthOver = true;
+    if (cut.count > 0 && cut.lengthMm !== null && cut.lengthMm < w.lengthMm - toleranceMm) {
       partial = true; // partial strokes do not sever: the workpiece is unchanged
       addRect(nextWork, { ...w });
       continue;
     }
-    const n = Math.min(cut.count, strokesThatCut(w.widthMm, bg));
+    const n = Math.min(cut.count, strokesThatCut(w.widthMm, bg, toleranceMm));
     if (n > 0) addRect(pieces, { widthMm: bg, lengthMm: w.lengthMm, count: w.count * n, group: index });
     const remaining = w.widthMm - n * bg;
     if (n < cut.count) {
@@ -155,7 +171,7 @@ function runGroup(index: number, cut: FlowCut, work: readonly Rect[]): GroupRun 
       if (beyond === null) beyond = { strokes: lost, firstStroke: n + 1, remainingMm: remaining };
       else beyond.strokes += lost;
     }
-    if (bg > 0 && Math.abs(remaining - bg) <= REMNANT_TOLERANCE_MM + SAME_SIZE_MM) {
+    if (bg > 0 && Math.abs(remaining - bg) <= toleranceMm + SAME_SIZE_MM) {
       addRect(pieces, { widthMm: remaining, lengthMm: w.lengthMm, count: w.count, group: index });
     } else {
       addRect(nextWork, { widthMm: remaining, lengthMm: w.lengthMm, count: w.count, group: n > 0 ? index : w.group });
@@ -179,7 +195,8 @@ function runGroup(index: number, cut: FlowCut, work: readonly Rect[]): GroupRun 
 const turned = (r: Rect): Rect => ({ widthMm: r.lengthMm, lengthMm: r.widthMm, count: r.count, group: r.group });
 
 /** Simulate one sheet through the program. Pure; never throws on finite input. */
-export function simulateFlow(sheet: FlowSheet, cuts: readonly FlowCut[]): FlowResult {
+export function simulateFlow(sheet: FlowSheet, cuts: readonly FlowCut[], options: FlowOptions = {}): FlowResult {
+  const toleranceMm = options.toleranceMm !== undefined && options.toleranceMm > 0 ? options.toleranceMm : REMNANT_TOLERANCE_MM;
   const stock: Rect = { widthMm: sheet.widthMm, lengthMm: sheet.lengthMm, count: 1, group: -1 };
   const groups: FlowGroup[] = [];
   const blanks: Rect[] = [];
@@ -204,7 +221,7 @@ export function simulateFlow(sheet: FlowSheet, cuts: readonly FlowCut[]): FlowRe
         work = [];
       }
     }
-    const run = runGroup(index, cut, work);
+    const run = runGroup(index, cut, work, toleranceMm);
     groups.push(run.group);
     work = run.nextWork;
   }

@@ -18,6 +18,7 @@ export * from "./setup";
 export * from "./gap";
 export * from "./flow";
 export * from "./findings";
+export * from "./groups";
 export * from "./estimate";
 export { UNITS_SUSPECT_FACTOR } from "./context";
 export { DUAL_UNIT_AGREEMENT_MM } from "./read";

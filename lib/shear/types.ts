@@ -131,6 +131,8 @@ export interface ShearProfile {
   gradeThicknessLimitsMm?: Record<string, number>;
   /** Force-proportional part of the crown (centre gap tighter than the ends) at full rated force. Default: DEFAULT_CROWN_AT_RATED_MM. */
   crownAtRatedMm?: number;
+  /** The backgauge's stated repeatability (±, mm): the finest difference between settings it holds. Default: REMNANT_TOLERANCE_MM for the piece flow, no repeatability check. */
+  backgaugeRepeatabilityMm?: number;
   /** Ends-minus-centre gap with no load (blade and seat straightness, the beam's geometry). Default: DEFAULT_CROWN_BASELINE_MM. */
   crownBaselineMm?: number;
 }
@@ -191,7 +193,8 @@ export type FindingCode =
   | "program_cuts_nothing"
   | "gap_out_of_range"
   | "rake_out_of_range"
-  | "strip_narrow";
+  | "strip_narrow"
+  | "backgauge_finer_than_repeatability";
 
 export interface Finding {
   code: FindingCode;

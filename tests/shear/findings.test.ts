@@ -124,6 +124,18 @@ describe("group checks", () => {
     expect(run({ lengthMm: 3000, widthMm: 500 }, [cut(50, 2, { scrap: true })], 1)).toEqual([]);
   });
 
+  it("settings closer than the backgauge's repeatability (the machine's stated figure)", () => {
+    const shear = { ...DEMO_SHEAR, backgaugeRepeatabilityMm: 0.05 };
+    const cuts = [cut(100, 2), cut(100.03, 1), cut(100, 1), cut(150, 0)];
+    const out = checkGroups({ flow: simulateFlow({ lengthMm: 2000, widthMm: 1000 }, cuts), cuts, skip: cuts.map(() => false), shear, thicknessMm: 3, units: "mm" });
+    const found = out.filter((f) => f.code === "backgauge_finer_than_repeatability");
+    expect(found).toHaveLength(2); // 100.03 against 100, then 100 against 100.03; equal settings are not a difference
+    expect(found[0]).toMatchObject({ severity: "warning", pointer: "/cuts/1/backgauge", limit: 0.05, unit: "mm" }); // the profile's ±0.05 mm
+    expect(found[0].actual).toBeCloseTo(0.03, 9); // hand arithmetic: 100.03 − 100
+    const unstated = checkGroups({ flow: simulateFlow({ lengthMm: 2000, widthMm: 1000 }, cuts), cuts, skip: cuts.map(() => false), shear: DEMO_SHEAR, thicknessMm: 3, units: "mm" });
+    expect(unstated.map((f) => f.code)).not.toContain("backgauge_finer_than_repeatability"); // no stated repeatability: not checked
+  });
+
   it("partial strokes and a length of cut longer than the workpiece", () => {
     expect(codes(run({ lengthMm: 2000, widthMm: 500 }, [cut(100, 1, { lengthMm: 500 })]))).toEqual(["partial_stroke"]);
     expect(codes(run({ lengthMm: 2000, widthMm: 500 }, [cut(100, 1, { lengthMm: 2500 })]))).toEqual(["cut_length_over_workpiece"]);

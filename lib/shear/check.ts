@@ -126,7 +126,10 @@ export function checkProgram(input: CutProgram | unknown, context: CheckContext)
   }
   if (shear !== null && grade !== null) findings.push(...checkHardness(grade, shear));
   if (shear !== null) findings.push(...checkGivenSetup(program.given, program.gapPointer, shear, units));
-  if (flow !== null && program.cutsIsArray) findings.push(...checkGroups({ flow, cuts: program.cuts, skip: program.skip, shear, thicknessMm, units }));
+  if (flow !== null && program.cutsIsArray) {
+    const rakeDeg = forced?.setup.rakeDeg ?? program.given.rakeDeg;
+    findings.push(...checkGroups({ flow, cuts: program.cuts, skip: program.skip, shear, thicknessMm, rakeDeg, units }));
+  }
 
   const estimate =
     flow !== null && shear !== null && program.sheet !== null

@@ -40,6 +40,7 @@ export const FINDING_CATALOGUE: Readonly<Record<FindingCode, FindingSpec>> = Obj
   gap_out_of_range: { severity: "error", meaning: "The given blade gap is outside the shear's gap range." },
   rake_out_of_range: { severity: "error", meaning: "The given rake is outside the shear's rake range." },
   strip_narrow: { severity: "warning", meaning: "Strips narrow for their thickness or length tend to twist and bow (our rule: narrower than 10 × thickness or 1/50 of their length)." },
+  strip_distortion: { severity: "warning", meaning: "Strips narrow for their thickness at this rake are likely to twist, bow and curve (camber); a lower rake reduces it at the cost of force (our rule: narrower than 20 × thickness × rake in degrees)." },
   backgauge_finer_than_repeatability: { severity: "warning", meaning: "Two backgauge settings differ by less than the shear's stated backgauge repeatability: the machine cannot hold the difference, so the pieces may come out the same." },
 });
 

@@ -12,6 +12,16 @@ import { fmtLength, showLength } from "./units";
 export const NARROW_STRIP_WIDTH_PER_THICKNESS = 10;
 /** …or when the strip is longer than this many widths. */
 export const NARROW_STRIP_LENGTH_PER_WIDTH = 50;
+/**
+ * Distortion rule (ours): at rake α (degrees), strips narrower than this many
+ * thicknesses per degree of rake are likely to twist, bow and camber. The
+ * trade fact is that distortion of narrow strips grows with rake and falls as
+ * the strip widens against its thickness (common practice; a plate maker's
+ * shearing guidance: "a larger rake angle increases the risk of … twisting");
+ * the proportional threshold is ours. At 0.5° it meets the narrow-strip rule
+ * (10 × thickness).
+ */
+export const STRIP_DISTORTION_WIDTH_PER_THICKNESS_DEGREE = 20;
 /** Settings closer than this, mm, are the same setting (floating-point noise, not a difference asked for). */
 const SAME_SETTING_MM = 1e-6;
 
@@ -22,6 +32,8 @@ export interface FlowCheckInput {
   skip: readonly boolean[];
   shear: ShearProfile | null;
   thicknessMm: number | null;
+  /** The rake the program runs at (computed or given), degrees; null when unknown. */
+  rakeDeg?: number | null;
   units: LengthUnit;
 }
 
@@ -78,7 +90,11 @@ export function checkGroups(input: FlowCheckInput): Finding[] {
       const message = `In ${groupName(index)}, stroke ${beyond.firstStroke} is set at ${fmtLength(cut.backgaugeMm, units)} but only ${fmtLength(beyond.remainingMm, units)} of workpiece is left: ${plural(beyond.strokes, "stroke", "strokes")} per sheet cut nothing.`;
       out.push(finding("backgauge_beyond_workpiece", `${at}/backgauge`, message, showLength(beyond.remainingMm, units), showLength(cut.backgaugeMm, units), units));
     }
-    if (!cut.scrap && group.pieces.length > 0) out.push(...checkNarrowStrip(cut, group.presentedEdgeMm, index, input.thicknessMm, units));
+    if (!cut.scrap && group.pieces.length > 0) {
+      const narrow = checkNarrowStrip(cut, group.presentedEdgeMm, index, input.thicknessMm, units);
+      out.push(...narrow);
+      if (narrow.length === 0) out.push(...checkStripDistortion(cut, index, input.thicknessMm, input.rakeDeg ?? null, input.shear, units));
+    }
   }
   if (input.shear) out.push(...checkBackgaugeRepeatability(input.cuts, input.skip, input.shear, units));
   return out;
@@ -127,4 +143,26 @@ function checkNarrowStrip(cut: FlowCut, lengthMm: number, index: number, thickne
   const of = thicknessMm === null ? "" : ` of ${fmtLength(thicknessMm, units)} material`;
   const message = `${capital(groupName(index))} cuts strips ${fmtLength(cut.backgaugeMm, units)} wide and ${fmtLength(lengthMm, units)} long${of}; strips narrower than ${fmtLength(minWidth, units)} tend to twist and bow.`;
   return [finding("strip_narrow", `/cuts/${index}/backgauge`, message, showLength(minWidth, units), showLength(cut.backgaugeMm, units), units)];
+}
+
+/** The width below which strips are likely to distort at a rake (ours: 20 × thickness × rake in degrees). */
+export const distortionWidthMm = (thicknessMm: number, rakeDeg: number): number => STRIP_DISTORTION_WIDTH_PER_THICKNESS_DEGREE * thicknessMm * rakeDeg;
+
+/** Strips likely to twist, bow and camber at this rake; says what the shear's lowest rake would allow. */
+function checkStripDistortion(cut: FlowCut, index: number, thicknessMm: number | null, rakeDeg: number | null, shear: ShearProfile | null, units: LengthUnit): Finding[] {
+  if (thicknessMm === null || rakeDeg === null || !(rakeDeg > 0)) return [];
+  const minWidth = distortionWidthMm(thicknessMm, rakeDeg);
+  if (cut.backgaugeMm >= minWidth) return [];
+  let lower = "";
+  if (shear !== null && shear.rakeMinDeg < rakeDeg) {
+    const atLowest = distortionWidthMm(thicknessMm, shear.rakeMinDeg);
+    lower =
+      cut.backgaugeMm >= atLowest
+        ? ` At this shear's lowest rake (${shear.rakeMinDeg}°) the strip would be clear of the rule, if the force fits.`
+        : ` Even at this shear's lowest rake (${shear.rakeMinDeg}°) strips under ${fmtLength(atLowest, units)} are at risk.`;
+  }
+  const message =
+    `${capital(groupName(index))} cuts strips ${fmtLength(cut.backgaugeMm, units)} wide of ${fmtLength(thicknessMm, units)} material at ${rakeDeg}° rake: ` +
+    `narrower than ${fmtLength(minWidth, units)} (20 × thickness × rake in degrees, our rule) they are likely to twist, bow and curve (camber); a lower rake reduces this at the cost of force.${lower}`;
+  return [finding("strip_distortion", `/cuts/${index}/backgauge`, message, showLength(minWidth, units), showLength(cut.backgaugeMm, units), units)];
 }

@@ -169,6 +169,7 @@ function resolveRake(inputs: SetupInputs): { deg: number; value: SetupValue } {
   const forceKn = inputs.requiredKnAt(recommendation.deg);
   const sharp = fmtForce(forceKn, units);
   const dull = fmtForce(forceKn * DULL_BLADE_FACTOR, units);
+  const lowRake = " Lower rake means less twist, bow and camber of narrow strips, at the cost of force (common practice), so the lowest that fits is taken.";
   let why: string;
   if (recommendation.basis === "dull") {
     why = `Lowest rake in this shear's ${range} range at which even dull blades (${DULL_BLADE_FACTOR} × ${sharp} = ${dull}) stay within the ${rated} rating.`;
@@ -177,6 +178,7 @@ function resolveRake(inputs: SetupInputs): { deg: number; value: SetupValue } {
   } else {
     why = `Even this shear's largest rake needs ${sharp}, over the ${rated} rating: this program cannot run on this shear.`;
   }
+  if (recommendation.basis !== "over") why += lowRake;
   return { deg: recommendation.deg, value: computed(roundTo(recommendation.deg, DECIMALS.deg), "deg", why) };
 }
 function resolveGap(inputs: SetupInputs): { mm: number; value: SetupValue } {

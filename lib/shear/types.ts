@@ -194,7 +194,8 @@ export type FindingCode =
   | "gap_out_of_range"
   | "rake_out_of_range"
   | "strip_narrow"
-  | "backgauge_finer_than_repeatability";
+  | "backgauge_finer_than_repeatability"
+  | "strip_distortion";
 
 export interface Finding {
   code: FindingCode;

@@ -121,6 +121,7 @@ describe("resolveSetup", () => {
     expect(s.report.bladeGap.why).toContain("6 % of the 0.1345 in thickness"); // 6.0 % at 10 ga on the 7 % → 5 % rule
     expect(s.report.bladeGap.why).toMatch(/falls as material gets thicker/);
     expect(s.report.backgaugeRetract.value).toBe(0.1); // common practice
+    expect(s.report.rake.why).toMatch(/less twist, bow and camber/); // lower rake reduces distortion of narrow strips (common practice)
   });
 
   it("reports the gap at the ends and at the centre, the centre tighter by the crown", () => {

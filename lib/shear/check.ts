@@ -10,7 +10,9 @@ import { isObject, isPositive, readProgram } from "./read";
 import { checkUnitsSuspect, resolveGrade, resolveTensile, resolveThickness, usableShear } from "./context";
 import { validationOf, checkThickness, checkForce, checkHardness, checkGivenSetup } from "./findings";
 import { checkGroups } from "./groups";
-import { remnantToleranceMm, simulateFlow, yieldReport, type FlowResult } from "./flow";
+import { remnantToleranceMm, simulateFlow, type FlowResult } from "./flow";
+import { yieldReport } from "./yields";
+import { layoutReport } from "./layout";
 import { cutForce, forceReport, maxThicknessForGradeMm, rakedForceKn, ratedForceKn, straightForceKn, type CutForce } from "./force";
 import { gradeShearStrengthMpa, gradeTensile, type GradeTensile } from "./grades";
 import { resolveSetup, NOTHING_GIVEN, type ResolvedSetup } from "./setup";
@@ -98,6 +100,7 @@ const emptyResult = (findings: Finding[], units: LengthUnit | null): CheckResult
   force: null,
   yield: null,
   estimate: null,
+  layout: null,
 });
 
 /**
@@ -117,7 +120,7 @@ export function checkProgram(input: CutProgram | unknown, context: CheckContext)
   const tensile = resolveTensile(grade, findings);
   const thicknessMm = resolveThickness(program.thickness, grade, program.gradeCode, findings);
   if (shear !== null) findings.push(...checkUnitsSuspect(program, shear));
-  const flow = program.sheet !== null ? simulateFlow(program.sheet, program.cuts, { toleranceMm: remnantToleranceMm(shear) }) : null;
+  const flow = program.sheet !== null ? simulateFlow(program.sheet, program.cuts, { toleranceMm: remnantToleranceMm(shear), place: true }) : null;
 
   let forced: ForceAndSetup | null = null;
   if (shear !== null && grade !== null && tensile !== null && thicknessMm !== null && program.thickness !== null) {
@@ -154,6 +157,7 @@ export function checkProgram(input: CutProgram | unknown, context: CheckContext)
     force: forced?.report ?? null,
     yield: flow !== null && program.sheet !== null ? yieldReport(flow, program.sheet.count, units) : null,
     estimate,
+    layout: flow !== null && program.cutsIsArray ? layoutReport(flow, units) : null,
   };
 }
 

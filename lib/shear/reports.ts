@@ -109,6 +109,43 @@ export interface EstimateReport {
   seconds: { strokes: number; backgauge: number; turns: number; sheets: number; total: number };
 }
 
+/** One rectangle of the sheet as cut, in drawing coordinates (see `layout` in CheckResult). */
+export interface LaidRectangle {
+  kind: "blank" | "scrap" | "offcut";
+  /** Group that made it (−1: the stock sheet, never cut). */
+  group: number;
+  /** 1-based stroke on the sheet, in cutting order, that cut it off; null for a remnant taken as a piece and for offcut left over. */
+  stroke: number | null;
+  x: number;
+  y: number;
+  /** Extent along x (the sheet's length). */
+  width: number;
+  /** Extent along y (the sheet's width, toward the backgauge). */
+  height: number;
+}
+
+export interface LaidCut {
+  group: number;
+  stroke: number;
+  x1: number;
+  y1: number;
+  x2: number;
+  y2: number;
+  /** A partial stroke: it cuts part of the edge and severs nothing. */
+  partial: boolean;
+}
+
+/**
+ * One sheet as it is cut, from the piece flow: x along the sheet's length (the
+ * edge first presented to the blade), y along its width toward the backgauge,
+ * origin at the corner where the first strip is cut; in the program's units.
+ */
+export interface LayoutReport {
+  unit: LengthUnit;
+  rectangles: LaidRectangle[];
+  cuts: LaidCut[];
+}
+
 export interface CheckResult {
   validation: Validation;
   units: LengthUnit | null;
@@ -118,4 +155,6 @@ export interface CheckResult {
   force: ForceReport | null;
   yield: YieldReport | null;
   estimate: EstimateReport | null;
+  /** One sheet as cut; null when there is no sheet or it has too many pieces to place. */
+  layout: LayoutReport | null;
 }

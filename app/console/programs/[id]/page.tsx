@@ -10,6 +10,7 @@ import { currentMember } from "@/lib/auth/session";
 import { requestEm } from "@/lib/db/orm";
 import { getProgram, viewProgram } from "@/lib/services/programs";
 import { listEvents } from "@/lib/services/webhooks";
+import { programLayout } from "@/lib/shear";
 
 export const metadata = { title: "Program" };
 
@@ -68,7 +69,7 @@ export default async function ProgramPage({ params }: { params: Promise<{ id: st
 
           <section>
             <h2 className="mb-2 text-sm font-semibold">One sheet, as it is cut</h2>
-            <CutDrawing sheet={p.sheet} cuts={p.cuts} units={p.units} faultyGroups={faultyGroups} />
+            <CutDrawing sheet={p.sheet} layout={c.layout !== undefined ? c.layout : programLayout({ units: p.units, sheet: p.sheet, cuts: p.cuts })} units={p.units} faultyGroups={faultyGroups} />
             <ol className="mt-2 space-y-0.5 text-xs text-ink-muted">
               {p.cuts.map((cut, i) => (
                 <li key={i} className={faultyGroups.includes(i) ? "text-fault" : ""}>

@@ -103,13 +103,20 @@ const emptyResult = (findings: Finding[], units: LengthUnit | null): CheckResult
   layout: null,
 });
 
+export interface CheckOptions {
+  /** Place the sheet for `layout` (default true); false skips the placing and reports `layout: null`. */
+  layout?: boolean;
+}
+
 /**
  * Check a cut program against its shear and grade.
  *
  * @param input the cut program as submitted (any value is accepted; problems become findings)
  * @param context the shear profile and the grade's catalogue entry (null when the catalogue has none)
+ * @param options `layout: false` when the sheet's layout is not wanted (it is the costliest part for many pieces)
  */
-export function checkProgram(input: CutProgram | unknown, context: CheckContext): CheckResult {
+export function checkProgram(input: CutProgram | unknown, context: CheckContext, options: CheckOptions = {}): CheckResult {
+  const place = !(isObject(options) && options.layout === false);
   const findings: Finding[] = [];
   const program = readProgram(input, findings);
   if (program === null) return emptyResult(findings, null);
@@ -120,7 +127,7 @@ export function checkProgram(input: CutProgram | unknown, context: CheckContext)
   const tensile = resolveTensile(grade, findings);
   const thicknessMm = resolveThickness(program.thickness, grade, program.gradeCode, findings);
   if (shear !== null) findings.push(...checkUnitsSuspect(program, shear));
-  const flow = program.sheet !== null ? simulateFlow(program.sheet, program.cuts, { toleranceMm: remnantToleranceMm(shear), place: true }) : null;
+  const flow = program.sheet !== null ? simulateFlow(program.sheet, program.cuts, { toleranceMm: remnantToleranceMm(shear), place }) : null;
 
   let forced: ForceAndSetup | null = null;
   if (shear !== null && grade !== null && tensile !== null && thicknessMm !== null && program.thickness !== null) {
@@ -157,7 +164,7 @@ export function checkProgram(input: CutProgram | unknown, context: CheckContext)
     force: forced?.report ?? null,
     yield: flow !== null && program.sheet !== null ? yieldReport(flow, program.sheet.count, units) : null,
     estimate,
-    layout: flow !== null && program.cutsIsArray ? layoutReport(flow, units) : null,
+    layout: place && flow !== null && program.cutsIsArray ? layoutReport(flow, units) : null,
   };
 }
 

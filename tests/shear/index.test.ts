@@ -54,6 +54,13 @@ describe("the cut-program worked example in our API docs", () => {
     expect(r.setup?.bladeGap).toMatchObject({ unit: "in", source: "computed" });
   });
 
+  it("places the sheet unless asked not to", () => {
+    expect(r.layout?.rectangles.filter((rect) => rect.kind === "blank")).toHaveLength(28); // worked example: 28 blanks per sheet
+    const unplaced = checkProgram(WORKED_EXAMPLE, { shear: DEMO_SHEAR, grade: grade("A36") }, { layout: false });
+    expect(unplaced.layout).toBeNull();
+    expect({ ...unplaced, layout: r.layout }).toEqual(r); // everything else the same
+  });
+
   it("does not change the program", () => {
     const p = clone(WORKED_EXAMPLE);
     check(p);

@@ -3,8 +3,10 @@
  * and thickness, and the gap at the centre of the blade and at its ends.
  *
  * One fixed percentage per family cannot hold over the whole range: published
- * gap guidance gives the gap falling as a share of thickness as material gets
- * thicker. Each family has a thin and a thick anchor (thickness, % of
+ * gap guidance changes the share of thickness with thickness (for steels and
+ * light alloys it falls as material gets thicker; the stainless producers'
+ * guidance has thin gauge tighter, 3 %, and 16 gauge and heavier at 5 %).
+ * Each family has a thin and a thick anchor (thickness, % of
  * thickness), each with its source; between them the percentage is
  * interpolated on the logarithm of thickness (so equal ratios of thickness
  * move it by equal steps), and outside them it stays at the nearer anchor.
@@ -40,10 +42,11 @@ export const GAP_RULES: Readonly<Record<GradeFamily, GapRule>> = Object.freeze({
     thick: { thicknessMm: 12.7, pct: 5, source: "from memory (shear makers' gap charts for mild-steel plate)" },
   },
   stainless: {
-    // The fixed 9 % rule matches what shops run on thin-gauge stainless (common practice).
-    thin: { thicknessMm: 1.0, pct: 9, source: "common practice (thin-gauge stainless)" },
-    // About two-thirds of that on quarter-inch stainless plate: from memory of shear makers' gap charts.
-    thick: { thicknessMm: 6.35, pct: 6, source: "from memory (shear makers' gap charts for stainless plate)" },
+    // The stainless producers' association's fabrication guidance (Specialty Steel Industry of North America,
+    // "Stainless Steel Fabrication"): 3 % of thickness below 16 gauge, 5 % at 16 gauge (0.0625 in) and heavier;
+    // 0.001–0.002 in on thin-gauge sheet. The step is ramped over the one gauge between 18 and 16 gauge (ours).
+    thin: { thicknessMm: 1.27, pct: 3, source: "stainless producers' fabrication guidance (SSINA): 3 % below 16 gauge" },
+    thick: { thicknessMm: 1.5875, pct: 5, source: "stainless producers' fabrication guidance (SSINA): 5 % at 16 gauge and heavier" },
   },
   aluminium: {
     // Soft aluminium and copper sit at the low end of the 4–10 % span (common practice).

@@ -16,8 +16,10 @@ export const NARROW_STRIP_LENGTH_PER_WIDTH = 50;
  * Distortion rule (ours): at rake α (degrees), strips narrower than this many
  * thicknesses per degree of rake are likely to twist, bow and camber. The
  * trade fact is that distortion of narrow strips grows with rake and falls as
- * the strip widens against its thickness (common practice; a plate maker's
- * shearing guidance: "a larger rake angle increases the risk of … twisting");
+ * the strip widens against its thickness (common practice; the stainless
+ * producers' fabrication guidance, SSINA: small rake angles "require higher
+ * power, but cause less distortion"; a plate maker's shearing guidance: "a
+ * larger rake angle increases the risk of … twisting");
  * the proportional threshold is ours. At 0.5° it meets the narrow-strip rule
  * (10 × thickness).
  */

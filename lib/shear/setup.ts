@@ -169,7 +169,7 @@ function resolveRake(inputs: SetupInputs): { deg: number; value: SetupValue } {
   const forceKn = inputs.requiredKnAt(recommendation.deg);
   const sharp = fmtForce(forceKn, units);
   const dull = fmtForce(forceKn * DULL_BLADE_FACTOR, units);
-  const lowRake = " Lower rake means less twist, bow and camber of narrow strips, at the cost of force (common practice), so the lowest that fits is taken.";
+  const lowRake = " Lower rake means less twist, bow and camber of narrow strips, at the cost of force (stainless producers' fabrication guidance; common practice), so the lowest that fits is taken.";
   let why: string;
   if (recommendation.basis === "dull") {
     why = `Lowest rake in this shear's ${range} range at which even dull blades (${DULL_BLADE_FACTOR} × ${sharp} = ${dull}) stay within the ${rated} rating.`;
@@ -189,7 +189,7 @@ function resolveGap(inputs: SetupInputs): { mm: number; value: SetupValue } {
   const anchors = GAP_RULES[family];
   const rule =
     `${fmtNumber(recommendation.pct, 1)} % of the ${fmtLength(inputs.thicknessMm, units)} thickness for ${FAMILY_LABEL[family]} ` +
-    `(the share falls as material gets thicker: ${anchors.thin.pct} % at ${fmtLength(anchors.thin.thicknessMm, units)}, ${anchors.thick.pct} % at ${fmtLength(anchors.thick.thicknessMm, units)})`;
+    `(the share changes with thickness: ${anchors.thin.pct} % at ${fmtLength(anchors.thin.thicknessMm, units)} and thinner, ${anchors.thick.pct} % at ${fmtLength(anchors.thick.thicknessMm, units)} and thicker)`;
   if (inputs.given.gapMm !== null) {
     const mm = inputs.given.gapMm;
     const inRange = mm >= shear.gapMinMm && mm <= shear.gapMaxMm;

@@ -82,7 +82,7 @@ describe("millimetre programs get millimetres, MPa and kN back", () => {
     expect(r.force?.unit).toBe("kN");
     expect(r.force?.tensile).toEqual({ value: 515, unit: "MPa", basis: "minimum" }); // ASTM A240: 515 MPa
     expect(r.setup?.bladeGap.unit).toBe("mm");
-    expect(r.setup?.bladeGap.value).toBe(0.158); // 7.9 % × 2 mm: stainless, 9 % at 1 mm falling to 6 % at 6.35 mm (lib/shear/gap.ts)
+    expect(r.setup?.bladeGap.value).toBe(0.1); // 5 % × 2 mm: stainless at 16 gauge and heavier (SSINA fabrication guidance)
     expect(r.yield?.areaUnit).toBe("mm2");
     expect(r.yield?.total.blanks).toBe(3); // 2 cut + the 500 mm remnant equal to the backgauge (our piece-flow rule)
   });

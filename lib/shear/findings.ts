@@ -61,31 +61,31 @@ export function validationOf(findings: readonly Finding[]): Validation {
   return findings.length > 0 ? "warn" : "pass";
 }
 
-export function checkThickness(thicknessMm: number, max: MaxThickness, gradeCode: string, pointer: string, u: LengthUnit): Finding[] {
+export function checkThickness(thicknessMm: number, max: MaxThickness, gradeCode: string, pointer: string, units: LengthUnit): Finding[] {
   if (thicknessMm <= max.mm) return [];
   const why = max.source === "shear-profile" ? "the limit this shear sets for the grade" : "derived from its rating at the rated rake";
   return [
     finding(
       "thickness_over_capacity",
       pointer,
-      `Thickness ${fmtLength(thicknessMm, u)} is more than this shear can cut in ${gradeCode}: at most ${fmtLength(max.mm, u)} (${why}).`,
-      showLength(max.mm, u),
-      showLength(thicknessMm, u),
-      u,
+      `Thickness ${fmtLength(thicknessMm, units)} is more than this shear can cut in ${gradeCode}: at most ${fmtLength(max.mm, units)} (${why}).`,
+      showLength(max.mm, units),
+      showLength(thicknessMm, units),
+      units,
     ),
   ];
 }
 
-export function checkForce(requiredKn: number, ratedKn: number, rakeDeg: number, pointer: string, u: LengthUnit): Finding[] {
-  const unit = forceUnitFor(u);
+export function checkForce(requiredKn: number, ratedKn: number, rakeDeg: number, pointer: string, units: LengthUnit): Finding[] {
+  const unit = forceUnitFor(units);
   if (requiredKn > ratedKn) {
     return [
       finding(
         "force_over_rating",
         pointer,
-        `At ${fmtDeg(rakeDeg)} rake the cut needs ${fmtForce(requiredKn, u)}, more than this shear's ${fmtForce(ratedKn, u)} rating.`,
-        showForce(ratedKn, u),
-        showForce(requiredKn, u),
+        `At ${fmtDeg(rakeDeg)} rake the cut needs ${fmtForce(requiredKn, units)}, more than this shear's ${fmtForce(ratedKn, units)} rating.`,
+        showForce(ratedKn, units),
+        showForce(requiredKn, units),
         unit,
       ),
     ];
@@ -96,9 +96,9 @@ export function checkForce(requiredKn: number, ratedKn: number, rakeDeg: number,
       finding(
         "force_dull_blade_margin",
         pointer,
-        `With dull blades the cut may need ${fmtForce(dull, u)} (${DULL_BLADE_FACTOR} × ${fmtForce(requiredKn, u)}), more than the ${fmtForce(ratedKn, u)} rating: run only with sharp blades.`,
-        showForce(ratedKn, u),
-        showForce(dull, u),
+        `With dull blades the cut may need ${fmtForce(dull, units)} (${DULL_BLADE_FACTOR} × ${fmtForce(requiredKn, units)}), more than the ${fmtForce(ratedKn, units)} rating: run only with sharp blades.`,
+        showForce(ratedKn, units),
+        showForce(dull, units),
         unit,
       ),
     ];
@@ -129,8 +129,8 @@ function rangeFinding(
   value: number,
   min: number,
   max: number,
-  show: (v: number) => number,
-  text: (v: number) => string,
+  show: (value: number) => number,
+  text: (value: number) => string,
   unit: string,
 ): Finding[] {
   if (value >= min && value <= max) return [];
@@ -138,13 +138,13 @@ function rangeFinding(
   return [finding(code, pointer, `${what} ${text(value)} is outside this shear's ${text(min)}–${text(max)} range.`, show(bound), show(value), unit)];
 }
 
-export function checkGivenSetup(given: GivenSetup, gapPointer: string, shear: ShearProfile, u: LengthUnit): Finding[] {
+export function checkGivenSetup(given: GivenSetup, gapPointer: string, shear: ShearProfile, units: LengthUnit): Finding[] {
   const out: Finding[] = [];
   if (given.gapMm !== null) {
-    out.push(...rangeFinding("gap_out_of_range", gapPointer, "Blade gap", given.gapMm, shear.gapMinMm, shear.gapMaxMm, (v) => showLength(v, u), (v) => fmtLength(v, u), u));
+    out.push(...rangeFinding("gap_out_of_range", gapPointer, "Blade gap", given.gapMm, shear.gapMinMm, shear.gapMaxMm, (value) => showLength(value, units), (value) => fmtLength(value, units), units));
   }
   if (given.rakeDeg !== null) {
-    out.push(...rangeFinding("rake_out_of_range", "/setup/rakeDeg", "Rake", given.rakeDeg, shear.rakeMinDeg, shear.rakeMaxDeg, (v) => roundTo(v, DECIMALS.deg), fmtDeg, "deg"));
+    out.push(...rangeFinding("rake_out_of_range", "/setup/rakeDeg", "Rake", given.rakeDeg, shear.rakeMinDeg, shear.rakeMaxDeg, (value) => roundTo(value, DECIMALS.deg), fmtDeg, "deg"));
   }
   return out;
 }

@@ -31,14 +31,18 @@ export const Shear = defineEntity({
     gapMaxMm: measure(),
     strokesPerMin: measure(),
     backgaugeSpeedMmPerS: measure(),
+    /** the backgauge's stated repeatability (±), mm; null = not stated (the core's default remnant tolerance) */
+    backgaugeRepeatabilityMm: measure().nullable(),
     handlingSecondsPerTurn: measure(),
     handlingSecondsPerSheet: measure(),
     /** hardest material (Brinell) the fitted blades are meant for; null = not stated */
     maxBladeHardnessHb: measure().nullable(),
     /** explicit maximum thickness per grade code, in mm; wins over the derived value */
     gradeThicknessLimitsMm: p.json<Record<string, number>>().default("{}"),
-    /** crown correction at full rated force, mm; null = the core's default */
+    /** force-proportional crown correction at full rated force, mm; null = the core's default */
     crownAtRatedMm: measure().nullable(),
+    /** ends-minus-centre blade gap with no load (blade straightness, the beam's geometry), mm; null = the core's default */
+    crownBaselineMm: measure().nullable(),
     archivedAt: p.datetime().nullable(),
     createdAt: p.datetime().onCreate(() => new Date()),
     updatedAt: p.datetime().onCreate(() => new Date()).onUpdate(() => new Date()),

@@ -11,6 +11,8 @@ import { Migration20261202005416_team } from "./Migration20261202005416_team";
 import { Migration20261202021005_plans } from "./Migration20261202021005_plans";
 import { Migration20261202155743_text_columns } from "./Migration20261202155743_text_columns";
 import { Migration20261202160834_console_sessions } from "./Migration20261202160834_console_sessions";
+import { Migration20261202160000_shear_crown_baseline } from "./Migration20261202160000_shear_crown_baseline";
+import { Migration20261202163000_backgauge_repeatability } from "./Migration20261202163000_backgauge_repeatability";
 
 export const migrationsList: MigrationObject[] = [
   { name: "Migration20261201234604_initial", class: Migration20261201234604_initial },
@@ -20,4 +22,6 @@ export const migrationsList: MigrationObject[] = [
   { name: "Migration20261202021005_plans", class: Migration20261202021005_plans },
   { name: "Migration20261202155743_text_columns", class: Migration20261202155743_text_columns },
   { name: "Migration20261202160834_console_sessions", class: Migration20261202160834_console_sessions },
+  { name: "Migration20261202160000_shear_crown_baseline", class: Migration20261202160000_shear_crown_baseline },
+  { name: "Migration20261202163000_backgauge_repeatability", class: Migration20261202163000_backgauge_repeatability },
 ];

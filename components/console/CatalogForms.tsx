@@ -29,6 +29,9 @@ const SHEAR_FIELDS: Field[] = [
   { name: "handlingSecondsPerTurn", label: "Handling per turn", unit: "s" },
   { name: "handlingSecondsPerSheet", label: "Handling per sheet", unit: "s" },
   { name: "maxBladeHardnessHb", label: "Blades good to", unit: "HB", optional: true },
+  { name: "backgaugeRepeatabilityMm", label: "Backgauge repeatability ±", unit: "mm", optional: true },
+  { name: "crownAtRatedMm", label: "Crown at rated force", unit: "mm", optional: true },
+  { name: "crownBaselineMm", label: "Crown with no load", unit: "mm", optional: true },
 ];
 
 const GRADE_FIELDS: Field[] = [

@@ -134,7 +134,15 @@ export const Check = z
       .object({ value: z.number(), unit: z.enum(["in", "mm"]), source: z.enum(["value", "gauge"]), gauge: z.number().nullable(), gaugeFamily: z.string().nullable() })
       .nullable(),
     setup: z
-      .object({ bladeGap: SetupValue, rake: SetupValue, holdDown: SetupValue, crown: SetupValue, backgaugeRetract: SetupValue })
+      .object({
+        bladeGap: SetupValue.openapi({ description: "The gap the material needs at this thickness (set at the blade ends)" }),
+        gapEnds: SetupValue.optional().openapi({ description: "Gap to set at the ends of the blade (absent from checks stored before it was reported)" }),
+        gapCentre: SetupValue.optional().openapi({ description: "Gap to set at the centre: the ends less the crown (absent from checks stored before it was reported)" }),
+        rake: SetupValue,
+        holdDown: SetupValue,
+        crown: SetupValue.openapi({ description: "Ends minus centre: a baseline with no load plus a part proportional to the force" }),
+        backgaugeRetract: SetupValue,
+      })
       .nullable()
       .openapi({ description: "Recommendations for a qualified operator, each with its reason; never a guarantee." }),
     force: z
@@ -169,6 +177,28 @@ export const Check = z
         seconds: z.object({ strokes: z.number(), backgauge: z.number(), turns: z.number(), sheets: z.number(), total: z.number() }),
       })
       .nullable(),
+    layout: z
+      .object({
+        unit: z.enum(["in", "mm"]),
+        rectangles: z.array(z.object({
+          kind: z.enum(["blank", "scrap", "offcut"]),
+          group: z.number().int().openapi({ description: "Group that made it (−1: the stock sheet, never cut)" }),
+          stroke: z.number().int().nullable().openapi({ description: "1-based stroke on the sheet, in cutting order, that cut it off; null for a remnant taken as a piece and for offcut left over" }),
+          x: z.number(), y: z.number(),
+          width: z.number().openapi({ description: "Extent along x (the sheet's length)" }),
+          height: z.number().openapi({ description: "Extent along y (the sheet's width, toward the backgauge)" }),
+        })),
+        cuts: z.array(z.object({
+          group: z.number().int(), stroke: z.number().int(), x1: z.number(), y1: z.number(), x2: z.number(), y2: z.number(),
+          partial: z.boolean().openapi({ description: "A partial stroke: cuts part of the edge, severs nothing" }),
+        })),
+      })
+      .nullable()
+      .optional()
+      .openapi("SheetLayout", {
+        description:
+          "One sheet as it is cut, from the same piece flow as the yield: x along the sheet's length (the edge first presented to the blade), y along its width toward the backgauge, origin at the corner where the first strip is cut, in the program's units. Null when the program has no usable sheet or too many pieces to place; absent from checks stored before it was reported.",
+      }),
   })
   .openapi("Check", { description: "What the shear core made of a program: findings, setup, force, yield and cycle estimate, in the program's units." });
 

@@ -19,12 +19,14 @@ const ShearFields = z.object({
   gapMaxMm: z.number().positive().max(50).openapi({ description: "Largest blade gap (mm)" }),
   strokesPerMin: z.number().positive().max(200).openapi({ description: "Strokes per minute at full stroke" }),
   backgaugeSpeedMmPerS: z.number().positive().max(10_000).openapi({ description: "Backgauge travel speed (mm/s)" }),
+  backgaugeRepeatabilityMm: z.number().positive().max(5).nullable().optional().openapi({ description: "The backgauge's stated repeatability, ± (mm): settings closer than this cannot be told apart, and a remnant within it of the backgauge is a piece; null = not stated (0.1 mm is used for the piece flow)" }),
   handlingSecondsPerTurn: z.number().min(0).max(3600).openapi({ description: "Handling time to turn one piece (s)" }),
   handlingSecondsPerSheet: z.number().min(0).max(3600).openapi({ description: "Handling time to load one sheet (s)" }),
   maxBladeHardnessHb: z.number().positive().max(800).nullable().optional().openapi({ description: "Hardest material the fitted blades are meant for (Brinell); null = not checked" }),
   gradeThicknessLimitsMm: z.record(z.string().min(1).max(50), z.number().positive().max(1000)).optional()
     .openapi({ description: "Explicit maximum thickness per grade code (mm); wins over the derived value", example: { "304": 4 } }),
-  crownAtRatedMm: z.number().min(0).max(5).nullable().optional().openapi({ description: "Crown correction at full rated force (mm); null = the default" }),
+  crownAtRatedMm: z.number().min(0).max(5).nullable().optional().openapi({ description: "Force-proportional part of the crown (centre gap tighter than the ends) at full rated force (mm); null = the default" }),
+  crownBaselineMm: z.number().min(0).max(1).nullable().optional().openapi({ description: "Gap at the blade ends less the gap at the centre with no load, for blade and seat straightness and the beam's geometry (mm); null = the default, 0.0508 mm (0.002 in)" }),
 });
 
 function ranges<T extends z.ZodType<Partial<z.infer<typeof ShearFields>>>>(schema: T) {
@@ -47,6 +49,8 @@ export const Shear = ShearFields.extend({
   maxBladeHardnessHb: z.number().nullable(),
   gradeThicknessLimitsMm: z.record(z.string(), z.number()),
   crownAtRatedMm: z.number().nullable(),
+  crownBaselineMm: z.number().nullable(),
+  backgaugeRepeatabilityMm: z.number().nullable(),
   archivedAt: z.string().nullable(),
   createdAt: z.string(),
   updatedAt: z.string(),

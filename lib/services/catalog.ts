@@ -29,14 +29,17 @@ export function viewShear(s: ShearEntity): ShearT {
     strokesPerMin: s.strokesPerMin, backgaugeSpeedMmPerS: s.backgaugeSpeedMmPerS,
     handlingSecondsPerTurn: s.handlingSecondsPerTurn, handlingSecondsPerSheet: s.handlingSecondsPerSheet,
     maxBladeHardnessHb: s.maxBladeHardnessHb ?? null, gradeThicknessLimitsMm: s.gradeThicknessLimitsMm ?? {},
-    crownAtRatedMm: s.crownAtRatedMm ?? null,
+    crownAtRatedMm: s.crownAtRatedMm ?? null, crownBaselineMm: s.crownBaselineMm ?? null,
+    backgaugeRepeatabilityMm: s.backgaugeRepeatabilityMm ?? null,
     archivedAt: iso(s.archivedAt), createdAt: s.createdAt.toISOString(), updatedAt: s.updatedAt.toISOString(),
   };
 }
 
 export function shearProfile(s: ShearEntity): ShearProfile {
   const { archivedAt: _a, createdAt: _c, updatedAt: _u, description: _d, ...profile } = viewShear(s);
-  return { ...profile, crownAtRatedMm: s.crownAtRatedMm ?? undefined };
+  return { ...profile, crownAtRatedMm: s.crownAtRatedMm ?? undefined, crownBaselineMm: s.crownBaselineMm ?? undefined,
+    backgaugeRepeatabilityMm: s.backgaugeRepeatabilityMm ?? undefined,
+  };
 }
 
 export async function findShear(em: EntityManager, shopId: string, id: string): Promise<ShearEntity> {
@@ -75,6 +78,8 @@ export async function createShear(em: EntityManager, shopId: string, input: Shea
     maxBladeHardnessHb: input.maxBladeHardnessHb ?? null,
     gradeThicknessLimitsMm: input.gradeThicknessLimitsMm ?? {},
     crownAtRatedMm: input.crownAtRatedMm ?? null,
+    crownBaselineMm: input.crownBaselineMm ?? null,
+    backgaugeRepeatabilityMm: input.backgaugeRepeatabilityMm ?? null,
     shop: em.getReference(Shop, shopId),
   });
   await em.flush();

@@ -3,7 +3,8 @@
  * handling per turned piece and per sheet. Machine constants come from the
  * shear profile; the stroke-time split below is ours.
  */
-import type { EstimateReport, ShearProfile } from "./types";
+import type { ShearProfile } from "./types";
+import type { EstimateReport } from "./reports";
 import type { FlowCut, FlowResult } from "./flow";
 import { DECIMALS, roundTo } from "./units";
 

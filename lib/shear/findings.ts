@@ -7,7 +7,6 @@
  * caller's units. Checks report; they never change the program.
  */
 import type { Finding, FindingCode, GradeProfile, LengthUnit, Severity, ShearProfile, Validation } from "./types";
-import type { FlowCut, FlowResult } from "./flow";
 import type { GivenSetup } from "./setup";
 import type { MaxThickness } from "./force";
 import { DULL_BLADE_FACTOR } from "./force";
@@ -41,12 +40,9 @@ export const FINDING_CATALOGUE: Readonly<Record<FindingCode, FindingSpec>> = Obj
   gap_out_of_range: { severity: "error", meaning: "The given blade gap is outside the shear's gap range." },
   rake_out_of_range: { severity: "error", meaning: "The given rake is outside the shear's rake range." },
   strip_narrow: { severity: "warning", meaning: "Strips narrow for their thickness or length tend to twist and bow (our rule: narrower than 10 × thickness or 1/50 of their length)." },
+  strip_distortion: { severity: "warning", meaning: "Strips narrow for their thickness at this rake are likely to twist, bow and curve (camber); a lower rake reduces it at the cost of force (our rule: narrower than 20 × thickness × rake in degrees)." },
+  backgauge_finer_than_repeatability: { severity: "warning", meaning: "Two backgauge settings differ by less than the shear's stated backgauge repeatability: the machine cannot hold the difference, so the pieces may come out the same." },
 });
-
-/** Narrow strip rule (ours): warn below this many thicknesses of width… */
-export const NARROW_STRIP_WIDTH_PER_THICKNESS = 10;
-/** …or when the strip is longer than this many widths. */
-export const NARROW_STRIP_LENGTH_PER_WIDTH = 50;
 
 export function finding(
   code: FindingCode,
@@ -65,34 +61,31 @@ export function validationOf(findings: readonly Finding[]): Validation {
   return findings.length > 0 ? "warn" : "pass";
 }
 
-const groupName = (i: number): string => `group ${i + 1}`;
-const plural = (n: number, one: string, many: string): string => `${n} ${n === 1 ? one : many}`;
-
-export function checkThickness(thicknessMm: number, max: MaxThickness, gradeCode: string, pointer: string, u: LengthUnit): Finding[] {
+export function checkThickness(thicknessMm: number, max: MaxThickness, gradeCode: string, pointer: string, units: LengthUnit): Finding[] {
   if (thicknessMm <= max.mm) return [];
   const why = max.source === "shear-profile" ? "the limit this shear sets for the grade" : "derived from its rating at the rated rake";
   return [
     finding(
       "thickness_over_capacity",
       pointer,
-      `Thickness ${fmtLength(thicknessMm, u)} is more than this shear can cut in ${gradeCode}: at most ${fmtLength(max.mm, u)} (${why}).`,
-      showLength(max.mm, u),
-      showLength(thicknessMm, u),
-      u,
+      `Thickness ${fmtLength(thicknessMm, units)} is more than this shear can cut in ${gradeCode}: at most ${fmtLength(max.mm, units)} (${why}).`,
+      showLength(max.mm, units),
+      showLength(thicknessMm, units),
+      units,
     ),
   ];
 }
 
-export function checkForce(requiredKn: number, ratedKn: number, rakeDeg: number, pointer: string, u: LengthUnit): Finding[] {
-  const unit = forceUnitFor(u);
+export function checkForce(requiredKn: number, ratedKn: number, rakeDeg: number, pointer: string, units: LengthUnit): Finding[] {
+  const unit = forceUnitFor(units);
   if (requiredKn > ratedKn) {
     return [
       finding(
         "force_over_rating",
         pointer,
-        `At ${fmtDeg(rakeDeg)} rake the cut needs ${fmtForce(requiredKn, u)}, more than this shear's ${fmtForce(ratedKn, u)} rating.`,
-        showForce(ratedKn, u),
-        showForce(requiredKn, u),
+        `At ${fmtDeg(rakeDeg)} rake the cut needs ${fmtForce(requiredKn, units)}, more than this shear's ${fmtForce(ratedKn, units)} rating.`,
+        showForce(ratedKn, units),
+        showForce(requiredKn, units),
         unit,
       ),
     ];
@@ -103,9 +96,9 @@ export function checkForce(requiredKn: number, ratedKn: number, rakeDeg: number,
       finding(
         "force_dull_blade_margin",
         pointer,
-        `With dull blades the cut may need ${fmtForce(dull, u)} (${DULL_BLADE_FACTOR} × ${fmtForce(requiredKn, u)}), more than the ${fmtForce(ratedKn, u)} rating: run only with sharp blades.`,
-        showForce(ratedKn, u),
-        showForce(dull, u),
+        `With dull blades the cut may need ${fmtForce(dull, units)} (${DULL_BLADE_FACTOR} × ${fmtForce(requiredKn, units)}), more than the ${fmtForce(ratedKn, units)} rating: run only with sharp blades.`,
+        showForce(ratedKn, units),
+        showForce(dull, units),
         unit,
       ),
     ];
@@ -136,8 +129,8 @@ function rangeFinding(
   value: number,
   min: number,
   max: number,
-  show: (v: number) => number,
-  text: (v: number) => string,
+  show: (value: number) => number,
+  text: (value: number) => string,
   unit: string,
 ): Finding[] {
   if (value >= min && value <= max) return [];
@@ -145,144 +138,13 @@ function rangeFinding(
   return [finding(code, pointer, `${what} ${text(value)} is outside this shear's ${text(min)}–${text(max)} range.`, show(bound), show(value), unit)];
 }
 
-export function checkGivenSetup(given: GivenSetup, gapPointer: string, shear: ShearProfile, u: LengthUnit): Finding[] {
+export function checkGivenSetup(given: GivenSetup, gapPointer: string, shear: ShearProfile, units: LengthUnit): Finding[] {
   const out: Finding[] = [];
   if (given.gapMm !== null) {
-    out.push(...rangeFinding("gap_out_of_range", gapPointer, "Blade gap", given.gapMm, shear.gapMinMm, shear.gapMaxMm, (v) => showLength(v, u), (v) => fmtLength(v, u), u));
+    out.push(...rangeFinding("gap_out_of_range", gapPointer, "Blade gap", given.gapMm, shear.gapMinMm, shear.gapMaxMm, (value) => showLength(value, units), (value) => fmtLength(value, units), units));
   }
   if (given.rakeDeg !== null) {
-    out.push(...rangeFinding("rake_out_of_range", "/setup/rakeDeg", "Rake", given.rakeDeg, shear.rakeMinDeg, shear.rakeMaxDeg, (v) => roundTo(v, DECIMALS.deg), fmtDeg, "deg"));
+    out.push(...rangeFinding("rake_out_of_range", "/setup/rakeDeg", "Rake", given.rakeDeg, shear.rakeMinDeg, shear.rakeMaxDeg, (value) => roundTo(value, DECIMALS.deg), fmtDeg, "deg"));
   }
   return out;
 }
-
-export interface FlowCheckInput {
-  flow: FlowResult;
-  cuts: readonly FlowCut[];
-  /** Cuts whose fields were invalid (already reported); skipped here. */
-  skip: readonly boolean[];
-  shear: ShearProfile | null;
-  thicknessMm: number | null;
-  units: LengthUnit;
-}
-
-/** Where a group's presented edge comes from: the sheet's length, its width (first group turned), or an earlier group. */
-function presentedEdgePointer(cuts: readonly FlowCut[], index: number): string {
-  for (let i = 1; i <= index; i++) if (cuts[i].turn) return `/cuts/${index}`;
-  return cuts[0]?.turn ? "/sheet/width" : "/sheet/length";
-}
-
-/** Checks of every group against the shear and the piece flow. */
-export function checkGroups(c: FlowCheckInput): Finding[] {
-  const out: Finding[] = [];
-  const u = c.units;
-  if (c.cuts.length === 0) {
-    out.push(finding("program_cuts_nothing", "/cuts", "The program has no cut groups, so it cuts nothing."));
-    return out;
-  }
-  for (const g of c.flow.groups) {
-    const i = g.index;
-    if (c.skip[i]) continue;
-    const cut = c.cuts[i];
-    const at = `/cuts/${i}`;
-    // A group of 0 strokes only names the remnant as its piece: the backgauge is not set for it.
-    if (c.shear && cut.count > 0) out.push(...checkBackgaugeTravel(cut, i, c.shear, u));
-    if (cut.count === 0 && g.pieces.length === 0) {
-      out.push(finding("group_cuts_nothing", `${at}/count`, `${capital(groupName(i))} has nothing to cut: its count is 0.`, null, 0, "strokes"));
-      continue;
-    }
-    if (g.workpieces === 0) {
-      const source = cut.from ?? i - 1;
-      const reason = cut.turn ? `group ${source + 1} left no pieces to turn` : "the groups before it used up the workpiece";
-      out.push(finding("group_cuts_nothing", at, `${capital(groupName(i))} has nothing to cut: ${reason}.`, null, 0, "workpieces"));
-      continue;
-    }
-    if (c.shear && g.cutLengthMm > c.shear.bladeLengthMm) {
-      const pointer = cut.lengthMm !== null ? `${at}/length` : presentedEdgePointer(c.cuts, i);
-      out.push(
-        finding(
-          "cut_length_over_blade",
-          pointer,
-          `${capital(groupName(i))} cuts ${fmtLength(g.cutLengthMm, u)}, longer than this shear's ${fmtLength(c.shear.bladeLengthMm, u)} blade.`,
-          showLength(c.shear.bladeLengthMm, u),
-          showLength(g.cutLengthMm, u),
-          u,
-        ),
-      );
-    }
-    if (g.lengthOverWorkpiece && cut.lengthMm !== null) {
-      out.push(
-        finding(
-          "cut_length_over_workpiece",
-          `${at}/length`,
-          `${capital(groupName(i))} gives a length of cut of ${fmtLength(cut.lengthMm, u)}, longer than the ${fmtLength(g.presentedEdgeMm, u)} edge it presents to the blade.`,
-          showLength(g.presentedEdgeMm, u),
-          showLength(cut.lengthMm, u),
-          u,
-        ),
-      );
-    }
-    if (g.partial && cut.lengthMm !== null) {
-      out.push(
-        finding(
-          "partial_stroke",
-          `${at}/length`,
-          `${capital(groupName(i))} cuts ${fmtLength(cut.lengthMm, u)} of a ${fmtLength(g.presentedEdgeMm, u)} edge: these strokes do not cut a piece off, so no pieces are counted from them.`,
-          showLength(g.presentedEdgeMm, u),
-          showLength(cut.lengthMm, u),
-          u,
-        ),
-      );
-    }
-    if (g.beyond !== null) {
-      const b = g.beyond;
-      out.push(
-        finding(
-          "backgauge_beyond_workpiece",
-          `${at}/backgauge`,
-          `In ${groupName(i)}, stroke ${b.firstStroke} is set at ${fmtLength(cut.backgaugeMm, u)} but only ${fmtLength(b.remainingMm, u)} of workpiece is left: ${plural(b.strokes, "stroke", "strokes")} per sheet cut nothing.`,
-          showLength(b.remainingMm, u),
-          showLength(cut.backgaugeMm, u),
-          u,
-        ),
-      );
-    }
-    if (!cut.scrap && g.pieces.length > 0) out.push(...checkNarrowStrip(cut, g.presentedEdgeMm, i, c.thicknessMm, u));
-  }
-  return out;
-}
-
-function checkBackgaugeTravel(cut: FlowCut, i: number, shear: ShearProfile, u: LengthUnit): Finding[] {
-  const bg = cut.backgaugeMm;
-  if (bg >= shear.backgaugeMinMm && bg <= shear.backgaugeMaxMm) return [];
-  const bound = bg < shear.backgaugeMinMm ? shear.backgaugeMinMm : shear.backgaugeMaxMm;
-  return [
-    finding(
-      "backgauge_out_of_travel",
-      `/cuts/${i}/backgauge`,
-      `Backgauge ${fmtLength(bg, u)} in ${groupName(i)} is outside this shear's ${fmtLength(shear.backgaugeMinMm, u)}–${fmtLength(shear.backgaugeMaxMm, u)} travel.`,
-      showLength(bound, u),
-      showLength(bg, u),
-      u,
-    ),
-  ];
-}
-
-/** Narrow strip (ours): width under 10 × thickness, or length over 50 × width. */
-function checkNarrowStrip(cut: FlowCut, lengthMm: number, i: number, thicknessMm: number | null, u: LengthUnit): Finding[] {
-  const minWidth = Math.max(thicknessMm === null ? 0 : NARROW_STRIP_WIDTH_PER_THICKNESS * thicknessMm, lengthMm / NARROW_STRIP_LENGTH_PER_WIDTH);
-  if (cut.backgaugeMm >= minWidth) return [];
-  const of = thicknessMm === null ? "" : ` of ${fmtLength(thicknessMm, u)} material`;
-  return [
-    finding(
-      "strip_narrow",
-      `/cuts/${i}/backgauge`,
-      `${capital(groupName(i))} cuts strips ${fmtLength(cut.backgaugeMm, u)} wide and ${fmtLength(lengthMm, u)} long${of}; strips narrower than ${fmtLength(minWidth, u)} tend to twist and bow.`,
-      showLength(minWidth, u),
-      showLength(cut.backgaugeMm, u),
-      u,
-    ),
-  ];
-}
-
-const capital = (s: string): string => s.charAt(0).toUpperCase() + s.slice(1);

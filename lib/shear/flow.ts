@@ -16,7 +16,8 @@
  *   `from` lets one program rip strips of several widths and then crosscut
  *   each kind: rip A, rip B, turn from A and crosscut, turn from B and crosscut.
  * - After a group's last stroke on a workpiece, the remnant is a piece of that
- *   group when its width equals the backgauge within REMNANT_TOLERANCE_MM;
+ *   group when its width equals the backgauge within the remnant tolerance
+ *   (the shear's backgauge repeatability, else REMNANT_TOLERANCE_MM);
  *   otherwise it stays the workpiece for a following group without `turn`,
  *   and is offcut when no such group follows.
  * - A stroke whose backgauge is not smaller than the remaining width (less the
@@ -27,11 +28,27 @@
  * Identical pieces are kept as one size with a count, so a group's cost does
  * not grow with its stroke count.
  */
-import type { GroupYield, LengthUnit, PieceReport, YieldReport, YieldTotals } from "./types";
-import { areaUnitFor, showArea, showLength, showPct } from "./units";
+import { placeStrokes, type FlowLine, type Placement, type Placing } from "./place";
 
-/** Remnant width equal to the backgauge within this, mm (≈ 0.004 in: about a backgauge's positioning accuracy, common practice). */
+/**
+ * Remnant width equal to the backgauge within this, mm (≈ 0.004 in: about a
+ * backgauge's positioning accuracy, common practice), when the shear profile
+ * states no backgauge repeatability; a stated repeatability takes its place.
+ */
 export const REMNANT_TOLERANCE_MM = 0.1;
+
+/** The remnant tolerance for a shear: its stated backgauge repeatability, else REMNANT_TOLERANCE_MM. */
+export function remnantToleranceMm(shear: { backgaugeRepeatabilityMm?: number | null } | null | undefined): number {
+  const stated = shear?.backgaugeRepeatabilityMm;
+  return typeof stated === "number" && Number.isFinite(stated) && stated > 0 ? stated : REMNANT_TOLERANCE_MM;
+}
+
+export interface FlowOptions {
+  /** Remnant tolerance, mm (default REMNANT_TOLERANCE_MM). */
+  toleranceMm?: number;
+  /** Also place every piece, offcut and stroke on the sheet (for drawings), within the placing budget (place.ts). */
+  place?: boolean;
+}
 /** Sizes closer than this, mm, are the same size (floating-point noise, not a tolerance). */
 const SAME_SIZE_MM = 1e-6;
 
@@ -57,6 +74,8 @@ export interface Rect {
   count: number;
   /** Group that made it (−1: the stock sheet itself). */
   group: number;
+  /** With `place`: where each of the `count` pieces lies. */
+  at?: Placement[];
 }
 
 export interface BeyondWorkpiece {
@@ -97,29 +116,36 @@ export interface FlowResult {
   stockAreaMm2: number;
   blankAreaMm2: number;
   offcutAreaMm2: number;
+  /** With `place`: true when every piece, offcut and stroke was placed (within MAX_PLACEMENTS). */
+  placed: boolean;
+  /** With `place`: workpieces no group cut further (offcut that is not a scrap group's piece). */
+  leftovers: Rect[];
+  /** With `place`: every stroke that cut, in cutting order. */
+  lines: FlowLine[];
 }
 
-export const rectArea = (r: Rect): number => r.widthMm * r.lengthMm * r.count;
-const sumArea = (rs: readonly Rect[]): number => rs.reduce((a, r) => a + rectArea(r), 0);
-const sumCount = (rs: readonly Rect[]): number => rs.reduce((a, r) => a + r.count, 0);
+export const rectArea = (rect: Rect): number => rect.widthMm * rect.lengthMm * rect.count;
+const sumArea = (rects: readonly Rect[]): number => rects.reduce((total, rect) => total + rectArea(rect), 0);
+const sumCount = (rects: readonly Rect[]): number => rects.reduce((total, rect) => total + rect.count, 0);
 
-/** Add `r` to `list`, merging with an identical size from the same group. */
-function addRect(list: Rect[], r: Rect): void {
-  if (!(r.count > 0)) return;
-  for (const x of list) {
-    if (x.group === r.group && Math.abs(x.widthMm - r.widthMm) <= SAME_SIZE_MM && Math.abs(x.lengthMm - r.lengthMm) <= SAME_SIZE_MM) {
-      x.count += r.count;
+/** Add `rect` to `list`, merging with an identical size from the same group (placements follow). */
+function addRect(list: Rect[], rect: Rect): void {
+  if (!(rect.count > 0)) return;
+  for (const existing of list) {
+    if (existing.group === rect.group && Math.abs(existing.widthMm - rect.widthMm) <= SAME_SIZE_MM && Math.abs(existing.lengthMm - rect.lengthMm) <= SAME_SIZE_MM) {
+      existing.count += rect.count;
+      if (existing.at && rect.at) existing.at.push(...rect.at);
       return;
     }
   }
-  list.push({ ...r });
+  list.push({ ...rect, at: rect.at ? [...rect.at] : undefined });
 }
 
-/** Number of strokes that cut something on a workpiece `widthMm` wide at backgauge `bg`. */
-export function strokesThatCut(widthMm: number, bg: number): number {
-  if (!(bg > 0) || !(widthMm > REMNANT_TOLERANCE_MM)) return 0;
+/** Number of strokes that cut something on a workpiece `widthMm` wide at backgauge `backgaugeMm`. */
+export function strokesThatCut(widthMm: number, backgaugeMm: number, toleranceMm: number = REMNANT_TOLERANCE_MM): number {
+  if (!(backgaugeMm > 0) || !(widthMm > toleranceMm)) return 0;
   // SAME_SIZE_MM keeps float noise at the tolerance's edge (1000.1 − 0.1 = 1000.0000000000001) from adding a stroke.
-  return Math.max(0, Math.ceil((widthMm - REMNANT_TOLERANCE_MM - SAME_SIZE_MM) / bg) - 1);
+  return Math.max(0, Math.ceil((widthMm - toleranceMm - SAME_SIZE_MM) / backgaugeMm) - 1);
 }
 
 interface GroupRun {
@@ -128,8 +154,8 @@ interface GroupRun {
 }
 
 /** Run one group's strokes on every workpiece. */
-function runGroup(index: number, cut: FlowCut, work: readonly Rect[]): GroupRun {
-  const bg = cut.backgaugeMm;
+function runGroup(index: number, cut: FlowCut, work: readonly Rect[], toleranceMm: number, placing: Placing): GroupRun {
+  const backgaugeMm = cut.backgaugeMm;
   const pieces: Rect[] = [];
   const nextWork: Rect[] = [];
   let workpieces = 0;
@@ -137,28 +163,28 @@ function runGroup(index: number, cut: FlowCut, work: readonly Rect[]): GroupRun 
   let partial = false;
   let lengthOver = false;
   let beyond: BeyondWorkpiece | null = null;
-  for (const w of work) {
-    workpieces += w.count;
-    presented = Math.max(presented, w.lengthMm);
-    if (cut.lengthMm !== null && cut.lengthMm > w.lengthMm + REMNANT_TOLERANCE_MM) lengthOver = true;
-    if (cut.count > 0 && cut.lengthMm !== null && cut.lengthMm < w.lengthMm - REMNANT_TOLERANCE_MM) {
+  for (const workpiece of work) {
+    workpieces += workpiece.count;
+    presented = Math.max(presented, workpiece.lengthMm);
+    if (cut.lengthMm !== null && cut.lengthMm > workpiece.lengthMm + toleranceMm) lengthOver = true;
+    if (cut.count > 0 && cut.lengthMm !== null && cut.lengthMm < workpiece.lengthMm - toleranceMm) {
       partial = true; // partial strokes do not sever: the workpiece is unchanged
-      addRect(nextWork, { ...w });
+      const placed = placeStrokes(workpiece, cut, index, 0, true, placing);
+      addRect(nextWork, { ...workpiece, at: placed?.remnant });
       continue;
     }
-    const n = Math.min(cut.count, strokesThatCut(w.widthMm, bg));
-    if (n > 0) addRect(pieces, { widthMm: bg, lengthMm: w.lengthMm, count: w.count * n, group: index });
-    const remaining = w.widthMm - n * bg;
-    if (n < cut.count) {
-      const lost = (cut.count - n) * w.count;
-      if (beyond === null) beyond = { strokes: lost, firstStroke: n + 1, remainingMm: remaining };
+    const cutting = Math.min(cut.count, strokesThatCut(workpiece.widthMm, backgaugeMm, toleranceMm));
+    const placed = placeStrokes(workpiece, cut, index, cutting, false, placing);
+    if (cutting > 0) addRect(pieces, { widthMm: backgaugeMm, lengthMm: workpiece.lengthMm, count: workpiece.count * cutting, group: index, at: placed?.pieces });
+    const remaining = workpiece.widthMm - cutting * backgaugeMm;
+    if (cutting < cut.count) {
+      const lost = (cut.count - cutting) * workpiece.count;
+      if (beyond === null) beyond = { strokes: lost, firstStroke: cutting + 1, remainingMm: remaining };
       else beyond.strokes += lost;
     }
-    if (bg > 0 && Math.abs(remaining - bg) <= REMNANT_TOLERANCE_MM + SAME_SIZE_MM) {
-      addRect(pieces, { widthMm: remaining, lengthMm: w.lengthMm, count: w.count, group: index });
-    } else {
-      addRect(nextWork, { widthMm: remaining, lengthMm: w.lengthMm, count: w.count, group: n > 0 ? index : w.group });
-    }
+    const rest: Rect = { widthMm: remaining, lengthMm: workpiece.lengthMm, count: workpiece.count, group: index, at: placed?.remnant };
+    if (backgaugeMm > 0 && Math.abs(remaining - backgaugeMm) <= toleranceMm + SAME_SIZE_MM) addRect(pieces, rest);
+    else addRect(nextWork, { ...rest, group: cutting > 0 ? index : workpiece.group });
   }
   const group: FlowGroup = {
     index,
@@ -175,14 +201,28 @@ function runGroup(index: number, cut: FlowCut, work: readonly Rect[]): GroupRun 
   return { group, nextWork };
 }
 
-const turned = (r: Rect): Rect => ({ widthMm: r.lengthMm, lengthMm: r.widthMm, count: r.count, group: r.group });
+/** A piece turned 90°: its width becomes the presented edge; on the sheet, its width now runs the other way. */
+const turned = (rect: Rect): Rect => ({
+  widthMm: rect.lengthMm,
+  lengthMm: rect.widthMm,
+  count: rect.count,
+  group: rect.group,
+  at: rect.at?.map((at) => ({ ...at, widthAlongX: !at.widthAlongX })),
+});
 
 /** Simulate one sheet through the program. Pure; never throws on finite input. */
-export function simulateFlow(sheet: FlowSheet, cuts: readonly FlowCut[]): FlowResult {
-  const stock: Rect = { widthMm: sheet.widthMm, lengthMm: sheet.lengthMm, count: 1, group: -1 };
+export function simulateFlow(sheet: FlowSheet, cuts: readonly FlowCut[], options: FlowOptions = {}): FlowResult {
+  const toleranceMm = options.toleranceMm !== undefined && options.toleranceMm > 0 ? options.toleranceMm : REMNANT_TOLERANCE_MM;
+  const placing: Placing = { on: options.place === true, stroke: 0, used: 0, lines: [] };
+  const stock: Rect = { widthMm: sheet.widthMm, lengthMm: sheet.lengthMm, count: 1, group: -1, at: placing.on ? [{ x: 0, y: 0, widthAlongX: false, stroke: null }] : undefined };
   const groups: FlowGroup[] = [];
   const blanks: Rect[] = [];
   const offcuts: Rect[] = [];
+  const leftovers: Rect[] = [];
+  const leaveOver = (rect: Rect): void => {
+    addRect(offcuts, rect);
+    if (placing.on) addRect(leftovers, rect);
+  };
   let work: Rect[] = [stock];
   let turnedPieces = 0;
 
@@ -192,7 +232,7 @@ export function simulateFlow(sheet: FlowSheet, cuts: readonly FlowCut[]): FlowRe
       turnedPieces += 1;
       work = [turned(stock)];
     } else if (cut.turn) {
-      for (const w of work) addRect(offcuts, w);
+      for (const workpiece of work) leaveOver(workpiece);
       const from = cut.from ?? index - 1;
       const source = from >= 0 && from < index ? groups[from] : undefined;
       if (source && source.piecesBecome !== "turned") {
@@ -203,15 +243,15 @@ export function simulateFlow(sheet: FlowSheet, cuts: readonly FlowCut[]): FlowRe
         work = [];
       }
     }
-    const run = runGroup(index, cut, work);
+    const run = runGroup(index, cut, work, toleranceMm, placing);
     groups.push(run.group);
     work = run.nextWork;
   }
-  for (const w of work) addRect(offcuts, w);
+  for (const workpiece of work) leaveOver(workpiece);
   // Pieces no group turned are what the program makes: blanks, or offcut from a scrap group.
-  for (const g of groups) {
-    if (g.piecesBecome === "turned") continue;
-    for (const p of g.pieces) addRect(g.piecesBecome === "offcut" ? offcuts : blanks, p);
+  for (const group of groups) {
+    if (group.piecesBecome === "turned") continue;
+    for (const piece of group.pieces) addRect(group.piecesBecome === "offcut" ? offcuts : blanks, piece);
   }
 
   return {
@@ -219,51 +259,12 @@ export function simulateFlow(sheet: FlowSheet, cuts: readonly FlowCut[]): FlowRe
     blanks,
     offcuts,
     turnedPieces,
-    strokes: groups.reduce((a, g) => a + g.strokes, 0),
+    strokes: groups.reduce((total, group) => total + group.strokes, 0),
     stockAreaMm2: sheet.lengthMm * sheet.widthMm,
     blankAreaMm2: sumArea(blanks),
     offcutAreaMm2: sumArea(offcuts),
-  };
-}
-
-const pieceReport = (r: Rect, times: number, u: LengthUnit): PieceReport => ({
-  group: r.group,
-  width: showLength(r.widthMm, u),
-  length: showLength(r.lengthMm, u),
-  count: r.count * times,
-});
-
-function totals(flow: FlowResult, times: number, u: LengthUnit): YieldTotals {
-  return {
-    blanks: sumCount(flow.blanks) * times,
-    blankArea: showArea(flow.blankAreaMm2 * times, u),
-    offcutPieces: sumCount(flow.offcuts) * times,
-    offcutArea: showArea(flow.offcutAreaMm2 * times, u),
-    turnedPieces: flow.turnedPieces * times,
-    strokes: flow.strokes * times,
-    stockArea: showArea(flow.stockAreaMm2 * times, u),
-  };
-}
-
-/** Yield in the caller's units: per sheet, in total, and utilisation of the stock area by blanks. */
-export function yieldReport(flow: FlowResult, sheets: number, u: LengthUnit): YieldReport {
-  return {
-    lengthUnit: u,
-    areaUnit: areaUnitFor(u),
-    sheets,
-    perSheet: totals(flow, 1, u),
-    total: totals(flow, sheets, u),
-    utilisationPct: showPct(flow.stockAreaMm2 > 0 ? (100 * flow.blankAreaMm2) / flow.stockAreaMm2 : 0),
-    groups: flow.groups.map(
-      (g): GroupYield => ({
-        group: g.index,
-        workpieces: g.workpieces,
-        strokes: g.strokes,
-        pieces: g.pieces.map((p) => pieceReport(p, 1, u)),
-        piecesBecome: g.piecesBecome,
-      }),
-    ),
-    blanks: flow.blanks.map((p) => pieceReport(p, sheets, u)),
-    offcuts: flow.offcuts.map((p) => pieceReport(p, sheets, u)),
+    placed: placing.on,
+    leftovers,
+    lines: placing.lines,
   };
 }

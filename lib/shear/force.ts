@@ -17,7 +17,8 @@
  * ratio × UTS. A cut uses the smaller of the two: when L is shorter than the
  * raked contact length, the blade is engaged over L only.
  */
-import type { ForceReport, LengthUnit, ShearProfile } from "./types";
+import type { LengthUnit, ShearProfile } from "./types";
+import type { ForceReport } from "./reports";
 import type { GradeTensile } from "./grades";
 import { sameGradeCode } from "./grades";
 import { DECIMALS, fmtDeg, fmtLength, fmtStrength, forceUnitFor, roundTo, showForce, showLength, showPct, showStrength, strengthUnitFor } from "./units";

@@ -1,29 +1,16 @@
 /**
- * Setup recommendation: blade gap, rake, hold-down, crown, backgauge retract.
+ * Setup recommendation: blade gap (at the centre and the ends), rake, hold-down,
+ * crown, backgauge retract.
  *
  * Every value says whether it was computed or given, and why, in one short
  * sentence with the rule and its inputs. Computed settings are recommendations
  * for a qualified operator; the machine's manual and local codes come first.
  */
-import type { GradeFamily, GradeProfile, LengthUnit, SetupReport, SetupValue, ShearProfile } from "./types";
+import type { GradeFamily, GradeProfile, LengthUnit, ShearProfile } from "./types";
+import type { SetupReport, SetupValue } from "./reports";
 import { DULL_BLADE_FACTOR, rakeForForceDeg } from "./force";
-import { fmtDeg, fmtForce, fmtLength, fmtPct, fmtStrength, DECIMALS, roundTo, showLength } from "./units";
-
-/**
- * Blade gap as a percentage of thickness, by family. The usual span is about
- * 4–10 % (common practice): soft aluminium and copper low, mild steel in the
- * middle (7 % is a common default), stainless higher. High-strength plate
- * follows a plate maker's shearing guidance: 9–12 % for 65 ksi plate (we take
- * 10 %), 16–18 % for 181 ksi plate (we take 16 % for abrasion-resistant plate).
- */
-export const GAP_PCT_BY_FAMILY: Readonly<Record<GradeFamily, number>> = {
-  aluminium: 5,
-  copper: 5,
-  "carbon-steel": 7,
-  stainless: 9,
-  "hsla-steel": 10,
-  "abrasion-resistant": 16,
-};
+import { GAP_RULES, computedSetting as computed, describeCentreAndEnds, describeCrown, givenSetting as given, recommendGap } from "./gap";
+import { fmtDeg, fmtForce, fmtLength, fmtNumber, fmtStrength, DECIMALS, roundTo, showLength } from "./units";
 
 const FAMILY_LABEL: Readonly<Record<GradeFamily, string>> = {
   aluminium: "aluminium",
@@ -42,26 +29,8 @@ export const HOLD_DOWN_FULL_AT_YIELD_MPA = 345;
 export const HOLD_DOWN_MIN_PCT = 25;
 /** Hold-down rule (ours): when a grade states no yield, take this share of tensile as its yield. */
 export const YIELD_FROM_TENSILE_WHEN_MISSING = 0.5;
-/** Crown at full rated force when the shear profile gives none, mm (ours, a placeholder: set it from the machine's manual). */
-export const DEFAULT_CROWN_AT_RATED_MM = 0.2;
 /** Backgauge retract after clamping: about 0.1 in (common practice). */
 export const BACKGAUGE_RETRACT_MM = 2.54;
-
-export interface GapRecommendation {
-  mm: number;
-  idealMm: number;
-  pct: number;
-  clamped: "min" | "max" | null;
-}
-
-/** Gap = family percentage × thickness, clamped to the shear's gap range. */
-export function recommendGap(thicknessMm: number, family: GradeFamily, shear: ShearProfile): GapRecommendation {
-  const pct = GAP_PCT_BY_FAMILY[family];
-  const idealMm = (pct / 100) * thicknessMm;
-  if (idealMm < shear.gapMinMm) return { mm: shear.gapMinMm, idealMm, pct, clamped: "min" };
-  if (idealMm > shear.gapMaxMm) return { mm: shear.gapMaxMm, idealMm, pct, clamped: "max" };
-  return { mm: idealMm, idealMm, pct, clamped: null };
-}
 
 export interface RakeRecommendation {
   deg: number;
@@ -115,12 +84,6 @@ export function recommendHoldDown(grade: GradeProfile, tensileMpa: number | null
   return { pct: Math.round(Math.min(100, Math.max(HOLD_DOWN_MIN_PCT, raw))), yieldMpa, yieldFrom };
 }
 
-/** Crown (common practice: the correction is proportional to force): crown at rated force × required / rated. */
-export function recommendCrownMm(requiredKn: number, ratedKn: number, shear: ShearProfile): number {
-  const atRated = shear.crownAtRatedMm !== undefined && shear.crownAtRatedMm >= 0 ? shear.crownAtRatedMm : DEFAULT_CROWN_AT_RATED_MM;
-  return (atRated * requiredKn) / ratedKn;
-}
-
 /** Setup values a program gives, canonical units; null = not given. */
 export interface GivenSetup {
   rakeDeg: number | null;
@@ -147,6 +110,7 @@ export interface SetupInputs {
 export interface ResolvedSetup {
   rakeDeg: number;
   gapMm: number;
+  gapCentreMm: number;
   holdDownPct: number;
   crownMm: number;
   retractMm: number;
@@ -155,99 +119,103 @@ export interface ResolvedSetup {
 }
 
 /** Resolve every setup value (given wins, still reported against our rule) and explain it. */
-export function resolveSetup(i: SetupInputs): ResolvedSetup {
-  const u = i.units;
-  const rake = resolveRake(i);
-  const requiredKn = i.requiredKnAt(rake.deg);
-  const gap = resolveGap(i);
-  const holdDown = resolveHoldDown(i);
-  const crown = resolveCrown(i, requiredKn);
-  const retractMm = i.given.retractMm ?? BACKGAUGE_RETRACT_MM;
+export function resolveSetup(inputs: SetupInputs): ResolvedSetup {
+  const units = inputs.units;
+  const rake = resolveRake(inputs);
+  const requiredKn = inputs.requiredKnAt(rake.deg);
+  const gap = resolveGap(inputs);
+  const holdDown = resolveHoldDown(inputs);
+  const crown = describeCrown(requiredKn, inputs.ratedKn, inputs.shear, units, inputs.given.crownMm);
+  const centreAndEnds = describeCentreAndEnds(gap.mm, inputs.given.gapMm !== null, crown.mm, units);
+  const retractMm = inputs.given.retractMm ?? BACKGAUGE_RETRACT_MM;
   const retract: SetupValue =
-    i.given.retractMm !== null
-      ? given(showLength(retractMm, u), u, "Given in the program; about 0.1 in is usual so the piece is not trapped.")
-      : computed(showLength(retractMm, u), u, `Back the gauge off ${fmtLength(retractMm, u)} after the hold-down clamps so the piece is not trapped (common practice).`);
+    inputs.given.retractMm !== null
+      ? given(showLength(retractMm, units), units, "Given in the program; about 0.1 in is usual so the piece is not trapped.")
+      : computed(showLength(retractMm, units), units, `Back the gauge off ${fmtLength(retractMm, units)} after the hold-down clamps so the piece is not trapped (common practice).`);
   return {
     rakeDeg: rake.deg,
     gapMm: gap.mm,
+    gapCentreMm: centreAndEnds.centreMm,
     holdDownPct: holdDown.pct,
     crownMm: crown.mm,
     retractMm,
     requiredKn,
-    report: { bladeGap: gap.value, rake: rake.value, holdDown: holdDown.value, crown: crown.value, backgaugeRetract: retract },
+    report: {
+      bladeGap: gap.value,
+      gapEnds: centreAndEnds.ends,
+      gapCentre: centreAndEnds.centre,
+      rake: rake.value,
+      holdDown: holdDown.value,
+      crown: crown.value,
+      backgaugeRetract: retract,
+    },
   };
 }
 
-const computed = (value: number, unit: string, why: string): SetupValue => ({ value, unit, source: "computed", why });
-const given = (value: number, unit: string, why: string): SetupValue => ({ value, unit, source: "given", why });
 const rangeText = (min: string, max: string): string => `${min}–${max}`;
 
-function resolveRake(i: SetupInputs): { deg: number; value: SetupValue } {
-  const { shear, units: u } = i;
+function resolveRake(inputs: SetupInputs): { deg: number; value: SetupValue } {
+  const { shear, units } = inputs;
   const range = rangeText(fmtDeg(shear.rakeMinDeg), fmtDeg(shear.rakeMaxDeg));
-  const rated = fmtForce(i.ratedKn, u);
-  if (i.given.rakeDeg !== null) {
-    const deg = i.given.rakeDeg;
-    const f = i.requiredKnAt(deg);
+  const rated = fmtForce(inputs.ratedKn, units);
+  if (inputs.given.rakeDeg !== null) {
+    const deg = inputs.given.rakeDeg;
+    const forceKn = inputs.requiredKnAt(deg);
     const inRange = deg >= shear.rakeMinDeg && deg <= shear.rakeMaxDeg;
     const where = inRange ? `inside this shear's ${range} range` : `OUTSIDE this shear's ${range} range`;
-    return { deg, value: given(roundTo(deg, DECIMALS.deg), "deg", `Given in the program, ${where}; the cut needs ${fmtForce(f, u)} of the ${rated} rating at this rake.`) };
+    return { deg, value: given(roundTo(deg, DECIMALS.deg), "deg", `Given in the program, ${where}; the cut needs ${fmtForce(forceKn, units)} of the ${rated} rating at this rake.`) };
   }
-  const rec = recommendRake(i.tensileMpa, i.thicknessMm, i.ratedKn, shear);
-  const f = i.requiredKnAt(rec.deg);
-  const dull = fmtForce(f * DULL_BLADE_FACTOR, u);
+  const recommendation = recommendRake(inputs.tensileMpa, inputs.thicknessMm, inputs.ratedKn, shear);
+  const forceKn = inputs.requiredKnAt(recommendation.deg);
+  const sharp = fmtForce(forceKn, units);
+  const dull = fmtForce(forceKn * DULL_BLADE_FACTOR, units);
+  const lowRake = " Lower rake means less twist, bow and camber of narrow strips, at the cost of force (stainless producers' fabrication guidance; common practice), so the lowest that fits is taken.";
   let why: string;
-  if (rec.basis === "dull") {
-    why = `Lowest rake in this shear's ${range} range at which even dull blades (${DULL_BLADE_FACTOR} × ${fmtForce(f, u)} = ${dull}) stay within the ${rated} rating.`;
-  } else if (rec.basis === "sharp") {
-    why = `No rake in this shear's ${range} range keeps dull blades (${dull}) within the ${rated} rating; this is the lowest at which sharp blades (${fmtForce(f, u)}) do.`;
+  if (recommendation.basis === "dull") {
+    why = `Lowest rake in this shear's ${range} range at which even dull blades (${DULL_BLADE_FACTOR} × ${sharp} = ${dull}) stay within the ${rated} rating.`;
+  } else if (recommendation.basis === "sharp") {
+    why = `No rake in this shear's ${range} range keeps dull blades (${dull}) within the ${rated} rating; this is the lowest at which sharp blades (${sharp}) do.`;
   } else {
-    why = `Even this shear's largest rake needs ${fmtForce(f, u)}, over the ${rated} rating: this program cannot run on this shear.`;
+    why = `Even this shear's largest rake needs ${sharp}, over the ${rated} rating: this program cannot run on this shear.`;
   }
-  return { deg: rec.deg, value: computed(roundTo(rec.deg, DECIMALS.deg), "deg", why) };
+  if (recommendation.basis !== "over") why += lowRake;
+  return { deg: recommendation.deg, value: computed(roundTo(recommendation.deg, DECIMALS.deg), "deg", why) };
 }
-
-function resolveGap(i: SetupInputs): { mm: number; value: SetupValue } {
-  const { shear, units: u } = i;
-  const rec = recommendGap(i.thicknessMm, i.grade.family, shear);
-  const range = rangeText(fmtLength(shear.gapMinMm, u), fmtLength(shear.gapMaxMm, u));
-  const rule = `${rec.pct} % of the ${fmtLength(i.thicknessMm, u)} thickness for ${FAMILY_LABEL[i.grade.family]}`;
-  if (i.given.gapMm !== null) {
-    const mm = i.given.gapMm;
+function resolveGap(inputs: SetupInputs): { mm: number; value: SetupValue } {
+  const { shear, units } = inputs;
+  const family = inputs.grade.family;
+  const recommendation = recommendGap(inputs.thicknessMm, family, shear);
+  const range = rangeText(fmtLength(shear.gapMinMm, units), fmtLength(shear.gapMaxMm, units));
+  const anchors = GAP_RULES[family];
+  const rule =
+    `${fmtNumber(recommendation.pct, 1)} % of the ${fmtLength(inputs.thicknessMm, units)} thickness for ${FAMILY_LABEL[family]} ` +
+    `(the share changes with thickness: ${anchors.thin.pct} % at ${fmtLength(anchors.thin.thicknessMm, units)} and thinner, ${anchors.thick.pct} % at ${fmtLength(anchors.thick.thicknessMm, units)} and thicker)`;
+  if (inputs.given.gapMm !== null) {
+    const mm = inputs.given.gapMm;
     const inRange = mm >= shear.gapMinMm && mm <= shear.gapMaxMm;
     const where = inRange ? `inside this shear's ${range} range` : `OUTSIDE this shear's ${range} range`;
-    return { mm, value: given(showLength(mm, u), u, `Given in the program, ${where}; our rule (${rule}) gives ${fmtLength(rec.mm, u)}.`) };
+    return { mm, value: given(showLength(mm, units), units, `Given in the program, ${where}; our rule, ${rule}, gives ${fmtLength(recommendation.mm, units)}.`) };
   }
   let why: string;
-  if (rec.clamped === "min") why = `${rule} would be ${fmtLength(rec.idealMm, u)}, below this shear's smallest gap, so its minimum is used.`;
-  else if (rec.clamped === "max") why = `${rule} would be ${fmtLength(rec.idealMm, u)}, above this shear's largest gap, so its maximum is used.`;
-  else why = `${rule} = ${fmtLength(rec.mm, u)}, inside this shear's ${range} range.`;
-  return { mm: rec.mm, value: computed(showLength(rec.mm, u), u, why) };
+  if (recommendation.clamped === "min") why = `${capitalise(rule)} would be ${fmtLength(recommendation.idealMm, units)}, below this shear's smallest gap, so its minimum is used.`;
+  else if (recommendation.clamped === "max") why = `${capitalise(rule)} would be ${fmtLength(recommendation.idealMm, units)}, above this shear's largest gap, so its maximum is used.`;
+  else why = `${capitalise(rule)} = ${fmtLength(recommendation.mm, units)}, inside this shear's ${range} range.`;
+  return { mm: recommendation.mm, value: computed(showLength(recommendation.mm, units), units, why) };
 }
 
-function resolveHoldDown(i: SetupInputs): { pct: number; value: SetupValue } {
-  const rec = recommendHoldDown(i.grade, i.tensileMpa);
-  const u = i.units;
-  if (i.given.holdDownPct !== null) {
-    return { pct: i.given.holdDownPct, value: given(roundTo(i.given.holdDownPct, DECIMALS.pct), "%", `Given in the program; our rule gives ${rec.pct} % for this grade.`) };
+const capitalise = (text: string): string => text.charAt(0).toUpperCase() + text.slice(1);
+
+function resolveHoldDown(inputs: SetupInputs): { pct: number; value: SetupValue } {
+  const recommendation = recommendHoldDown(inputs.grade, inputs.tensileMpa);
+  const units = inputs.units;
+  if (inputs.given.holdDownPct !== null) {
+    return { pct: inputs.given.holdDownPct, value: given(roundTo(inputs.given.holdDownPct, DECIMALS.pct), "%", `Given in the program; our rule gives ${recommendation.pct} % for this grade.`) };
   }
-  const full = fmtStrength(HOLD_DOWN_FULL_AT_YIELD_MPA, u);
+  const full = fmtStrength(HOLD_DOWN_FULL_AT_YIELD_MPA, units);
   let basis: string;
-  if (rec.yieldFrom === "yield" && rec.yieldMpa !== null) basis = `yield ${fmtStrength(rec.yieldMpa, u)} against full force at ${full}`;
-  else if (rec.yieldFrom === "tensile" && rec.yieldMpa !== null) basis = `no yield stated, half the tensile (${fmtStrength(rec.yieldMpa, u)}) against full force at ${full}`;
+  if (recommendation.yieldFrom === "yield" && recommendation.yieldMpa !== null) basis = `yield ${fmtStrength(recommendation.yieldMpa, units)} against full force at ${full}`;
+  else if (recommendation.yieldFrom === "tensile" && recommendation.yieldMpa !== null) basis = `no yield stated, half the tensile (${fmtStrength(recommendation.yieldMpa, units)}) against full force at ${full}`;
   else basis = "no strength stated, so full force";
-  const why = `${rec.pct} % of full hold-down: ${basis}, kept within ${HOLD_DOWN_MIN_PCT}–100 % (our rule); use less on finished or coated surfaces.`;
-  return { pct: rec.pct, value: computed(rec.pct, "%", why) };
-}
-
-function resolveCrown(i: SetupInputs, requiredKn: number): { mm: number; value: SetupValue } {
-  const u = i.units;
-  if (i.given.crownMm !== null) {
-    return { mm: i.given.crownMm, value: given(showLength(i.given.crownMm, u), u, "Given in the program: centre gap tighter than the ends by this much.") };
-  }
-  const mm = recommendCrownMm(requiredKn, i.ratedKn, i.shear);
-  const atRated = i.shear.crownAtRatedMm !== undefined && i.shear.crownAtRatedMm >= 0 ? i.shear.crownAtRatedMm : DEFAULT_CROWN_AT_RATED_MM;
-  const share = fmtPct((100 * requiredKn) / i.ratedKn);
-  const why = `Centre gap ${fmtLength(mm, u)} tighter than the ends: ${fmtLength(atRated, u)} at full rated force × ${share} of the rating used (proportional rule, common practice).`;
-  return { mm, value: computed(showLength(mm, u), u, why) };
+  const why = `${recommendation.pct} % of full hold-down: ${basis}, kept within ${HOLD_DOWN_MIN_PCT}–100 % (our rule); use less on finished or coated surfaces.`;
+  return { pct: recommendation.pct, value: computed(recommendation.pct, "%", why) };
 }

@@ -129,8 +129,12 @@ export interface ShearProfile {
   handlingSecondsPerSheet: number;
   /** Explicit maximum thickness per grade code; wins over the force model. */
   gradeThicknessLimitsMm?: Record<string, number>;
-  /** Crown correction (centre gap tighter than the ends) at full rated force. Default: DEFAULT_CROWN_AT_RATED_MM. */
+  /** Force-proportional part of the crown (centre gap tighter than the ends) at full rated force. Default: DEFAULT_CROWN_AT_RATED_MM. */
   crownAtRatedMm?: number;
+  /** The backgauge's stated repeatability (±, mm): the finest difference between settings it holds. Default: REMNANT_TOLERANCE_MM for the piece flow, no repeatability check. */
+  backgaugeRepeatabilityMm?: number;
+  /** Ends-minus-centre gap with no load (blade and seat straightness, the beam's geometry). Default: DEFAULT_CROWN_BASELINE_MM. */
+  crownBaselineMm?: number;
 }
 
 /** A material grade as the core needs it. All canonical units. */
@@ -189,7 +193,9 @@ export type FindingCode =
   | "program_cuts_nothing"
   | "gap_out_of_range"
   | "rake_out_of_range"
-  | "strip_narrow";
+  | "strip_narrow"
+  | "backgauge_finer_than_repeatability"
+  | "strip_distortion";
 
 export interface Finding {
   code: FindingCode;
@@ -203,117 +209,3 @@ export interface Finding {
   unit: string | null;
 }
 
-// ---------------------------------------------------------------------------
-// Reports (caller's units)
-// ---------------------------------------------------------------------------
-
-export interface Quantity {
-  value: number;
-  unit: string;
-}
-
-export interface SetupValue extends Quantity {
-  source: "computed" | "given";
-  /** One short sentence an operator can read: the rule and its inputs. */
-  why: string;
-}
-
-export interface SetupReport {
-  bladeGap: SetupValue;
-  rake: SetupValue;
-  holdDown: SetupValue;
-  crown: SetupValue;
-  backgaugeRetract: SetupValue;
-}
-
-export interface ThicknessReport {
-  value: number;
-  unit: LengthUnit;
-  source: "value" | "gauge";
-  gauge: number | null;
-  gaugeFamily: GaugeFamily | null;
-}
-
-export interface GroupForce {
-  group: number;
-  cutLength: number;
-  force: number;
-  model: "raked" | "straight";
-}
-
-export interface ForceReport {
-  unit: ForceUnit;
-  /** Largest force of any group, sharp blades, at the setup's rake. */
-  required: number;
-  /** Force at the shear's rating (rated thickness, tensile and rake). */
-  rated: number;
-  capacityUsedPct: number;
-  dullBlade: { factor: number; required: number; capacityUsedPct: number };
-  rakeDeg: number;
-  tensile: { value: number; unit: StrengthUnit; basis: "minimum" | "typical" };
-  maxThicknessForGrade: { value: number; unit: LengthUnit; source: "shear-profile" | "model"; why: string };
-  byGroup: GroupForce[];
-}
-
-export interface PieceReport {
-  group: number;
-  /** Dimension cut by the backgauge. */
-  width: number;
-  /** Dimension along the blade. */
-  length: number;
-  count: number;
-}
-
-export interface GroupYield {
-  group: number;
-  /** Workpieces this group ran on, per sheet. */
-  workpieces: number;
-  strokes: number;
-  /** Pieces the group made, per sheet. */
-  pieces: PieceReport[];
-  /** What became of this group's pieces. */
-  piecesBecome: "blanks" | "offcut" | "turned";
-}
-
-export interface YieldTotals {
-  blanks: number;
-  blankArea: number;
-  offcutPieces: number;
-  offcutArea: number;
-  turnedPieces: number;
-  strokes: number;
-  stockArea: number;
-}
-
-export interface YieldReport {
-  lengthUnit: LengthUnit;
-  areaUnit: AreaUnit;
-  sheets: number;
-  perSheet: YieldTotals;
-  total: YieldTotals;
-  utilisationPct: number;
-  groups: GroupYield[];
-  /** Blank sizes, totals over all sheets. */
-  blanks: PieceReport[];
-  /** Offcut sizes, totals over all sheets (group = -1 for the last remnant of the stock). */
-  offcuts: PieceReport[];
-}
-
-export interface EstimateReport {
-  strokes: number;
-  backgaugeMoves: number;
-  turns: number;
-  sheets: number;
-  seconds: { strokes: number; backgauge: number; turns: number; sheets: number; total: number };
-}
-
-export interface CheckResult {
-  validation: Validation;
-  units: LengthUnit | null;
-  findings: Finding[];
-  thickness: ThicknessReport | null;
-  setup: SetupReport | null;
-  force: ForceReport | null;
-  yield: YieldReport | null;
-  estimate: EstimateReport | null;
-}

@@ -29,7 +29,7 @@ const SHEARS: Omit<RequiredEntityData<InferEntity<typeof Shear>>, "shop">[] = [
     bladeLengthMm: 3100, backgaugeMinMm: 5, backgaugeMaxMm: 1000,
     rakeMinDeg: 0.5, rakeMaxDeg: 2.5, gapMinMm: 0.03, gapMaxMm: 1.0,
     strokesPerMin: 30, backgaugeSpeedMmPerS: 250, handlingSecondsPerTurn: 6, handlingSecondsPerSheet: 30,
-    maxBladeHardnessHb: 300, gradeThicknessLimitsMm: { "304": 4.0, "316": 4.0 },
+    maxBladeHardnessHb: 300, gradeThicknessLimitsMm: { "304": 4.0, "316": 4.0 }, crownBaselineMm: 0.05, backgaugeRepeatabilityMm: 0.05,
   },
   {
     name: "Bay 3 plate shear",
@@ -38,7 +38,7 @@ const SHEARS: Omit<RequiredEntityData<InferEntity<typeof Shear>>, "shop">[] = [
     bladeLengthMm: 3100, backgaugeMinMm: 10, backgaugeMaxMm: 1000,
     rakeMinDeg: 1.0, rakeMaxDeg: 3.0, gapMinMm: 0.1, gapMaxMm: 2.0,
     strokesPerMin: 12, backgaugeSpeedMmPerS: 150, handlingSecondsPerTurn: 15, handlingSecondsPerSheet: 60,
-    maxBladeHardnessHb: 450, gradeThicknessLimitsMm: {},
+    maxBladeHardnessHb: 450, gradeThicknessLimitsMm: {}, crownBaselineMm: 0.08, backgaugeRepeatabilityMm: 0.1,
   },
 ];
 

@@ -55,9 +55,10 @@ describe("catalog", () => {
     expectDocumented(catalogOps.listShears, list);
     expect(list.body.data).toHaveLength(1);
 
-    const created = await api().post("/api/v1/shears").set(auth()).send({ ...TEST_SHEAR, name: "Contract shear" });
+    const created = await api().post("/api/v1/shears").set(auth()).send({ ...TEST_SHEAR, name: "Contract shear", backgaugeRepeatabilityMm: 0.05, crownBaselineMm: 0.03 });
     expectDocumented(catalogOps.createShear, created);
     expect(created.status).toBe(201);
+    expect(created.body).toMatchObject({ backgaugeRepeatabilityMm: 0.05, crownBaselineMm: 0.03, crownAtRatedMm: null }); // the machine's figures as given
     shearId = created.body.id;
     expect(shearId).toMatch(/^shr_[0-9A-Z]{26}$/);
 
@@ -117,6 +118,13 @@ describe("catalog", () => {
     expectDocumented(catalogOps.recommendSetup, res);
     expect(res.body.thickness.value).toBeCloseTo(0.1345, 4);
     expect(res.body.setup.bladeGap.why).toMatch(/thickness/);
+    expect(res.body.setup.bladeGap.value).toBeGreaterThanOrEqual(0.005); // a shear-blade maker's mild-steel chart: 10 ga, 0.005–0.009 in
+    expect(res.body.setup.bladeGap.value).toBeLessThanOrEqual(0.009);
+    expect(res.body.setup.gapEnds.value).toBe(res.body.setup.bladeGap.value);
+    expect(res.body.setup.gapCentre.value).toBeCloseTo(res.body.setup.gapEnds.value - res.body.setup.crown.value, 4);
+    expect(res.body.setup.crown.value).toBeGreaterThanOrEqual(0.002); // the 0.002 in no-load baseline (US Navy shipfitter manual) plus the load's part
+    expect(res.body.setup.gapCentre.why).toMatch(/crown/);
+    expect(res.body.setup.rake.why).toMatch(/twist, bow and camber/);
     expect(res.body.findings).toEqual([]);
 
     const over = await api().post("/api/v1/setup").set(auth()).send({ shear: shop.shearId, grade: "A36", thickness: { value: 12 }, units: "mm" });
@@ -147,6 +155,12 @@ describe("programs", () => {
     // the cut-program worked example of our API docs: 56 blanks, 62 strokes, 93.3 % of the stock used
     expect(res.body.check.yield.total).toMatchObject({ blanks: 56, strokes: 62 });
     expect(res.body.check.yield.utilisationPct).toBe(93.3);
+    // the sheet as cut, from the same flow: 28 blanks 16 × 12 in and 4 offcuts 8 × 12 in per sheet, 31 cut lines
+    const rectangles = res.body.check.layout.rectangles as Array<{ kind: string; width: number; height: number }>;
+    expect(rectangles.filter((r) => r.kind === "blank")).toHaveLength(28);
+    expect(rectangles.filter((r) => r.kind === "offcut").every((r) => r.width === 8 && r.height === 12)).toBe(true);
+    expect(res.body.check.layout.cuts).toHaveLength(31);
+    expect(res.body.check.setup.gapCentre.value).toBeLessThan(res.body.check.setup.gapEnds.value);
   });
 
   it("reads and lists programs", async () => {

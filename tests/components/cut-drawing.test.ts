@@ -1,38 +1,168 @@
+/**
+ * One geometry: the sheet drawing draws the rectangles and cut lines the shear
+ * core's piece flow placed, and they agree with the flow's blanks, offcuts and
+ * strokes (the yield printed beside the drawing) on every program fixture.
+ */
 import { describe, expect, it } from "vitest";
-import { layoutSheet } from "../../components/console/CutDrawing";
+import { createElement } from "react";
+import { renderToStaticMarkup } from "react-dom/server";
+import { CutDrawing } from "../../components/console/CutDrawing";
+import { checkProgram, findGrade, lengthFromMm, programLayout, simulateFlow, type CheckResult, type CutProgram, type FlowCut, type GradeProfile, type Rect } from "@/lib/shear";
+import { DEMO_SHEAR, PROGRAM_FIXTURES, WORKED_EXAMPLE } from "../shear/fixtures";
 
-describe("the sheet drawing's layout", () => {
-  it("lays out the cut-program worked example of our API docs: 4 strips, 7 blanks each, an 8 x 12 offcut per strip", () => {
-    const { pieces, offcut } = layoutSheet({ length: 120, width: 48 }, [{ backgauge: 12, count: 3 }, { turn: true, backgauge: 16, count: 7 }]);
-    const blanks = pieces.filter((p) => p.group === 1);
-    expect(pieces.filter((p) => p.group === 0)).toHaveLength(4); // 3 strokes, the remnant is the fourth strip
-    expect(blanks).toHaveLength(28);
-    expect(blanks.every((b) => b.w === 16 && b.h === 12)).toBe(true);
-    expect(offcut).toHaveLength(4);
-    expect(offcut.every((o) => o.w === 8 && o.h === 12)).toBe(true);
-    // areas add up: blanks + offcut = the sheet (a shear has no kerf)
-    const area = (r: { w: number; h: number }) => r.w * r.h;
-    expect(blanks.reduce((a, b) => a + area(b), 0) + offcut.reduce((a, b) => a + area(b), 0)).toBe(120 * 48);
+interface Drawn {
+  kind: string;
+  group: number;
+  stroke: number | null;
+  x: number;
+  y: number;
+  width: number;
+  height: number;
+}
+
+/** The rectangles and lines the component actually rendered, read back from its SVG. */
+function drawn(program: CutProgram, check: CheckResult): { rects: Drawn[]; lines: Array<{ group: number; dashed: boolean }> } {
+  const markup = renderToStaticMarkup(createElement(CutDrawing, { sheet: program.sheet, layout: check.layout, units: program.units }));
+  const attribute = (tag: string, name: string): string | null => new RegExp(`${name}="([^"]*)"`).exec(tag)?.[1] ?? null;
+  const rects = [...markup.matchAll(/<rect [^>]*data-kind="[^"]*"[^>]*>/g)].map(([tag]) => ({
+    kind: attribute(tag, "data-kind") as string,
+    group: Number(attribute(tag, "data-group")),
+    stroke: attribute(tag, "data-stroke") === "" ? null : Number(attribute(tag, "data-stroke")),
+    x: Number(attribute(tag, "x")),
+    y: Number(attribute(tag, "y")),
+    width: Number(attribute(tag, "width")),
+    height: Number(attribute(tag, "height")),
+  }));
+  const lines = [...markup.matchAll(/<line [^>]*data-group="[^"]*"[^>]*>/g)].map(([tag]) => ({
+    group: Number(attribute(tag, "data-group")),
+    dashed: attribute(tag, "stroke-dasharray") !== null,
+  }));
+  return { rects, lines };
+}
+
+/** Sizes as sorted "short×long" keys with counts, rounded to the report's decimals. */
+function sizeCounts(items: ReadonlyArray<{ a: number; b: number; count: number; group: number }>, decimals: number): Map<string, number> {
+  const counts = new Map<string, number>();
+  for (const item of items) {
+    const [short, long] = [item.a, item.b].sort((first, second) => first - second).map((value) => value.toFixed(decimals));
+    const key = `${item.group}:${short}×${long}`;
+    counts.set(key, (counts.get(key) ?? 0) + item.count);
+  }
+  return counts;
+}
+
+const grade = (code: string): GradeProfile => findGrade(code) as GradeProfile;
+const toFlowCut = (cut: CutProgram["cuts"][number], toMm: (value: number) => number): FlowCut => ({
+  backgaugeMm: toMm(cut.backgauge),
+  count: cut.count,
+  lengthMm: cut.length === undefined ? null : toMm(cut.length),
+  turn: cut.turn === true,
+  from: cut.from ?? null,
+  scrap: cut.scrap === true,
+});
+
+describe("the drawing draws the piece flow's rectangles, for every program fixture", () => {
+  for (const [name, program] of Object.entries(PROGRAM_FIXTURES)) {
+    it(name, () => {
+      const check = checkProgram(program, { shear: DEMO_SHEAR, grade: grade(program.grade) });
+      expect(check.layout).not.toBeNull();
+      expect(check.layout?.rectangles.length).toBeGreaterThan(0);
+      const { rects, lines } = drawn(program, check);
+      const units = program.units;
+      const decimals = units === "in" ? 3 : 2;
+      const toMm = (value: number): number => (units === "in" ? value * 25.4 : value);
+      const fromMm = (mm: number): number => lengthFromMm(mm, units);
+
+      // The same flow, run on its own (not placed), at the same tolerance as the check.
+      const flow = simulateFlow({ lengthMm: toMm(program.sheet.length), widthMm: toMm(program.sheet.width) }, program.cuts.map((cut) => toFlowCut(cut, toMm)));
+      const scrapGroups = new Set(program.cuts.flatMap((cut, index) => (cut.scrap ? [index] : [])));
+      const flowSizes = (list: readonly Rect[]) => list.map((rect) => ({ a: fromMm(rect.widthMm), b: fromMm(rect.lengthMm), count: rect.count, group: rect.group }));
+      const drawnSizes = (kinds: string[]) => rects.filter((rect) => kinds.includes(rect.kind)).map((rect) => ({ a: rect.width, b: rect.height, count: 1, group: rect.group }));
+
+      // Blanks: same sizes, groups and counts as the flow, and as the yield printed beside the drawing.
+      expect(sizeCounts(drawnSizes(["blank"]), decimals)).toEqual(sizeCounts(flowSizes(flow.blanks), decimals));
+      expect(rects.filter((rect) => rect.kind === "blank")).toHaveLength(check.yield?.perSheet.blanks ?? -1);
+      // Offcut (left over) and scrap together: the flow's offcuts, and the yield's offcut pieces.
+      const flowScrap = flow.offcuts.filter((rect) => scrapGroups.has(rect.group) && flow.groups[rect.group]?.piecesBecome === "offcut");
+      expect(rects.filter((rect) => rect.kind !== "blank")).toHaveLength(check.yield?.perSheet.offcutPieces ?? -1);
+      expect(rects.filter((rect) => rect.kind === "scrap").length).toBeLessThanOrEqual(flowScrap.reduce((total, rect) => total + rect.count, 0));
+      expect(sizeCounts(drawnSizes(["offcut", "scrap"]).map((size) => ({ ...size, group: 0 })), decimals)).toEqual(
+        sizeCounts(flowSizes(flow.offcuts).map((size) => ({ ...size, group: 0 })), decimals),
+      );
+
+      // The rectangles tile the sheet: inside it, no overlaps, areas adding up to it (a shear has no kerf).
+      const slack = units === "in" ? 1e-3 : 2e-2;
+      let area = 0;
+      for (const rect of rects) {
+        expect(rect.x).toBeGreaterThanOrEqual(-slack);
+        expect(rect.y).toBeGreaterThanOrEqual(-slack);
+        expect(rect.x + rect.width).toBeLessThanOrEqual(program.sheet.length + slack);
+        expect(rect.y + rect.height).toBeLessThanOrEqual(program.sheet.width + slack);
+        area += rect.width * rect.height;
+      }
+      expect(area).toBeCloseTo(program.sheet.length * program.sheet.width, units === "in" ? 0 : -1);
+      for (let first = 0; first < rects.length; first++) {
+        for (let second = first + 1; second < rects.length; second++) {
+          const a = rects[first];
+          const b = rects[second];
+          const overlapX = Math.min(a.x + a.width, b.x + b.width) - Math.max(a.x, b.x);
+          const overlapY = Math.min(a.y + a.height, b.y + b.height) - Math.max(a.y, b.y);
+          expect(overlapX <= slack || overlapY <= slack, `${name}: rectangles ${first} and ${second} overlap`).toBe(true);
+        }
+      }
+
+      // One line per stroke that cut (partial strokes dashed); strokes that cut nothing draw none.
+      const partialStrokes = flow.groups.filter((group) => group.partial).reduce((total, group) => total + group.strokes, 0);
+      expect(lines.filter((line) => line.dashed)).toHaveLength(partialStrokes);
+      const beyondStrokes = flow.groups.reduce((total, group) => total + (group.beyond?.strokes ?? 0), 0);
+      expect(lines.filter((line) => !line.dashed)).toHaveLength(flow.strokes - partialStrokes - beyondStrokes);
+      expect(lines.length + beyondStrokes).toBe(check.yield?.perSheet.strokes ?? -1);
+    });
+  }
+});
+
+describe("the cut-program worked example in our API docs", () => {
+  const check = checkProgram(WORKED_EXAMPLE, { shear: DEMO_SHEAR, grade: grade("A36") });
+  const { rects, lines } = drawn(WORKED_EXAMPLE, check);
+
+  it("draws 28 blanks 16 × 12 in, an 8 × 12 in offcut per strip, and 31 cut lines", () => {
+    const blanks = rects.filter((rect) => rect.kind === "blank");
+    expect(blanks).toHaveLength(28); // worked example: 4 strips × 7
+    expect(blanks.every((blank) => blank.width === 16 && blank.height === 12)).toBe(true); // crosscut along the strip: 16 in along the sheet's length
+    const offcuts = rects.filter((rect) => rect.kind === "offcut");
+    expect(offcuts).toHaveLength(4); // worked example: one 8 × 12 in offcut per strip
+    expect(offcuts.every((offcut) => offcut.width === 8 && offcut.height === 12 && offcut.x === 112)).toBe(true); // 120 − 7 × 16 at the strip's far end
+    expect(lines).toHaveLength(3 + 4 * 7); // 3 rips, then 7 crosscuts in each of 4 strips
+  });
+
+  it("numbers strokes in cutting order: rips first, then each strip's crosscuts", () => {
+    const strokes = rects.filter((rect) => rect.kind === "blank").map((rect) => rect.stroke as number).sort((a, b) => a - b);
+    expect(strokes[0]).toBe(4); // strokes 1–3 are the rips
+    expect(strokes[strokes.length - 1]).toBe(31); // worked example: 31 strokes per sheet
   });
 });
 
-describe("a sheet ripped into two strip kinds, each crosscut (from)", () => {
-  // Hand arithmetic: 2000 × 1000 sheet, two 300 strips and two 200 strips, 300 strips cut at 500, 200 strips at 400.
-  const { finalPieces, offcut } = layoutSheet({ length: 2000, width: 1000 }, [
-    { backgauge: 300, count: 2 },
-    { backgauge: 200, count: 1 },
-    { turn: true, from: 0, backgauge: 500, count: 3 },
-    { turn: true, from: 1, backgauge: 400, count: 4 },
-  ]);
-  it("draws 8 + 10 blanks covering the sheet, none overlapping, no offcut", () => {
-    expect(finalPieces.filter((p) => p.group === 2)).toHaveLength(8);
-    expect(finalPieces.filter((p) => p.group === 3)).toHaveLength(10);
-    expect(finalPieces.reduce((a, p) => a + p.w * p.h, 0)).toBe(2000 * 1000);
-    expect(offcut).toEqual([]);
-    for (const a of finalPieces) for (const b of finalPieces) {
-      if (a === b) continue;
-      const overlap = a.x < b.x + b.w && b.x < a.x + a.w && a.y < b.y + b.h && b.y < a.y + a.h;
-      expect(overlap).toBe(false);
-    }
+describe("partial strokes and the remnant rule, which the old drawing got wrong", () => {
+  it("a partial stroke severs nothing: the sheet stays one offcut and the stroke is a dashed line", () => {
+    const program = PROGRAM_FIXTURES["partial strokes"];
+    const { rects, lines } = drawn(program, checkProgram(program, { shear: DEMO_SHEAR, grade: grade("A36") }));
+    expect(rects).toEqual([expect.objectContaining({ kind: "offcut", x: 0, y: 0, width: 1000, height: 500 })]); // our piece-flow rule: partial strokes sever nothing
+    expect(lines).toEqual([{ group: 0, dashed: true }, { group: 0, dashed: true }]);
+  });
+
+  it("a remnant within the machine's repeatability is a blank, outside it offcut", () => {
+    const program = PROGRAM_FIXTURES["remnant within the tolerance"];
+    const loose = checkProgram(program, { shear: DEMO_SHEAR, grade: grade("A36") });
+    const tight = checkProgram(program, { shear: { ...DEMO_SHEAR, backgaugeRepeatabilityMm: 0.02 }, grade: grade("A36") });
+    expect(drawn(program, loose).rects.filter((rect) => rect.kind === "blank")).toHaveLength(3); // 100.05 within ±0.1 mm of 100
+    expect(drawn(program, tight).rects.filter((rect) => rect.kind === "blank")).toHaveLength(2); // not within ±0.02 mm
+    expect(drawn(program, tight).rects.filter((rect) => rect.kind === "blank")).toHaveLength(tight.yield?.perSheet.blanks ?? -1);
+  });
+
+  it("a check stored without a layout is drawn from the program by the same flow", () => {
+    const program = PROGRAM_FIXTURES["two strip kinds, each crosscut (from)"];
+    const check = checkProgram(program, { shear: DEMO_SHEAR, grade: grade("A36") });
+    expect(programLayout(program)).toEqual(check.layout);
+    expect(programLayout({ units: "cm" })).toBeNull();
   });
 });

@@ -120,7 +120,11 @@ describe("the console", () => {
     await page.goto(`${BASE_URL}/console/programs/${good.id}`);
     await page.getByText("Safety first").waitFor();
     expect(await page.locator("svg[role=img] > line").count()).toBe(3 + 4 * 7); // 3 rips, then 7 crosscuts in each of 4 strips
+    expect(await page.locator('svg[role=img] > rect[data-kind="blank"]').count()).toBe(28); // the yield beside it: 28 blanks per sheet
+    expect(await page.locator('svg[role=img] > rect[data-kind="offcut"]').count()).toBe(4); // one 8 × 12 in offcut per strip
     await page.getByText("Blade gap").waitFor();
+    await page.getByTestId("setup-gapCentre").waitFor(); // the gap at the centre and at the ends, each with its reason
+    await page.getByTestId("setup-gapEnds").waitFor();
     await shot(page, "program");
     await page.goto(`${BASE_URL}/console/programs/${faulty.id}`);
     await page.getByText("/cuts/1/backgauge").first().waitFor();

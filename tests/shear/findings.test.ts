@@ -15,6 +15,8 @@ import {
   type FindingCode,
   type FlowCut,
   type GradeProfile,
+  NARROW_STRIP_WIDTH_PER_THICKNESS,
+  STRIP_DISTORTION_WIDTH_PER_THICKNESS_DEGREE,
 } from "@/lib/shear";
 import { DEMO_SHEAR } from "./fixtures";
 
@@ -122,6 +124,32 @@ describe("group checks", () => {
     const byLength = run({ lengthMm: 3000, widthMm: 500 }, [cut(50, 2)], 1); // 50 mm < 3000 / 50 = 60 mm
     expect(byLength[0]).toMatchObject({ code: "strip_narrow", limit: 60 }); // our rule: 3000 mm / 50
     expect(run({ lengthMm: 3000, widthMm: 500 }, [cut(50, 2, { scrap: true })], 1)).toEqual([]);
+  });
+
+  it("strips likely to twist, bow and camber at this rake (our rule: 20 × thickness × rake in degrees)", () => {
+    const cuts = [cut(80, 2)];
+    const at = (rakeDeg: number | null, thicknessMm = 2) =>
+      checkGroups({ flow: simulateFlow({ lengthMm: 2000, widthMm: 1000 }, cuts), cuts, skip: [false], shear: DEMO_SHEAR, thicknessMm, rakeDeg, units: "mm" });
+    const steep = at(2.5); // 80 mm < 20 × 2 mm × 2.5° = 100 mm
+    expect(steep[0]).toMatchObject({ code: "strip_distortion", severity: "warning", pointer: "/cuts/0/backgauge", limit: 100, actual: 80, unit: "mm" });
+    expect(steep[0].message).toMatch(/lowest rake \(0.5°\) the strip would be clear/); // 20 × 2 × 0.5 = 20 mm < 80 mm
+    expect(at(1.5)).toEqual([]); // 20 × 2 × 1.5 = 60 mm ≤ 80 mm
+    expect(at(null)).toEqual([]); // no rake known: not judged
+    expect(STRIP_DISTORTION_WIDTH_PER_THICKNESS_DEGREE * 0.5).toBe(NARROW_STRIP_WIDTH_PER_THICKNESS); // at 0.5° the two rules meet
+    const narrow = at(2.5, 10); // 80 mm < 10 × 10 mm: already strip_narrow, no second warning
+    expect(narrow.map((f) => f.code)).toEqual(["strip_narrow"]);
+  });
+
+  it("settings closer than the backgauge's repeatability (the machine's stated figure)", () => {
+    const shear = { ...DEMO_SHEAR, backgaugeRepeatabilityMm: 0.05 };
+    const cuts = [cut(100, 2), cut(100.03, 1), cut(100, 1), cut(150, 0)];
+    const out = checkGroups({ flow: simulateFlow({ lengthMm: 2000, widthMm: 1000 }, cuts), cuts, skip: cuts.map(() => false), shear, thicknessMm: 3, units: "mm" });
+    const found = out.filter((f) => f.code === "backgauge_finer_than_repeatability");
+    expect(found).toHaveLength(2); // 100.03 against 100, then 100 against 100.03; equal settings are not a difference
+    expect(found[0]).toMatchObject({ severity: "warning", pointer: "/cuts/1/backgauge", limit: 0.05, unit: "mm" }); // the profile's ±0.05 mm
+    expect(found[0].actual).toBeCloseTo(0.03, 9); // hand arithmetic: 100.03 − 100
+    const unstated = checkGroups({ flow: simulateFlow({ lengthMm: 2000, widthMm: 1000 }, cuts), cuts, skip: cuts.map(() => false), shear: DEMO_SHEAR, thicknessMm: 3, units: "mm" });
+    expect(unstated.map((f) => f.code)).not.toContain("backgauge_finer_than_repeatability"); // no stated repeatability: not checked
   });
 
   it("partial strokes and a length of cut longer than the workpiece", () => {

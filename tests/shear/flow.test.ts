@@ -1,6 +1,7 @@
 import { describe, expect, it } from "vitest";
 import fc from "fast-check";
-import { inToMm, REMNANT_TOLERANCE_MM, simulateFlow, strokesThatCut, yieldReport, type FlowCut } from "@/lib/shear";
+import { inToMm, REMNANT_TOLERANCE_MM, remnantToleranceMm, simulateFlow, strokesThatCut, yieldReport, type FlowCut } from "@/lib/shear";
+import { DEMO_SHEAR } from "./fixtures";
 
 const cut = (backgaugeMm: number, count: number, over: Partial<FlowCut> = {}): FlowCut => ({ backgaugeMm, count, lengthMm: null, turn: false, scrap: false, ...over });
 const sumCount = (rs: ReadonlyArray<{ count: number }>): number => rs.reduce((a, r) => a + r.count, 0);
@@ -49,6 +50,24 @@ describe("remnant rule", () => {
     expect(f.groups[1].workpieces).toBe(1); // our piece-flow rule: the 300 mm remnant stays the workpiece
     expect(sumCount(f.blanks)).toBe(4); // 2 × 100, then 150 and a 150 remnant equal to the backgauge
     expect(f.offcuts).toEqual([]);
+  });
+});
+
+describe("the remnant tolerance follows the machine", () => {
+  it("is the shear's stated backgauge repeatability, else the 0.1 mm default", () => {
+    expect(remnantToleranceMm({ ...DEMO_SHEAR, backgaugeRepeatabilityMm: 0.02 })).toBe(0.02); // the machine's own figure
+    expect(remnantToleranceMm(DEMO_SHEAR)).toBe(REMNANT_TOLERANCE_MM); // not stated: the default (common practice)
+    expect(remnantToleranceMm(null)).toBe(REMNANT_TOLERANCE_MM);
+    expect(remnantToleranceMm({ backgaugeRepeatabilityMm: -1 })).toBe(REMNANT_TOLERANCE_MM);
+  });
+
+  it("a 100.05 mm remnant is a piece at ±0.1 mm but offcut on a machine that holds ±0.02 mm", () => {
+    const loose = simulateFlow({ lengthMm: 1000, widthMm: 300.05 }, [cut(100, 2)], { toleranceMm: 0.1 });
+    const tight = simulateFlow({ lengthMm: 1000, widthMm: 300.05 }, [cut(100, 2)], { toleranceMm: 0.02 });
+    expect(sumCount(loose.blanks)).toBe(3); // hand arithmetic: 300.05 − 2 × 100 = 100.05, within 0.1 of 100
+    expect(sumCount(tight.blanks)).toBe(2); // 100.05 is 0.05 from 100: more than ±0.02
+    expect(tight.offcuts[0].widthMm).toBeCloseTo(100.05, 9);
+    expect(strokesThatCut(100.05, 100, 0.02)).toBe(1); // the 0.05 left over is cut off at the tighter tolerance
   });
 });
 

@@ -54,6 +54,13 @@ describe("the cut-program worked example in our API docs", () => {
     expect(r.setup?.bladeGap).toMatchObject({ unit: "in", source: "computed" });
   });
 
+  it("places the sheet unless asked not to", () => {
+    expect(r.layout?.rectangles.filter((rect) => rect.kind === "blank")).toHaveLength(28); // worked example: 28 blanks per sheet
+    const unplaced = checkProgram(WORKED_EXAMPLE, { shear: DEMO_SHEAR, grade: grade("A36") }, { layout: false });
+    expect(unplaced.layout).toBeNull();
+    expect({ ...unplaced, layout: r.layout }).toEqual(r); // everything else the same
+  });
+
   it("does not change the program", () => {
     const p = clone(WORKED_EXAMPLE);
     check(p);
@@ -75,7 +82,7 @@ describe("millimetre programs get millimetres, MPa and kN back", () => {
     expect(r.force?.unit).toBe("kN");
     expect(r.force?.tensile).toEqual({ value: 515, unit: "MPa", basis: "minimum" }); // ASTM A240: 515 MPa
     expect(r.setup?.bladeGap.unit).toBe("mm");
-    expect(r.setup?.bladeGap.value).toBe(0.18); // 9 % × 2 mm (stainless, common practice)
+    expect(r.setup?.bladeGap.value).toBe(0.1); // 5 % × 2 mm: stainless at 16 gauge and heavier (SSINA fabrication guidance)
     expect(r.yield?.areaUnit).toBe("mm2");
     expect(r.yield?.total.blanks).toBe(3); // 2 cut + the 500 mm remnant equal to the backgauge (our piece-flow rule)
   });

@@ -66,7 +66,7 @@ export const listGauges = defineOperation({
 });
 export const recommendSetup = defineOperation({
   operationId: "recommendSetup", method: "post", path: "/setup", tags, scope: "catalog:read", summary: "Setup for a grade, thickness and shear",
-  description: "Blade gap, rake, crown, hold-down and force for a full-length cut (or `length`), without a program. Recommendations for a qualified operator, never a guarantee.",
+  description: "Blade gap (by material and thickness, with the gap at the ends and at the centre), rake, crown, hold-down and force for a full-length cut (or `length`), without a program. Each value says why. Recommendations for a qualified operator, never a guarantee: the machine's manual, its guarding, lockout and local codes come first.",
   body: SetupRequest,
   responses: {
     200: {

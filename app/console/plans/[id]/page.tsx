@@ -10,6 +10,7 @@ import { currentMember } from "@/lib/auth/session";
 import { requestEm } from "@/lib/db/orm";
 import { PLAN_OBJECTIVE_LABELS } from "@/lib/schemas/enums";
 import { getPlan, viewPlan } from "@/lib/services/plans";
+import { programLayout } from "@/lib/shear";
 
 export const metadata = { title: "Plan" };
 
@@ -72,7 +73,7 @@ export default async function PlanPage({ params }: { params: Promise<{ id: strin
                   <Badge value={p.check.validation} label={`check: ${p.check.validation}`} />
                   {programId && <Link href={`/console/programs/${programId}`} className="font-normal text-edge hover:underline">program →</Link>}
                 </h2>
-                <CutDrawing sheet={p.sheet} cuts={p.cuts} units={u} faultyGroups={faulty} marks={marks} reusable={reusable} />
+                <CutDrawing sheet={p.sheet} layout={programLayout({ units: u, sheet: { ...p.sheet, count: 1 }, cuts: p.cuts })} units={u} faultyGroups={faulty} marks={marks} reusable={reusable} />
                 <details className="mt-2 text-xs text-ink-muted">
                   <summary className="cursor-pointer">The program: {p.cuts.length} groups{p.check.findings.length ? ` · ${p.check.findings.length} finding${p.check.findings.length === 1 ? "" : "s"}` : ""}</summary>
                   <ol className="mt-1 space-y-0.5">

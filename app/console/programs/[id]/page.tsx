@@ -10,11 +10,12 @@ import { currentMember } from "@/lib/auth/session";
 import { requestEm } from "@/lib/db/orm";
 import { getProgram, viewProgram } from "@/lib/services/programs";
 import { listEvents } from "@/lib/services/webhooks";
+import { programLayout } from "@/lib/shear";
 
 export const metadata = { title: "Program" };
 
 const SETUP_LABELS: Record<string, string> = {
-  bladeGap: "Blade gap", rake: "Rake angle", holdDown: "Hold-down", crown: "Crown", backgaugeRetract: "Backgauge retract",
+  bladeGap: "Blade gap", gapEnds: "Gap at the ends", gapCentre: "Gap at the centre", rake: "Rake angle", holdDown: "Hold-down", crown: "Crown", backgaugeRetract: "Backgauge retract",
 };
 
 export default async function ProgramPage({ params }: { params: Promise<{ id: string }> }) {
@@ -68,7 +69,7 @@ export default async function ProgramPage({ params }: { params: Promise<{ id: st
 
           <section>
             <h2 className="mb-2 text-sm font-semibold">One sheet, as it is cut</h2>
-            <CutDrawing sheet={p.sheet} cuts={p.cuts} units={p.units} faultyGroups={faultyGroups} />
+            <CutDrawing sheet={p.sheet} layout={c.layout !== undefined ? c.layout : programLayout({ units: p.units, sheet: p.sheet, cuts: p.cuts })} units={p.units} faultyGroups={faultyGroups} />
             <ol className="mt-2 space-y-0.5 text-xs text-ink-muted">
               {p.cuts.map((cut, i) => (
                 <li key={i} className={faultyGroups.includes(i) ? "text-fault" : ""}>
@@ -84,12 +85,12 @@ export default async function ProgramPage({ params }: { params: Promise<{ id: st
               <h2 className="mb-2 text-sm font-semibold">Setup</h2>
               <div className="mb-3"><SafetyNote /></div>
               <Table head={["Setting", "Value", "From", "Why"]}>
-                {Object.keys(SETUP_LABELS).filter((k) => k in c.setup!).map((k) => [k, c.setup![k as keyof typeof c.setup]] as const).map(([k, v]) => (
-                  <tr key={k}>
-                    <Td>{SETUP_LABELS[k] ?? k}</Td>
-                    <Td mono>{v.value} {v.unit}</Td>
-                    <Td><Badge value={v.source === "given" ? "released" : "draft"} label={v.source} /></Td>
-                    <Td className="text-ink-muted">{v.why}</Td>
+                {Object.keys(SETUP_LABELS).map((key) => [key, c.setup![key as keyof typeof c.setup]] as const).map(([key, setting]) => setting && (
+                  <tr key={key} data-testid={`setup-${key}`}>
+                    <Td>{SETUP_LABELS[key] ?? key}</Td>
+                    <Td mono>{setting.value} {setting.unit}</Td>
+                    <Td><Badge value={setting.source === "given" ? "released" : "draft"} label={setting.source} /></Td>
+                    <Td className="text-ink-muted">{setting.why}</Td>
                   </tr>
                 ))}
               </Table>

@@ -122,7 +122,7 @@ describe("the console", () => {
     expect(await page.locator("svg[role=img] > line").count()).toBe(3 + 4 * 7); // 3 rips, then 7 crosscuts in each of 4 strips
     expect(await page.locator('svg[role=img] > rect[data-kind="blank"]').count()).toBe(28); // the yield beside it: 28 blanks per sheet
     expect(await page.locator('svg[role=img] > rect[data-kind="offcut"]').count()).toBe(4); // one 8 × 12 in offcut per strip
-    await page.getByText("Blade gap").waitFor();
+    await page.getByText("Blade gap", { exact: true }).waitFor();
     await page.getByTestId("setup-gapCentre").waitFor(); // the gap at the centre and at the ends, each with its reason
     await page.getByTestId("setup-gapEnds").waitFor();
     await shot(page, "program");

@@ -4,26 +4,34 @@ import { Shear } from "./Shear";
 import { Shop } from "./Shop";
 
 /**
- * A plan: the blanks and stock it was asked for (as sent, in the caller's units) and what the
- * planner made of them (sheet patterns, demand met, findings), kept as computed so a plan
- * reads the same later even when the catalog changes. `programs` lists the cut programs
- * written from it, once.
+ * A plan: the order it was asked for (as sent, in the caller's units) and, once a worker has
+ * computed it, what the planner made of it (sheet patterns, demand met, findings), kept as
+ * computed so a plan reads the same later even when the catalog changes. It is a job:
+ * `queued` → `running` → `complete` | `failed` | `cancelled`, with its progress while it runs.
+ * `programs` lists the cut programs written from it, once.
  */
 export const Plan = defineEntity({
   name: "Plan",
   tableName: "plans",
-  indexes: [{ properties: ["shop", "id"] }],
+  indexes: [{ properties: ["shop", "id"] }, { properties: ["status", "updatedAt"] }],
   properties: {
     id: p.string().primary().onCreate(() => newId("plan")),
     shop: () => p.manyToOne(Shop).deleteRule("cascade"),
     shear: () => p.manyToOne(Shear).deleteRule("restrict"),
     reference: p.text().nullable(),
     title: p.text().nullable(),
-    /** complete | partial */
+    /** queued | running | complete | failed | cancelled */
     status: p.string(),
     input: p.json<Record<string, unknown>>(),
-    result: p.json<Record<string, unknown>>(),
+    /** the planner's answer, once complete */
+    result: p.json<Record<string, unknown>>().nullable(),
+    progress: p.json<{ patterns: number; piecesPlaced: number; piecesWanted: number }>().nullable(),
+    failure: p.json<{ reason: string; message: string }>().nullable(),
+    attempts: p.integer().default(0),
     programs: p.json<{ pattern: string; id: string }[]>().default("[]"),
     createdAt: p.datetime().onCreate(() => new Date()),
+    startedAt: p.datetime().nullable(),
+    finishedAt: p.datetime().nullable(),
+    updatedAt: p.datetime().onCreate(() => new Date()).onUpdate(() => new Date()),
   },
 });

@@ -5,6 +5,7 @@
 import { MikroORM } from "@mikro-orm/postgresql";
 import { ormConfig } from "../lib/db/config";
 import { migrateUp, migrationNeeded } from "../lib/db/migrate";
+import { closePlanQueue } from "../lib/queue/plan-queue";
 import { seedDemo } from "./lib/seed";
 
 const [command, name] = process.argv.slice(2);
@@ -33,5 +34,6 @@ try {
   }
 } finally {
   await orm.close(true);
+  await closePlanQueue();
 }
 process.exit(code);

@@ -8,6 +8,7 @@ import { ormConfig } from "../lib/db/config";
 import { migrateUp } from "../lib/db/migrate";
 import { appEnv } from "./lib/env";
 import { demoKey } from "./lib/demo-key";
+import { closePlanQueue } from "../lib/queue/plan-queue";
 import { seedDemo } from "./lib/seed";
 import { devProfile, startAll, ServiceError } from "./lib/services";
 import path from "node:path";
@@ -31,6 +32,7 @@ async function main() {
     apiKey = await demoKey(orm.em.fork(), profile.dataRoot, demo.shop.id);
   } finally {
     await orm.close(true);
+    await closePlanQueue();
   }
 
   const web = daemon(profile.dataRoot, "web");

@@ -21,6 +21,7 @@ const ERROR_TEXT: Record<number, string> = {
   428: "If-Match is required.",
   429: "Rate limit exceeded; see Retry-After.",
   500: "Something went wrong on our side.",
+  503: "The service cannot answer now; see Retry-After.",
 };
 
 const RATE_HEADERS = {
@@ -47,7 +48,7 @@ export function errorStatuses(op: Operation): number[] {
 const ERROR_NAMES: Record<number, string> = {
   400: "BadRequest", 401: "Unauthorized", 403: "Forbidden", 404: "NotFound", 409: "Conflict", 412: "PreconditionFailed",
   413: "PayloadTooLarge", 415: "UnsupportedMediaType", 422: "UnprocessableContent", 428: "PreconditionRequired",
-  429: "TooManyRequests", 500: "InternalError",
+  429: "TooManyRequests", 500: "InternalError", 503: "ServiceUnavailable",
 };
 
 export function buildOpenApi(operations: Operation[], extra?: (registry: OpenAPIRegistry) => void) {
@@ -67,7 +68,7 @@ export function buildOpenApi(operations: Operation[], extra?: (registry: OpenAPI
   for (const [status, name] of Object.entries(ERROR_NAMES)) {
     registry.registerComponent("responses", name, {
       description: ERROR_TEXT[Number(status)],
-      headers: pick(Number(status) === 429 ? ["X-Request-Id", "RateLimit-Policy", "RateLimit", "Retry-After"] : ["X-Request-Id"]),
+      headers: pick(Number(status) === 429 ? ["X-Request-Id", "RateLimit-Policy", "RateLimit", "Retry-After"] : Number(status) === 503 ? ["X-Request-Id", "Retry-After"] : ["X-Request-Id"]),
       content: { "application/problem+json": { schema: { $ref: "#/components/schemas/Problem" } } },
     });
     errorRef[Number(status)] = { $ref: `#/components/responses/${name}` };
@@ -93,6 +94,7 @@ export function buildOpenApi(operations: Operation[], extra?: (registry: OpenAPI
         schema: { type: "string" as const, maxLength: 255 },
       });
     }
+    for (const header of op.requestHeaders ?? []) requestHeaders.push({ ...header, in: "header" as const, required: false });
     if (op.ifMatch) {
       requestHeaders.push({
         name: "If-Match", in: "header" as const, required: true,

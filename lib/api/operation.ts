@@ -35,6 +35,8 @@ export interface Operation<P extends ZObject | undefined = ZObject | undefined, 
   ifMatch?: boolean;
   /** extra error statuses this operation can answer, besides the common ones */
   errors?: number[];
+  /** request headers the operation reads, besides the common ones (documented; the handler reads them) */
+  requestHeaders?: { name: string; description: string; schema: { type: "string" | "integer"; maxLength?: number } }[];
 }
 
 export type Infer<T> = T extends z.ZodType ? z.infer<T> : undefined;

@@ -16,5 +16,7 @@ export const PROBLEM_TYPES: Record<string, { status: number; title: string; expl
   "idempotency-key-reused": { status: 422, title: "Idempotency-Key reused with another request", explanation: "An Idempotency-Key stands for one request for 24 hours; a new request needs a new key." },
   "precondition-required": { status: 428, title: "If-Match is required", explanation: "Changing a program needs If-Match with the ETag you read, so two editors cannot overwrite each other." },
   "rate-limited": { status: 429, title: "Too many requests", explanation: "Each key has a budget per minute, announced in the `RateLimit-Policy` and `RateLimit` headers. Wait `Retry-After` seconds." },
+  "plan-failed": { status: 422, title: "The plan could not be computed", explanation: "A preview ran into the planner's time or memory limit, or the planner stopped; the detail says which. Plan fewer blank types or pieces at once, or coarser sizes." },
+  "planning-unavailable": { status: 503, title: "No planner answered in time", explanation: "Previews are computed by the planning workers while you wait; none answered in time. Store the plan instead (POST /plans) and read it when it is done, or retry after `Retry-After` seconds." },
   internal: { status: 500, title: "Something went wrong on our side", explanation: "The error was logged with the request id. Retrying with the same Idempotency-Key is safe." },
 };

@@ -170,16 +170,63 @@ export interface PlannedPattern {
   rotated: boolean;
   repeats: number;
   utilisationPct: number;
-  strips: {
-    y: number;
-    height: number;
-    pieces: { blank: number; label: string; x: number; y: number; length: number; width: number; turned: boolean }[];
-  }[];
+  /** runs: identical strips once with `repeat`, identical pieces side by side once with `count` */
+  strips: PlannedStrip[];
   offcuts: { x: number; y: number; length: number; width: number; kind: "trim" | "sheet-end" | "strip-end" | "piece-trim"; reusable: boolean }[];
   strokes: number;
   turns: number;
   cuts: PlannedCut[];
   check: Pick<CheckResult, "validation" | "findings" | "estimate">;
+}
+
+export interface PieceRun {
+  blank: number;
+  label: string;
+  x: number;
+  y: number;
+  length: number;
+  width: number;
+  turned: boolean;
+  count: number;
+}
+
+export interface PlannedStrip {
+  y: number;
+  height: number;
+  repeat: number;
+  pieces: PieceRun[];
+}
+
+type PlacedPiece = Omit<PieceRun, "count">;
+
+/**
+ * Strips as runs, so a stored plan grows with its patterns, not its pieces: pieces of one blank
+ * side by side along the blade become one run, and identical strips one after another one strip.
+ */
+export function compressStrips(strips: { y: number; height: number; pieces: PlacedPiece[] }[]): PlannedStrip[] {
+  const runs = (pieces: PlacedPiece[]) => {
+    const out: PieceRun[] = [];
+    for (const piece of [...pieces].sort((a, b) => a.x - b.x || a.y - b.y)) {
+      const last = out[out.length - 1];
+      const follows = last && last.blank === piece.blank && last.turned === piece.turned && last.y === piece.y
+        && last.length === piece.length && last.width === piece.width && Math.abs(last.x + last.count * last.length - piece.x) < 1e-9;
+      if (follows) last.count += 1;
+      else out.push({ ...piece, count: 1 });
+    }
+    return out;
+  };
+  // Two strips are alike when their runs are, each relative to the strip's own edge.
+  const shape = (strip: { y: number; height: number; pieces: PieceRun[] }) =>
+    JSON.stringify([strip.height, strip.pieces.map((r) => [r.blank, r.turned, r.x, r.y - strip.y, r.length, r.width, r.count])]);
+  const out: (PlannedStrip & { key: string })[] = [];
+  for (const strip of strips) {
+    const pieces = runs(strip.pieces);
+    const key = shape({ ...strip, pieces });
+    const last = out[out.length - 1];
+    if (last && last.key === key && Math.abs(last.y + last.repeat * last.height - strip.y) < 1e-9) last.repeat += 1;
+    else out.push({ y: strip.y, height: strip.height, repeat: 1, pieces, key });
+  }
+  return out.map(({ key: _key, ...strip }) => strip);
 }
 
 export type PlanFindingCode = "blank_unplaceable" | "stock_short" | "over_production" | "stock_unusable" | "trim_out_of_travel" | "pattern_not_releasable";
@@ -194,7 +241,7 @@ export interface PlanFinding {
 
 /** The planner's answer in the order's units. */
 export interface PlannedOrder {
-  status: "complete" | "partial";
+  coverage: "complete" | "partial";
   stock: (OrderStock & { count: number | null; used: number })[];
   blanks: (OrderBlank & { canTurn: boolean; planned: number; extra: number; short: number })[];
   options: { objective: Objective; trim: number; overProductionPct: number; reusableOffcut: { length: number; width: number } | null; offcutsAsStock: boolean };
@@ -281,14 +328,14 @@ export function planOrder(order: Order, context: PlanContext, onProgress?: (prog
       rotated: p.rotated,
       repeats: p.repeats,
       utilisationPct: percent(p.utilisation),
-      strips: p.strips.map((strip) => ({
+      strips: compressStrips(p.strips.map((strip) => ({
         y: fromGrid(strip.y),
         height: fromGrid(strip.height),
         pieces: strip.pieces.map((piece) => ({
           blank: piece.blank, label: order.blanks[piece.blank].label, x: fromGrid(piece.x), y: fromGrid(piece.y),
           length: fromGrid(piece.length), width: fromGrid(piece.width), turned: piece.turned,
         })),
-      })),
+      }))),
       offcuts: p.offcuts.map((x) => ({ x: fromGrid(x.x), y: fromGrid(x.y), length: fromGrid(x.length), width: fromGrid(x.width), kind: x.kind, reusable: x.reusable })),
       strokes: p.strokes,
       turns: p.turns,
@@ -333,7 +380,7 @@ export function planOrder(order: Order, context: PlanContext, onProgress?: (prog
   const sum = (values: number[]) => values.reduce((total, n) => total + n, 0);
   const shortTotal = sum(short);
   return {
-    status: shortTotal > 0 ? "partial" : "complete",
+    coverage: shortTotal > 0 ? "partial" : "complete",
     stock: order.stock.map((s, i) => ({ ...s, count: s.count ?? null, used: used[i] })),
     blanks: order.blanks.map((b, i) => ({ ...b, canTurn: canTurn(b), planned: planned.produced[i], extra: planned.extra[i], short: short[i] })),
     options: {

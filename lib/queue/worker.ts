@@ -1,8 +1,9 @@
 /**
  * The worker process: fans out the outbox into deliveries (woken by NOTIFY on commit, and
  * every few seconds regardless), runs delivery attempts from the BullMQ queue, re-queues
- * overdue deliveries, returns expired gateway leases, and purges old idempotency records.
- * The web process never delivers webhooks itself.
+ * overdue deliveries, returns expired gateway leases, purges old idempotency records, and
+ * computes plans (each in a worker thread of its own, so a plan never holds up deliveries).
+ * The web process never delivers webhooks or plans anything itself.
  */
 import { Worker } from "bullmq";
 import pg from "pg";
@@ -16,10 +17,18 @@ import { mailEndpointDisabled } from "../services/mail";
 import { attemptDelivery } from "./deliver";
 import { dispatchPending, overdueDeliveries } from "./dispatch";
 import { bullConnection, closeQueue, enqueueAttempt, QUEUE_NAME, type DeliveryJob } from "./queue";
+import { failLostPlan, planInThread, processStoredPlan, requeueOrphanPlans } from "./plan-jobs";
+import { PLAN_QUEUE, planTimeLimitMs, previewTimeLimitMs, type PlanJob } from "./plan-queue";
+
+/** A plan job's lock: a worker that dies loses it within this, and another worker takes the plan over. */
+const PLAN_LOCK_MS = Number(process.env.SHEARWIRE_PLAN_LOCK_MS ?? 15_000);
 
 const log = (msg: string) => console.log(`[worker] ${new Date().toISOString()} ${msg}`);
 
-export async function runWorker({ concurrency = Number(process.env.SHEARWIRE_WORKER_CONCURRENCY ?? 32) } = {}) {
+export async function runWorker({
+  concurrency = Number(process.env.SHEARWIRE_WORKER_CONCURRENCY ?? 32),
+  planConcurrency = Number(process.env.SHEARWIRE_PLAN_CONCURRENCY ?? 1),
+} = {}) {
   const orm = await getOrm();
   const fork = () => orm.em.fork();
 
@@ -93,6 +102,30 @@ export async function runWorker({ concurrency = Number(process.env.SHEARWIRE_WOR
   );
   worker.on("error", (err) => log(`queue: ${err.message}`));
 
+  // Plans: CPU-heavy, so each runs in a worker thread; this event loop only keeps the job's lock.
+  const planWorker = new Worker<PlanJob>(
+    PLAN_QUEUE,
+    async (job) => {
+      if (job.data.kind === "preview") {
+        const outcome = await planInThread(job.data.order, job.data.context, { timeLimitMs: previewTimeLimitMs() });
+        if (outcome.kind !== "complete") throw new Error(outcome.kind === "failed" ? outcome.message : "The preview was stopped.");
+        return outcome.result;
+      }
+      const outcome = await processStoredPlan(fork, job.data.planId, planTimeLimitMs());
+      log(`plan ${job.data.planId}: ${outcome}`);
+      return outcome;
+    },
+    { connection: bullConnection(), concurrency: planConcurrency, lockDuration: PLAN_LOCK_MS, stalledInterval: Math.max(1_000, PLAN_LOCK_MS / 3), maxStalledCount: 3 },
+  );
+  planWorker.on("error", (err) => log(`plan queue: ${err.message}`));
+  planWorker.on("failed", (job, err) => {
+    // A stored plan whose workers kept dying (the job stalled too often) is failed, with the reason.
+    if (job?.data.kind === "stored" && /stalled/i.test(err.message)) {
+      void failLostPlan(fork(), job.data.planId, `The workers computing this plan stopped ${job.attemptsStarted ?? "several"} times; it was given up. ${err.message}`)
+        .catch((e) => log(`plan ${job.data.kind === "stored" ? job.data.planId : ""}: ${(e as Error).message}`));
+    }
+  });
+
   const timers = [
     setInterval(() => void dispatch(), 2_000),
     setInterval(async () => {
@@ -111,15 +144,24 @@ export async function runWorker({ concurrency = Number(process.env.SHEARWIRE_WOR
       }
     }, 2_000),
     setInterval(() => void purgeExpired(fork()).catch(() => undefined), 3_600_000),
+    setInterval(async () => {
+      try {
+        const requeued = await requeueOrphanPlans(fork(), PLAN_LOCK_MS * 4);
+        if (requeued.length) log(`plans queued again: ${requeued.join(", ")}`);
+      } catch (err) {
+        log(`plan sweep failed: ${(err as Error).message}`);
+      }
+    }, 10_000),
   ];
   await dispatch();
-  log(`running: ${concurrency} deliveries at a time`);
+  log(`running: ${concurrency} deliveries and ${planConcurrency} plan${planConcurrency === 1 ? "" : "s"} at a time`);
 
   return async function stop() {
     timers.forEach(clearInterval);
     backlog.length = 0; // not started: the sweeper of the next worker queues them
     await Promise.all([...inFlight]);
     await worker.close();
+    await planWorker.close(true); // a plan in progress goes back to the queue for the next worker
     await listener.end().catch(() => undefined);
     await closeQueue();
     await orm.close(true);

@@ -53,8 +53,9 @@ const PlanShape = z
     title: z.string().max(200).optional(),
     ...jobFields(),
     units: z.enum(["in", "mm"]).openapi({ description: "Units of every length in this plan" }),
-    stock: z.array(StockInput).min(1).max(20),
-    blanks: z.array(BlankInput).min(1).max(200),
+    // The planner's own limits (20 stock sizes, 200 blank types, …) are checked after the schema, so a refusal names the limit and the value.
+    stock: z.array(StockInput).min(1).max(1_000).openapi({ description: "Stock sizes on hand (a plan takes at most 20: limit `stockSizes`)" }),
+    blanks: z.array(BlankInput).min(1).max(10_000).openapi({ description: "Order lines (a plan takes at most 200 blank types: limit `blankTypes`, and 20,000 pieces in all: limit `totalPieces`)" }),
     options: PlanOptionsInput.optional(),
   })
   .strict();
@@ -77,15 +78,18 @@ export const EXAMPLE_PLAN: z.infer<typeof PlanShape> = {
 
 export const PlanInput = PlanShape.openapi("PlanInput", { example: EXAMPLE_PLAN });
 
-const Piece = z.object({
-  blank: z.number().int().openapi({ description: "Index into `blanks`" }),
-  label: z.string(),
-  x: z.number().openapi({ description: "Distance along the blade from the sheet's corner" }),
-  y: z.number().openapi({ description: "Distance from the first edge (toward the backgauge)" }),
-  length: z.number().openapi({ description: "Along the blade" }),
-  width: z.number().openapi({ description: "Toward the backgauge" }),
-  turned: z.boolean().openapi({ description: "Lies turned 90° to the stock sheet's length" }),
-});
+const Piece = z
+  .object({
+    blank: z.number().int().openapi({ description: "Index into `blanks`" }),
+    label: z.string(),
+    x: z.number().openapi({ description: "Distance along the blade from the sheet's corner, of the first piece of the run" }),
+    y: z.number().openapi({ description: "Distance from the first edge (toward the backgauge), in the strip's first copy" }),
+    length: z.number().openapi({ description: "Along the blade" }),
+    width: z.number().openapi({ description: "Toward the backgauge" }),
+    turned: z.boolean().openapi({ description: "Lies turned 90° to the stock sheet's length" }),
+    count: z.number().int().min(1).openapi({ description: "Pieces in this run, side by side along the blade (each `length` further on)" }),
+  })
+  .openapi("PlanPieceRun");
 
 export const PlanPattern = z
   .object({
@@ -93,9 +97,18 @@ export const PlanPattern = z
     stock: z.number().int().openapi({ description: "Index into `stock`" }),
     sheet: z.object({ length: z.number(), width: z.number() }).openapi({ description: "The sheet as presented: length along the blade" }),
     rotated: z.boolean().openapi({ description: "The stock sheet's width is presented to the blade" }),
-    repeats: z.number().int().openapi({ description: "Sheets cut to this pattern (the program's `sheet.count`)" }),
+    repeats: z.number().int().openapi({ description: "Sheets cut to this pattern (the program's `sheet.count`); a pattern is stored once, however many sheets repeat it" }),
     utilisationPct: z.number(),
-    strips: z.array(z.object({ y: z.number(), height: z.number(), pieces: z.array(Piece) })),
+    strips: z
+      .array(
+        z.object({
+          y: z.number(),
+          height: z.number(),
+          repeat: z.number().int().min(1).openapi({ description: "Identical strips one after another (each `height` further on); a plan's size follows its patterns, not its pieces" }),
+          pieces: z.array(Piece),
+        }),
+      )
+      .openapi({ description: "Strips ripped across the sheet, as runs: identical strips once with `repeat`, identical pieces once with `count`" }),
     offcuts: z.array(
       z.object({
         x: z.number(), y: z.number(), length: z.number(), width: z.number(),
@@ -122,16 +135,28 @@ export const PlanFinding = z
   })
   .openapi("PlanFinding");
 
-export const Plan = z
+export const PLAN_STATUSES = ["queued", "running", "complete", "failed", "cancelled"] as const;
+export const PLAN_FAILURES = ["time_limit", "worker_lost", "out_of_memory", "error"] as const;
+
+const PlanSummaryFigures = z
   .object({
-    id: z.string().openapi({ example: "pln_01JEXAMPLE0000000000000000" }),
-    status: z.enum(["complete", "partial"]).openapi({ description: "`partial`: some blanks could not be placed; see `findings`" }),
-    reference: z.string().nullable(),
-    title: z.string().nullable(),
-    shear: z.string(),
-    grade: z.string(),
-    thickness: Thickness,
-    units: z.enum(["in", "mm"]),
+    sheets: z.number().int(),
+    patterns: z.number().int(),
+    blanksAsked: z.number().int(),
+    blanksPlanned: z.number().int(),
+    extra: z.number().int(),
+    short: z.number().int(),
+    utilisationPct: z.number().openapi({ description: "Blank area over the area of the sheets used" }),
+    netUtilisationPct: z.number().openapi({ description: "Blank area over the sheets' area less the reusable offcuts" }),
+    strokes: z.number().int(),
+    turns: z.number().int(),
+    estimateSeconds: z.number().openapi({ description: "The shear core's cycle estimate for every sheet of the plan" }),
+  })
+  .openapi("PlanFigures");
+
+export const PlanResult = z
+  .object({
+    coverage: z.enum(["complete", "partial"]).openapi({ description: "`partial`: some blanks could not be placed; see `findings`" }),
     stock: z.array(
       z.object({ length: z.number(), width: z.number(), count: z.number().int().nullable(), label: z.string().optional(), used: z.number().int().openapi({ description: "Sheets of this size the plan uses" }) }).openapi("PlanStockUse"),
     ),
@@ -152,26 +177,63 @@ export const Plan = z
       reusableOffcut: z.object({ length: z.number(), width: z.number() }).nullable(),
       offcutsAsStock: z.boolean(),
     }),
-    summary: z.object({
-      sheets: z.number().int(),
-      patterns: z.number().int(),
-      blanksAsked: z.number().int(),
-      blanksPlanned: z.number().int(),
-      extra: z.number().int(),
-      short: z.number().int(),
-      utilisationPct: z.number().openapi({ description: "Blank area over the area of the sheets used" }),
-      netUtilisationPct: z.number().openapi({ description: "Blank area over the sheets' area less the reusable offcuts" }),
-      strokes: z.number().int(),
-      turns: z.number().int(),
-      estimateSeconds: z.number().openapi({ description: "The shear core's cycle estimate for every sheet of the plan" }),
-    }),
+    summary: PlanSummaryFigures,
     patterns: z.array(PlanPattern),
     reusableOffcuts: z.array(z.object({ length: z.number(), width: z.number(), count: z.number().int() })),
     findings: z.array(PlanFinding),
-    programs: z.array(z.object({ pattern: z.string(), id: z.string() })).openapi({ description: "The programs written from this plan; empty until `POST /plans/{id}/programs`" }),
-    createdAt: z.string(),
   })
+  .openapi("PlanResult", { description: "What the planner made of the order, in its units" });
+
+const PlanCommon = {
+  id: z.string().openapi({ example: "pln_01JEXAMPLE0000000000000000" }),
+  status: z.enum(PLAN_STATUSES).openapi({
+    description: "`queued` → `running` → `complete` | `failed` | `cancelled`. A plan is computed by a worker, never by the server answering requests; read it again (or use `Prefer: wait`, or the `plan.completed` and `plan.failed` webhooks) to learn when it is done.",
+  }),
+  reference: z.string().nullable(),
+  title: z.string().nullable(),
+  shear: z.string(),
+  grade: z.string(),
+  thickness: Thickness,
+  units: z.enum(["in", "mm"]),
+  progress: z
+    .object({
+      patterns: z.number().int().openapi({ description: "Sheet patterns found so far" }),
+      piecesPlaced: z.number().int().openapi({ description: "Pieces those patterns place (within the quantities asked)" }),
+      piecesWanted: z.number().int().openapi({ description: "Pieces the stock can take at all" }),
+    })
+    .nullable()
+    .openapi({ description: "How far the planner has come; null until it starts" }),
+  failure: z
+    .object({ reason: z.enum(PLAN_FAILURES), message: z.string() })
+    .nullable()
+    .openapi({ description: "Why a `failed` plan failed" }),
+  attempts: z.number().int().openapi({ description: "Times a worker started on the plan (more than one when a worker was lost mid-plan and another took it over)" }),
+  programs: z.array(z.object({ pattern: z.string(), id: z.string() })).openapi({ description: "The programs written from this plan; empty until `POST /plans/{id}/programs`" }),
+  createdAt: z.string(),
+  startedAt: z.string().nullable(),
+  finishedAt: z.string().nullable(),
+};
+
+export const Plan = z
+  .object({ ...PlanCommon, result: PlanResult.nullable().openapi({ description: "The plan itself, once `complete`; null before" }) })
   .openapi("Plan");
+
+export const PlanSummary = z
+  .object({
+    ...PlanCommon,
+    coverage: z.enum(["complete", "partial"]).nullable().openapi({ description: "Once complete: were all blanks placed?" }),
+    summary: PlanSummaryFigures.nullable().openapi({ description: "Once complete: the plan's figures (read the plan for its patterns)" }),
+  })
+  .openapi("PlanSummary");
+
+export const PlanPreview = PlanResult.extend({
+  reference: z.string().nullable(),
+  title: z.string().nullable(),
+  shear: z.string(),
+  grade: z.string(),
+  thickness: Thickness,
+  units: z.enum(["in", "mm"]),
+}).openapi("PlanPreview", { description: "A plan computed and answered, not stored" });
 
 export const WriteProgramsInput = z
   .object({
@@ -187,4 +249,7 @@ export const WrittenPrograms = z.object({ plan: z.string(), data: z.array(Progra
 
 export type PlanInputT = z.infer<typeof PlanInput>;
 export type PlanT = z.infer<typeof Plan>;
+export type PlanSummaryT = z.infer<typeof PlanSummary>;
+export type PlanResultT = z.infer<typeof PlanResult>;
+export type PlanPreviewT = z.infer<typeof PlanPreview>;
 export type WriteProgramsInputT = z.infer<typeof WriteProgramsInput>;

@@ -1,18 +1,33 @@
 /**
- * Plans: run the planner on order lines and the stock on hand for one shear, grade and
- * thickness; check every sheet pattern's cut program with the shear core; store the plan;
- * and, once, write its draft programs through the same path as any other program (checked,
- * stored, with their events), all or nothing.
+ * Plans: an order's blanks laid out on the stock on hand for one shear, grade and thickness.
+ * The web process only checks an order (its schema, the shear, the planner's limits), stores
+ * it as `queued` and queues it; a worker computes it (lib/queue/plan-jobs.ts). Previews are
+ * computed by a worker too, while the caller waits, and stored nowhere. Once complete, a
+ * plan's draft programs are written through the same path as any other program (checked,
+ * stored, with their events), all or nothing, once.
  */
 import { LockMode, type EntityManager } from "@mikro-orm/postgresql";
-import { Plan, Shop, type PlanEntity, type ShearEntity } from "../../entities";
-import { conflict, invalidRequest, notFound } from "../api/errors";
+import { Plan, Shop, type PlanEntity } from "../../entities";
+import { ApiError, conflict, invalidRequest, notFound } from "../api/errors";
 import { decodeCursor, page } from "../api/pagination";
-import { OrderRefused, planOrder, type PlannedOrder } from "../planner/order";
-import type { PlanInputT, PlanT, WriteProgramsInputT } from "../schemas/plan";
+import { waitForNotification } from "../db/notify";
+import { checkOrderLimits, OrderRefused, type PlanContext, type PlannedOrder } from "../planner/order";
+import { dequeuePlan, enqueuePlan, previewOnWorker, PreviewTimeout } from "../queue/plan-queue";
+import type { PlanInputT, PlanPreviewT, PlanResultT, PlanSummaryT, PlanT, WriteProgramsInputT } from "../schemas/plan";
 import { ProgramInput, type ProgramInputT, type ProgramT } from "../schemas/program";
 import { gradeByCode, gradeProfile, shearProfile } from "./catalog";
+import { recordEvent } from "./events";
 import { activeShear, createProgram } from "./programs";
+
+/** Notified with a plan's id when it ends (complete, failed, cancelled): `Prefer: wait` listens. */
+export const PLAN_DONE_CHANNEL = "shearwire_plan_done";
+/** Notified with a plan's id when it is cancelled: the worker computing it stops. */
+export const PLAN_CANCEL_CHANNEL = "shearwire_plan_cancel";
+/** The longest `Prefer: wait` honoured, in seconds. */
+export const MAX_WAIT_SECONDS = 10;
+
+const FINAL = new Set(["complete", "failed", "cancelled"]);
+const iso = (d: Date | null | undefined) => d?.toISOString() ?? null;
 
 /** The order's limits as a 422 naming the limit, the value and where. */
 export function refusal(err: OrderRefused) {
@@ -22,8 +37,8 @@ export function refusal(err: OrderRefused) {
 }
 
 /** A pattern whose program a cut program may not hold (too many groups, say) cannot be written: say so. */
-function releasabilityFindings(order: PlanInputT, planned: PlannedOrder): PlanT["findings"] {
-  const findings: PlanT["findings"] = [];
+function releasabilityFindings(order: PlanInputT, planned: PlannedOrder): PlanResultT["findings"] {
+  const findings: PlanResultT["findings"] = [];
   planned.patterns.forEach((p, i) => {
     const valid = ProgramInput.safeParse({
       reference: `plan/${p.key}`, shear: order.shear, grade: order.grade, thickness: order.thickness, units: order.units,
@@ -39,71 +54,173 @@ function releasabilityFindings(order: PlanInputT, planned: PlannedOrder): PlanT[
   return findings;
 }
 
-/** Plan without storing: the planner's answer in the caller's units, each pattern checked by the shear core. */
-export async function computePlan(em: EntityManager, shopId: string, input: PlanInputT): Promise<{ shear: ShearEntity; result: Omit<PlanT, "id" | "programs" | "createdAt"> }> {
+/** The planner's answer as the API shows it (with the cut-program schema's findings added). */
+export function planResultOf(order: PlanInputT, planned: PlannedOrder): PlanResultT {
+  return { ...planned, findings: [...releasabilityFindings(order, planned), ...planned.findings] };
+}
+
+/** Results stored before strips and pieces were kept as runs read as runs of one. */
+function normalised(result: Record<string, unknown> | null | undefined): PlanResultT | null {
+  if (!result) return null;
+  const r = result as unknown as PlanResultT;
+  return {
+    ...r,
+    patterns: r.patterns.map((p) => ({
+      ...p,
+      strips: p.strips.map((s) => ({ ...s, repeat: s.repeat ?? 1, pieces: s.pieces.map((piece) => ({ ...piece, count: piece.count ?? 1 })) })),
+    })),
+  };
+}
+
+function common(p: PlanEntity) {
+  const input = p.input as unknown as PlanInputT;
+  return {
+    id: p.id,
+    status: p.status as PlanT["status"],
+    reference: p.reference ?? null,
+    title: p.title ?? null,
+    shear: p.shear.id,
+    grade: input.grade,
+    thickness: input.thickness,
+    units: input.units,
+    progress: p.progress ?? null,
+    failure: (p.failure as PlanT["failure"]) ?? null,
+    attempts: p.attempts,
+    programs: p.programs ?? [],
+    createdAt: p.createdAt.toISOString(),
+    startedAt: iso(p.startedAt),
+    finishedAt: iso(p.finishedAt),
+  };
+}
+
+export function viewPlan(p: PlanEntity): PlanT {
+  return { ...common(p), result: normalised(p.result) };
+}
+
+/** A plan without its patterns, for lists and events. */
+export function viewPlanSummary(p: PlanEntity): PlanSummaryT {
+  const result = p.result as { coverage?: PlanResultT["coverage"]; summary?: PlanResultT["summary"] } | null;
+  return { ...common(p), coverage: result?.coverage ?? null, summary: result?.summary ?? null };
+}
+
+/** The shear and grade of an order, checked, and the order's limits (cheap: runs on the web process). */
+async function checkedOrder(em: EntityManager, shopId: string, input: PlanInputT): Promise<{ shearId: string; context: PlanContext }> {
   const [shear, grade] = await Promise.all([activeShear(em, shopId, input.shear, "plan"), gradeByCode(em, shopId, input.grade)]);
-  let planned: PlannedOrder;
+  const context = { shear: shearProfile(shear), grade: grade ? gradeProfile(grade) : null };
   try {
-    planned = planOrder(input, { shear: shearProfile(shear), grade: grade ? gradeProfile(grade) : null });
+    checkOrderLimits(input, context.shear);
   } catch (err) {
     if (err instanceof OrderRefused) throw refusal(err);
     throw err;
   }
-  const result: Omit<PlanT, "id" | "programs" | "createdAt"> = {
-    ...planned,
-    reference: input.reference ?? null,
-    title: input.title ?? null,
-    shear: input.shear,
-    grade: input.grade,
-    thickness: input.thickness,
-    units: input.units,
-    findings: [...releasabilityFindings(input, planned), ...planned.findings],
-  };
-  return { shear, result };
+  return { shearId: shear.id, context };
 }
 
-export function viewPlan(p: PlanEntity): PlanT {
-  return { id: p.id, ...(p.result as Omit<PlanT, "id" | "programs" | "createdAt">), programs: p.programs ?? [], createdAt: p.createdAt.toISOString() };
-}
-
+/** Store an order as a queued plan and queue it for a worker; answers at once. */
 export async function createPlan(em: EntityManager, shopId: string, input: PlanInputT): Promise<PlanT> {
-  const { shear, result } = await computePlan(em, shopId, input);
+  const { shearId } = await checkedOrder(em, shopId, input);
   const plan = em.create(Plan, {
-    shop: em.getReference(Shop, shopId), shear, reference: input.reference ?? null, title: input.title ?? null,
-    status: result.status, input: input as unknown as Record<string, unknown>, result: result as unknown as Record<string, unknown>,
+    shop: em.getReference(Shop, shopId), shear: shearId, reference: input.reference ?? null, title: input.title ?? null,
+    status: "queued", input: input as unknown as Record<string, unknown>, result: null, progress: null, failure: null,
   });
   await em.flush();
+  // Queued after the row is stored; if Redis is away, the worker's sweeper queues it later.
+  await enqueuePlan(plan.id).catch((err) => console.error(`[plans] queueing ${plan.id} failed; the sweeper will:`, err.message));
   return viewPlan(plan);
 }
 
-export async function getPlan(em: EntityManager, shopId: string, id: string): Promise<PlanEntity> {
-  const plan = await em.findOne(Plan, { id, shop: shopId });
+export async function findPlan(em: EntityManager, shopId: string, id: string): Promise<PlanEntity> {
+  const plan = await em.findOne(Plan, { id, shop: shopId }, { refresh: true });
   if (!plan) throw notFound("plan");
   return plan;
+}
+
+export async function getPlan(em: EntityManager, shopId: string, id: string): Promise<PlanT> {
+  return viewPlan(await findPlan(em, shopId, id));
+}
+
+/** The plan once it has ended, or as it is after `seconds` (whichever comes first). */
+export async function waitForPlan(em: EntityManager, shopId: string, id: string, seconds: number): Promise<PlanT> {
+  const deadline = Date.now() + Math.min(seconds, MAX_WAIT_SECONDS) * 1000;
+  for (;;) {
+    // Listen first, then look, so an ending in between still wakes this wait.
+    const left = deadline - Date.now();
+    const stop = new AbortController();
+    const heard = left > 0 ? waitForNotification(PLAN_DONE_CHANNEL, id, Math.min(left, 1_000), stop.signal) : null;
+    const plan = await findPlan(em.fork(), shopId, id);
+    if (FINAL.has(plan.status) || !heard) {
+      stop.abort();
+      return viewPlan(plan);
+    }
+    await heard;
+  }
 }
 
 export async function listPlans(em: EntityManager, shopId: string, f: { limit: number; cursor?: string }) {
   const before = decodeCursor(f.cursor);
   const rows = await em.find(Plan, { shop: shopId, ...(before ? { id: { $lt: before } } : {}) }, { orderBy: { id: "desc" }, limit: f.limit + 1 });
   const p = page(rows, f.limit);
-  return { data: p.data.map(viewPlan), next_cursor: p.next_cursor };
+  return { data: p.data.map(viewPlanSummary), next_cursor: p.next_cursor };
+}
+
+/** Stop a queued or running plan; a worker computing it stops at once. */
+export async function cancelPlan(em: EntityManager, shopId: string, id: string): Promise<PlanT> {
+  const plan = await findPlan(em, shopId, id);
+  const cancelled = await em.transactional(async (tx) => {
+    const row = await tx.findOneOrFail(Plan, { id: plan.id }, { lockMode: LockMode.PESSIMISTIC_WRITE, refresh: true });
+    if (FINAL.has(row.status)) {
+      throw conflict(`A ${row.status} plan cannot be cancelled.`, { currentStatus: row.status });
+    }
+    row.status = "cancelled";
+    row.finishedAt = new Date();
+    await tx.flush();
+    await recordEvent(tx, shopId, "plan.cancelled", row.id, { plan: viewPlanSummary(row) });
+    await tx.execute(`select pg_notify('${PLAN_CANCEL_CHANNEL}', ?), pg_notify('${PLAN_DONE_CHANNEL}', ?)`, [row.id, row.id]);
+    return row;
+  });
+  await dequeuePlan(plan.id).catch(() => undefined);
+  return viewPlan(cancelled);
+}
+
+/** Plan without storing anything: a worker computes it while the caller waits (under the same limits). */
+export async function previewPlan(em: EntityManager, shopId: string, input: PlanInputT): Promise<PlanPreviewT> {
+  const { context } = await checkedOrder(em, shopId, input);
+  let planned: PlannedOrder;
+  try {
+    planned = await previewOnWorker(input, context);
+  } catch (err) {
+    if (err instanceof PreviewTimeout) {
+      throw new ApiError(503, "planning-unavailable", "No planner answered in time",
+        `${err.message} Store the plan instead (POST /plans) and read it when it is done.`, {}, { "Retry-After": "30" });
+    }
+    // The worker's refusals and failures (a time limit, say) come back as messages of ours.
+    throw new ApiError(422, "plan-failed", "The plan could not be computed", (err as Error).message);
+  }
+  return {
+    ...planResultOf(input, planned),
+    reference: input.reference ?? null, title: input.title ?? null, shear: input.shear, grade: input.grade, thickness: input.thickness, units: input.units,
+  };
 }
 
 /** Write one draft program per sheet pattern (its repeats are the program's `sheet.count`), all or nothing, once. */
 export async function writePrograms(em: EntityManager, shopId: string, id: string, opts: WriteProgramsInputT = {}): Promise<{ plan: string; data: ProgramT[] }> {
-  const plan = await getPlan(em, shopId, id);
+  const plan = await findPlan(em, shopId, id);
   if (plan.programs?.length) {
     throw conflict("This plan's programs are already written.", { programs: plan.programs });
   }
   const view = viewPlan(plan);
-  if (!view.patterns.length) throw conflict("This plan has no sheet patterns to write: nothing could be placed.", { findings: view.findings });
+  if (view.status !== "complete" || !view.result) {
+    throw conflict(`This plan is ${view.status}: programs are written from a complete plan.`, { currentStatus: view.status });
+  }
+  const result = view.result;
+  if (!result.patterns.length) throw conflict("This plan has no sheet patterns to write: nothing could be placed.", { findings: result.findings });
   const prefix = opts.referencePrefix ?? plan.reference ?? plan.id;
   return em.transactional(async (tx) => {
     // One writer at a time per plan: a second request waits here, then finds the programs written.
     const row = await tx.findOneOrFail(Plan, { id: plan.id }, { lockMode: LockMode.PESSIMISTIC_WRITE, refresh: true });
     if (row.programs?.length) throw conflict("This plan's programs are already written.", { programs: row.programs });
     const written: ProgramT[] = [];
-    for (const p of view.patterns) {
+    for (const p of result.patterns) {
       const input: ProgramInputT = {
         reference: `${prefix}/${p.key}`,
         title: `${view.title ?? view.reference ?? "Plan"}: pattern ${p.key}, ${p.repeats} sheet${p.repeats > 1 ? "s" : ""}`.slice(0, 200),
@@ -121,7 +238,7 @@ export async function writePrograms(em: EntityManager, shopId: string, id: strin
       if (!valid.success) throw conflict(`Pattern ${p.key} cannot be written as a cut program: ${valid.error.issues[0].path.join(".")}: ${valid.error.issues[0].message}.`, { pattern: p.key });
       written.push(await createProgram(tx, shopId, valid.data));
     }
-    row.programs = written.map((w, i) => ({ pattern: view.patterns[i].key, id: w.id }));
+    row.programs = written.map((w, i) => ({ pattern: result.patterns[i].key, id: w.id }));
     await tx.flush();
     return { plan: plan.id, data: written };
   });

@@ -6,6 +6,8 @@
 import type { EntityManager, InferEntity, RequiredEntityData } from "@mikro-orm/postgresql";
 import bcrypt from "bcryptjs";
 import { Grade, Membership, Plan, Shear, Shop, User, type ShopEntity } from "../../entities";
+import { processStoredPlan } from "../../lib/queue/plan-jobs";
+import { planTimeLimitMs } from "../../lib/queue/plan-queue";
 import { createPlan, viewPlan } from "../../lib/services/plans";
 import type { Role } from "../../entities/Membership";
 import { GRADE_LIBRARY } from "../../lib/shear/grades";
@@ -106,5 +108,9 @@ export async function seedDemo(em: EntityManager): Promise<DemoSummary> {
   });
   const existing = await em.findOne(Plan, { shop: summary.shop.id }, { orderBy: { id: "asc" } });
   const plan = existing ? viewPlan(existing) : await createPlan(em, summary.shop.id, { ...DEMO_PLAN, shear: summary.shears[0].id });
+  if (plan.status === "queued") {
+    // This script is not the web server: it may plan right here, so the demo plan is ready when the console opens.
+    await processStoredPlan(() => em.fork(), plan.id, planTimeLimitMs());
+  }
   return { ...summary, plan: { id: plan.id, reference: plan.reference } };
 }

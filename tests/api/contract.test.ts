@@ -192,10 +192,11 @@ describe("programs", () => {
 describe("plans", () => {
   let planId: string;
 
-  it("plans, lists, reads and writes the programs", async () => {
-    const created = await api().post("/api/v1/plans").set(auth()).send(examplePlan(shop.shearId));
+  it("queues, waits, lists, reads, previews and writes the programs; cancels another", async () => {
+    const created = await api().post("/api/v1/plans").set(auth()).set("Prefer", "wait=10").send(examplePlan(shop.shearId));
     expectDocumented(planOps.createPlan, created);
     expect(created.status).toBe(201);
+    expect(created.body.status).toBe("complete");
     planId = created.body.id;
     expect(created.headers.location).toBe(`/api/v1/plans/${planId}`);
 
@@ -207,14 +208,25 @@ describe("plans", () => {
     expectDocumented(planOps.getPlan, read);
     expect(read.body).toEqual(created.body);
 
+    const preview = await api().post("/api/v1/plans/preview").set(auth()).send(examplePlan(shop.shearId));
+    expectDocumented(planOps.previewPlan, preview);
+    expect(preview.body.patterns).toEqual(created.body.result.patterns); // the same order plans the same, stored or not
+
     const written = await api().post(`/api/v1/plans/${planId}/programs`).set(auth()).send({ priority: 7 });
     expectDocumented(planOps.writePlanPrograms, written);
     expect(written.status).toBe(201);
-    expect(written.body.data).toHaveLength(created.body.patterns.length);
+    expect(written.body.data).toHaveLength(created.body.result.patterns.length);
 
     const again = await api().post(`/api/v1/plans/${planId}/programs`).set(auth()).send({});
     expectDocumented(planOps.writePlanPrograms, again);
     expect(again.status).toBe(409);
+
+    const queued = await api().post("/api/v1/plans").set(auth()).send(examplePlan(shop.shearId));
+    expectDocumented(planOps.createPlan, queued);
+    expect(queued.status).toBe(202);
+    const cancelled = await api().post(`/api/v1/plans/${queued.body.id}/cancel`).set(auth()).send({});
+    expectDocumented(planOps.cancelPlan, cancelled);
+    expect([200, 409]).toContain(cancelled.status); // 409 if the worker finished it first
   });
 });
 

@@ -45,7 +45,7 @@ function baseBody(op: Operation): unknown {
     case "updateProgram": return { title: "t", metadata: { line: "1" } };
     case "releaseProgram": return { acknowledge: [] };
     case "cancelProgram": return { reason: "r" };
-    case "createPlan": return examplePlan(shop.shearId);
+    case "createPlan": case "previewPlan": return examplePlan(shop.shearId);
     case "writePlanPrograms": return { referencePrefix: "P", metadata: { a: "b" } };
     case "claimProgram": return { waitSeconds: 0, leaseSeconds: 600 };
     case "heartbeatProgram": return {};
@@ -137,11 +137,11 @@ function requestFor(op: Operation, c: Case): { url: string; init: RequestInit } 
   return { url: url.toString(), init: { method: op.method.toUpperCase(), headers, body } };
 }
 
-/** The shop's rows in every table a request writes to (deliveries are left out: the worker writes those, in its own time). */
+/** The shop's rows in every table a request writes to (deliveries and plan events are left out: the worker writes those, in its own time). */
 async function rowCounts(): Promise<Record<string, number>> {
   const [row] = await (await testOrm()).em.fork().getConnection().execute<Record<string, string>[]>(
     `select (select count(*) from programs where shop_id = ?) as programs, (select count(*) from plans where shop_id = ?) as plans,
-            (select count(*) from events where shop_id = ?) as events, (select count(*) from webhook_endpoints where shop_id = ?) as endpoints,
+            (select count(*) from events where shop_id = ? and type not like 'plan.%') as events, (select count(*) from webhook_endpoints where shop_id = ?) as endpoints,
             (select count(*) from shears where shop_id = ?) as shears,
             (select count(*) from grades where shop_id = ?) as grades, (select count(*) from api_keys where shop_id = ?) as keys,
             (select coalesce(sum(revision), 0) from programs where shop_id = ?) as revisions,

@@ -9,13 +9,19 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { Event, Program } from "../../entities";
 import * as ops from "../../lib/api/operations/plans";
 import { BASE_URL } from "../support/env";
-import { closeTestOrm, createTestShop, exampleProgram, testOrm, type TestShop } from "../support/fixtures";
+import { closeTestOrm, createTestShop, exampleProgram, examplePlan, TEST_SHEAR, testOrm, type TestShop } from "../support/fixtures";
+import { largestOrder } from "../support/orders";
 import { expectDocumented } from "../support/openapi";
 
 let shop: TestShop;
 const api = () => request(BASE_URL);
 const auth = () => ({ Authorization: `Bearer ${shop.key}` });
-const plan = (body: object) => api().post("/api/v1/plans").set(auth()).send(body);
+/** Plan and wait for the answer (Prefer: wait); a complete plan's result is flattened into the body, beside its id. */
+async function plan(body: object) {
+  const res = await api().post("/api/v1/plans").set(auth()).set("Prefer", "wait=10").send(body);
+  if (res.status !== 201) return res;
+  return { ...res, status: res.status, headers: res.headers, raw: res.body, body: { id: res.body.id, planStatus: res.body.status, ...res.body.result, programs: res.body.programs } };
+}
 const write = (id: string, body: object = {}) => api().post(`/api/v1/plans/${id}/programs`).set(auth()).send(body);
 const sizeKey = (a: number, b: number) => (a <= b ? `${a}x${b}` : `${b}x${a}`);
 
@@ -31,14 +37,15 @@ describe("the worked example of our cut-program docs, as order lines", () => {
       stock: [{ length: 120, width: 48 }],
       blanks: [{ label: "panel", length: 16, width: 12, quantity: 56, canTurn: false }],
     });
-    expectDocumented(ops.createPlan, res);
     expect(res.status).toBe(201);
-    expect(res.body.status).toBe("complete");
+    expectDocumented(ops.createPlan, { ...res, body: (res as { raw?: unknown }).raw });
+    expect(res.body.planStatus).toBe("complete");
+    expect(res.body.coverage).toBe("complete");
     expect(res.body.summary).toMatchObject({ sheets: 2, patterns: 1, blanksAsked: 56, blanksPlanned: 56, extra: 0, short: 0, utilisationPct: 93.33 }); // worked example: 93.3 %
     const [p] = res.body.patterns;
     expect(p.repeats).toBe(2);
-    expect(p.strips).toHaveLength(4); // worked example: 4 strips 12 × 120
-    expect(p.strips.every((s: { pieces: unknown[] }) => s.pieces.length === 7)).toBe(true); // worked example: 7 blanks per strip
+    // Stored as runs: one strip repeated 4 times (worked example: 4 strips 12 × 120), one run of 7 blanks (worked example: 7 per strip).
+    expect(p.strips).toEqual([expect.objectContaining({ y: 0, height: 12, repeat: 4, pieces: [expect.objectContaining({ x: 0, length: 16, width: 12, count: 7 })] })]);
     expect(p.cuts.map((c: { backgauge: number; count: number; turn?: boolean }) => [c.backgauge, c.count, c.turn ?? false])).toEqual([[12, 3, false], [16, 7, true]]); // the worked example's program
     expect(p.strokes * p.repeats).toBe(62); // worked example: 62 strokes for two sheets
     expect(res.body.summary.estimateSeconds).toBe(p.check.estimate.seconds.total);
@@ -71,7 +78,7 @@ describe("mixed demand in millimetres", () => {
   it("writes programs that the shear core agrees make exactly the planned blanks, and no more", async () => {
     const res = await plan(body());
     expect(res.status).toBe(201);
-    expect(res.body.status).toBe("complete");
+    expect(res.body.coverage).toBe("complete");
     const planned = new Map<string, number>();
     res.body.blanks.forEach((b: { length: number; width: number; planned: number; quantity: number; extra: number }) => {
       expect(b.planned).toBe(b.quantity); // no allowance: exactly as asked
@@ -118,7 +125,7 @@ describe("findings instead of silent drops", () => {
       ],
     });
     expect(res.status).toBe(201);
-    expect(res.body.status).toBe("partial");
+    expect(res.body.coverage).toBe("partial");
     expect(res.body.findings).toEqual([
       expect.objectContaining({ code: "blank_unplaceable", severity: "error", pointer: "/blanks/0", actual: 2 }),
       expect.objectContaining({ code: "stock_short", severity: "error", pointer: "/blanks/1", actual: 2 }), // one 2000 × 1000 sheet holds 4
@@ -148,7 +155,7 @@ describe("inches and the shear's limits", () => {
       options: { trim: 0.25 },
     });
     expect(res.status).toBe(201);
-    expect(res.body.status).toBe("complete");
+    expect(res.body.coverage).toBe("complete");
     expect(res.body.findings).toEqual([]);
     for (const p of res.body.patterns) {
       expect(p.cuts[0]).toMatchObject({ backgauge: 0.25, scrap: true });
@@ -253,5 +260,111 @@ describe("writing the programs", () => {
     expect(await em.count(Program, { shop: shop.shopId, metadata: { plan: res.body.id } })).toBe(res.body.patterns.length);
     const read = await api().get(`/api/v1/plans/${res.body.id}`).set(auth());
     expect(read.body.programs).toHaveLength(res.body.patterns.length);
+  });
+});
+
+describe("plans are jobs", () => {
+  const read = (id: string) => api().get(`/api/v1/plans/${id}`).set(auth());
+  async function untilEnded(id: string, seconds = 60) {
+    const deadline = Date.now() + seconds * 1000;
+    for (;;) {
+      const res = await read(id);
+      if (!["queued", "running"].includes(res.body.status) || Date.now() > deadline) return res;
+      await new Promise((r) => setTimeout(r, 200));
+    }
+  }
+
+  it("answers 202 with the plan's URL at once; a worker computes it and sends plan.completed", async () => {
+    const res = await api().post("/api/v1/plans").set(auth()).send(examplePlan(shop.shearId));
+    expectDocumented(ops.createPlan, res);
+    expect(res.status).toBe(202);
+    expect(res.headers.location).toBe(`/api/v1/plans/${res.body.id}`);
+    expect(["queued", "running", "complete"]).toContain(res.body.status);
+    expect(res.body.result === null || res.body.status === "complete").toBe(true);
+    const done = await untilEnded(res.body.id);
+    expectDocumented(ops.getPlan, done);
+    expect(done.body).toMatchObject({ status: "complete", attempts: 1, failure: null, result: { coverage: "complete" } });
+    expect(done.body.progress).toMatchObject({ patterns: done.body.result.summary.patterns });
+    expect(Date.parse(done.body.finishedAt)).toBeGreaterThanOrEqual(Date.parse(done.body.startedAt));
+    const events = await (await testOrm()).em.fork().find(Event, { subjectId: res.body.id });
+    expect(events.map((e) => e.type)).toEqual(["plan.completed"]);
+  });
+
+  it("holds the answer for a small plan when asked (Prefer: wait), and says so", async () => {
+    const res = await api().post("/api/v1/plans").set(auth()).set("Prefer", "wait=10").send(examplePlan(shop.shearId));
+    expectDocumented(ops.createPlan, res);
+    expect(res.status).toBe(201);
+    expect(res.headers["preference-applied"]).toBe("wait=10");
+    expect(res.body.status).toBe("complete");
+  });
+
+  it("lists summaries, not layouts", async () => {
+    const list = await api().get("/api/v1/plans?limit=5").set(auth());
+    expectDocumented(ops.listPlans, list);
+    for (const p of list.body.data) {
+      expect(p).not.toHaveProperty("result");
+      expect(p).toHaveProperty("summary");
+    }
+  });
+
+  it("previews a plan without storing anything", async () => {
+    const em = (await testOrm()).em.fork();
+    const before = await em.count("Plan", { shop: shop.shopId });
+    const res = await api().post("/api/v1/plans/preview").set(auth()).send(examplePlan(shop.shearId));
+    expectDocumented(ops.previewPlan, res);
+    expect(res.status).toBe(200);
+    expect(res.body).toMatchObject({ coverage: "complete", shear: shop.shearId });
+    expect(res.body.patterns.length).toBeGreaterThan(0);
+    expect(await em.fork().count("Plan", { shop: shop.shopId })).toBe(before);
+  });
+
+  it("cancels a plan while it runs: the worker stops, plan.cancelled is sent, and it cannot be cancelled twice", async () => {
+    const res = await api().post("/api/v1/plans").set(auth()).send(largestOrder(shop.shearId, 7));
+    expect(res.status).toBe(202);
+    const cancelled = await api().post(`/api/v1/plans/${res.body.id}/cancel`).set(auth()).send({});
+    expectDocumented(ops.cancelPlan, cancelled);
+    expect(cancelled.status).toBe(200);
+    expect(cancelled.body.status).toBe("cancelled");
+    const again = await api().post(`/api/v1/plans/${res.body.id}/cancel`).set(auth()).send({});
+    expect(again.status).toBe(409);
+    expect(again.body.currentStatus).toBe("cancelled");
+    await new Promise((r) => setTimeout(r, 1_500));
+    const after = await read(res.body.id);
+    expect(after.body).toMatchObject({ status: "cancelled", result: null });
+    const events = await (await testOrm()).em.fork().find(Event, { subjectId: res.body.id });
+    expect(events.map((e) => e.type)).toEqual(["plan.cancelled"]);
+    expect((await write(res.body.id)).status).toBe(409); // no programs from a plan that never ended
+  });
+});
+
+describe("the planner's limits", () => {
+  const base = () => ({ shear: shop.shearId, grade: "A36", thickness: { value: 3 }, units: "mm", stock: [{ length: 2500, width: 1250 }], blanks: [{ label: "a", length: 100, width: 100, quantity: 1 }] });
+
+  it.each([
+    ["blankTypes", () => ({ ...base(), blanks: Array.from({ length: 201 }, (_, i) => ({ label: `b${i}`, length: 100 + i, width: 50, quantity: 1 })) }), 201],
+    ["stockSizes", () => ({ ...base(), stock: Array.from({ length: 21 }, (_, i) => ({ length: 2000 + i, width: 1000 })) }), 21],
+    ["totalPieces", () => ({ ...base(), blanks: [{ label: "a", length: 100, width: 100, quantity: 15_000 }, { label: "b", length: 50, width: 50, quantity: 5_001 }] }), 20_001],
+    ["sheetToBlade", () => ({ ...base(), stock: [{ length: 40_000, width: 1250 }] }), 12.903],
+    ["work", () => ({ ...base(), stock: [{ length: 500, width: 500 }], blanks: Array.from({ length: 200 }, (_, i) => ({ label: `b${i}`, length: 10.01 + i, width: 20.02 + i * 0.97, quantity: 1 })) }), null],
+  ])("refuses an order over %s with a 422 naming the limit and the value, storing nothing", async (limit, body, value) => {
+    const em = (await testOrm()).em.fork();
+    const before = await em.count("Plan", { shop: shop.shopId });
+    const res = await api().post("/api/v1/plans").set(auth()).send(body());
+    expect(res.status).toBe(422);
+    expect(res.body.limit).toBe(limit);
+    if (value !== null) expect(res.body.value).toBe(value);
+    expect(res.body.max).toEqual(expect.any(Number));
+    expect(res.body.detail).toContain(String(limit));
+    const preview = await api().post("/api/v1/plans/preview").set(auth()).send(body());
+    expect(preview.status).toBe(422);
+    expect(preview.body.limit).toBe(limit);
+    expect(await em.fork().count("Plan", { shop: shop.shopId })).toBe(before);
+  });
+
+  it("refuses a sheet side of more grid steps than the planner takes, on a shear long enough to cut it", async () => {
+    const long = (await api().post("/api/v1/shears").set(auth()).send({ ...TEST_SHEAR, name: `Long ${Date.now()}`, bladeLengthMm: 10_000 })).body.id;
+    const res = await api().post("/api/v1/plans").set(auth()).send({ ...base(), shear: long, stock: [{ length: 60_001, width: 1250 }] });
+    expect(res.status).toBe(422);
+    expect(res.body).toMatchObject({ limit: "gridSteps", value: 60_001, max: 60_000 });
   });
 });

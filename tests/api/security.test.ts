@@ -28,6 +28,7 @@ function bodyFor(op: Operation): object | undefined {
     case "validateProgram":
       return exampleProgram(mine.shearId);
     case "createPlan":
+    case "previewPlan":
       return examplePlan(mine.shearId);
     case "writePlanPrograms":
       return {};
@@ -88,7 +89,7 @@ beforeAll(async () => {
     request(BASE_URL).post(path).set("Authorization", `Bearer ${theirs.key}`).send(body).expect(201);
   foreign.prg = (await post("/api/v1/programs", exampleProgram(theirs.shearId))).body.id;
   foreign.shr = theirs.shearId;
-  foreign.pln = (await post("/api/v1/plans", examplePlan(theirs.shearId))).body.id;
+  foreign.pln = (await request(BASE_URL).post("/api/v1/plans").set("Authorization", `Bearer ${theirs.key}`).send(examplePlan(theirs.shearId)).expect(202)).body.id;
   const grades = await request(BASE_URL).get("/api/v1/grades?limit=1").set("Authorization", `Bearer ${theirs.key}`).expect(200);
   foreign.grd = grades.body.data[0].id;
   foreign.whe = (await post("/api/v1/webhook-endpoints", { url: "http://127.0.0.1:9/theirs" })).body.endpoint.id;

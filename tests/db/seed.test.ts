@@ -38,8 +38,9 @@ describe("demo seed", () => {
   it("plans the demo order on the first shear: everything placed, within the sheets on hand", async () => {
     const demo = await seedDemo(orm.em.fork());
     const plan = await orm.em.fork().findOneOrFail(Plan, { id: demo.plan.id });
-    const result = plan.result as { status: string; findings: unknown[]; stock: { count: number | null; used: number }[]; summary: { short: number } };
-    expect(result.status).toBe("complete");
+    expect(plan.status).toBe("complete");
+    const result = plan.result as { coverage: string; findings: unknown[]; stock: { count: number | null; used: number }[]; summary: { short: number } };
+    expect(result.coverage).toBe("complete");
     expect(result.summary.short).toBe(0);
     for (const s of result.stock) if (s.count !== null) expect(s.used).toBeLessThanOrEqual(s.count);
   });

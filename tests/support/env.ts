@@ -21,6 +21,8 @@ export function testAppEnv(databaseUrlOverride = DATABASE_URL): NodeJS.ProcessEn
     SHEARWIRE_WEBHOOK_TIME_SCALE: "0.001",
     SHEARWIRE_WEBHOOK_DISABLE_AFTER: "3",
     SHEARWIRE_PRIVATE_RECEIVERS: LOOPBACK_ONLY,
+    // A plan job's lock: short, so a test that kills a worker mid-plan sees another take it over within seconds.
+    SHEARWIRE_PLAN_LOCK_MS: "3000",
     SHEARWIRE_QUIET: "1",
   };
 }

@@ -8,7 +8,7 @@ import { memberAction } from "@/lib/auth/action";
 import { PlanInput } from "@/lib/schemas/plan";
 import { z } from "@/lib/schemas/zod";
 import { parseBlanksCsv, type RowError } from "@/lib/services/import";
-import { createPlan, writePrograms } from "@/lib/services/plans";
+import { cancelPlan, createPlan, writePrograms } from "@/lib/services/plans";
 
 
 const MAX_BYTES = 1_048_576;
@@ -90,4 +90,12 @@ export const writeProgramsAction = memberAction("programs:write")
     revalidatePath(`/console/plans/${parsedInput.plan}`);
     revalidatePath("/console/programs");
     return { message: `${written.data.length} draft program${written.data.length === 1 ? "" : "s"} written.` };
+  });
+
+export const cancelPlanAction = memberAction("programs:write")
+  .inputSchema(zfd.formData({ plan: zfd.text(z.string().max(64)) }))
+  .action(async ({ parsedInput, ctx: { member, em } }) => {
+    await cancelPlan(em, member.shopId, parsedInput.plan);
+    revalidatePath(`/console/plans/${parsedInput.plan}`);
+    return { message: "Cancelled." };
   });

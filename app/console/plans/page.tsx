@@ -20,11 +20,15 @@ export default async function Plans() {
           <tr key={p.id}>
             <Td><Link href={`/console/plans/${p.id}`} className="text-edge hover:underline">{p.reference ?? p.id}</Link>{p.title ? <span className="text-ink-muted"> · {p.title}</span> : null}</Td>
             <Td className="text-ink-muted">{when(p.createdAt)}</Td>
-            <Td><Badge value={p.status === "complete" ? "pass" : "warn"} label={p.status} /></Td>
-            <Td mono>{p.summary.sheets}</Td>
-            <Td mono>{p.summary.patterns}</Td>
-            <Td mono>{p.summary.blanksPlanned} / {p.summary.blanksAsked}</Td>
-            <Td mono>{p.summary.utilisationPct} %</Td>
+            <Td>
+              {p.status === "complete"
+                ? <Badge value={p.coverage === "complete" ? "pass" : "warn"} label={p.coverage === "complete" ? "complete" : "partial"} />
+                : <Badge value={p.status === "running" || p.status === "queued" ? "running" : p.status === "failed" ? "fail" : "cancelled"} label={p.status} />}
+            </Td>
+            <Td mono>{p.summary?.sheets ?? "—"}</Td>
+            <Td mono>{p.summary?.patterns ?? (p.progress ? `${p.progress.patterns}…` : "—")}</Td>
+            <Td mono>{p.summary ? `${p.summary.blanksPlanned} / ${p.summary.blanksAsked}` : p.progress ? `${p.progress.piecesPlaced} / ${p.progress.piecesWanted}…` : "—"}</Td>
+            <Td mono>{p.summary ? `${p.summary.utilisationPct} %` : "—"}</Td>
             <Td>{p.programs.length ? `${p.programs.length} written` : <span className="text-ink-muted">not yet</span>}</Td>
           </tr>
         ))}

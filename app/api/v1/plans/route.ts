@@ -1,4 +1,5 @@
 import { createPlan, listPlans } from "@/lib/api/operations/plans";
+import { preferredWait } from "@/lib/api/prefer";
 import { route } from "@/lib/api/route";
 import * as plans from "@/lib/services/plans";
 
@@ -6,7 +7,13 @@ export const GET = route(listPlans, async ({ em, principal, query }) => ({
   body: await plans.listPlans(em, principal.shopId, query),
 }));
 
-export const POST = route(createPlan, async ({ em, principal, body }) => {
-  const plan = await plans.createPlan(em, principal.shopId, body);
-  return { status: 201, body: plan, headers: { Location: `/api/v1/plans/${plan.id}` } };
+export const POST = route(createPlan, async ({ em, principal, body, request }) => {
+  let plan = await plans.createPlan(em, principal.shopId, body);
+  const headers: Record<string, string> = { Location: `/api/v1/plans/${plan.id}` };
+  const wait = preferredWait(request.headers.get("prefer"), plans.MAX_WAIT_SECONDS);
+  if (wait !== null) {
+    plan = await plans.waitForPlan(em, principal.shopId, plan.id, wait);
+    headers["Preference-Applied"] = `wait=${wait}`;
+  }
+  return { status: plan.status === "complete" && wait !== null ? 201 : 202, body: plan, headers };
 });

@@ -2,6 +2,7 @@ import Link from "next/link";
 import { notFound } from "next/navigation";
 import { CutDrawing } from "@/components/console/CutDrawing";
 import { WritePrograms } from "@/components/console/PlanActions";
+import { PlanProgress } from "@/components/console/PlanProgress";
 import { SafetyNote } from "@/components/SafetyNote";
 import { Badge, PageHeader, Stat, Table, Td } from "@/components/ui";
 import { ApiError } from "@/lib/api/errors";
@@ -9,7 +10,8 @@ import { can } from "@/lib/auth/roles";
 import { currentMember } from "@/lib/auth/session";
 import { requestEm } from "@/lib/db/orm";
 import { PLAN_OBJECTIVE_LABELS } from "@/lib/schemas/enums";
-import { getPlan, viewPlan } from "@/lib/services/plans";
+import type { PlanResultT } from "@/lib/schemas/plan";
+import { getPlan } from "@/lib/services/plans";
 import { programLayout } from "@/lib/shear";
 
 export const metadata = { title: "Plan" };
@@ -19,22 +21,36 @@ const fmtTime = (s: number) => (s >= 3600 ? `${Math.floor(s / 3600)} h ${Math.ro
 export default async function PlanPage({ params }: { params: Promise<{ id: string }> }) {
   const { id } = await params;
   const member = await currentMember();
-  const entity = await getPlan(await requestEm(), member.shopId, id).catch((err) => {
+  const view = await getPlan(await requestEm(), member.shopId, id).catch((err) => {
     if (err instanceof ApiError && err.status === 404) notFound();
     throw err;
   });
-  const plan = viewPlan(entity);
-  const u = plan.units;
+  const u = view.units;
+  const header = (badge: { value: string; label: string }, objective?: string) => (
+    <>
+      <p className="mb-1 text-xs"><Link href="/console/plans" className="text-edge hover:underline">← Plans</Link></p>
+      <PageHeader title={`${view.reference ?? view.id}${view.title ? ` · ${view.title}` : ""}`}
+        lead={<span className="font-mono text-xs">{view.id} · {view.grade} · {"gauge" in view.thickness ? `${view.thickness.gauge} ga` : `${view.thickness.value} ${u}`}{objective ? ` · ${objective}` : ""}</span>}>
+        <Badge value={badge.value} label={badge.label} />
+      </PageHeader>
+    </>
+  );
+  if (view.status !== "complete" || !view.result) {
+    return (
+      <>
+        {header({ value: view.status === "failed" ? "fail" : view.status === "cancelled" ? "cancelled" : "running", label: view.status })}
+        <PlanProgress id={view.id} initial={{ status: view.status, progress: view.progress, failure: view.failure, attempts: view.attempts, startedAt: view.startedAt }} canCancel={can(member.role, "programs:write")} />
+      </>
+    );
+  }
+  const plan: PlanResultT & { id: string; reference: string | null; programs: { pattern: string; id: string }[] } = { ...view.result, id: view.id, reference: view.reference, programs: view.programs };
   const s = plan.summary;
   const written = new Map(plan.programs.map((p) => [p.pattern, p.id]));
 
   return (
     <>
-      <p className="mb-1 text-xs"><Link href="/console/plans" className="text-edge hover:underline">← Plans</Link></p>
-      <PageHeader title={`${plan.reference ?? plan.id}${plan.title ? ` · ${plan.title}` : ""}`}
-        lead={<span className="font-mono text-xs">{plan.id} · {plan.grade} · {"gauge" in plan.thickness ? `${plan.thickness.gauge} ga` : `${plan.thickness.value} ${u}`} · {PLAN_OBJECTIVE_LABELS[plan.options.objective]}{plan.options.trim ? ` · trim ${plan.options.trim} ${u}` : ""}</span>}>
-        <Badge value={plan.status === "complete" ? "pass" : "warn"} label={plan.status} />
-      </PageHeader>
+      {header({ value: plan.coverage === "complete" ? "pass" : "warn", label: plan.coverage === "complete" ? "complete" : "partial" },
+        `${PLAN_OBJECTIVE_LABELS[plan.options.objective]}${plan.options.trim ? ` · trim ${plan.options.trim} ${u}` : ""}`)}
 
       <div className="mb-6 grid gap-3 sm:grid-cols-3 lg:grid-cols-6">
         <Stat label="Sheets" value={s.sheets} hint={`${s.patterns} pattern${s.patterns === 1 ? "" : "s"}`} />
@@ -62,7 +78,9 @@ export default async function PlanPage({ params }: { params: Promise<{ id: strin
 
           {plan.patterns.map((p) => {
             const faulty = [...new Set(p.check.findings.map((f) => /^\/cuts\/(\d+)/.exec(f.pointer)?.[1]).filter(Boolean).map(Number))];
-            const marks = p.strips.flatMap((st) => st.pieces.map((pc) => ({ x: pc.x, y: pc.y, w: pc.length, h: pc.width, text: pc.label })));
+            // Strips and pieces come as runs (repeat, count): each copy is one height or one length further on.
+            const marks = p.strips.flatMap((st) => Array.from({ length: st.repeat }, (_, k) => st.pieces.flatMap((pc) =>
+              Array.from({ length: pc.count }, (_, i) => ({ x: pc.x + i * pc.length, y: pc.y + k * st.height, w: pc.length, h: pc.width, text: pc.label })))).flat());
             const reusable = p.offcuts.filter((o) => o.reusable).map((o) => ({ x: o.x, y: o.y, w: o.length, h: o.width }));
             const programId = written.get(p.key);
             return (

@@ -3,5 +3,5 @@ import { route } from "@/lib/api/route";
 import * as plans from "@/lib/services/plans";
 
 export const GET = route(getPlan, async ({ em, principal, params }) => ({
-  body: plans.viewPlan(await plans.getPlan(em, principal.shopId, params.id)),
+  body: await plans.getPlan(em, principal.shopId, params.id),
 }));

@@ -1,0 +1,7 @@
+import { cancelPlan } from "@/lib/api/operations/plans";
+import { route } from "@/lib/api/route";
+import * as plans from "@/lib/services/plans";
+
+export const POST = route(cancelPlan, async ({ em, principal, params }) => ({
+  body: await plans.cancelPlan(em, principal.shopId, params.id),
+}));

@@ -187,21 +187,26 @@ describe("sign-in throttling", () => {
     const context = await browser.newContext();
     const page = await context.newPage();
     await page.goto(`${BASE_URL}/signin`);
+    const wrong = () => testOrm().then((o) => o.em.fork().count(SignInAttempt, { email, outcome: "wrong-password" }));
     for (let i = 0; i < SIGN_IN_LIMITS.perAccount; i++) {
       await page.getByLabel("E-mail").fill(email);
       await page.getByLabel("Password").fill(`wrong-${i}`);
-      await Promise.all([
-        page.waitForResponse((r) => r.url().includes("/api/auth/callback/credentials")),
-        page.getByRole("button", { name: "Sign in" }).click(),
-      ]);
-      await page.getByRole("alert").filter({ hasText: "do not match" }).waitFor();
+      const answered = page.waitForResponse((r) => r.url().includes("/api/auth/callback/credentials"));
+      await page.getByRole("button", { name: "Sign in" }).click();
+      await answered;
+      // Each wrong password is counted on the server before the next one goes.
+      for (let t = 0; t < 100 && (await wrong()) < i + 1; t++) await new Promise((r) => setTimeout(r, 100));
+      expect(await wrong(), `wrong passwords recorded after attempt ${i + 1}`).toBe(i + 1);
       await page.getByRole("button", { name: "Sign in" }).and(page.locator(":enabled")).waitFor();
     }
     // Now even the right password is refused, with a clear message.
     await page.getByLabel("E-mail").fill(email);
     await page.getByLabel("Password").fill(TEST_PASSWORD);
+    const answered = page.waitForResponse((r) => r.url().includes("/api/auth/callback/credentials"));
     await page.getByRole("button", { name: "Sign in" }).click();
-    await page.getByRole("alert").filter({ hasText: /Too many failed sign-ins for this account\. Try again in \d+ minutes?/ }).waitFor();
+    expect((await answered).status()).toBe(401);
+    await page.getByRole("alert").filter({ hasText: /Too many failed sign-ins for this account\. Try again in \d+ minutes?/ }).waitFor({ timeout: 10_000 })
+      .catch(async (err) => { throw new Error(`${err.message}; alerts: ${JSON.stringify(await page.getByRole("alert").allTextContents())}, at ${page.url()}`); });
     expect(page.url()).toMatch(/\/signin/);
     const attempts = await (await testOrm()).em.fork().find(SignInAttempt, { email });
     expect(attempts.filter((a) => a.outcome === "wrong-password")).toHaveLength(SIGN_IN_LIMITS.perAccount);

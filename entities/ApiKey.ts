@@ -19,7 +19,7 @@ export const ApiKey = defineEntity({
     id: p.string().primary().onCreate(() => newId("apiKey")),
     shop: () => p.manyToOne(Shop).deleteRule("cascade"),
     name: p.text(),
-    /** the first characters of the secret, safe to show (e.g. "swk_live_7KQ2") */
+    /** the first characters of the secret, safe to show (e.g. "swk_7KQ2"; keys made before 2026-12 start "swk_live_") */
     prefix: p.string(),
     /** hex SHA-256 of the whole secret */
     hash: p.string().unique().hidden(),

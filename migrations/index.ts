@@ -14,6 +14,7 @@ import { Migration20261202160834_console_sessions } from "./Migration20261202160
 import { Migration20261202160000_shear_crown_baseline } from "./Migration20261202160000_shear_crown_baseline";
 import { Migration20261202163000_backgauge_repeatability } from "./Migration20261202163000_backgauge_repeatability";
 import { Migration20261202170059_plan_jobs } from "./Migration20261202170059_plan_jobs";
+import { Migration20261202180135_attempt_headers } from "./Migration20261202180135_attempt_headers";
 
 export const migrationsList: MigrationObject[] = [
   { name: "Migration20261201234604_initial", class: Migration20261201234604_initial },
@@ -26,4 +27,5 @@ export const migrationsList: MigrationObject[] = [
   { name: "Migration20261202160000_shear_crown_baseline", class: Migration20261202160000_shear_crown_baseline },
   { name: "Migration20261202163000_backgauge_repeatability", class: Migration20261202163000_backgauge_repeatability },
   { name: "Migration20261202170059_plan_jobs", class: Migration20261202170059_plan_jobs },
+  { name: "Migration20261202180135_attempt_headers", class: Migration20261202180135_attempt_headers },
 ];

@@ -4,7 +4,7 @@
  * shear core's cycle estimate (sped up by --speed), keeps the lease with heartbeats,
  * reports progress and completion. Stopped and started again, it picks up the program it
  * was running (its state is kept in a small file) if its lease has not run out.
- *   npm run gateway:sim -- --shear shr_… [--key swk_live_…] [--url http://127.0.0.1:3000] [--speed 20] [--once]
+ *   npm run gateway:sim -- --shear shr_… [--key swk_…] [--url http://127.0.0.1:3000] [--speed 20] [--once]
  */
 import { existsSync, readFileSync, rmSync, writeFileSync } from "node:fs";
 import os from "node:os";
@@ -20,7 +20,7 @@ const { values } = parseArgs({
 const shear = values.shear;
 const key = values.key ?? process.env.SHEARWIRE_GATEWAY_KEY;
 if (!shear || !key) {
-  console.error("usage: npm run gateway:sim -- --shear shr_… --key swk_live_… (or SHEARWIRE_GATEWAY_KEY) [--speed 20] [--once]");
+  console.error("usage: npm run gateway:sim -- --shear shr_… --key swk_… (or SHEARWIRE_GATEWAY_KEY) [--speed 20] [--once]");
   process.exit(2);
 }
 const base = (values.url ?? process.env.SHEARWIRE_BASE_URL ?? "http://127.0.0.1:3000").replace(/\/$/, "");

@@ -2,6 +2,7 @@ import Link from "next/link";
 import type { ReactNode } from "react";
 import { LogoMark } from "@/components/Logo";
 import { Nav } from "@/components/console/Nav";
+import { NavDrawer } from "@/components/console/NavDrawer";
 import { SignOut } from "@/components/console/SignOut";
 import { currentMember } from "@/lib/auth/session";
 import { switchShop } from "./actions";
@@ -11,9 +12,10 @@ export const dynamic = "force-dynamic";
 export default async function ConsoleLayout({ children }: { children: ReactNode }) {
   const member = await currentMember();
   return (
-    <div className="grid min-h-screen grid-cols-[13rem_1fr]">
-      <aside className="flex flex-col gap-6 border-r border-scale-200 bg-scale-100 px-3 py-4">
-        <Link href="/console" className="flex items-center gap-2 px-2 font-semibold"><LogoMark size={22} /> Shearwire</Link>
+    <div className="min-h-screen lg:grid lg:grid-cols-[13rem_minmax(0,1fr)]">
+      <a href="#main" className="sr-only z-30 rounded bg-white px-3 py-2 text-sm focus:not-sr-only focus:fixed focus:left-2 focus:top-2">Skip to the page</a>
+      <NavDrawer>
+        <Link href="/console" className="hidden items-center gap-2 px-2 font-semibold lg:flex"><LogoMark size={22} /> Shearwire</Link>
         <form action={switchShop} className="px-2">
           <label className="text-[11px] uppercase tracking-wide text-ink-muted" htmlFor="shop">Shop</label>
           {member.shops.length > 1 ? (
@@ -33,8 +35,8 @@ export default async function ConsoleLayout({ children }: { children: ReactNode 
           <p className="text-ink-muted">{member.email} · <span data-testid="role">{member.role}</span></p>
           <SignOut />
         </div>
-      </aside>
-      <div className="min-w-0 px-8 py-6">{children}</div>
+      </NavDrawer>
+      <main id="main" className="min-w-0 px-4 py-4 sm:px-6 lg:px-8 lg:py-6">{children}</main>
     </div>
   );
 }

@@ -4,7 +4,7 @@ import { ApiReference } from "@scalar/nextjs-api-reference";
 // no assistant; "try it" sends to this server with the API key you enter.
 const palette = `
 .light-mode, .light-mode .dark-mode {
-  --scalar-color-accent: #0f8a8f;
+  --scalar-color-accent: #0b777c;
   --scalar-background-1: #ffffff;
   --scalar-background-2: #f6f7f8;
   --scalar-background-3: #eceef1;

@@ -6,6 +6,7 @@ import { useState } from "react";
 import { useForm, type FieldValues, type Resolver } from "react-hook-form";
 import { saveGrade, saveShear } from "@/app/console/catalog-actions";
 import { GAUGE_FAMILIES, GRADE_FAMILIES } from "@/lib/schemas/enums";
+import { GAUGE_SYSTEM_WORDS } from "./words";
 import { GradeInput, GradePatch } from "@/lib/schemas/grade";
 import { ShearInput, ShearPatch } from "@/lib/schemas/shear";
 
@@ -99,7 +100,7 @@ function CatalogForm({ fields, schema, initial, save, editing }: {
             <span className="text-xs">{f.label}{f.unit ? ` (${f.unit})` : ""}{f.optional ? "" : " *"}</span>
             {f.kind === "select" ? (
               <select {...form.register(f.name)} className="rounded border border-scale-300 px-2 py-1">
-                {f.options!.map((o) => <option key={o} value={o}>{o || "none"}</option>)}
+                {f.options!.map((o) => <option key={o} value={o}>{o ? (f.name === "gaugeFamily" ? `${o}: ${GAUGE_SYSTEM_WORDS[o]}` : o) : "none"}</option>)}
               </select>
             ) : (
               <input {...form.register(f.name)} inputMode={f.kind === "text" ? undefined : "decimal"} disabled={editing && f.name === "code"}

@@ -56,7 +56,12 @@ export function CutDrawing({ sheet, layout, units, faultyGroups = [], marks = []
       <figcaption className="mt-2 flex flex-wrap gap-4 text-xs text-ink-muted">
         <span><i className="mr-1 inline-block h-2.5 w-2.5 bg-edge-light align-middle" />blanks</span>
         <span><i className="mr-1 inline-block h-2.5 w-2.5 bg-caution-light align-middle" />trim (scrap)</span>
-        <span><i className="mr-1 inline-block h-2.5 w-2.5 bg-scale-300 align-middle" />offcut</span>
+        <span>
+          <svg width="10" height="10" viewBox="0 0 10 10" aria-hidden="true" className="mr-1 inline-block align-middle">
+            <rect width="10" height="10" fill="#ffffff" stroke="#8d97a4" strokeWidth="1" />
+            <path d="M-1 3L3 -1M-1 8L8 -1M2 11L11 2M7 11L11 7" stroke="#bcc3cc" strokeWidth="1.4" />
+          </svg>offcut (hatched, as on the sheet)
+        </span>
         {reusable.length > 0 && <span><i className="mr-1 inline-block h-2.5 w-2.5 border border-dashed border-caution align-middle" />reusable offcut</span>}
         <span><i className="mr-1 inline-block h-0.5 w-4 bg-fault align-middle" />cuts with a finding</span>
         {lines.some((line) => line.partial) && <span><i className="mr-1 inline-block h-0.5 w-4 border-t border-dashed border-edge align-middle" />partial strokes (sever nothing)</span>}

@@ -36,17 +36,17 @@ export function PlanForm({ shears, grades }: { shears: { id: string; name: strin
           <label htmlFor="plan-thickness">Thickness</label>
           <div className="flex gap-1">
             <input id="plan-thickness" name="thickness" required inputMode="decimal" placeholder="3" className={`${input} min-w-0 flex-1`} />
-            <select name="thicknessKind" defaultValue={"value"} aria-label="Thickness as" className={input}><option value="value">value</option><option value="gauge">gauge</option></select>
-            <select name="units" defaultValue={"mm"} aria-label="Units" className={input}><option value="mm">mm</option><option value="in">in</option></select>
+            <select name="thicknessKind" defaultValue={"value"} aria-label="The thickness is" className={input}><option value="value">a size in the units</option><option value="gauge">a gauge number</option></select>
+            <select name="units" defaultValue={"mm"} aria-label="Units of every size in the plan" className={input}><option value="mm">mm</option><option value="in">in</option></select>
           </div>
         </div>
       </div>
       <div className="grid gap-3 sm:grid-cols-2">
-        <label className="grid gap-1">Stock on hand: one size per line, <code>length, width, count</code> (leave the count out for as many as needed)
+        <label className="grid gap-1">Stock on hand, in the plan&apos;s units: one size per line, <code>length, width, count</code> (leave the count out for as many as needed)
           <textarea name="stock" required rows={4} defaultValue={"2500, 1250, 10\n3000, 1500"} className={`${input} font-mono text-xs`} />
         </label>
         <div className="grid gap-2">
-          <label className="grid gap-1">Cut list (.csv): <code>label, length, width, quantity, can_turn</code>
+          <label className="grid gap-1">Cut list (.csv), sizes in the plan&apos;s units: <code>label, length, width, quantity, can_turn</code> (can_turn: no when grain or finish must follow the sheet)
             <input ref={file} type="file" name="file" accept=".csv,text/csv" />
           </label>
           <label className="grid gap-1">…or paste its rows (with the header line)
@@ -59,9 +59,9 @@ export function PlanForm({ shears, grades }: { shears: { id: string; name: strin
         <label className="grid gap-1">Objective
           <select name="objective" defaultValue={"fewest_sheets"} className={input}>{Object.entries(PLAN_OBJECTIVE_LABELS).map(([v, l]) => <option key={v} value={v}>{l}</option>)}</select>
         </label>
-        <label className="grid gap-1">Trim first edge by <input name="trim" inputMode="decimal" placeholder="0" className={input} /></label>
+        <label className="grid gap-1">Trim the first edge by (plan&apos;s units) <input name="trim" inputMode="decimal" placeholder="0" className={input} /></label>
         <label className="grid gap-1">Over-production allowed (%) <input name="overProductionPct" inputMode="decimal" placeholder="0" className={input} /></label>
-        <div className="grid gap-1">Keep offcuts of at least
+        <div className="grid gap-1">Keep offcuts of at least (plan&apos;s units)
           <div className="flex gap-1">
             <input name="reusableLength" aria-label="Reusable offcut length" inputMode="decimal" placeholder="length" className={`${input} w-full`} />
             <input name="reusableWidth" aria-label="Reusable offcut width" inputMode="decimal" placeholder="width" className={`${input} w-full`} />

@@ -17,6 +17,8 @@ const columns = [
   col.accessor("updatedAt", { header: "Updated", cell: (c) => <span className="font-mono text-xs">{when(c.getValue())}</span> }),
 ];
 
-export function ProgramsTable({ status }: { status?: string }) {
-  return <LiveTable<Row> url={`/console/data/programs${status ? `?status=${status}` : ""}`} columns={columns} empty="No programs yet. Send one with POST /api/v1/programs, or upload a cut list." testId="program-row" />;
+export function ProgramsTable({ status, search }: { status?: string; search?: string }) {
+  const query = new URLSearchParams({ ...(status ? { status } : {}), ...(search ? { search } : {}) }).toString();
+  return <LiveTable<Row> url={`/console/data/programs${query ? `?${query}` : ""}`} columns={columns} noun="programs"
+    empty={search || status ? "No programs match." : "No programs yet. Send one with POST /api/v1/programs, upload a cut list, or write them from a plan."} testId="program-row" />;
 }

@@ -20,5 +20,5 @@ export function RequestTable({ query, keyNames }: { query: string; keyNames: Rec
     col.accessor("keyId", { header: "Key", cell: (c) => (c.getValue() ? keyNames[c.getValue()!] ?? c.getValue() : "—") }),
     col.accessor("id", { header: "Request id", cell: (c) => <Link className="font-mono text-xs text-edge hover:underline" href={`/console/logs/${c.getValue()}`}>{c.getValue()}</Link> }),
   ];
-  return <LiveTable<Row> url={`/console/data/requests?${query}`} columns={columns} empty="No requests match." testId="request-row" />;
+  return <LiveTable<Row> url={`/console/data/requests?${query}`} columns={columns} noun="requests" empty="No requests match. Calls to the API with a key of this shop appear here within a second." testId="request-row" />;
 }

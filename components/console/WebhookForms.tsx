@@ -1,19 +1,43 @@
 "use client";
 
 import { useRouter } from "next/navigation";
+import { useState } from "react";
 import {
-  createEndpointAction, eventTypesAction, resendAction, rotateSecretAction, setEnabledAction, testEndpointAction,
+  createEndpointAction, resendAction, rotateSecretAction, setEnabledAction, testEndpointAction, updateEndpointAction,
 } from "@/app/console/webhooks/actions";
 import { ActionMessage, FieldError, useConsoleForm, type ConsoleResult } from "./useConsoleForm";
 
 function Secret({ result }: { result: ConsoleResult<{ secret?: string }> }) {
   const secret = result.data?.secret;
+  const [copied, setCopied] = useState(false);
   return secret ? (
-    <p className="mt-1 text-sm">Signing secret, shown this once: <code data-testid="webhook-secret" className="break-all rounded bg-scale-100 px-1.5 py-0.5 text-xs">{secret}</code></p>
+    <div className="mt-1 text-sm">
+      <p>Signing secret, shown this once: copy it into the receiver to verify signatures.</p>
+      <div className="mt-1 flex items-center gap-2">
+        <code data-testid="webhook-secret" className="flex-1 break-all rounded bg-scale-100 px-1.5 py-0.5 text-xs">{secret}</code>
+        <button type="button" onClick={async () => { await navigator.clipboard?.writeText(secret); setCopied(true); }}
+          className="rounded border border-scale-300 px-2 py-0.5 text-xs">{copied ? "Copied" : "Copy"}</button>
+      </div>
+    </div>
   ) : null;
 }
 
-export function NewEndpointForm({ types }: { types: readonly string[] }) {
+/** The event types to tick, each with what it says. */
+function EventTypeBoxes({ types, words, chosen = [] }: { types: readonly string[]; words: Record<string, string>; chosen?: string[] }) {
+  return (
+    <fieldset className="grid gap-1">
+      <legend className="mb-1">Events (none ticked = every event)</legend>
+      {types.map((t) => (
+        <label key={t} className="flex items-start gap-1.5 text-xs">
+          <input type="checkbox" name="eventTypes" value={t} defaultChecked={chosen.includes(t)} className="mt-0.5" />
+          <span><span className="font-mono">{t}</span> <span className="text-ink-muted">· {words[t]}</span></span>
+        </label>
+      ))}
+    </fieldset>
+  );
+}
+
+export function NewEndpointForm({ types, words }: { types: readonly string[]; words: Record<string, string> }) {
   const router = useRouter();
   const form = useConsoleForm(createEndpointAction, { onSuccess: () => router.refresh(), resetOnSuccess: true });
   return (
@@ -28,10 +52,7 @@ export function NewEndpointForm({ types }: { types: readonly string[] }) {
           <input name="description" maxLength={200} className="rounded border border-scale-300 px-2 py-1.5" />
           <FieldError message={form.error("description")} />
         </label>
-        <fieldset className="grid grid-cols-2 gap-1">
-          <legend className="mb-1">Events (none ticked = all)</legend>
-          {types.map((t) => <label key={t} className="flex items-center gap-1.5 font-mono text-xs"><input type="checkbox" name="eventTypes" value={t} /> {t}</label>)}
-        </fieldset>
+        <EventTypeBoxes types={types} words={words} />
         <button disabled={form.pending} className="justify-self-start rounded-md bg-ink px-3 py-1.5 font-medium text-scale-50 hover:bg-ink-soft disabled:opacity-60">Add endpoint</button>
       </form>
       <div className="mt-2"><ActionMessage result={form.result} shownFields={["url", "description"]} /></div>
@@ -40,20 +61,30 @@ export function NewEndpointForm({ types }: { types: readonly string[] }) {
   );
 }
 
-/** Change which event types an endpoint receives. */
-export function FilterForm({ id, types, chosen }: { id: string; types: readonly string[]; chosen: string[] }) {
+/** Change an endpoint: its address, description and event types. */
+export function EditEndpointForm({ endpoint, types, words }: {
+  endpoint: { id: string; url: string; description: string | null; eventTypes: string[] }; types: readonly string[]; words: Record<string, string>;
+}) {
   const router = useRouter();
-  const form = useConsoleForm(eventTypesAction, { onSuccess: () => router.refresh() });
+  const form = useConsoleForm(updateEndpointAction, { onSuccess: () => router.refresh() });
   return (
-    <details className="mt-2 text-sm">
-      <summary className="cursor-pointer text-xs text-edge">Change the event types</summary>
-      <form ref={form.formRef} onSubmit={form.onSubmit} className="mt-2 grid grid-cols-2 gap-1 sm:grid-cols-3">
-        <input type="hidden" name="id" value={id} />
-        {types.map((t) => <label key={t} className="flex items-center gap-1.5 font-mono text-xs"><input type="checkbox" name="eventTypes" value={t} defaultChecked={chosen.includes(t)} /> {t}</label>)}
-        <button disabled={form.pending} className="col-span-full justify-self-start rounded border border-scale-300 px-2 py-1 text-xs">Save event types (none = all)</button>
+    <div className="rounded-md border border-scale-200 bg-white p-4">
+      <h2 className="text-sm font-semibold">Settings</h2>
+      <form ref={form.formRef} onSubmit={form.onSubmit} className="mt-3 grid gap-3 text-sm" noValidate>
+        <input type="hidden" name="id" value={endpoint.id} />
+        <label className="grid gap-1">URL
+          <input name="url" required defaultValue={endpoint.url} aria-describedby="edit-url-error" className="rounded border border-scale-300 px-2 py-1.5" />
+          <FieldError id="edit-url-error" message={form.error("url")} />
+        </label>
+        <label className="grid gap-1">Description
+          <input name="description" maxLength={200} defaultValue={endpoint.description ?? ""} className="rounded border border-scale-300 px-2 py-1.5" />
+          <FieldError message={form.error("description")} />
+        </label>
+        <EventTypeBoxes types={types} words={words} chosen={endpoint.eventTypes} />
+        <button disabled={form.pending} className="justify-self-start rounded-md bg-ink px-3 py-1.5 font-medium text-scale-50 hover:bg-ink-soft disabled:opacity-60">Save</button>
+        <ActionMessage result={form.result} shownFields={["url", "description"]} />
       </form>
-      <ActionMessage result={form.result} />
-    </details>
+    </div>
   );
 }
 

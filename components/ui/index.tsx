@@ -19,7 +19,7 @@ const TONES: Record<string, string> = {
   running: "bg-edge text-white",
   completed: "bg-ok-light text-ok",
   failed: "bg-fault-light text-fault",
-  cancelled: "bg-scale-200 text-ink-muted line-through",
+  cancelled: "bg-scale-200 text-ink-soft line-through",
   pass: "bg-ok-light text-ok",
   warn: "bg-caution-light text-caution-dark",
   fail: "bg-fault-light text-fault",

@@ -56,7 +56,7 @@ export function buildOpenApi(operations: Operation[], extra?: (registry: OpenAPI
   const bearer = registry.registerComponent("securitySchemes", "apiKey", {
     type: "http",
     scheme: "bearer",
-    description: "An API key of your shop: `Authorization: Bearer swk_live_…`. Create one in the console or with `npm run key:create`.",
+    description: "An API key of your shop: `Authorization: Bearer swk_…`. Create one in the console or with `npm run key:create`.",
   });
   registry.register("Problem", Problem);
   const headerRefs: Record<string, { $ref: string }> = {};

@@ -2,7 +2,7 @@
 export const PROBLEM_TYPES: Record<string, { status: number; title: string; explanation: string }> = {
   "bad-request": { status: 400, title: "The request is malformed", explanation: "The body is not valid JSON or not UTF-8, or a cursor was not one the API gave out." },
   "bad-idempotency-key": { status: 400, title: "Idempotency-Key is malformed", explanation: "Use 1 to 255 visible ASCII characters; a UUID is a good choice." },
-  unauthorized: { status: 401, title: "Authentication required", explanation: "Send an API key of your shop as `Authorization: Bearer swk_live_…`. Revoked and expired keys are refused on the next request." },
+  unauthorized: { status: 401, title: "Authentication required", explanation: "Send an API key of your shop as `Authorization: Bearer swk_…`. Revoked and expired keys are refused on the next request." },
   "insufficient-scope": { status: 403, title: "The API key lacks a scope", explanation: "The operation names the scope it needs (`requiredScope`); create a key that has it." },
   "not-found": { status: 404, title: "Not found", explanation: "Nothing with that id exists in your shop. Objects of other shops are never visible." },
   conflict: { status: 409, title: "Conflict with the current state", explanation: "For example a program whose reference is taken (`existingId` names it), a transition the program's state does not allow (`currentStatus`), or a request that is still running under the same Idempotency-Key." },

@@ -6,6 +6,7 @@ export const ROLE_RANK: Record<Role, number> = { viewer: 0, developer: 1, admin:
 export const PERMISSIONS = {
   read: "viewer",
   "webhooks:test": "developer",
+  "keys:create-read-only": "developer",
   "keys:manage": "admin",
   "webhooks:manage": "admin",
   "catalog:manage": "admin",

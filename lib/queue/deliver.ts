@@ -10,11 +10,21 @@ import type { EntityManager } from "@mikro-orm/postgresql";
 import { Webhook } from "svix";
 import { Delivery, DeliveryAttempt, type DeliveryEntity, type WebhookEndpointEntity } from "../../entities";
 import { newId } from "../ids";
+import { webhookPayload } from "../schemas/webhook";
 import { pinnedLookup, resolveReceiver, type CheckedAddress } from "../network";
 import { delayBefore, disableAfter, MAX_ATTEMPTS, retryAfterMs } from "./schedule";
 
 export const TIMEOUT_MS = 15_000;
-const EXCERPT_CHARS = 500;
+const EXCERPT_CHARS = 2000;
+/** Response headers kept per attempt, and the longest value kept of each. */
+const HEADERS_KEPT = 40;
+const HEADER_CHARS = 500;
+
+function keptHeaders(headers: Record<string, string | string[] | undefined>): Record<string, string> {
+  return Object.fromEntries(Object.entries(headers).slice(0, HEADERS_KEPT)
+    .filter((entry): entry is [string, string | string[]] => entry[1] !== undefined)
+    .map(([name, value]) => [name, (Array.isArray(value) ? value.join(", ") : value).slice(0, HEADER_CHARS)]));
+}
 const USER_AGENT = "Shearwire-Webhooks/1";
 // Connections to receivers are kept open between deliveries (a socket is only ever opened to an address that passed the check).
 const agents = { http: new http.Agent({ keepAlive: true, maxSockets: 64 }), https: new https.Agent({ keepAlive: true, maxSockets: 64 }) };
@@ -124,7 +134,7 @@ async function bodyOf(em: EntityManager, eventId: string): Promise<string> {
   const [ev] = await em.getConnection().execute<{ type: string; data: unknown; created_at: Date }[]>(
     "select type, data, created_at from events where id = ?", [eventId],
   );
-  const body = JSON.stringify({ type: ev.type, timestamp: new Date(ev.created_at).toISOString(), data: ev.data });
+  const body = webhookPayload({ type: ev.type, createdAt: ev.created_at, data: ev.data });
   bodies.set(eventId, body);
   if (bodies.size > BODIES_KEPT) bodies.delete(bodies.keys().next().value as string);
   return body;
@@ -151,23 +161,26 @@ export async function attemptDelivery(em: EntityManager, deliveryId: string, exp
   const sentAt = new Date();
   const payload = await bodyOf(em, row.event_id);
   const endpoint = { secret: row.secret, previousSecret: row.previous_secret, previousSecretExpiresAt: row.previous_secret_expires_at ? new Date(row.previous_secret_expires_at) : null };
-  const result = await post(row.url, payload, {
+  const sent = {
     "webhook-id": row.event_id,
     "webhook-timestamp": String(Math.floor(sentAt.getTime() / 1000)),
     "webhook-signature": signatures(endpoint, row.event_id, sentAt, payload),
-  });
+  };
+  const result = await post(row.url, payload, sent);
+  const requestHeaders = JSON.stringify({ ...sent, "content-type": "application/json", "content-length": String(Buffer.byteLength(payload)), "user-agent": USER_AGENT });
+  const responseHeaders = result.status === null ? null : JSON.stringify(keptHeaders(result.headers));
   const ok = result.status !== null && result.status >= 200 && result.status <= 299;
 
   if (ok) {
     // The common case, in one statement: the attempt row, the delivery, and the endpoint's failure count.
     await conn.execute(
       `with attempt as (
-         insert into delivery_attempts (id, delivery_id, attempted_at, status_code, latency_ms, response_excerpt, error)
-         values (?, ?, ?, ?, ?, ?, null)),
+         insert into delivery_attempts (id, delivery_id, attempted_at, request_headers, status_code, response_headers, latency_ms, response_excerpt, error)
+         values (?, ?, ?, ?, ?, ?, ?, ?, null)),
        endpoint as (
          update webhook_endpoints set consecutive_failures = 0 where id = (select endpoint_id from deliveries where id = ?) and consecutive_failures <> 0)
        update deliveries set status = 'succeeded', next_attempt_at = null, last_status_code = ?, last_error = null, updated_at = now() where id = ?`,
-      [newId("attempt"), deliveryId, sentAt, result.status, result.latencyMs, result.excerpt, deliveryId, result.status, deliveryId],
+      [newId("attempt"), deliveryId, sentAt, requestHeaders, result.status, responseHeaders, result.latencyMs, result.excerpt, deliveryId, result.status, deliveryId],
     );
     return { kind: "done", status: "succeeded" };
   }
@@ -177,6 +190,7 @@ export async function attemptDelivery(em: EntityManager, deliveryId: string, exp
     const ep = d.endpoint;
     tx.create(DeliveryAttempt, {
       delivery: d, attemptedAt: sentAt, statusCode: result.status, latencyMs: result.latencyMs,
+      requestHeaders: JSON.parse(requestHeaders), responseHeaders: responseHeaders === null ? null : JSON.parse(responseHeaders),
       responseExcerpt: result.excerpt, error: result.error,
     });
     d.attempts = attempt;

@@ -17,3 +17,25 @@ export const KeyInput = z
   .strict();
 
 export type KeyInputT = z.infer<typeof KeyInput>;
+
+/** What each scope lets a key do, in a sentence (the console and the reference show these). */
+export const SCOPE_WORDS: Record<(typeof SCOPES)[number], string> = {
+  "programs:read": "Read programs and plans, and check programs without storing them.",
+  "programs:write": "Create and change draft programs, plan order lines, write a plan's programs, cancel programs and plans.",
+  "programs:release": "Release checked programs to the shear (the gateway can then claim and run them).",
+  gateway: "For the gateway beside a shear: claim released programs and report the run (bind it to its shears).",
+  "catalog:read": "Read shears, grades, gauges and setup recommendations.",
+  "catalog:write": "Add and change shears and grades.",
+  "events:read": "Read events and their webhook deliveries.",
+  "webhooks:write": "Add, change and test webhook endpoints, rotate their secrets, resend events.",
+};
+
+/** Ready-made sets of scopes for the usual kinds of key. */
+export const KEY_PRESETS: { name: string; label: string; scopes: (typeof SCOPES)[number][]; note: string }[] = [
+  { name: "erp", label: "ERP integration", scopes: ["programs:read", "programs:write", "programs:release", "catalog:read", "events:read", "webhooks:write"], note: "pushes orders, releases them, hears back through webhooks" },
+  { name: "gateway", label: "Machine gateway", scopes: ["gateway", "programs:read"], note: "runs beside one shear: bind it to that shear below" },
+  { name: "read-only", label: "Read-only", scopes: ["programs:read", "catalog:read", "events:read"], note: "dashboards and reports; the only kind a developer may create" },
+];
+
+/** Scopes a developer may give a key of their own making: reading only. */
+export const READ_ONLY_SCOPES: readonly (typeof SCOPES)[number][] = ["programs:read", "catalog:read", "events:read"];

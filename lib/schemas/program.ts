@@ -247,7 +247,9 @@ export const ProgramListQuery = z.object({
   status: z.enum(PROGRAM_STATUSES).optional(),
   shear: z.string().max(64).optional().openapi({ description: "Only programs for this shear id" }),
   reference: z.string().max(100).optional().openapi({ description: "Only the program with this reference" }),
-  updated_since: z.iso.datetime({ offset: true }).optional().openapi({ description: "Only programs changed at or after this time" }),
+  search: z.string().min(1).max(100).optional().openapi({ description: "Only programs whose reference or title contains this, in any case" }),
+  updatedSince: z.iso.datetime({ offset: true }).optional().openapi({ description: "Only programs changed at or after this time" }),
+  updated_since: z.iso.datetime({ offset: true }).optional().openapi({ description: "The earlier spelling of `updatedSince`, still accepted", deprecated: true }),
 });
 
 export type ProgramInputT = z.infer<typeof ProgramInput>;

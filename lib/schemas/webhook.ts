@@ -59,9 +59,11 @@ export const Attempt = z
   .object({
     id: z.string(),
     attemptedAt: z.string(),
+    requestHeaders: z.record(z.string(), z.string()).nullable().openapi({ description: "The headers sent, signature included (the body is the event's webhook payload)" }),
     statusCode: z.number().int().nullable(),
+    responseHeaders: z.record(z.string(), z.string()).nullable().openapi({ description: "The receiver's response headers" }),
     latencyMs: z.number(),
-    responseExcerpt: z.string().nullable(),
+    responseExcerpt: z.string().nullable().openapi({ description: "The first 2,000 characters of the receiver's response body" }),
     error: z.string().nullable(),
   })
   .openapi("DeliveryAttempt");
@@ -93,3 +95,8 @@ export const ResendInput = z.object({ endpoint: z.string().min(1).max(64).openap
 
 export type EndpointT = z.infer<typeof Endpoint>;
 export type DeliveryT = z.infer<typeof Delivery>;
+
+/** The body of every delivery of an event: the same bytes on every attempt, and what the signature signs. */
+export function webhookPayload(event: { type: string; createdAt: Date | string; data: unknown }): string {
+  return JSON.stringify({ type: event.type, timestamp: new Date(event.createdAt).toISOString(), data: event.data });
+}

@@ -6,6 +6,7 @@
 import type { EntityManager } from "@mikro-orm/postgresql";
 import { parse } from "csv-parse/sync";
 import { ApiError } from "../api/errors";
+import { Shear } from "../../entities";
 import { ProgramInput, type ProgramInputT } from "../schemas/program";
 import { createProgram } from "./programs";
 
@@ -83,6 +84,35 @@ export function parseJson(content: string): Parsed {
   }
   const list = Array.isArray(value) ? value : [value];
   return { programs: list.map((input, i) => ({ input, rows: [i + 1] })), errors: [] };
+}
+
+/**
+ * A cut list may name its shear by name ("Bay 1 sheet shear", any case) as well as by id: names
+ * of this shop's shears in use become their ids; a name no shear has is an error on that row.
+ */
+export async function resolveShearNames(em: EntityManager, shopId: string, parsed: Parsed): Promise<Parsed> {
+  const shears = await em.find(Shear, { shop: shopId, archivedAt: null }, { fields: ["name"] });
+  const byName = new Map(shears.map((s) => [s.name.trim().toLowerCase(), s.id]));
+  const errors: RowError[] = [];
+  const programs = parsed.programs.map((p) => {
+    const input = p.input as Record<string, unknown> | null;
+    const shear = typeof input?.shear === "string" ? input.shear.trim() : null;
+    if (!input || !shear || /^shr_[0-9A-Z]{26}$/.test(shear)) return p;
+    const id = byName.get(shear.toLowerCase());
+    if (!id) errors.push({ row: p.rows[0], field: "shear", message: `no shear in use is named "${shear}" (names: ${shears.map((s) => s.name).join(", ") || "none yet"})` });
+    return { ...p, input: { ...input, shear: id ?? shear } };
+  });
+  return { programs, errors: [...parsed.errors, ...errors] };
+}
+
+/** The CSV a person fills in: the header and two rows of an example (the first shear's name in it). */
+export function csvTemplate(shearName: string): string {
+  const quote = (v: string) => (/[",\n]/.test(v) ? `"${v.replace(/"/g, '""')}"` : v);
+  return [
+    CSV_COLUMNS.join(","),
+    ["SO-2291/4", "Side panels", quote(shearName), "A36", "", "10", "in", "120", "48", "2", "12", "3", "", "", "", "rip strips", "5", "2026-12-08T14:00:00Z"].join(","),
+    ["SO-2291/4", "", "", "", "", "", "", "", "", "", "16", "7", "12", "yes", "", "crosscut each strip", "", ""].join(","),
+  ].join("\n") + "\n";
 }
 
 /** Validate every program; an error inside cuts/N points at the N-th row of that program. */

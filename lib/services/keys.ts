@@ -8,7 +8,8 @@ import { ApiKey, Shear, Shop, type ApiKeyEntity } from "../../entities";
 import type { Scope } from "../../entities/ApiKey";
 import { invalidRequest, notFound, unauthorized } from "../api/errors";
 
-export const KEY_PREFIX = "swk_live_";
+/** Every key starts with this; keys made earlier start `swk_live_` and keep working. */
+export const KEY_PREFIX = "swk_";
 const VISIBLE = KEY_PREFIX.length + 4;
 /** last-used is written at most this often per key, so a busy key costs no write per request */
 const LAST_USED_RESOLUTION_MS = 30_000;
@@ -23,6 +24,8 @@ export interface ApiKeyView {
   rateLimitPerMin: number | null;
   revokedAt: string | null;
   lastUsedAt: string | null;
+  /** the console member who created it (null for keys made from the shell) */
+  createdBy: string | null;
   createdAt: string;
 }
 
@@ -48,6 +51,7 @@ export function viewKey(k: ApiKeyEntity): ApiKeyView {
     rateLimitPerMin: k.rateLimitPerMin ?? null,
     revokedAt: k.revokedAt?.toISOString() ?? null,
     lastUsedAt: k.lastUsedAt?.toISOString() ?? null,
+    createdBy: k.createdBy ?? null,
     createdAt: k.createdAt.toISOString(),
   };
 }
@@ -90,10 +94,10 @@ export interface Principal {
   rateLimitPerMin: number | null;
 }
 
-/** Resolve an `Authorization: Bearer swk_live_…` header to its key, or throw 401. */
+/** Resolve an `Authorization: Bearer swk_…` header to its key, or throw 401. */
 export async function authenticate(em: EntityManager, header: string | null): Promise<Principal> {
   const match = header?.match(/^Bearer\s+(\S+)$/i);
-  if (!match) throw unauthorized("Send an API key as `Authorization: Bearer swk_live_…`.");
+  if (!match) throw unauthorized("Send an API key as `Authorization: Bearer swk_…`.");
   const secret = match[1];
   if (!secret.startsWith(KEY_PREFIX)) throw unauthorized("That is not a Shearwire API key.");
   // One indexed lookup per request, without hydrating an entity: this runs before every call.

@@ -1,9 +1,11 @@
 /** The request log of a shop: filters by key, route, status class and time. */
 import type { EntityManager, FilterQuery, InferEntity } from "@mikro-orm/postgresql";
-import { RequestLog } from "../../entities";
+import { ApiKey, RequestLog } from "../../entities";
 import { decodeCursor, page } from "../api/pagination";
 
 export interface LogFilter {
+  /** one request, by the id it answered with (X-Request-Id) */
+  id?: string;
   keyId?: string;
   route?: string;
   statusClass?: "2xx" | "3xx" | "4xx" | "5xx";
@@ -18,6 +20,7 @@ export async function listRequests(em: EntityManager, shopId: string, f: LogFilt
   const cls = f.statusClass ? Number(f.statusClass[0]) * 100 : null;
   const where: FilterQuery<InferEntity<typeof RequestLog>> = {
     shopId,
+    ...(f.id ? { id: f.id } : {}),
     ...(f.keyId ? { keyId: f.keyId } : {}),
     ...(f.route ? { route: f.route } : {}),
     ...(cls ? { status: { $gte: cls, $lt: cls + 100 } } : {}),
@@ -28,8 +31,12 @@ export async function listRequests(em: EntityManager, shopId: string, f: LogFilt
   return page(rows, f.limit);
 }
 
+/** One logged request, with the name of the key that made it. */
 export async function getRequest(em: EntityManager, shopId: string, id: string) {
-  return em.findOne(RequestLog, { id, shopId });
+  const row = await em.findOne(RequestLog, { id, shopId });
+  if (!row) return null;
+  const key = row.keyId ? await em.findOne(ApiKey, { id: row.keyId, shop: shopId }, { fields: ["id", "name", "prefix"] }) : null;
+  return { ...row, key: key ? { id: key.id, name: key.name, prefix: key.prefix } : null };
 }
 
 /** Routes seen in the shop's log, for the filter. */

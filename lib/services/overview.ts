@@ -23,6 +23,15 @@ export async function overview(em: EntityManager, shopId: string) {
   const [endpoints] = await conn.execute<{ disabled: string }[]>(
     "select count(*) filter (where not enabled) as disabled from webhook_endpoints where shop_id = ?", [shopId],
   );
+  const [setup] = await conn.execute<{ shears: string; grades: string; keys: string; endpoints: string; programs: string; released: string }[]>(
+    `select (select count(*) from shears where shop_id = ? and archived_at is null) as shears,
+            (select count(*) from grades where shop_id = ? and archived_at is null) as grades,
+            (select count(*) from api_keys where shop_id = ? and revoked_at is null) as keys,
+            (select count(*) from webhook_endpoints where shop_id = ?) as endpoints,
+            (select count(*) from programs where shop_id = ?) as programs,
+            (select count(*) from programs where shop_id = ? and released_at is not null) as released`,
+    Array(6).fill(shopId),
+  );
   const total = Number(requests.total);
   const delivered = Number(deliveries.total);
   return {
@@ -33,6 +42,15 @@ export async function overview(em: EntityManager, shopId: string) {
     disabledEndpoints: Number(endpoints.disabled),
     programsByStatus: Object.fromEntries(byStatus.map((r) => [r.status, Number(r.n)])) as Record<string, number>,
     requestsPerMinute: lastHour(perMinute.map((r) => ({ minute: new Date(r.minute).toISOString(), n: Number(r.n) }))),
+    /** a new shop's first steps, each done or not */
+    setup: {
+      shear: Number(setup.shears) > 0,
+      grades: Number(setup.grades) > 0,
+      key: Number(setup.keys) > 0,
+      endpoint: Number(setup.endpoints) > 0,
+      program: Number(setup.programs) > 0,
+      released: Number(setup.released) > 0,
+    },
   };
 }
 

@@ -156,9 +156,13 @@ export async function waitForPlan(em: EntityManager, shopId: string, id: string,
   }
 }
 
-export async function listPlans(em: EntityManager, shopId: string, f: { limit: number; cursor?: string }) {
+export async function listPlans(em: EntityManager, shopId: string, f: { limit: number; cursor?: string; search?: string }) {
   const before = decodeCursor(f.cursor);
-  const rows = await em.find(Plan, { shop: shopId, ...(before ? { id: { $lt: before } } : {}) }, { orderBy: { id: "desc" }, limit: f.limit + 1 });
+  const like = f.search ? `%${f.search.replace(/[\\%_]/g, (c) => `\\${c}`)}%` : null;
+  const rows = await em.find(Plan, {
+    shop: shopId, ...(before ? { id: { $lt: before } } : {}),
+    ...(like ? { $or: [{ reference: { $ilike: like } }, { title: { $ilike: like } }] } : {}),
+  }, { orderBy: { id: "desc" }, limit: f.limit + 1 });
   const p = page(rows, f.limit);
   return { data: p.data.map(viewPlanSummary), next_cursor: p.next_cursor };
 }

@@ -132,8 +132,15 @@ export interface ProgramFilter {
   status?: ProgramStatus;
   shear?: string;
   reference?: string;
+  /** part of the reference or title, any case */
+  search?: string;
+  updatedSince?: string;
+  /** the earlier spelling of updatedSince */
   updated_since?: string;
 }
+
+/** `text` as a LIKE pattern that matches it literally anywhere. */
+const containing = (text: string) => `%${text.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
 
 export async function listPrograms(em: EntityManager, shopId: string, f: ProgramFilter) {
   const before = decodeCursor(f.cursor);
@@ -142,7 +149,8 @@ export async function listPrograms(em: EntityManager, shopId: string, f: Program
     ...(f.status ? { status: f.status } : {}),
     ...(f.shear ? { shear: f.shear } : {}),
     ...(f.reference ? { reference: f.reference } : {}),
-    ...(f.updated_since ? { updatedAt: { $gte: new Date(f.updated_since) } } : {}),
+    ...(f.search ? { $or: [{ reference: { $ilike: containing(f.search) } }, { title: { $ilike: containing(f.search) } }] } : {}),
+    ...((f.updatedSince ?? f.updated_since) ? { updatedAt: { $gte: new Date((f.updatedSince ?? f.updated_since)!) } } : {}),
     ...(before ? { id: { $lt: before } } : {}),
   };
   const rows = await em.find(Program, where, { orderBy: { id: "desc" }, limit: f.limit + 1 });

@@ -124,6 +124,22 @@ export async function resend(em: EntityManager, shopId: string, eventId: string,
   return viewDelivery(await loadDelivery(em.fork(), shopId, d.id));
 }
 
+/** Send again every event whose delivery to this endpoint failed (once per event, newest 500). */
+export async function resendFailed(em: EntityManager, shopId: string, endpointId: string): Promise<number> {
+  const e = await findEndpoint(em, shopId, endpointId);
+  if (!e.enabled) throw conflict("The endpoint is disabled; enable it first.", { enabled: false });
+  const rows = await em.getConnection().execute<{ event_id: string }[]>(
+    `select distinct event_id from deliveries d where d.endpoint_id = ? and d.status = 'failed'
+       and not exists (select 1 from deliveries n where n.endpoint_id = d.endpoint_id and n.event_id = d.event_id and n.status in ('pending', 'succeeded'))
+     order by event_id desc limit 500`,
+    [e.id],
+  );
+  const created = rows.map((r) => em.create(Delivery, { shop: em.getReference(Shop, shopId), event: em.getReference(Event, r.event_id), endpoint: e, nextAttemptAt: new Date(), manual: true }));
+  await em.flush();
+  for (const d of created) await queueNow(d);
+  return created.length;
+}
+
 // ---------------------------------------------------------------- events and deliveries
 
 export function viewEvent(e: EventEntity) {
@@ -158,25 +174,34 @@ async function attemptsOf(em: EntityManager, ids: string[]) {
   return by;
 }
 
-export function viewDelivery(d: DeliveryEntity, attempts: { id: string; attemptedAt: Date; statusCode?: number | null; latencyMs: number; responseExcerpt?: string | null; error?: string | null }[] = []): DeliveryT {
+type AttemptRow = {
+  id: string; attemptedAt: Date; statusCode?: number | null; latencyMs: number; responseExcerpt?: string | null; error?: string | null;
+  requestHeaders?: Record<string, string> | null; responseHeaders?: Record<string, string> | null;
+};
+
+export function viewDelivery(d: DeliveryEntity, attempts: AttemptRow[] = []): DeliveryT {
   return {
     id: d.id, eventId: d.event.id, eventType: d.event.type as EventType, endpointId: d.endpoint.id, status: d.status,
     attempts: d.attempts, nextAttemptAt: iso(d.nextAttemptAt), lastStatusCode: d.lastStatusCode ?? null, lastError: d.lastError ?? null,
     manual: d.manual,
     attemptLog: attempts.map((a) => ({
-      id: a.id, attemptedAt: a.attemptedAt.toISOString(), statusCode: a.statusCode ?? null, latencyMs: a.latencyMs,
-      responseExcerpt: a.responseExcerpt ?? null, error: a.error ?? null,
+      id: a.id, attemptedAt: a.attemptedAt.toISOString(), requestHeaders: a.requestHeaders ?? null, statusCode: a.statusCode ?? null,
+      responseHeaders: a.responseHeaders ?? null, latencyMs: a.latencyMs, responseExcerpt: a.responseExcerpt ?? null, error: a.error ?? null,
     })),
     createdAt: d.createdAt.toISOString(), updatedAt: d.updatedAt.toISOString(),
   };
 }
 
-export async function listDeliveries(em: EntityManager, shopId: string, by: { event?: string; endpoint?: string }, o: { limit: number; cursor?: string }) {
+export async function listDeliveries(
+  em: EntityManager, shopId: string, by: { event?: string; endpoint?: string },
+  o: { limit: number; cursor?: string; status?: DeliveryEntity["status"]; eventType?: string },
+) {
   if (by.event) await getEvent(em, shopId, by.event);
   if (by.endpoint) await findEndpoint(em, shopId, by.endpoint);
   const before = decodeCursor(o.cursor);
   const rows = await em.find(Delivery, {
     shop: shopId, ...(by.event ? { event: by.event } : {}), ...(by.endpoint ? { endpoint: by.endpoint } : {}), ...(before ? { id: { $lt: before } } : {}),
+    ...(o.status ? { status: o.status } : {}), ...(o.eventType ? { event: { type: o.eventType } } : {}),
   }, { orderBy: { id: "desc" }, limit: o.limit + 1, populate: ["event"] });
   const p = page(rows, o.limit);
   const attempts = await attemptsOf(em, p.data.map((d) => d.id));

@@ -79,6 +79,10 @@ describe("delivery", () => {
     }, { timeout: 5000 });
     expect(deliveries[0].attemptLog.map((a: { statusCode: number }) => a.statusCode)).toEqual([500, 500, 200]);
     expect(deliveries[0].attemptLog[0].responseExcerpt).toBe("receiver down");
+    // Every attempt keeps what was sent (signature included) and what came back.
+    const last = deliveries[0].attemptLog[2];
+    expect(last.requestHeaders).toMatchObject({ "webhook-id": reqs[2].headers["webhook-id"], "webhook-signature": reqs[2].headers["webhook-signature"], "content-type": "application/json" });
+    expect(last.responseHeaders).toMatchObject({ "content-length": "2" });
     expect((await endpointRow(endpointId)).consecutiveFailures).toBe(0);
   });
 

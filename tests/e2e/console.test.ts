@@ -62,7 +62,7 @@ describe("the console", () => {
     await page.getByLabel("catalog:read").check();
     await page.getByRole("button", { name: "Create key" }).click();
     const secret = (await page.getByTestId("secret").textContent())!;
-    expect(secret).toMatch(/^swk_live_/);
+    expect(secret).toMatch(/^swk_(?!live_)/);
     await shot(page, "keys-created");
 
     await request(BASE_URL).get("/api/v1/shears").set("Authorization", `Bearer ${secret}`).expect(200);
@@ -71,8 +71,10 @@ describe("the console", () => {
     expect(await page.content()).not.toContain(secret); // shown once
     const row = page.getByRole("row", { name: /Browser test key/ });
     page.once("dialog", (d) => d.accept());
-    await row.getByRole("button", { name: "Revoke" }).click();
-    await row.getByText("revoked").waitFor();
+    await row.getByRole("button", { name: "Revoke key Browser test key" }).click();
+    await row.waitFor({ state: "detached" }); // revoked keys are hidden unless asked for
+    await page.getByRole("link", { name: /Show 1 revoked key/ }).click();
+    await page.getByRole("row", { name: /Browser test key/ }).getByText("revoked").waitFor();
     await shot(page, "keys");
     await request(BASE_URL).get("/api/v1/shears").set("Authorization", `Bearer ${secret}`).expect(401);
     await page.close();
@@ -233,7 +235,7 @@ describe("the console", () => {
     await page.getByLabel(/Stock on hand/).fill("2500, 1250, 4\n3000, 1500");
     const bad = "label,length,width,quantity,can_turn\nbase,600,400,10,yes\nside,450,three hundred,12,yes\n";
     await page.setInputFiles("input[type=file]", { name: "blanks.csv", mimeType: "text/csv", buffer: Buffer.from(bad) });
-    await page.getByRole("button", { name: "Plan" }).click();
+    await page.getByRole("button", { name: "Plan", exact: true }).click();
     const errors = page.getByTestId("plan-errors");
     await errors.waitFor();
     expect(await errors.textContent()).toMatch(/row 3 · width: "three hundred" is not a number/);
@@ -243,8 +245,8 @@ describe("the console", () => {
 
     const good = "label,length,width,quantity,can_turn\nbase,600,400,10,yes\nside,450,300,12,yes\ntab,250,150,30,no\n";
     await page.setInputFiles("input[type=file]", { name: "blanks.csv", mimeType: "text/csv", buffer: Buffer.from(good) });
-    await page.getByLabel("Trim first edge by").fill("5");
-    await page.getByRole("button", { name: "Plan" }).click();
+    await page.getByLabel(/Trim the first edge by/).fill("5");
+    await page.getByRole("button", { name: "Plan", exact: true }).click();
     await page.waitForURL(/\/console\/plans\/pln_/);
     await page.getByTestId("pattern-A").waitFor();
     expect(await page.getByTestId("pattern-A").locator("svg rect").count()).toBeGreaterThan(3);
@@ -305,7 +307,7 @@ describe("the console", () => {
     await signIn(page, shop.admins[1]);
     await page.goto(`${BASE_URL}/console/keys`);
     await page.getByLabel("Name").fill("Made by a viewer");
-    await page.getByLabel("programs:read").check();
+    await page.locator("input[name=scopes][value=\"programs:read\"]").check();
     // …then, in the same browser, the session becomes a viewer's.
     const other = await context.newPage();
     await other.goto(`${BASE_URL}/console`);

@@ -97,7 +97,7 @@ describe("console forms", () => {
     await page.goto(`${BASE_URL}/console/keys`);
     const longName = "k".repeat(300);
     await page.getByLabel("Name").evaluate((el, v) => { (el as HTMLInputElement).removeAttribute("maxlength"); (el as HTMLInputElement).value = v; }, longName);
-    await page.getByLabel("programs:read").check();
+    await page.locator("input[name=scopes][value=\"programs:read\"]").check();
     await page.getByRole("button", { name: "Create key" }).click();
     await page.locator("#key-name-error").waitFor();
     expect(await page.locator("#key-name-error").textContent()).toMatch(/100/);
@@ -132,7 +132,7 @@ describe("console forms", () => {
     await page.waitForURL(`${BASE_URL}/console`);
     await page.goto(`${BASE_URL}/console/keys`);
     await page.getByLabel("Name").fill("borrowed shear");
-    await page.getByLabel("gateway", { exact: true }).check();
+    await page.locator("input[name=scopes][value=gateway]").check();
     // Put the other shop's shear id into the list, as a forged form would.
     await page.locator("select[name=shears]").evaluate((el, id) => {
       const option = document.createElement("option");

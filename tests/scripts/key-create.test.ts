@@ -15,7 +15,7 @@ describe("npm run key:create", () => {
   it("creates a scoped key whose secret is printed once and works against the API", () => {
     const res = cli("--shop", shop.shopId, "--scopes", "catalog:read", "--name", "ERP import");
     expect(res.status, res.stderr).toBe(0);
-    const secret = res.stdout.match(/secret \(shown once\): (swk_live_\S+)/)?.[1];
+    const secret = res.stdout.match(/secret \(shown once\): (swk_\S+)/)?.[1];
     expect(secret).toBeDefined();
     return Promise.all([
       request(BASE_URL).get("/api/v1/shears").set("Authorization", `Bearer ${secret}`).expect(200),

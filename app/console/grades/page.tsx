@@ -1,5 +1,6 @@
 import Link from "next/link";
 import { GradeForm } from "@/components/console/CatalogForms";
+import { GAUGE_SYSTEM_WORDS, mpa } from "@/components/console/words";
 import { PageHeader, Table, Td } from "@/components/ui";
 import { can } from "@/lib/auth/roles";
 import { currentMember } from "@/lib/auth/session";
@@ -21,15 +22,20 @@ export default async function Grades() {
               <Td mono><Link className="text-edge hover:underline" href={`/console/grades/${g.id}`}>{g.code}</Link></Td>
               <Td>{g.name}</Td>
               <Td>{g.family}</Td>
-              <Td mono>{g.yieldMpa ?? "—"}{g.yieldMpa ? " MPa" : ""}</Td>
-              <Td mono>{g.tensileMinMpa ? `≥ ${g.tensileMinMpa}` : g.tensileTypicalMpa ? `≈ ${g.tensileTypicalMpa}` : "—"} MPa{g.valuesAreTypical ? " (typical)" : ""}</Td>
+              <Td mono>{g.yieldMpa ? mpa(g.yieldMpa) : "—"}</Td>
+              <Td mono>{g.tensileMinMpa ? `at least ${mpa(g.tensileMinMpa)}` : g.tensileTypicalMpa ? `about ${mpa(g.tensileTypicalMpa)}` : "—"}{g.valuesAreTypical ? " (typical)" : ""}</Td>
               <Td mono>{g.shearTensileRatio}</Td>
-              <Td mono>{g.gaugeFamily ?? "—"}</Td>
+              <Td>{g.gaugeFamily ? <abbr title={GAUGE_SYSTEM_WORDS[g.gaugeFamily]} className="font-mono text-xs">{g.gaugeFamily}</abbr> : "—"}</Td>
               <Td mono>{g.hardnessHb ? `${g.hardnessHb} HB` : "—"}</Td>
               <Td className="text-xs text-ink-muted">{g.standard}</Td>
             </tr>
           ))}
         </Table>
+        <dl className="text-xs text-ink-muted 2xl:col-start-1">
+          <dt className="font-semibold text-ink">Gauge systems</dt>
+          {Object.entries(GAUGE_SYSTEM_WORDS).map(([code, words]) => <dd key={code}><span className="font-mono">{code}</span>: {words}</dd>)}
+          <dd className="mt-1">A program may give its thickness as a gauge number; the grade&apos;s system turns it into a size.</dd>
+        </dl>
         {can(member.role, "catalog:manage") && (
           <section className="rounded-md border border-scale-200 bg-white p-4">
             <h2 className="mb-3 text-sm font-semibold">Add a grade</h2>

@@ -3,14 +3,19 @@
 import { revalidatePath } from "next/cache";
 import { zfd } from "zod-form-data";
 import { memberAction } from "@/lib/auth/action";
-import { KeyInput } from "@/lib/schemas/key";
+import { can } from "@/lib/auth/roles";
+import { NotAllowedError } from "@/lib/auth/session";
+import { KeyInput, READ_ONLY_SCOPES } from "@/lib/schemas/key";
 import { z } from "@/lib/schemas/zod";
 import { createKey, revokeKey } from "@/lib/services/keys";
 
 const fields = KeyInput.shape;
 
-/** Create a key; its secret goes back to this one response and is never stored. */
-export const createKeyAction = memberAction("keys:manage")
+/**
+ * Create a key; its secret goes back to this one response and is never stored. Admins and
+ * owners give any scopes; a developer may create read-only keys for their own work.
+ */
+export const createKeyAction = memberAction("keys:create-read-only")
   .inputSchema(
     zfd.formData({
       name: zfd.text(fields.name),
@@ -20,6 +25,10 @@ export const createKeyAction = memberAction("keys:manage")
     }),
   )
   .action(async ({ parsedInput, ctx: { member, em } }) => {
+    const beyond = parsedInput.scopes.filter((scope) => !READ_ONLY_SCOPES.includes(scope));
+    if (!can(member.role, "keys:manage") && beyond.length) {
+      throw new NotAllowedError(`Your role (${member.role}) may create read-only keys (${READ_ONLY_SCOPES.join(", ")}); ${beyond.join(", ")} need an admin or owner.`);
+    }
     const expiresAt = parsedInput.expires ? new Date(`${parsedInput.expires}T23:59:59Z`) : null;
     const { key, secret } = await createKey(em, member.shopId, {
       name: parsedInput.name, scopes: parsedInput.scopes, shearIds: parsedInput.shears, expiresAt, createdBy: member.userId,

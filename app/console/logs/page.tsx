@@ -22,7 +22,10 @@ export default async function Logs({ searchParams }: { searchParams: Promise<Rec
   return (
     <>
       <PageHeader title="Request log" lead="Every API call with a key of this shop: who, what, how it went. Bodies and secrets are never logged." />
-      <form className="mb-3 flex flex-wrap items-end gap-2 text-sm">
+      <form className="mb-3 flex flex-wrap items-end gap-2 text-sm" role="search">
+        <label className="grid gap-0.5 text-xs">Request id
+          <input name="id" defaultValue={q.id ?? ""} maxLength={64} placeholder="req_…" className="rounded border border-scale-300 bg-white px-2 py-1 font-mono text-sm" />
+        </label>
         <label className="grid gap-0.5 text-xs">Key
           <select name="key" defaultValue={q.key ?? ""} className="rounded border border-scale-300 px-2 py-1 text-sm"><option value="">any</option>{keys.map((k) => <option key={k.id} value={k.id}>{keyName.get(k.id)}</option>)}</select>
         </label>
@@ -37,8 +40,8 @@ export default async function Logs({ searchParams }: { searchParams: Promise<Rec
         </label>
         <button className="rounded-md bg-ink px-3 py-1.5 text-scale-50">Filter</button>
       </form>
-      <RequestTable query={new URLSearchParams({ hours: String(hours), ...(q.key ? { key: q.key } : {}), ...(q.route ? { route: q.route } : {}), ...(filter.statusClass ? { status: filter.statusClass } : {}) }).toString()} keyNames={Object.fromEntries(keyName)} />
-      <p className="mt-2 text-xs text-ink-muted">Refreshes every 5 seconds. Click a column to sort.</p>
+      <RequestTable query={new URLSearchParams({ hours: String(hours), ...(q.id ? { id: q.id.trim().slice(0, 64) } : {}), ...(q.key ? { key: q.key } : {}), ...(q.route ? { route: q.route } : {}), ...(filter.statusClass ? { status: filter.statusClass } : {}) }).toString()} keyNames={Object.fromEntries(keyName)} />
+      <p className="mt-2 text-xs text-ink-muted">50 to a page, newest first; the first page refreshes every 5 seconds. A request id finds its request at any age. Click a column to sort the page.</p>
     </>
   );
 }

@@ -1,6 +1,7 @@
 "use server";
 
 import { revalidatePath } from "next/cache";
+import { redirect } from "next/navigation";
 import { zfd } from "zod-form-data";
 import { memberAction } from "@/lib/auth/action";
 import { EndpointInput, EventType } from "@/lib/schemas/webhook";
@@ -44,17 +45,33 @@ export const setEnabledAction = memberAction("webhooks:manage")
     return done({ message: enabled ? "Enabled." : "Disabled." });
   });
 
-export const eventTypesAction = memberAction("webhooks:manage")
-  .inputSchema(zfd.formData({ id, eventTypes: zfd.repeatable(z.array(EventType).max(50)) }))
-  .action(async ({ parsedInput, ctx: { member, em } }) => {
-    const types = parsedInput.eventTypes;
-    await webhooks.updateEndpoint(em, member.shopId, parsedInput.id, { eventTypes: types });
-    return done({ message: types.length ? `Now receives ${types.length} event type${types.length === 1 ? "" : "s"}.` : "Now receives every event type." });
-  });
-
 export const resendAction = memberAction("webhooks:manage")
   .inputSchema(zfd.formData({ id, event: zfd.text(z.string().max(64)) }))
   .action(async ({ parsedInput, ctx: { member, em } }) => {
     await webhooks.resend(em, member.shopId, parsedInput.event, parsedInput.id);
     return done({ message: "Resent." });
+  });
+
+export const updateEndpointAction = memberAction("webhooks:manage")
+  .inputSchema(zfd.formData({ id, url: zfd.text(fields.url), description: zfd.text(fields.description), eventTypes: zfd.repeatable(z.array(EventType).max(50)) }))
+  .action(async ({ parsedInput: { id: endpointId, url, description, eventTypes }, ctx: { member, em } }) => {
+    await webhooks.updateEndpoint(em, member.shopId, endpointId, { url, description: description ?? "", eventTypes });
+    revalidatePath(`/console/webhooks/${endpointId}`);
+    return done({ message: "Saved." });
+  });
+
+export const deleteEndpointAction = memberAction("webhooks:manage")
+  .inputSchema(zfd.formData({ id }))
+  .action(async ({ parsedInput, ctx: { member, em } }) => {
+    await webhooks.deleteEndpoint(em, member.shopId, parsedInput.id);
+    revalidatePath("/console/webhooks");
+    redirect("/console/webhooks");
+  });
+
+export const resendFailedAction = memberAction("webhooks:manage")
+  .inputSchema(zfd.formData({ id }))
+  .action(async ({ parsedInput, ctx: { member, em } }) => {
+    const count = await webhooks.resendFailed(em, member.shopId, parsedInput.id);
+    revalidatePath(`/console/webhooks/${parsedInput.id}`);
+    return done({ message: count ? `${count} failed event${count === 1 ? "" : "s"} sent again.` : "Nothing has failed that was not already sent again." });
   });

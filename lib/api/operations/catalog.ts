@@ -12,7 +12,7 @@ const archivedFlag = z.enum(["true", "false"]).optional().openapi({ description:
 
 export const listShears = defineOperation({
   operationId: "listShears", method: "get", path: "/shears", tags, scope: "catalog:read", summary: "List shears",
-  query: Pagination.extend({ include_archived: archivedFlag }),
+  query: Pagination.extend({ includeArchived: archivedFlag, include_archived: archivedFlag.openapi({ description: "The earlier spelling of `includeArchived`, still accepted", deprecated: true }) }),
   responses: { 200: { description: "A page of shears.", schema: listOf(Shear, "ShearList") } },
 });
 export const createShear = defineOperation({
@@ -37,7 +37,7 @@ export const archiveShear = defineOperation({
 
 export const listGrades = defineOperation({
   operationId: "listGrades", method: "get", path: "/grades", tags, scope: "catalog:read", summary: "List grades",
-  query: Pagination.extend({ include_archived: archivedFlag, family: z.enum(GRADE_FAMILIES).optional() }),
+  query: Pagination.extend({ includeArchived: archivedFlag, include_archived: archivedFlag.openapi({ description: "The earlier spelling of `includeArchived`, still accepted", deprecated: true }), family: z.enum(GRADE_FAMILIES).optional() }),
   responses: { 200: { description: "A page of grades.", schema: listOf(Grade, "GradeList") } },
 });
 export const createGrade = defineOperation({

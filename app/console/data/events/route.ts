@@ -3,18 +3,35 @@ import { currentMember } from "@/lib/auth/session";
 import { requestEm } from "@/lib/db/orm";
 import { EVENT_TYPES } from "@/lib/services/event-types";
 import { listEvents } from "@/lib/services/webhooks";
+import { textProblem } from "@/lib/text";
 
 export const dynamic = "force-dynamic";
 
-/** The console's events feed (session, any role of the shop). */
+/** What an event is about, by name first: a program's or plan's reference, an endpoint's address. */
+function about(subjectId: string, data: Record<string, unknown>): { label: string; href: string | null } {
+  const program = data.program as { reference?: string } | undefined;
+  const plan = data.plan as { reference?: string | null } | undefined;
+  const endpoint = data.endpoint as { url?: string } | undefined;
+  if (subjectId.startsWith("prg_")) return { label: program?.reference ?? subjectId, href: `/console/programs/${subjectId}` };
+  if (subjectId.startsWith("pln_")) return { label: plan?.reference ?? "a plan without a reference", href: `/console/plans/${subjectId}` };
+  if (subjectId.startsWith("whe_")) return { label: endpoint?.url ?? subjectId, href: `/console/webhooks/${subjectId}` };
+  return { label: subjectId, href: null };
+}
+
+/** The console's events feed (session, any role of the shop): a page at a time, newest first. */
 export async function GET(request: Request) {
   const member = await currentMember();
   const q = new URL(request.url).searchParams;
   const type = (EVENT_TYPES as readonly string[]).includes(q.get("type") ?? "") ? q.get("type")! : undefined;
+  const cursor = q.get("cursor") ?? undefined;
+  if (cursor && textProblem(cursor)) return NextResponse.json({ error: "That page cannot be read." }, { status: 400 });
   try {
-    const page = await listEvents(await requestEm(), member.shopId, { limit: 100, type, cursor: q.get("cursor") ?? undefined });
-    return NextResponse.json({ data: page.data.map(({ data: _d, ...e }) => e), next_cursor: page.next_cursor }, { headers: { "Cache-Control": "no-store" } });
+    const page = await listEvents(await requestEm(), member.shopId, { limit: 50, type, cursor });
+    return NextResponse.json(
+      { data: page.data.map(({ data, ...e }) => ({ ...e, about: about(e.subjectId, data) })), next_cursor: page.next_cursor },
+      { headers: { "Cache-Control": "no-store" } },
+    );
   } catch {
-    return NextResponse.json({ error: "The events could not be read; try again." }, { status: 400 });
+    return NextResponse.json({ error: "The events could not be read; start again from the newest page." }, { status: 400 });
   }
 }

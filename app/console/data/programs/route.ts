@@ -3,21 +3,25 @@ import { PROGRAM_STATUSES, type ProgramStatus } from "@/lib/schemas/enums";
 import { currentMember } from "@/lib/auth/session";
 import { requestEm } from "@/lib/db/orm";
 import { listPrograms } from "@/lib/services/programs";
+import { textProblem } from "@/lib/text";
 
 export const dynamic = "force-dynamic";
 
-/** The console's programs feed (session, any role of the shop). */
+/** The console's programs feed (session, any role of the shop): a page at a time, newest first, by state and search. */
 export async function GET(request: Request) {
   const member = await currentMember();
   const q = new URL(request.url).searchParams;
   const status = PROGRAM_STATUSES.includes(q.get("status") as ProgramStatus) ? (q.get("status") as ProgramStatus) : undefined;
+  const search = q.get("search")?.trim().slice(0, 100) || undefined;
+  const cursor = q.get("cursor") ?? undefined;
+  if ((search && textProblem(search)) || (cursor && textProblem(cursor))) return NextResponse.json({ error: "The search holds characters that cannot be searched for." }, { status: 400 });
   try {
-    const page = await listPrograms(await requestEm(), member.shopId, { limit: 100, status, cursor: q.get("cursor") ?? undefined });
+    const page = await listPrograms(await requestEm(), member.shopId, { limit: 50, status, search, cursor });
     return NextResponse.json({
       data: page.data.map((p) => ({ id: p.id, reference: p.reference, title: p.title, status: p.status, validation: p.validation, findings: p.check.findings.length, dueAt: p.dueAt, updatedAt: p.updatedAt })),
       next_cursor: page.next_cursor,
     }, { headers: { "Cache-Control": "no-store" } });
   } catch {
-    return NextResponse.json({ error: "The programs could not be read; try again." }, { status: 400 });
+    return NextResponse.json({ error: "The programs could not be read; start again from the newest page." }, { status: 400 });
   }
 }

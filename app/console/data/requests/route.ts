@@ -2,6 +2,7 @@ import { NextResponse } from "next/server";
 import { currentMember } from "@/lib/auth/session";
 import { requestEm } from "@/lib/db/orm";
 import { listRequests, type LogFilter } from "@/lib/services/logs";
+import { textProblem } from "@/lib/text";
 
 export const dynamic = "force-dynamic";
 
@@ -11,10 +12,14 @@ export async function GET(request: Request) {
   const q = new URL(request.url).searchParams;
   const hours = [1, 24, 168].includes(Number(q.get("hours"))) ? Number(q.get("hours")) : 24;
   const status = q.get("status");
+  const id = q.get("id")?.trim();
+  for (const value of [id, q.get("cursor"), q.get("key"), q.get("route")]) {
+    if (value && textProblem(value)) return NextResponse.json({ error: "The filter holds characters that cannot be searched for." }, { status: 400 });
+  }
   const filter: LogFilter = {
-    limit: 100, cursor: q.get("cursor") ?? undefined, keyId: q.get("key") || undefined, route: q.get("route") || undefined,
+    limit: 50, cursor: q.get("cursor") ?? undefined, id: id || undefined, keyId: q.get("key") || undefined, route: q.get("route") || undefined,
     statusClass: status && ["2xx", "3xx", "4xx", "5xx"].includes(status) ? (status as LogFilter["statusClass"]) : undefined,
-    from: new Date(Date.now() - hours * 3_600_000),
+    from: id ? undefined : new Date(Date.now() - hours * 3_600_000),
   };
   try {
     const page = await listRequests(await requestEm(), member.shopId, filter);

@@ -42,7 +42,7 @@ export default async function EventPage({ params }: { params: Promise<{ id: stri
         ))}
       </Table>
       <h2 className="mb-2 mt-6 text-sm font-semibold">Payload data</h2>
-      <pre className="max-h-96 overflow-auto rounded-md bg-scale-100 p-3 text-xs">{JSON.stringify(event.data, null, 2)}</pre>
+      <pre tabIndex={0} className="max-h-96 overflow-auto rounded-md bg-scale-100 p-3 text-xs">{JSON.stringify(event.data, null, 2)}</pre>
     </>
   );
 }

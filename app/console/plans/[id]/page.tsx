@@ -3,6 +3,7 @@ import { notFound } from "next/navigation";
 import { CutDrawing } from "@/components/console/CutDrawing";
 import { WritePrograms } from "@/components/console/PlanActions";
 import { PlanProgress } from "@/components/console/PlanProgress";
+import { groupName } from "@/components/console/words";
 import { SafetyNote } from "@/components/SafetyNote";
 import { Badge, PageHeader, Stat, Table, Td } from "@/components/ui";
 import { ApiError } from "@/lib/api/errors";
@@ -11,6 +12,7 @@ import { currentMember } from "@/lib/auth/session";
 import { requestEm } from "@/lib/db/orm";
 import { PLAN_OBJECTIVE_LABELS } from "@/lib/schemas/enums";
 import type { PlanResultT } from "@/lib/schemas/plan";
+import { Program } from "@/entities";
 import { getPlan } from "@/lib/services/plans";
 import { programLayout } from "@/lib/shear";
 
@@ -21,7 +23,8 @@ const fmtTime = (s: number) => (s >= 3600 ? `${Math.floor(s / 3600)} h ${Math.ro
 export default async function PlanPage({ params }: { params: Promise<{ id: string }> }) {
   const { id } = await params;
   const member = await currentMember();
-  const view = await getPlan(await requestEm(), member.shopId, id).catch((err) => {
+  const em = await requestEm();
+  const view = await getPlan(em, member.shopId, id).catch((err) => {
     if (err instanceof ApiError && err.status === 404) notFound();
     throw err;
   });
@@ -46,6 +49,8 @@ export default async function PlanPage({ params }: { params: Promise<{ id: strin
   const plan: PlanResultT & { id: string; reference: string | null; programs: { pattern: string; id: string }[] } = { ...view.result, id: view.id, reference: view.reference, programs: view.programs };
   const s = plan.summary;
   const written = new Map(plan.programs.map((p) => [p.pattern, p.id]));
+  const programs = new Map((plan.programs.length ? await em.find(Program, { id: { $in: plan.programs.map((p) => p.id) }, shop: member.shopId }, { fields: ["reference", "status"] }) : [])
+    .map((p) => [p.id, { reference: p.reference, status: p.status }]));
 
   return (
     <>
@@ -97,7 +102,7 @@ export default async function PlanPage({ params }: { params: Promise<{ id: strin
                   <ol className="mt-1 space-y-0.5">
                     {p.cuts.map((c, i) => (
                       <li key={i} className={faulty.includes(i) ? "text-fault" : ""}>
-                        <span className="font-mono">/cuts/{i}</span>: {c.count} stroke{c.count === 1 ? "" : "s"} at {c.backgauge} {u}{c.note ? ` · ${c.note}` : ""}
+                        <span className="font-medium">{groupName(i)}</span>: {c.count} stroke{c.count === 1 ? "" : "s"} at {c.backgauge} {u}{c.note ? ` · ${c.note}` : ""}
                       </li>
                     ))}
                   </ol>
@@ -112,7 +117,18 @@ export default async function PlanPage({ params }: { params: Promise<{ id: strin
           {plan.programs.length ? (
             <section className="rounded-md border border-scale-200 bg-white p-4 text-sm" data-testid="plan-programs">
               <h2 className="mb-2 font-semibold">Programs written</h2>
-              <ul className="space-y-0.5">{plan.programs.map((p) => <li key={p.id}><Link href={`/console/programs/${p.id}`} className="text-edge hover:underline">Pattern {p.pattern}</Link> <span className="font-mono text-xs text-ink-muted">{p.id}</span></li>)}</ul>
+              <ul className="space-y-1">
+                {plan.programs.map((p) => {
+                  const program = programs.get(p.id);
+                  return (
+                    <li key={p.id} className="flex flex-wrap items-center gap-2">
+                      <Link href={`/console/programs/${p.id}`} className="text-edge hover:underline">{program?.reference ?? p.id}</Link>
+                      {program && <Badge value={program.status} />}
+                      <span className="text-xs text-ink-muted">pattern {p.pattern}</span>
+                    </li>
+                  );
+                })}
+              </ul>
             </section>
           ) : plan.patterns.length && can(member.role, "programs:write") ? (
             <WritePrograms plan={plan.id} defaultPrefix={plan.reference ?? plan.id} patterns={plan.patterns.length} />
@@ -123,7 +139,7 @@ export default async function PlanPage({ params }: { params: Promise<{ id: strin
             <Table head={["Blank", "Size", "Asked", "Planned"]}>
               {plan.blanks.map((b, i) => (
                 <tr key={i}>
-                  <Td>{b.label}{b.canTurn ? "" : <span className="text-ink-muted" title="grain or finish follows the sheet"> ⟂</span>}</Td>
+                  <Td>{b.label}{b.canTurn ? "" : <span className="text-ink-muted" title="keeps the sheet's direction: grain or finish"> (not turned)</span>}</Td>
                   <Td mono>{b.length} × {b.width}</Td>
                   <Td mono>{b.quantity}</Td>
                   <Td mono className={b.short ? "text-fault" : b.extra ? "text-caution-dark" : ""}>{b.planned}{b.short ? ` (−${b.short})` : b.extra ? ` (+${b.extra})` : ""}</Td>

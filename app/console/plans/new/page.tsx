@@ -23,7 +23,7 @@ export default async function NewPlan() {
       <section className="mt-8 max-w-3xl text-sm">
         <h2 className="font-semibold">Cut list layout</h2>
         <p className="mt-1 text-ink-muted">One row per blank: lengths in the plan&apos;s units, <code>can_turn</code> yes or no (no when grain or finish must run along the sheet&apos;s length; empty means yes).</p>
-        <pre className="mt-2 overflow-x-auto rounded bg-scale-100 p-3 text-xs">{`${BLANK_COLUMNS.join(",")}
+        <pre tabIndex={0} className="mt-2 overflow-x-auto rounded bg-scale-100 p-3 text-xs">{`${BLANK_COLUMNS.join(",")}
 base,600,400,10,yes
 lid,1200,500,4,no`}</pre>
       </section>

@@ -2,12 +2,14 @@ import Link from "next/link";
 import { notFound } from "next/navigation";
 import { CutDrawing } from "@/components/console/CutDrawing";
 import { ProgramActions } from "@/components/console/ProgramActions";
+import { groupName, pointerInWords, thicknessInWords } from "@/components/console/words";
 import { SafetyNote } from "@/components/SafetyNote";
 import { Badge, PageHeader, Table, Td, when } from "@/components/ui";
 import { ApiError } from "@/lib/api/errors";
 import { can } from "@/lib/auth/roles";
 import { currentMember } from "@/lib/auth/session";
 import { requestEm } from "@/lib/db/orm";
+import { Shear } from "@/entities";
 import { getProgram, viewProgram } from "@/lib/services/programs";
 import { listEvents } from "@/lib/services/webhooks";
 import { programLayout } from "@/lib/shear";
@@ -28,6 +30,9 @@ export default async function ProgramPage({ params }: { params: Promise<{ id: st
   });
   const p = viewProgram(entity);
   const c = p.check;
+  const shear = await em.findOne(Shear, { id: p.shear }, { fields: ["name"] });
+  const shearName = shear?.name ?? p.shear;
+  const errors = c.findings.filter((f) => f.severity === "error");
   const history = await listEvents(em, member.shopId, { limit: 100, subject: p.id });
   const faultyGroups = [...new Set(c.findings.map((f) => /^\/cuts\/(\d+)/.exec(f.pointer)?.[1]).filter(Boolean).map(Number))];
   const warnings = [...new Set(c.findings.filter((f) => f.severity === "warning").map((f) => f.code))];
@@ -37,10 +42,17 @@ export default async function ProgramPage({ params }: { params: Promise<{ id: st
     <>
       <p className="mb-1 text-xs"><Link href="/console/programs" className="text-edge hover:underline">← Programs</Link></p>
       <PageHeader title={`${p.reference}${p.title ? ` · ${p.title}` : ""}`} lead={
-        <span className="font-mono text-xs">
-          {p.id} · revision {p.revision} · {p.grade} · {p.units}
-          {p.metadata.plan?.startsWith("pln_") && <> · <Link href={`/console/plans/${p.metadata.plan}`} className="text-edge hover:underline">pattern {p.metadata.pattern ?? "?"} of plan {p.metadata.plan}</Link></>}
-        </span>
+        <>
+          <span className="block text-sm text-ink" data-testid="program-where">
+            On <Link href={`/console/shears/${p.shear}`} className="text-edge hover:underline">{shearName}</Link>
+            {" · "}{thicknessInWords(p.thickness, p.units, c.thickness)} {p.grade}
+            {" · "}{p.sheet.count} sheet{p.sheet.count === 1 ? "" : "s"} of {p.sheet.length} × {p.sheet.width} {p.units}
+          </span>
+          <span className="font-mono text-xs">
+            {p.id} · revision {p.revision}
+            {p.metadata.plan?.startsWith("pln_") && <> · <Link href={`/console/plans/${p.metadata.plan}`} className="text-edge hover:underline">pattern {p.metadata.pattern ?? "?"} of plan {p.metadata.plan}</Link></>}
+          </span>
+        </>
       }>
         <Badge value={p.status} /> <Badge value={p.validation} label={`check: ${p.validation}`} />
       </PageHeader>
@@ -52,15 +64,15 @@ export default async function ProgramPage({ params }: { params: Promise<{ id: st
             {c.findings.length === 0 ? (
               <p className="text-sm text-ok">No findings: the program fits this shear and grade.</p>
             ) : (
-              <Table head={["Severity", "Code", "Where", "Message", "Limit", "Actual"]}>
+              <Table head={["Severity", "Where", "Message", "Limit", "Actual", "Code"]}>
                 {c.findings.map((f, i) => (
                   <tr key={i}>
                     <Td><Badge value={f.severity} /></Td>
-                    <Td mono>{f.code}</Td>
-                    <Td mono>{f.pointer || "/"}</Td>
+                    <Td>{pointerInWords(f.pointer)}<br /><span className="font-mono text-xs text-ink-muted">{f.pointer || "/"}</span></Td>
                     <Td>{f.message}</Td>
                     <Td mono>{f.limit ?? "—"} {f.limit !== null ? f.unit : ""}</Td>
                     <Td mono>{f.actual ?? "—"} {f.actual !== null ? f.unit : ""}</Td>
+                    <Td mono>{f.code}</Td>
                   </tr>
                 ))}
               </Table>
@@ -73,7 +85,7 @@ export default async function ProgramPage({ params }: { params: Promise<{ id: st
             <ol className="mt-2 space-y-0.5 text-xs text-ink-muted">
               {p.cuts.map((cut, i) => (
                 <li key={i} className={faultyGroups.includes(i) ? "text-fault" : ""}>
-                  <span className="font-mono">/cuts/{i}</span>: {cut.turn ? (cut.from !== undefined ? `turn each piece of /cuts/${cut.from}, then ` : "turn each piece, then ") : ""}{cut.count} stroke{cut.count === 1 ? "" : "s"} at {cut.backgauge} {p.units}
+                  <span className="font-medium">{groupName(i)}</span>: {cut.turn ? (cut.from !== undefined ? `turn each piece of ${groupName(cut.from)}, then ` : "turn each piece, then ") : ""}{cut.count} stroke{cut.count === 1 ? "" : "s"} at {cut.backgauge} {p.units}
                   {cut.length ? `, ${cut.length} ${p.units} long` : ""}{cut.scrap ? " (trim)" : ""}{cut.note ? ` · ${cut.note}` : ""}
                 </li>
               ))}
@@ -138,7 +150,8 @@ export default async function ProgramPage({ params }: { params: Promise<{ id: st
             <section className="rounded-md border border-scale-200 bg-white p-4">
               <h2 className="mb-2 text-sm font-semibold">Actions</h2>
               {mayRelease ? (
-                <ProgramActions id={p.id} canRelease={p.status === "draft" && p.validation !== "fail"} canCancel warnings={warnings} />
+                <ProgramActions id={p.id} reference={p.reference} shearName={shearName} status={p.status} errors={errors.length} canCancel
+                  warnings={warnings.map((code) => ({ code, message: c.findings.find((f) => f.code === code)?.message ?? code }))} />
               ) : (
                 <p className="text-sm text-ink-muted">Your role ({member.role}) can read programs; admins and owners release and cancel them.</p>
               )}

@@ -28,7 +28,7 @@ export default async function ShearPage({ params }: { params: Promise<{ id: stri
         )}
       </PageHeader>
       <section className="max-w-2xl rounded-md border border-scale-200 bg-white p-4">
-        {manage ? <ShearForm id={s.id} initial={s} /> : <pre className="text-xs">{JSON.stringify(s, null, 2)}</pre>}
+        {manage ? <ShearForm id={s.id} initial={s} /> : <pre tabIndex={0} className="overflow-x-auto text-xs">{JSON.stringify(s, null, 2)}</pre>}
       </section>
     </>
   );

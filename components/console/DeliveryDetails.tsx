@@ -1,0 +1,50 @@
+import { when } from "@/components/ui";
+import type { DeliveryT } from "@/lib/schemas/webhook";
+
+/**
+ * A delivery's attempts, each opening to what was sent (the headers, signature included, and
+ * the body, which is the event's payload: the same on every attempt) and what came back.
+ */
+export function DeliveryDetails({ delivery, payload }: { delivery: DeliveryT; payload: string }) {
+  if (!delivery.attemptLog.length) return <p className="text-xs text-ink-muted">Not attempted yet{delivery.nextAttemptAt ? `; first try ${when(delivery.nextAttemptAt)}` : ""}.</p>;
+  let pretty = payload;
+  try {
+    pretty = JSON.stringify(JSON.parse(payload), null, 2);
+  } catch {
+    /* shown as sent */
+  }
+  return (
+    <div className="space-y-1">
+      {delivery.attemptLog.map((a, i) => (
+        <details key={a.id} className="rounded border border-scale-200 bg-scale-50 text-xs" data-testid="attempt">
+          <summary className="cursor-pointer px-2 py-1">
+            Attempt {i + 1} · {when(a.attemptedAt)} · {a.statusCode !== null ? `HTTP ${a.statusCode}` : (a.error ?? "no answer")} · {a.latencyMs} ms
+          </summary>
+          <div className="grid gap-2 px-2 pb-2 lg:grid-cols-2">
+            <section>
+              <h4 className="font-semibold">Request</h4>
+              <p className="font-mono">POST</p>
+              <dl className="font-mono">
+                {Object.entries(a.requestHeaders ?? {}).map(([name, value]) => (
+                  <div key={name} className="break-all"><dt className="inline text-ink-muted">{name}: </dt><dd className="inline">{value}</dd></div>
+                ))}
+                {!a.requestHeaders && <div className="text-ink-muted">(headers not recorded for attempts made before they were kept)</div>}
+              </dl>
+              <pre tabIndex={0} className="mt-1 max-h-64 overflow-auto rounded bg-white p-2">{pretty}</pre>
+            </section>
+            <section>
+              <h4 className="font-semibold">Response</h4>
+              <p className="font-mono">{a.statusCode !== null ? `HTTP ${a.statusCode}` : `no response: ${a.error ?? "unknown error"}`}</p>
+              <dl className="font-mono">
+                {Object.entries(a.responseHeaders ?? {}).map(([name, value]) => (
+                  <div key={name} className="break-all"><dt className="inline text-ink-muted">{name}: </dt><dd className="inline">{value}</dd></div>
+                ))}
+              </dl>
+              {a.responseExcerpt !== null && <pre tabIndex={0} className="mt-1 max-h-64 overflow-auto whitespace-pre-wrap break-all rounded bg-white p-2">{a.responseExcerpt}</pre>}
+            </section>
+          </div>
+        </details>
+      ))}
+    </div>
+  );
+}

@@ -251,7 +251,7 @@ describe("planning blanks onto sheets", () => {
 });
 
 describe("2D bin-packing classes (sheets against the area lower bound)", () => {
-  const dir = path.resolve("..", "shared", "data", "cutting", "CLASS", "json");
+  const dir = path.resolve(import.meta.dirname, "..", "fixtures", "cutting", "CLASS", "json");
   const files = readdirSync(dir).filter((f) => f.endsWith(".json"));
   const byClass = new Map<string, { sheets: number; bound: number; n: number }>();
   for (const f of files) {

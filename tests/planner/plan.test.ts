@@ -30,13 +30,13 @@ function checkPlan(plan: Plan, stock: Stock[], blanks: Blank[], options: PlanOpt
     const rects: { x: number; y: number; l: number; w: number }[] = [];
     for (const st of p.strips) {
       expect(st.y).toBe(y); // strips follow each other across the sheet: each rip is a full cut of the sheet
-      y += st.height;
+      y += st.width;
       let x = st.pieces[0]?.x ?? 0;
       for (const pc of st.pieces) {
         expect(pc.x).toBe(x); // pieces follow each other along the strip: each crosscut is a full cut of the strip
         expect(pc.y).toBe(st.y);
         x += pc.length;
-        expect(pc.width).toBeLessThanOrEqual(st.height); // and a narrower piece is trimmed by a full cut of that piece
+        expect(pc.width).toBeLessThanOrEqual(st.width); // and a narrower piece is trimmed by a full cut of that piece
         const b = blanks[pc.blank];
         expect([pc.length, pc.width]).toEqual(pc.turned !== p.rotated ? [b.width, b.length] : [b.length, b.width]); // grain follows the sheet
         if (pc.turned) expect(b.canTurn).toBe(true);

@@ -15,6 +15,8 @@ import type { SheetPattern } from "./types";
 
 export interface GreedyResult {
   patterns: SheetPattern[];
+  /** the candidate each pattern was made from */
+  chosen: Candidate[];
   /** pieces per blank these patterns make */
   produced: number[];
   /** sheets left on hand per stock size (null: as many as needed) */
@@ -39,6 +41,7 @@ export function planGreedy(
   const produced = wanted.map(() => 0);
   const left = [...onHand];
   const patterns: SheetPattern[] = [];
+  const chosen: Candidate[] = [];
   const exactStrips = options.objective === "fewest_strokes" ? [false, true] : [false];
   for (;;) {
     const need = wanted.map((count, blank) => Math.max(0, count - produced[blank]));
@@ -66,9 +69,10 @@ export function planGreedy(
     if (sheetsLeft !== null) left[best.way.stock] = sheetsLeft - repeats;
     const pattern = toSheetPattern(best, repeats);
     patterns.push(pattern);
+    chosen.push(best);
     onPattern?.(pattern);
   }
-  return { patterns, produced, onHand: left, work: tables.work };
+  return { patterns, chosen, produced, onHand: left, work: tables.work };
 }
 
 /**

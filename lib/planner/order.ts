@@ -8,7 +8,7 @@
  */
 import { checkProgram, type CheckResult, type GradeProfile, type ShearProfile } from "../shear";
 import { checkOrderLimits, MM_PER_UNIT, percent, round, type Order, type OrderBlank, type OrderStock } from "./order-limits";
-import { planBlanks, type Objective, type PlanProgress } from "./plan";
+import { planBlanks, type Objective, type PlanMethod, type PlanProgress } from "./plan";
 
 export { checkOrderLimits, gridFor, OrderRefused, PLAN_LIMITS, type Order, type OrderBlank, type OrderOptions, type OrderStock, type PlanLimit } from "./order-limits";
 
@@ -73,6 +73,15 @@ export interface PlannedOrder {
     strokes: number;
     turns: number;
     estimateSeconds: number;
+    /** no plan of two-stage patterns can cut the blanks this plan places from fewer sheets (all it was asked for, when complete) */
+    lowerBoundSheets: number;
+    /** the plan uses `lowerBoundSheets` sheets: provably the fewest */
+    provenFewest: boolean;
+    /** the bounds behind `lowerBoundSheets`: blank area over the largest usable sheet, and the LP over all two-stage patterns (null when not computed, or the plan is partial) */
+    bounds: { areaSheets: number; lpSheets: number | null };
+    method: PlanMethod;
+    /** why the work budget made the plan, or its last sheets, pattern by pattern; null when it did not */
+    methodNote: string | null;
   };
   patterns: PlannedPattern[];
   reusableOffcuts: { length: number; width: number; count: number }[];
@@ -89,7 +98,7 @@ export interface PlanContext {
  * the sheets, and each pattern's program is checked by the shear core. `onProgress` hears
  * after every sheet pattern found.
  */
-export function planOrder(order: Order, context: PlanContext, onProgress?: (progress: PlanProgress) => void): PlannedOrder {
+export async function planOrder(order: Order, context: PlanContext, onProgress?: (progress: PlanProgress) => void): Promise<PlannedOrder> {
   const profile = context.shear;
   const grid = checkOrderLimits(order, profile);
   const unitMm = MM_PER_UNIT[order.units];
@@ -100,7 +109,7 @@ export function planOrder(order: Order, context: PlanContext, onProgress?: (prog
   const reusable = options.reusableOffcut
     ? { length: Math.ceil(options.reusableOffcut.length * grid - 1e-9), width: Math.ceil(options.reusableOffcut.width * grid - 1e-9) }
     : null;
-  const planned = planBlanks(
+  const planned = await planBlanks(
     order.stock.map((sheet) => ({ length: toGrid(sheet.length), width: toGrid(sheet.width), count: sheet.count ?? null })),
     order.blanks.map((blank) => ({ label: blank.label, length: toGrid(blank.length), width: toGrid(blank.width), quantity: blank.quantity, canTurn: canTurn(blank) })),
     {
@@ -226,6 +235,11 @@ export function planOrder(order: Order, context: PlanContext, onProgress?: (prog
       strokes: planned.strokes,
       turns: planned.turns,
       estimateSeconds: round(estimateSeconds, 1),
+      lowerBoundSheets: planned.lowerBound,
+      provenFewest: planned.provenFewest,
+      bounds: { areaSheets: planned.bounds.area, lpSheets: planned.bounds.lp },
+      method: planned.method,
+      methodNote: planned.methodNote,
     },
     patterns,
     reusableOffcuts: planned.reusable.map((offcut) => ({ length: fromGrid(offcut.length), width: fromGrid(offcut.width), count: offcut.count })),

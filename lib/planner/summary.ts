@@ -7,6 +7,9 @@ import { writePattern } from "./program";
 import { whyUnplaceable } from "./presentation";
 import type { Plan, SheetPattern, Unplaced } from "./types";
 
+/** A plan's answer before the planner adds how it was made and what bounds it. */
+export type PlanBody = Omit<Plan, "method" | "methodNote" | "bounds" | "lowerBound" | "provenFewest">;
+
 /** Which blanks some sheet can take at all (within the blade and the backgauge's nearest setting). */
 export const placeableBlanks = (setup: PlanSetup): boolean[] =>
   setup.blanks.map((_, index) => setup.presentations.some((way) => way.variants.some((variant) => variant.blank === index)));
@@ -17,7 +20,20 @@ export const quantities = (setup: PlanSetup): number[] => setup.blanks.map((blan
 /** Extra pieces allowed per blank. */
 export const allowances = (setup: PlanSetup): number[] => quantities(setup).map((quantity) => Math.floor((quantity * setup.options.overProductionPct) / 100));
 
-export function assemblePlan(setup: PlanSetup, patterns: SheetPattern[], produced: number[]): Plan {
+/** Patterns cut alike on the same sheet as one pattern with their repeats added (the first keeps its place). */
+export function mergeAlike(patterns: SheetPattern[]): SheetPattern[] {
+  const byKey = new Map<string, SheetPattern>();
+  for (const pattern of patterns) {
+    const key = JSON.stringify([pattern.stock, pattern.rotated, pattern.cuts, pattern.strips]);
+    const same = byKey.get(key);
+    if (same) same.repeats += pattern.repeats;
+    else byKey.set(key, { ...pattern });
+  }
+  return [...byKey.values()];
+}
+
+export function assemblePlan(setup: PlanSetup, unmerged: SheetPattern[], produced: number[]): PlanBody {
+  const patterns = mergeAlike(unmerged);
   const { blanks, options } = setup;
   const show = options.show ?? String;
   const quantity = quantities(setup);

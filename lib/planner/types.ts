@@ -3,6 +3,7 @@
  * blade (a strip's length, a sheet as presented), `width` toward the backgauge (a strip's
  * width is the rip's backgauge setting). Integer dimensions on the caller's grid.
  */
+import type { LpSolver } from "./lp-solver";
 import type { Leftover, PlanCut } from "./program";
 
 export interface Blank {
@@ -23,6 +24,9 @@ export interface Stock {
 
 export type Objective = "fewest_sheets" | "least_waste" | "fewest_strokes";
 
+/** How the plan's patterns were chosen: all sheets together by column generation, or one pattern after another (the greedy). */
+export type PlanMethod = "column_generation" | "greedy";
+
 export interface PlanOptions {
   objective?: Objective;
   /** trim cut off the sheet's first edge before ripping (0: none) */
@@ -41,6 +45,10 @@ export interface PlanOptions {
   show?: (value: number) => string;
   /** told after every sheet pattern is chosen (for a progress report; must not change anything) */
   onProgress?: (progress: PlanProgress) => void;
+  /** the LP solver for column generation (default: the process's own, loaded once) */
+  lpSolver?: LpSolver;
+  /** work, in table cells, column generation may spend before the plan is made pattern by pattern (default `PLAN_COLUMN_GENERATION_BUDGET`) */
+  columnGenerationBudget?: number;
 }
 
 /** How far a plan has come: sheet patterns chosen and the pieces they place, of those wanted. */
@@ -63,6 +71,12 @@ export const STROKES_UTILISATION_SLACK = 0.05;
 export const PLAN_WORK_BUDGET = 150_000_000;
 /** Past this much work in all, strips are filled greedily, largest blank first: a plan of any size ends in seconds. */
 export const PLAN_WORK_LIMIT = 2 * PLAN_WORK_BUDGET;
+/**
+ * Work, in table cells (LP iterations counted as cells too), that column generation may spend on
+ * one plan; past it the plan keeps what is done and places the rest pattern by pattern. Counted,
+ * not timed, so plans stay reproducible.
+ */
+export const PLAN_COLUMN_GENERATION_BUDGET = 2_000_000_000;
 
 /** A piece on the sheet as presented (x along the blade); `turned` is relative to the stock sheet's length. */
 export interface Placement {
@@ -126,4 +140,14 @@ export interface Plan {
   reusable: { length: number; width: number; count: number }[];
   strokes: number;
   turns: number;
+  /** how the patterns were chosen */
+  method: PlanMethod;
+  /** why the budget made the plan (or its last sheets) pattern by pattern; null when it did not */
+  methodNote: string | null;
+  /** lower bounds on sheets: blank area over the largest sheet's usable area, and the LP bound rounded up (null when not computed) */
+  bounds: { area: number; lp: number | null };
+  /** no plan of two-stage patterns can cut the blanks this plan places (all it was asked for, when complete) from fewer sheets */
+  lowerBound: number;
+  /** the plan uses `lowerBound` sheets: provably the fewest */
+  provenFewest: boolean;
 }

@@ -44,7 +44,7 @@ export async function computePlan(em: EntityManager, shopId: string, input: Plan
   const [shear, grade] = await Promise.all([activeShear(em, shopId, input.shear, "plan"), gradeByCode(em, shopId, input.grade)]);
   let planned: PlannedOrder;
   try {
-    planned = planOrder(input, { shear: shearProfile(shear), grade: grade ? gradeProfile(grade) : null });
+    planned = await planOrder(input, { shear: shearProfile(shear), grade: grade ? gradeProfile(grade) : null });
   } catch (err) {
     if (err instanceof OrderRefused) throw refusal(err);
     throw err;

@@ -35,6 +35,8 @@ describe("the worked example of our cut-program docs, as order lines", () => {
     expect(res.status).toBe(201);
     expect(res.body.status).toBe("complete");
     expect(res.body.summary).toMatchObject({ sheets: 2, patterns: 1, blanksAsked: 56, blanksPlanned: 56, extra: 0, short: 0, utilisationPct: 93.33 }); // worked example: 93.3 %
+    // 56 × 192 in² is more than one 5 760 in² sheet, so 2 is the fewest (hand arithmetic); the first pattern filled already meets it
+    expect(res.body.summary).toMatchObject({ lowerBoundSheets: 2, provenFewest: true, bounds: { areaSheets: 2, lpSheets: null }, method: "greedy", methodNote: null });
     const [p] = res.body.patterns;
     expect(p.repeats).toBe(2);
     expect(p.strips).toHaveLength(4); // worked example: 4 strips 12 × 120
@@ -93,6 +95,10 @@ describe("mixed demand in millimetres", () => {
     expect(made).toEqual(planned);
     const sheets = written.body.data.reduce((s: number, prg: { sheet: { count: number } }) => s + prg.sheet.count, 0);
     expect(sheets).toBe(res.body.summary.sheets);
+    const { summary } = res.body;
+    expect(summary.lowerBoundSheets).toBeLessThanOrEqual(summary.sheets);
+    expect(summary.lowerBoundSheets).toBe(Math.max(summary.bounds.areaSheets, summary.bounds.lpSheets ?? 0));
+    expect(summary.provenFewest).toBe(summary.sheets === summary.lowerBoundSheets);
     expect(res.body.stock[0].used).toBeLessThanOrEqual(3);
   });
 
@@ -124,7 +130,7 @@ describe("findings instead of silent drops", () => {
       expect.objectContaining({ code: "stock_short", severity: "error", pointer: "/blanks/1", actual: 2 }), // one 2000 × 1000 sheet holds 4
     ]);
     expect(res.body.blanks.map((b: { planned: number; short: number }) => [b.planned, b.short])).toEqual([[0, 2], [4, 2]]);
-    expect(res.body.summary).toMatchObject({ sheets: 1, short: 4 });
+    expect(res.body.summary).toMatchObject({ sheets: 1, short: 4, lowerBoundSheets: 1, provenFewest: true, bounds: { lpSheets: null } }); // a partial plan: bounded by the area it places
   });
 
   it("over-production within the allowance is a warning", async () => {

@@ -12,28 +12,29 @@ for (let k = 0; k < 500; k++) blanks[k % 30].quantity += 1;
 const stock: Stock[] = [{ length: 3000, width: 1500, count: null }, { length: 2500, width: 1250, count: null }, { length: 2000, width: 1000, count: null }];
 
 describe("planner", () => {
-  bench("30 blank types, 500 pieces, 3 sheet sizes", () => {
-    planBlanks(stock, blanks);
+  bench("30 blank types, 500 pieces, 3 sheet sizes", async () => {
+    await planBlanks(stock, blanks);
   }, {
     iterations: 5,
-    teardown: () => {
-      const plan = planBlanks(stock, blanks);
+    teardown: async () => {
+      const plan = await planBlanks(stock, blanks);
       console.log(`plan: ${plan.sheetsUsed} sheets, ${(plan.utilisation * 100).toFixed(1)} % of their area is blanks (the area bound is 100 %); at least ${areaLowerBound(stock[0], blanks)} sheets even if all were the largest size (target time < 2 s)`);
     },
   });
-  bench("the same, objective fewest strokes and turns", () => {
-    planBlanks(stock, blanks, { objective: "fewest_strokes" });
+  bench("the same, objective fewest strokes and turns", async () => {
+    await planBlanks(stock, blanks, { objective: "fewest_strokes" });
   }, {
     iterations: 3,
-    teardown: () => {
-      const plan = planBlanks(stock, blanks, { objective: "fewest_strokes" });
-      console.log(`fewest strokes: ${plan.sheetsUsed} sheets, ${(plan.utilisation * 100).toFixed(1)} %, ${plan.strokes} strokes and ${plan.turns} turns (fewest sheets: ${planBlanks(stock, blanks).strokes} strokes and ${planBlanks(stock, blanks).turns} turns)`);
+    teardown: async () => {
+      const plan = await planBlanks(stock, blanks, { objective: "fewest_strokes" });
+      const sheets = await planBlanks(stock, blanks);
+      console.log(`fewest strokes: ${plan.sheetsUsed} sheets, ${(plan.utilisation * 100).toFixed(1)} %, ${plan.strokes} strokes and ${plan.turns} turns (fewest sheets: ${sheets.strokes} strokes and ${sheets.turns} turns)`);
     },
   });
   // The largest order a plan takes: 200 blank types (the schema's limit), 1000 pieces. No target; the
   // knapsack work budget (PLAN_WORK_BUDGET) keeps it to seconds.
   const many: Blank[] = Array.from({ length: 200 }, (_, i) => ({ label: `M${i + 1}`, length: 100 + rand(900), width: 50 + rand(450), quantity: 5, canTurn: i % 4 !== 0 }));
-  bench("200 blank types, 1000 pieces, 3 sheet sizes", () => {
-    planBlanks(stock, many);
+  bench("200 blank types, 1000 pieces, 3 sheet sizes", async () => {
+    await planBlanks(stock, many);
   }, { iterations: 2 });
 });

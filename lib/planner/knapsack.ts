@@ -11,9 +11,30 @@ import { PLAN_WORK_BUDGET, PLAN_WORK_LIMIT } from "./types";
 export interface StripTables {
   map: Map<string, { items: Variant[]; pick: Int32Array }>;
   work: number;
+  /** the blanks that fit a strip width, per set of blanks still wanted (a few sets kept) */
+  fitting: Map<string, Map<number, Variant[]>>;
 }
 
-export const newStripTables = (): StripTables => ({ map: new Map(), work: 0 });
+export const newStripTables = (): StripTables => ({ map: new Map(), work: 0, fitting: new Map() });
+
+/** Sets of blanks still wanted whose fitting lists are kept. */
+const FITTING_SETS = 32;
+
+/** The list `compute` gives for this set and width, kept for the next strip or pattern that asks (the same every time). */
+export function fittingFor(tables: StripTables, setKey: string, width: number, compute: () => Variant[]): Variant[] {
+  let byWidth = tables.fitting.get(setKey);
+  if (!byWidth) {
+    if (tables.fitting.size >= FITTING_SETS) tables.fitting.delete(tables.fitting.keys().next().value!);
+    byWidth = new Map();
+    tables.fitting.set(setKey, byWidth);
+  }
+  let list = byWidth.get(width);
+  if (!list) {
+    list = compute();
+    byWidth.set(width, list);
+  }
+  return list;
+}
 
 /**
  * Fill a strip of this length and width with what may still be placed (`open`); `all` gives every

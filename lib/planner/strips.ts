@@ -3,7 +3,7 @@
  * blank area per unit of strip width, or most area), or taken from the exact best two-stage
  * pattern (`two-stage.ts`) when no blank can run out on one sheet.
  */
-import { fillStrip, type StripTables } from "./knapsack";
+import { fillStrip, fittingFor, type StripTables } from "./knapsack";
 import type { Presentation, Variant } from "./presentation";
 import type { StripIn } from "./program";
 import { bestTwoStagePattern } from "./two-stage";
@@ -31,14 +31,20 @@ export function buildStrips(way: Presentation, cap: number[], rule: StripRule, e
   const want = [...cap];
   const strips: StripIn[] = [];
   let free = way.usableWidth;
+  const fitting = (variants: Variant[], width: number) => {
+    const out: Variant[] = [];
+    for (const variant of variants) if (fitsStrip(variant, width, exact, tolerance, way.backgaugeMax)) out.push(variant);
+    return out;
+  };
   for (;;) {
     const open = way.variants.filter((variant) => variant.width <= free && want[variant.blank] > 0);
     const setKey = `${way.stock}${way.rotated ? "r" : ""}${exact ? "e" : "t"}|${want.map((n) => (n > 0 ? 1 : 0)).join("")}`;
     const widths = [...new Set(open.map((variant) => variant.width))].filter((width) => width <= way.maxStripWidth);
     let best: { width: number; pieces: Variant[]; area: number } | null = null;
     for (const width of widths) {
-      const fits = (variant: Variant) => fitsStrip(variant, width, exact, tolerance, way.backgaugeMax);
-      const pieces = fillStrip(way.length, width, open.filter(fits), () => way.variants.filter(fits), want, tables, setKey);
+      // What fits a width depends only on the blanks still wanted (`setKey`), not on the width left: kept.
+      const fits = fittingFor(tables, setKey, width, () => fitting(open, width));
+      const pieces = fillStrip(way.length, width, fits, () => fitting(way.variants, width), want, tables, setKey);
       const area = pieces.reduce((sum, variant) => sum + variant.length * variant.width, 0);
       const better = !best || (rule === "density" ? area / width > best.area / best.width : area > best.area);
       if (area > 0 && better) best = { width, pieces, area };

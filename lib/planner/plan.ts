@@ -11,6 +11,7 @@
  * already prove it the fewest sheets, column generation over all sheets together
  * (`rounding.ts`), which proves a lower bound and makes a second plan; the objective takes the
  * better. When column generation's work budget runs out first, the greedy plan stands and says so.
+ * `fewest_strokes` keeps to the greedy plan (it trades sheets for handling, pattern by pattern).
  *
  * The parts: `types.ts` (inputs and the answer), `presentation.ts` (sheets and blanks as they
  * meet the blade), `knapsack.ts` and `strips.ts` (filling strips and sheets), `candidates.ts`
@@ -54,8 +55,10 @@ export async function planBlanks(stock: Stock[], blanks: Blank[], options: PlanO
   const greedyComplete = placesAll(greedy.produced);
   const budget = options.columnGenerationBudget ?? PLAN_COLUMN_GENERATION_BUDGET;
   const proven = greedyComplete && greedyPlan.sheetsUsed <= areaBound(setup, wantedArea);
-  if (piecesWanted > 0 && !proven && budget <= 0) methodNote = "No work budget was given for planning all sheets together: this plan was made pattern by pattern, and may use more sheets than needed.";
-  if (piecesWanted > 0 && !proven && budget > 0) {
+  // Fewest strokes trades sheets for handling pattern by pattern; planning all sheets together serves the other objectives.
+  const together = piecesWanted > 0 && !proven && setup.options.objective !== "fewest_strokes";
+  if (together && budget <= 0) methodNote = "No work budget was given for planning all sheets together: this plan was made pattern by pattern, and may use more sheets than needed.";
+  if (together && budget > 0) {
     const solver = options.lpSolver ?? (await loadLpSolver());
     const known = greedyComplete ? { sheets: greedyPlan.sheetsUsed, candidates: greedy.chosen } : null;
     const generated = planByColumnGeneration(setup, solver, { wanted, allowance, onHand }, budget, known, report);

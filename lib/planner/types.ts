@@ -76,7 +76,7 @@ export const PLAN_WORK_LIMIT = 2 * PLAN_WORK_BUDGET;
  * one plan; past it the plan keeps what is done and places the rest pattern by pattern. Counted,
  * not timed, so plans stay reproducible.
  */
-export const PLAN_COLUMN_GENERATION_BUDGET = 2_000_000_000;
+export const PLAN_COLUMN_GENERATION_BUDGET = 1_000_000_000;
 
 /** A piece on the sheet as presented (x along the blade); `turned` is relative to the stock sheet's length. */
 export interface Placement {

@@ -4,7 +4,8 @@
  * turnable; a shear whose blade and backgauge do not bind), the first instance of every 2D
  * bin-packing class and size (Berkey & Wang 1987, Martello & Vigo 1998) and the first two of every
  * Hopper (2000) category, all from `tests/fixtures/cutting/`. Printed per order: the area bound,
- * the LP bound (null when the area bound already proves the plan), Shearwire's sheets, and the
+ * the LP bound (null when the area bound already proves the plan), Shearwire's sheets, those of
+ * the pattern-by-pattern plan alone (no column generation), and the
  * bins of `maxrects-packer` (npm) as a reference, which packs without guillotine cuts: its
  * packing counts as cuttable on a shear only when every bin splits by edge-to-edge cuts
  * (checked). Run once each (`npm run bench`); no targets are asserted here.
@@ -88,7 +89,7 @@ function reference(order: Order): { bins: number; guillotine: boolean } {
   return { bins: packer.bins.length, guillotine: packer.bins.every((bin) => guillotine(bin.rects)) };
 }
 
-interface Row { order: Order; plan: Plan; milliseconds: number; maxrects: { bins: number; guillotine: boolean } }
+interface Row { order: Order; plan: Plan; milliseconds: number; greedy: number; maxrects: { bins: number; guillotine: boolean } }
 const rows: Row[] = [];
 
 /** A shear whose blade and backgauge reach every sheet and blank here. */
@@ -107,13 +108,15 @@ async function planAll(title: string, orders: Order[], limits: typeof FREE_SHEAR
     const stock: Stock[] = [{ ...order.sheet, count: null }];
     const started = performance.now();
     const plan = await planBlanks(stock, order.blanks, { limits });
-    mine.push({ order, plan, milliseconds: performance.now() - started, maxrects: reference(order) });
+    const milliseconds = performance.now() - started;
+    const greedy = (await planBlanks(stock, order.blanks, { limits, columnGenerationBudget: 0 })).sheetsUsed;
+    mine.push({ order, plan, milliseconds, greedy, maxrects: reference(order) });
   }
   rows.push(...mine);
   const line = (row: Row) => {
     const { plan } = row;
     const gap = plan.sheetsUsed - plan.lowerBound;
-    return `${row.order.name.padEnd(16)} ${String(row.order.blanks.length).padStart(3)} types  area ${String(plan.bounds.area).padStart(3)}  LP ${String(plan.bounds.lp ?? "-").padStart(3)}  Shearwire ${String(plan.sheetsUsed).padStart(3)}${gap ? ` (+${gap})` : "     "}  maxrects ${String(row.maxrects.bins).padStart(3)}${row.maxrects.guillotine ? " guillotine" : "           "}  ${plan.method === "greedy" ? "greedy" : "c.g.  "} ${row.milliseconds.toFixed(0).padStart(6)} ms${plan.methodNote ? "  (budget ran out)" : ""}`;
+    return `${row.order.name.padEnd(16)} ${String(row.order.blanks.length).padStart(3)} types  area ${String(plan.bounds.area).padStart(3)}  LP ${String(plan.bounds.lp ?? "-").padStart(3)}  Shearwire ${String(plan.sheetsUsed).padStart(3)}${gap ? ` (+${gap})` : "     "}  greedy alone ${String(row.greedy).padStart(3)}  maxrects ${String(row.maxrects.bins).padStart(3)}${row.maxrects.guillotine ? " guillotine" : "           "}  ${plan.method === "greedy" ? "greedy" : "c.g.  "} ${row.milliseconds.toFixed(0).padStart(6)} ms${plan.methodNote ? "  (budget ran out)" : ""}`;
   };
   console.log(`\n${title}\n  ${mine.map(line).join("\n  ")}\n  ${totals(mine)}`);
 }
@@ -126,7 +129,7 @@ function totals(of: Row[]): string {
   const worse = cuttable.filter((row) => row.plan.sheetsUsed > row.maxrects.bins).map((row) => row.order.name);
   const worst = of.reduce((most, row) => Math.max(most, row.plan.sheetsUsed - row.plan.lowerBound), 0);
   return [
-    `totals over ${of.length}: area bound ${sum((row) => row.plan.bounds.area)}, LP bound ${sum((row) => row.plan.bounds.lp ?? 0)} where computed, lower bound ${bound}, Shearwire ${sheets} (${((100 * (sheets - bound)) / bound).toFixed(2)} % above), maxrects ${sum((row) => row.maxrects.bins)}`,
+    `totals over ${of.length}: area bound ${sum((row) => row.plan.bounds.area)}, LP bound ${sum((row) => row.plan.bounds.lp ?? 0)} where computed, lower bound ${bound}, Shearwire ${sheets} (${((100 * (sheets - bound)) / bound).toFixed(2)} % above), greedy alone ${sum((row) => row.greedy)}, maxrects ${sum((row) => row.maxrects.bins)}`,
     `worst gap ${worst} sheet(s); proven fewest ${of.filter((row) => row.plan.provenFewest).length} of ${of.length}; plan time ${(sum((row) => row.milliseconds) / 1000).toFixed(1)} s in all, ${Math.max(...of.map((row) => row.milliseconds)).toFixed(0)} ms at most`,
     `maxrects packing guillotine in ${cuttable.length} orders; Shearwire uses more sheets than it in ${worse.length} of them${worse.length ? `: ${worse.join(", ")}` : ""}`,
   ].join("\n  ");

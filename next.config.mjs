@@ -13,6 +13,7 @@ const nextConfig = {
     "ioredis",
     "bullmq",
     "nodemailer",
+    "highs", // the planner's LP solver: its WebAssembly file is found beside its loader at run time
   ],
   poweredByHeader: false,
   reactStrictMode: true,

@@ -1,157 +1,20 @@
 /**
- * A whole order, planned: the request's lengths put on an integer grid, the limits every
- * order must keep before any work starts, the planner run on the grid, every sheet pattern
- * written as a cut program and checked by the shear core, and the answer turned back into
- * the order's units with its findings. Pure: no I/O; the caller supplies the shear and
- * grade profiles and receives plain data. The API's service calls `checkOrderLimits` on the
- * web process (cheap) and the worker thread calls `planOrder` (the CPU-heavy part).
+ * A whole order, planned: the request's lengths put on an integer grid (`order-limits.ts`, which
+ * also refuses orders outside the limits), the planner run on the grid, every sheet pattern
+ * written as a cut program and checked by the shear core, and the answer turned back into the
+ * order's units with its findings. Pure: no I/O; the caller supplies the shear and grade
+ * profiles and receives plain data. The API's service calls `checkOrderLimits` on the web
+ * process (cheap) and the worker thread calls `planOrder` (the CPU-heavy part).
  */
-import { checkProgram, type CheckResult, type GradeProfile, type LengthUnit, type ShearProfile } from "../shear";
-import { planBlanks, type Objective, type PlanProgress } from "./plan";
+import { checkProgram, type CheckResult, type GradeProfile, type ShearProfile } from "../shear";
+import { checkOrderLimits, MM_PER_UNIT, percent, round, type Order, type OrderBlank, type OrderStock } from "./order-limits";
+import { planBlanks, type Objective, type PlanMethod, type PlanProgress } from "./plan";
 
-export interface OrderStock {
-  length: number;
-  width: number;
-  count?: number | null;
-  label?: string;
-}
+export { checkOrderLimits, gridFor, OrderRefused, PLAN_LIMITS, type Order, type OrderBlank, type OrderOptions, type OrderStock, type PlanLimit } from "./order-limits";
 
-export interface OrderBlank {
-  label: string;
-  length: number;
-  width: number;
-  quantity: number;
-  canTurn?: boolean;
-}
-
-export interface OrderOptions {
-  objective?: Objective;
-  trim?: number;
-  overProductionPct?: number;
-  reusableOffcut?: { length: number; width: number };
-  offcutsAsStock?: boolean;
-}
-
-/** An order as the API receives it (lengths in `units`). */
-export interface Order {
-  reference?: string;
-  title?: string;
-  shear: string;
-  grade: string;
-  thickness: { value: number } | { gauge: number };
-  units: LengthUnit;
-  stock: OrderStock[];
-  blanks: OrderBlank[];
-  options?: OrderOptions;
-}
-
-/**
- * What one plan may ask for, checked before any work starts. The planner's own work is also
- * counted as it runs (`PLAN_WORK_BUDGET` in `plan.ts`), and the worker stops a plan at a
- * wall-clock limit; these keep an order from being hopeless before it is queued.
- */
-export const PLAN_LIMITS = {
-  /** blank types (order lines) in one plan */
-  blankTypes: 200,
-  /** pieces asked for, over all blank types */
-  totalPieces: 20_000,
-  /** stock sizes offered */
-  stockSizes: 20,
-  /** grid steps along either side of a sheet (the planner's tables run along the sheet in steps) */
-  gridSteps: 60_000,
-  /** a sheet's longer side, as a multiple of the shear's blade length */
-  sheetToBlade: 10,
-  /** estimated table cells for one round of strip filling: grid steps along the blade × blank presentations × strip heights */
-  work: 4_000_000_000,
-} as const;
-
-export type PlanLimit = keyof typeof PLAN_LIMITS;
-
-/** An order outside what the planner takes: the limit, the value sent, and where. */
-export class OrderRefused extends Error {
-  constructor(
-    message: string,
-    readonly limit: PlanLimit | "grid",
-    readonly pointer: string,
-    readonly value: number,
-    readonly max: number | null,
-  ) {
-    super(message);
-  }
-}
-
-const MM_PER_UNIT: Record<LengthUnit, number> = { mm: 1, in: 25.4 };
-/** Grid steps tried, finest last: whole units, halves … 1/64 in, tenths, hundredths, thousandths. */
-const GRIDS: Record<LengthUnit, number[]> = { mm: [1, 2, 10, 100], in: [1, 2, 4, 8, 16, 32, 64, 10, 100, 1000] };
-
-const round = (value: number, places = 4) => Math.round(value * 10 ** places) / 10 ** places;
-const percent = (value: number) => round(value * 100, 2);
-const stepName = (units: LengthUnit, grid: number) => (units === "mm" ? `${1 / grid} mm` : grid === 64 ? "1/64 in" : `${1 / grid} in`);
-
-/** The coarsest grid (steps per unit) on which every length of the order lies exactly. */
-export function gridFor(order: Order): number {
-  const lengths: { value: number; pointer: string }[] = [];
-  order.stock.forEach((s, i) => lengths.push({ value: s.length, pointer: `/stock/${i}/length` }, { value: s.width, pointer: `/stock/${i}/width` }));
-  order.blanks.forEach((b, i) => lengths.push({ value: b.length, pointer: `/blanks/${i}/length` }, { value: b.width, pointer: `/blanks/${i}/width` }));
-  if (order.options?.trim) lengths.push({ value: order.options.trim, pointer: "/options/trim" });
-  const longest = Math.max(...order.stock.map((s) => Math.max(s.length, s.width)));
-  const onGrid = (value: number, grid: number) => Math.abs(value * grid - Math.round(value * grid)) < 1e-6;
-  for (const grid of GRIDS[order.units]) {
-    if (longest * grid > PLAN_LIMITS.gridSteps) break;
-    if (lengths.every((l) => onGrid(l.value, grid))) return grid;
-  }
-  const finest = GRIDS[order.units].filter((grid) => longest * grid <= PLAN_LIMITS.gridSteps).pop();
-  if (finest === undefined) {
-    const at = order.stock.findIndex((s) => Math.max(s.length, s.width) === longest);
-    const coarsest = GRIDS[order.units][0];
-    throw new OrderRefused(
-      `A sheet side of ${longest} ${order.units} is ${Math.round(longest * coarsest)} steps of ${stepName(order.units, coarsest)}; the planner takes at most ${PLAN_LIMITS.gridSteps} steps along a side.`,
-      "gridSteps", `/stock/${at}`, Math.round(longest * coarsest), PLAN_LIMITS.gridSteps,
-    );
-  }
-  const off = lengths.find((l) => !onGrid(l.value, finest)) ?? lengths[0];
-  const step = stepName(order.units, finest);
-  throw new OrderRefused(`The planner works on a ${step} grid for sheets this size; ${off.value} is not a multiple of it.`, "grid", off.pointer, off.value, null);
-}
-
-/**
- * Refuse an order outside `PLAN_LIMITS` (throws `OrderRefused` naming the limit and the value);
- * returns the grid it will be planned on. Cheap: safe to call on the process answering requests.
- */
-export function checkOrderLimits(order: Order, shear: Pick<ShearProfile, "bladeLengthMm">): number {
-  const refuse = (limit: PlanLimit, what: string, value: number, pointer: string) => {
-    throw new OrderRefused(`${what} is ${value}; a plan takes at most ${PLAN_LIMITS[limit]} (limit \`${limit}\`).`, limit, pointer, value, PLAN_LIMITS[limit]);
-  };
-  if (order.blanks.length > PLAN_LIMITS.blankTypes) refuse("blankTypes", "The number of blank types", order.blanks.length, "/blanks");
-  if (order.stock.length > PLAN_LIMITS.stockSizes) refuse("stockSizes", "The number of stock sizes", order.stock.length, "/stock");
-  const pieces = order.blanks.reduce((sum, b) => sum + b.quantity, 0);
-  if (pieces > PLAN_LIMITS.totalPieces) refuse("totalPieces", "The number of pieces asked for", pieces, "/blanks");
-  const unitMm = MM_PER_UNIT[order.units];
-  order.stock.forEach((s, i) => {
-    const ratio = (Math.max(s.length, s.width) * unitMm) / shear.bladeLengthMm;
-    if (ratio > PLAN_LIMITS.sheetToBlade) {
-      throw new OrderRefused(
-        `Stock ${s.length} × ${s.width} ${order.units} is ${round(ratio, 1)} times this shear's blade (${round(shear.bladeLengthMm / unitMm, 3)} ${order.units}); a plan takes sheets at most ${PLAN_LIMITS.sheetToBlade} times the blade (limit \`sheetToBlade\`).`,
-        "sheetToBlade", `/stock/${i}`, round(ratio, 3), PLAN_LIMITS.sheetToBlade,
-      );
-    }
-  });
-  const grid = gridFor(order);
-  const bladeSteps = Math.floor((shear.bladeLengthMm / unitMm) * grid + 1e-9);
-  const alongSteps = Math.max(...order.stock.map((s) => Math.min(Math.max(s.length, s.width), bladeSteps / grid) * grid));
-  const presentations = order.blanks.reduce((sum, b) => sum + ((b.canTurn ?? true) && b.length !== b.width ? 2 : 1), 0);
-  const heights = new Set(order.blanks.flatMap((b) => ((b.canTurn ?? true) ? [b.length, b.width] : [b.width, b.length]))).size;
-  const work = Math.round(alongSteps * presentations * heights);
-  if (work > PLAN_LIMITS.work) {
-    throw new OrderRefused(
-      `This order needs about ${work.toExponential(2)} table cells per round of strip filling (${Math.round(alongSteps)} steps of ${stepName(order.units, grid)} along the blade × ${presentations} blank presentations × ${heights} strip heights); a plan may need at most ${PLAN_LIMITS.work.toExponential(0)} (limit \`work\`). Use coarser sizes or fewer blank types.`,
-      "work", "/blanks", work, PLAN_LIMITS.work,
-    );
-  }
-  return grid;
-}
-
-const patternKey = (i: number): string => (i < 26 ? String.fromCharCode(65 + i) : `${patternKey(Math.floor(i / 26) - 1)}${String.fromCharCode(65 + (i % 26))}`);
+/** A, B … Z, AA, AB …: the key of the pattern at this index. */
+const patternKey = (index: number): string =>
+  index < 26 ? String.fromCharCode(65 + index) : `${patternKey(Math.floor(index / 26) - 1)}${String.fromCharCode(65 + (index % 26))}`;
 
 export interface PlannedCut {
   backgauge: number;
@@ -257,6 +120,15 @@ export interface PlannedOrder {
     strokes: number;
     turns: number;
     estimateSeconds: number;
+    /** no plan of two-stage patterns can cut the blanks this plan places from fewer sheets (all it was asked for, when complete) */
+    lowerBoundSheets: number;
+    /** the plan uses `lowerBoundSheets` sheets: provably the fewest */
+    provenFewest: boolean;
+    /** the bounds behind `lowerBoundSheets`: blank area over the largest usable sheet, and the LP over all two-stage patterns (null when not computed, or the plan is partial) */
+    bounds: { areaSheets: number; lpSheets: number | null };
+    method: PlanMethod;
+    /** why the work budget made the plan, or its last sheets, pattern by pattern; null when it did not */
+    methodNote: string | null;
   };
   patterns: PlannedPattern[];
   reusableOffcuts: { length: number; width: number; count: number }[];
@@ -273,20 +145,20 @@ export interface PlanContext {
  * the sheets, and each pattern's program is checked by the shear core. `onProgress` hears
  * after every sheet pattern found.
  */
-export function planOrder(order: Order, context: PlanContext, onProgress?: (progress: PlanProgress) => void): PlannedOrder {
+export async function planOrder(order: Order, context: PlanContext, onProgress?: (progress: PlanProgress) => void): Promise<PlannedOrder> {
   const profile = context.shear;
   const grid = checkOrderLimits(order, profile);
   const unitMm = MM_PER_UNIT[order.units];
   const toGrid = (value: number) => Math.round(value * grid);
   const fromGrid = (value: number) => round(value / grid, 9); // exact on every grid (1/64 in = 0.015625); 9 places only drop float noise
   const options = order.options ?? {};
-  const canTurn = (b: OrderBlank) => b.canTurn ?? true;
+  const canTurn = (blank: OrderBlank) => blank.canTurn ?? true;
   const reusable = options.reusableOffcut
     ? { length: Math.ceil(options.reusableOffcut.length * grid - 1e-9), width: Math.ceil(options.reusableOffcut.width * grid - 1e-9) }
     : null;
-  const planned = planBlanks(
-    order.stock.map((s) => ({ length: toGrid(s.length), width: toGrid(s.width), count: s.count ?? null })),
-    order.blanks.map((b) => ({ label: b.label, length: toGrid(b.length), width: toGrid(b.width), quantity: b.quantity, canTurn: canTurn(b) })),
+  const planned = await planBlanks(
+    order.stock.map((sheet) => ({ length: toGrid(sheet.length), width: toGrid(sheet.width), count: sheet.count ?? null })),
+    order.blanks.map((blank) => ({ label: blank.label, length: toGrid(blank.length), width: toGrid(blank.width), quantity: blank.quantity, canTurn: canTurn(blank) })),
     {
       objective: options.objective ?? "fewest_sheets",
       trim: toGrid(options.trim ?? 0),
@@ -306,59 +178,67 @@ export function planOrder(order: Order, context: PlanContext, onProgress?: (prog
 
   let estimateSeconds = 0;
   const findings: PlanFinding[] = [];
-  const patterns: PlannedPattern[] = planned.patterns.map((p, i) => {
-    const key = patternKey(i);
-    const cuts = p.cuts.map((c) => ({ ...c, backgauge: fromGrid(c.backgauge) }));
+  const patterns: PlannedPattern[] = planned.patterns.map((pattern, index) => {
+    const key = patternKey(index);
+    const cuts = pattern.cuts.map((cut) => ({ ...cut, backgauge: fromGrid(cut.backgauge) }));
     const program = {
       reference: key, shear: order.shear, grade: order.grade, thickness: order.thickness, units: order.units,
-      sheet: { length: fromGrid(p.length), width: fromGrid(p.width), count: p.repeats }, cuts,
+      sheet: { length: fromGrid(pattern.length), width: fromGrid(pattern.width), count: pattern.repeats }, cuts,
     };
     const check = checkProgram(program, context);
     estimateSeconds += check.estimate?.seconds.total ?? 0;
     if (check.validation === "fail") {
       findings.push({
-        code: "pattern_not_releasable", severity: "warning", pointer: `/patterns/${i}`, actual: null,
-        message: `Pattern ${key}'s program has errors the shear core will not release (${[...new Set(check.findings.filter((f) => f.severity === "error").map((f) => f.code))].join(", ")}).`,
+        code: "pattern_not_releasable", severity: "warning", pointer: `/patterns/${index}`, actual: null,
+        message: `Pattern ${key}'s program has errors the shear core will not release (${[...new Set(check.findings.filter((finding) => finding.severity === "error").map((finding) => finding.code))].join(", ")}).`,
       });
     }
     return {
       key,
-      stock: p.stock,
-      sheet: { length: fromGrid(p.length), width: fromGrid(p.width) },
-      rotated: p.rotated,
-      repeats: p.repeats,
-      utilisationPct: percent(p.utilisation),
-      strips: compressStrips(p.strips.map((strip) => ({
+      stock: pattern.stock,
+      sheet: { length: fromGrid(pattern.length), width: fromGrid(pattern.width) },
+      rotated: pattern.rotated,
+      repeats: pattern.repeats,
+      utilisationPct: percent(pattern.utilisation),
+      strips: compressStrips(pattern.strips.map((strip) => ({
         y: fromGrid(strip.y),
-        height: fromGrid(strip.height),
+        height: fromGrid(strip.width), // the API has called a strip's width across the sheet its height from the start
         pieces: strip.pieces.map((piece) => ({
           blank: piece.blank, label: order.blanks[piece.blank].label, x: fromGrid(piece.x), y: fromGrid(piece.y),
           length: fromGrid(piece.length), width: fromGrid(piece.width), turned: piece.turned,
         })),
       }))),
-      offcuts: p.offcuts.map((x) => ({ x: fromGrid(x.x), y: fromGrid(x.y), length: fromGrid(x.length), width: fromGrid(x.width), kind: x.kind, reusable: x.reusable })),
-      strokes: p.strokes,
-      turns: p.turns,
+      offcuts: pattern.offcuts.map((offcut) => ({
+        x: fromGrid(offcut.x), y: fromGrid(offcut.y), length: fromGrid(offcut.length), width: fromGrid(offcut.width), kind: offcut.kind, reusable: offcut.reusable,
+      })),
+      strokes: pattern.strokes,
+      turns: pattern.turns,
       cuts,
       check: { validation: check.validation, findings: check.findings, estimate: check.estimate },
     };
   });
 
   const short = order.blanks.map(() => 0);
-  for (const u of planned.unplaced) {
-    short[u.blank] += u.quantity;
+  for (const unplaced of planned.unplaced) {
+    short[unplaced.blank] += unplaced.quantity;
+    const label = order.blanks[unplaced.blank].label;
     findings.push({
-      code: u.kind === "unplaceable" ? "blank_unplaceable" : "stock_short",
+      code: unplaced.kind === "unplaceable" ? "blank_unplaceable" : "stock_short",
       severity: "error",
-      pointer: `/blanks/${u.blank}`,
-      actual: u.quantity,
-      message: u.kind === "unplaceable"
-        ? `"${order.blanks[u.blank].label}": ${u.quantity} not planned. ${u.reason}.`
-        : `"${order.blanks[u.blank].label}": ${u.quantity} not planned: not enough stock on hand.`,
+      pointer: `/blanks/${unplaced.blank}`,
+      actual: unplaced.quantity,
+      message: unplaced.kind === "unplaceable"
+        ? `"${label}": ${unplaced.quantity} not planned. ${unplaced.reason}.`
+        : `"${label}": ${unplaced.quantity} not planned: not enough stock on hand.`,
     });
   }
-  planned.extra.forEach((n, i) => {
-    if (n > 0) findings.push({ code: "over_production", severity: "warning", pointer: `/blanks/${i}`, actual: n, message: `"${order.blanks[i].label}": ${n} more than the ${order.blanks[i].quantity} asked (within the ${options.overProductionPct ?? 0} % allowance).` });
+  planned.extra.forEach((extra, index) => {
+    if (extra <= 0) return;
+    const blank = order.blanks[index];
+    findings.push({
+      code: "over_production", severity: "warning", pointer: `/blanks/${index}`, actual: extra,
+      message: `"${blank.label}": ${extra} more than the ${blank.quantity} asked (within the ${options.overProductionPct ?? 0} % allowance).`,
+    });
   });
   const trim = options.trim ?? 0;
   const travel = { min: profile.backgaugeMinMm / unitMm, max: profile.backgaugeMaxMm / unitMm };
@@ -368,21 +248,21 @@ export function planOrder(order: Order, context: PlanContext, onProgress?: (prog
       message: `A trim of ${trim} ${order.units} is outside this shear's backgauge travel (${round(travel.min, 4)} to ${round(travel.max, 4)} ${order.units}): the trim cut cannot be gauged, and the programs will not release.`,
     });
   }
-  for (const s of planned.unusableStock) {
-    const stock = order.stock[s];
+  for (const index of planned.unusableStock) {
+    const stock = order.stock[index];
     const why = Math.max(stock.length, stock.width) <= trim ? `is no wider than the ${trim} ${order.units} trim` : `is longer than this shear's blade both ways round`;
-    findings.push({ code: "stock_unusable", severity: "warning", pointer: `/stock/${s}`, actual: null, message: `Stock ${stock.length} × ${stock.width} ${order.units} ${why}; it was not used.` });
+    findings.push({ code: "stock_unusable", severity: "warning", pointer: `/stock/${index}`, actual: null, message: `Stock ${stock.length} × ${stock.width} ${order.units} ${why}; it was not used.` });
   }
 
   const used = order.stock.map(() => 0);
-  for (const p of planned.patterns) used[p.stock] += p.repeats;
-  const asked = order.blanks.reduce((sum, b) => sum + b.quantity, 0);
-  const sum = (values: number[]) => values.reduce((total, n) => total + n, 0);
+  for (const pattern of planned.patterns) used[pattern.stock] += pattern.repeats;
+  const asked = order.blanks.reduce((total, blank) => total + blank.quantity, 0);
+  const sum = (values: number[]) => values.reduce((total, value) => total + value, 0);
   const shortTotal = sum(short);
   return {
     coverage: shortTotal > 0 ? "partial" : "complete",
-    stock: order.stock.map((s, i) => ({ ...s, count: s.count ?? null, used: used[i] })),
-    blanks: order.blanks.map((b, i) => ({ ...b, canTurn: canTurn(b), planned: planned.produced[i], extra: planned.extra[i], short: short[i] })),
+    stock: order.stock.map((sheet, index) => ({ ...sheet, count: sheet.count ?? null, used: used[index] })),
+    blanks: order.blanks.map((blank, index) => ({ ...blank, canTurn: canTurn(blank), planned: planned.produced[index], extra: planned.extra[index], short: short[index] })),
     options: {
       objective: options.objective ?? "fewest_sheets",
       trim: options.trim ?? 0,
@@ -402,9 +282,14 @@ export function planOrder(order: Order, context: PlanContext, onProgress?: (prog
       strokes: planned.strokes,
       turns: planned.turns,
       estimateSeconds: round(estimateSeconds, 1),
+      lowerBoundSheets: planned.lowerBound,
+      provenFewest: planned.provenFewest,
+      bounds: { areaSheets: planned.bounds.area, lpSheets: planned.bounds.lp },
+      method: planned.method,
+      methodNote: planned.methodNote,
     },
     patterns,
-    reusableOffcuts: planned.reusable.map((r) => ({ length: fromGrid(r.length), width: fromGrid(r.width), count: r.count })),
+    reusableOffcuts: planned.reusable.map((offcut) => ({ length: fromGrid(offcut.length), width: fromGrid(offcut.width), count: offcut.count })),
     findings,
   };
 }

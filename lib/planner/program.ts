@@ -12,18 +12,20 @@
  * and `null` says none worked. Pure: no I/O; integer dimensions (the planner's grid).
  */
 import { REMNANT_TOLERANCE_MM, simulateFlow, type FlowCut } from "../shear/flow";
+import { arrangeWithLead } from "./group-order";
 
 export interface PieceIn {
   blank: number;
-  /** along the strip (its length of cut direction on the sheet) */
-  along: number;
-  /** across the strip; at most the strip's height */
-  tall: number;
+  /** along the strip (along the blade when the strip is crosscut) */
+  length: number;
+  /** across the strip; at most the strip's width */
+  width: number;
   turned: boolean;
 }
 
 export interface StripIn {
-  height: number;
+  /** across the sheet: the rip's backgauge setting */
+  width: number;
   pieces: PieceIn[];
 }
 
@@ -44,7 +46,7 @@ export interface PlacedPiece extends PieceIn {
 
 export interface PlacedStrip {
   y: number;
-  height: number;
+  width: number;
   pieces: PlacedPiece[];
 }
 
@@ -67,67 +69,28 @@ export interface WrittenPattern {
   turns: number;
 }
 
-interface Segment { along: number; tall: number; count: number }
-/** Strips alike in height and in the sizes of their pieces: one rip group, crosscut alike. Which blank each piece is does not matter to the shear. */
-interface Kind { height: number; count: number; segments: Segment[]; instances: PieceIn[][] }
+interface Segment { length: number; width: number; count: number }
+/** Strips alike in width and in the sizes of their pieces: one rip group, crosscut alike. Which blank each piece is does not matter to the shear. */
+interface Kind { width: number; count: number; segments: Segment[]; instances: PieceIn[][] }
 
 function kindsOf(strips: StripIn[]): Kind[] {
   const kinds = new Map<string, Kind>();
-  for (const s of strips) {
-    const sorted = [...s.pieces].sort((a, b) => b.along - a.along || b.tall - a.tall || a.blank - b.blank || Number(a.turned) - Number(b.turned));
+  for (const strip of strips) {
+    const sorted = [...strip.pieces].sort((a, b) => b.length - a.length || b.width - a.width || a.blank - b.blank || Number(a.turned) - Number(b.turned));
     const segments: Segment[] = [];
-    for (const p of sorted) {
+    for (const piece of sorted) {
       const last = segments[segments.length - 1];
-      if (last && last.along === p.along && last.tall === p.tall) last.count += 1;
-      else segments.push({ along: p.along, tall: p.tall, count: 1 });
+      if (last && last.length === piece.length && last.width === piece.width) last.count += 1;
+      else segments.push({ length: piece.length, width: piece.width, count: 1 });
     }
-    const key = `${s.height}|${segments.map((g) => `${g.along}x${g.tall}*${g.count}`).join(",")}`;
-    const k = kinds.get(key);
-    if (k) {
-      k.count += 1;
-      k.instances.push(sorted);
-    } else kinds.set(key, { height: s.height, count: 1, segments, instances: [sorted] });
+    const key = `${strip.width}|${segments.map((segment) => `${segment.length}x${segment.width}*${segment.count}`).join(",")}`;
+    const kind = kinds.get(key);
+    if (kind) {
+      kind.count += 1;
+      kind.instances.push(sorted);
+    } else kinds.set(key, { width: strip.width, count: 1, segments, instances: [sorted] });
   }
   return [...kinds.values()];
-}
-
-/**
- * An order of groups (each `count` pieces of `size` cut off a workpiece `total` long) that the
- * remnant rule leaves alone: after a group's strokes, the workpiece left must not equal the
- * group's size (it would become one more piece), except after the last group when the pieces
- * fill the workpiece exactly (then it is the last piece, named without a stroke). Depth-first,
- * preferring the given order; null when no order works within the search budget.
- */
-export function arrange<T extends { size: number; count: number }>(items: T[], total: number, tol: number, maxGauge = Infinity): T[] | null {
-  const used = items.reduce((s, it) => s + it.size * it.count, 0);
-  const exact = total - used <= tol;
-  let budget = 5000;
-  const taken = new Array<boolean>(items.length).fill(false);
-  const order: T[] = [];
-  const go = (left: number): boolean => {
-    if (order.length === items.length) return true;
-    if (--budget < 0) return false;
-    const tried = new Set<string>();
-    for (let i = 0; i < items.length; i++) {
-      if (taken[i]) continue;
-      const it = items[i];
-      const key = `${it.size}|${it.count}`;
-      if (tried.has(key)) continue; // the same size and count again gives the same remnants
-      tried.add(key);
-      const last = order.length === items.length - 1;
-      const after = left - it.size * it.count;
-      if (!(last && exact) && Math.abs(after - it.size) <= tol) continue;
-      // Beyond the backgauge's reach only as the last piece, named as the remnant without a stroke.
-      if (it.size > maxGauge && !(last && exact && it.count === 1)) continue;
-      taken[i] = true;
-      order.push(it);
-      if (go(after)) return true;
-      order.pop();
-      taken[i] = false;
-    }
-    return false;
-  };
-  return go(total) ? order : null;
 }
 
 interface Layout {
@@ -136,113 +99,91 @@ interface Layout {
   kinds: (Kind & { lead: number })[];
 }
 
-function emit(sheet: { length: number; width: number }, trim: number, layout: Layout, tol: number, f: (v: number) => string): { cuts: PlanCut[]; strips: PlacedStrip[]; leftovers: Leftover[] } {
+function emit(sheet: { length: number; width: number }, trim: number, layout: Layout, tolerance: number, show: (value: number) => string): { cuts: PlanCut[]; strips: PlacedStrip[]; leftovers: Leftover[] } {
   const cuts: PlanCut[] = [];
   const strips: PlacedStrip[] = [];
   const leftovers: Leftover[] = [];
   const { lead, kinds } = layout;
   if (lead > 0) {
-    cuts.push({ backgauge: lead, count: 1, scrap: true, note: lead > trim && trim > 0 ? `trim the first edge (${f(trim)}) and cut off ${f(lead - trim)} of the sheet's spare width` : lead === trim ? "trim the first edge" : `cut off ${f(lead)} of the sheet's spare width first` });
+    const note = lead > trim && trim > 0
+      ? `trim the first edge (${show(trim)}) and cut off ${show(lead - trim)} of the sheet's spare width`
+      : lead === trim ? "trim the first edge" : `cut off ${show(lead)} of the sheet's spare width first`;
+    cuts.push({ backgauge: lead, count: 1, scrap: true, note });
     leftovers.push({ x: 0, y: 0, length: sheet.length, width: lead, kind: lead > trim ? "sheet-end" : "trim" });
   }
   const usable = sheet.width - lead;
-  const used = kinds.reduce((s, k) => s + k.height * k.count, 0);
-  const exact = usable - used <= tol;
+  const used = kinds.reduce((sum, kind) => sum + kind.width * kind.count, 0);
+  const exact = usable - used <= tolerance;
   const ripAt: number[] = [];
-  kinds.forEach((k, i) => {
+  kinds.forEach((kind, index) => {
     ripAt.push(cuts.length);
-    const last = i === kinds.length - 1;
-    const remnant = last && exact;
-    cuts.push({ backgauge: k.height, count: remnant ? k.count - 1 : k.count, note: `rip ${k.count} × ${f(k.height)} strip${k.count > 1 ? "s" : ""}${remnant ? " (the last is what is left)" : ""}` });
+    const remnant = index === kinds.length - 1 && exact;
+    const plural = kind.count > 1 ? "s" : "";
+    cuts.push({ backgauge: kind.width, count: remnant ? kind.count - 1 : kind.count, note: `rip ${kind.count} × ${show(kind.width)} strip${plural}${remnant ? " (the last is what is left)" : ""}` });
   });
   if (!exact) leftovers.push({ x: 0, y: lead + used, length: sheet.length, width: usable - used, kind: "sheet-end" });
   let y = lead;
   const trims: PlanCut[] = [];
   const trimSources: number[] = [];
-  kinds.forEach((k, i) => {
-    const alongUsed = k.segments.reduce((s, g) => s + g.along * g.count, 0);
-    const full = sheet.length - k.lead - alongUsed <= tol;
+  kinds.forEach((kind, kindIndex) => {
+    const lengthUsed = kind.segments.reduce((sum, segment) => sum + segment.length * segment.count, 0);
+    const full = sheet.length - kind.lead - lengthUsed <= tolerance;
     const turnFrom = (cut: PlanCut) => {
       cut.turn = true;
-      if (ripAt[i] !== cuts.length - 1) cut.from = ripAt[i];
+      if (ripAt[kindIndex] !== cuts.length - 1) cut.from = ripAt[kindIndex];
     };
-    if (k.lead > 0) {
-      const cut: PlanCut = { backgauge: k.lead, count: 1, scrap: true, note: `turn the ${f(k.height)} strips; cut off ${f(k.lead)} of their spare length first` };
+    if (kind.lead > 0) {
+      const cut: PlanCut = { backgauge: kind.lead, count: 1, scrap: true, note: `turn the ${show(kind.width)} strips; cut off ${show(kind.lead)} of their spare length first` };
       turnFrom(cut);
       cuts.push(cut);
     }
-    k.segments.forEach((g, j) => {
-      const last = j === k.segments.length - 1;
-      const remnant = last && full;
-      const cut: PlanCut = { backgauge: g.along, count: remnant ? g.count - 1 : g.count, note: `crosscut ${g.count} × ${f(g.along)}${remnant ? " (the last is what is left)" : ""}` };
-      if (j === 0 && k.lead === 0) {
+    kind.segments.forEach((segment, segmentIndex) => {
+      const remnant = segmentIndex === kind.segments.length - 1 && full;
+      const cut: PlanCut = { backgauge: segment.length, count: remnant ? segment.count - 1 : segment.count, note: `crosscut ${segment.count} × ${show(segment.length)}${remnant ? " (the last is what is left)" : ""}` };
+      if (segmentIndex === 0 && kind.lead === 0) {
         turnFrom(cut);
-        cut.note = `turn the ${f(k.height)} strips; ${cut.note}`;
+        cut.note = `turn the ${show(kind.width)} strips; ${cut.note}`;
       }
-      if (g.tall < k.height) trimSources.push(cuts.length);
+      if (segment.width < kind.width) trimSources.push(cuts.length);
       cuts.push(cut);
     });
-    for (const g of k.segments) {
-      if (g.tall < k.height) trims.push({ backgauge: g.tall, count: 1, turn: true, note: `turn the ${f(g.along)} × ${f(k.height)} pieces; trim to ${f(g.tall)}` });
+    for (const segment of kind.segments) {
+      if (segment.width < kind.width) trims.push({ backgauge: segment.width, count: 1, turn: true, note: `turn the ${show(segment.length)} × ${show(kind.width)} pieces; trim to ${show(segment.width)}` });
     }
-    for (let n = 0; n < k.count; n++) {
+    for (let copy = 0; copy < kind.count; copy++) {
       let x = 0;
-      if (k.lead > 0) {
-        leftovers.push({ x: 0, y, length: k.lead, width: k.height, kind: "strip-end" });
-        x = k.lead;
+      if (kind.lead > 0) {
+        leftovers.push({ x: 0, y, length: kind.lead, width: kind.width, kind: "strip-end" });
+        x = kind.lead;
       }
       const pieces: PlacedPiece[] = [];
-      const mine = [...k.instances[n]]; // this strip's own blanks, handed out in cutting order
-      for (const g of k.segments) {
-        for (let c = 0; c < g.count; c++) {
-          const own = mine.splice(mine.findIndex((pc) => pc.along === g.along && pc.tall === g.tall), 1)[0];
-          pieces.push({ blank: own.blank, along: g.along, tall: g.tall, turned: own.turned, x, y });
-          if (g.tall < k.height) leftovers.push({ x, y: y + g.tall, length: g.along, width: k.height - g.tall, kind: "piece-trim" });
-          x += g.along;
+      const own = [...kind.instances[copy]]; // this strip's own blanks, handed out in cutting order
+      for (const segment of kind.segments) {
+        for (let piece = 0; piece < segment.count; piece++) {
+          const blank = own.splice(own.findIndex((candidate) => candidate.length === segment.length && candidate.width === segment.width), 1)[0];
+          pieces.push({ blank: blank.blank, length: segment.length, width: segment.width, turned: blank.turned, x, y });
+          if (segment.width < kind.width) leftovers.push({ x, y: y + segment.width, length: segment.length, width: kind.width - segment.width, kind: "piece-trim" });
+          x += segment.length;
         }
       }
-      if (!full) leftovers.push({ x, y, length: sheet.length - x, width: k.height, kind: "strip-end" });
-      strips.push({ y, height: k.height, pieces });
-      y += k.height;
+      if (!full) leftovers.push({ x, y, length: sheet.length - x, width: kind.width, kind: "strip-end" });
+      strips.push({ y, width: kind.width, pieces });
+      y += kind.width;
     }
   });
-  trims.forEach((t, i) => {
-    if (trimSources[i] !== cuts.length - 1) t.from = trimSources[i];
-    cuts.push(t);
+  trims.forEach((trimCut, index) => {
+    if (trimSources[index] !== cuts.length - 1) trimCut.from = trimSources[index];
+    cuts.push(trimCut);
   });
   return { cuts, strips, leftovers };
-}
-
-/** Lead-off lengths to try: none, then the whole spare, then parts of it; the whole cut (with the trim) stays within the backgauge's travel. */
-function leads(spare: number, fixedLead: number, gauge: { min: number; max: number }, tol: number): number[] {
-  const out = [0];
-  if (spare <= tol) return out;
-  const low = Math.max(1, gauge.min - fixedLead);
-  const cands = [spare, Math.floor(spare / 2), Math.floor(spare / 3), spare - 1, spare - 2, Math.floor((2 * spare) / 3), low, low + 1, gauge.max - fixedLead];
-  for (const c of cands) {
-    if (c >= low && c <= spare && fixedLead + c <= gauge.max && !out.includes(c)) out.push(c);
-  }
-  return out;
-}
-
-/** An order for the groups of one workpiece, with a lead-off when no order works without one. */
-function arrangeWithLead<T extends { size: number; count: number }>(items: T[], total: number, fixedLead: number, gauge: { min: number; max: number }, tol: number): { order: T[]; lead: number } | null {
-  const used = items.reduce((s, it) => s + it.size * it.count, 0);
-  for (const extra of leads(total - fixedLead - used, fixedLead, gauge, tol)) {
-    const lead = fixedLead + extra;
-    if (lead > 0 && Math.abs(total - lead - lead) <= tol) continue; // the rest would become lead-off too
-    const order = arrange(items, total - lead, tol, gauge.max);
-    if (order) return { order, lead };
-  }
-  return null;
 }
 
 const sizeKey = (a: number, b: number) => (a <= b ? `${a}x${b}` : `${b}x${a}`);
 
 /**
  * The cut program for one sheet pattern, checked against the shear core's piece flow.
- * `mmPerUnit` converts the grid to millimetres for that check; `minGauge` is the nearest
- * backgauge setting (a lead-off cut is never shorter).
+ * `mmPerUnit` converts the grid to millimetres for that check; `gauge` is the backgauge's
+ * travel (a lead-off cut is never shorter than its nearest setting).
  */
 export function writePattern(
   sheet: { length: number; width: number },
@@ -250,50 +191,50 @@ export function writePattern(
   strips: StripIn[],
   mmPerUnit: number,
   gauge: { min: number; max: number } = { min: 0, max: Infinity },
-  show: (v: number) => string = String,
+  show: (value: number) => string = String,
 ): WrittenPattern | null {
   if (!strips.length) return null;
-  const tol = REMNANT_TOLERANCE_MM / mmPerUnit;
+  const tolerance = REMNANT_TOLERANCE_MM / mmPerUnit;
   const want = new Map<string, number>();
-  for (const s of strips) for (const p of s.pieces) want.set(sizeKey(p.along, p.tall), (want.get(sizeKey(p.along, p.tall)) ?? 0) + 1);
-  const base = kindsOf(strips).sort((a, b) => b.height - a.height || b.count - a.count);
+  for (const strip of strips) for (const piece of strip.pieces) want.set(sizeKey(piece.length, piece.width), (want.get(sizeKey(piece.length, piece.width)) ?? 0) + 1);
+  const base = kindsOf(strips).sort((a, b) => b.width - a.width || b.count - a.count);
   const layouts: Layout[] = [];
   for (const first of [base, [...base].reverse()]) {
-    const rip = arrangeWithLead(first.map((k) => ({ k, size: k.height, count: k.count })), sheet.width, trim, gauge, tol);
+    const rip = arrangeWithLead(first.map((kind) => ({ kind, size: kind.width, count: kind.count })), sheet.width, trim, gauge, tolerance);
     if (!rip) continue;
     const kinds: Layout["kinds"] = [];
-    for (const { k } of rip.order) {
-      const segs = arrangeWithLead(k.segments.map((g) => ({ g, size: g.along, count: g.count })), sheet.length, 0, gauge, tol);
-      if (!segs) break;
-      kinds.push({ ...k, lead: segs.lead, segments: segs.order.map((x) => x.g) });
+    for (const { kind } of rip.order) {
+      const crosscuts = arrangeWithLead(kind.segments.map((segment) => ({ segment, size: segment.length, count: segment.count })), sheet.length, 0, gauge, tolerance);
+      if (!crosscuts) break;
+      kinds.push({ ...kind, lead: crosscuts.lead, segments: crosscuts.order.map((entry) => entry.segment) });
     }
     if (kinds.length === rip.order.length) layouts.push({ lead: rip.lead, kinds });
   }
   for (const layout of layouts) {
-    const written = emit(sheet, trim, layout, tol, show);
+    const written = emit(sheet, trim, layout, tolerance, show);
     // Every stroke is gauged within the travel (a trim the caller asked for is theirs, and reported).
-    if (written.cuts.some((c, i) => c.count > 0 && c.backgauge > gauge.max && !(i === 0 && c.scrap && c.backgauge === trim))) continue;
-    const mm = (v: number) => v * mmPerUnit;
-    const flowCuts: FlowCut[] = written.cuts.map((c) => ({ backgaugeMm: mm(c.backgauge), count: c.count, lengthMm: null, turn: c.turn === true, from: c.from ?? null, scrap: c.scrap === true }));
+    if (written.cuts.some((cut, index) => cut.count > 0 && cut.backgauge > gauge.max && !(index === 0 && cut.scrap && cut.backgauge === trim))) continue;
+    const mm = (value: number) => value * mmPerUnit;
+    const flowCuts: FlowCut[] = written.cuts.map((cut) => ({ backgaugeMm: mm(cut.backgauge), count: cut.count, lengthMm: null, turn: cut.turn === true, from: cut.from ?? null, scrap: cut.scrap === true }));
     const flow = simulateFlow({ lengthMm: mm(sheet.length), widthMm: mm(sheet.width) }, flowCuts);
-    if (flow.groups.some((g) => g.beyond !== null || g.workpieces === 0 || (g.strokes === 0 && g.pieces.length === 0))) continue;
+    if (flow.groups.some((group) => group.beyond !== null || group.workpieces === 0 || (group.strokes === 0 && group.pieces.length === 0))) continue;
     // Each blank the flow makes must be a wanted size, within the remnant tolerance (the last piece of an
     // exactly filled strip is what is left, up to 0.1 mm over), and the counts must agree.
     const left = new Map(want);
     let matches = true;
-    for (const b of flow.blanks) {
-      const [a, c] = [b.widthMm, b.lengthMm].sort((x, y) => x - y);
-      const key = [...left.keys()].find((k) => {
-        const [p, q] = k.split("x").map((v) => Number(v) * mmPerUnit);
-        return Math.abs(p - a) <= REMNANT_TOLERANCE_MM + 1e-9 && Math.abs(q - c) <= REMNANT_TOLERANCE_MM + 1e-9 && (left.get(k) ?? 0) >= b.count;
+    for (const made of flow.blanks) {
+      const [short, long] = [made.widthMm, made.lengthMm].sort((a, b) => a - b);
+      const key = [...left.keys()].find((candidate) => {
+        const [shortWanted, longWanted] = candidate.split("x").map((value) => Number(value) * mmPerUnit);
+        return Math.abs(shortWanted - short) <= REMNANT_TOLERANCE_MM + 1e-9 && Math.abs(longWanted - long) <= REMNANT_TOLERANCE_MM + 1e-9 && (left.get(candidate) ?? 0) >= made.count;
       });
       if (key === undefined) {
         matches = false;
         break;
       }
-      left.set(key, left.get(key)! - b.count);
+      left.set(key, left.get(key)! - made.count);
     }
-    if (!matches || [...left.values()].some((n) => n !== 0)) continue;
+    if (!matches || [...left.values()].some((count) => count !== 0)) continue;
     return { ...written, strokes: flow.strokes, turns: flow.turnedPieces };
   }
   return null;

@@ -53,8 +53,8 @@ const PlanShape = z
     title: z.string().max(200).optional(),
     ...jobFields(),
     units: z.enum(["in", "mm"]).openapi({ description: "Units of every length in this plan" }),
-    // The planner's own limits (20 stock sizes, 200 blank types, …) are checked after the schema, so a refusal names the limit and the value.
-    stock: z.array(StockInput).min(1).max(1_000).openapi({ description: "Stock sizes on hand (a plan takes at most 20: limit `stockSizes`)" }),
+    // The planner's own limits (10 stock sizes, 200 blank types, …) are checked after the schema, so a refusal names the limit and the value.
+    stock: z.array(StockInput).min(1).max(1_000).openapi({ description: "Stock sizes on hand (a plan takes at most 10: limit `stockSizes`)" }),
     blanks: z.array(BlankInput).min(1).max(10_000).openapi({ description: "Order lines (a plan takes at most 200 blank types: limit `blankTypes`, and 20,000 pieces in all: limit `totalPieces`)" }),
     options: PlanOptionsInput.optional(),
   })
@@ -151,6 +151,19 @@ const PlanSummaryFigures = z
     strokes: z.number().int(),
     turns: z.number().int(),
     estimateSeconds: z.number().openapi({ description: "The shear core's cycle estimate for every sheet of the plan" }),
+    lowerBoundSheets: z.number().int().openapi({
+      description: "No plan of two-stage patterns (rip, then crosscut, then trim: the cuts this planner writes) can cut the blanks this plan places from fewer sheets; for a `complete` plan, everything asked for. The larger of `bounds.areaSheets` and `bounds.lpSheets`.",
+      example: 2,
+    }),
+    provenFewest: z.boolean().openapi({ description: "`sheets` equals `lowerBoundSheets`: provably no plan of two-stage patterns uses fewer sheets" }),
+    bounds: z
+      .object({
+        areaSheets: z.number().int().openapi({ description: "The blank area placed over the largest usable sheet on hand (after the trim), rounded up: a bound for any way of cutting" }),
+        lpSheets: z.number().int().nullable().openapi({ description: "The linear-programming bound over every two-stage pattern the shear can cut (all sheets planned together), rounded up; null when it was not computed (the area bound already proves the plan, the work budget was not given, or the plan is `partial`)" }),
+      })
+      .openapi({ description: "The lower bounds behind `lowerBoundSheets`" }),
+    method: z.enum(["column_generation", "greedy"]).openapi({ description: "`column_generation`: all sheets planned together (a linear program over two-stage patterns, then whole sheets); `greedy`: pattern by pattern, the fullest sheet first (chosen when it was as good, or the work budget ran out)" }),
+    methodNote: z.string().nullable().openapi({ description: "Why the work budget made the plan, or its last sheets, pattern by pattern; null when it did not" }),
   })
   .openapi("PlanFigures");
 

@@ -11,7 +11,8 @@ import { Plan, Shop, type PlanEntity } from "../../entities";
 import { ApiError, conflict, invalidRequest, notFound } from "../api/errors";
 import { decodeCursor, page } from "../api/pagination";
 import { waitForNotification } from "../db/notify";
-import { checkOrderLimits, OrderRefused, type PlanContext, type PlannedOrder } from "../planner/order";
+import { checkOrderLimits, OrderRefused } from "../planner/order-limits";
+import type { PlanContext, PlannedOrder } from "../planner/order";
 import { dequeuePlan, enqueuePlan, previewOnWorker, PreviewTimeout } from "../queue/plan-queue";
 import type { PlanInputT, PlanPreviewT, PlanResultT, PlanSummaryT, PlanT, WriteProgramsInputT } from "../schemas/plan";
 import { ProgramInput, type ProgramInputT, type ProgramT } from "../schemas/program";
@@ -59,12 +60,19 @@ export function planResultOf(order: PlanInputT, planned: PlannedOrder): PlanResu
   return { ...planned, findings: [...releasabilityFindings(order, planned), ...planned.findings] };
 }
 
-/** Results stored before strips and pieces were kept as runs read as runs of one. */
+/** Plans stored before bounds were reported: nothing proved, said so. */
+const NO_BOUNDS = {
+  lowerBoundSheets: 0, provenFewest: false, bounds: { areaSheets: 0, lpSheets: null }, method: "greedy" as const,
+  methodNote: "Planned before plans reported their lower bounds.",
+};
+
+/** Results stored before strips and pieces were kept as runs read as runs of one; before bounds, as proving nothing. */
 function normalised(result: Record<string, unknown> | null | undefined): PlanResultT | null {
   if (!result) return null;
   const r = result as unknown as PlanResultT;
   return {
     ...r,
+    summary: { ...NO_BOUNDS, ...r.summary },
     patterns: r.patterns.map((p) => ({
       ...p,
       strips: p.strips.map((s) => ({ ...s, repeat: s.repeat ?? 1, pieces: s.pieces.map((piece) => ({ ...piece, count: piece.count ?? 1 })) })),

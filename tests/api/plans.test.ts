@@ -42,6 +42,8 @@ describe("the worked example of our cut-program docs, as order lines", () => {
     expect(res.body.planStatus).toBe("complete");
     expect(res.body.coverage).toBe("complete");
     expect(res.body.summary).toMatchObject({ sheets: 2, patterns: 1, blanksAsked: 56, blanksPlanned: 56, extra: 0, short: 0, utilisationPct: 93.33 }); // worked example: 93.3 %
+    // 56 × 192 in² is more than one 5 760 in² sheet, so 2 is the fewest (hand arithmetic); the first pattern filled already meets it
+    expect(res.body.summary).toMatchObject({ lowerBoundSheets: 2, provenFewest: true, bounds: { areaSheets: 2, lpSheets: null }, method: "greedy", methodNote: null });
     const [p] = res.body.patterns;
     expect(p.repeats).toBe(2);
     // Stored as runs: one strip repeated 4 times (worked example: 4 strips 12 × 120), one run of 7 blanks (worked example: 7 per strip).
@@ -100,6 +102,10 @@ describe("mixed demand in millimetres", () => {
     expect(made).toEqual(planned);
     const sheets = written.body.data.reduce((s: number, prg: { sheet: { count: number } }) => s + prg.sheet.count, 0);
     expect(sheets).toBe(res.body.summary.sheets);
+    const { summary } = res.body;
+    expect(summary.lowerBoundSheets).toBeLessThanOrEqual(summary.sheets);
+    expect(summary.lowerBoundSheets).toBe(Math.max(summary.bounds.areaSheets, summary.bounds.lpSheets ?? 0));
+    expect(summary.provenFewest).toBe(summary.sheets === summary.lowerBoundSheets);
     expect(res.body.stock[0].used).toBeLessThanOrEqual(3);
   });
 
@@ -131,7 +137,7 @@ describe("findings instead of silent drops", () => {
       expect.objectContaining({ code: "stock_short", severity: "error", pointer: "/blanks/1", actual: 2 }), // one 2000 × 1000 sheet holds 4
     ]);
     expect(res.body.blanks.map((b: { planned: number; short: number }) => [b.planned, b.short])).toEqual([[0, 2], [4, 2]]);
-    expect(res.body.summary).toMatchObject({ sheets: 1, short: 4 });
+    expect(res.body.summary).toMatchObject({ sheets: 1, short: 4, lowerBoundSheets: 1, provenFewest: true, bounds: { lpSheets: null } }); // a partial plan: bounded by the area it places
   });
 
   it("over-production within the allowance is a warning", async () => {
@@ -342,7 +348,7 @@ describe("the planner's limits", () => {
 
   it.each([
     ["blankTypes", () => ({ ...base(), blanks: Array.from({ length: 201 }, (_, i) => ({ label: `b${i}`, length: 100 + i, width: 50, quantity: 1 })) }), 201],
-    ["stockSizes", () => ({ ...base(), stock: Array.from({ length: 21 }, (_, i) => ({ length: 2000 + i, width: 1000 })) }), 21],
+    ["stockSizes", () => ({ ...base(), stock: Array.from({ length: 11 }, (_, i) => ({ length: 2000 + i, width: 1000 })) }), 11],
     ["totalPieces", () => ({ ...base(), blanks: [{ label: "a", length: 100, width: 100, quantity: 15_000 }, { label: "b", length: 50, width: 50, quantity: 5_001 }] }), 20_001],
     ["sheetToBlade", () => ({ ...base(), stock: [{ length: 40_000, width: 1250 }] }), 12.903],
     ["work", () => ({ ...base(), stock: [{ length: 500, width: 500 }], blanks: Array.from({ length: 200 }, (_, i) => ({ label: `b${i}`, length: 10.01 + i, width: 20.02 + i * 0.97, quantity: 1 })) }), null],

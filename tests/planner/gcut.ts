@@ -1,12 +1,12 @@
 /**
  * The gcut instances (Beasley 1985, OR-Library; unconstrained, no rotation) from
- * `../shared/data/cutting/`, and the values listed beside them.
+ * `tests/fixtures/cutting/` (copied from the published collection; see the README there), and the values listed beside them.
  */
 import { readFileSync } from "node:fs";
 import path from "node:path";
 import type { PieceType } from "../../lib/planner/two-stage";
 
-const DATA = path.resolve("..", "shared", "data", "cutting", "GCUT", "original", "Original");
+const DATA = path.resolve(import.meta.dirname, "..", "fixtures", "cutting", "GCUT", "original", "Original");
 
 export function gcut(n: number) {
   const nums = readFileSync(path.join(DATA, `gcut${n}`), "utf8").trim().split(/\s+/).map(Number);

@@ -21,11 +21,11 @@ describe("best two-stage pattern on one sheet (gcut instances)", () => {
   it("returns a pattern that really fits and adds up to its value", () => {
     const { sheet, pieces } = gcut(3);
     const p = bestTwoStagePattern(sheet, pieces, "length");
-    expect(p.strips.reduce((s, st) => s + st.height * st.count, 0)).toBeLessThanOrEqual(sheet.width);
+    expect(p.strips.reduce((s, st) => s + st.width * st.count, 0)).toBeLessThanOrEqual(sheet.width);
     let total = 0;
     for (const st of p.strips) {
       expect(st.pieces.reduce((s, x) => s + pieces[x.index].length * x.count, 0)).toBeLessThanOrEqual(sheet.length);
-      for (const x of st.pieces) expect(pieces[x.index].width).toBeLessThanOrEqual(st.height);
+      for (const x of st.pieces) expect(pieces[x.index].width).toBeLessThanOrEqual(st.width);
       total += st.count * st.pieces.reduce((s, x) => s + (pieces[x.index].value ?? 0) * x.count, 0);
     }
     expect(total).toBe(p.value);

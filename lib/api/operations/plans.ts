@@ -6,7 +6,7 @@ const tags = ["Plans"];
 const params = idParam("pln", "plan");
 const location = { Location: { description: "The plan's URL.", schema: { type: "string" as const } } };
 const LIMITS =
-  "Limits, checked before anything is stored (each refusal is a 422 naming the limit, the value and the most allowed): at most 200 blank types, 20,000 pieces and 20 stock sizes; a sheet side of at most 60,000 steps of the grid the order's sizes lie on, and at most 10 times the shear's blade; and an estimated amount of work for one round of strip filling. A worker stops a plan after 60 s (`failed`, reason `time_limit`).";
+  "Limits, checked before anything is stored (each refusal is a 422 naming the limit, the value and the most allowed): at most 200 blank types, 20,000 pieces and 10 stock sizes; a sheet side of at most 60,000 steps of the grid the order's sizes lie on, and at most 10 times the shear's blade; and an estimated amount of work for one round of strip filling. A worker stops a plan after 60 s (`failed`, reason `time_limit`).";
 
 export const createPlan = defineOperation({
   operationId: "createPlan", method: "post", path: "/plans", tags, scope: "programs:write",

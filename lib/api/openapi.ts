@@ -4,6 +4,9 @@
 import { OpenAPIRegistry, OpenApiGeneratorV31 } from "@asteasolutions/zod-to-openapi";
 import type { RouteConfig } from "@asteasolutions/zod-to-openapi";
 import { Problem } from "../schemas/common";
+import { EVENT_TYPES, EVENT_TYPE_WORDS } from "../schemas/enums";
+import { WEBHOOK_ENVELOPES } from "../schemas/events";
+import { exampleProgram, exampleShear, exampleWebhook } from "./examples";
 import { VERSION } from "../version";
 import type { Operation } from "./operation";
 import { API_PREFIX } from "./route";
@@ -51,6 +54,39 @@ const ERROR_NAMES: Record<number, string> = {
   429: "TooManyRequests", 500: "InternalError", 503: "ServiceUnavailable",
 };
 
+/** The reference's opening page: what this is, the first calls, and the conventions. */
+const QUICKSTART = `Push cut programs from your ERP, have them checked against the shear and the grade, release them to the machine-side gateway, and hear back through signed webhooks.
+
+**Safety.** Computed settings are recommendations for a qualified operator, never a guarantee; the machine's manual, local codes and qualified people come first.
+
+## Quickstart
+
+Every call carries an API key of your shop: \`Authorization: Bearer swk_…\` (the console's **API keys** page makes one; \`npm run up\` prints a demo key with every scope). The examples use the demo shop, whose first shear is called *Bay 1 sheet shear*.
+
+1. **See your shears.** \`GET /api/v1/shears\` lists them with their capacity, blade, backgauge and gap range. A program names its shear by id or by name.
+2. **Check a program without storing it.** \`POST /api/v1/programs/validate\` with the example body (10 ga A36, two 120 × 48 in sheets ripped into strips and crosscut): the answer has 56 blanks from 62 strokes, the blade gap, rake, crown and hold-down with the reason for each, the force against the shear's rating and the cycle estimate. Findings carry a JSON \`pointer\` into your body.
+3. **Store it.** \`POST /api/v1/programs\` with the same body and an \`Idempotency-Key\` (a retry with the same key answers the same). It is a \`draft\`.
+4. **Release it.** \`POST /api/v1/programs/{id}/release\` with \`{}\` (or \`{"acknowledge": [codes]}\` when its check has warnings). The gateway beside the shear can now claim it.
+5. **Hear back.** Add an endpoint with \`POST /api/v1/webhook-endpoints\` (\`{"url": "https://erp.example/hooks/shearwire"}\`); the answer holds its \`whsec_\` secret, once. Every change arrives as a signed POST: \`program.released\`, \`program.claimed\`, \`program.started\`, \`program.progressed\`, \`program.completed\` … (the **Webhooks** section lists every type with its body). \`POST /api/v1/webhook-endpoints/{id}/test\` sends a test event.
+6. **Verify the signature** before trusting a delivery, with any Standard Webhooks library, for example in Node.js:
+
+\`\`\`js
+import { Webhook } from "standardwebhooks";
+const wh = new Webhook(process.env.SHEARWIRE_WEBHOOK_SECRET.replace(/^whsec_/, ""));
+// rawBody: the request body exactly as received (a string); headers: the request's headers
+const event = wh.verify(rawBody, { "webhook-id": headers["webhook-id"], "webhook-timestamp": headers["webhook-timestamp"], "webhook-signature": headers["webhook-signature"] });
+// de-duplicate on webhook-id: a delivery may come more than once
+\`\`\`
+
+Blanks rather than cut groups? \`POST /api/v1/plans\` lays them out on the sheets you have (it is computed by a worker: 202, then read the plan, or send \`Prefer: wait=10\`), and \`POST /api/v1/plans/{id}/programs\` writes the programs.
+
+## Conventions
+
+- Errors are \`application/problem+json\` (RFC 9457), each type explained at its \`type\` URL; schema errors list each problem with a JSON \`pointer\`.
+- Every POST accepts an \`Idempotency-Key\`. Programs carry an \`ETag\`; changing one needs \`If-Match\`.
+- Fields and query parameters are camelCase and carry their unit (\`bladeLengthMm\`, \`updatedSince\`). The one exception is the list envelope's \`next_cursor\`: lists answer \`{ "data": [...], "next_cursor": "…" | null }\`; pass it back as \`cursor\` for the next page (\`limit\` up to 200). Earlier snake_case spellings (\`updated_since\`, \`include_archived\`) are still accepted.
+- Each key has a rate limit, announced in \`RateLimit-Policy\` and \`RateLimit\`; past it, 429 with \`Retry-After\`.`;
+
 export function buildOpenApi(operations: Operation[], extra?: (registry: OpenAPIRegistry) => void) {
   const registry = new OpenAPIRegistry();
   const bearer = registry.registerComponent("securitySchemes", "apiKey", {
@@ -74,6 +110,20 @@ export function buildOpenApi(operations: Operation[], extra?: (registry: OpenAPI
     errorRef[Number(status)] = { $ref: `#/components/responses/${name}` };
   }
   extra?.(registry);
+
+  // Every event type as a webhook: the envelope the worker sends, from the same zod schema that types recordEvent.
+  for (const type of EVENT_TYPES) {
+    registry.registerWebhook({
+      method: "post",
+      path: type,
+      operationId: `webhook_${type.replace(/\./g, "_")}`,
+      summary: type,
+      description: `${EVENT_TYPE_WORDS[type]}\n\nSent to every enabled endpoint that chose this type (or every type), signed per Standard Webhooks: \`webhook-id\` (the event's id, the same on every retry: de-duplicate on it), \`webhook-timestamp\` and \`webhook-signature\` (HMAC-SHA256 with the endpoint's \`whsec_\` secret). Answer any 2xx within 15 s; anything else is retried for about a day, and 410 Gone stops deliveries to the endpoint.`,
+      tags: ["Webhooks"],
+      request: { body: { content: { "application/json": { schema: WEBHOOK_ENVELOPES[type], example: exampleWebhook(type) } } } },
+      responses: { 200: { description: "Any 2xx answer acknowledges the delivery." } },
+    } as RouteConfig);
+  }
 
   for (const op of operations) {
     const headers = pick(op.scope ? ["X-Request-Id", "RateLimit-Policy", "RateLimit"] : ["X-Request-Id"]);
@@ -121,15 +171,13 @@ export function buildOpenApi(operations: Operation[], extra?: (registry: OpenAPI
     } as RouteConfig);
   }
 
-  return new OpenApiGeneratorV31(registry.definitions).generateDocument({
+  const document = new OpenApiGeneratorV31(registry.definitions).generateDocument({
     openapi: "3.1.0",
     info: {
       title: "Shearwire API",
       version: VERSION,
       description:
-        "Push cut programs from your ERP, have them checked against the shear and the grade, release them to the machine-side gateway, and hear back through signed webhooks.\n\n" +
-        "Errors are `application/problem+json` (RFC 9457). Every POST accepts an `Idempotency-Key`. Lists page with `limit` and `cursor`.\n\n" +
-        "**Safety.** Computed settings are recommendations for a qualified operator, never a guarantee; the machine's manual, local codes and qualified people come first.",
+        QUICKSTART,
     },
     servers: [{ url: "/", description: "This server" }],
     tags: [
@@ -141,4 +189,9 @@ export function buildOpenApi(operations: Operation[], extra?: (registry: OpenAPI
       { name: "Meta", description: "Health, the OpenAPI document and the JSON Schema." },
     ],
   });
+  // Realistic examples where a generated one would be dummy values: the demo shop's shear and the worked example, checked.
+  const schemas = (document.components?.schemas ?? {}) as Record<string, { example?: unknown }>;
+  if (schemas.Shear) schemas.Shear.example = exampleShear();
+  if (schemas.Program) schemas.Program.example = exampleProgram();
+  return document;
 }

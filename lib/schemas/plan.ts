@@ -64,7 +64,7 @@ const PlanShape = z
 export const EXAMPLE_PLAN: z.infer<typeof PlanShape> = {
   reference: "WK49-A36-10GA",
   title: "Week 49, 10 ga A36",
-  shear: "shr_01JEXAMPLE0000000000000000",
+  shear: "Bay 1 sheet shear",
   grade: "A36",
   thickness: { gauge: 10 },
   units: "in",

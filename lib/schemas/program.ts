@@ -44,7 +44,10 @@ export const Thickness = z
 
 /** What a program or a plan is cut on and from: the shear, the grade and its thickness. */
 export const jobFields = () => ({
-  shear: z.string().min(1).max(64).openapi({ description: "The shear's id", example: "shr_01JEXAMPLE0000000000000000" }),
+  shear: z.string().trim().min(1).max(100).openapi({
+    description: "The shear: its id, or its name as the catalog has it (any case). Stored as the id.",
+    example: "Bay 1 sheet shear",
+  }),
   grade: z.string().trim().min(1).max(50).openapi({ description: "The grade's code in your catalog", example: "A36" }),
   thickness: Thickness,
 });
@@ -79,7 +82,7 @@ const ProgramShape = z.object(programFields).strict();
 export const EXAMPLE_PROGRAM: z.infer<typeof ProgramShape> = {
   reference: "SO-2291/4",
   title: "Side panels, lot 4",
-  shear: "shr_01JEXAMPLE0000000000000000",
+  shear: "Bay 1 sheet shear",
   grade: "A36",
   thickness: { gauge: 10 },
   units: "in",

@@ -59,3 +59,28 @@ export const Shear = ShearFields.extend({
 export type ShearInputT = z.infer<typeof ShearInput>;
 export type ShearPatchT = z.infer<typeof ShearPatch>;
 export type ShearT = z.infer<typeof Shear>;
+
+/**
+ * The demo shop's two machines (invented figures, a scenario of our own): the seed creates
+ * them, and the API reference's examples show the first, so "try it" works against the demo.
+ */
+export const DEMO_SHEARS = [] = [
+  {
+    name: "Bay 1 sheet shear",
+    description: "3 m light shear for sheet up to 6.35 mm mild steel. Demo machine.",
+    ratedThicknessMm: 6.35, ratedTensileMpa: 414, ratedRakeDeg: 1.5,
+    bladeLengthMm: 3100, backgaugeMinMm: 5, backgaugeMaxMm: 1000,
+    rakeMinDeg: 0.5, rakeMaxDeg: 2.5, gapMinMm: 0.03, gapMaxMm: 1.0,
+    strokesPerMin: 30, backgaugeSpeedMmPerS: 250, handlingSecondsPerTurn: 6, handlingSecondsPerSheet: 30,
+    maxBladeHardnessHb: 300, gradeThicknessLimitsMm: { "304": 4.0, "316": 4.0 }, crownBaselineMm: 0.05, backgaugeRepeatabilityMm: 0.05,
+  },
+  {
+    name: "Bay 3 plate shear",
+    description: "3 m plate shear for plate up to 12.7 mm mild steel. Demo machine.",
+    ratedThicknessMm: 12.7, ratedTensileMpa: 414, ratedRakeDeg: 2.0,
+    bladeLengthMm: 3100, backgaugeMinMm: 10, backgaugeMaxMm: 1000,
+    rakeMinDeg: 1.0, rakeMaxDeg: 3.0, gapMinMm: 0.1, gapMaxMm: 2.0,
+    strokesPerMin: 12, backgaugeSpeedMmPerS: 150, handlingSecondsPerTurn: 15, handlingSecondsPerSheet: 60,
+    maxBladeHardnessHb: 450, gradeThicknessLimitsMm: {}, crownBaselineMm: 0.08, backgaugeRepeatabilityMm: 0.1,
+  },
+] satisfies z.infer<typeof ShearInput>[];

@@ -1,5 +1,5 @@
 /** Webhook endpoints, events and deliveries. */
-import { EVENT_TYPES } from "../services/event-types";
+import { EVENT_TYPES } from "./enums";
 import { z } from "./zod";
 
 export const EventType = z.enum(EVENT_TYPES).openapi("EventType");

@@ -51,7 +51,7 @@ export async function sweepExpiredLeases(em: EntityManager, scope: { shopId?: st
       await recordEvent(tx, p.shop.id, "program.lease_expired", p.id, {
         program: viewProgram(p),
         from,
-        gateway,
+        gateway: gateway ?? "unknown",
         reason: `No heartbeat from gateway key ${gateway} before the lease ran out at ${expiredAt?.toISOString()}; the program is released again.`,
       });
       returned.push(p.id);

@@ -115,6 +115,7 @@ export function viewPlanSummary(p: PlanEntity): PlanSummaryT {
 async function checkedOrder(em: EntityManager, shopId: string, input: PlanInputT): Promise<{ shearId: string; context: PlanContext }> {
   const [shear, grade] = await Promise.all([activeShear(em, shopId, input.shear, "plan"), gradeByCode(em, shopId, input.grade)]);
   const context = { shear: shearProfile(shear), grade: grade ? gradeProfile(grade) : null };
+  input.shear = shear.id; // stored by id, however it was named
   try {
     checkOrderLimits(input, context.shear);
   } catch (err) {

@@ -56,11 +56,17 @@ export function viewProgram(p: ProgramEntity): ProgramT {
   };
 }
 
-/** The shear a program or plan names, if it is this shop's and not archived; else 422 pointing at `/shear`. */
-export async function activeShear(em: EntityManager, shopId: string, id: string, what = "program"): Promise<ShearEntity> {
-  const shear = await em.findOne(Shear, { id, shop: shopId });
+/**
+ * The shear a program or plan names (by id, or by name as the catalog has it, any case), if
+ * it is this shop's and not archived; else 422 pointing at `/shear`.
+ */
+export async function activeShear(em: EntityManager, shopId: string, idOrName: string, what = "program"): Promise<ShearEntity> {
+  const key = idOrName.trim();
+  const shear = /^shr_[0-9A-Z]{26}$/.test(key)
+    ? await em.findOne(Shear, { id: key, shop: shopId })
+    : await em.findOne(Shear, { shop: shopId, name: { $ilike: key.replace(/[\\%_]/g, (c) => `\\${c}`) }, archivedAt: null });
   if (!shear || shear.archivedAt) {
-    const message = shear ? "that shear is archived" : "no shear with that id in this shop";
+    const message = shear ? "that shear is archived" : "no shear in this shop has that id or name";
     throw invalidRequest(`The ${what}'s shear cannot be used: ${message}.`, [{ location: "body", pointer: "/shear", message }]);
   }
   return shear;
@@ -70,6 +76,8 @@ export async function activeShear(em: EntityManager, shopId: string, id: string,
 export async function runCheck(em: EntityManager, shopId: string, input: ProgramInputT): Promise<{ shear: ShearEntity; check: CheckResult }> {
   const [shear, grade] = await Promise.all([activeShear(em, shopId, input.shear), gradeByCode(em, shopId, input.grade)]);
   const check = checkProgram(input, { shear: shearProfile(shear), grade: grade ? gradeProfile(grade) : null });
+  // A shear named by name is stored by id: renaming it later changes nothing about the program.
+  input.shear = shear.id;
   return { shear, check };
 }
 

@@ -10,7 +10,7 @@ import { decodeCursor, page } from "../api/pagination";
 import { enqueueAttempt } from "../queue/queue";
 import { literalRefusal } from "../network";
 import type { DeliveryT, EndpointT } from "../schemas/webhook";
-import type { EventType } from "./event-types";
+import type { EventType } from "../schemas/enums";
 import { recordEvent } from "./events";
 
 export const DEFAULT_OVERLAP_HOURS = 24;

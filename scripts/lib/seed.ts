@@ -9,6 +9,7 @@ import { Grade, Membership, Plan, Shear, Shop, User, type ShopEntity } from "../
 import { processStoredPlan } from "../../lib/queue/plan-jobs";
 import { planTimeLimitMs } from "../../lib/queue/plan-queue";
 import { createPlan, viewPlan } from "../../lib/services/plans";
+import { DEMO_SHEARS } from "../../lib/schemas/shear";
 import type { Role } from "../../entities/Membership";
 import { GRADE_LIBRARY } from "../../lib/shear/grades";
 
@@ -23,26 +24,7 @@ const PEOPLE: { email: string; name: string; role: Role }[] = [
 ];
 
 // Two invented machines of different capacity (figures are demo values, not any real model).
-const SHEARS: Omit<RequiredEntityData<InferEntity<typeof Shear>>, "shop">[] = [
-  {
-    name: "Bay 1 sheet shear",
-    description: "3 m light shear for sheet up to 6.35 mm mild steel. Demo machine.",
-    ratedThicknessMm: 6.35, ratedTensileMpa: 414, ratedRakeDeg: 1.5,
-    bladeLengthMm: 3100, backgaugeMinMm: 5, backgaugeMaxMm: 1000,
-    rakeMinDeg: 0.5, rakeMaxDeg: 2.5, gapMinMm: 0.03, gapMaxMm: 1.0,
-    strokesPerMin: 30, backgaugeSpeedMmPerS: 250, handlingSecondsPerTurn: 6, handlingSecondsPerSheet: 30,
-    maxBladeHardnessHb: 300, gradeThicknessLimitsMm: { "304": 4.0, "316": 4.0 }, crownBaselineMm: 0.05, backgaugeRepeatabilityMm: 0.05,
-  },
-  {
-    name: "Bay 3 plate shear",
-    description: "3 m plate shear for plate up to 12.7 mm mild steel. Demo machine.",
-    ratedThicknessMm: 12.7, ratedTensileMpa: 414, ratedRakeDeg: 2.0,
-    bladeLengthMm: 3100, backgaugeMinMm: 10, backgaugeMaxMm: 1000,
-    rakeMinDeg: 1.0, rakeMaxDeg: 3.0, gapMinMm: 0.1, gapMaxMm: 2.0,
-    strokesPerMin: 12, backgaugeSpeedMmPerS: 150, handlingSecondsPerTurn: 15, handlingSecondsPerSheet: 60,
-    maxBladeHardnessHb: 450, gradeThicknessLimitsMm: {}, crownBaselineMm: 0.08, backgaugeRepeatabilityMm: 0.1,
-  },
-];
+const SHEARS = DEMO_SHEARS;
 
 /** The published-minimums grade library, as catalog rows of a shop (staged; the caller flushes). */
 export function addGradeLibrary(em: EntityManager, shop: ShopEntity) {
@@ -94,7 +76,7 @@ export async function seedDemo(em: EntityManager): Promise<DemoSummary> {
           tx.create(User, { email: person.email, name: person.name, passwordHash: hash });
         tx.create(Membership, { user, shop, role: person.role });
       }
-      for (const s of SHEARS) tx.create(Shear, { ...s, shop });
+      for (const s of SHEARS) tx.create(Shear, { ...(s as Omit<RequiredEntityData<InferEntity<typeof Shear>>, "shop">), shop });
       addGradeLibrary(tx, shop);
       await tx.flush();
     }

@@ -1,6 +1,6 @@
 import { afterAll, describe, expect, it } from "vitest";
 import { Event, Program } from "../../entities";
-import { createProgram } from "../../lib/services/programs";
+import { createProgram, viewProgram } from "../../lib/services/programs";
 import { recordEvent } from "../../lib/services/events";
 import { closeTestOrm, createTestShop, exampleProgram, testOrm } from "../support/fixtures";
 
@@ -16,7 +16,7 @@ describe("the outbox", () => {
         const p = await tx.findOneOrFail(Program, { id });
         p.title = "changed, then rolled back";
         await tx.flush();
-        await recordEvent(tx, shop.shopId, "program.updated", id, { note: "must vanish" });
+        await recordEvent(tx, shop.shopId, "program.updated", id, { program: viewProgram(p), changed: ["title"] });
         throw new Error("something failed after the change");
       }),
     ).rejects.toThrow("something failed");

@@ -52,6 +52,15 @@ export function expectDocumented(op: Operation, res: Res) {
   exercised.add(op.operationId);
 }
 
+/** Assert that a delivered webhook body is what the document's `webhooks` section says for its type. */
+export function expectDocumentedWebhook(payload: { type: string }) {
+  const hook = doc.webhooks?.[payload.type]?.post;
+  expect(hook, `webhook ${payload.type} is in the document`).toBeDefined();
+  const validate = compiled(hook.requestBody.content["application/json"].schema);
+  const ok = validate(payload);
+  expect(ok, `${payload.type} matches the document: ${ajv.errorsText(validate.errors)}`).toBe(true);
+}
+
 /** Point local refs (#/components/...) at the document registered in Ajv. */
 function rewrite(schema: unknown): Record<string, unknown> {
   return JSON.parse(JSON.stringify(schema).replace(/"\$ref":"#\//g, `"$ref":"${DOC_ID}#/`));

@@ -2,7 +2,7 @@ import Link from "next/link";
 import { EventsTable } from "@/components/console/EventsTable";
 import { PageHeader } from "@/components/ui";
 import { currentMember } from "@/lib/auth/session";
-import { EVENT_TYPES } from "@/lib/services/event-types";
+import { EVENT_TYPES } from "@/lib/schemas/enums";
 
 export const metadata = { title: "Events" };
 

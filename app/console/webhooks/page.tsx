@@ -4,7 +4,7 @@ import { Badge, PageHeader, when } from "@/components/ui";
 import { can } from "@/lib/auth/roles";
 import { currentMember } from "@/lib/auth/session";
 import { requestEm } from "@/lib/db/orm";
-import { EVENT_TYPES, EVENT_TYPE_WORDS } from "@/lib/services/event-types";
+import { EVENT_TYPES, EVENT_TYPE_WORDS } from "@/lib/schemas/enums";
 import { listDeliveries, listEndpoints } from "@/lib/services/webhooks";
 
 export const metadata = { title: "Webhooks" };

@@ -1,7 +1,7 @@
 import { NextResponse } from "next/server";
 import { currentMember } from "@/lib/auth/session";
 import { requestEm } from "@/lib/db/orm";
-import { EVENT_TYPES } from "@/lib/services/event-types";
+import { EVENT_TYPES } from "@/lib/schemas/enums";
 import { listEvents } from "@/lib/services/webhooks";
 import { textProblem } from "@/lib/text";
 

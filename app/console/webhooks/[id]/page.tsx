@@ -10,7 +10,7 @@ import { can } from "@/lib/auth/roles";
 import { currentMember } from "@/lib/auth/session";
 import { requestEm } from "@/lib/db/orm";
 import { webhookPayload } from "@/lib/schemas/webhook";
-import { EVENT_TYPES, EVENT_TYPE_WORDS } from "@/lib/services/event-types";
+import { EVENT_TYPES, EVENT_TYPE_WORDS } from "@/lib/schemas/enums";
 import { findEndpoint, listDeliveries, viewEndpoint } from "@/lib/services/webhooks";
 import { deleteEndpointAction, resendFailedAction } from "../actions";
 

@@ -6,7 +6,7 @@
 import { Queue, QueueEvents } from "bullmq";
 import { randomUUID } from "node:crypto";
 import type { Order, PlanContext, PlannedOrder } from "../planner/order";
-import { bullConnection } from "./queue";
+import { bullConnection, within } from "./queue";
 
 export const PLAN_QUEUE = "shearwire-plans";
 
@@ -32,14 +32,20 @@ export function planQueue(): Queue<PlanJob> {
   return holder.__shearwirePlanQueue;
 }
 
-/** Queue a stored plan (a second call for the same plan while its job exists does nothing). */
-export async function enqueuePlan(planId: string) {
-  await planQueue().add("plan", { kind: "stored", planId }, { jobId: planId });
+/**
+ * Queue a stored plan (a second call for the same plan while its job exists does nothing).
+ * With `waitMs`, gives up waiting after that long: BullMQ's connection retries forever while
+ * Redis is away, and a request must not hang on it.
+ */
+export async function enqueuePlan(planId: string, waitMs?: number) {
+  const adding = planQueue().add("plan", { kind: "stored", planId }, { jobId: planId });
+  await (waitMs === undefined ? adding : within(adding, waitMs));
 }
 
+
 /** Drop a queued plan's job, if no worker has taken it yet. */
-export async function dequeuePlan(planId: string) {
-  const job = await planQueue().getJob(planId);
+export async function dequeuePlan(planId: string, waitMs = 2_000) {
+  const job = await within(planQueue().getJob(planId), waitMs);
   if (job && (await job.isWaiting())) await job.remove().catch(() => undefined);
 }
 
@@ -49,9 +55,15 @@ export class PreviewTimeout extends Error {}
 export async function previewOnWorker(order: Order, context: PlanContext): Promise<PlannedOrder> {
   holder.__shearwirePlanEvents ??= new QueueEvents(PLAN_QUEUE, { connection: bullConnection() });
   const events = holder.__shearwirePlanEvents;
-  await events.waitUntilReady();
   const limit = previewTimeLimitMs();
-  const job = await planQueue().add("preview", { kind: "preview", order, context }, { jobId: `preview-${randomUUID()}`, removeOnComplete: { age: 60 }, removeOnFail: { age: 600 } });
+  try {
+    await within(events.waitUntilReady(), 2_000);
+  } catch {
+    throw new PreviewTimeout("The planning queue is not answering.");
+  }
+  const job = await within(planQueue().add("preview", { kind: "preview", order, context }, { jobId: `preview-${randomUUID()}`, removeOnComplete: { age: 60 }, removeOnFail: { age: 600 } }), 2_000).catch(() => {
+    throw new PreviewTimeout("The planning queue is not answering.");
+  });
   try {
     // A little longer than the worker's own limit, so its "too long" answer arrives rather than ours.
     return (await job.waitUntilFinished(events, limit + 5_000)) as PlannedOrder;

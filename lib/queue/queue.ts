@@ -27,10 +27,30 @@ export function deliveryQueue(): Queue<DeliveryJob> {
   return holder.__shearwireQueue;
 }
 
-/** Queue one attempt of a delivery; the job id makes a second enqueue of the same attempt a no-op. */
-export async function enqueueAttempt(deliveryId: string, attempt: number, delayMs = 0) {
-  await deliveryQueue().add("deliver", { deliveryId, attempt }, { jobId: `${deliveryId}-${attempt}`, delay: Math.max(0, delayMs) });
+/**
+ * Queue one attempt of a delivery; the job id makes a second enqueue of the same attempt a
+ * no-op. With `waitMs` (the web process), stops waiting for an absent Redis after that long.
+ */
+export async function enqueueAttempt(deliveryId: string, attempt: number, delayMs = 0, waitMs?: number) {
+  const adding = deliveryQueue().add("deliver", { deliveryId, attempt }, { jobId: `${deliveryId}-${attempt}`, delay: Math.max(0, delayMs) });
+  await (waitMs === undefined ? adding : within(adding, waitMs));
 }
+
+/**
+ * `work`, or a rejection once `ms` have passed without an answer from Redis (BullMQ's
+ * connections retry forever while Redis is away; a request must not hang on them).
+ */
+export async function within<T>(work: Promise<T>, ms: number): Promise<T> {
+  let timer: NodeJS.Timeout | undefined;
+  const timeout = new Promise<never>((_, reject) => { timer = setTimeout(() => reject(new Error(`Redis did not answer within ${ms} ms`)), ms); });
+  work.catch(() => undefined);
+  try {
+    return await Promise.race([work, timeout]);
+  } finally {
+    clearTimeout(timer);
+  }
+}
+
 
 export async function closeQueue() {
   const q = holder.__shearwireQueue;

@@ -20,6 +20,9 @@ import { gradeByCode, gradeProfile, shearProfile } from "./catalog";
 import { recordEvent } from "./events";
 import { activeShear, createProgram } from "./programs";
 
+/** How long a request waits for Redis to take a plan's job before leaving it to the sweeper. */
+const ENQUEUE_WAIT_MS = 2_000;
+
 /** Notified with a plan's id when it ends (complete, failed, cancelled): `Prefer: wait` listens. */
 export const PLAN_DONE_CHANNEL = "shearwire_plan_done";
 /** Notified with a plan's id when it is cancelled: the worker computing it stops. */
@@ -125,16 +128,21 @@ async function checkedOrder(em: EntityManager, shopId: string, input: PlanInputT
   return { shearId: shear.id, context };
 }
 
-/** Store an order as a queued plan and queue it for a worker; answers at once. */
-export async function createPlan(em: EntityManager, shopId: string, input: PlanInputT): Promise<PlanT> {
+/**
+ * Store an order as a queued plan and queue it for a worker; answers at once. `queue: false`
+ * stores it only (the demo seed plans it itself; the worker's sweeper queues any left behind).
+ */
+export async function createPlan(em: EntityManager, shopId: string, input: PlanInputT, opts: { queue?: boolean } = {}): Promise<PlanT> {
   const { shearId } = await checkedOrder(em, shopId, input);
   const plan = em.create(Plan, {
     shop: em.getReference(Shop, shopId), shear: shearId, reference: input.reference ?? null, title: input.title ?? null,
     status: "queued", input: input as unknown as Record<string, unknown>, result: null, progress: null, failure: null,
   });
   await em.flush();
-  // Queued after the row is stored; if Redis is away, the worker's sweeper queues it later.
-  await enqueuePlan(plan.id).catch((err) => console.error(`[plans] queueing ${plan.id} failed; the sweeper will:`, err.message));
+  // Queued after the row is stored; if Redis is away or slow, the worker's sweeper queues it later.
+  if (opts.queue !== false) {
+    await enqueuePlan(plan.id, ENQUEUE_WAIT_MS).catch((err) => console.error(`[plans] queueing ${plan.id} failed; the sweeper will:`, err.message));
+  }
   return viewPlan(plan);
 }
 

@@ -94,7 +94,7 @@ export async function rotateSecret(em: EntityManager, shopId: string, id: string
 
 /** Queue a delivery right away (the worker's sweeper would find it too, a little later). */
 async function queueNow(d: DeliveryEntity) {
-  await enqueueAttempt(d.id, 1).catch((err) => console.error(`[webhooks] queueing ${d.id} failed; the sweeper will:`, err.message));
+  await enqueueAttempt(d.id, 1, 0, 2_000).catch((err) => console.error(`[webhooks] queueing ${d.id} failed; the sweeper will:`, err.message));
 }
 
 export async function sendTestEvent(em: EntityManager, shopId: string, id: string) {

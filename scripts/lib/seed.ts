@@ -89,7 +89,7 @@ export async function seedDemo(em: EntityManager): Promise<DemoSummary> {
     };
   });
   const existing = await em.findOne(Plan, { shop: summary.shop.id }, { orderBy: { id: "asc" } });
-  const plan = existing ? viewPlan(existing) : await createPlan(em, summary.shop.id, { ...DEMO_PLAN, shear: summary.shears[0].id });
+  const plan = existing ? viewPlan(existing) : await createPlan(em, summary.shop.id, { ...DEMO_PLAN, shear: summary.shears[0].id }, { queue: false });
   if (plan.status === "queued") {
     // This script is not the web server: it may plan right here, so the demo plan is ready when the console opens.
     await processStoredPlan(() => em.fork(), plan.id, planTimeLimitMs());

@@ -48,6 +48,15 @@ describe("create", () => {
     expect(list.body.data).toEqual([]);
   });
 
+  it("takes the shear by name (any case) and stores its id; an unknown name is refused naming /shear", async () => {
+    const res = await create(exampleProgram("test SHEAR"));
+    expect(res.status).toBe(201);
+    expect(res.body.shear).toBe(shop.shearId);
+    const unknown = await create(exampleProgram("No such shear"));
+    expect(unknown.status).toBe(422);
+    expect(unknown.body.errors).toEqual([expect.objectContaining({ pointer: "/shear" })]);
+  });
+
   it("reports an unknown grade as a finding", async () => {
     const res = await create({ ...exampleProgram(shop.shearId), grade: "UNOBTAINIUM" });
     expect(res.status).toBe(201);

@@ -1,12 +1,7 @@
 import { defineEntity, p } from "@mikro-orm/core";
 import { newId } from "../lib/ids";
+import type { Scope } from "../lib/schemas/enums";
 import { Shop } from "./Shop";
-
-export const SCOPES = [
-  "programs:read", "programs:write", "programs:release", "gateway",
-  "catalog:read", "catalog:write", "events:read", "webhooks:write",
-] as const;
-export type Scope = (typeof SCOPES)[number];
 
 /**
  * An API key of one shop. The secret is shown once; only its SHA-256 digest is stored,
@@ -16,7 +11,10 @@ export const ApiKey = defineEntity({
   name: "ApiKey",
   tableName: "api_keys",
   properties: {
-    id: p.string().primary().onCreate(() => newId("apiKey")),
+    id: p
+      .string()
+      .primary()
+      .onCreate(() => newId("apiKey")),
     shop: () => p.manyToOne(Shop).deleteRule("cascade"),
     name: p.text(),
     /** the first characters of the secret, safe to show (e.g. "swk_7KQ2"; keys made before 2026-12 start "swk_live_") */

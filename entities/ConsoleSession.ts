@@ -12,7 +12,10 @@ export const ConsoleSession = defineEntity({
   tableName: "console_sessions",
   indexes: [{ properties: ["user", "revokedAt"] }],
   properties: {
-    id: p.string().primary().onCreate(() => newId("session")),
+    id: p
+      .string()
+      .primary()
+      .onCreate(() => newId("session")),
     user: () => p.manyToOne(User).deleteRule("cascade"),
     createdAt: p.datetime().onCreate(() => new Date()),
     expiresAt: p.datetime(),

@@ -10,9 +10,16 @@ export const DELIVERY_STATUSES = ["pending", "succeeded", "failed", "skipped"] a
 export const Delivery = defineEntity({
   name: "Delivery",
   tableName: "deliveries",
-  indexes: [{ properties: ["status", "nextAttemptAt"] }, { properties: ["endpoint", "id"] }, { properties: ["event", "id"] }],
+  indexes: [
+    { properties: ["status", "nextAttemptAt"] },
+    { properties: ["endpoint", "id"] },
+    { properties: ["event", "id"] },
+  ],
   properties: {
-    id: p.string().primary().onCreate(() => newId("delivery")),
+    id: p
+      .string()
+      .primary()
+      .onCreate(() => newId("delivery")),
     shop: () => p.manyToOne(Shop).deleteRule("cascade"),
     event: () => p.manyToOne(Event).deleteRule("cascade"),
     endpoint: () => p.manyToOne(WebhookEndpoint).deleteRule("cascade"),
@@ -24,6 +31,9 @@ export const Delivery = defineEntity({
     /** true for a delivery made by "resend" */
     manual: p.boolean().default(false),
     createdAt: p.datetime().onCreate(() => new Date()),
-    updatedAt: p.datetime().onCreate(() => new Date()).onUpdate(() => new Date()),
+    updatedAt: p
+      .datetime()
+      .onCreate(() => new Date())
+      .onUpdate(() => new Date()),
   },
 });

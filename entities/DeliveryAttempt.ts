@@ -8,7 +8,10 @@ export const DeliveryAttempt = defineEntity({
   tableName: "delivery_attempts",
   indexes: [{ properties: ["delivery", "id"] }],
   properties: {
-    id: p.string().primary().onCreate(() => newId("attempt")),
+    id: p
+      .string()
+      .primary()
+      .onCreate(() => newId("attempt")),
     delivery: () => p.manyToOne(Delivery).deleteRule("cascade"),
     attemptedAt: p.datetime(),
     statusCode: p.integer().nullable(),

@@ -11,7 +11,10 @@ export const Event = defineEntity({
   tableName: "events",
   indexes: [{ properties: ["shop", "id"] }, { properties: ["subjectId", "id"] }, { properties: ["dispatchedAt"] }],
   properties: {
-    id: p.string().primary().onCreate(() => newId("event")),
+    id: p
+      .string()
+      .primary()
+      .onCreate(() => newId("event")),
     shop: () => p.manyToOne(Shop).deleteRule("cascade"),
     /** e.g. program.created, program.released */
     type: p.string(),

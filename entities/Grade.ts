@@ -14,7 +14,10 @@ export const Grade = defineEntity({
   tableName: "grades",
   uniques: [{ properties: ["shop", "code"] }],
   properties: {
-    id: p.string().primary().onCreate(() => newId("grade")),
+    id: p
+      .string()
+      .primary()
+      .onCreate(() => newId("grade")),
     shop: () => p.manyToOne(Shop).deleteRule("cascade"),
     /** the code programs refer to, e.g. "A36" */
     code: p.text(),
@@ -34,6 +37,9 @@ export const Grade = defineEntity({
     note: p.text().nullable(),
     archivedAt: p.datetime().nullable(),
     createdAt: p.datetime().onCreate(() => new Date()),
-    updatedAt: p.datetime().onCreate(() => new Date()).onUpdate(() => new Date()),
+    updatedAt: p
+      .datetime()
+      .onCreate(() => new Date())
+      .onUpdate(() => new Date()),
   },
 });

@@ -1,6 +1,6 @@
 import { defineEntity, p } from "@mikro-orm/core";
 import { newId } from "../lib/ids";
-import { ROLES } from "./Membership";
+import { ROLES } from "../lib/schemas/enums";
 import { Shop } from "./Shop";
 
 /** An invitation to join a shop with a role; the e-mailed link (a one-time token) sets the password. */
@@ -8,7 +8,10 @@ export const Invitation = defineEntity({
   name: "Invitation",
   tableName: "invitations",
   properties: {
-    id: p.string().primary().onCreate(() => newId("invitation")),
+    id: p
+      .string()
+      .primary()
+      .onCreate(() => newId("invitation")),
     shop: () => p.manyToOne(Shop).deleteRule("cascade"),
     email: p.text(),
     role: p.enum([...ROLES]),

@@ -3,9 +3,7 @@ import { newId } from "../lib/ids";
 import { Shop } from "./Shop";
 import { User } from "./User";
 
-import { ROLES, type Role } from "../lib/schemas/enums";
-
-export { ROLES, type Role };
+import { ROLES } from "../lib/schemas/enums";
 
 /** A user's role in one shop. A user may belong to several shops. */
 export const Membership = defineEntity({
@@ -13,7 +11,10 @@ export const Membership = defineEntity({
   tableName: "memberships",
   uniques: [{ properties: ["user", "shop"] }],
   properties: {
-    id: p.string().primary().onCreate(() => newId("membership")),
+    id: p
+      .string()
+      .primary()
+      .onCreate(() => newId("membership")),
     user: () => p.manyToOne(User).deleteRule("cascade"),
     shop: () => p.manyToOne(Shop).deleteRule("cascade"),
     role: p.enum([...ROLES]),

@@ -15,7 +15,10 @@ export const Plan = defineEntity({
   tableName: "plans",
   indexes: [{ properties: ["shop", "id"] }, { properties: ["status", "updatedAt"] }],
   properties: {
-    id: p.string().primary().onCreate(() => newId("plan")),
+    id: p
+      .string()
+      .primary()
+      .onCreate(() => newId("plan")),
     shop: () => p.manyToOne(Shop).deleteRule("cascade"),
     shear: () => p.manyToOne(Shear).deleteRule("restrict"),
     reference: p.text().nullable(),
@@ -32,6 +35,9 @@ export const Plan = defineEntity({
     createdAt: p.datetime().onCreate(() => new Date()),
     startedAt: p.datetime().nullable(),
     finishedAt: p.datetime().nullable(),
-    updatedAt: p.datetime().onCreate(() => new Date()).onUpdate(() => new Date()),
+    updatedAt: p
+      .datetime()
+      .onCreate(() => new Date())
+      .onUpdate(() => new Date()),
   },
 });

@@ -23,7 +23,10 @@ export const Program = defineEntity({
     { properties: ["shop", "updatedAt", "id"] },
   ],
   properties: {
-    id: p.string().primary().onCreate(() => newId("program")),
+    id: p
+      .string()
+      .primary()
+      .onCreate(() => newId("program")),
     shop: () => p.manyToOne(Shop).deleteRule("cascade"),
     shear: () => p.manyToOne(Shear).deleteRule("restrict"),
     reference: p.text(),
@@ -58,6 +61,9 @@ export const Program = defineEntity({
     /** the completion or failure report */
     outcome: p.json<Record<string, unknown> | null>().nullable(),
     createdAt: p.datetime().onCreate(() => new Date()),
-    updatedAt: p.datetime().onCreate(() => new Date()).onUpdate(() => new Date()),
+    updatedAt: p
+      .datetime()
+      .onCreate(() => new Date())
+      .onUpdate(() => new Date()),
   },
 });

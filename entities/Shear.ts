@@ -14,7 +14,10 @@ export const Shear = defineEntity({
   tableName: "shears",
   uniques: [{ properties: ["shop", "name"] }],
   properties: {
-    id: p.string().primary().onCreate(() => newId("shear")),
+    id: p
+      .string()
+      .primary()
+      .onCreate(() => newId("shear")),
     shop: () => p.manyToOne(Shop).deleteRule("cascade"),
     name: p.text(),
     description: p.text().nullable(),
@@ -45,6 +48,9 @@ export const Shear = defineEntity({
     crownBaselineMm: measure().nullable(),
     archivedAt: p.datetime().nullable(),
     createdAt: p.datetime().onCreate(() => new Date()),
-    updatedAt: p.datetime().onCreate(() => new Date()).onUpdate(() => new Date()),
+    updatedAt: p
+      .datetime()
+      .onCreate(() => new Date())
+      .onUpdate(() => new Date()),
   },
 });

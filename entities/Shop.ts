@@ -6,10 +6,16 @@ export const Shop = defineEntity({
   name: "Shop",
   tableName: "shops",
   properties: {
-    id: p.string().primary().onCreate(() => newId("shop")),
+    id: p
+      .string()
+      .primary()
+      .onCreate(() => newId("shop")),
     name: p.text(),
     slug: p.string().unique(),
     createdAt: p.datetime().onCreate(() => new Date()),
-    updatedAt: p.datetime().onCreate(() => new Date()).onUpdate(() => new Date()),
+    updatedAt: p
+      .datetime()
+      .onCreate(() => new Date())
+      .onUpdate(() => new Date()),
   },
 });

@@ -7,7 +7,10 @@ export const SignInAttempt = defineEntity({
   tableName: "sign_in_attempts",
   indexes: [{ properties: ["email", "createdAt"] }],
   properties: {
-    id: p.string().primary().onCreate(() => newId("signInAttempt")),
+    id: p
+      .string()
+      .primary()
+      .onCreate(() => newId("signInAttempt")),
     email: p.text(),
     /** the client address as the server saw it (the first X-Forwarded-For entry behind a proxy) */
     address: p.text(),

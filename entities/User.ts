@@ -6,11 +6,17 @@ export const User = defineEntity({
   name: "User",
   tableName: "users",
   properties: {
-    id: p.string().primary().onCreate(() => newId("user")),
+    id: p
+      .string()
+      .primary()
+      .onCreate(() => newId("user")),
     email: p.text().unique(),
     name: p.text(),
     passwordHash: p.string().nullable(),
     createdAt: p.datetime().onCreate(() => new Date()),
-    updatedAt: p.datetime().onCreate(() => new Date()).onUpdate(() => new Date()),
+    updatedAt: p
+      .datetime()
+      .onCreate(() => new Date())
+      .onUpdate(() => new Date()),
   },
 });

@@ -10,7 +10,10 @@ export const WebhookEndpoint = defineEntity({
   name: "WebhookEndpoint",
   tableName: "webhook_endpoints",
   properties: {
-    id: p.string().primary().onCreate(() => newId("endpoint")),
+    id: p
+      .string()
+      .primary()
+      .onCreate(() => newId("endpoint")),
     shop: () => p.manyToOne(Shop).deleteRule("cascade"),
     url: p.text(),
     description: p.text().nullable(),
@@ -25,6 +28,9 @@ export const WebhookEndpoint = defineEntity({
     /** failed attempts in a row; reset by any success */
     consecutiveFailures: p.integer().default(0),
     createdAt: p.datetime().onCreate(() => new Date()),
-    updatedAt: p.datetime().onCreate(() => new Date()).onUpdate(() => new Date()),
+    updatedAt: p
+      .datetime()
+      .onCreate(() => new Date())
+      .onUpdate(() => new Date()),
   },
 });

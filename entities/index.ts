@@ -17,7 +17,25 @@ import { SignInAttempt } from "./SignInAttempt";
 import { User } from "./User";
 import { WebhookEndpoint } from "./WebhookEndpoint";
 
-export { ApiKey, ConsoleSession, Delivery, DeliveryAttempt, Event, Grade, IdempotencyRecord, Invitation, Membership, Plan, Program, RequestLog, Shear, Shop, SignInAttempt, User, WebhookEndpoint };
+export {
+  ApiKey,
+  ConsoleSession,
+  Delivery,
+  DeliveryAttempt,
+  Event,
+  Grade,
+  IdempotencyRecord,
+  Invitation,
+  Membership,
+  Plan,
+  Program,
+  RequestLog,
+  Shear,
+  Shop,
+  SignInAttempt,
+  User,
+  WebhookEndpoint,
+};
 
 export type ApiKeyEntity = InferEntity<typeof ApiKey>;
 export type DeliveryEntity = InferEntity<typeof Delivery>;
@@ -28,7 +46,24 @@ export type PlanEntity = InferEntity<typeof Plan>;
 export type GradeEntity = InferEntity<typeof Grade>;
 export type ShearEntity = InferEntity<typeof Shear>;
 export type ShopEntity = InferEntity<typeof Shop>;
-export type UserEntity = InferEntity<typeof User>;
 
 /** Every entity, for the ORM configuration. */
-export const entities = [Shop, User, Membership, Shear, Grade, ApiKey, RequestLog, IdempotencyRecord, Program, Event, WebhookEndpoint, Delivery, DeliveryAttempt, Invitation, Plan, ConsoleSession, SignInAttempt];
+export const entities = [
+  Shop,
+  User,
+  Membership,
+  Shear,
+  Grade,
+  ApiKey,
+  RequestLog,
+  IdempotencyRecord,
+  Program,
+  Event,
+  WebhookEndpoint,
+  Delivery,
+  DeliveryAttempt,
+  Invitation,
+  Plan,
+  ConsoleSession,
+  SignInAttempt,
+];

@@ -26,7 +26,10 @@ export interface ReceiverAllowList {
 /** Parse a list such as `127.0.0.0/8, ::1/128, erp.shop.lan, *.plant.lan`; throws on an entry that is neither. */
 export function parseAllowList(text: string | undefined): ReceiverAllowList {
   const list: ReceiverAllowList = { hosts: [], cidrs: [], text: (text ?? "").trim() };
-  for (const raw of list.text.split(",").map((entry) => entry.trim()).filter(Boolean)) {
+  for (const raw of list.text
+    .split(",")
+    .map((entry) => entry.trim())
+    .filter(Boolean)) {
     if (raw.includes("/")) {
       list.cidrs.push(ipaddr.parseCIDR(raw));
     } else if (ipaddr.isValid(raw)) {
@@ -50,7 +53,9 @@ const NEVER = new Set(["unspecified", "multicast", "broadcast"]);
 
 function normalise(address: string): ipaddr.IPv4 | ipaddr.IPv6 {
   const parsed = ipaddr.parse(address);
-  return parsed.kind() === "ipv6" && (parsed as ipaddr.IPv6).isIPv4MappedAddress() ? (parsed as ipaddr.IPv6).toIPv4Address() : parsed;
+  return parsed.kind() === "ipv6" && (parsed as ipaddr.IPv6).isIPv4MappedAddress()
+    ? (parsed as ipaddr.IPv6).toIPv4Address()
+    : parsed;
 }
 
 /** True when the address is a public unicast address. */
@@ -100,7 +105,10 @@ export async function resolveReceiver(url: URL, list = allowList()): Promise<Che
   const host = hostOf(url);
   const addresses: CheckedAddress[] = ipaddr.isValid(host)
     ? [{ address: host, family: ipaddr.parse(host).kind() === "ipv6" ? 6 : 4 }]
-    : (await lookup(host, { all: true, verbatim: true })).map((a) => ({ address: a.address, family: a.family as 4 | 6 }));
+    : (await lookup(host, { all: true, verbatim: true })).map((a) => ({
+        address: a.address,
+        family: a.family as 4 | 6,
+      }));
   if (!addresses.length) throw new BlockedAddressError(`${host} has no address`);
   for (const a of addresses) {
     const why = refusal(host, a.address, list);
@@ -117,14 +125,19 @@ type LookupCallback = (err: NodeJS.ErrnoException | null, address: string | Chec
  */
 export function pinnedLookup(addresses: CheckedAddress[]) {
   return (_host: string, options: { all?: boolean; family?: number }, callback: LookupCallback) => {
-    const wanted = options.family === 4 || options.family === 6 ? addresses.filter((a) => a.family === options.family) : addresses;
+    const wanted =
+      options.family === 4 || options.family === 6 ? addresses.filter((a) => a.family === options.family) : addresses;
     if (!wanted.length) {
       const err: NodeJS.ErrnoException = new Error(`no checked IPv${options.family} address`);
       err.code = "ENOTFOUND";
       callback(err, options.all ? [] : "");
       return;
     }
-    if (options.all) callback(null, wanted.map((a) => ({ ...a })));
+    if (options.all)
+      callback(
+        null,
+        wanted.map((a) => ({ ...a })),
+      );
     else callback(null, wanted[0].address, wanted[0].family);
   };
 }

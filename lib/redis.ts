@@ -16,9 +16,3 @@ export function getRedis(): Redis {
   holder.__shearwireRedis.on("error", () => undefined);
   return holder.__shearwireRedis;
 }
-
-export async function closeRedis() {
-  const r = holder.__shearwireRedis;
-  holder.__shearwireRedis = undefined;
-  if (r) await r.quit().catch(() => r.disconnect());
-}

@@ -19,7 +19,8 @@ const LONE_SURROGATE = /[\uD800-\uDBFF](?![\uDC00-\uDFFF])|(?<![\uD800-\uDBFF])[
 /** Why this string cannot be stored, or null when it can. */
 export function textProblem(text: string): string | null {
   if (text.includes("\u0000")) return "contains a NUL character (U+0000), which cannot be stored";
-  if (LONE_SURROGATE.test(text)) return "contains an unpaired UTF-16 surrogate (broken Unicode), which cannot be stored";
+  if (LONE_SURROGATE.test(text))
+    return "contains an unpaired UTF-16 surrogate (broken Unicode), which cannot be stored";
   return null;
 }
 
@@ -42,7 +43,8 @@ export function findUnsafeText(value: unknown, base = ""): UnsafeText | null {
         const problem = textProblem(key);
         if (problem) return { pointer: `${pointer}/${escapePointer(key)}`, message: `has a key that ${problem}` };
       }
-      for (let i = entries.length - 1; i >= 0; i--) stack.push([entries[i][1], `${pointer}/${escapePointer(entries[i][0])}`]);
+      for (let i = entries.length - 1; i >= 0; i--)
+        stack.push([entries[i][1], `${pointer}/${escapePointer(entries[i][0])}`]);
     }
   }
   return null;

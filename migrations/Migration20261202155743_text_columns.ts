@@ -1,7 +1,6 @@
-import { Migration } from '@mikro-orm/migrations';
+import { Migration } from "@mikro-orm/migrations";
 
 export class Migration20261202155743_text_columns extends Migration {
-
   override async up(): Promise<void> {
     this.addSql(`alter table "idempotency_records" alter column "path" type text using ("path"::text);`);
 
@@ -32,7 +31,9 @@ export class Migration20261202155743_text_columns extends Migration {
     this.addSql(`alter table "users" alter column "name" type text using ("name"::text);`);
 
     this.addSql(`alter table "webhook_endpoints" alter column "description" type text using ("description"::text);`);
-    this.addSql(`alter table "webhook_endpoints" alter column "disabled_reason" type text using ("disabled_reason"::text);`);
+    this.addSql(
+      `alter table "webhook_endpoints" alter column "disabled_reason" type text using ("disabled_reason"::text);`,
+    );
   }
 
   override async down(): Promise<void> {
@@ -42,7 +43,9 @@ export class Migration20261202155743_text_columns extends Migration {
     this.addSql(`alter table "grades" alter column "name" type varchar(255) using ("name"::varchar(255));`);
     this.addSql(`alter table "grades" alter column "standard" type varchar(255) using ("standard"::varchar(255));`);
 
-    this.addSql(`alter table "idempotency_records" alter column "path" type varchar(255) using ("path"::varchar(255));`);
+    this.addSql(
+      `alter table "idempotency_records" alter column "path" type varchar(255) using ("path"::varchar(255));`,
+    );
 
     this.addSql(`alter table "invitations" alter column "email" type varchar(255) using ("email"::varchar(255));`);
 
@@ -51,11 +54,15 @@ export class Migration20261202155743_text_columns extends Migration {
 
     this.addSql(`alter table "programs" alter column "reference" type varchar(255) using ("reference"::varchar(255));`);
     this.addSql(`alter table "programs" alter column "title" type varchar(255) using ("title"::varchar(255));`);
-    this.addSql(`alter table "programs" alter column "grade_code" type varchar(255) using ("grade_code"::varchar(255));`);
+    this.addSql(
+      `alter table "programs" alter column "grade_code" type varchar(255) using ("grade_code"::varchar(255));`,
+    );
 
     this.addSql(`alter table "request_logs" alter column "route" type varchar(255) using ("route"::varchar(255));`);
     this.addSql(`alter table "request_logs" alter column "path" type varchar(255) using ("path"::varchar(255));`);
-    this.addSql(`alter table "request_logs" alter column "idempotency_key" type varchar(255) using ("idempotency_key"::varchar(255));`);
+    this.addSql(
+      `alter table "request_logs" alter column "idempotency_key" type varchar(255) using ("idempotency_key"::varchar(255));`,
+    );
 
     this.addSql(`alter table "shears" alter column "name" type varchar(255) using ("name"::varchar(255));`);
 
@@ -64,8 +71,11 @@ export class Migration20261202155743_text_columns extends Migration {
     this.addSql(`alter table "users" alter column "email" type varchar(255) using ("email"::varchar(255));`);
     this.addSql(`alter table "users" alter column "name" type varchar(255) using ("name"::varchar(255));`);
 
-    this.addSql(`alter table "webhook_endpoints" alter column "description" type varchar(255) using ("description"::varchar(255));`);
-    this.addSql(`alter table "webhook_endpoints" alter column "disabled_reason" type varchar(255) using ("disabled_reason"::varchar(255));`);
+    this.addSql(
+      `alter table "webhook_endpoints" alter column "description" type varchar(255) using ("description"::varchar(255));`,
+    );
+    this.addSql(
+      `alter table "webhook_endpoints" alter column "disabled_reason" type varchar(255) using ("disabled_reason"::varchar(255));`,
+    );
   }
-
 }

@@ -1,7 +1,6 @@
-import { Migration } from '@mikro-orm/migrations';
+import { Migration } from "@mikro-orm/migrations";
 
 export class Migration20261202160000_shear_crown_baseline extends Migration {
-
   override async up(): Promise<void> {
     this.addSql(`alter table "shears" add column "crown_baseline_mm" double precision null;`);
   }
@@ -9,5 +8,4 @@ export class Migration20261202160000_shear_crown_baseline extends Migration {
   override async down(): Promise<void> {
     this.addSql(`alter table "shears" drop column "crown_baseline_mm";`);
   }
-
 }

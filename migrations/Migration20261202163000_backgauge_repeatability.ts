@@ -1,7 +1,6 @@
-import { Migration } from '@mikro-orm/migrations';
+import { Migration } from "@mikro-orm/migrations";
 
 export class Migration20261202163000_backgauge_repeatability extends Migration {
-
   override async up(): Promise<void> {
     this.addSql(`alter table "shears" add column "backgauge_repeatability_mm" double precision null;`);
   }
@@ -9,5 +8,4 @@ export class Migration20261202163000_backgauge_repeatability extends Migration {
   override async down(): Promise<void> {
     this.addSql(`alter table "shears" drop column "backgauge_repeatability_mm";`);
   }
-
 }

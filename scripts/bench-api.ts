@@ -22,19 +22,36 @@ await orm.close(true);
 const shear = { id: shearId };
 
 let n = 0;
-const program = () => JSON.stringify({
-  reference: `BENCH-${process.pid}-${n++}`, shear: shear.id, grade: "A36", thickness: { gauge: 10 }, units: "in",
-  sheet: { length: 120, width: 48, count: 2 },
-  cuts: [{ backgauge: 12, count: 3 }, { turn: true, backgauge: 16, length: 12, count: 7 }],
-});
+const program = () =>
+  JSON.stringify({
+    reference: `BENCH-${process.pid}-${n++}`,
+    shear: shear.id,
+    grade: "A36",
+    thickness: { gauge: 10 },
+    units: "in",
+    sheet: { length: 120, width: 48, count: 2 },
+    cuts: [
+      { backgauge: 12, count: 3 },
+      { turn: true, backgauge: 16, length: 12, count: 7 },
+    ],
+  });
 
 async function run(target: string, headers: Record<string, string>) {
   const result = await autocannon({
-    url: target, connections: CONNECTIONS, duration: SECONDS, method: "POST",
+    url: target,
+    connections: CONNECTIONS,
+    duration: SECONDS,
+    method: "POST",
     headers: { "content-type": "application/json", ...headers },
     requests: [{ setupRequest: (req) => ({ ...req, body: program() }) }],
   });
-  return { rps: result.requests.average, p50: result.latency.p50, p99: result.latency.p99, non2xx: result.non2xx, errors: result.errors };
+  return {
+    rps: result.requests.average,
+    p50: result.latency.p50,
+    p99: result.latency.p99,
+    non2xx: result.non2xx,
+    errors: result.errors,
+  };
 }
 
 // The app, built and served as `npm test` does.
@@ -51,7 +68,9 @@ await stopDaemon(web);
 
 // The baseline: node:http with one INSERT per request into the same database.
 const pool = new pg.Pool({ connectionString: url, max: 10 });
-await pool.query("create table if not exists bench_bare (id bigserial primary key, body jsonb not null, created_at timestamptz not null default now())");
+await pool.query(
+  "create table if not exists bench_bare (id bigserial primary key, body jsonb not null, created_at timestamptz not null default now())",
+);
 const bare = http.createServer((req, res) => {
   let body = "";
   req.on("data", (c) => (body += c));

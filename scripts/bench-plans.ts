@@ -7,7 +7,7 @@
  * test: it reports, it does not fail. The load generator runs here, apart from the servers.
  */
 import autocannon from "autocannon";
-import { largestOrder, seeded } from "../tests/support/orders";
+import { largestOrder, seeded } from "./lib/orders";
 import { benchDatabase } from "./lib/bench-setup";
 import { appEnv } from "./lib/env";
 import { buildApp, daemon, startWeb, startWorker, stopDaemon, waitForHttp } from "./lib/web";
@@ -42,7 +42,8 @@ async function until(id: string, done: (p: { status: string }) => boolean, secon
   }
 }
 const ended = (p: { status: string }) => !["queued", "running"].includes(p.status);
-const seconds = (p: { startedAt: string; finishedAt: string }) => (Date.parse(p.finishedAt) - Date.parse(p.startedAt)) / 1000;
+const seconds = (p: { startedAt: string; finishedAt: string }) =>
+  (Date.parse(p.finishedAt) - Date.parse(p.startedAt)) / 1000;
 
 /** 500 pieces of 30 blank types on three sheet sizes (invented, seeded). */
 function fiveHundredPieces() {
@@ -52,9 +53,22 @@ function fiveHundredPieces() {
   const scaled = quantities.map((q) => Math.max(1, Math.round((q * 500) / total)));
   scaled[0] += 500 - scaled.reduce((s, q) => s + q, 0);
   return {
-    shear: shearId, grade: "A36", thickness: { value: 3 }, units: "mm",
-    stock: [{ length: 2500, width: 1250 }, { length: 3000, width: 1500 }, { length: 2000, width: 1000 }],
-    blanks: scaled.map((quantity, i) => ({ label: `part ${i + 1}`, length: 80 + Math.floor(random() * 900), width: 50 + Math.floor(random() * 500), quantity, canTurn: random() < 0.8 })),
+    shear: shearId,
+    grade: "A36",
+    thickness: { value: 3 },
+    units: "mm",
+    stock: [
+      { length: 2500, width: 1250 },
+      { length: 3000, width: 1500 },
+      { length: 2000, width: 1000 },
+    ],
+    blanks: scaled.map((quantity, i) => ({
+      label: `part ${i + 1}`,
+      length: 80 + Math.floor(random() * 900),
+      width: 50 + Math.floor(random() * 500),
+      quantity,
+      canTurn: random() < 0.8,
+    })),
   };
 }
 
@@ -74,8 +88,14 @@ const largest = await until(largestId, ended, 240);
 const largestWall = (performance.now() - tLargest) / 1000;
 
 for (const d of [web, worker]) await stopDaemon(d);
-const describe = (p: { status: string; failure?: { reason: string } | null; result?: { summary: { sheets: number; patterns: number } } | null }) =>
-  p.status === "complete" ? `${p.result!.summary.sheets} sheets, ${p.result!.summary.patterns} patterns` : `${p.status}${p.failure ? ` (${p.failure.reason})` : ""}`;
+const describe = (p: {
+  status: string;
+  failure?: { reason: string } | null;
+  result?: { summary: { sheets: number; patterns: number } } | null;
+}) =>
+  p.status === "complete"
+    ? `${p.result!.summary.sheets} sheets, ${p.result!.summary.patterns} patterns`
+    : `${p.status}${p.failure ? ` (${p.failure.reason})` : ""}`;
 console.log(`
 Plans through the API and a worker (${describe(medium)})
   500 pieces, 30 blank types, 3 sheet sizes   ${seconds(medium).toFixed(2)} s planning, ${mediumWall.toFixed(2)} s from request to answer   (target < 2 s)

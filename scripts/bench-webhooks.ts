@@ -23,24 +23,31 @@ const latencies: number[] = [];
 let received = 0;
 let lastReceipt = 0;
 const servers = await Promise.all(
-  Array.from({ length: ENDPOINTS }, () => new Promise<http.Server>((resolve) => {
-    const server = http.createServer((req, res) => {
-      let body = "";
-      req.on("data", (c) => (body += c));
-      req.on("end", () => {
-        const now = Date.now();
-        const event = JSON.parse(body) as { timestamp: string };
-        latencies.push(now - Date.parse(event.timestamp));
-        received += 1;
-        lastReceipt = now;
-        res.writeHead(204).end();
-      });
-    });
-    server.listen(0, "127.0.0.1", () => resolve(server));
-  })),
+  Array.from(
+    { length: ENDPOINTS },
+    () =>
+      new Promise<http.Server>((resolve) => {
+        const server = http.createServer((req, res) => {
+          let body = "";
+          req.on("data", (c) => (body += c));
+          req.on("end", () => {
+            const now = Date.now();
+            const event = JSON.parse(body) as { timestamp: string };
+            latencies.push(now - Date.parse(event.timestamp));
+            received += 1;
+            lastReceipt = now;
+            res.writeHead(204).end();
+          });
+        });
+        server.listen(0, "127.0.0.1", () => resolve(server));
+      }),
+  ),
 );
 for (const s of servers) {
-  await createEndpoint(orm.em.fork(), shopId, { url: `http://localhost:${(s.address() as AddressInfo).port}/`, eventTypes: ["program.created"] });
+  await createEndpoint(orm.em.fork(), shopId, {
+    url: `http://localhost:${(s.address() as AddressInfo).port}/`,
+    eventTypes: ["program.created"],
+  });
 }
 
 const worker = daemon(profile.dataRoot, "worker-bench");
@@ -66,8 +73,13 @@ async function phase(name: string, events: number, rate: number, quiet = false) 
     if (due > Date.now()) await new Promise((r) => setTimeout(r, due - Date.now()));
     while (inFlight.size >= 8) await Promise.race(inFlight);
     const change: Promise<unknown> = createProgram(orm.em.fork(), shopId, {
-      reference: `HOOK-${name}-${i}`, shear: shearId, grade: "A36", thickness: { gauge: 10 }, units: "in",
-      sheet: { length: 120, width: 48, count: 1 }, cuts: [{ backgauge: 12, count: 3 }],
+      reference: `HOOK-${name}-${i}`,
+      shear: shearId,
+      grade: "A36",
+      thickness: { gauge: 10 },
+      units: "in",
+      sheet: { length: 120, width: 48, count: 1 },
+      cuts: [{ backgauge: 12, count: 3 }],
     }).finally(() => inFlight.delete(change));
     inFlight.add(change);
   }

@@ -13,14 +13,21 @@ import { parseArgs } from "node:util";
 
 const { values } = parseArgs({
   options: {
-    shear: { type: "string" }, key: { type: "string" }, url: { type: "string" }, speed: { type: "string" },
-    once: { type: "boolean" }, state: { type: "string" }, lease: { type: "string" },
+    shear: { type: "string" },
+    key: { type: "string" },
+    url: { type: "string" },
+    speed: { type: "string" },
+    once: { type: "boolean" },
+    state: { type: "string" },
+    lease: { type: "string" },
   },
 });
 const shear = values.shear;
 const key = values.key ?? process.env.SHEARWIRE_GATEWAY_KEY;
 if (!shear || !key) {
-  console.error("usage: npm run gateway:sim -- --shear shr_… --key swk_… (or SHEARWIRE_GATEWAY_KEY) [--speed 20] [--once]");
+  console.error(
+    "usage: npm run gateway:sim -- --shear shr_… --key swk_… (or SHEARWIRE_GATEWAY_KEY) [--speed 20] [--once]",
+  );
   process.exit(2);
 }
 const base = (values.url ?? process.env.SHEARWIRE_BASE_URL ?? "http://127.0.0.1:3000").replace(/\/$/, "");
@@ -28,7 +35,11 @@ const speed = Math.max(0.01, Number(values.speed ?? 20));
 const leaseSeconds = Number(values.lease ?? 60);
 const stateFile = values.state ?? path.join(os.tmpdir(), `shearwire-gateway-${shear}.json`);
 
-interface State { programId: string; step: number; strokesDone: number }
+interface State {
+  programId: string;
+  step: number;
+  strokesDone: number;
+}
 const log = (msg: string) => console.log(`[gateway ${shear}] ${new Date().toISOString()} ${msg}`);
 let stopping = false;
 for (const sig of ["SIGINT", "SIGTERM"] as const) {
@@ -39,7 +50,24 @@ for (const sig of ["SIGINT", "SIGTERM"] as const) {
   });
 }
 
-async function call(method: string, url: string, body?: unknown): Promise<{ status: number; json: any }> {
+/** What this simulator reads of the API's answers. */
+interface SimProgram {
+  id: string;
+  status: string;
+  reference: string;
+  sheet: { count: number };
+  check?: {
+    yield?: { groups?: { strokes: number }[]; sheets?: number; total?: { blanks?: number } };
+    estimate?: { seconds?: { total?: number } };
+  };
+}
+interface Answer {
+  detail?: string;
+  program: SimProgram;
+  lease: { expiresAt: string };
+}
+
+async function call(method: string, url: string, body?: unknown): Promise<{ status: number; json: Answer }> {
   const res = await fetch(`${base}/api/v1${url}`, {
     method,
     headers: { authorization: `Bearer ${key}`, "content-type": "application/json" },
@@ -67,7 +95,7 @@ async function work(programId: string, ms: number) {
   }
 }
 
-async function run(program: any, state: State) {
+async function run(program: SimProgram, state: State) {
   const groups: { strokes: number }[] = program.check?.yield?.groups ?? [];
   const sheets: number = program.check?.yield?.sheets ?? program.sheet.count;
   const steps = Math.max(1, groups.length * sheets);
@@ -75,7 +103,9 @@ async function run(program: any, state: State) {
   if (program.status === "claimed") {
     const started = await call("POST", `/programs/${program.id}/start`);
     if (started.status !== 200) throw new Error(`could not start: ${started.json?.detail}`);
-    log(`started ${program.id} (${program.reference}): ${steps} groups over ${sheets} sheet(s), about ${(totalMs / 1000).toFixed(1)} s at ×${speed}`);
+    log(
+      `started ${program.id} (${program.reference}): ${steps} groups over ${sheets} sheet(s), about ${(totalMs / 1000).toFixed(1)} s at ×${speed}`,
+    );
   } else {
     log(`resuming ${program.id} at group ${state.step + 1} of ${steps}`);
   }
@@ -84,13 +114,22 @@ async function run(program: any, state: State) {
     if (stopping) return;
     state.strokesDone += groups.length ? groups[state.step % groups.length].strokes : 1;
     state.step += 1;
-    const p = await call("POST", `/programs/${program.id}/progress`, { groupsDone: state.step, strokesDone: state.strokesDone, leaseSeconds });
+    const p = await call("POST", `/programs/${program.id}/progress`, {
+      groupsDone: state.step,
+      strokesDone: state.strokesDone,
+      leaseSeconds,
+    });
     if (p.status !== 200) throw new Error(`progress refused: ${p.json?.detail ?? p.status}`);
     save(state);
   }
   if (stopping) return;
   const blanks = program.check?.yield?.total?.blanks ?? 0;
-  const done = await call("POST", `/programs/${program.id}/complete`, { goodPieces: blanks, scrappedPieces: 0, sheetsUsed: sheets, notes: "simulated run" });
+  const done = await call("POST", `/programs/${program.id}/complete`, {
+    goodPieces: blanks,
+    scrappedPieces: 0,
+    sheetsUsed: sheets,
+    notes: "simulated run",
+  });
   if (done.status !== 200) throw new Error(`completion refused: ${done.json?.detail ?? done.status}`);
   log(`completed ${program.id}: ${blanks} good pieces`);
   rmSync(stateFile, { force: true });

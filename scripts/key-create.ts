@@ -6,14 +6,17 @@
 import { parseArgs } from "node:util";
 import { MikroORM } from "@mikro-orm/postgresql";
 import { Shop } from "../entities";
-import { SCOPES, type Scope } from "../entities/ApiKey";
+import { SCOPES, type Scope } from "../lib/schemas/enums";
 import { ormConfig } from "../lib/db/config";
 import { createKey } from "../lib/services/keys";
 
 const { values } = parseArgs({
   options: {
-    shop: { type: "string" }, scopes: { type: "string" }, name: { type: "string" },
-    expires: { type: "string" }, shears: { type: "string" },
+    shop: { type: "string" },
+    scopes: { type: "string" },
+    name: { type: "string" },
+    expires: { type: "string" },
+    shears: { type: "string" },
   },
 });
 
@@ -22,7 +25,10 @@ function fail(message: string): never {
   process.exit(2);
 }
 
-if (!values.shop || !values.scopes) fail("usage: npm run key:create -- --shop <id|slug> --scopes <scope,…|all> [--name N] [--expires DATE] [--shears shr_…,…]");
+if (!values.shop || !values.scopes)
+  fail(
+    "usage: npm run key:create -- --shop <id|slug> --scopes <scope,…|all> [--name N] [--expires DATE] [--shears shr_…,…]",
+  );
 const scopes = (values.scopes === "all" ? [...SCOPES] : values.scopes.split(",").map((s) => s.trim())) as Scope[];
 const unknown = scopes.filter((s) => !SCOPES.includes(s));
 if (unknown.length) fail(`unknown scope(s) ${unknown.join(", ")}; choose from ${SCOPES.join(", ")}`);

@@ -11,13 +11,22 @@ import { parseArgs } from "node:util";
 import { simpleParser } from "mailparser";
 import { SMTPServer } from "smtp-server";
 
-const { values } = parseArgs({ options: { smtp: { type: "string" }, http: { type: "string" }, dir: { type: "string" } } });
+const { values } = parseArgs({
+  options: { smtp: { type: "string" }, http: { type: "string" }, dir: { type: "string" } },
+});
 const smtpPort = Number(values.smtp ?? 2525);
 const httpPort = Number(values.http ?? 2580);
 const dir = path.resolve(values.dir ?? ".data/mail");
 mkdirSync(dir, { recursive: true });
 
-interface Stored { id: string; receivedAt: string; from: string; to: string[]; subject: string; text: string }
+interface Stored {
+  id: string;
+  receivedAt: string;
+  from: string;
+  to: string[];
+  subject: string;
+  text: string;
+}
 let seq = 0;
 
 const smtp = new SMTPServer({
@@ -30,10 +39,12 @@ const smtp = new SMTPServer({
         const receivedAt = new Date();
         const id = `${receivedAt.getTime()}-${process.pid}-${seq++}`;
         const stored: Stored = {
-          id, receivedAt: receivedAt.toISOString(),
+          id,
+          receivedAt: receivedAt.toISOString(),
           from: mail.from?.text ?? String(session.envelope.mailFrom && session.envelope.mailFrom.address),
           to: session.envelope.rcptTo.map((r) => r.address),
-          subject: mail.subject ?? "", text: mail.text ?? "",
+          subject: mail.subject ?? "",
+          text: mail.text ?? "",
         };
         writeFileSync(path.join(dir, `${id}.json`), JSON.stringify(stored, null, 2));
         callback();
@@ -41,10 +52,16 @@ const smtp = new SMTPServer({
       .catch((err) => callback(err));
   },
 });
-smtp.listen(smtpPort, "127.0.0.1", () => console.log(`[mail] SMTP on 127.0.0.1:${smtpPort}, inbox at http://127.0.0.1:${httpPort}/`));
+smtp.listen(smtpPort, "127.0.0.1", () =>
+  console.log(`[mail] SMTP on 127.0.0.1:${smtpPort}, inbox at http://127.0.0.1:${httpPort}/`),
+);
 
 const messages = (): Stored[] =>
-  readdirSync(dir).filter((f) => f.endsWith(".json")).sort().reverse().map((f) => JSON.parse(readFileSync(path.join(dir, f), "utf8")));
+  readdirSync(dir)
+    .filter((f) => f.endsWith(".json"))
+    .sort()
+    .reverse()
+    .map((f) => JSON.parse(readFileSync(path.join(dir, f), "utf8")));
 const esc = (s: string) => s.replace(/[&<>"]/g, (c) => ({ "&": "&amp;", "<": "&lt;", ">": "&gt;", '"': "&quot;" })[c]!);
 
 http
@@ -54,7 +71,10 @@ http
       return;
     }
     const list = messages()
-      .map((m) => `<article><h2>${esc(m.subject)}</h2><p class="meta">${esc(m.receivedAt)} · from ${esc(m.from)} · to ${esc(m.to.join(", "))}</p><pre>${esc(m.text)}</pre></article>`)
+      .map(
+        (m) =>
+          `<article><h2>${esc(m.subject)}</h2><p class="meta">${esc(m.receivedAt)} · from ${esc(m.from)} · to ${esc(m.to.join(", "))}</p><pre>${esc(m.text)}</pre></article>`,
+      )
       .join("");
     res.writeHead(200, { "content-type": "text/html; charset=utf-8" }).end(
       `<!doctype html><meta charset="utf-8"><title>Shearwire development inbox</title>

@@ -19,7 +19,9 @@ const port = Number(process.env.PORT ?? 3000);
 async function main() {
   const profile = devProfile();
   const services = await startAll(profile);
-  console.log(`[up] PostgreSQL ${services.pg} on :${profile.pg.port}, Redis ${services.redis} on :${profile.redis.port}`);
+  console.log(
+    `[up] PostgreSQL ${services.pg} on :${profile.pg.port}, Redis ${services.redis} on :${profile.redis.port}`,
+  );
   const env = appEnv(profile, port);
 
   const orm = await MikroORM.init(ormConfig(env.DATABASE_URL));

@@ -14,7 +14,12 @@ import { parseArgs } from "node:util";
 import next from "next";
 import { SECURITY_HEADERS } from "../lib/security-headers";
 
-const { values } = parseArgs({ options: { port: { type: "string", default: process.env.PORT ?? "3000" }, host: { type: "string", default: "127.0.0.1" } } });
+const { values } = parseArgs({
+  options: {
+    port: { type: "string", default: process.env.PORT ?? "3000" },
+    host: { type: "string", default: "127.0.0.1" },
+  },
+});
 const port = Number(values.port);
 const hostname = values.host!;
 const SERVED = ["GET", "HEAD", "POST", "PUT", "PATCH", "DELETE", "OPTIONS"];
@@ -24,8 +29,21 @@ const app = next({ dev: false, dir: path.resolve(import.meta.dirname, ".."), hos
 await app.prepare();
 const handle = app.getRequestHandler();
 
-function problem(res: http.ServerResponse, status: number, slug: string, title: string, detail: string, instance: string, headers: Record<string, string> = {}) {
-  res.writeHead(status, { ...SECURITY_HEADERS, ...headers, "Content-Type": "application/problem+json", "Cache-Control": "no-store" });
+function problem(
+  res: http.ServerResponse,
+  status: number,
+  slug: string,
+  title: string,
+  detail: string,
+  instance: string,
+  headers: Record<string, string> = {},
+) {
+  res.writeHead(status, {
+    ...SECURITY_HEADERS,
+    ...headers,
+    "Content-Type": "application/problem+json",
+    "Cache-Control": "no-store",
+  });
   res.end(JSON.stringify({ type: `/problems/${slug}`, title, status, detail, instance: instance.slice(0, 2000) }));
 }
 
@@ -42,11 +60,26 @@ function decodable(path: string): boolean {
 const server = http.createServer((req, res) => {
   const path = (req.url ?? "/").split("?")[0];
   if (!SERVED.includes(req.method ?? "")) {
-    problem(res, 405, "method-not-allowed", "Method not allowed", `${req.method} is not served here; use one of ${ALLOW}.`, path, { Allow: ALLOW });
+    problem(
+      res,
+      405,
+      "method-not-allowed",
+      "Method not allowed",
+      `${req.method} is not served here; use one of ${ALLOW}.`,
+      path,
+      { Allow: ALLOW },
+    );
     return;
   }
   if (!decodable(path)) {
-    problem(res, 400, "bad-request", "The request is malformed", "The path has a percent-escape that is not UTF-8.", "/");
+    problem(
+      res,
+      400,
+      "bad-request",
+      "The request is malformed",
+      "The path has a percent-escape that is not UTF-8.",
+      "/",
+    );
     return;
   }
   // The client address the sign-in throttle counts by: the socket's, unless a proxy in front is trusted to say.

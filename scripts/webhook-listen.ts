@@ -23,16 +23,26 @@ http
     let body = "";
     req.on("data", (c) => (body += c));
     req.on("end", () => {
-      const headers = { "webhook-id": String(req.headers["webhook-id"]), "webhook-timestamp": String(req.headers["webhook-timestamp"]), "webhook-signature": String(req.headers["webhook-signature"]) };
+      const headers = {
+        "webhook-id": String(req.headers["webhook-id"]),
+        "webhook-timestamp": String(req.headers["webhook-timestamp"]),
+        "webhook-signature": String(req.headers["webhook-signature"]),
+      };
       try {
-        const event = verifier.verify(body, headers) as { type: string; timestamp: string; data: { program?: { id: string; status: string; reference: string } } };
+        const event = verifier.verify(body, headers) as {
+          type: string;
+          timestamp: string;
+          data: { program?: { id: string; status: string; reference: string } };
+        };
         const id = headers["webhook-id"];
         if (seen.has(id)) {
           console.log(`${new Date().toISOString()} duplicate ${id} (already handled)`);
         } else {
           seen.add(id);
           const p = event.data.program;
-          console.log(`${new Date().toISOString()} ${event.type.padEnd(22)} ${id}${p ? `  ${p.id} ${p.reference} → ${p.status}` : ""}`);
+          console.log(
+            `${new Date().toISOString()} ${event.type.padEnd(22)} ${id}${p ? `  ${p.id} ${p.reference} → ${p.status}` : ""}`,
+          );
         }
         res.writeHead(204).end();
       } catch (err) {
@@ -41,4 +51,6 @@ http
       }
     });
   })
-  .listen(port, "127.0.0.1", () => console.log(`listening on http://127.0.0.1:${port}/ (signatures checked with standardwebhooks)`));
+  .listen(port, "127.0.0.1", () =>
+    console.log(`listening on http://127.0.0.1:${port}/ (signatures checked with standardwebhooks)`),
+  );

@@ -1,5 +1,5 @@
 /** `npm run worker`: the webhook and sweeper process (started by `npm run up`). */
-import { runWorker } from "../lib/queue/worker";
+import { runWorker } from "../lib/worker/worker";
 
 const stop = await runWorker();
 for (const sig of ["SIGTERM", "SIGINT"] as const) {

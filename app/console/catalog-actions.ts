@@ -2,7 +2,7 @@
 
 import { revalidatePath } from "next/cache";
 import { zfd } from "zod-form-data";
-import { invalidRequest } from "@/lib/api/errors";
+import { invalidRequest } from "@/lib/errors";
 import { zodErrors } from "@/lib/api/route";
 import { memberAction } from "@/lib/auth/action";
 import { GradeInput, GradePatch } from "@/lib/schemas/grade";

@@ -19,7 +19,11 @@ export function SignInForm() {
   async function submit(form: FormData) {
     setBusy(true);
     setError(null);
-    const res = await signIn("credentials", { email: form.get("email"), password: form.get("password"), redirect: false });
+    const res = await signIn("credentials", {
+      email: form.get("email"),
+      password: form.get("password"),
+      redirect: false,
+    });
     setBusy(false);
     // Only a path on this site is followed after signing in; anything else goes to the console.
     if (res?.ok && !res.error) router.push(safeCallbackPath(params.get("callbackUrl")));
@@ -30,17 +34,42 @@ export function SignInForm() {
   const joined = params.get("joined");
   return (
     <form action={submit} className="mt-8 space-y-4">
-      {joined && <p role="status" className="rounded-md bg-ok-light px-3 py-2 text-sm text-ok">Welcome aboard. Sign in with your new password.</p>}
+      {joined && (
+        <p role="status" className="rounded-md bg-ok-light px-3 py-2 text-sm text-ok">
+          Welcome aboard. Sign in with your new password.
+        </p>
+      )}
       <label className="block text-sm font-medium">
         E-mail
-        <input name="email" type="email" required autoComplete="username" autoFocus defaultValue={params.get("joined") ?? ""} className="mt-1 w-full rounded-md border border-scale-300 bg-white px-3 py-2" />
+        <input
+          name="email"
+          type="email"
+          required
+          autoComplete="username"
+          autoFocus
+          defaultValue={params.get("joined") ?? ""}
+          className="mt-1 w-full rounded-md border border-scale-300 bg-white px-3 py-2"
+        />
       </label>
       <label className="block text-sm font-medium">
         Password
-        <input name="password" type="password" required autoComplete="current-password" className="mt-1 w-full rounded-md border border-scale-300 bg-white px-3 py-2" />
+        <input
+          name="password"
+          type="password"
+          required
+          autoComplete="current-password"
+          className="mt-1 w-full rounded-md border border-scale-300 bg-white px-3 py-2"
+        />
       </label>
-      {error && <p role="alert" className="rounded-md bg-fault-light px-3 py-2 text-sm text-fault">{error}</p>}
-      <button disabled={busy} className="w-full rounded-md bg-ink px-4 py-2 font-medium text-scale-50 hover:bg-ink-soft disabled:opacity-60">
+      {error && (
+        <p role="alert" className="rounded-md bg-fault-light px-3 py-2 text-sm text-fault">
+          {error}
+        </p>
+      )}
+      <button
+        disabled={busy}
+        className="w-full rounded-md bg-ink px-4 py-2 font-medium text-scale-50 hover:bg-ink-soft disabled:opacity-60"
+      >
         {busy ? "Signing in…" : "Sign in"}
       </button>
     </form>

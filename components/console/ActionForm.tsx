@@ -8,7 +8,15 @@ import { ActionMessage, useConsoleForm, type ConsoleResult } from "./useConsoleF
  * A one-button form for a server action (revoke, archive, enable…): hidden fields, an
  * optional question before it runs, and its outcome shown beside the button.
  */
-export function ActionForm({ action, fields, children, confirm, className, buttonClassName, label }: {
+export function ActionForm({
+  action,
+  fields,
+  children,
+  confirm,
+  className,
+  buttonClassName,
+  label,
+}: {
   action: (input: FormData) => Promise<ConsoleResult<unknown> | undefined>;
   fields: Record<string, string>;
   children: ReactNode;
@@ -23,7 +31,6 @@ export function ActionForm({ action, fields, children, confirm, className, butto
   const form = useConsoleForm(action, { onSuccess: () => router.refresh() });
   return (
     <form
-      ref={form.formRef}
       className={className}
       onSubmit={(event) => {
         if (confirm && !window.confirm(confirm)) {
@@ -33,8 +40,12 @@ export function ActionForm({ action, fields, children, confirm, className, butto
         form.onSubmit(event);
       }}
     >
-      {Object.entries(fields).map(([name, value]) => <input key={name} type="hidden" name={name} value={value} />)}
-      <button disabled={form.pending} aria-label={label} className={buttonClassName}>{children}</button>
+      {Object.entries(fields).map(([name, value]) => (
+        <input key={name} type="hidden" name={name} value={value} />
+      ))}
+      <button disabled={form.pending} aria-label={label} className={buttonClassName}>
+        {children}
+      </button>
       <ActionMessage result={form.result} />
     </form>
   );

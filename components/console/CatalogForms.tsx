@@ -10,7 +10,14 @@ import { GAUGE_SYSTEM_WORDS } from "./words";
 import { GradeInput, GradePatch } from "@/lib/schemas/grade";
 import { ShearInput, ShearPatch } from "@/lib/schemas/shear";
 
-type Field = { name: string; label: string; unit?: string; kind?: "text" | "number" | "select"; options?: readonly string[]; optional?: boolean };
+type Field = {
+  name: string;
+  label: string;
+  unit?: string;
+  kind?: "text" | "number" | "select";
+  options?: readonly string[];
+  optional?: boolean;
+};
 
 const SHEAR_FIELDS: Field[] = [
   { name: "name", label: "Name", kind: "text" },
@@ -56,7 +63,8 @@ function clean(fields: Field[], values: Record<string, unknown>, editing: boolea
   for (const f of fields) {
     const v = values[f.name];
     if (v === "" || v === undefined || v === null) {
-      if (f.optional) out[f.name] = f.kind === "text" && f.name !== "note" && f.name !== "description" ? undefined : null;
+      if (f.optional)
+        out[f.name] = f.kind === "text" && f.name !== "note" && f.name !== "description" ? undefined : null;
       else if (!editing) out[f.name] = undefined;
       continue;
     }
@@ -69,21 +77,41 @@ function clean(fields: Field[], values: Record<string, unknown>, editing: boolea
 type CatalogState = { ok?: string; error?: string; fieldErrors?: Record<string, string> } | null;
 
 /** What a save answered, for the form: a message, or the problem with its field errors. */
-function stateOf(result: { data?: { message?: string }; serverError?: { message: string; fieldErrors?: Record<string, string> }; validationErrors?: unknown } | undefined): CatalogState {
+function stateOf(
+  result:
+    | {
+        data?: { message?: string };
+        serverError?: { message: string; fieldErrors?: Record<string, string> };
+        validationErrors?: unknown;
+      }
+    | undefined,
+): CatalogState {
   if (result?.serverError) return { error: result.serverError.message, fieldErrors: result.serverError.fieldErrors };
   if (result?.validationErrors) return { error: "The form could not be read; reload the page and try again." };
   return { ok: result?.data?.message ?? "Saved." };
 }
 
-function CatalogForm({ fields, schema, initial, save, editing }: {
-  fields: Field[]; schema: typeof ShearInput | typeof ShearPatch | typeof GradeInput | typeof GradePatch;
-  initial: Record<string, unknown>; save: (data: Record<string, unknown>) => Promise<Parameters<typeof stateOf>[0]>; editing: boolean;
+function CatalogForm({
+  fields,
+  schema,
+  initial,
+  save,
+  editing,
+}: {
+  fields: Field[];
+  schema: typeof ShearInput | typeof ShearPatch | typeof GradeInput | typeof GradePatch;
+  initial: Record<string, unknown>;
+  save: (data: Record<string, unknown>) => Promise<Parameters<typeof stateOf>[0]>;
+  editing: boolean;
 }) {
   const router = useRouter();
   const [result, setResult] = useState<CatalogState>(null);
   const resolver: Resolver<FieldValues> = async (values, ctx, opts) =>
     (zodResolver(schema as never) as Resolver<FieldValues>)(clean(fields, values, editing), ctx, opts);
-  const form = useForm<FieldValues>({ resolver, defaultValues: Object.fromEntries(fields.map((f) => [f.name, initial[f.name] ?? ""])) });
+  const form = useForm<FieldValues>({
+    resolver,
+    defaultValues: Object.fromEntries(fields.map((f) => [f.name, initial[f.name] ?? ""])),
+  });
   const errors = form.formState.errors;
   const onSubmit = form.handleSubmit(async () => {
     const res = stateOf(await save(clean(fields, form.getValues(), editing)));
@@ -97,32 +125,78 @@ function CatalogForm({ fields, schema, initial, save, editing }: {
         const message = (errors[f.name]?.message as string | undefined) ?? result?.fieldErrors?.[f.name];
         return (
           <label key={f.name} className={`grid gap-0.5 ${f.kind === "text" && f.name !== "code" ? "col-span-2" : ""}`}>
-            <span className="text-xs">{f.label}{f.unit ? ` (${f.unit})` : ""}{f.optional ? "" : " *"}</span>
+            <span className="text-xs">
+              {f.label}
+              {f.unit ? ` (${f.unit})` : ""}
+              {f.optional ? "" : " *"}
+            </span>
             {f.kind === "select" ? (
               <select {...form.register(f.name)} className="rounded border border-scale-300 px-2 py-1">
-                {f.options!.map((o) => <option key={o} value={o}>{o ? (f.name === "gaugeFamily" ? `${o}: ${GAUGE_SYSTEM_WORDS[o]}` : o) : "none"}</option>)}
+                {f.options!.map((o) => (
+                  <option key={o} value={o}>
+                    {o ? (f.name === "gaugeFamily" ? `${o}: ${GAUGE_SYSTEM_WORDS[o]}` : o) : "none"}
+                  </option>
+                ))}
               </select>
             ) : (
-              <input {...form.register(f.name)} inputMode={f.kind === "text" ? undefined : "decimal"} disabled={editing && f.name === "code"}
-                aria-invalid={message ? true : undefined} className="rounded border border-scale-300 px-2 py-1 aria-[invalid]:border-fault disabled:bg-scale-100" />
+              <input
+                {...form.register(f.name)}
+                inputMode={f.kind === "text" ? undefined : "decimal"}
+                disabled={editing && f.name === "code"}
+                aria-invalid={message ? true : undefined}
+                className="rounded border border-scale-300 px-2 py-1 aria-[invalid]:border-fault disabled:bg-scale-100"
+              />
             )}
-            {message && <span role="alert" className="text-xs text-fault">{message}</span>}
+            {message && (
+              <span role="alert" className="text-xs text-fault">
+                {message}
+              </span>
+            )}
           </label>
         );
       })}
       <div className="col-span-2 flex items-center gap-3">
-        <button disabled={form.formState.isSubmitting} className="rounded-md bg-ink px-3 py-1.5 font-medium text-scale-50 disabled:opacity-60">{editing ? "Save changes" : "Add"}</button>
-        {result?.ok && <span role="status" className="text-ok">{result.ok}</span>}
-        {result?.error && !result.fieldErrors && <span role="alert" className="text-fault">{result.error}</span>}
+        <button
+          disabled={form.formState.isSubmitting}
+          className="rounded-md bg-ink px-3 py-1.5 font-medium text-scale-50 disabled:opacity-60"
+        >
+          {editing ? "Save changes" : "Add"}
+        </button>
+        {result?.ok && (
+          <span role="status" className="text-ok">
+            {result.ok}
+          </span>
+        )}
+        {result?.error && !result.fieldErrors && (
+          <span role="alert" className="text-fault">
+            {result.error}
+          </span>
+        )}
       </div>
     </form>
   );
 }
 
 export function ShearForm({ id, initial = {} }: { id?: string; initial?: Record<string, unknown> }) {
-  return <CatalogForm fields={SHEAR_FIELDS} schema={id ? ShearPatch : ShearInput} initial={initial} editing={Boolean(id)} save={(data) => saveShear({ id: id ?? null, data })} />;
+  return (
+    <CatalogForm
+      fields={SHEAR_FIELDS}
+      schema={id ? ShearPatch : ShearInput}
+      initial={initial}
+      editing={Boolean(id)}
+      save={(data) => saveShear({ id: id ?? null, data })}
+    />
+  );
 }
 
 export function GradeForm({ id, initial = {} }: { id?: string; initial?: Record<string, unknown> }) {
-  return <CatalogForm fields={GRADE_FIELDS} schema={id ? GradePatch : GradeInput} initial={initial} editing={Boolean(id)} save={(data) => saveGrade({ id: id ?? null, data })} />;
+  return (
+    <CatalogForm
+      fields={GRADE_FIELDS}
+      schema={id ? GradePatch : GradeInput}
+      initial={initial}
+      editing={Boolean(id)}
+      save={(data) => saveGrade({ id: id ?? null, data })}
+    />
+  );
 }

@@ -6,7 +6,12 @@ import type { DeliveryT } from "@/lib/schemas/webhook";
  * the body, which is the event's payload: the same on every attempt) and what came back.
  */
 export function DeliveryDetails({ delivery, payload }: { delivery: DeliveryT; payload: string }) {
-  if (!delivery.attemptLog.length) return <p className="text-xs text-ink-muted">Not attempted yet{delivery.nextAttemptAt ? `; first try ${when(delivery.nextAttemptAt)}` : ""}.</p>;
+  if (!delivery.attemptLog.length)
+    return (
+      <p className="text-xs text-ink-muted">
+        Not attempted yet{delivery.nextAttemptAt ? `; first try ${when(delivery.nextAttemptAt)}` : ""}.
+      </p>
+    );
   let pretty = payload;
   try {
     pretty = JSON.stringify(JSON.parse(payload), null, 2);
@@ -18,7 +23,8 @@ export function DeliveryDetails({ delivery, payload }: { delivery: DeliveryT; pa
       {delivery.attemptLog.map((a, i) => (
         <details key={a.id} className="rounded border border-scale-200 bg-scale-50 text-xs" data-testid="attempt">
           <summary className="cursor-pointer px-2 py-1">
-            Attempt {i + 1} · {when(a.attemptedAt)} · {a.statusCode !== null ? `HTTP ${a.statusCode}` : (a.error ?? "no answer")} · {a.latencyMs} ms
+            Attempt {i + 1} · {when(a.attemptedAt)} ·{" "}
+            {a.statusCode !== null ? `HTTP ${a.statusCode}` : (a.error ?? "no answer")} · {a.latencyMs} ms
           </summary>
           <div className="grid gap-2 px-2 pb-2 lg:grid-cols-2">
             <section>
@@ -26,21 +32,40 @@ export function DeliveryDetails({ delivery, payload }: { delivery: DeliveryT; pa
               <p className="font-mono">POST</p>
               <dl className="font-mono">
                 {Object.entries(a.requestHeaders ?? {}).map(([name, value]) => (
-                  <div key={name} className="break-all"><dt className="inline text-ink-muted">{name}: </dt><dd className="inline">{value}</dd></div>
+                  <div key={name} className="break-all">
+                    <dt className="inline text-ink-muted">{name}: </dt>
+                    <dd className="inline">{value}</dd>
+                  </div>
                 ))}
-                {!a.requestHeaders && <div className="text-ink-muted">(headers not recorded for attempts made before they were kept)</div>}
+                {!a.requestHeaders && (
+                  <div className="text-ink-muted">(headers not recorded for attempts made before they were kept)</div>
+                )}
               </dl>
-              <pre tabIndex={0} className="mt-1 max-h-64 overflow-auto rounded bg-white p-2">{pretty}</pre>
+              <pre tabIndex={0} className="mt-1 max-h-64 overflow-auto rounded bg-white p-2">
+                {pretty}
+              </pre>
             </section>
             <section>
               <h4 className="font-semibold">Response</h4>
-              <p className="font-mono">{a.statusCode !== null ? `HTTP ${a.statusCode}` : `no response: ${a.error ?? "unknown error"}`}</p>
+              <p className="font-mono">
+                {a.statusCode !== null ? `HTTP ${a.statusCode}` : `no response: ${a.error ?? "unknown error"}`}
+              </p>
               <dl className="font-mono">
                 {Object.entries(a.responseHeaders ?? {}).map(([name, value]) => (
-                  <div key={name} className="break-all"><dt className="inline text-ink-muted">{name}: </dt><dd className="inline">{value}</dd></div>
+                  <div key={name} className="break-all">
+                    <dt className="inline text-ink-muted">{name}: </dt>
+                    <dd className="inline">{value}</dd>
+                  </div>
                 ))}
               </dl>
-              {a.responseExcerpt !== null && <pre tabIndex={0} className="mt-1 max-h-64 overflow-auto whitespace-pre-wrap break-all rounded bg-white p-2">{a.responseExcerpt}</pre>}
+              {a.responseExcerpt !== null && (
+                <pre
+                  tabIndex={0}
+                  className="mt-1 max-h-64 overflow-auto whitespace-pre-wrap break-all rounded bg-white p-2"
+                >
+                  {a.responseExcerpt}
+                </pre>
+              )}
             </section>
           </div>
         </details>

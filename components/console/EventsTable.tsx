@@ -5,10 +5,19 @@ import Link from "next/link";
 import { when } from "@/components/ui";
 import { LiveTable } from "./LiveTable";
 
-interface Row { id: string; type: string; subjectId: string; about: { label: string; href: string | null }; createdAt: string }
+interface Row {
+  id: string;
+  type: string;
+  subjectId: string;
+  about: { label: string; href: string | null };
+  createdAt: string;
+}
 const col = createColumnHelper<Row>();
 const columns = [
-  col.accessor("createdAt", { header: "When", cell: (c) => <span className="font-mono text-xs">{when(c.getValue())}</span> }),
+  col.accessor("createdAt", {
+    header: "When",
+    cell: (c) => <span className="font-mono text-xs">{when(c.getValue())}</span>,
+  }),
   col.accessor("type", { header: "Type", cell: (c) => <span className="font-mono text-xs">{c.getValue()}</span> }),
   col.accessor((row) => row.about.label, {
     id: "about",
@@ -17,16 +26,37 @@ const columns = [
       const { about, subjectId } = c.row.original;
       return (
         <span>
-          {about.href ? <Link className="text-edge hover:underline" href={about.href}>{about.label}</Link> : about.label}
-          <br /><span className="font-mono text-[11px] text-ink-muted">{subjectId}</span>
+          {about.href ? (
+            <Link className="text-edge hover:underline" href={about.href}>
+              {about.label}
+            </Link>
+          ) : (
+            about.label
+          )}
+          <br />
+          <span className="font-mono text-[11px] text-ink-muted">{subjectId}</span>
         </span>
       );
     },
   }),
-  col.accessor("id", { header: "Event id", cell: (c) => <Link className="font-mono text-xs text-edge hover:underline" href={`/console/events/${c.getValue()}`}>{c.getValue()}</Link> }),
+  col.accessor("id", {
+    header: "Event id",
+    cell: (c) => (
+      <Link className="font-mono text-xs text-edge hover:underline" href={`/console/events/${c.getValue()}`}>
+        {c.getValue()}
+      </Link>
+    ),
+  }),
 ];
 
 export function EventsTable({ type }: { type?: string }) {
-  return <LiveTable<Row> url={`/console/data/events${type ? `?type=${type}` : ""}`} columns={columns} noun="events"
-    empty="No events yet. They appear as programs are created, released and run, and as plans end; add a webhook endpoint to receive them." testId="event-row" />;
+  return (
+    <LiveTable<Row>
+      url={`/console/data/events${type ? `?type=${type}` : ""}`}
+      columns={columns}
+      noun="events"
+      empty="No events yet. They appear as programs are created, released and run, and as plans end; add a webhook endpoint to receive them."
+      testId="event-row"
+    />
+  );
 }

@@ -1,6 +1,13 @@
 "use client";
 
-import { flexRender, getCoreRowModel, getSortedRowModel, useReactTable, type ColumnDef, type SortingState } from "@tanstack/react-table";
+import {
+  flexRender,
+  getCoreRowModel,
+  getSortedRowModel,
+  useReactTable,
+  type ColumnDef,
+  type SortingState,
+} from "@tanstack/react-table";
 import { useMemo, useState } from "react";
 import useSWR from "swr";
 
@@ -19,9 +26,21 @@ const fetcher = async (url: string) => {
  * (SWR), sortable by any column within the page (TanStack Table), with loading, empty and
  * error states.
  */
-export function LiveTable<T extends { id: string }>({ url, columns, empty, refreshMs = 5000, testId, noun = "rows" }: {
+export function LiveTable<T extends { id: string }>({
+  url,
+  columns,
+  empty,
+  refreshMs = 5000,
+  testId,
+  noun = "rows",
+}: {
+  url: string;
   // eslint-disable-next-line @typescript-eslint/no-explicit-any -- columns carry their own value types
-  url: string; columns: ColumnDef<T, any>[]; empty: string; refreshMs?: number; testId?: string; noun?: string;
+  columns: ColumnDef<T, any>[];
+  empty: string;
+  refreshMs?: number;
+  testId?: string;
+  noun?: string;
 }) {
   // The cursors of the pages before this one: going back pops one, going to the newest clears them.
   const [cursors, setCursors] = useState<string[]>([]);
@@ -33,11 +52,26 @@ export function LiveTable<T extends { id: string }>({ url, columns, empty, refre
   }
   const cursor = cursors[cursors.length - 1];
   const pageUrl = cursor ? `${url}${url.includes("?") ? "&" : "?"}cursor=${encodeURIComponent(cursor)}` : url;
-  const { data, error, isLoading, isValidating } = useSWR<{ data: T[]; next_cursor: string | null }>(pageUrl, fetcher, { refreshInterval: cursor ? 0 : refreshMs, keepPreviousData: true });
+  const { data, error, isLoading, isValidating } = useSWR<{ data: T[]; next_cursor: string | null }>(pageUrl, fetcher, {
+    refreshInterval: cursor ? 0 : refreshMs,
+    keepPreviousData: true,
+  });
   const rows = useMemo(() => data?.data ?? NO_ROWS, [data]);
   const [sorting, setSorting] = useState<SortingState>([]);
-  const table = useReactTable({ data: rows, columns, state: { sorting }, onSortingChange: setSorting, getCoreRowModel: getCoreRowModel(), getSortedRowModel: getSortedRowModel() });
-  if (error) return <p role="alert" className="rounded-md bg-fault-light px-3 py-2 text-sm text-fault">{error.message}</p>;
+  const table = useReactTable({
+    data: rows,
+    columns,
+    state: { sorting },
+    onSortingChange: setSorting,
+    getCoreRowModel: getCoreRowModel(),
+    getSortedRowModel: getSortedRowModel(),
+  });
+  if (error)
+    return (
+      <p role="alert" className="rounded-md bg-fault-light px-3 py-2 text-sm text-fault">
+        {error.message}
+      </p>
+    );
   return (
     <div className="overflow-x-auto rounded-md border border-scale-200 bg-white">
       <table className="w-full text-left text-sm">
@@ -45,9 +79,20 @@ export function LiveTable<T extends { id: string }>({ url, columns, empty, refre
           {table.getHeaderGroups().map((g) => (
             <tr key={g.id}>
               {g.headers.map((h) => (
-                <th key={h.id} className="px-3 py-2 font-medium" aria-sort={h.column.getIsSorted() === "asc" ? "ascending" : h.column.getIsSorted() === "desc" ? "descending" : "none"}>
+                <th
+                  key={h.id}
+                  className="px-3 py-2 font-medium"
+                  aria-sort={
+                    h.column.getIsSorted() === "asc"
+                      ? "ascending"
+                      : h.column.getIsSorted() === "desc"
+                        ? "descending"
+                        : "none"
+                  }
+                >
                   <button type="button" onClick={h.column.getToggleSortingHandler()} className="uppercase">
-                    {flexRender(h.column.columnDef.header, h.getContext())}{{ asc: " ▲", desc: " ▼" }[h.column.getIsSorted() as string] ?? ""}
+                    {flexRender(h.column.columnDef.header, h.getContext())}
+                    {{ asc: " ▲", desc: " ▼" }[h.column.getIsSorted() as string] ?? ""}
                   </button>
                 </th>
               ))}
@@ -57,21 +102,52 @@ export function LiveTable<T extends { id: string }>({ url, columns, empty, refre
         <tbody className="divide-y divide-scale-100">
           {table.getRowModel().rows.map((r) => (
             <tr key={r.id} data-testid={testId} className="hover:bg-scale-50">
-              {r.getVisibleCells().map((c) => <td key={c.id} className="px-3 py-2 align-top">{flexRender(c.column.columnDef.cell, c.getContext())}</td>)}
+              {r.getVisibleCells().map((c) => (
+                <td key={c.id} className="px-3 py-2 align-top">
+                  {flexRender(c.column.columnDef.cell, c.getContext())}
+                </td>
+              ))}
             </tr>
           ))}
         </tbody>
       </table>
-      {isLoading && <p role="status" className="px-3 py-6 text-center text-sm text-ink-muted">Loading…</p>}
+      {isLoading && (
+        <p role="status" className="px-3 py-6 text-center text-sm text-ink-muted">
+          Loading…
+        </p>
+      )}
       {!isLoading && !data?.data.length && <p className="px-3 py-6 text-center text-sm text-ink-muted">{empty}</p>}
       {(cursors.length > 0 || data?.next_cursor) && (
         <div className="flex flex-wrap items-center gap-2 border-t border-scale-200 px-3 py-2 text-xs">
           <span className="text-ink-muted">Page {cursors.length + 1}</span>
-          {cursors.length > 0 && <button type="button" onClick={() => setCursors([])} className="rounded border border-scale-300 px-2 py-0.5">Newest</button>}
-          {cursors.length > 0 && <button type="button" onClick={() => setCursors((c) => c.slice(0, -1))} className="rounded border border-scale-300 px-2 py-0.5">← Newer</button>}
+          {cursors.length > 0 && (
+            <button
+              type="button"
+              onClick={() => setCursors([])}
+              className="rounded border border-scale-300 px-2 py-0.5"
+            >
+              Newest
+            </button>
+          )}
+          {cursors.length > 0 && (
+            <button
+              type="button"
+              onClick={() => setCursors((c) => c.slice(0, -1))}
+              className="rounded border border-scale-300 px-2 py-0.5"
+            >
+              ← Newer
+            </button>
+          )}
           {data?.next_cursor && (
             // Until this page has arrived the rows on screen are the previous page's: no going further from them.
-            <button type="button" disabled={isValidating} onClick={() => setCursors((c) => [...c, data.next_cursor!])} className="rounded border border-scale-300 px-2 py-0.5 disabled:opacity-50">Older {noun} →</button>
+            <button
+              type="button"
+              disabled={isValidating}
+              onClick={() => setCursors((c) => [...c, data.next_cursor!])}
+              className="rounded border border-scale-300 px-2 py-0.5 disabled:opacity-50"
+            >
+              Older {noun} →
+            </button>
           )}
         </div>
       )}

@@ -24,13 +24,19 @@ export function Nav() {
       {ITEMS.map((item) => {
         const active = item.href === "/console" ? path === item.href : path.startsWith(item.href);
         return (
-          <Link key={item.href} href={item.href} aria-current={active ? "page" : undefined}
-            className={`rounded px-2 py-1.5 ${active ? "bg-ink text-scale-50" : "text-ink-soft hover:bg-scale-200"}`}>
+          <Link
+            key={item.href}
+            href={item.href}
+            aria-current={active ? "page" : undefined}
+            className={`rounded px-2 py-1.5 ${active ? "bg-ink text-scale-50" : "text-ink-soft hover:bg-scale-200"}`}
+          >
             {item.label}
           </Link>
         );
       })}
-      <a href="/docs" className="mt-3 rounded px-2 py-1.5 text-ink-soft hover:bg-scale-200">API reference ↗</a>
+      <a href="/docs" className="mt-3 rounded px-2 py-1.5 text-ink-soft hover:bg-scale-200">
+        API reference ↗
+      </a>
     </nav>
   );
 }

@@ -5,20 +5,53 @@ import Link from "next/link";
 import { Badge, when } from "@/components/ui";
 import { LiveTable } from "./LiveTable";
 
-interface Row { id: string; reference: string; title: string | null; status: string; validation: string; findings: number; dueAt: string | null; updatedAt: string }
+interface Row {
+  id: string;
+  reference: string;
+  title: string | null;
+  status: string;
+  validation: string;
+  findings: number;
+  dueAt: string | null;
+  updatedAt: string;
+}
 const col = createColumnHelper<Row>();
 const columns = [
-  col.accessor("reference", { header: "Reference", cell: (c) => <Link className="font-mono text-edge hover:underline" href={`/console/programs/${c.row.original.id}`}>{c.getValue()}</Link> }),
+  col.accessor("reference", {
+    header: "Reference",
+    cell: (c) => (
+      <Link className="font-mono text-edge hover:underline" href={`/console/programs/${c.row.original.id}`}>
+        {c.getValue()}
+      </Link>
+    ),
+  }),
   col.accessor("title", { header: "Title", cell: (c) => c.getValue() ?? "—" }),
   col.accessor("status", { header: "State", cell: (c) => <Badge value={c.getValue()} /> }),
   col.accessor("validation", { header: "Check", cell: (c) => <Badge value={c.getValue()} /> }),
   col.accessor("findings", { header: "Findings", cell: (c) => <span className="font-mono">{c.getValue()}</span> }),
-  col.accessor("dueAt", { header: "Due", cell: (c) => <span className="font-mono text-xs">{when(c.getValue())}</span> }),
-  col.accessor("updatedAt", { header: "Updated", cell: (c) => <span className="font-mono text-xs">{when(c.getValue())}</span> }),
+  col.accessor("dueAt", {
+    header: "Due",
+    cell: (c) => <span className="font-mono text-xs">{when(c.getValue())}</span>,
+  }),
+  col.accessor("updatedAt", {
+    header: "Updated",
+    cell: (c) => <span className="font-mono text-xs">{when(c.getValue())}</span>,
+  }),
 ];
 
 export function ProgramsTable({ status, search }: { status?: string; search?: string }) {
   const query = new URLSearchParams({ ...(status ? { status } : {}), ...(search ? { search } : {}) }).toString();
-  return <LiveTable<Row> url={`/console/data/programs${query ? `?${query}` : ""}`} columns={columns} noun="programs"
-    empty={search || status ? "No programs match." : "No programs yet. Send one with POST /api/v1/programs, upload a cut list, or write them from a plan."} testId="program-row" />;
+  return (
+    <LiveTable<Row>
+      url={`/console/data/programs${query ? `?${query}` : ""}`}
+      columns={columns}
+      noun="programs"
+      empty={
+        search || status
+          ? "No programs match."
+          : "No programs yet. Send one with POST /api/v1/programs, upload a cut list, or write them from a plan."
+      }
+      testId="program-row"
+    />
+  );
 }

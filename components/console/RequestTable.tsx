@@ -5,7 +5,15 @@ import Link from "next/link";
 import { Badge, when } from "@/components/ui";
 import { LiveTable } from "./LiveTable";
 
-interface Row { id: string; createdAt: string; method: string; path: string; status: number; latencyMs: number; keyId: string | null }
+interface Row {
+  id: string;
+  createdAt: string;
+  method: string;
+  path: string;
+  status: number;
+  latencyMs: number;
+  keyId: string | null;
+}
 const col = createColumnHelper<Row>();
 
 /** The request log, refreshed every 5 s, sortable by any column. */
@@ -15,10 +23,36 @@ export function RequestTable({ query, keyNames }: { query: string; keyNames: Rec
     col.accessor("createdAt", { header: "When", cell: (c) => mono(when(c.getValue())) }),
     col.accessor("method", { header: "Method", cell: (c) => mono(c.getValue()) }),
     col.accessor("path", { header: "Path", cell: (c) => mono(c.getValue()) }),
-    col.accessor("status", { header: "Status", cell: (c) => <Badge value={c.getValue() < 300 ? "succeeded" : c.getValue() < 500 ? "warning" : "error"} label={String(c.getValue())} /> }),
+    col.accessor("status", {
+      header: "Status",
+      cell: (c) => (
+        <Badge
+          value={c.getValue() < 300 ? "succeeded" : c.getValue() < 500 ? "warning" : "error"}
+          label={String(c.getValue())}
+        />
+      ),
+    }),
     col.accessor("latencyMs", { header: "Latency", cell: (c) => mono(`${c.getValue()} ms`) }),
-    col.accessor("keyId", { header: "Key", cell: (c) => (c.getValue() ? keyNames[c.getValue()!] ?? c.getValue() : "—") }),
-    col.accessor("id", { header: "Request id", cell: (c) => <Link className="font-mono text-xs text-edge hover:underline" href={`/console/logs/${c.getValue()}`}>{c.getValue()}</Link> }),
+    col.accessor("keyId", {
+      header: "Key",
+      cell: (c) => (c.getValue() ? (keyNames[c.getValue()!] ?? c.getValue()) : "—"),
+    }),
+    col.accessor("id", {
+      header: "Request id",
+      cell: (c) => (
+        <Link className="font-mono text-xs text-edge hover:underline" href={`/console/logs/${c.getValue()}`}>
+          {c.getValue()}
+        </Link>
+      ),
+    }),
   ];
-  return <LiveTable<Row> url={`/console/data/requests?${query}`} columns={columns} noun="requests" empty="No requests match. Calls to the API with a key of this shop appear here within a second." testId="request-row" />;
+  return (
+    <LiveTable<Row>
+      url={`/console/data/requests?${query}`}
+      columns={columns}
+      noun="requests"
+      empty="No requests match. Calls to the API with a key of this shop appear here within a second."
+      testId="request-row"
+    />
+  );
 }

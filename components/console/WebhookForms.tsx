@@ -3,7 +3,12 @@
 import { useRouter } from "next/navigation";
 import { useState } from "react";
 import {
-  createEndpointAction, resendAction, rotateSecretAction, setEnabledAction, testEndpointAction, updateEndpointAction,
+  createEndpointAction,
+  resendAction,
+  rotateSecretAction,
+  setEnabledAction,
+  testEndpointAction,
+  updateEndpointAction,
 } from "@/app/console/webhooks/actions";
 import { ActionMessage, FieldError, useConsoleForm, type ConsoleResult } from "./useConsoleForm";
 
@@ -14,23 +19,43 @@ function Secret({ result }: { result: ConsoleResult<{ secret?: string }> }) {
     <div className="mt-1 text-sm">
       <p>Signing secret, shown this once: copy it into the receiver to verify signatures.</p>
       <div className="mt-1 flex items-center gap-2">
-        <code data-testid="webhook-secret" className="flex-1 break-all rounded bg-scale-100 px-1.5 py-0.5 text-xs">{secret}</code>
-        <button type="button" onClick={async () => { await navigator.clipboard?.writeText(secret); setCopied(true); }}
-          className="rounded border border-scale-300 px-2 py-0.5 text-xs">{copied ? "Copied" : "Copy"}</button>
+        <code data-testid="webhook-secret" className="flex-1 break-all rounded bg-scale-100 px-1.5 py-0.5 text-xs">
+          {secret}
+        </code>
+        <button
+          type="button"
+          onClick={async () => {
+            await navigator.clipboard?.writeText(secret);
+            setCopied(true);
+          }}
+          className="rounded border border-scale-300 px-2 py-0.5 text-xs"
+        >
+          {copied ? "Copied" : "Copy"}
+        </button>
       </div>
     </div>
   ) : null;
 }
 
 /** The event types to tick, each with what it says. */
-function EventTypeBoxes({ types, words, chosen = [] }: { types: readonly string[]; words: Record<string, string>; chosen?: string[] }) {
+function EventTypeBoxes({
+  types,
+  words,
+  chosen = [],
+}: {
+  types: readonly string[];
+  words: Record<string, string>;
+  chosen?: string[];
+}) {
   return (
     <fieldset className="grid gap-1">
       <legend className="mb-1">Events (none ticked = every event)</legend>
       {types.map((t) => (
         <label key={t} className="flex items-start gap-1.5 text-xs">
           <input type="checkbox" name="eventTypes" value={t} defaultChecked={chosen.includes(t)} className="mt-0.5" />
-          <span><span className="font-mono">{t}</span> <span className="text-ink-muted">· {words[t]}</span></span>
+          <span>
+            <span className="font-mono">{t}</span> <span className="text-ink-muted">· {words[t]}</span>
+          </span>
         </label>
       ))}
     </fieldset>
@@ -43,54 +68,100 @@ export function NewEndpointForm({ types, words }: { types: readonly string[]; wo
   return (
     <div className="rounded-md border border-scale-200 bg-white p-4">
       <h2 className="text-sm font-semibold">New endpoint</h2>
-      <form ref={form.formRef} onSubmit={form.onSubmit} className="mt-3 grid gap-3 text-sm" noValidate>
-        <label className="grid gap-1">URL
-          <input name="url" required placeholder="https://erp.example/hooks/shearwire" aria-describedby="endpoint-url-error" className="rounded border border-scale-300 px-2 py-1.5" />
+      <form onSubmit={form.onSubmit} className="mt-3 grid gap-3 text-sm" noValidate>
+        <label className="grid gap-1">
+          URL
+          <input
+            name="url"
+            required
+            placeholder="https://erp.example/hooks/shearwire"
+            aria-describedby="endpoint-url-error"
+            className="rounded border border-scale-300 px-2 py-1.5"
+          />
           <FieldError id="endpoint-url-error" message={form.error("url")} />
         </label>
-        <label className="grid gap-1">Description
+        <label className="grid gap-1">
+          Description
           <input name="description" maxLength={200} className="rounded border border-scale-300 px-2 py-1.5" />
           <FieldError message={form.error("description")} />
         </label>
         <EventTypeBoxes types={types} words={words} />
-        <button disabled={form.pending} className="justify-self-start rounded-md bg-ink px-3 py-1.5 font-medium text-scale-50 hover:bg-ink-soft disabled:opacity-60">Add endpoint</button>
+        <button
+          disabled={form.pending}
+          className="justify-self-start rounded-md bg-ink px-3 py-1.5 font-medium text-scale-50 hover:bg-ink-soft disabled:opacity-60"
+        >
+          Add endpoint
+        </button>
       </form>
-      <div className="mt-2"><ActionMessage result={form.result} shownFields={["url", "description"]} /></div>
+      <div className="mt-2">
+        <ActionMessage result={form.result} shownFields={["url", "description"]} />
+      </div>
       <Secret result={form.result} />
     </div>
   );
 }
 
 /** Change an endpoint: its address, description and event types. */
-export function EditEndpointForm({ endpoint, types, words }: {
-  endpoint: { id: string; url: string; description: string | null; eventTypes: string[] }; types: readonly string[]; words: Record<string, string>;
+export function EditEndpointForm({
+  endpoint,
+  types,
+  words,
+}: {
+  endpoint: { id: string; url: string; description: string | null; eventTypes: string[] };
+  types: readonly string[];
+  words: Record<string, string>;
 }) {
   const router = useRouter();
   const form = useConsoleForm(updateEndpointAction, { onSuccess: () => router.refresh() });
   return (
     <div className="rounded-md border border-scale-200 bg-white p-4">
       <h2 className="text-sm font-semibold">Settings</h2>
-      <form ref={form.formRef} onSubmit={form.onSubmit} className="mt-3 grid gap-3 text-sm" noValidate>
+      <form onSubmit={form.onSubmit} className="mt-3 grid gap-3 text-sm" noValidate>
         <input type="hidden" name="id" value={endpoint.id} />
-        <label className="grid gap-1">URL
-          <input name="url" required defaultValue={endpoint.url} aria-describedby="edit-url-error" className="rounded border border-scale-300 px-2 py-1.5" />
+        <label className="grid gap-1">
+          URL
+          <input
+            name="url"
+            required
+            defaultValue={endpoint.url}
+            aria-describedby="edit-url-error"
+            className="rounded border border-scale-300 px-2 py-1.5"
+          />
           <FieldError id="edit-url-error" message={form.error("url")} />
         </label>
-        <label className="grid gap-1">Description
-          <input name="description" maxLength={200} defaultValue={endpoint.description ?? ""} className="rounded border border-scale-300 px-2 py-1.5" />
+        <label className="grid gap-1">
+          Description
+          <input
+            name="description"
+            maxLength={200}
+            defaultValue={endpoint.description ?? ""}
+            className="rounded border border-scale-300 px-2 py-1.5"
+          />
           <FieldError message={form.error("description")} />
         </label>
         <EventTypeBoxes types={types} words={words} chosen={endpoint.eventTypes} />
-        <button disabled={form.pending} className="justify-self-start rounded-md bg-ink px-3 py-1.5 font-medium text-scale-50 hover:bg-ink-soft disabled:opacity-60">Save</button>
+        <button
+          disabled={form.pending}
+          className="justify-self-start rounded-md bg-ink px-3 py-1.5 font-medium text-scale-50 hover:bg-ink-soft disabled:opacity-60"
+        >
+          Save
+        </button>
         <ActionMessage result={form.result} shownFields={["url", "description"]} />
       </form>
     </div>
   );
 }
 
-function EndpointButton({ action, id, extra = {}, children }: {
+function EndpointButton({
+  action,
+  id,
+  extra = {},
+  children,
+}: {
   action: (input: FormData) => Promise<ConsoleResult<{ secret?: string; message?: string }> | undefined>;
-  id: string; extra?: Record<string, string>; children: string;
+  id: string;
+  extra?: Record<string, string>;
+  children: string;
 }) {
   const router = useRouter();
   const form = useConsoleForm(action, { onSuccess: () => router.refresh() });
@@ -98,8 +169,12 @@ function EndpointButton({ action, id, extra = {}, children }: {
     <div>
       <form onSubmit={form.onSubmit}>
         <input type="hidden" name="id" value={id} />
-        {Object.entries(extra).map(([k, v]) => <input key={k} type="hidden" name={k} value={v} />)}
-        <button disabled={form.pending} className="rounded border border-scale-300 px-2 py-1 text-xs hover:border-ink">{children}</button>
+        {Object.entries(extra).map(([k, v]) => (
+          <input key={k} type="hidden" name={k} value={v} />
+        ))}
+        <button disabled={form.pending} className="rounded border border-scale-300 px-2 py-1 text-xs hover:border-ink">
+          {children}
+        </button>
       </form>
       <ActionMessage result={form.result} />
       <Secret result={form.result} />
@@ -107,12 +182,34 @@ function EndpointButton({ action, id, extra = {}, children }: {
   );
 }
 
-export function EndpointButtons({ id, enabled, manage, test }: { id: string; enabled: boolean; manage: boolean; test: boolean }) {
+export function EndpointButtons({
+  id,
+  enabled,
+  manage,
+  test,
+}: {
+  id: string;
+  enabled: boolean;
+  manage: boolean;
+  test: boolean;
+}) {
   return (
     <div className="flex flex-wrap gap-1">
-      {test && enabled && <EndpointButton action={testEndpointAction} id={id}>Send test event</EndpointButton>}
-      {manage && <EndpointButton action={setEnabledAction} id={id} extra={{ enabled: String(!enabled) }}>{enabled ? "Disable" : "Enable"}</EndpointButton>}
-      {manage && <EndpointButton action={rotateSecretAction} id={id}>Rotate secret</EndpointButton>}
+      {test && enabled && (
+        <EndpointButton action={testEndpointAction} id={id}>
+          Send test event
+        </EndpointButton>
+      )}
+      {manage && (
+        <EndpointButton action={setEnabledAction} id={id} extra={{ enabled: String(!enabled) }}>
+          {enabled ? "Disable" : "Enable"}
+        </EndpointButton>
+      )}
+      {manage && (
+        <EndpointButton action={rotateSecretAction} id={id}>
+          Rotate secret
+        </EndpointButton>
+      )}
     </div>
   );
 }
@@ -124,7 +221,9 @@ export function ResendButton({ endpoint, event }: { endpoint: string; event: str
     <form onSubmit={form.onSubmit}>
       <input type="hidden" name="id" value={endpoint} />
       <input type="hidden" name="event" value={event} />
-      <button disabled={form.pending} className="text-xs text-edge hover:underline">Resend</button>
+      <button disabled={form.pending} className="text-xs text-edge hover:underline">
+        Resend
+      </button>
       <ActionMessage result={form.result} />
     </form>
   );

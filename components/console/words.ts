@@ -8,7 +8,13 @@ import { GAUGE_FAMILY_NAMES } from "@/lib/shear/gauges";
 export const groupName = (index: number) => `Group ${index + 1}`;
 
 const FIELD_WORDS: Record<string, string> = {
-  backgauge: "backgauge", count: "strokes", length: "length of cut", turn: "turn", from: "takes from", scrap: "trim", note: "note",
+  backgauge: "backgauge",
+  count: "strokes",
+  length: "length of cut",
+  turn: "turn",
+  from: "takes from",
+  scrap: "trim",
+  note: "note",
 };
 
 /** A pointer into a cut program in words: `/cuts/2/backgauge` → "Group 3, backgauge"; `/sheet/width` → "sheet width". */
@@ -23,9 +29,15 @@ export function pointerInWords(pointer: string): string {
 }
 
 /** A thickness as sent, with the size it comes to when it was a gauge number. */
-export function thicknessInWords(thickness: { value: number } | { gauge: number }, units: string, resolved?: { value: number; unit: string; gaugeFamily: string | null } | null): string {
+export function thicknessInWords(
+  thickness: { value: number } | { gauge: number },
+  units: string,
+  resolved?: { value: number; unit: string; gaugeFamily: string | null } | null,
+): string {
   if ("value" in thickness) return `${thickness.value} ${units}`;
-  const family = resolved?.gaugeFamily ? ` ${GAUGE_FAMILY_NAMES[resolved.gaugeFamily as keyof typeof GAUGE_FAMILY_NAMES] ?? resolved.gaugeFamily}` : "";
+  const family = resolved?.gaugeFamily
+    ? ` ${GAUGE_FAMILY_NAMES[resolved.gaugeFamily as keyof typeof GAUGE_FAMILY_NAMES] ?? resolved.gaugeFamily}`
+    : "";
   return `${thickness.gauge} gauge${family}${resolved ? ` (${resolved.value} ${resolved.unit})` : ""}`;
 }
 

@@ -36,7 +36,11 @@ const TONES: Record<string, string> = {
 };
 
 export function Badge({ value, label }: { value: string; label?: string }) {
-  return <span className={`inline-block rounded px-1.5 py-0.5 font-mono text-[11px] ${TONES[value] ?? "bg-scale-200"}`}>{label ?? value}</span>;
+  return (
+    <span className={`inline-block rounded px-1.5 py-0.5 font-mono text-[11px] ${TONES[value] ?? "bg-scale-200"}`}>
+      {label ?? value}
+    </span>
+  );
 }
 
 export function Table({ head, children, empty }: { head: string[]; children: ReactNode; empty?: string }) {
@@ -45,7 +49,13 @@ export function Table({ head, children, empty }: { head: string[]; children: Rea
     <div className="overflow-x-auto rounded-md border border-scale-200 bg-white">
       <table className="w-full text-left text-sm">
         <thead className="border-b border-scale-200 bg-scale-50 text-[11px] uppercase tracking-wide text-ink-muted">
-          <tr>{head.map((h) => <th key={h} className="px-3 py-2 font-medium">{h}</th>)}</tr>
+          <tr>
+            {head.map((h) => (
+              <th key={h} className="px-3 py-2 font-medium">
+                {h}
+              </th>
+            ))}
+          </tr>
         </thead>
         <tbody className="divide-y divide-scale-100">{children}</tbody>
       </table>
@@ -56,11 +66,6 @@ export function Table({ head, children, empty }: { head: string[]; children: Rea
 
 export function Td({ children, mono, className = "" }: { children?: ReactNode; mono?: boolean; className?: string }) {
   return <td className={`px-3 py-2 align-top ${mono ? "font-mono text-xs" : ""} ${className}`}>{children}</td>;
-}
-
-export function Notice({ tone = "info", children }: { tone?: "info" | "error" | "success"; children: ReactNode }) {
-  const cls = tone === "error" ? "bg-fault-light text-fault" : tone === "success" ? "bg-ok-light text-ok" : "bg-edge-light text-edge-dark";
-  return <div role={tone === "error" ? "alert" : "status"} className={`rounded-md px-3 py-2 text-sm ${cls}`}>{children}</div>;
 }
 
 export function Stat({ label, value, hint }: { label: string; value: ReactNode; hint?: string }) {

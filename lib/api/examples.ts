@@ -5,7 +5,7 @@
  * stays the same from build to build.
  */
 import { DEMO_SHEARS } from "../schemas/shear";
-import { EVENT_TYPES, type EventType } from "../schemas/enums";
+import type { EventType } from "../schemas/enums";
 import type { EventData } from "../schemas/events";
 import type { PlanSummaryT } from "../schemas/plan";
 import { EXAMPLE_PROGRAM, type CheckT, type ProgramT } from "../schemas/program";
@@ -22,13 +22,36 @@ export const EXAMPLE_IDS = {
 } as const;
 
 export function exampleShear(): ShearT {
-  const demo = DEMO_SHEARS[0] as Omit<ShearT, "id" | "archivedAt" | "createdAt" | "updatedAt" | "description" | "maxBladeHardnessHb" | "crownAtRatedMm" | "crownBaselineMm" | "backgaugeRepeatabilityMm">
-    & Partial<Pick<ShearT, "description" | "maxBladeHardnessHb" | "crownAtRatedMm" | "crownBaselineMm" | "backgaugeRepeatabilityMm">>;
+  const demo = DEMO_SHEARS[0] as Omit<
+    ShearT,
+    | "id"
+    | "archivedAt"
+    | "createdAt"
+    | "updatedAt"
+    | "description"
+    | "maxBladeHardnessHb"
+    | "crownAtRatedMm"
+    | "crownBaselineMm"
+    | "backgaugeRepeatabilityMm"
+  > &
+    Partial<
+      Pick<
+        ShearT,
+        "description" | "maxBladeHardnessHb" | "crownAtRatedMm" | "crownBaselineMm" | "backgaugeRepeatabilityMm"
+      >
+    >;
   return {
-    id: EXAMPLE_IDS.shear, ...demo, description: demo.description ?? null, maxBladeHardnessHb: demo.maxBladeHardnessHb ?? null,
-    gradeThicknessLimitsMm: demo.gradeThicknessLimitsMm ?? {}, crownAtRatedMm: demo.crownAtRatedMm ?? null,
-    crownBaselineMm: demo.crownBaselineMm ?? null, backgaugeRepeatabilityMm: demo.backgaugeRepeatabilityMm ?? null,
-    archivedAt: null, createdAt: AT, updatedAt: AT,
+    id: EXAMPLE_IDS.shear,
+    ...demo,
+    description: demo.description ?? null,
+    maxBladeHardnessHb: demo.maxBladeHardnessHb ?? null,
+    gradeThicknessLimitsMm: demo.gradeThicknessLimitsMm ?? {},
+    crownAtRatedMm: demo.crownAtRatedMm ?? null,
+    crownBaselineMm: demo.crownBaselineMm ?? null,
+    backgaugeRepeatabilityMm: demo.backgaugeRepeatabilityMm ?? null,
+    archivedAt: null,
+    createdAt: AT,
+    updatedAt: AT,
   };
 }
 
@@ -36,34 +59,100 @@ export function exampleShear(): ShearT {
 export function exampleProgram(): ProgramT {
   const shear = exampleShear();
   const { archivedAt: _a, createdAt: _c, updatedAt: _u, description: _d, ...profile } = shear;
-  const check = checkProgram({ ...EXAMPLE_PROGRAM, shear: shear.id }, {
-    shear: { ...profile, crownAtRatedMm: profile.crownAtRatedMm ?? undefined, crownBaselineMm: profile.crownBaselineMm ?? undefined, backgaugeRepeatabilityMm: profile.backgaugeRepeatabilityMm ?? undefined },
-    grade: findGrade("A36"),
-  }) as unknown as CheckT;
+  const check = checkProgram(
+    { ...EXAMPLE_PROGRAM, shear: shear.id },
+    {
+      shear: {
+        ...profile,
+        crownAtRatedMm: profile.crownAtRatedMm ?? undefined,
+        crownBaselineMm: profile.crownBaselineMm ?? undefined,
+        backgaugeRepeatabilityMm: profile.backgaugeRepeatabilityMm ?? undefined,
+      },
+      grade: findGrade("A36"),
+    },
+  ) as unknown as CheckT;
   return {
-    id: EXAMPLE_IDS.program, status: "draft", revision: 1, reference: EXAMPLE_PROGRAM.reference, title: EXAMPLE_PROGRAM.title ?? null,
-    shear: shear.id, grade: EXAMPLE_PROGRAM.grade, thickness: EXAMPLE_PROGRAM.thickness, units: EXAMPLE_PROGRAM.units,
-    sheet: EXAMPLE_PROGRAM.sheet, cuts: EXAMPLE_PROGRAM.cuts, setup: EXAMPLE_PROGRAM.setup, priority: EXAMPLE_PROGRAM.priority ?? 5,
-    dueAt: EXAMPLE_PROGRAM.dueAt ?? null, metadata: EXAMPLE_PROGRAM.metadata ?? {}, validation: check.validation, check,
-    acknowledged: [], releasedAt: null, cancelledAt: null,
-    run: { claimedBy: null, claimedAt: null, leaseExpiresAt: null, leaseExpiries: 0, startedAt: null, finishedAt: null, progress: null, outcome: null },
-    createdAt: AT, updatedAt: AT,
+    id: EXAMPLE_IDS.program,
+    status: "draft",
+    revision: 1,
+    reference: EXAMPLE_PROGRAM.reference,
+    title: EXAMPLE_PROGRAM.title ?? null,
+    shear: shear.id,
+    grade: EXAMPLE_PROGRAM.grade,
+    thickness: EXAMPLE_PROGRAM.thickness,
+    units: EXAMPLE_PROGRAM.units,
+    sheet: EXAMPLE_PROGRAM.sheet,
+    cuts: EXAMPLE_PROGRAM.cuts,
+    setup: EXAMPLE_PROGRAM.setup,
+    priority: EXAMPLE_PROGRAM.priority ?? 5,
+    dueAt: EXAMPLE_PROGRAM.dueAt ?? null,
+    metadata: EXAMPLE_PROGRAM.metadata ?? {},
+    validation: check.validation,
+    check,
+    acknowledged: [],
+    releasedAt: null,
+    cancelledAt: null,
+    run: {
+      claimedBy: null,
+      claimedAt: null,
+      leaseExpiresAt: null,
+      leaseExpiries: 0,
+      startedAt: null,
+      finishedAt: null,
+      progress: null,
+      outcome: null,
+    },
+    createdAt: AT,
+    updatedAt: AT,
   };
 }
 
 function examplePlanSummary(status: "complete" | "failed" | "cancelled"): PlanSummaryT {
   return {
-    id: EXAMPLE_IDS.plan, status, reference: "WK49-A36-10GA", title: "Week 49, 10 ga A36", shear: EXAMPLE_IDS.shear, grade: "A36",
-    thickness: { gauge: 10 }, units: "in",
+    id: EXAMPLE_IDS.plan,
+    status,
+    reference: "WK49-A36-10GA",
+    title: "Week 49, 10 ga A36",
+    shear: EXAMPLE_IDS.shear,
+    grade: "A36",
+    thickness: { gauge: 10 },
+    units: "in",
     progress: status === "cancelled" ? null : { patterns: 2, piecesPlaced: 96, piecesWanted: 96 },
-    failure: status === "failed" ? { reason: "time_limit", message: "The plan took longer than this install's limit of 60 s and was stopped. Plan fewer blank types or pieces at once, or coarser sizes." } : null,
-    attempts: status === "cancelled" ? 0 : 1, programs: [], createdAt: AT, startedAt: status === "cancelled" ? null : AT, finishedAt: AT,
+    failure:
+      status === "failed"
+        ? {
+            reason: "time_limit",
+            message:
+              "The plan took longer than this install's limit of 60 s and was stopped. Plan fewer blank types or pieces at once, or coarser sizes.",
+          }
+        : null,
+    attempts: status === "cancelled" ? 0 : 1,
+    programs: [],
+    createdAt: AT,
+    startedAt: status === "cancelled" ? null : AT,
+    finishedAt: AT,
     coverage: status === "complete" ? "complete" : null,
-    summary: status === "complete" ? {
-      sheets: 2, patterns: 2, blanksAsked: 96, blanksPlanned: 96, extra: 0, short: 0, utilisationPct: 91.7, netUtilisationPct: 91.7,
-      strokes: 84, turns: 16, estimateSeconds: 402.5, lowerBoundSheets: 2, provenFewest: true, bounds: { areaSheets: 2, lpSheets: null },
-      method: "greedy", methodNote: null,
-    } : null,
+    summary:
+      status === "complete"
+        ? {
+            sheets: 2,
+            patterns: 2,
+            blanksAsked: 96,
+            blanksPlanned: 96,
+            extra: 0,
+            short: 0,
+            utilisationPct: 91.7,
+            netUtilisationPct: 91.7,
+            strokes: 84,
+            turns: 16,
+            estimateSeconds: 402.5,
+            lowerBoundSheets: 2,
+            provenFewest: true,
+            bounds: { areaSheets: 2, lpSheets: null },
+            method: "greedy",
+            methodNote: null,
+          }
+        : null,
   };
 }
 
@@ -71,38 +160,71 @@ function examplePlanSummary(status: "complete" | "failed" | "cancelled"): PlanSu
 export function exampleWebhook(type: EventType): { type: EventType; timestamp: string; data: EventData<EventType> } {
   const draft = exampleProgram();
   const at = (status: ProgramT["status"], run: Partial<ProgramT["run"]> = {}): ProgramT => ({
-    ...draft, status, revision: draft.revision + 1, releasedAt: status === "draft" ? null : AT, run: { ...draft.run, ...run },
+    ...draft,
+    status,
+    revision: draft.revision + 1,
+    releasedAt: status === "draft" ? null : AT,
+    run: { ...draft.run, ...run },
   });
   const claimed = { claimedBy: EXAMPLE_IDS.gatewayKey, claimedAt: AT, leaseExpiresAt: "2026-12-08T09:31:00.000Z" };
   const data: { [T in EventType]: EventData<T> } = {
     "program.created": { program: draft },
-    "program.updated": { program: { ...draft, revision: 2, title: "Side panels, lot 4 (revised)" }, changed: ["title"] },
+    "program.updated": {
+      program: { ...draft, revision: 2, title: "Side panels, lot 4 (revised)" },
+      changed: ["title"],
+    },
     "program.released": { program: at("released"), from: "draft" },
     "program.claimed": { program: at("claimed", claimed), from: "released", gateway: EXAMPLE_IDS.gatewayKey },
     "program.started": { program: at("running", { ...claimed, startedAt: AT }), from: "claimed" },
     "program.progressed": {
-      program: at("running", { ...claimed, startedAt: AT, progress: { groupsDone: 2, strokesDone: 31 } }), from: "running",
+      program: at("running", { ...claimed, startedAt: AT, progress: { groupsDone: 2, strokesDone: 31 } }),
+      from: "running",
       progress: { groupsDone: 2, strokesDone: 31 },
     },
     "program.completed": {
-      program: at("completed", { ...claimed, leaseExpiresAt: null, startedAt: AT, finishedAt: AT, outcome: { result: "completed", goodPieces: 56, scrappedPieces: 0, sheetsUsed: 2 } }),
-      from: "running", outcome: { goodPieces: 56, scrappedPieces: 0, sheetsUsed: 2 },
+      program: at("completed", {
+        ...claimed,
+        leaseExpiresAt: null,
+        startedAt: AT,
+        finishedAt: AT,
+        outcome: { result: "completed", goodPieces: 56, scrappedPieces: 0, sheetsUsed: 2 },
+      }),
+      from: "running",
+      outcome: { goodPieces: 56, scrappedPieces: 0, sheetsUsed: 2 },
     },
     "program.failed": {
-      program: at("failed", { ...claimed, leaseExpiresAt: null, startedAt: AT, finishedAt: AT, outcome: { result: "failed", reason: "light_curtain", message: "Light curtain broken at stroke 12; the operator stopped the run." } }),
-      from: "running", outcome: { reason: "light_curtain", message: "Light curtain broken at stroke 12; the operator stopped the run." },
+      program: at("failed", {
+        ...claimed,
+        leaseExpiresAt: null,
+        startedAt: AT,
+        finishedAt: AT,
+        outcome: {
+          result: "failed",
+          reason: "light_curtain",
+          message: "Light curtain broken at stroke 12; the operator stopped the run.",
+        },
+      }),
+      from: "running",
+      outcome: { reason: "light_curtain", message: "Light curtain broken at stroke 12; the operator stopped the run." },
     },
-    "program.cancelled": { program: { ...at("cancelled"), cancelledAt: AT }, from: "released", reason: "The order was withdrawn by the customer." },
+    "program.cancelled": {
+      program: { ...at("cancelled"), cancelledAt: AT },
+      from: "released",
+      reason: "The order was withdrawn by the customer.",
+    },
     "program.lease_expired": {
-      program: at("released", { leaseExpiries: 1 }), from: "running", gateway: EXAMPLE_IDS.gatewayKey,
+      program: at("released", { leaseExpiries: 1 }),
+      from: "running",
+      gateway: EXAMPLE_IDS.gatewayKey,
       reason: `No heartbeat from gateway key ${EXAMPLE_IDS.gatewayKey} before the lease ran out at 2026-12-08T09:31:00.000Z; the program is released again.`,
     },
     "plan.completed": { plan: examplePlanSummary("complete") },
     "plan.failed": { plan: examplePlanSummary("failed") },
     "plan.cancelled": { plan: examplePlanSummary("cancelled") },
-    "endpoint.test": { endpoint: { id: EXAMPLE_IDS.endpoint, url: "https://erp.example/hooks/shearwire" }, message: "A test event from Shearwire. If you can read this, your receiver works." },
+    "endpoint.test": {
+      endpoint: { id: EXAMPLE_IDS.endpoint, url: "https://erp.example/hooks/shearwire" },
+      message: "A test event from Shearwire. If you can read this, your receiver works.",
+    },
   };
   return { type, timestamp: AT, data: data[type] };
 }
-
-export const EXAMPLE_WEBHOOKS = Object.fromEntries(EVENT_TYPES.map((type) => [type, exampleWebhook(type)]));

@@ -28,11 +28,20 @@ const ERROR_TEXT: Record<number, string> = {
 };
 
 const RATE_HEADERS = {
-  "RateLimit-Policy": { description: "The key's quota and window (IETF RateLimit header fields).", schema: { type: "string" as const } },
-  RateLimit: { description: "Requests left in the window and seconds until it resets.", schema: { type: "string" as const } },
+  "RateLimit-Policy": {
+    description: "The key's quota and window (IETF RateLimit header fields).",
+    schema: { type: "string" as const },
+  },
+  RateLimit: {
+    description: "Requests left in the window and seconds until it resets.",
+    schema: { type: "string" as const },
+  },
 };
 const COMMON_HEADERS = {
-  "X-Request-Id": { description: "This request's id; quote it when you ask for help.", schema: { type: "string" as const } },
+  "X-Request-Id": {
+    description: "This request's id; quote it when you ask for help.",
+    schema: { type: "string" as const },
+  },
 };
 
 /** The error statuses an operation can answer, from what it declares. */
@@ -49,9 +58,19 @@ export function errorStatuses(op: Operation): number[] {
 }
 
 const ERROR_NAMES: Record<number, string> = {
-  400: "BadRequest", 401: "Unauthorized", 403: "Forbidden", 404: "NotFound", 409: "Conflict", 412: "PreconditionFailed",
-  413: "PayloadTooLarge", 415: "UnsupportedMediaType", 422: "UnprocessableContent", 428: "PreconditionRequired",
-  429: "TooManyRequests", 500: "InternalError", 503: "ServiceUnavailable",
+  400: "BadRequest",
+  401: "Unauthorized",
+  403: "Forbidden",
+  404: "NotFound",
+  409: "Conflict",
+  412: "PreconditionFailed",
+  413: "PayloadTooLarge",
+  415: "UnsupportedMediaType",
+  422: "UnprocessableContent",
+  428: "PreconditionRequired",
+  429: "TooManyRequests",
+  500: "InternalError",
+  503: "ServiceUnavailable",
 };
 
 /** The reference's opening page: what this is, the first calls, and the conventions. */
@@ -92,11 +111,16 @@ export function buildOpenApi(operations: Operation[], extra?: (registry: OpenAPI
   const bearer = registry.registerComponent("securitySchemes", "apiKey", {
     type: "http",
     scheme: "bearer",
-    description: "An API key of your shop: `Authorization: Bearer swk_…`. Create one in the console or with `npm run key:create`.",
+    description:
+      "An API key of your shop: `Authorization: Bearer swk_…`. Create one in the console or with `npm run key:create`.",
   });
   registry.register("Problem", Problem);
   const headerRefs: Record<string, { $ref: string }> = {};
-  for (const [name, spec] of Object.entries({ ...COMMON_HEADERS, ...RATE_HEADERS, "Retry-After": { description: "Seconds to wait before retrying.", schema: { type: "integer" as const } } })) {
+  for (const [name, spec] of Object.entries({
+    ...COMMON_HEADERS,
+    ...RATE_HEADERS,
+    "Retry-After": { description: "Seconds to wait before retrying.", schema: { type: "integer" as const } },
+  })) {
     headerRefs[name] = { $ref: `#/components/headers/${registry.registerComponent("headers", name, spec).name}` };
   }
   const pick = (names: string[]) => Object.fromEntries(names.map((n) => [n, headerRefs[n]]));
@@ -104,7 +128,13 @@ export function buildOpenApi(operations: Operation[], extra?: (registry: OpenAPI
   for (const [status, name] of Object.entries(ERROR_NAMES)) {
     registry.registerComponent("responses", name, {
       description: ERROR_TEXT[Number(status)],
-      headers: pick(Number(status) === 429 ? ["X-Request-Id", "RateLimit-Policy", "RateLimit", "Retry-After"] : Number(status) === 503 ? ["X-Request-Id", "Retry-After"] : ["X-Request-Id"]),
+      headers: pick(
+        Number(status) === 429
+          ? ["X-Request-Id", "RateLimit-Policy", "RateLimit", "Retry-After"]
+          : Number(status) === 503
+            ? ["X-Request-Id", "Retry-After"]
+            : ["X-Request-Id"],
+      ),
       content: { "application/problem+json": { schema: { $ref: "#/components/schemas/Problem" } } },
     });
     errorRef[Number(status)] = { $ref: `#/components/responses/${name}` };
@@ -120,7 +150,9 @@ export function buildOpenApi(operations: Operation[], extra?: (registry: OpenAPI
       summary: type,
       description: `${EVENT_TYPE_WORDS[type]}\n\nSent to every enabled endpoint that chose this type (or every type), signed per Standard Webhooks: \`webhook-id\` (the event's id, the same on every retry: de-duplicate on it), \`webhook-timestamp\` and \`webhook-signature\` (HMAC-SHA256 with the endpoint's \`whsec_\` secret). Answer any 2xx within 15 s; anything else is retried for about a day, and 410 Gone stops deliveries to the endpoint.`,
       tags: ["Webhooks"],
-      request: { body: { content: { "application/json": { schema: WEBHOOK_ENVELOPES[type], example: exampleWebhook(type) } } } },
+      request: {
+        body: { content: { "application/json": { schema: WEBHOOK_ENVELOPES[type], example: exampleWebhook(type) } } },
+      },
       responses: { 200: { description: "Any 2xx answer acknowledges the delivery." } },
     } as RouteConfig);
   }
@@ -139,15 +171,20 @@ export function buildOpenApi(operations: Operation[], extra?: (registry: OpenAPI
     const requestHeaders = [];
     if (op.method === "post" && op.scope) {
       requestHeaders.push({
-        name: "Idempotency-Key", in: "header" as const, required: false,
+        name: "Idempotency-Key",
+        in: "header" as const,
+        required: false,
         description: "Makes a retry safe: the same key and body within 24 h return the first response.",
         schema: { type: "string" as const, maxLength: 255 },
       });
     }
-    for (const header of op.requestHeaders ?? []) requestHeaders.push({ ...header, in: "header" as const, required: false });
+    for (const header of op.requestHeaders ?? [])
+      requestHeaders.push({ ...header, in: "header" as const, required: false });
     if (op.ifMatch) {
       requestHeaders.push({
-        name: "If-Match", in: "header" as const, required: true,
+        name: "If-Match",
+        in: "header" as const,
+        required: true,
         description: "The ETag of the revision you read; a stale one answers 412.",
         schema: { type: "string" as const },
       });
@@ -176,15 +213,25 @@ export function buildOpenApi(operations: Operation[], extra?: (registry: OpenAPI
     info: {
       title: "Shearwire API",
       version: VERSION,
-      description:
-        QUICKSTART,
+      description: QUICKSTART,
     },
     servers: [{ url: "/", description: "This server" }],
     tags: [
       { name: "Programs", description: "Cut programs: create, check, release, cancel." },
-      { name: "Plans", description: "From order lines to cut programs: blanks planned onto the stock on hand in patterns the shear can cut, then written as draft programs." },
-      { name: "Gateway", description: "For the gateway beside each shear: claim released programs under a lease, report the run." },
-      { name: "Webhooks", description: "Endpoints that hear about every change, signed per Standard Webhooks; the events and each delivery attempt." },
+      {
+        name: "Plans",
+        description:
+          "From order lines to cut programs: blanks planned onto the stock on hand in patterns the shear can cut, then written as draft programs.",
+      },
+      {
+        name: "Gateway",
+        description: "For the gateway beside each shear: claim released programs under a lease, report the run.",
+      },
+      {
+        name: "Webhooks",
+        description:
+          "Endpoints that hear about every change, signed per Standard Webhooks; the events and each delivery attempt.",
+      },
       { name: "Catalog", description: "Shears, grades, gauges and setup recommendations." },
       { name: "Meta", description: "Health, the OpenAPI document and the JSON Schema." },
     ],

@@ -4,7 +4,7 @@
  * the document is generated from the same list, so the two cannot drift apart.
  */
 import type { z } from "zod";
-import type { Scope } from "../../entities/ApiKey";
+import type { Scope } from "../../lib/schemas/enums";
 
 export type Method = "get" | "post" | "patch" | "put" | "delete";
 
@@ -16,7 +16,11 @@ export interface ResponseSpec {
   headers?: Record<string, { description: string; schema: { type: "string" | "integer" } }>;
 }
 
-export interface Operation<P extends ZObject | undefined = ZObject | undefined, Q extends ZObject | undefined = ZObject | undefined, B extends z.ZodType | undefined = z.ZodType | undefined> {
+export interface Operation<
+  P extends ZObject | undefined = ZObject | undefined,
+  Q extends ZObject | undefined = ZObject | undefined,
+  B extends z.ZodType | undefined = z.ZodType | undefined,
+> {
   operationId: string;
   method: Method;
   /** the OpenAPI path under /api/v1, e.g. "/programs/{id}" */
@@ -41,8 +45,10 @@ export interface Operation<P extends ZObject | undefined = ZObject | undefined, 
 
 export type Infer<T> = T extends z.ZodType ? z.infer<T> : undefined;
 
-export function defineOperation<P extends ZObject | undefined = undefined, Q extends ZObject | undefined = undefined, B extends z.ZodType | undefined = undefined>(
-  op: Operation<P, Q, B>,
-): Operation<P, Q, B> {
+export function defineOperation<
+  P extends ZObject | undefined = undefined,
+  Q extends ZObject | undefined = undefined,
+  B extends z.ZodType | undefined = undefined,
+>(op: Operation<P, Q, B>): Operation<P, Q, B> {
   return op;
 }

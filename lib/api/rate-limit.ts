@@ -4,7 +4,7 @@
  */
 import { RateLimiterRedis, RateLimiterRes } from "rate-limiter-flexible";
 import { getRedis } from "../redis";
-import { tooManyRequests } from "./errors";
+import { tooManyRequests } from "../errors";
 
 const POLICY = "per-key";
 const holder = globalThis as unknown as { __shearwireLimiters?: Map<number, RateLimiterRedis> };

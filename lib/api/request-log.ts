@@ -34,7 +34,11 @@ export const LOGGED_TEXT_MAX = 1000;
 const cut = (text: string) => (text.length > LOGGED_TEXT_MAX ? `${text.slice(0, LOGGED_TEXT_MAX - 1)}…` : text);
 
 export function logRequest(row: RequestLogRow) {
-  state.rows.push({ ...row, path: cut(row.path), idempotencyKey: row.idempotencyKey === null ? null : cut(row.idempotencyKey) });
+  state.rows.push({
+    ...row,
+    path: cut(row.path),
+    idempotencyKey: row.idempotencyKey === null ? null : cut(row.idempotencyKey),
+  });
   if (!state.hooked) {
     state.hooked = true;
     process.once("beforeExit", () => void flushRequestLog());
@@ -68,10 +72,13 @@ export function flushRequestLog(): Promise<void> {
         // One bad row must not cost the others: write them one at a time, losing only what fails alone.
         let lost = 0;
         for (const row of rows) {
-          await orm.em.fork().insert(RequestLog, row).catch((rowErr) => {
-            lost += 1;
-            console.error(`[api] could not write request-log row ${row.id}:`, rowErr);
-          });
+          await orm.em
+            .fork()
+            .insert(RequestLog, row)
+            .catch((rowErr) => {
+              lost += 1;
+              console.error(`[api] could not write request-log row ${row.id}:`, rowErr);
+            });
         }
         if (lost) console.error(`[api] ${lost} of ${rows.length} request-log rows could not be written`);
       }

@@ -14,9 +14,15 @@ import { authenticate, type Principal } from "../services/keys";
 import { SECURITY_HEADERS } from "../security-headers";
 import { findUnsafeText } from "../text";
 import {
-  ApiError, badRequest, forbidden, internalError, invalidRequest, payloadTooLarge, unsupportedMediaType,
-} from "./errors";
-import * as idempotency from "./idempotency";
+  ApiError,
+  badRequest,
+  forbidden,
+  internalError,
+  invalidRequest,
+  payloadTooLarge,
+  unsupportedMediaType,
+} from "../errors";
+import * as idempotency from "../services/idempotency";
 import type { Infer, Operation } from "./operation";
 import { consume } from "./rate-limit";
 import { logRequest } from "./request-log";
@@ -62,17 +68,26 @@ function refuseUnsafeText(value: unknown, location: Exclude<Location, "header">)
   const bad = findUnsafeText(value);
   if (bad) {
     const where = bad.pointer || "(root)";
-    throw invalidRequest(`The ${location} ${where} ${bad.message}.`, [{ location, pointer: bad.pointer, message: bad.message }]);
+    throw invalidRequest(`The ${location} ${where} ${bad.message}.`, [
+      { location, pointer: bad.pointer, message: bad.message },
+    ]);
   }
 }
 
-function parse<T extends z.ZodType | undefined>(schema: T | undefined, value: unknown, location: "body" | "query" | "path"): Infer<T> {
+function parse<T extends z.ZodType | undefined>(
+  schema: T | undefined,
+  value: unknown,
+  location: "body" | "query" | "path",
+): Infer<T> {
   if (!schema) return undefined as Infer<T>;
   refuseUnsafeText(value, location);
   const result = schema.safeParse(value);
   if (!result.success) {
     const errors = zodErrors(location, result.error);
-    throw invalidRequest(`The ${location} has ${plural(errors.length, "problem")}: ${errors.map((e) => `${e.pointer || "(root)"} ${e.message}`).join("; ")}.`, errors);
+    throw invalidRequest(
+      `The ${location} has ${plural(errors.length, "problem")}: ${errors.map((e) => `${e.pointer || "(root)"} ${e.message}`).join("; ")}.`,
+      errors,
+    );
   }
   return result.data as Infer<T>;
 }
@@ -147,10 +162,18 @@ async function timed<T>(call: Call, name: string, work: () => Promise<T>): Promi
 async function authorise(call: Call, op: Operation, request: Request) {
   if (!op.scope) return;
   const em = (call.em = await requestEm());
-  const principal = (call.principal = await timed(call, "auth", () => authenticate(em, request.headers.get("authorization"))));
-  Object.assign(call.headers, await timed(call, "ratelimit", () => consume(principal.keyId, principal.rateLimitPerMin)));
+  const principal = (call.principal = await timed(call, "auth", () =>
+    authenticate(em, request.headers.get("authorization")),
+  ));
+  Object.assign(
+    call.headers,
+    await timed(call, "ratelimit", () => consume(principal.keyId, principal.rateLimitPerMin)),
+  );
   if (!principal.scopes.includes(op.scope)) {
-    throw forbidden(`This operation needs the \`${op.scope}\` scope; the key has ${principal.scopes.map((s) => `\`${s}\``).join(", ") || "none"}.`, { requiredScope: op.scope });
+    throw forbidden(
+      `This operation needs the \`${op.scope}\` scope; the key has ${principal.scopes.map((s) => `\`${s}\``).join(", ") || "none"}.`,
+      { requiredScope: op.scope },
+    );
   }
 }
 
@@ -176,14 +199,26 @@ async function readInput<P, Q, B>(op: Operation, request: Request, context: Rout
 }
 
 /** Step 3: reserve the Idempotency-Key, or answer with the response stored for it. */
-async function reserveIdempotency(call: Call, op: Operation, request: Request, rawBody: string): Promise<Response | null> {
+async function reserveIdempotency(
+  call: Call,
+  op: Operation,
+  request: Request,
+  rawBody: string,
+): Promise<Response | null> {
   if (op.method !== "post" || !call.principal) return null;
   const key = request.headers.get("idempotency-key");
   if (key === null) return null;
   call.idempotencyKey = key;
   idempotency.checkKeyFormat(key);
   const path = call.url.pathname;
-  const claim = await idempotency.claim(call.em!, call.principal.keyId, key, call.method, path, idempotency.fingerprint(call.method, path, rawBody));
+  const claim = await idempotency.claim(
+    call.em!,
+    call.principal.keyId,
+    key,
+    call.method,
+    path,
+    idempotency.fingerprint(call.method, path, rawBody),
+  );
   if (claim.kind === "replay") {
     const r = claim.response;
     return json(r.status, r.body, { ...r.headers, ...call.headers, "Idempotent-Replayed": "true" }, r.status >= 400);
@@ -198,7 +233,11 @@ async function respond(call: Call, reply: Reply): Promise<Response> {
   call.headers["Server-Timing"] = call.timing.join(", ");
   const response = json(status, reply.body, { ...(reply.headers ?? {}), ...call.headers });
   if (call.reserved) {
-    await idempotency.complete(call.em!, call.principal!.keyId, call.idempotencyKey!, { status, body: reply.body ?? null, headers: reply.headers ?? {} });
+    await idempotency.complete(call.em!, call.principal!.keyId, call.idempotencyKey!, {
+      status,
+      body: reply.body ?? null,
+      headers: reply.headers ?? {},
+    });
   }
   return response;
 }
@@ -212,7 +251,14 @@ async function respondWithProblem(call: Call, err: unknown): Promise<Response> {
   if (call.reserved) {
     const { keyId } = call.principal!;
     if (apiError.status >= 500) await idempotency.release(call.em!, keyId, call.idempotencyKey!).catch(() => undefined);
-    else await idempotency.complete(call.em!, keyId, call.idempotencyKey!, { status: apiError.status, body: problem, headers: apiError.headers }).catch(() => undefined);
+    else
+      await idempotency
+        .complete(call.em!, keyId, call.idempotencyKey!, {
+          status: apiError.status,
+          body: problem,
+          headers: apiError.headers,
+        })
+        .catch(() => undefined);
   }
   return json(apiError.status, problem, { ...apiError.headers, ...call.headers }, true);
 }
@@ -235,17 +281,26 @@ function log(call: Call, status: number) {
   });
 }
 
-export function route<P extends z.ZodObject<z.ZodRawShape> | undefined, Q extends z.ZodObject<z.ZodRawShape> | undefined, B extends z.ZodType | undefined>(
-  op: Operation<P, Q, B>,
-  handler: (ctx: HandlerContext<Infer<P>, Infer<Q>, Infer<B>>) => Promise<Reply>,
-) {
+export function route<
+  P extends z.ZodObject<z.ZodRawShape> | undefined,
+  Q extends z.ZodObject<z.ZodRawShape> | undefined,
+  B extends z.ZodType | undefined,
+>(op: Operation<P, Q, B>, handler: (ctx: HandlerContext<Infer<P>, Infer<Q>, Infer<B>>) => Promise<Reply>) {
   const routeTemplate = `${API_PREFIX}${op.path}`;
   const method = op.method.toUpperCase();
 
   return async function handle(request: Request, context: RouteContext): Promise<Response> {
     const call: Call = {
-      started: performance.now(), requestId: newId("request"), url: new URL(request.url), method, routeTemplate,
-      headers: {}, timing: [], idempotencyKey: null, reserved: false, errorType: null,
+      started: performance.now(),
+      requestId: newId("request"),
+      url: new URL(request.url),
+      method,
+      routeTemplate,
+      headers: {},
+      timing: [],
+      idempotencyKey: null,
+      reserved: false,
+      errorType: null,
     };
     call.headers = { ...SECURITY_HEADERS, "X-Request-Id": call.requestId, "Cache-Control": "no-store" };
     let response: Response | undefined;
@@ -257,8 +312,14 @@ export function route<P extends z.ZodObject<z.ZodRawShape> | undefined, Q extend
         const handlerStarted = performance.now();
         const reply = await handler({
           // public operations (no scope) get no entity manager; they open what they need themselves
-          em: call.em as EntityManager, principal: call.principal!, params: input.params, query: input.query, body: input.body,
-          request, requestId: call.requestId, ifMatch: request.headers.get("if-match"),
+          em: call.em as EntityManager,
+          principal: call.principal!,
+          params: input.params,
+          query: input.query,
+          body: input.body,
+          request,
+          requestId: call.requestId,
+          ifMatch: request.headers.get("if-match"),
         });
         call.timing.push(`handler;dur=${(performance.now() - handlerStarted).toFixed(1)}`);
         response = await respond(call, reply);

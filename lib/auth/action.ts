@@ -7,7 +7,7 @@
  * reference that is logged with the error. Never a database message, never a secret.
  */
 import { createSafeActionClient } from "next-safe-action";
-import { ApiError } from "../api/errors";
+import { ApiError } from "../errors";
 import { requestEm } from "../db/orm";
 import { newId } from "../ids";
 import { findUnsafeText } from "../text";
@@ -31,18 +31,23 @@ function fieldErrorsOf(error: ApiError): Record<string, string> | undefined {
 }
 
 export function problemOf(error: unknown): ActionProblem {
-  if (error instanceof ApiError && error.status < 500) return { message: error.message, fieldErrors: fieldErrorsOf(error) };
+  if (error instanceof ApiError && error.status < 500)
+    return { message: error.message, fieldErrors: fieldErrorsOf(error) };
   if (error instanceof NotAllowedError) return { message: error.message };
   const reference = newId("request");
   console.error(`[console] ${reference}:`, error);
-  return { message: `Something went wrong on our side and nothing was changed by it. Quote ${reference} if you ask for help.`, reference };
+  return {
+    message: `Something went wrong on our side and nothing was changed by it. Quote ${reference} if you ask for help.`,
+    reference,
+  };
 }
 
 /** Form fields (and any plain object) as values the text rule can walk; a file counts by its name. */
 function valuesOf(input: unknown): unknown {
   if (typeof FormData !== "undefined" && input instanceof FormData) {
     const values: Record<string, string[]> = {};
-    for (const [name, value] of input.entries()) (values[name] ??= []).push(typeof value === "string" ? value : value.name);
+    for (const [name, value] of input.entries())
+      (values[name] ??= []).push(typeof value === "string" ? value : value.name);
     return Object.fromEntries(Object.entries(values).map(([name, list]) => [name, list.length === 1 ? list[0] : list]));
   }
   return input;

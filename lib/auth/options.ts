@@ -32,7 +32,12 @@ export const authOptions: NextAuthOptions = {
         const password = typeof credentials?.password === "string" ? credentials.password : "";
         if (!email || !password) return null;
         try {
-          return await verifySignIn(await requestEm(), email, password, clientAddress(request?.headers as Record<string, string>));
+          return await verifySignIn(
+            await requestEm(),
+            email,
+            password,
+            clientAddress(request?.headers as Record<string, string>),
+          );
         } catch (err) {
           // The message reaches the sign-in form, which shows it as is.
           if (err instanceof SignInThrottled) throw new Error(err.message);

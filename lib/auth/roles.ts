@@ -1,5 +1,5 @@
 /** What each role in a shop may do in the console. Checked on the server for every page and action. */
-import type { Role } from "../../entities/Membership";
+import type { Role } from "../../lib/schemas/enums";
 
 export const ROLE_RANK: Record<Role, number> = { viewer: 0, developer: 1, admin: 2, owner: 3 };
 

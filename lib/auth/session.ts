@@ -7,11 +7,10 @@ import { getServerSession } from "next-auth";
 import { cookies } from "next/headers";
 import { redirect } from "next/navigation";
 import { Membership } from "../../entities";
-import type { Role } from "../../entities/Membership";
+import type { Role } from "../../lib/schemas/enums";
 import { requestEm } from "../db/orm";
 import { sessionActive } from "../services/sessions";
 import { authOptions } from "./options";
-import { can, type Permission } from "./roles";
 
 export const SHOP_COOKIE = "sw_shop";
 
@@ -34,19 +33,21 @@ export async function currentMember(): Promise<Member> {
   if (!userId || !sid) redirect("/signin");
   const em = await requestEm();
   if (!(await sessionActive(em, sid, userId))) redirect("/signin?error=session-ended");
-  const memberships = await em.find(Membership, { user: userId }, { populate: ["shop", "user"], orderBy: { createdAt: "asc" } });
+  const memberships = await em.find(
+    Membership,
+    { user: userId },
+    { populate: ["shop", "user"], orderBy: { createdAt: "asc" } },
+  );
   if (!memberships.length) redirect("/signin?error=no-shop");
   const wanted = (await cookies()).get(SHOP_COOKIE)?.value;
   const active = memberships.find((m) => m.shop.id === wanted) ?? memberships[0];
   return {
-    userId, name: active.user.name, email: active.user.email, shopId: active.shop.id, shopName: active.shop.name, role: active.role,
+    userId,
+    name: active.user.name,
+    email: active.user.email,
+    shopId: active.shop.id,
+    shopName: active.shop.name,
+    role: active.role,
     shops: memberships.map((m) => ({ id: m.shop.id, name: m.shop.name, role: m.role })),
   };
-}
-
-/** The current member if they may do this; otherwise throws (the caller shows "not allowed"). */
-export async function requirePermission(permission: Permission): Promise<Member> {
-  const member = await currentMember();
-  if (!can(member.role, permission)) throw new NotAllowedError(`Your role (${member.role}) may not do this.`);
-  return member;
 }

@@ -59,15 +59,20 @@ async function listening(channel: string): Promise<void> {
  * Resolve true when `channel` is notified with `payload`, or false after `timeoutMs` (or when
  * `signal` aborts). Never throws: without a listening connection it simply waits out the time.
  */
-export async function waitForNotification(channel: string, payload: string, timeoutMs: number, signal?: AbortSignal): Promise<boolean> {
+export async function waitForNotification(
+  channel: string,
+  payload: string,
+  timeoutMs: number,
+  signal?: AbortSignal,
+): Promise<boolean> {
   if (!/^[a-z_]+$/.test(channel)) throw new Error(`bad channel name ${channel}`);
   const key = keyOf(channel, payload);
   return new Promise<boolean>((resolve) => {
     const waiters = state.waiters.get(key) ?? new Set<Waiter>();
     state.waiters.set(key, waiters);
-    let timer: NodeJS.Timeout | undefined;
+    const timers: { limit?: NodeJS.Timeout } = {};
     const finish = (notified: boolean) => {
-      clearTimeout(timer);
+      clearTimeout(timers.limit);
       signal?.removeEventListener("abort", onAbort);
       waiters.delete(waiter);
       if (!waiters.size) state.waiters.delete(key);
@@ -76,7 +81,7 @@ export async function waitForNotification(channel: string, payload: string, time
     const waiter = () => finish(true);
     const onAbort = () => finish(false);
     waiters.add(waiter);
-    timer = setTimeout(() => finish(false), timeoutMs);
+    timers.limit = setTimeout(() => finish(false), timeoutMs);
     signal?.addEventListener("abort", onAbort, { once: true });
     listening(channel).catch(() => undefined);
   });

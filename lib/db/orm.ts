@@ -19,9 +19,3 @@ export function getOrm(): Promise<MikroORM> {
 export async function requestEm(): Promise<EntityManager> {
   return (await getOrm()).em.fork();
 }
-
-export async function closeOrm() {
-  const orm = await state.orm;
-  state.orm = undefined;
-  await orm?.close(true);
-}

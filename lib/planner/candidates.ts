@@ -7,10 +7,23 @@
 import { REMNANT_TOLERANCE_MM } from "../shear/flow";
 import { isReusable, present, variantsOf, type Presentation } from "./presentation";
 import { writePattern, type PlacedStrip, type PlanCut, type StripIn } from "./program";
-import { STROKES_UTILISATION_SLACK, type Blank, type Objective, type Offcut, type PlanOptions, type SheetPattern, type Stock } from "./types";
+import {
+  STROKES_UTILISATION_SLACK,
+  type Blank,
+  type Objective,
+  type Offcut,
+  type PlanOptions,
+  type SheetPattern,
+  type Stock,
+} from "./types";
 
 /** Options with their defaults filled in. */
-export type SetupOptions = PlanOptions & { objective: Objective; trim: number; overProductionPct: number; mmPerUnit: number };
+export type SetupOptions = PlanOptions & {
+  objective: Objective;
+  trim: number;
+  overProductionPct: number;
+  mmPerUnit: number;
+};
 
 /** What every part of one plan shares: the blanks, the options, and how each sheet meets the blade. */
 export interface PlanSetup {
@@ -29,7 +42,11 @@ export function planSetup(stock: Stock[], blanks: Blank[], options: PlanOptions)
   const filled: SetupOptions = { objective: "fewest_sheets", trim: 0, overProductionPct: 0, mmPerUnit: 1, ...options };
   const { presentations, unusable } = present(stock, variantsOf(blanks), filled);
   return {
-    stock, blanks, options: filled, presentations, unusable,
+    stock,
+    blanks,
+    options: filled,
+    presentations,
+    unusable,
     tolerance: REMNANT_TOLERANCE_MM / filled.mmPerUnit,
     gauge: { min: filled.limits?.backgaugeMin ?? 0, max: filled.limits?.backgaugeMax ?? Infinity },
   };
@@ -55,7 +72,12 @@ export interface Candidate {
  * (two pieces that the shear cannot tell apart, say), pieces are given up from the end until the
  * program makes exactly what it shows. Null when nothing is left that `useful` says is wanted.
  */
-export function writeCandidate(setup: PlanSetup, way: Presentation, first: StripIn[], useful: (blank: number) => boolean): Candidate | null {
+export function writeCandidate(
+  setup: PlanSetup,
+  way: Presentation,
+  first: StripIn[],
+  useful: (blank: number) => boolean,
+): Candidate | null {
   const { options, gauge } = setup;
   const servesDemand = (strips: StripIn[]) => strips.some((strip) => strip.pieces.some((piece) => useful(piece.blank)));
   let strips = first;
@@ -64,11 +86,17 @@ export function writeCandidate(setup: PlanSetup, way: Presentation, first: Strip
   let written = writePattern(sheet, options.trim, strips, options.mmPerUnit, gauge, options.show);
   while (!written && strips.length) {
     const last = strips[strips.length - 1];
-    strips = last.pieces.length > 1 ? [...strips.slice(0, -1), { ...last, pieces: last.pieces.slice(0, -1) }] : strips.slice(0, -1);
+    strips =
+      last.pieces.length > 1
+        ? [...strips.slice(0, -1), { ...last, pieces: last.pieces.slice(0, -1) }]
+        : strips.slice(0, -1);
     if (strips.length) written = writePattern(sheet, options.trim, strips, options.mmPerUnit, gauge, options.show);
   }
   if (!written || !servesDemand(strips)) return null;
-  const offcuts = written.leftovers.map((leftover) => ({ ...leftover, reusable: leftover.kind !== "trim" && isReusable(leftover, options.reusable) }));
+  const offcuts = written.leftovers.map((leftover) => ({
+    ...leftover,
+    reusable: leftover.kind !== "trim" && isReusable(leftover, options.reusable),
+  }));
   const uses = new Map<number, number>();
   let blanksArea = 0;
   let pieces = 0;
@@ -79,13 +107,27 @@ export function writeCandidate(setup: PlanSetup, way: Presentation, first: Strip
       pieces += 1;
     }
   }
-  const reusableArea = offcuts.filter((offcut) => offcut.reusable).reduce((sum, offcut) => sum + offcut.length * offcut.width, 0);
-  return { way, strips: written.strips, offcuts, cuts: written.cuts, strokes: written.strokes, turns: written.turns, blanksArea, reusableArea, pieces, uses };
+  const reusableArea = offcuts
+    .filter((offcut) => offcut.reusable)
+    .reduce((sum, offcut) => sum + offcut.length * offcut.width, 0);
+  return {
+    way,
+    strips: written.strips,
+    offcuts,
+    cuts: written.cuts,
+    strokes: written.strokes,
+    turns: written.turns,
+    blanksArea,
+    reusableArea,
+    pieces,
+    uses,
+  };
 }
 
 /** Share of the sheet the objective counts as used: blanks, plus kept offcuts when they count as stock. */
 export const candidateFill = (candidate: Candidate, options: PlanOptions) =>
-  (candidate.blanksArea + (options.offcutsAsStock ? candidate.reusableArea : 0)) / (candidate.way.length * candidate.way.width);
+  (candidate.blanksArea + (options.offcutsAsStock ? candidate.reusableArea : 0)) /
+  (candidate.way.length * candidate.way.width);
 
 /** The objective's pick among candidate patterns for the next sheets. */
 export function choose(candidates: Candidate[], options: PlanOptions): Candidate {
@@ -104,7 +146,9 @@ export function choose(candidates: Candidate[], options: PlanOptions): Candidate
       const work = (candidate: Candidate) => (candidate.strokes + candidate.turns) / candidate.pieces;
       return near.reduce((kept, candidate) => {
         const difference = work(candidate) - work(kept);
-        return difference < -1e-12 || (Math.abs(difference) <= 1e-12 && fill(candidate) > fill(kept)) ? candidate : kept;
+        return difference < -1e-12 || (Math.abs(difference) <= 1e-12 && fill(candidate) > fill(kept))
+          ? candidate
+          : kept;
       });
     }
     default:
@@ -124,7 +168,14 @@ export function toSheetPattern(candidate: Candidate, repeats: number): SheetPatt
     strips: candidate.strips.map((strip) => ({
       y: strip.y,
       width: strip.width,
-      pieces: strip.pieces.map((piece) => ({ blank: piece.blank, x: piece.x, y: piece.y, length: piece.length, width: piece.width, turned: piece.turned })),
+      pieces: strip.pieces.map((piece) => ({
+        blank: piece.blank,
+        x: piece.x,
+        y: piece.y,
+        length: piece.length,
+        width: piece.width,
+        turned: piece.turned,
+      })),
     })),
     offcuts: candidate.offcuts,
     cuts: candidate.cuts,

@@ -26,7 +26,10 @@ export class PricingMemory {
   /** piece counts per blank of each relaxed pattern (the LP's columns), sparse */
   private readonly patterns: { blanks: number[]; counts: number[] }[] = [];
 
-  constructor(readonly solver: LpSolver, private readonly blankCount: number) {
+  constructor(
+    readonly solver: LpSolver,
+    private readonly blankCount: number,
+  ) {
     this.multipliers = new Float64Array(blankCount);
   }
 
@@ -37,7 +40,8 @@ export class PricingMemory {
       this.model = solver.createModel();
       this.model.options.set({ output_flag: false, presolve: "off", solver: "simplex" });
       const none = { indices: [], values: [] };
-      for (let blank = 0; blank <= this.blankCount; blank++) this.model.addRow(-solver.infinity, blank < this.blankCount ? caps[blank] : 1, none);
+      for (let blank = 0; blank <= this.blankCount; blank++)
+        this.model.addRow(-solver.infinity, blank < this.blankCount ? caps[blank] : 1, none);
     }
     const model = this.model;
     const blanks: number[] = [];
@@ -48,7 +52,8 @@ export class PricingMemory {
         counts.push(count);
       }
     });
-    if (this.patterns.length >= KEPT_PATTERNS) { // forget the oldest half: they were priced at other multipliers
+    if (this.patterns.length >= KEPT_PATTERNS) {
+      // forget the oldest half: they were priced at other multipliers
       const forget = this.patterns.length - KEPT_PATTERNS / 2;
       model.deleteCols({ kind: "range", from: 0, to: forget - 1 });
       this.patterns.splice(0, forget);
@@ -56,13 +61,21 @@ export class PricingMemory {
     this.patterns.push({ blanks, counts });
     model.addCol(0, 0, solver.infinity, { indices: [...blanks, this.blankCount], values: [...counts, 1] });
     // Prices and caps change between rounds: every column's worth and every row's cap are set afresh.
-    model.changeRowsBounds({ kind: "range", from: 0, to: this.blankCount - 1 }, new Float64Array(this.blankCount).fill(-solver.infinity), Float64Array.from(caps));
-    const costs = this.patterns.map((pattern) => -pattern.blanks.reduce((sum, blank, index) => sum + Math.max(0, prices[blank]) * pattern.counts[index], 0));
+    model.changeRowsBounds(
+      { kind: "range", from: 0, to: this.blankCount - 1 },
+      new Float64Array(this.blankCount).fill(-solver.infinity),
+      Float64Array.from(caps),
+    );
+    const costs = this.patterns.map(
+      (pattern) =>
+        -pattern.blanks.reduce((sum, blank, index) => sum + Math.max(0, prices[blank]) * pattern.counts[index], 0),
+    );
     model.changeColsCost({ kind: "range", from: 0, to: this.patterns.length - 1 }, Float64Array.from(costs));
     const run = model.run();
     if (run.modelStatus !== solver.constants.modelStatus.optimal) return null;
     const duals = model.getSolution().rowDual;
-    for (let blank = 0; blank < this.blankCount; blank++) this.multipliers[blank] = prices[blank] > 0 ? Math.max(0, -duals[blank]) : 0;
+    for (let blank = 0; blank < this.blankCount; blank++)
+      this.multipliers[blank] = prices[blank] > 0 ? Math.max(0, -duals[blank]) : 0;
     return -model.getObjectiveValue();
   }
 

@@ -7,17 +7,38 @@ import { quantities } from "./summary";
 import type { PlanBody } from "./summary";
 import { STROKES_UTILISATION_SLACK, type SheetPattern } from "./types";
 
-const stockArea = (plan: PlanBody) => plan.patterns.reduce((sum, pattern) => sum + pattern.length * pattern.width * pattern.repeats, 0);
+const stockArea = (plan: PlanBody) =>
+  plan.patterns.reduce((sum, pattern) => sum + pattern.length * pattern.width * pattern.repeats, 0);
 
 /** Blank area placed, counting no piece beyond the quantity asked. */
 export function placedArea(setup: PlanSetup, produced: number[]): number {
   const quantity = quantities(setup);
-  return setup.blanks.reduce((sum, blank, index) => sum + blank.length * blank.width * Math.min(produced[index], quantity[index]), 0);
+  return setup.blanks.reduce(
+    (sum, blank, index) => sum + blank.length * blank.width * Math.min(produced[index], quantity[index]),
+    0,
+  );
 }
 
-const blankArea = (plan: PlanBody) => plan.patterns.reduce((sum, pattern) => sum + pattern.repeats * pattern.strips.reduce((strips, strip) => strips + strip.pieces.reduce((pieces, piece) => pieces + piece.length * piece.width, 0), 0), 0);
+const blankArea = (plan: PlanBody) =>
+  plan.patterns.reduce(
+    (sum, pattern) =>
+      sum +
+      pattern.repeats *
+        pattern.strips.reduce(
+          (strips, strip) => strips + strip.pieces.reduce((pieces, piece) => pieces + piece.length * piece.width, 0),
+          0,
+        ),
+    0,
+  );
 
-const reusableArea = (patterns: SheetPattern[]) => patterns.reduce((sum, pattern) => sum + pattern.repeats * pattern.offcuts.reduce((offcuts, offcut) => offcuts + (offcut.reusable ? offcut.length * offcut.width : 0), 0), 0);
+const reusableArea = (patterns: SheetPattern[]) =>
+  patterns.reduce(
+    (sum, pattern) =>
+      sum +
+      pattern.repeats *
+        pattern.offcuts.reduce((offcuts, offcut) => offcuts + (offcut.reusable ? offcut.length * offcut.width : 0), 0),
+    0,
+  );
 
 /**
  * True when the objective prefers `challenger` to `holder` (ties keep the holder). `fewest_sheets`:
@@ -31,8 +52,10 @@ export function prefers(setup: PlanSetup, challenger: PlanBody, holder: PlanBody
   const { objective, offcutsAsStock } = setup.options;
   const sheets = challenger.sheetsUsed - holder.sheetsUsed;
   const area = stockArea(challenger) - stockArea(holder);
-  const waste = (plan: PlanBody) => stockArea(plan) - blankArea(plan) - (offcutsAsStock ? reusableArea(plan.patterns) : 0);
-  const fill = (plan: PlanBody) => (stockArea(plan) ? (blankArea(plan) + (offcutsAsStock ? reusableArea(plan.patterns) : 0)) / stockArea(plan) : 0);
+  const waste = (plan: PlanBody) =>
+    stockArea(plan) - blankArea(plan) - (offcutsAsStock ? reusableArea(plan.patterns) : 0);
+  const fill = (plan: PlanBody) =>
+    stockArea(plan) ? (blankArea(plan) + (offcutsAsStock ? reusableArea(plan.patterns) : 0)) / stockArea(plan) : 0;
   const pieces = (plan: PlanBody) => plan.produced.reduce((sum, count) => sum + count, 0) || 1;
   const handling = (plan: PlanBody) => (plan.strokes + plan.turns) / pieces(plan);
   switch (objective) {
@@ -54,6 +77,11 @@ export function prefers(setup: PlanSetup, challenger: PlanBody, holder: PlanBody
 
 /** Sheets any plan needs for this much blank area: on the largest usable sheet on hand, no fewer. */
 export function areaBound(setup: PlanSetup, area: number): number {
-  const largest = Math.max(0, ...setup.presentations.filter((way) => setup.stock[way.stock].count !== 0).map((way) => way.length * way.usableWidth));
+  const largest = Math.max(
+    0,
+    ...setup.presentations
+      .filter((way) => setup.stock[way.stock].count !== 0)
+      .map((way) => way.length * way.usableWidth),
+  );
   return largest > 0 ? Math.ceil(area / largest) : 0;
 }

@@ -37,7 +37,11 @@ export interface Generation {
 }
 
 export const newGeneration = (setup: PlanSetup, solver: LpSolver, master: Master, budget: number): Generation => ({
-  setup, master, work: 0, budget, memories: setup.presentations.map(() => new PricingMemory(solver, setup.blanks.length)),
+  setup,
+  master,
+  work: 0,
+  budget,
+  memories: setup.presentations.map(() => new PricingMemory(solver, setup.blanks.length)),
 });
 
 export function disposeGeneration(generation: Generation): void {
@@ -111,14 +115,25 @@ export function generate(generation: Generation, residual: Residual, options: Ge
       generation.work += solution.iterations * CELLS_PER_ITERATION_ROW * rows;
     }
     const current = solution!;
-    const at: Prices = mode === "smoothed" && center ? mix(center, current, SMOOTHING) : { blankPrice: current.blankPrice, stockPrice: current.stockPrice };
+    const at: Prices =
+      mode === "smoothed" && center
+        ? mix(center, current, SMOOTHING)
+        : { blankPrice: current.blankPrice, stockPrice: current.stockPrice };
     const bestPerStock = new Map<number, number>();
     let added = 0;
     for (const [index, way] of setup.presentations.entries()) {
       const onHand = residual.onHand[way.stock];
       if (onHand !== null && onHand <= 0) continue;
       const target = 1 + at.stockPrice[way.stock];
-      const priced = priceWithCaps(way, at.blankPrice, caps, setup.tolerance, target, generation.memories[index], mode === "deep" ? options.deepSteps : options.quickSteps);
+      const priced = priceWithCaps(
+        way,
+        at.blankPrice,
+        caps,
+        setup.tolerance,
+        target,
+        generation.memories[index],
+        mode === "deep" ? options.deepSteps : options.quickSteps,
+      );
       generation.work += priced.work;
       bestPerStock.set(way.stock, Math.max(bestPerStock.get(way.stock) ?? 0, priced.bound));
       if (!(priced.value > target + LP_EPSILON)) continue; // not worth writing: it would not lower the LP
@@ -138,7 +153,15 @@ export function generate(generation: Generation, residual: Residual, options: Ge
         // would take for one another): price again leaving a little spare, which a lead-off cut takes away.
         const spare = Math.floor(setup.tolerance) + 1;
         const roomier = { ...way, length: way.length - spare, usableWidth: way.usableWidth - spare };
-        const again = priceWithCaps(roomier, at.blankPrice, caps, setup.tolerance, target, generation.memories[index], 1);
+        const again = priceWithCaps(
+          roomier,
+          at.blankPrice,
+          caps,
+          setup.tolerance,
+          target,
+          generation.memories[index],
+          1,
+        );
         generation.work += again.work;
         if (again.value > target + LP_EPSILON) offer(again.strips);
       }
@@ -154,7 +177,8 @@ export function generate(generation: Generation, residual: Residual, options: Ge
     if (wholeBound >= (options.known ?? Infinity)) return { status: "settled", solution: current, bound };
     // Tailing off: neither the LP nor the bound has moved for a while; what bound there is stands.
     const gap = current.objective - bound;
-    if (!(gap >= bestGap - TAIL_GAIN * Math.max(1, current.objective))) { // the first round counts as a gain
+    if (!(gap >= bestGap - TAIL_GAIN * Math.max(1, current.objective))) {
+      // the first round counts as a gain
       bestGap = gap;
       lastGain = round;
     } else if (round - lastGain >= TAIL_ROUNDS) return { status: "settled", solution: current, bound };
@@ -166,16 +190,26 @@ export function generate(generation: Generation, residual: Residual, options: Ge
   }
 }
 
-interface Prices { blankPrice: Float64Array; stockPrice: Float64Array }
+interface Prices {
+  blankPrice: Float64Array;
+  stockPrice: Float64Array;
+}
 
 /** Prices a share `weight` of the way from `current` to `center` (dual smoothing, after Wentges). */
 function mix(center: Prices, current: Prices, weight: number): Prices {
   const blend = (a: Float64Array, b: Float64Array) => a.map((value, index) => weight * value + (1 - weight) * b[index]);
-  return { blankPrice: blend(center.blankPrice, current.blankPrice), stockPrice: blend(center.stockPrice, current.stockPrice) };
+  return {
+    blankPrice: blend(center.blankPrice, current.blankPrice),
+    stockPrice: blend(center.stockPrice, current.stockPrice),
+  };
 }
 
 /** The Lagrangian lower bound on sheets for placing all of `residual.wanted`, at these prices. */
-export function lagrangianBound(residual: Residual, prices: ArrayLike<number>, bestPerStock: Map<number, number>): number {
+export function lagrangianBound(
+  residual: Residual,
+  prices: ArrayLike<number>,
+  bestPerStock: Map<number, number>,
+): number {
   let theta = 1;
   for (const [stock, best] of bestPerStock) {
     if (residual.onHand[stock] === null && best > 1) theta = Math.min(theta, 1 / best);

@@ -57,7 +57,8 @@ export function planGreedy(
       const sheetsLeft = left[way.stock];
       if (sheetsLeft !== null && sheetsLeft <= 0) continue;
       for (const exact of exactStrips) {
-        for (const rule of ["density", "area"] as const) consider(way, buildStrips(way, cap, rule, exact, setup.tolerance, tables));
+        for (const rule of ["density", "area"] as const)
+          consider(way, buildStrips(way, cap, rule, exact, setup.tolerance, tables));
       }
       consider(way, exactPattern(way, cap, tables));
     }
@@ -79,7 +80,12 @@ export function planGreedy(
  * How often to cut a pattern: while every blank on it stays within its cap, no more often than
  * some blank on it is still wanted, and within the sheets on hand; at least once.
  */
-export function repeatsFor(uses: Map<number, number>, cap: number[], need: number[], sheetsLeft: number | null): number {
+export function repeatsFor(
+  uses: Map<number, number>,
+  cap: number[],
+  need: number[],
+  sheetsLeft: number | null,
+): number {
   let repeats = Infinity;
   let useful = 0;
   for (const [blank, count] of uses) {

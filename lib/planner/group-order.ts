@@ -13,7 +13,12 @@
  * fill the workpiece exactly (then it is the last piece, named without a stroke). Depth-first,
  * preferring the given order; null when no order works within the search budget.
  */
-export function arrange<T extends { size: number; count: number }>(items: T[], total: number, tolerance: number, maxGauge = Infinity): T[] | null {
+export function arrange<T extends { size: number; count: number }>(
+  items: T[],
+  total: number,
+  tolerance: number,
+  maxGauge = Infinity,
+): T[] | null {
   const used = items.reduce((sum, item) => sum + item.size * item.count, 0);
   const exact = total - used <= tolerance;
   let budget = 5000;
@@ -50,9 +55,20 @@ function leads(spare: number, fixedLead: number, gauge: { min: number; max: numb
   const out = [0];
   if (spare <= tolerance) return out;
   const low = Math.max(1, gauge.min - fixedLead);
-  const candidates = [spare, Math.floor(spare / 2), Math.floor(spare / 3), spare - 1, spare - 2, Math.floor((2 * spare) / 3), low, low + 1, gauge.max - fixedLead];
+  const candidates = [
+    spare,
+    Math.floor(spare / 2),
+    Math.floor(spare / 3),
+    spare - 1,
+    spare - 2,
+    Math.floor((2 * spare) / 3),
+    low,
+    low + 1,
+    gauge.max - fixedLead,
+  ];
   for (const candidate of candidates) {
-    if (candidate >= low && candidate <= spare && fixedLead + candidate <= gauge.max && !out.includes(candidate)) out.push(candidate);
+    if (candidate >= low && candidate <= spare && fixedLead + candidate <= gauge.max && !out.includes(candidate))
+      out.push(candidate);
   }
   return out;
 }

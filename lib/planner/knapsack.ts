@@ -41,7 +41,15 @@ export function fittingFor(tables: StripTables, setKey: string, width: number, c
  * variant that fits the width, for the shared table used past the budget. `setKey` names the blanks
  * still wanted and the strip rule: with the width it fixes `open`.
  */
-export function fillStrip(length: number, width: number, open: Variant[], all: () => Variant[], cap: number[], tables: StripTables, setKey: string): Variant[] {
+export function fillStrip(
+  length: number,
+  width: number,
+  open: Variant[],
+  all: () => Variant[],
+  cap: number[],
+  tables: StripTables,
+  setKey: string,
+): Variant[] {
   if (!open.length) return [];
   if (tables.work > PLAN_WORK_LIMIT) return topUp([], length, open, cap, new Map());
   tables.work += length; // reading the table back
@@ -59,7 +67,7 @@ export function fillStrip(length: number, width: number, open: Variant[], all: (
   }
   const chosen: Variant[] = [];
   const used = new Map<number, number>();
-  for (let capacity = length; capacity > 0; ) {
+  for (let capacity = length; capacity > 0;) {
     const pickIndex = table.pick[capacity];
     if (pickIndex < 0) {
       capacity -= 1;
@@ -105,9 +113,16 @@ function knapsackPicks(length: number, items: Variant[]): Int32Array {
 }
 
 /** Fill what room is left along a strip with the largest pieces still wanted. */
-export function topUp(chosen: Variant[], length: number, items: Variant[], cap: number[], used: Map<number, number>): Variant[] {
+export function topUp(
+  chosen: Variant[],
+  length: number,
+  items: Variant[],
+  cap: number[],
+  used: Map<number, number>,
+): Variant[] {
   let room = length - chosen.reduce((sum, variant) => sum + variant.length, 0);
-  for (const item of items) { // variants are kept largest first
+  for (const item of items) {
+    // variants are kept largest first
     while (item.length <= room && (used.get(item.blank) ?? 0) < cap[item.blank]) {
       chosen.push(item);
       used.set(item.blank, (used.get(item.blank) ?? 0) + 1);

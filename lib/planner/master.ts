@@ -42,7 +42,12 @@ export class Master {
   private readonly slackColumns: number;
   private readonly keys = new Set<string>();
 
-  constructor(private readonly solver: LpSolver, private readonly blankCount: number, demand: number[], private readonly onHand: (number | null)[]) {
+  constructor(
+    private readonly solver: LpSolver,
+    private readonly blankCount: number,
+    demand: number[],
+    private readonly onHand: (number | null)[],
+  ) {
     this.model = solver.createModel();
     this.model.options.set({ output_flag: false, presolve: "off", solver: "simplex" });
     const none = { indices: [], values: [] };
@@ -56,7 +61,8 @@ export class Master {
       this.stockRow.set(stock, this.blankRow.size + this.stockRow.size);
       this.model.addRow(-solver.infinity, count, none);
     });
-    for (const row of this.blankRow.values()) this.model.addCol(UNPLACED_PRICE, 0, solver.infinity, { indices: [row], values: [1] });
+    for (const row of this.blankRow.values())
+      this.model.addCol(UNPLACED_PRICE, 0, solver.infinity, { indices: [row], values: [1] });
     this.slackColumns = this.blankRow.size;
   }
 
@@ -113,7 +119,14 @@ export class Master {
     for (const [stock, row] of this.stockRow) stockPrice[stock] = Math.max(0, -solution.rowDual[row]);
     let unplaced = 0;
     for (let column = 0; column < this.slackColumns; column++) unplaced += solution.colValue[column];
-    return { objective: this.model.getObjectiveValue(), primal: solution.colValue.slice(this.slackColumns), blankPrice, stockPrice, unplaced, iterations };
+    return {
+      objective: this.model.getObjectiveValue(),
+      primal: solution.colValue.slice(this.slackColumns),
+      blankPrice,
+      stockPrice,
+      unplaced,
+      iterations,
+    };
   }
 
   dispose(): void {
@@ -121,4 +134,8 @@ export class Master {
   }
 }
 
-const keyOf = (stock: number, uses: Map<number, number>) => `${stock}:${[...uses].sort((a, b) => a[0] - b[0]).map(([blank, count]) => `${blank}x${count}`).join(",")}`;
+const keyOf = (stock: number, uses: Map<number, number>) =>
+  `${stock}:${[...uses]
+    .sort((a, b) => a[0] - b[0])
+    .map(([blank, count]) => `${blank}x${count}`)
+    .join(",")}`;

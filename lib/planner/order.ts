@@ -7,14 +7,24 @@
  * process (cheap) and the worker thread calls `planOrder` (the CPU-heavy part).
  */
 import { checkProgram, type CheckResult, type GradeProfile, type ShearProfile } from "../shear";
-import { checkOrderLimits, MM_PER_UNIT, percent, round, type Order, type OrderBlank, type OrderStock } from "./order-limits";
+import {
+  checkOrderLimits,
+  MM_PER_UNIT,
+  percent,
+  round,
+  type Order,
+  type OrderBlank,
+  type OrderStock,
+} from "./order-limits";
 import { planBlanks, type Objective, type PlanMethod, type PlanProgress } from "./plan";
 
-export { checkOrderLimits, gridFor, OrderRefused, PLAN_LIMITS, type Order, type OrderBlank, type OrderOptions, type OrderStock, type PlanLimit } from "./order-limits";
+export { PLAN_LIMITS, type Order, type OrderBlank, type OrderStock } from "./order-limits";
 
 /** A, B … Z, AA, AB …: the key of the pattern at this index. */
 const patternKey = (index: number): string =>
-  index < 26 ? String.fromCharCode(65 + index) : `${patternKey(Math.floor(index / 26) - 1)}${String.fromCharCode(65 + (index % 26))}`;
+  index < 26
+    ? String.fromCharCode(65 + index)
+    : `${patternKey(Math.floor(index / 26) - 1)}${String.fromCharCode(65 + (index % 26))}`;
 
 export interface PlannedCut {
   backgauge: number;
@@ -35,7 +45,14 @@ export interface PlannedPattern {
   utilisationPct: number;
   /** runs: identical strips once with `repeat`, identical pieces side by side once with `count` */
   strips: PlannedStrip[];
-  offcuts: { x: number; y: number; length: number; width: number; kind: "trim" | "sheet-end" | "strip-end" | "piece-trim"; reusable: boolean }[];
+  offcuts: {
+    x: number;
+    y: number;
+    length: number;
+    width: number;
+    kind: "trim" | "sheet-end" | "strip-end" | "piece-trim";
+    reusable: boolean;
+  }[];
   strokes: number;
   turns: number;
   cuts: PlannedCut[];
@@ -71,8 +88,14 @@ export function compressStrips(strips: { y: number; height: number; pieces: Plac
     const out: PieceRun[] = [];
     for (const piece of [...pieces].sort((a, b) => a.x - b.x || a.y - b.y)) {
       const last = out[out.length - 1];
-      const follows = last && last.blank === piece.blank && last.turned === piece.turned && last.y === piece.y
-        && last.length === piece.length && last.width === piece.width && Math.abs(last.x + last.count * last.length - piece.x) < 1e-9;
+      const follows =
+        last &&
+        last.blank === piece.blank &&
+        last.turned === piece.turned &&
+        last.y === piece.y &&
+        last.length === piece.length &&
+        last.width === piece.width &&
+        Math.abs(last.x + last.count * last.length - piece.x) < 1e-9;
       if (follows) last.count += 1;
       else out.push({ ...piece, count: 1 });
     }
@@ -80,7 +103,10 @@ export function compressStrips(strips: { y: number; height: number; pieces: Plac
   };
   // Two strips are alike when their runs are, each relative to the strip's own edge.
   const shape = (strip: { y: number; height: number; pieces: PieceRun[] }) =>
-    JSON.stringify([strip.height, strip.pieces.map((r) => [r.blank, r.turned, r.x, r.y - strip.y, r.length, r.width, r.count])]);
+    JSON.stringify([
+      strip.height,
+      strip.pieces.map((r) => [r.blank, r.turned, r.x, r.y - strip.y, r.length, r.width, r.count]),
+    ]);
   const out: (PlannedStrip & { key: string })[] = [];
   for (const strip of strips) {
     const pieces = runs(strip.pieces);
@@ -92,7 +118,13 @@ export function compressStrips(strips: { y: number; height: number; pieces: Plac
   return out.map(({ key: _key, ...strip }) => strip);
 }
 
-export type PlanFindingCode = "blank_unplaceable" | "stock_short" | "over_production" | "stock_unusable" | "trim_out_of_travel" | "pattern_not_releasable";
+export type PlanFindingCode =
+  | "blank_unplaceable"
+  | "stock_short"
+  | "over_production"
+  | "stock_unusable"
+  | "trim_out_of_travel"
+  | "pattern_not_releasable";
 
 export interface PlanFinding {
   code: PlanFindingCode;
@@ -107,7 +139,13 @@ export interface PlannedOrder {
   coverage: "complete" | "partial";
   stock: (OrderStock & { count: number | null; used: number })[];
   blanks: (OrderBlank & { canTurn: boolean; planned: number; extra: number; short: number })[];
-  options: { objective: Objective; trim: number; overProductionPct: number; reusableOffcut: { length: number; width: number } | null; offcutsAsStock: boolean };
+  options: {
+    objective: Objective;
+    trim: number;
+    overProductionPct: number;
+    reusableOffcut: { length: number; width: number } | null;
+    offcutsAsStock: boolean;
+  };
   summary: {
     sheets: number;
     patterns: number;
@@ -145,7 +183,11 @@ export interface PlanContext {
  * the sheets, and each pattern's program is checked by the shear core. `onProgress` hears
  * after every sheet pattern found.
  */
-export async function planOrder(order: Order, context: PlanContext, onProgress?: (progress: PlanProgress) => void): Promise<PlannedOrder> {
+export async function planOrder(
+  order: Order,
+  context: PlanContext,
+  onProgress?: (progress: PlanProgress) => void,
+): Promise<PlannedOrder> {
   const profile = context.shear;
   const grid = checkOrderLimits(order, profile);
   const unitMm = MM_PER_UNIT[order.units];
@@ -154,11 +196,24 @@ export async function planOrder(order: Order, context: PlanContext, onProgress?:
   const options = order.options ?? {};
   const canTurn = (blank: OrderBlank) => blank.canTurn ?? true;
   const reusable = options.reusableOffcut
-    ? { length: Math.ceil(options.reusableOffcut.length * grid - 1e-9), width: Math.ceil(options.reusableOffcut.width * grid - 1e-9) }
+    ? {
+        length: Math.ceil(options.reusableOffcut.length * grid - 1e-9),
+        width: Math.ceil(options.reusableOffcut.width * grid - 1e-9),
+      }
     : null;
   const planned = await planBlanks(
-    order.stock.map((sheet) => ({ length: toGrid(sheet.length), width: toGrid(sheet.width), count: sheet.count ?? null })),
-    order.blanks.map((blank) => ({ label: blank.label, length: toGrid(blank.length), width: toGrid(blank.width), quantity: blank.quantity, canTurn: canTurn(blank) })),
+    order.stock.map((sheet) => ({
+      length: toGrid(sheet.length),
+      width: toGrid(sheet.width),
+      count: sheet.count ?? null,
+    })),
+    order.blanks.map((blank) => ({
+      label: blank.label,
+      length: toGrid(blank.length),
+      width: toGrid(blank.width),
+      quantity: blank.quantity,
+      canTurn: canTurn(blank),
+    })),
     {
       objective: options.objective ?? "fewest_sheets",
       trim: toGrid(options.trim ?? 0),
@@ -182,14 +237,22 @@ export async function planOrder(order: Order, context: PlanContext, onProgress?:
     const key = patternKey(index);
     const cuts = pattern.cuts.map((cut) => ({ ...cut, backgauge: fromGrid(cut.backgauge) }));
     const program = {
-      reference: key, shear: order.shear, grade: order.grade, thickness: order.thickness, units: order.units,
-      sheet: { length: fromGrid(pattern.length), width: fromGrid(pattern.width), count: pattern.repeats }, cuts,
+      reference: key,
+      shear: order.shear,
+      grade: order.grade,
+      thickness: order.thickness,
+      units: order.units,
+      sheet: { length: fromGrid(pattern.length), width: fromGrid(pattern.width), count: pattern.repeats },
+      cuts,
     };
     const check = checkProgram(program, context);
     estimateSeconds += check.estimate?.seconds.total ?? 0;
     if (check.validation === "fail") {
       findings.push({
-        code: "pattern_not_releasable", severity: "warning", pointer: `/patterns/${index}`, actual: null,
+        code: "pattern_not_releasable",
+        severity: "warning",
+        pointer: `/patterns/${index}`,
+        actual: null,
         message: `Pattern ${key}'s program has errors the shear core will not release (${[...new Set(check.findings.filter((finding) => finding.severity === "error").map((finding) => finding.code))].join(", ")}).`,
       });
     }
@@ -200,16 +263,28 @@ export async function planOrder(order: Order, context: PlanContext, onProgress?:
       rotated: pattern.rotated,
       repeats: pattern.repeats,
       utilisationPct: percent(pattern.utilisation),
-      strips: compressStrips(pattern.strips.map((strip) => ({
-        y: fromGrid(strip.y),
-        height: fromGrid(strip.width), // the API has called a strip's width across the sheet its height from the start
-        pieces: strip.pieces.map((piece) => ({
-          blank: piece.blank, label: order.blanks[piece.blank].label, x: fromGrid(piece.x), y: fromGrid(piece.y),
-          length: fromGrid(piece.length), width: fromGrid(piece.width), turned: piece.turned,
+      strips: compressStrips(
+        pattern.strips.map((strip) => ({
+          y: fromGrid(strip.y),
+          height: fromGrid(strip.width), // the API has called a strip's width across the sheet its height from the start
+          pieces: strip.pieces.map((piece) => ({
+            blank: piece.blank,
+            label: order.blanks[piece.blank].label,
+            x: fromGrid(piece.x),
+            y: fromGrid(piece.y),
+            length: fromGrid(piece.length),
+            width: fromGrid(piece.width),
+            turned: piece.turned,
+          })),
         })),
-      }))),
+      ),
       offcuts: pattern.offcuts.map((offcut) => ({
-        x: fromGrid(offcut.x), y: fromGrid(offcut.y), length: fromGrid(offcut.length), width: fromGrid(offcut.width), kind: offcut.kind, reusable: offcut.reusable,
+        x: fromGrid(offcut.x),
+        y: fromGrid(offcut.y),
+        length: fromGrid(offcut.length),
+        width: fromGrid(offcut.width),
+        kind: offcut.kind,
+        reusable: offcut.reusable,
       })),
       strokes: pattern.strokes,
       turns: pattern.turns,
@@ -227,16 +302,20 @@ export async function planOrder(order: Order, context: PlanContext, onProgress?:
       severity: "error",
       pointer: `/blanks/${unplaced.blank}`,
       actual: unplaced.quantity,
-      message: unplaced.kind === "unplaceable"
-        ? `"${label}": ${unplaced.quantity} not planned. ${unplaced.reason}.`
-        : `"${label}": ${unplaced.quantity} not planned: not enough stock on hand.`,
+      message:
+        unplaced.kind === "unplaceable"
+          ? `"${label}": ${unplaced.quantity} not planned. ${unplaced.reason}.`
+          : `"${label}": ${unplaced.quantity} not planned: not enough stock on hand.`,
     });
   }
   planned.extra.forEach((extra, index) => {
     if (extra <= 0) return;
     const blank = order.blanks[index];
     findings.push({
-      code: "over_production", severity: "warning", pointer: `/blanks/${index}`, actual: extra,
+      code: "over_production",
+      severity: "warning",
+      pointer: `/blanks/${index}`,
+      actual: extra,
       message: `"${blank.label}": ${extra} more than the ${blank.quantity} asked (within the ${options.overProductionPct ?? 0} % allowance).`,
     });
   });
@@ -244,14 +323,26 @@ export async function planOrder(order: Order, context: PlanContext, onProgress?:
   const travel = { min: profile.backgaugeMinMm / unitMm, max: profile.backgaugeMaxMm / unitMm };
   if (trim > 0 && (trim < travel.min - 1e-9 || trim > travel.max + 1e-9)) {
     findings.push({
-      code: "trim_out_of_travel", severity: "error", pointer: "/options/trim", actual: trim,
+      code: "trim_out_of_travel",
+      severity: "error",
+      pointer: "/options/trim",
+      actual: trim,
       message: `A trim of ${trim} ${order.units} is outside this shear's backgauge travel (${round(travel.min, 4)} to ${round(travel.max, 4)} ${order.units}): the trim cut cannot be gauged, and the programs will not release.`,
     });
   }
   for (const index of planned.unusableStock) {
     const stock = order.stock[index];
-    const why = Math.max(stock.length, stock.width) <= trim ? `is no wider than the ${trim} ${order.units} trim` : `is longer than this shear's blade both ways round`;
-    findings.push({ code: "stock_unusable", severity: "warning", pointer: `/stock/${index}`, actual: null, message: `Stock ${stock.length} × ${stock.width} ${order.units} ${why}; it was not used.` });
+    const why =
+      Math.max(stock.length, stock.width) <= trim
+        ? `is no wider than the ${trim} ${order.units} trim`
+        : `is longer than this shear's blade both ways round`;
+    findings.push({
+      code: "stock_unusable",
+      severity: "warning",
+      pointer: `/stock/${index}`,
+      actual: null,
+      message: `Stock ${stock.length} × ${stock.width} ${order.units} ${why}; it was not used.`,
+    });
   }
 
   const used = order.stock.map(() => 0);
@@ -262,7 +353,13 @@ export async function planOrder(order: Order, context: PlanContext, onProgress?:
   return {
     coverage: shortTotal > 0 ? "partial" : "complete",
     stock: order.stock.map((sheet, index) => ({ ...sheet, count: sheet.count ?? null, used: used[index] })),
-    blanks: order.blanks.map((blank, index) => ({ ...blank, canTurn: canTurn(blank), planned: planned.produced[index], extra: planned.extra[index], short: short[index] })),
+    blanks: order.blanks.map((blank, index) => ({
+      ...blank,
+      canTurn: canTurn(blank),
+      planned: planned.produced[index],
+      extra: planned.extra[index],
+      short: short[index],
+    })),
     options: {
       objective: options.objective ?? "fewest_sheets",
       trim: options.trim ?? 0,
@@ -289,7 +386,11 @@ export async function planOrder(order: Order, context: PlanContext, onProgress?:
       methodNote: planned.methodNote,
     },
     patterns,
-    reusableOffcuts: planned.reusable.map((offcut) => ({ length: fromGrid(offcut.length), width: fromGrid(offcut.width), count: offcut.count })),
+    reusableOffcuts: planned.reusable.map((offcut) => ({
+      length: fromGrid(offcut.length),
+      width: fromGrid(offcut.width),
+      count: offcut.count,
+    })),
     findings,
   };
 }

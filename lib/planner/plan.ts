@@ -26,7 +26,15 @@ import { planGreedy } from "./greedy";
 import { loadLpSolver } from "./lp-solver";
 import { planByColumnGeneration } from "./rounding";
 import { allowances, assemblePlan, placeableBlanks, quantities, type PlanBody } from "./summary";
-import { PLAN_COLUMN_GENERATION_BUDGET, type Blank, type Plan, type PlanMethod, type PlanOptions, type PlanProgress, type Stock } from "./types";
+import {
+  PLAN_COLUMN_GENERATION_BUDGET,
+  type Blank,
+  type Plan,
+  type PlanMethod,
+  type PlanOptions,
+  type PlanProgress,
+  type Stock,
+} from "./types";
 
 export * from "./types";
 
@@ -43,7 +51,8 @@ export async function planBlanks(stock: Stock[], blanks: Blank[], options: PlanO
     options.onProgress?.(progress.told);
   };
   const placesAll = (produced: number[]) => produced.every((count, index) => count >= wanted[index]);
-  const placedCount = (produced: number[]) => produced.reduce((sum, count, index) => sum + Math.min(count, wanted[index]), 0);
+  const placedCount = (produced: number[]) =>
+    produced.reduce((sum, count, index) => sum + Math.min(count, wanted[index]), 0);
 
   const greedy = planGreedy(setup, wanted, allowance, onHand);
   const greedyPlan = assemblePlan(setup, greedy.patterns, greedy.produced);
@@ -57,7 +66,9 @@ export async function planBlanks(stock: Stock[], blanks: Blank[], options: PlanO
   const proven = greedyComplete && greedyPlan.sheetsUsed <= areaBound(setup, wantedArea);
   // Fewest strokes trades sheets for handling pattern by pattern; planning all sheets together serves the other objectives.
   const together = piecesWanted > 0 && !proven && setup.options.objective !== "fewest_strokes";
-  if (together && budget <= 0) methodNote = "No work budget was given for planning all sheets together: this plan was made pattern by pattern, and may use more sheets than needed.";
+  if (together && budget <= 0)
+    methodNote =
+      "No work budget was given for planning all sheets together: this plan was made pattern by pattern, and may use more sheets than needed.";
   if (together && budget > 0) {
     const solver = options.lpSolver ?? (await loadLpSolver());
     const known = greedyComplete ? { sheets: greedyPlan.sheetsUsed, candidates: greedy.chosen } : null;
@@ -69,9 +80,11 @@ export async function planBlanks(stock: Stock[], blanks: Blank[], options: PlanO
         if (prefers(setup, generatedPlan, greedyPlan)) {
           chosen = generatedPlan;
           method = "column_generation";
-          if (generated.budgetSpent) methodNote = `The work budget ran out before the plan for all sheets together was finished; its last ${generated.plan.repairedSheets} sheets were planned pattern by pattern.`;
+          if (generated.budgetSpent)
+            methodNote = `The work budget ran out before the plan for all sheets together was finished; its last ${generated.plan.repairedSheets} sheets were planned pattern by pattern.`;
         } else if (generated.budgetSpent) {
-          methodNote = "The work budget ran out before all sheets could be planned together: this plan was made pattern by pattern, and may use more sheets than needed.";
+          methodNote =
+            "The work budget ran out before all sheets could be planned together: this plan was made pattern by pattern, and may use more sheets than needed.";
         }
       }
     }
@@ -84,12 +97,15 @@ export async function planBlanks(stock: Stock[], blanks: Blank[], options: PlanO
     for (const strip of pattern.strips) for (const piece of strip.pieces) produced[piece.blank] += pattern.repeats;
     if (!last) report(index + 1, produced);
   });
-  if (last && (last.patterns !== chosen.patterns.length || last.piecesPlaced !== placedCount(produced))) report(chosen.patterns.length, produced);
+  if (last && (last.patterns !== chosen.patterns.length || last.piecesPlaced !== placedCount(produced)))
+    report(chosen.patterns.length, produced);
   const complete = placesAll(chosen.produced);
   const area = areaBound(setup, placedArea(setup, chosen.produced));
   const lowerBound = complete ? Math.max(area, lpBound ?? 0) : area;
   return {
-    ...chosen, method, methodNote,
+    ...chosen,
+    method,
+    methodNote,
     bounds: { area, lp: complete ? lpBound : null },
     lowerBound,
     provenFewest: chosen.sheetsUsed <= lowerBound,

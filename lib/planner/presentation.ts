@@ -35,13 +35,20 @@ export function variantsOf(blanks: Blank[]): Variant[] {
   const out: Variant[] = [];
   blanks.forEach((blank, index) => {
     out.push({ blank: index, length: blank.length, width: blank.width, turned: false });
-    if (blank.canTurn && blank.length !== blank.width) out.push({ blank: index, length: blank.width, width: blank.length, turned: true });
+    if (blank.canTurn && blank.length !== blank.width)
+      out.push({ blank: index, length: blank.width, width: blank.length, turned: true });
   });
-  return out.sort((a, b) => b.length * b.width - a.length * a.width || a.blank - b.blank || Number(a.turned) - Number(b.turned));
+  return out.sort(
+    (a, b) => b.length * b.width - a.length * a.width || a.blank - b.blank || Number(a.turned) - Number(b.turned),
+  );
 }
 
 /** How the shear's limits and the sheets on hand shape where each blank can go. */
-export function present(stock: Stock[], variants: Variant[], options: PlanOptions): { presentations: Presentation[]; unusable: number[] } {
+export function present(
+  stock: Stock[],
+  variants: Variant[],
+  options: PlanOptions,
+): { presentations: Presentation[]; unusable: number[] } {
   const limits = options.limits ?? null;
   const trim = options.trim ?? 0;
   const tolerance = REMNANT_TOLERANCE_MM / (options.mmPerUnit ?? 1);
@@ -49,7 +56,9 @@ export function present(stock: Stock[], variants: Variant[], options: PlanOption
   const unusable: number[] = [];
   stock.forEach((sheet, index) => {
     // A square sheet turned is the same sheet, unless some blank must keep its grain: then strips across are another pattern.
-    const square = sheet.length === sheet.width && variants.every((v) => v.turned || variants.some((w) => w.blank === v.blank && w.turned));
+    const square =
+      sheet.length === sheet.width &&
+      variants.every((v) => v.turned || variants.some((w) => w.blank === v.blank && w.turned));
     let any = false;
     for (const rotated of square ? [false] : [false, true]) {
       const length = rotated ? sheet.width : sheet.length;
@@ -63,10 +72,19 @@ export function present(stock: Stock[], variants: Variant[], options: PlanOption
       // Grain follows the sheet: on a sheet presented the other way round, every blank is presented the other way round too.
       const these = rotated ? variants.map((v) => ({ ...v, length: v.width, width: v.length })) : variants;
       const fitting = these.filter(
-        (v) => v.length <= length && v.width <= maxStripWidth && (!limits || (v.length >= limits.backgaugeMin && v.width >= limits.backgaugeMin)),
+        (v) =>
+          v.length <= length &&
+          v.width <= maxStripWidth &&
+          (!limits || (v.length >= limits.backgaugeMin && v.width >= limits.backgaugeMin)),
       );
       presentations.push({
-        stock: index, rotated, length, width, usableWidth: width - trim, variants: fitting, maxStripWidth,
+        stock: index,
+        rotated,
+        length,
+        width,
+        usableWidth: width - trim,
+        variants: fitting,
+        maxStripWidth,
         backgaugeMax: limits ? limits.backgaugeMax : Infinity,
       });
     }
@@ -80,13 +98,17 @@ export function whyUnplaceable(blank: Blank, options: PlanOptions): string {
   const show = options.show ?? String;
   const size = `${show(blank.length)} × ${show(blank.width)}`;
   const narrow = Math.min(blank.length, blank.width);
-  if (limits && narrow < limits.backgaugeMin) return `${size}: ${show(narrow)} is narrower than the backgauge's nearest setting (${show(limits.backgaugeMin)})`;
+  if (limits && narrow < limits.backgaugeMin)
+    return `${size}: ${show(narrow)} is narrower than the backgauge's nearest setting (${show(limits.backgaugeMin)})`;
   const turnNote = blank.canTurn ? " even turned" : " (it may not be turned)";
   return `${size} fits on none of the stock sheets within the shear's blade${turnNote}`;
 }
 
 /** Is a leftover at least the reusable size, either way round? */
-export const isReusable = (leftover: { length: number; width: number }, least: { length: number; width: number } | null | undefined) =>
+export const isReusable = (
+  leftover: { length: number; width: number },
+  least: { length: number; width: number } | null | undefined,
+) =>
   !!least &&
   Math.min(leftover.length, leftover.width) >= Math.min(least.length, least.width) &&
   Math.max(leftover.length, leftover.width) >= Math.max(least.length, least.width);

@@ -33,13 +33,30 @@ export interface Priced {
 }
 
 /** Copies of one way a blank lies, taken together; `unbounded` when the cap cannot bind along a strip (any number of copies). */
-interface Chunk { variant: Variant; copies: number; length: number; value: number; long: boolean; unbounded: boolean }
+interface Chunk {
+  variant: Variant;
+  copies: number;
+  length: number;
+  value: number;
+  long: boolean;
+  unbounded: boolean;
+}
 
 /** 0/1 knapsack tables along one length, over chunks in order; `keep` records every improving choice for reading back. */
-interface Tables { best: Float64Array; keep: Uint32Array[]; words: number }
+interface Tables {
+  best: Float64Array;
+  keep: Uint32Array[];
+  words: number;
+}
 
 /** Split each variant's copies into chunks of 1, 2, 4, … (every count up to the cap is a sum of some). */
-function chunksOf(variants: Variant[], values: ArrayLike<number>, caps: ArrayLike<number>, stripLength: number, backgaugeMax: number): Chunk[] {
+function chunksOf(
+  variants: Variant[],
+  values: ArrayLike<number>,
+  caps: ArrayLike<number>,
+  stripLength: number,
+  backgaugeMax: number,
+): Chunk[] {
   const chunks: Chunk[] = [];
   for (const variant of variants) {
     const value = values[variant.blank];
@@ -54,7 +71,14 @@ function chunksOf(variants: Variant[], values: ArrayLike<number>, caps: ArrayLik
     let copies = long ? 1 : Math.min(cap, fit);
     for (let size = 1; copies > 0; size *= 2) {
       const take = Math.min(size, copies);
-      chunks.push({ variant, copies: take, length: take * variant.length, value: take * value, long, unbounded: false });
+      chunks.push({
+        variant,
+        copies: take,
+        length: take * variant.length,
+        value: take * value,
+        long,
+        unbounded: false,
+      });
       copies -= take;
     }
   }
@@ -68,7 +92,11 @@ function chunksOf(variants: Variant[], values: ArrayLike<number>, caps: ArrayLik
 function alongTables(length: number, chunks: Chunk[], after?: (index: number, tables: Tables[]) => void): Tables[] {
   const words = (length >> 5) + 1;
   const layers = chunks.some((chunk) => chunk.long) ? 2 : 1;
-  const tables: Tables[] = Array.from({ length: layers }, () => ({ best: new Float64Array(length + 1), keep: [], words }));
+  const tables: Tables[] = Array.from({ length: layers }, () => ({
+    best: new Float64Array(length + 1),
+    keep: [],
+    words,
+  }));
   const bits = new Uint32Array(words * chunks.length * layers); // one allocation for every chunk's choices
   chunks.forEach((chunk, index) => {
     const size = chunk.length;
@@ -80,7 +108,8 @@ function alongTables(length: number, chunks: Chunk[], after?: (index: number, ta
       if (chunk.long && layer === 0) continue; // layer 0 holds no long piece
       const from = chunk.long ? tables[0].best : table.best; // a long piece moves a strip from layer 0 to 1
       const best = table.best;
-      if (chunk.unbounded) { // upward: a capacity may build on copies just taken
+      if (chunk.unbounded) {
+        // upward: a capacity may build on copies just taken
         for (let capacity = size; capacity <= length; capacity++) {
           const candidate = best[capacity - size] + value;
           if (candidate > best[capacity]) {
@@ -107,7 +136,7 @@ function alongTables(length: number, chunks: Chunk[], after?: (index: number, ta
 function readBack(tables: Tables[], chunks: Chunk[], count: number, capacity: number): Chunk[] {
   const taken: Chunk[] = [];
   let layer = tables.length - 1;
-  for (let index = count - 1; index >= 0 && capacity > 0; ) {
+  for (let index = count - 1; index >= 0 && capacity > 0;) {
     if (tables[layer].keep[index][capacity >> 5] & (1 << (capacity & 31))) {
       taken.push(chunks[index]);
       capacity -= chunks[index].length;
@@ -119,21 +148,38 @@ function readBack(tables: Tables[], chunks: Chunk[], count: number, capacity: nu
   return taken;
 }
 
-const piecesOf = (chunks: Chunk[]): Variant[] => chunks.flatMap((chunk) => Array.from({ length: chunk.copies }, () => chunk.variant));
+const piecesOf = (chunks: Chunk[]): Variant[] =>
+  chunks.flatMap((chunk) => Array.from({ length: chunk.copies }, () => chunk.variant));
 
 /** The best strip of this width that keeps the rules and what is left of the caps (exact knapsack). */
-function refill(way: Presentation, stripWidth: number, values: ArrayLike<number>, left: number[], tolerance: number): { pieces: Variant[]; work: number } {
+function refill(
+  way: Presentation,
+  stripWidth: number,
+  values: ArrayLike<number>,
+  left: number[],
+  tolerance: number,
+): { pieces: Variant[]; work: number } {
   const fitting = way.variants.filter((variant) => fitsStrip(variant, stripWidth, false, tolerance, way.backgaugeMax));
   const chunks = chunksOf(fitting, values, left, way.length, way.backgaugeMax);
   if (!chunks.length) return { pieces: [], work: 0 };
   const tables = alongTables(way.length, chunks);
-  return { pieces: piecesOf(readBack(tables, chunks, chunks.length, way.length)), work: chunks.length * way.length * tables.length };
+  return {
+    pieces: piecesOf(readBack(tables, chunks, chunks.length, way.length)),
+    work: chunks.length * way.length * tables.length,
+  };
 }
 
-export function priceSheet(way: Presentation, values: ArrayLike<number>, caps: ArrayLike<number>, tolerance: number): Priced {
+export function priceSheet(
+  way: Presentation,
+  values: ArrayLike<number>,
+  caps: ArrayLike<number>,
+  tolerance: number,
+): Priced {
   const length = way.length;
   // Strips: pieces by width, narrowest first; the table after the last piece of a width is that width's strip.
-  const chunks = chunksOf(way.variants, values, caps, length, way.backgaugeMax).sort((a, b) => a.variant.width - b.variant.width);
+  const chunks = chunksOf(way.variants, values, caps, length, way.backgaugeMax).sort(
+    (a, b) => a.variant.width - b.variant.width,
+  );
   let work = 0;
   const stripValue = new Map<number, number>();
   const stripEnd = new Map<number, number>();
@@ -147,7 +193,8 @@ export function priceSheet(way: Presentation, values: ArrayLike<number>, caps: A
   // Strips across the sheet: strips of width w are at most the caps of the blanks that are w wide.
   const initiators = new Map<number, number>();
   for (const variant of way.variants) {
-    if (values[variant.blank] > 0 && caps[variant.blank] > 0) initiators.set(variant.width, (initiators.get(variant.width) ?? 0) + caps[variant.blank]);
+    if (values[variant.blank] > 0 && caps[variant.blank] > 0)
+      initiators.set(variant.width, (initiators.get(variant.width) ?? 0) + caps[variant.blank]);
   }
   const across = way.usableWidth;
   const narrow: Chunk[] = [];
@@ -177,12 +224,15 @@ export function priceSheet(way: Presentation, values: ArrayLike<number>, caps: A
       wideStrip = width;
     }
   }
-  const chosen = readBack(sheet, narrow, narrow.length, wideStrip === null ? across : across - wideStrip).flatMap((chunk) => Array.from({ length: chunk.copies }, () => chunk.variant.width));
+  const chosen = readBack(sheet, narrow, narrow.length, wideStrip === null ? across : across - wideStrip).flatMap(
+    (chunk) => Array.from({ length: chunk.copies }, () => chunk.variant.width),
+  );
   if (wideStrip !== null) chosen.push(wideStrip);
   const contents = new Map<number, Variant[]>();
   const relaxedUses = new Array<number>(caps.length).fill(0);
   for (const stripWidth of chosen) {
-    if (!contents.has(stripWidth)) contents.set(stripWidth, piecesOf(readBack(tables, chunks, stripEnd.get(stripWidth)!, length)));
+    if (!contents.has(stripWidth))
+      contents.set(stripWidth, piecesOf(readBack(tables, chunks, stripEnd.get(stripWidth)!, length)));
     for (const piece of contents.get(stripWidth)!) relaxedUses[piece.blank] += 1;
   }
   // A pattern that keeps the caps: the relaxed strips, densest first, each refilled exactly when it breaks a cap or rule.
@@ -200,14 +250,25 @@ export function priceSheet(way: Presentation, values: ArrayLike<number>, caps: A
       return true;
     });
     if (!kept.length) return false;
-    strips.push({ width: stripWidth, pieces: kept.map((piece) => ({ blank: piece.blank, length: piece.length, width: piece.width, turned: piece.turned })) });
+    strips.push({
+      width: stripWidth,
+      pieces: kept.map((piece) => ({
+        blank: piece.blank,
+        length: piece.length,
+        width: piece.width,
+        turned: piece.turned,
+      })),
+    });
     free -= stripWidth;
     return true;
   };
   const keeps = (stripWidth: number, pieces: Variant[]) => {
     const count = new Map<number, number>();
     for (const piece of pieces) count.set(piece.blank, (count.get(piece.blank) ?? 0) + 1);
-    return pieces.every((piece) => fitsStrip(piece, stripWidth, false, tolerance, way.backgaugeMax)) && [...count].every(([blank, copies]) => copies <= left[blank]);
+    return (
+      pieces.every((piece) => fitsStrip(piece, stripWidth, false, tolerance, way.backgaugeMax)) &&
+      [...count].every(([blank, copies]) => copies <= left[blank])
+    );
   };
   let wideUsed = false;
   for (const stripWidth of chosen) {
@@ -221,7 +282,9 @@ export function priceSheet(way: Presentation, values: ArrayLike<number>, caps: A
     if (take(stripWidth, pieces) && stripWidth > way.backgaugeMax) wideUsed = true;
   }
   // Width left over (strips refilled with less, or dropped): more strips, densest first, a few tries.
-  const widths = [...stripValue.keys()].filter((width) => stripValue.get(width)! > 0).sort((a, b) => stripValue.get(b)! / b - stripValue.get(a)! / a || b - a);
+  const widths = [...stripValue.keys()]
+    .filter((width) => stripValue.get(width)! > 0)
+    .sort((a, b) => stripValue.get(b)! / b - stripValue.get(a)! / a || b - a);
   for (let tries = 0; tries < 8; tries++) {
     const stripWidth = widths.find((width) => width <= free && (width <= way.backgaugeMax || !wideUsed));
     if (stripWidth === undefined) break;

@@ -69,14 +69,25 @@ export interface WrittenPattern {
   turns: number;
 }
 
-interface Segment { length: number; width: number; count: number }
+interface Segment {
+  length: number;
+  width: number;
+  count: number;
+}
 /** Strips alike in width and in the sizes of their pieces: one rip group, crosscut alike. Which blank each piece is does not matter to the shear. */
-interface Kind { width: number; count: number; segments: Segment[]; instances: PieceIn[][] }
+interface Kind {
+  width: number;
+  count: number;
+  segments: Segment[];
+  instances: PieceIn[][];
+}
 
 function kindsOf(strips: StripIn[]): Kind[] {
   const kinds = new Map<string, Kind>();
   for (const strip of strips) {
-    const sorted = [...strip.pieces].sort((a, b) => b.length - a.length || b.width - a.width || a.blank - b.blank || Number(a.turned) - Number(b.turned));
+    const sorted = [...strip.pieces].sort(
+      (a, b) => b.length - a.length || b.width - a.width || a.blank - b.blank || Number(a.turned) - Number(b.turned),
+    );
     const segments: Segment[] = [];
     for (const piece of sorted) {
       const last = segments[segments.length - 1];
@@ -99,15 +110,24 @@ interface Layout {
   kinds: (Kind & { lead: number })[];
 }
 
-function emit(sheet: { length: number; width: number }, trim: number, layout: Layout, tolerance: number, show: (value: number) => string): { cuts: PlanCut[]; strips: PlacedStrip[]; leftovers: Leftover[] } {
+function emit(
+  sheet: { length: number; width: number },
+  trim: number,
+  layout: Layout,
+  tolerance: number,
+  show: (value: number) => string,
+): { cuts: PlanCut[]; strips: PlacedStrip[]; leftovers: Leftover[] } {
   const cuts: PlanCut[] = [];
   const strips: PlacedStrip[] = [];
   const leftovers: Leftover[] = [];
   const { lead, kinds } = layout;
   if (lead > 0) {
-    const note = lead > trim && trim > 0
-      ? `trim the first edge (${show(trim)}) and cut off ${show(lead - trim)} of the sheet's spare width`
-      : lead === trim ? "trim the first edge" : `cut off ${show(lead)} of the sheet's spare width first`;
+    const note =
+      lead > trim && trim > 0
+        ? `trim the first edge (${show(trim)}) and cut off ${show(lead - trim)} of the sheet's spare width`
+        : lead === trim
+          ? "trim the first edge"
+          : `cut off ${show(lead)} of the sheet's spare width first`;
     cuts.push({ backgauge: lead, count: 1, scrap: true, note });
     leftovers.push({ x: 0, y: 0, length: sheet.length, width: lead, kind: lead > trim ? "sheet-end" : "trim" });
   }
@@ -119,7 +139,11 @@ function emit(sheet: { length: number; width: number }, trim: number, layout: La
     ripAt.push(cuts.length);
     const remnant = index === kinds.length - 1 && exact;
     const plural = kind.count > 1 ? "s" : "";
-    cuts.push({ backgauge: kind.width, count: remnant ? kind.count - 1 : kind.count, note: `rip ${kind.count} × ${show(kind.width)} strip${plural}${remnant ? " (the last is what is left)" : ""}` });
+    cuts.push({
+      backgauge: kind.width,
+      count: remnant ? kind.count - 1 : kind.count,
+      note: `rip ${kind.count} × ${show(kind.width)} strip${plural}${remnant ? " (the last is what is left)" : ""}`,
+    });
   });
   if (!exact) leftovers.push({ x: 0, y: lead + used, length: sheet.length, width: usable - used, kind: "sheet-end" });
   let y = lead;
@@ -133,13 +157,22 @@ function emit(sheet: { length: number; width: number }, trim: number, layout: La
       if (ripAt[kindIndex] !== cuts.length - 1) cut.from = ripAt[kindIndex];
     };
     if (kind.lead > 0) {
-      const cut: PlanCut = { backgauge: kind.lead, count: 1, scrap: true, note: `turn the ${show(kind.width)} strips; cut off ${show(kind.lead)} of their spare length first` };
+      const cut: PlanCut = {
+        backgauge: kind.lead,
+        count: 1,
+        scrap: true,
+        note: `turn the ${show(kind.width)} strips; cut off ${show(kind.lead)} of their spare length first`,
+      };
       turnFrom(cut);
       cuts.push(cut);
     }
     kind.segments.forEach((segment, segmentIndex) => {
       const remnant = segmentIndex === kind.segments.length - 1 && full;
-      const cut: PlanCut = { backgauge: segment.length, count: remnant ? segment.count - 1 : segment.count, note: `crosscut ${segment.count} × ${show(segment.length)}${remnant ? " (the last is what is left)" : ""}` };
+      const cut: PlanCut = {
+        backgauge: segment.length,
+        count: remnant ? segment.count - 1 : segment.count,
+        note: `crosscut ${segment.count} × ${show(segment.length)}${remnant ? " (the last is what is left)" : ""}`,
+      };
       if (segmentIndex === 0 && kind.lead === 0) {
         turnFrom(cut);
         cut.note = `turn the ${show(kind.width)} strips; ${cut.note}`;
@@ -148,7 +181,13 @@ function emit(sheet: { length: number; width: number }, trim: number, layout: La
       cuts.push(cut);
     });
     for (const segment of kind.segments) {
-      if (segment.width < kind.width) trims.push({ backgauge: segment.width, count: 1, turn: true, note: `turn the ${show(segment.length)} × ${show(kind.width)} pieces; trim to ${show(segment.width)}` });
+      if (segment.width < kind.width)
+        trims.push({
+          backgauge: segment.width,
+          count: 1,
+          turn: true,
+          note: `turn the ${show(segment.length)} × ${show(kind.width)} pieces; trim to ${show(segment.width)}`,
+        });
     }
     for (let copy = 0; copy < kind.count; copy++) {
       let x = 0;
@@ -160,9 +199,19 @@ function emit(sheet: { length: number; width: number }, trim: number, layout: La
       const own = [...kind.instances[copy]]; // this strip's own blanks, handed out in cutting order
       for (const segment of kind.segments) {
         for (let piece = 0; piece < segment.count; piece++) {
-          const blank = own.splice(own.findIndex((candidate) => candidate.length === segment.length && candidate.width === segment.width), 1)[0];
+          const blank = own.splice(
+            own.findIndex((candidate) => candidate.length === segment.length && candidate.width === segment.width),
+            1,
+          )[0];
           pieces.push({ blank: blank.blank, length: segment.length, width: segment.width, turned: blank.turned, x, y });
-          if (segment.width < kind.width) leftovers.push({ x, y: y + segment.width, length: segment.length, width: kind.width - segment.width, kind: "piece-trim" });
+          if (segment.width < kind.width)
+            leftovers.push({
+              x,
+              y: y + segment.width,
+              length: segment.length,
+              width: kind.width - segment.width,
+              kind: "piece-trim",
+            });
           x += segment.length;
         }
       }
@@ -196,15 +245,29 @@ export function writePattern(
   if (!strips.length) return null;
   const tolerance = REMNANT_TOLERANCE_MM / mmPerUnit;
   const want = new Map<string, number>();
-  for (const strip of strips) for (const piece of strip.pieces) want.set(sizeKey(piece.length, piece.width), (want.get(sizeKey(piece.length, piece.width)) ?? 0) + 1);
+  for (const strip of strips)
+    for (const piece of strip.pieces)
+      want.set(sizeKey(piece.length, piece.width), (want.get(sizeKey(piece.length, piece.width)) ?? 0) + 1);
   const base = kindsOf(strips).sort((a, b) => b.width - a.width || b.count - a.count);
   const layouts: Layout[] = [];
   for (const first of [base, [...base].reverse()]) {
-    const rip = arrangeWithLead(first.map((kind) => ({ kind, size: kind.width, count: kind.count })), sheet.width, trim, gauge, tolerance);
+    const rip = arrangeWithLead(
+      first.map((kind) => ({ kind, size: kind.width, count: kind.count })),
+      sheet.width,
+      trim,
+      gauge,
+      tolerance,
+    );
     if (!rip) continue;
     const kinds: Layout["kinds"] = [];
     for (const { kind } of rip.order) {
-      const crosscuts = arrangeWithLead(kind.segments.map((segment) => ({ segment, size: segment.length, count: segment.count })), sheet.length, 0, gauge, tolerance);
+      const crosscuts = arrangeWithLead(
+        kind.segments.map((segment) => ({ segment, size: segment.length, count: segment.count })),
+        sheet.length,
+        0,
+        gauge,
+        tolerance,
+      );
       if (!crosscuts) break;
       kinds.push({ ...kind, lead: crosscuts.lead, segments: crosscuts.order.map((entry) => entry.segment) });
     }
@@ -213,11 +276,30 @@ export function writePattern(
   for (const layout of layouts) {
     const written = emit(sheet, trim, layout, tolerance, show);
     // Every stroke is gauged within the travel (a trim the caller asked for is theirs, and reported).
-    if (written.cuts.some((cut, index) => cut.count > 0 && cut.backgauge > gauge.max && !(index === 0 && cut.scrap && cut.backgauge === trim))) continue;
+    if (
+      written.cuts.some(
+        (cut, index) =>
+          cut.count > 0 && cut.backgauge > gauge.max && !(index === 0 && cut.scrap && cut.backgauge === trim),
+      )
+    )
+      continue;
     const mm = (value: number) => value * mmPerUnit;
-    const flowCuts: FlowCut[] = written.cuts.map((cut) => ({ backgaugeMm: mm(cut.backgauge), count: cut.count, lengthMm: null, turn: cut.turn === true, from: cut.from ?? null, scrap: cut.scrap === true }));
+    const flowCuts: FlowCut[] = written.cuts.map((cut) => ({
+      backgaugeMm: mm(cut.backgauge),
+      count: cut.count,
+      lengthMm: null,
+      turn: cut.turn === true,
+      from: cut.from ?? null,
+      scrap: cut.scrap === true,
+    }));
     const flow = simulateFlow({ lengthMm: mm(sheet.length), widthMm: mm(sheet.width) }, flowCuts);
-    if (flow.groups.some((group) => group.beyond !== null || group.workpieces === 0 || (group.strokes === 0 && group.pieces.length === 0))) continue;
+    if (
+      flow.groups.some(
+        (group) =>
+          group.beyond !== null || group.workpieces === 0 || (group.strokes === 0 && group.pieces.length === 0),
+      )
+    )
+      continue;
     // Each blank the flow makes must be a wanted size, within the remnant tolerance (the last piece of an
     // exactly filled strip is what is left, up to 0.1 mm over), and the counts must agree.
     const left = new Map(want);
@@ -226,7 +308,11 @@ export function writePattern(
       const [short, long] = [made.widthMm, made.lengthMm].sort((a, b) => a - b);
       const key = [...left.keys()].find((candidate) => {
         const [shortWanted, longWanted] = candidate.split("x").map((value) => Number(value) * mmPerUnit);
-        return Math.abs(shortWanted - short) <= REMNANT_TOLERANCE_MM + 1e-9 && Math.abs(longWanted - long) <= REMNANT_TOLERANCE_MM + 1e-9 && (left.get(candidate) ?? 0) >= made.count;
+        return (
+          Math.abs(shortWanted - short) <= REMNANT_TOLERANCE_MM + 1e-9 &&
+          Math.abs(longWanted - long) <= REMNANT_TOLERANCE_MM + 1e-9 &&
+          (left.get(candidate) ?? 0) >= made.count
+        );
       });
       if (key === undefined) {
         matches = false;

@@ -10,7 +10,15 @@
  * (`whole-sheets.ts`). Deterministic: the same order gives the same plan.
  */
 import { toSheetPattern, writeCandidate, type Candidate, type PlanSetup } from "./candidates";
-import { disposeGeneration, generate, LP_EPSILON, newGeneration, restrict, type Generation, type Residual } from "./column-generation";
+import {
+  disposeGeneration,
+  generate,
+  LP_EPSILON,
+  newGeneration,
+  restrict,
+  type Generation,
+  type Residual,
+} from "./column-generation";
 import { planGreedy } from "./greedy";
 import type { LpSolver } from "./lp-solver";
 import { Master, type MasterSolution } from "./master";
@@ -61,12 +69,26 @@ export function planByColumnGeneration(
   const generation = newGeneration(setup, solver, master, budget * ROOT_SHARE);
   try {
     seed(generation, residual, known?.candidates ?? []);
-    const root = generate(generation, residual, { known: known?.sheets, maxRounds: Infinity, quickSteps: 1, deepSteps: 10 });
+    const root = generate(generation, residual, {
+      known: known?.sheets,
+      maxRounds: Infinity,
+      quickSteps: 1,
+      deepSteps: 10,
+    });
     if (!root.solution) return null;
-    const result = { bound: root.bound, lp: root.solution.objective, budgetSpent: root.status === "budget", work: generation.work };
+    const result = {
+      bound: root.bound,
+      lp: root.solution.objective,
+      budgetSpent: root.status === "budget",
+      work: generation.work,
+    };
     if (known && Math.ceil(root.bound - LP_EPSILON) >= known.sheets) return { ...result, plan: null };
     generation.budget = budget; // the rest is for whole sheets
-    const left: Residual = { wanted: [...residual.wanted], allowance: [...residual.allowance], onHand: [...residual.onHand] };
+    const left: Residual = {
+      wanted: [...residual.wanted],
+      allowance: [...residual.allowance],
+      onHand: [...residual.onHand],
+    };
     const produced = residual.wanted.map(() => 0);
     const repeats = new Map<number, number>(); // column → sheets, in the order first fixed
     let solution = root.solution;
@@ -83,18 +105,32 @@ export function planByColumnGeneration(
       if (!next.solution) break;
       solution = next.solution;
     }
-    let uses: SheetUse[] = [...repeats].map(([column, count]) => ({ candidate: master.columns[column].candidate, count }));
+    let uses: SheetUse[] = [...repeats].map(([column, count]) => ({
+      candidate: master.columns[column].candidate,
+      count,
+    }));
     let repair = repairRest(setup, { ...left, onHand: residual.onHand }, uses);
     // Not provably the fewest: whole sheets over every pattern found may do with fewer.
     const sheets = (plan: SheetUse[]) => plan.reduce((sum, use) => sum + use.count, 0);
     if (sheets(repair.uses) > Math.ceil(root.bound - LP_EPSILON) && generation.work <= budget) {
-      const columns = new Set([...promising(master.columns, root.solution), ...repair.uses.map((use) => use.candidate)]);
-      const fewer = fewerWholeSheets(solver, [...columns], residual, repair.uses, (cells) => (generation.work += cells));
+      const columns = new Set([
+        ...promising(master.columns, root.solution),
+        ...repair.uses.map((use) => use.candidate),
+      ]);
+      const fewer = fewerWholeSheets(
+        solver,
+        [...columns],
+        residual,
+        repair.uses,
+        (cells) => (generation.work += cells),
+      );
       if (fewer) {
         const trimmed = withoutSurplus(setup, fewer, residual);
         const rest: Residual = {
           wanted: residual.wanted.map((count, blank) => Math.max(0, count - trimmed.produced[blank])),
-          allowance: residual.allowance.map((count, blank) => count - Math.max(0, trimmed.produced[blank] - residual.wanted[blank])),
+          allowance: residual.allowance.map(
+            (count, blank) => count - Math.max(0, trimmed.produced[blank] - residual.wanted[blank]),
+          ),
           onHand: residual.onHand,
         };
         const fewerRepair = repairRest(setup, rest, trimmed.uses);
@@ -108,7 +144,11 @@ export function planByColumnGeneration(
     const made = residual.wanted.map(() => 0);
     for (const use of repair.uses) for (const [blank, count] of use.candidate.uses) made[blank] += count * use.count;
     report?.(patterns.length, made);
-    return { ...result, work: generation.work + repair.work, plan: { patterns, produced: made, repairedSheets: sheets(repair.uses) - sheets(uses) } };
+    return {
+      ...result,
+      work: generation.work + repair.work,
+      plan: { patterns, produced: made, repairedSheets: sheets(repair.uses) - sheets(uses) },
+    };
   } finally {
     disposeGeneration(generation);
   }
@@ -125,7 +165,13 @@ function repairRest(setup: PlanSetup, left: Residual, fixed: SheetUse[]): { uses
     if (count !== null) onHand[use.candidate.way.stock] = Math.max(0, count - use.count);
   }
   const greedy = planGreedy(setup, left.wanted, left.allowance, onHand);
-  return { uses: [...fixed, ...greedy.chosen.map((candidate, index) => ({ candidate, count: greedy.patterns[index].repeats }))], work: greedy.work };
+  return {
+    uses: [
+      ...fixed,
+      ...greedy.chosen.map((candidate, index) => ({ candidate, count: greedy.patterns[index].repeats })),
+    ],
+    work: greedy.work,
+  };
 }
 
 /** The patterns nearest to paying their way at the first LP's prices (reduced cost), the best `WHOLE_SHEET_COLUMNS`. */
@@ -146,7 +192,8 @@ function promising(columns: Master["columns"], solution: MasterSolution): Candid
 function seed(generation: Generation, residual: Residual, candidates: Candidate[]): void {
   const { setup, master } = generation;
   for (const candidate of candidates) {
-    if (!master.has(candidate.way.stock, candidate.uses)) master.add({ candidate, stock: candidate.way.stock, uses: candidate.uses });
+    if (!master.has(candidate.way.stock, candidate.uses))
+      master.add({ candidate, stock: candidate.way.stock, uses: candidate.uses });
   }
   const caps = residual.wanted.map((count, blank) => count + residual.allowance[blank]);
   const areas = setup.blanks.map((blank, index) => (residual.wanted[index] > 0 ? blank.length * blank.width : 0));
@@ -154,8 +201,11 @@ function seed(generation: Generation, residual: Residual, candidates: Candidate[
     if (residual.onHand[way.stock] === 0) continue;
     const priced = priceSheet(way, areas, caps, setup.tolerance);
     generation.work += priced.work;
-    const candidate = priced.strips.length ? writeCandidate(setup, way, priced.strips, (blank) => residual.wanted[blank] > 0) : null;
-    if (candidate && !master.has(way.stock, candidate.uses)) master.add({ candidate, stock: way.stock, uses: candidate.uses });
+    const candidate = priced.strips.length
+      ? writeCandidate(setup, way, priced.strips, (blank) => residual.wanted[blank] > 0)
+      : null;
+    if (candidate && !master.has(way.stock, candidate.uses))
+      master.add({ candidate, stock: way.stock, uses: candidate.uses });
   }
 }
 
@@ -164,8 +214,16 @@ function seed(generation: Generation, residual: Residual, candidates: Candidate[
  * (within what is wanted, the allowance and the stock); when none is, the one cut most, once.
  * Updates `left`, `produced` and `repeats`; false when nothing could be fixed.
  */
-function fixSheets(columns: Master["columns"], primal: Float64Array, left: Residual, produced: number[], repeats: Map<number, number>): boolean {
-  const order = [...primal.keys()].filter((column) => primal[column] > LP_EPSILON).sort((a, b) => primal[b] - primal[a] || a - b);
+function fixSheets(
+  columns: Master["columns"],
+  primal: Float64Array,
+  left: Residual,
+  produced: number[],
+  repeats: Map<number, number>,
+): boolean {
+  const order = [...primal.keys()]
+    .filter((column) => primal[column] > LP_EPSILON)
+    .sort((a, b) => primal[b] - primal[a] || a - b);
   const most = (column: number) => {
     const { uses, stock } = columns[column];
     let count = left.onHand[stock] ?? Infinity;

@@ -16,24 +16,46 @@ export type StripRule = "density" | "area";
  * one more cut (unless `exact`): then it is gauged at its width, and its offcut must not be a
  * piece itself (the remnant rule) nor within the tolerance of nothing.
  */
-export const fitsStrip = (variant: Variant, stripWidth: number, exact: boolean, tolerance: number, backgaugeMax: number) =>
+export const fitsStrip = (
+  variant: Variant,
+  stripWidth: number,
+  exact: boolean,
+  tolerance: number,
+  backgaugeMax: number,
+) =>
   variant.width === stripWidth ||
-  (!exact && variant.width < stripWidth - tolerance && variant.width <= backgaugeMax && Math.abs(stripWidth - 2 * variant.width) > tolerance);
+  (!exact &&
+    variant.width < stripWidth - tolerance &&
+    variant.width <= backgaugeMax &&
+    Math.abs(stripWidth - 2 * variant.width) > tolerance);
 
-const toPiece = (variant: Variant) => ({ blank: variant.blank, length: variant.length, width: variant.width, turned: variant.turned });
+const toPiece = (variant: Variant) => ({
+  blank: variant.blank,
+  length: variant.length,
+  width: variant.width,
+  turned: variant.turned,
+});
 
 /**
  * Strips for one sheet given what may still be placed (`cap`), added one at a time by `rule`: the
  * most blank area per unit of strip width, or the most area. `exact` keeps to pieces as wide as
  * their strip (no trimming cut).
  */
-export function buildStrips(way: Presentation, cap: number[], rule: StripRule, exact: boolean, tolerance: number, tables: StripTables): StripIn[] {
+export function buildStrips(
+  way: Presentation,
+  cap: number[],
+  rule: StripRule,
+  exact: boolean,
+  tolerance: number,
+  tables: StripTables,
+): StripIn[] {
   const want = [...cap];
   const strips: StripIn[] = [];
   let free = way.usableWidth;
   const fitting = (variants: Variant[], width: number) => {
     const out: Variant[] = [];
-    for (const variant of variants) if (fitsStrip(variant, width, exact, tolerance, way.backgaugeMax)) out.push(variant);
+    for (const variant of variants)
+      if (fitsStrip(variant, width, exact, tolerance, way.backgaugeMax)) out.push(variant);
     return out;
   };
   for (;;) {
@@ -66,15 +88,26 @@ export function exactPattern(way: Presentation, cap: number[], tables: StripTabl
   const open = way.variants.filter((variant) => cap[variant.blank] > 0);
   if (!open.length) return null;
   const sheetArea = way.length * way.usableWidth;
-  if (open.some((variant) => cap[variant.blank] < Math.floor(sheetArea / (variant.length * variant.width)))) return null;
-  const work = new Set(open.map((variant) => variant.width)).size * way.length * open.length + way.usableWidth * open.length;
+  if (open.some((variant) => cap[variant.blank] < Math.floor(sheetArea / (variant.length * variant.width))))
+    return null;
+  const work =
+    new Set(open.map((variant) => variant.width)).size * way.length * open.length + way.usableWidth * open.length;
   if (tables.work + work > PLAN_WORK_BUDGET) return null;
   tables.work += work;
-  const best = bestTwoStagePattern({ length: way.length, width: way.usableWidth }, open.map((variant) => ({ length: variant.length, width: variant.width })), "length");
+  const best = bestTwoStagePattern(
+    { length: way.length, width: way.usableWidth },
+    open.map((variant) => ({ length: variant.length, width: variant.width })),
+    "length",
+  );
   const strips: StripIn[] = [];
-  for (const strip of best.strips.filter((candidate) => candidate.width <= way.maxStripWidth).sort((a, b) => b.width - a.width)) {
-    const pieces = strip.pieces.flatMap((entry) => Array.from({ length: entry.count }, () => toPiece(open[entry.index])));
-    for (let copy = 0; copy < strip.count; copy++) strips.push({ width: strip.width, pieces: pieces.map((piece) => ({ ...piece })) });
+  for (const strip of best.strips
+    .filter((candidate) => candidate.width <= way.maxStripWidth)
+    .sort((a, b) => b.width - a.width)) {
+    const pieces = strip.pieces.flatMap((entry) =>
+      Array.from({ length: entry.count }, () => toPiece(open[entry.index])),
+    );
+    for (let copy = 0; copy < strip.count; copy++)
+      strips.push({ width: strip.width, pieces: pieces.map((piece) => ({ ...piece })) });
   }
   return strips.length ? strips : null;
 }

@@ -12,13 +12,17 @@ export type PlanBody = Omit<Plan, "method" | "methodNote" | "bounds" | "lowerBou
 
 /** Which blanks some sheet can take at all (within the blade and the backgauge's nearest setting). */
 export const placeableBlanks = (setup: PlanSetup): boolean[] =>
-  setup.blanks.map((_, index) => setup.presentations.some((way) => way.variants.some((variant) => variant.blank === index)));
+  setup.blanks.map((_, index) =>
+    setup.presentations.some((way) => way.variants.some((variant) => variant.blank === index)),
+  );
 
 /** Pieces asked for per blank (whole, not negative). */
-export const quantities = (setup: PlanSetup): number[] => setup.blanks.map((blank) => Math.max(0, Math.floor(blank.quantity)));
+export const quantities = (setup: PlanSetup): number[] =>
+  setup.blanks.map((blank) => Math.max(0, Math.floor(blank.quantity)));
 
 /** Extra pieces allowed per blank. */
-export const allowances = (setup: PlanSetup): number[] => quantities(setup).map((quantity) => Math.floor((quantity * setup.options.overProductionPct) / 100));
+export const allowances = (setup: PlanSetup): number[] =>
+  quantities(setup).map((quantity) => Math.floor((quantity * setup.options.overProductionPct) / 100));
 
 /** Patterns cut alike on the same sheet as one pattern with their repeats added (the first keeps its place). */
 export function mergeAlike(patterns: SheetPattern[]): SheetPattern[] {
@@ -40,21 +44,47 @@ export function assemblePlan(setup: PlanSetup, unmerged: SheetPattern[], produce
   const placeable = placeableBlanks(setup);
   const unplaced: Unplaced[] = [];
   blanks.forEach((blank, index) => {
-    if (!placeable[index] && quantity[index] > 0) unplaced.push({ blank: index, quantity: quantity[index], kind: "unplaceable", reason: whyUnplaceable(blank, options) });
+    if (!placeable[index] && quantity[index] > 0)
+      unplaced.push({
+        blank: index,
+        quantity: quantity[index],
+        kind: "unplaceable",
+        reason: whyUnplaceable(blank, options),
+      });
   });
   quantity.forEach((asked, index) => {
     const short = placeable[index] ? asked - produced[index] : 0;
     if (short <= 0) return;
     // Short of stock, or can the shear not cut even one of it from any sheet (a strip or piece its
     // backgauge cannot reach, with no spare to take off first)?
-    const alone = setup.presentations.some((way) => way.variants.some((variant) => variant.blank === index && writePattern(
-      { length: way.length, width: way.width }, options.trim,
-      [{ width: variant.width, pieces: [{ blank: index, length: variant.length, width: variant.width, turned: variant.turned }] }],
-      options.mmPerUnit, setup.gauge,
-    ) !== null));
-    unplaced.push(alone
-      ? { blank: index, quantity: short, kind: "stock_short", reason: "not enough stock on hand" }
-      : { blank: index, quantity: short, kind: "unplaceable", reason: `${show(blanks[index].length)} × ${show(blanks[index].width)} cannot be cut from any of the stock sheets within the backgauge's travel` });
+    const alone = setup.presentations.some((way) =>
+      way.variants.some(
+        (variant) =>
+          variant.blank === index &&
+          writePattern(
+            { length: way.length, width: way.width },
+            options.trim,
+            [
+              {
+                width: variant.width,
+                pieces: [{ blank: index, length: variant.length, width: variant.width, turned: variant.turned }],
+              },
+            ],
+            options.mmPerUnit,
+            setup.gauge,
+          ) !== null,
+      ),
+    );
+    unplaced.push(
+      alone
+        ? { blank: index, quantity: short, kind: "stock_short", reason: "not enough stock on hand" }
+        : {
+            blank: index,
+            quantity: short,
+            kind: "unplaceable",
+            reason: `${show(blanks[index].length)} × ${show(blanks[index].width)} cannot be cut from any of the stock sheets within the backgauge's travel`,
+          },
+    );
   });
   let usedArea = 0;
   let stockArea = 0;
@@ -62,11 +92,13 @@ export function assemblePlan(setup: PlanSetup, unmerged: SheetPattern[], produce
   const reusable = new Map<string, { length: number; width: number; count: number }>();
   for (const pattern of patterns) {
     stockArea += pattern.length * pattern.width * pattern.repeats;
-    for (const strip of pattern.strips) for (const piece of strip.pieces) usedArea += piece.length * piece.width * pattern.repeats;
+    for (const strip of pattern.strips)
+      for (const piece of strip.pieces) usedArea += piece.length * piece.width * pattern.repeats;
     for (const offcut of pattern.offcuts) {
       if (!offcut.reusable) continue;
       reusableArea += offcut.length * offcut.width * pattern.repeats;
-      const [long, short] = offcut.length >= offcut.width ? [offcut.length, offcut.width] : [offcut.width, offcut.length];
+      const [long, short] =
+        offcut.length >= offcut.width ? [offcut.length, offcut.width] : [offcut.width, offcut.length];
       const entry = reusable.get(`${long}x${short}`) ?? { length: long, width: short, count: 0 };
       entry.count += pattern.repeats;
       reusable.set(`${long}x${short}`, entry);

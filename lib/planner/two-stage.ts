@@ -47,7 +47,7 @@ function knapsack(capacity: number, items: { size: number; value: number; ref: n
     }
   }
   const chosen = new Map<number, number>();
-  for (let room = capacity; room > 0; ) {
+  for (let room = capacity; room > 0;) {
     const index = pick[room];
     if (index < 0) room -= 1;
     else {
@@ -58,7 +58,11 @@ function knapsack(capacity: number, items: { size: number; value: number; ref: n
   return { value: best[capacity], chosen };
 }
 
-export function bestTwoStagePattern(sheet: { length: number; width: number }, pieces: PieceType[], stripsAlong: "length" | "width" = "length"): TwoStagePattern {
+export function bestTwoStagePattern(
+  sheet: { length: number; width: number },
+  pieces: PieceType[],
+  stripsAlong: "length" | "width" = "length",
+): TwoStagePattern {
   // Strips run `stripLength` along and stack across `acrossSheet`; a piece's extent along and across the strip:
   const stripLength = stripsAlong === "length" ? sheet.length : sheet.width;
   const acrossSheet = stripsAlong === "length" ? sheet.width : sheet.length;
@@ -74,14 +78,21 @@ export function bestTwoStagePattern(sheet: { length: number; width: number }, pi
       .filter((item, index) => item.size <= stripLength && acrossStrip(pieces[index]) <= width);
     strips.set(width, knapsack(stripLength, fits));
   }
-  const stripItems = widths.map((width) => ({ size: width, value: strips.get(width)!.value, ref: width })).filter((item) => item.value > 0);
+  const stripItems = widths
+    .map((width) => ({ size: width, value: strips.get(width)!.value, ref: width }))
+    .filter((item) => item.value > 0);
   const sheetBest = knapsack(acrossSheet, stripItems);
   return {
     value: sheetBest.value,
     stripsAlong,
     strips: [...sheetBest.chosen.entries()].map(([width, count]) => {
       const strip = strips.get(width)!;
-      return { width, count, value: strip.value, pieces: [...strip.chosen.entries()].map(([index, copies]) => ({ index, count: copies })) };
+      return {
+        width,
+        count,
+        value: strip.value,
+        pieces: [...strip.chosen.entries()].map(([index, copies]) => ({ index, count: copies })),
+      };
     }),
   };
 }

@@ -22,7 +22,13 @@ export const WHOLE_SHEET_NODES = 10;
  * The fewest whole sheets over `columns` that cover `residual.wanted` within the stock, if fewer
  * than `start` uses; null otherwise (or when the solver gives up). `work` is told the effort.
  */
-export function fewerWholeSheets(solver: LpSolver, columns: Candidate[], residual: Residual, start: SheetUse[], work: (cells: number) => void): SheetUse[] | null {
+export function fewerWholeSheets(
+  solver: LpSolver,
+  columns: Candidate[],
+  residual: Residual,
+  start: SheetUse[],
+  work: (cells: number) => void,
+): SheetUse[] | null {
   const startSheets = start.reduce((sum, use) => sum + use.count, 0);
   const rows = new Map<number, number>();
   residual.wanted.forEach((count, blank) => {
@@ -34,7 +40,14 @@ export function fewerWholeSheets(solver: LpSolver, columns: Candidate[], residua
   });
   const model = solver.createModel();
   try {
-    model.options.set({ output_flag: false, presolve: "off", mip_max_nodes: WHOLE_SHEET_NODES, mip_rel_gap: 0, mip_pscost_minreliable: 0, mip_detect_symmetry: false });
+    model.options.set({
+      output_flag: false,
+      presolve: "off",
+      mip_max_nodes: WHOLE_SHEET_NODES,
+      mip_rel_gap: 0,
+      mip_pscost_minreliable: 0,
+      mip_detect_symmetry: false,
+    });
     const none = { indices: [], values: [] };
     for (const blank of rows.keys()) model.addRow(residual.wanted[blank], solver.infinity, none);
     for (const stock of stockRows.keys()) model.addRow(-solver.infinity, residual.onHand[stock]!, none);
@@ -71,7 +84,10 @@ export function fewerWholeSheets(solver: LpSolver, columns: Candidate[], residua
       if (count > 0) uses.push({ candidate: columns[column], count });
     });
     const total = uses.reduce((sum, use) => sum + use.count, 0);
-    const covers = [...rows.keys()].every((blank) => uses.reduce((sum, use) => sum + (use.candidate.uses.get(blank) ?? 0) * use.count, 0) >= residual.wanted[blank]);
+    const covers = [...rows.keys()].every(
+      (blank) =>
+        uses.reduce((sum, use) => sum + (use.candidate.uses.get(blank) ?? 0) * use.count, 0) >= residual.wanted[blank],
+    );
     return covers && total < startSheets ? uses : null;
   } finally {
     model.dispose();
@@ -83,20 +99,32 @@ export function fewerWholeSheets(solver: LpSolver, columns: Candidate[], residua
  * a sheet at a time, its program written again). Pieces a rewritten program cannot keep are
  * left for the caller to place. Returns the sheets and what they make per blank.
  */
-export function withoutSurplus(setup: PlanSetup, uses: SheetUse[], residual: Residual): { uses: SheetUse[]; produced: number[] } {
+export function withoutSurplus(
+  setup: PlanSetup,
+  uses: SheetUse[],
+  residual: Residual,
+): { uses: SheetUse[]; produced: number[] } {
   const produced = residual.wanted.map(() => 0);
   for (const use of uses) for (const [blank, count] of use.candidate.uses) produced[blank] += count * use.count;
   const result = uses.map((use) => ({ ...use }));
   residual.wanted.forEach((wanted, blank) => {
     let surplus = produced[blank] - wanted - residual.allowance[blank];
     // Fullest sheets keep their pieces; surplus comes off the emptiest first.
-    const carriers = result.filter((use) => use.candidate.uses.has(blank)).sort((a, b) => a.candidate.blanksArea - b.candidate.blanksArea);
+    const carriers = result
+      .filter((use) => use.candidate.uses.has(blank))
+      .sort((a, b) => a.candidate.blanksArea - b.candidate.blanksArea);
     for (const use of carriers) {
       while (surplus > 0 && use.count > 0) {
         const drop = Math.min(surplus, use.candidate.uses.get(blank)!);
         let left = drop;
         const strips: StripIn[] = use.candidate.strips
-          .map((strip) => ({ width: strip.width, pieces: [...strip.pieces].reverse().filter((piece) => !(piece.blank === blank && left > 0 && left-- > 0)).reverse() }))
+          .map((strip) => ({
+            width: strip.width,
+            pieces: [...strip.pieces]
+              .reverse()
+              .filter((piece) => !(piece.blank === blank && left > 0 && left-- > 0))
+              .reverse(),
+          }))
           .filter((strip) => strip.pieces.length > 0);
         use.count -= 1;
         const rewritten = strips.length ? writeCandidate(setup, use.candidate.way, strips, () => true) : null;

@@ -42,7 +42,6 @@ export async function enqueuePlan(planId: string, waitMs?: number) {
   await (waitMs === undefined ? adding : within(adding, waitMs));
 }
 
-
 /** Drop a queued plan's job, if no worker has taken it yet. */
 export async function dequeuePlan(planId: string, waitMs = 2_000) {
   const job = await within(planQueue().getJob(planId), waitMs);
@@ -61,7 +60,14 @@ export async function previewOnWorker(order: Order, context: PlanContext): Promi
   } catch {
     throw new PreviewTimeout("The planning queue is not answering.");
   }
-  const job = await within(planQueue().add("preview", { kind: "preview", order, context }, { jobId: `preview-${randomUUID()}`, removeOnComplete: { age: 60 }, removeOnFail: { age: 600 } }), 2_000).catch(() => {
+  const job = await within(
+    planQueue().add(
+      "preview",
+      { kind: "preview", order, context },
+      { jobId: `preview-${randomUUID()}`, removeOnComplete: { age: 60 }, removeOnFail: { age: 600 } },
+    ),
+    2_000,
+  ).catch(() => {
     throw new PreviewTimeout("The planning queue is not answering.");
   });
   try {

@@ -32,7 +32,11 @@ export function deliveryQueue(): Queue<DeliveryJob> {
  * no-op. With `waitMs` (the web process), stops waiting for an absent Redis after that long.
  */
 export async function enqueueAttempt(deliveryId: string, attempt: number, delayMs = 0, waitMs?: number) {
-  const adding = deliveryQueue().add("deliver", { deliveryId, attempt }, { jobId: `${deliveryId}-${attempt}`, delay: Math.max(0, delayMs) });
+  const adding = deliveryQueue().add(
+    "deliver",
+    { deliveryId, attempt },
+    { jobId: `${deliveryId}-${attempt}`, delay: Math.max(0, delayMs) },
+  );
   await (waitMs === undefined ? adding : within(adding, waitMs));
 }
 
@@ -42,7 +46,9 @@ export async function enqueueAttempt(deliveryId: string, attempt: number, delayM
  */
 export async function within<T>(work: Promise<T>, ms: number): Promise<T> {
   let timer: NodeJS.Timeout | undefined;
-  const timeout = new Promise<never>((_, reject) => { timer = setTimeout(() => reject(new Error(`Redis did not answer within ${ms} ms`)), ms); });
+  const timeout = new Promise<never>((_, reject) => {
+    timer = setTimeout(() => reject(new Error(`Redis did not answer within ${ms} ms`)), ms);
+  });
   work.catch(() => undefined);
   try {
     return await Promise.race([work, timeout]);
@@ -50,7 +56,6 @@ export async function within<T>(work: Promise<T>, ms: number): Promise<T> {
     clearTimeout(timer);
   }
 }
-
 
 export async function closeQueue() {
   const q = holder.__shearwireQueue;

@@ -21,7 +21,12 @@ export const SetupRequest = z
     grade: z.string().trim().min(1).max(50),
     thickness: Thickness,
     units: z.enum(["in", "mm"]),
-    length: z.number().positive().max(100_000).optional().openapi({ description: "Length of cut in `units`; defaults to the blade length" }),
+    length: z
+      .number()
+      .positive()
+      .max(100_000)
+      .optional()
+      .openapi({ description: "Length of cut in `units`; defaults to the blade length" }),
   })
   .strict()
   .openapi("SetupRequest");

@@ -9,16 +9,28 @@ export const Problem = z
     instance: z.string().optional(),
     requestId: z.string().optional(),
     errors: z
-      .array(z.object({ location: z.enum(["body", "query", "path", "header"]), pointer: z.string(), message: z.string() }))
+      .array(
+        z.object({ location: z.enum(["body", "query", "path", "header"]), pointer: z.string(), message: z.string() }),
+      )
       .optional()
-      .openapi({ description: "For schema errors: where each problem is, as a JSON pointer into that part of the request." }),
+      .openapi({
+        description: "For schema errors: where each problem is, as a JSON pointer into that part of the request.",
+      }),
   })
   .catchall(z.unknown())
   .openapi("Problem", { description: "An error, as application/problem+json (RFC 9457)." });
 
 export const idParam = (prefix: string, what: string) =>
   z.object({
-    id: z.string().min(1).max(64).openapi({ param: { name: "id", in: "path" }, example: `${prefix}_01JEXAMPLE0000000000000000`, description: `The ${what}'s id.` }),
+    id: z
+      .string()
+      .min(1)
+      .max(64)
+      .openapi({
+        param: { name: "id", in: "path" },
+        example: `${prefix}_01JEXAMPLE0000000000000000`,
+        description: `The ${what}'s id.`,
+      }),
   });
 
 export const Pagination = z.object({
@@ -30,6 +42,9 @@ export const listOf = <T extends z.ZodType>(item: T, name: string) =>
   z
     .object({
       data: z.array(item),
-      next_cursor: z.string().nullable().openapi({ description: "Pass as `cursor` for the next page; null on the last page." }),
+      next_cursor: z
+        .string()
+        .nullable()
+        .openapi({ description: "Pass as `cursor` for the next page; null on the last page." }),
     })
     .openapi(name);

@@ -1,7 +1,22 @@
 /** Enumerations shared by entities, schemas and the browser (no imports: safe in any bundle). */
-export const GRADE_FAMILIES = ["carbon-steel", "hsla-steel", "stainless", "aluminium", "copper", "abrasion-resistant"] as const;
+export const GRADE_FAMILIES = [
+  "carbon-steel",
+  "hsla-steel",
+  "stainless",
+  "aluminium",
+  "copper",
+  "abrasion-resistant",
+] as const;
 export const GAUGE_FAMILIES = ["msg", "galvanized", "ussg", "awg"] as const;
-export const PROGRAM_STATUSES = ["draft", "released", "claimed", "running", "completed", "failed", "cancelled"] as const;
+export const PROGRAM_STATUSES = [
+  "draft",
+  "released",
+  "claimed",
+  "running",
+  "completed",
+  "failed",
+  "cancelled",
+] as const;
 export type ProgramStatus = (typeof PROGRAM_STATUSES)[number];
 export const ROLES = ["owner", "admin", "developer", "viewer"] as const;
 export type Role = (typeof ROLES)[number];
@@ -14,9 +29,20 @@ export const PLAN_OBJECTIVE_LABELS: Record<(typeof PLAN_OBJECTIVES)[number], str
 
 /** Every event type Shearwire emits. */
 export const EVENT_TYPES = [
-  "program.created", "program.updated", "program.released", "program.claimed", "program.started",
-  "program.progressed", "program.completed", "program.failed", "program.cancelled", "program.lease_expired",
-  "plan.completed", "plan.failed", "plan.cancelled", "endpoint.test",
+  "program.created",
+  "program.updated",
+  "program.released",
+  "program.claimed",
+  "program.started",
+  "program.progressed",
+  "program.completed",
+  "program.failed",
+  "program.cancelled",
+  "program.lease_expired",
+  "plan.completed",
+  "plan.failed",
+  "plan.cancelled",
+  "endpoint.test",
 ] as const;
 export type EventType = (typeof EVENT_TYPES)[number];
 
@@ -37,3 +63,16 @@ export const EVENT_TYPE_WORDS: Record<EventType, string> = {
   "plan.cancelled": "A plan was cancelled before it was computed.",
   "endpoint.test": "A test event, sent only to the endpoint it was asked for.",
 };
+
+/** What an API key may do. */
+export const SCOPES = [
+  "programs:read",
+  "programs:write",
+  "programs:release",
+  "gateway",
+  "catalog:read",
+  "catalog:write",
+  "events:read",
+  "webhooks:write",
+] as const;
+export type Scope = (typeof SCOPES)[number];

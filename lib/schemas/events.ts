@@ -12,7 +12,9 @@ import { Program } from "./program";
 import { z } from "./zod";
 
 const from = z.enum(PROGRAM_STATUSES).openapi({ description: "The state the program was in before" });
-const gateway = z.string().openapi({ description: "The id of the gateway's API key", example: "key_01JEXAMPLE0000000000000000" });
+const gateway = z
+  .string()
+  .openapi({ description: "The id of the gateway's API key", example: "key_01JEXAMPLE0000000000000000" });
 
 const Outcome = z.object({
   goodPieces: z.number().int(),
@@ -23,18 +25,32 @@ const Outcome = z.object({
 
 export const EVENT_DATA = {
   "program.created": z.object({ program: Program }),
-  "program.updated": z.object({ program: Program, changed: z.array(z.string()).openapi({ description: "The fields the change sent" }) }),
+  "program.updated": z.object({
+    program: Program,
+    changed: z.array(z.string()).openapi({ description: "The fields the change sent" }),
+  }),
   "program.released": z.object({ program: Program, from }),
   "program.claimed": z.object({ program: Program, from, gateway }),
   "program.started": z.object({ program: Program, from }),
   "program.progressed": z.object({
-    program: Program, from,
-    progress: z.object({ groupsDone: z.number().int(), strokesDone: z.number().int(), piecesDone: z.number().int().optional() }),
+    program: Program,
+    from,
+    progress: z.object({
+      groupsDone: z.number().int(),
+      strokesDone: z.number().int(),
+      piecesDone: z.number().int().optional(),
+    }),
   }),
   "program.completed": z.object({ program: Program, from, outcome: Outcome }),
   "program.failed": z.object({
-    program: Program, from,
-    outcome: z.object({ reason: z.enum(FAILURE_REASONS), message: z.string().optional(), goodPieces: z.number().int().optional(), scrappedPieces: z.number().int().optional() }),
+    program: Program,
+    from,
+    outcome: z.object({
+      reason: z.enum(FAILURE_REASONS),
+      message: z.string().optional(),
+      goodPieces: z.number().int().optional(),
+      scrappedPieces: z.number().int().optional(),
+    }),
   }),
   "program.cancelled": z.object({ program: Program, from, reason: z.string().nullable() }),
   "program.lease_expired": z.object({ program: Program, from, gateway, reason: z.string() }),
@@ -57,4 +73,7 @@ export function webhookEnvelope(type: EventType) {
     .openapi(`Webhook_${type.replace(/\./g, "_")}`);
 }
 
-export const WEBHOOK_ENVELOPES = Object.fromEntries(EVENT_TYPES.map((type) => [type, webhookEnvelope(type)])) as Record<EventType, ReturnType<typeof webhookEnvelope>>;
+export const WEBHOOK_ENVELOPES = Object.fromEntries(EVENT_TYPES.map((type) => [type, webhookEnvelope(type)])) as Record<
+  EventType,
+  ReturnType<typeof webhookEnvelope>
+>;

@@ -3,18 +3,37 @@ import { Program } from "./program";
 import { z } from "./zod";
 
 export const FAILURE_REASONS = [
-  "guard_tripped", "light_curtain", "overload", "operator_abort", "blade_damage", "material_problem",
-  "backgauge_fault", "hydraulic_fault", "power_loss", "other",
+  "guard_tripped",
+  "light_curtain",
+  "overload",
+  "operator_abort",
+  "blade_damage",
+  "material_problem",
+  "backgauge_fault",
+  "hydraulic_fault",
+  "power_loss",
+  "other",
 ] as const;
 
 /** A count a run reports; checked against the program as well (a run cannot make more than its program). */
 const count = () => z.number().int().min(0).max(10_000_000);
 
-const leaseSeconds = z.number().int().min(10).max(600).optional().openapi({ description: "Lease length in seconds (default 60)" });
+const leaseSeconds = z
+  .number()
+  .int()
+  .min(10)
+  .max(600)
+  .optional()
+  .openapi({ description: "Lease length in seconds (default 60)" });
 
 export const ClaimRequest = z
   .object({
-    waitSeconds: z.number().min(0).max(30).optional().openapi({ description: "Wait up to this long for a program (long poll); 0 answers at once. Default 0." }),
+    waitSeconds: z
+      .number()
+      .min(0)
+      .max(30)
+      .optional()
+      .openapi({ description: "Wait up to this long for a program (long poll); 0 answers at once. Default 0." }),
     leaseSeconds,
   })
   .strict()
@@ -27,7 +46,9 @@ export const HeartbeatRequest = z.object({ leaseSeconds }).strict().openapi("Hea
 
 export const ProgressReport = z
   .object({
-    groupsDone: count().openapi({ description: "Cut groups finished, over all sheets so far (at most the program's groups × sheets)" }),
+    groupsDone: count().openapi({
+      description: "Cut groups finished, over all sheets so far (at most the program's groups × sheets)",
+    }),
     strokesDone: count().openapi({ description: "Strokes made so far (at most the program's strokes)" }),
     piecesDone: count().optional().openapi({ description: "Blanks made so far (at most the program's blanks)" }),
     leaseSeconds,
@@ -37,7 +58,9 @@ export const ProgressReport = z
 
 export const CompletionReport = z
   .object({
-    goodPieces: count().openapi({ description: "Good blanks made; with `scrappedPieces`, at most the program's blanks" }),
+    goodPieces: count().openapi({
+      description: "Good blanks made; with `scrappedPieces`, at most the program's blanks",
+    }),
     scrappedPieces: count().default(0),
     sheetsUsed: count().optional().openapi({ description: "Sheets cut (at most the program's `sheet.count`)" }),
     notes: z.string().max(2000).optional(),

@@ -2,21 +2,52 @@
 import { GAUGE_FAMILIES, GRADE_FAMILIES } from "./enums";
 import { z } from "./zod";
 
-const mpa = (d: string) => z.number().positive().max(3000).nullable().openapi({ description: `${d} (MPa)` });
+const mpa = (d: string) =>
+  z
+    .number()
+    .positive()
+    .max(3000)
+    .nullable()
+    .openapi({ description: `${d} (MPa)` });
 
 const GradeFields = z.object({
-  code: z.string().trim().min(1).max(50).regex(/^[\w.\-/ ]+$/).openapi({ description: "The code programs use", example: "A36" }),
+  code: z
+    .string()
+    .trim()
+    .min(1)
+    .max(50)
+    .regex(/^[\w.\-/ ]+$/)
+    .openapi({ description: "The code programs use", example: "A36" }),
   name: z.string().trim().min(1).max(200),
   family: z.enum(GRADE_FAMILIES),
-  standard: z.string().trim().min(1).max(200).openapi({ description: "The standard the values come from, or why there is none", example: "ASTM A36/A36M" }),
+  standard: z
+    .string()
+    .trim()
+    .min(1)
+    .max(200)
+    .openapi({ description: "The standard the values come from, or why there is none", example: "ASTM A36/A36M" }),
   yieldMpa: mpa("Yield strength"),
   tensileMinMpa: mpa("Minimum tensile strength from the standard"),
   tensileTypicalMpa: mpa("Typical tensile strength, used when no minimum is given").optional(),
   tensileMaxMpa: mpa("Upper end of the tensile range").optional(),
-  valuesAreTypical: z.boolean().optional().openapi({ description: "True when the strengths are typical values, not a standard's minimums" }),
-  shearTensileRatio: z.number().gt(0).lte(1).optional().openapi({ description: "Shear strength over tensile strength; default by family" }),
+  valuesAreTypical: z
+    .boolean()
+    .optional()
+    .openapi({ description: "True when the strengths are typical values, not a standard's minimums" }),
+  shearTensileRatio: z
+    .number()
+    .gt(0)
+    .lte(1)
+    .optional()
+    .openapi({ description: "Shear strength over tensile strength; default by family" }),
   gaugeFamily: z.enum(GAUGE_FAMILIES).nullable().optional(),
-  hardnessHb: z.number().positive().max(800).nullable().optional().openapi({ description: "Highest hardness to expect (Brinell)" }),
+  hardnessHb: z
+    .number()
+    .positive()
+    .max(800)
+    .nullable()
+    .optional()
+    .openapi({ description: "Highest hardness to expect (Brinell)" }),
   note: z.string().max(1000).nullable().optional(),
 });
 

@@ -1,5 +1,5 @@
 /** API keys as the console creates them (keys have no public API: they are made in the console or from the shell). */
-import { SCOPES } from "../../entities/ApiKey";
+import { SCOPES } from "../../lib/schemas/enums";
 import { z } from "./zod";
 
 export const KeyInput = z
@@ -16,12 +16,11 @@ export const KeyInput = z
   })
   .strict();
 
-export type KeyInputT = z.infer<typeof KeyInput>;
-
 /** What each scope lets a key do, in a sentence (the console and the reference show these). */
 export const SCOPE_WORDS: Record<(typeof SCOPES)[number], string> = {
   "programs:read": "Read programs and plans, and check programs without storing them.",
-  "programs:write": "Create and change draft programs, plan order lines, write a plan's programs, cancel programs and plans.",
+  "programs:write":
+    "Create and change draft programs, plan order lines, write a plan's programs, cancel programs and plans.",
   "programs:release": "Release checked programs to the shear (the gateway can then claim and run them).",
   gateway: "For the gateway beside a shear: claim released programs and report the run (bind it to its shears).",
   "catalog:read": "Read shears, grades, gauges and setup recommendations.",
@@ -32,9 +31,24 @@ export const SCOPE_WORDS: Record<(typeof SCOPES)[number], string> = {
 
 /** Ready-made sets of scopes for the usual kinds of key. */
 export const KEY_PRESETS: { name: string; label: string; scopes: (typeof SCOPES)[number][]; note: string }[] = [
-  { name: "erp", label: "ERP integration", scopes: ["programs:read", "programs:write", "programs:release", "catalog:read", "events:read", "webhooks:write"], note: "pushes orders, releases them, hears back through webhooks" },
-  { name: "gateway", label: "Machine gateway", scopes: ["gateway", "programs:read"], note: "runs beside one shear: bind it to that shear below" },
-  { name: "read-only", label: "Read-only", scopes: ["programs:read", "catalog:read", "events:read"], note: "dashboards and reports; the only kind a developer may create" },
+  {
+    name: "erp",
+    label: "ERP integration",
+    scopes: ["programs:read", "programs:write", "programs:release", "catalog:read", "events:read", "webhooks:write"],
+    note: "pushes orders, releases them, hears back through webhooks",
+  },
+  {
+    name: "gateway",
+    label: "Machine gateway",
+    scopes: ["gateway", "programs:read"],
+    note: "runs beside one shear: bind it to that shear below",
+  },
+  {
+    name: "read-only",
+    label: "Read-only",
+    scopes: ["programs:read", "catalog:read", "events:read"],
+    note: "dashboards and reports; the only kind a developer may create",
+  },
 ];
 
 /** Scopes a developer may give a key of their own making: reading only. */

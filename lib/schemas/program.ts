@@ -6,15 +6,31 @@
 import { PROGRAM_STATUSES } from "./enums";
 import { z } from "./zod";
 
-const length = (d: string) => z.number().positive().max(100_000).openapi({ description: `${d}, in the program's units` });
+const length = (d: string) =>
+  z
+    .number()
+    .positive()
+    .max(100_000)
+    .openapi({ description: `${d}, in the program's units` });
 
 export const CutGroupInput = z
   .object({
     backgauge: length("Backgauge distance: the width of each piece this group cuts off"),
-    count: z.number().int().min(0).max(1000).openapi({ description: "Strokes at this setting, per workpiece the group runs on" }),
+    count: z
+      .number()
+      .int()
+      .min(0)
+      .max(1000)
+      .openapi({ description: "Strokes at this setting, per workpiece the group runs on" }),
     length: length("Length of cut; defaults to the presented edge, shorter for a partial stroke").optional(),
-    turn: z.boolean().optional().openapi({ description: "Take every piece the previous group made (or group `from` made), turned 90°, and run this group on each" }),
-    from: z.number().int().min(0).max(499).optional().openapi({ description: "With `turn`: the 0-based index of the earlier group whose pieces this group takes (default: the group just before). Lets one program rip strips of several widths and then crosscut each kind." }),
+    turn: z.boolean().optional().openapi({
+      description:
+        "Take every piece the previous group made (or group `from` made), turned 90°, and run this group on each",
+    }),
+    from: z.number().int().min(0).max(499).optional().openapi({
+      description:
+        "With `turn`: the 0-based index of the earlier group whose pieces this group takes (default: the group just before). Lets one program rip strips of several widths and then crosscut each kind.",
+    }),
     scrap: z.boolean().optional().openapi({ description: "The pieces of this group are offcut (a trim cut)" }),
     note: z.string().max(200).optional(),
   })
@@ -26,21 +42,34 @@ export const SetupOverridesInput = z
     rakeDeg: z.number().min(0).max(45).optional().openapi({ description: "Rake angle (degrees)" }),
     bladeGapMm: z.number().min(0).max(50).optional(),
     bladeGapIn: z.number().min(0).max(2).optional(),
-    holdDownPct: z.number().min(0).max(100).optional().openapi({ description: "Hold-down as a percentage of the machine's full hold-down force" }),
+    holdDownPct: z
+      .number()
+      .min(0)
+      .max(100)
+      .optional()
+      .openapi({ description: "Hold-down as a percentage of the machine's full hold-down force" }),
     crownMm: z.number().min(0).max(5).optional(),
     crownIn: z.number().min(0).max(0.2).optional(),
     backgaugeRetractMm: z.number().min(0).max(100).optional(),
     backgaugeRetractIn: z.number().min(0).max(4).optional(),
   })
   .strict()
-  .openapi("SetupOverrides", { description: "Setup values the program fixes itself; each overrides the computed one and is still checked." });
+  .openapi("SetupOverrides", {
+    description: "Setup values the program fixes itself; each overrides the computed one and is still checked.",
+  });
 
 export const Thickness = z
   .union([
     z.object({ value: length("Thickness") }).strict(),
-    z.object({ gauge: z.number().int().min(0).max(50).openapi({ description: "Gauge number in the grade's gauge system" }) }).strict(),
+    z
+      .object({
+        gauge: z.number().int().min(0).max(50).openapi({ description: "Gauge number in the grade's gauge system" }),
+      })
+      .strict(),
   ])
-  .openapi("Thickness", { description: '`{ "value": n }` in the program\'s units, or `{ "gauge": n }` in the grade\'s gauge system.' });
+  .openapi("Thickness", {
+    description: '`{ "value": n }` in the program\'s units, or `{ "gauge": n }` in the grade\'s gauge system.',
+  });
 
 /** What a program or a plan is cut on and from: the shear, the grade and its thickness. */
 export const jobFields = () => ({
@@ -53,7 +82,12 @@ export const jobFields = () => ({
 });
 
 const programFields = {
-  reference: z.string().trim().min(1).max(100).openapi({ description: "Your order reference; unique per shop", example: "SO-2291/4" }),
+  reference: z
+    .string()
+    .trim()
+    .min(1)
+    .max(100)
+    .openapi({ description: "Your order reference; unique per shop", example: "SO-2291/4" }),
   title: z.string().max(200).optional(),
   ...jobFields(),
   units: z.enum(["in", "mm"]).openapi({ description: "Units of every length in this program" }),
@@ -103,19 +137,29 @@ export const ProgramPatch = z
   .partial()
   .strict()
   .refine((p) => Object.keys(p).length > 0, { message: "send at least one field to change" })
-  .openapi("ProgramPatch", { description: "Fields to replace; `cuts`, `sheet`, `setup` and `metadata` are replaced whole." });
+  .openapi("ProgramPatch", {
+    description: "Fields to replace; `cuts`, `sheet`, `setup` and `metadata` are replaced whole.",
+  });
 
 // ---------------------------------------------------------------- the check (the shear core's answer)
 
 const Quantity = { value: z.number(), unit: z.string() };
-const SetupValue = z.object({ ...Quantity, source: z.enum(["computed", "given"]), why: z.string() }).openapi("SetupValue");
+const SetupValue = z
+  .object({ ...Quantity, source: z.enum(["computed", "given"]), why: z.string() })
+  .openapi("SetupValue");
 
 export const Finding = z
   .object({
-    code: z.string().openapi({ description: "Stable code; see the finding list in the docs", example: "backgauge_beyond_workpiece" }),
-    severity: z.enum(["error", "warning"]).openapi({ description: "`error` blocks release; a `warning` must be acknowledged" }),
+    code: z
+      .string()
+      .openapi({ description: "Stable code; see the finding list in the docs", example: "backgauge_beyond_workpiece" }),
+    severity: z
+      .enum(["error", "warning"])
+      .openapi({ description: "`error` blocks release; a `warning` must be acknowledged" }),
     message: z.string(),
-    pointer: z.string().openapi({ description: "JSON pointer into the submitted program", example: "/cuts/1/backgauge" }),
+    pointer: z
+      .string()
+      .openapi({ description: "JSON pointer into the submitted program", example: "/cuts/1/backgauge" }),
     limit: z.number().nullable(),
     actual: z.number().nullable(),
     unit: z.string().nullable(),
@@ -124,8 +168,13 @@ export const Finding = z
 
 const Piece = z.object({ group: z.number().int(), width: z.number(), length: z.number(), count: z.number().int() });
 const Totals = z.object({
-  blanks: z.number(), blankArea: z.number(), offcutPieces: z.number(), offcutArea: z.number(),
-  turnedPieces: z.number(), strokes: z.number(), stockArea: z.number(),
+  blanks: z.number(),
+  blankArea: z.number(),
+  offcutPieces: z.number(),
+  offcutArea: z.number(),
+  turnedPieces: z.number(),
+  strokes: z.number(),
+  stockArea: z.number(),
 });
 
 export const Check = z
@@ -134,16 +183,31 @@ export const Check = z
     units: z.enum(["in", "mm"]).nullable(),
     findings: z.array(Finding),
     thickness: z
-      .object({ value: z.number(), unit: z.enum(["in", "mm"]), source: z.enum(["value", "gauge"]), gauge: z.number().nullable(), gaugeFamily: z.string().nullable() })
+      .object({
+        value: z.number(),
+        unit: z.enum(["in", "mm"]),
+        source: z.enum(["value", "gauge"]),
+        gauge: z.number().nullable(),
+        gaugeFamily: z.string().nullable(),
+      })
       .nullable(),
     setup: z
       .object({
-        bladeGap: SetupValue.openapi({ description: "The gap the material needs at this thickness (set at the blade ends)" }),
-        gapEnds: SetupValue.optional().openapi({ description: "Gap to set at the ends of the blade (absent from checks stored before it was reported)" }),
-        gapCentre: SetupValue.optional().openapi({ description: "Gap to set at the centre: the ends less the crown (absent from checks stored before it was reported)" }),
+        bladeGap: SetupValue.openapi({
+          description: "The gap the material needs at this thickness (set at the blade ends)",
+        }),
+        gapEnds: SetupValue.optional().openapi({
+          description: "Gap to set at the ends of the blade (absent from checks stored before it was reported)",
+        }),
+        gapCentre: SetupValue.optional().openapi({
+          description:
+            "Gap to set at the centre: the ends less the crown (absent from checks stored before it was reported)",
+        }),
         rake: SetupValue,
         holdDown: SetupValue,
-        crown: SetupValue.openapi({ description: "Ends minus centre: a baseline with no load plus a part proportional to the force" }),
+        crown: SetupValue.openapi({
+          description: "Ends minus centre: a baseline with no load plus a part proportional to the force",
+        }),
         backgaugeRetract: SetupValue,
       })
       .nullable()
@@ -158,7 +222,14 @@ export const Check = z
         rakeDeg: z.number(),
         tensile: z.object({ ...Quantity, basis: z.enum(["minimum", "typical"]) }),
         maxThicknessForGrade: z.object({ ...Quantity, source: z.enum(["shear-profile", "model"]), why: z.string() }),
-        byGroup: z.array(z.object({ group: z.number().int(), cutLength: z.number(), force: z.number(), model: z.enum(["raked", "straight"]) })),
+        byGroup: z.array(
+          z.object({
+            group: z.number().int(),
+            cutLength: z.number(),
+            force: z.number(),
+            model: z.enum(["raked", "straight"]),
+          }),
+        ),
       })
       .nullable(),
     yield: z
@@ -169,32 +240,62 @@ export const Check = z
         perSheet: Totals,
         total: Totals,
         utilisationPct: z.number(),
-        groups: z.array(z.object({ group: z.number().int(), workpieces: z.number(), strokes: z.number(), pieces: z.array(Piece), piecesBecome: z.enum(["blanks", "offcut", "turned"]) })),
+        groups: z.array(
+          z.object({
+            group: z.number().int(),
+            workpieces: z.number(),
+            strokes: z.number(),
+            pieces: z.array(Piece),
+            piecesBecome: z.enum(["blanks", "offcut", "turned"]),
+          }),
+        ),
         blanks: z.array(Piece),
         offcuts: z.array(Piece),
       })
       .nullable(),
     estimate: z
       .object({
-        strokes: z.number(), backgaugeMoves: z.number(), turns: z.number(), sheets: z.number(),
-        seconds: z.object({ strokes: z.number(), backgauge: z.number(), turns: z.number(), sheets: z.number(), total: z.number() }),
+        strokes: z.number(),
+        backgaugeMoves: z.number(),
+        turns: z.number(),
+        sheets: z.number(),
+        seconds: z.object({
+          strokes: z.number(),
+          backgauge: z.number(),
+          turns: z.number(),
+          sheets: z.number(),
+          total: z.number(),
+        }),
       })
       .nullable(),
     layout: z
       .object({
         unit: z.enum(["in", "mm"]),
-        rectangles: z.array(z.object({
-          kind: z.enum(["blank", "scrap", "offcut"]),
-          group: z.number().int().openapi({ description: "Group that made it (−1: the stock sheet, never cut)" }),
-          stroke: z.number().int().nullable().openapi({ description: "1-based stroke on the sheet, in cutting order, that cut it off; null for a remnant taken as a piece and for offcut left over" }),
-          x: z.number(), y: z.number(),
-          width: z.number().openapi({ description: "Extent along x (the sheet's length)" }),
-          height: z.number().openapi({ description: "Extent along y (the sheet's width, toward the backgauge)" }),
-        })),
-        cuts: z.array(z.object({
-          group: z.number().int(), stroke: z.number().int(), x1: z.number(), y1: z.number(), x2: z.number(), y2: z.number(),
-          partial: z.boolean().openapi({ description: "A partial stroke: cuts part of the edge, severs nothing" }),
-        })),
+        rectangles: z.array(
+          z.object({
+            kind: z.enum(["blank", "scrap", "offcut"]),
+            group: z.number().int().openapi({ description: "Group that made it (−1: the stock sheet, never cut)" }),
+            stroke: z.number().int().nullable().openapi({
+              description:
+                "1-based stroke on the sheet, in cutting order, that cut it off; null for a remnant taken as a piece and for offcut left over",
+            }),
+            x: z.number(),
+            y: z.number(),
+            width: z.number().openapi({ description: "Extent along x (the sheet's length)" }),
+            height: z.number().openapi({ description: "Extent along y (the sheet's width, toward the backgauge)" }),
+          }),
+        ),
+        cuts: z.array(
+          z.object({
+            group: z.number().int(),
+            stroke: z.number().int(),
+            x1: z.number(),
+            y1: z.number(),
+            x2: z.number(),
+            y2: z.number(),
+            partial: z.boolean().openapi({ description: "A partial stroke: cuts part of the edge, severs nothing" }),
+          }),
+        ),
       })
       .nullable()
       .optional()
@@ -203,7 +304,10 @@ export const Check = z
           "One sheet as it is cut, from the same piece flow as the yield: x along the sheet's length (the edge first presented to the blade), y along its width toward the backgauge, origin at the corner where the first strip is cut, in the program's units. Null when the program has no usable sheet or too many pieces to place; absent from checks stored before it was reported.",
       }),
   })
-  .openapi("Check", { description: "What the shear core made of a program: findings, setup, force, yield and cycle estimate, in the program's units." });
+  .openapi("Check", {
+    description:
+      "What the shear core made of a program: findings, setup, force, yield and cycle estimate, in the program's units.",
+  });
 
 export const Program = z
   .object({
@@ -225,11 +329,23 @@ export const Program = z
         claimedBy: z.string().nullable().openapi({ description: "The gateway key holding the lease" }),
         claimedAt: z.string().nullable(),
         leaseExpiresAt: z.string().nullable(),
-        leaseExpiries: z.number().int().openapi({ description: "How often a gateway went quiet and the program went back to `released`" }),
+        leaseExpiries: z
+          .number()
+          .int()
+          .openapi({ description: "How often a gateway went quiet and the program went back to `released`" }),
         startedAt: z.string().nullable(),
         finishedAt: z.string().nullable(),
-        progress: z.object({ groupsDone: z.number().int(), strokesDone: z.number().int(), piecesDone: z.number().int().optional() }).nullable(),
-        outcome: z.record(z.string(), z.unknown()).nullable().openapi({ description: "The completion or failure report" }),
+        progress: z
+          .object({
+            groupsDone: z.number().int(),
+            strokesDone: z.number().int(),
+            piecesDone: z.number().int().optional(),
+          })
+          .nullable(),
+        outcome: z
+          .record(z.string(), z.unknown())
+          .nullable()
+          .openapi({ description: "The completion or failure report" }),
       })
       .openapi("ProgramRun", { description: "What happened at the machine." }),
     createdAt: z.string(),
@@ -239,20 +355,38 @@ export const Program = z
 
 export const ReleaseInput = z
   .object({
-    acknowledge: z.array(z.string().max(64)).max(50).optional().openapi({ description: "Warning codes you have read and accept", example: ["strip_narrow"] }),
+    acknowledge: z
+      .array(z.string().max(64))
+      .max(50)
+      .optional()
+      .openapi({ description: "Warning codes you have read and accept", example: ["strip_narrow"] }),
   })
   .strict()
   .openapi("ReleaseInput");
 
-export const CancelInput = z.object({ reason: z.string().max(500).optional() }).strict().openapi("CancelInput");
+export const CancelInput = z
+  .object({ reason: z.string().max(500).optional() })
+  .strict()
+  .openapi("CancelInput");
 
 export const ProgramListQuery = z.object({
   status: z.enum(PROGRAM_STATUSES).optional(),
   shear: z.string().max(64).optional().openapi({ description: "Only programs for this shear id" }),
   reference: z.string().max(100).optional().openapi({ description: "Only the program with this reference" }),
-  search: z.string().min(1).max(100).optional().openapi({ description: "Only programs whose reference or title contains this, in any case" }),
-  updatedSince: z.iso.datetime({ offset: true }).optional().openapi({ description: "Only programs changed at or after this time" }),
-  updated_since: z.iso.datetime({ offset: true }).optional().openapi({ description: "The earlier spelling of `updatedSince`, still accepted", deprecated: true }),
+  search: z
+    .string()
+    .min(1)
+    .max(100)
+    .optional()
+    .openapi({ description: "Only programs whose reference or title contains this, in any case" }),
+  updatedSince: z.iso
+    .datetime({ offset: true })
+    .optional()
+    .openapi({ description: "Only programs changed at or after this time" }),
+  updated_since: z.iso
+    .datetime({ offset: true })
+    .optional()
+    .openapi({ description: "The earlier spelling of `updatedSince`, still accepted", deprecated: true }),
 });
 
 export type ProgramInputT = z.infer<typeof ProgramInput>;

@@ -7,13 +7,21 @@ export const EventType = z.enum(EVENT_TYPES).openapi("EventType");
 const url = z
   .url({ protocol: /^https?$/ })
   .max(2000)
-  .openapi({ description: "Where to POST events (http or https). Loopback and private addresses are refused unless this install allows on-premises receivers.", example: "https://erp.example/hooks/shearwire" });
+  .openapi({
+    description:
+      "Where to POST events (http or https). Loopback and private addresses are refused unless this install allows on-premises receivers.",
+    example: "https://erp.example/hooks/shearwire",
+  });
 
 export const EndpointInput = z
   .object({
     url,
     description: z.string().max(200).optional(),
-    eventTypes: z.array(EventType).max(EVENT_TYPES.length).optional().openapi({ description: "Event types to receive; empty or absent = all" }),
+    eventTypes: z
+      .array(EventType)
+      .max(EVENT_TYPES.length)
+      .optional()
+      .openapi({ description: "Event types to receive; empty or absent = all" }),
     enabled: z.boolean().optional(),
   })
   .strict()
@@ -29,7 +37,10 @@ export const Endpoint = z
     eventTypes: z.array(EventType),
     enabled: z.boolean(),
     disabledReason: z.string().nullable(),
-    secretRotation: z.object({ previousSecretExpiresAt: z.string() }).nullable().openapi({ description: "While set, deliveries carry signatures with both the new and the previous secret" }),
+    secretRotation: z
+      .object({ previousSecretExpiresAt: z.string() })
+      .nullable()
+      .openapi({ description: "While set, deliveries carry signatures with both the new and the previous secret" }),
     consecutiveFailures: z.number().int(),
     createdAt: z.string(),
     updatedAt: z.string(),
@@ -37,17 +48,32 @@ export const Endpoint = z
   .openapi("WebhookEndpoint");
 
 export const EndpointWithSecret = z
-  .object({ endpoint: Endpoint, secret: z.string().openapi({ description: "The signing secret, shown this once", example: "whsec_MfKQ9r8GKYqrTwjUPD8ILPZIo2LaLaSw" }) })
+  .object({
+    endpoint: Endpoint,
+    secret: z.string().openapi({
+      description: "The signing secret, shown this once",
+      example: "whsec_MfKQ9r8GKYqrTwjUPD8ILPZIo2LaLaSw",
+    }),
+  })
   .openapi("WebhookEndpointWithSecret");
 
 export const RotateInput = z
-  .object({ overlapHours: z.number().min(0).max(168).optional().openapi({ description: "How long the previous secret keeps signing too (default 24)" }) })
+  .object({
+    overlapHours: z
+      .number()
+      .min(0)
+      .max(168)
+      .optional()
+      .openapi({ description: "How long the previous secret keeps signing too (default 24)" }),
+  })
   .strict()
   .openapi("RotateSecretInput");
 
 export const Event = z
   .object({
-    id: z.string().openapi({ description: "Also the `webhook-id` of its deliveries", example: "evt_01JEXAMPLE0000000000000000" }),
+    id: z
+      .string()
+      .openapi({ description: "Also the `webhook-id` of its deliveries", example: "evt_01JEXAMPLE0000000000000000" }),
     type: EventType,
     subjectId: z.string(),
     data: z.record(z.string(), z.unknown()),
@@ -59,11 +85,20 @@ export const Attempt = z
   .object({
     id: z.string(),
     attemptedAt: z.string(),
-    requestHeaders: z.record(z.string(), z.string()).nullable().openapi({ description: "The headers sent, signature included (the body is the event's webhook payload)" }),
+    requestHeaders: z
+      .record(z.string(), z.string())
+      .nullable()
+      .openapi({ description: "The headers sent, signature included (the body is the event's webhook payload)" }),
     statusCode: z.number().int().nullable(),
-    responseHeaders: z.record(z.string(), z.string()).nullable().openapi({ description: "The receiver's response headers" }),
+    responseHeaders: z
+      .record(z.string(), z.string())
+      .nullable()
+      .openapi({ description: "The receiver's response headers" }),
     latencyMs: z.number(),
-    responseExcerpt: z.string().nullable().openapi({ description: "The first 2,000 characters of the receiver's response body" }),
+    responseExcerpt: z
+      .string()
+      .nullable()
+      .openapi({ description: "The first 2,000 characters of the receiver's response body" }),
     error: z.string().nullable(),
   })
   .openapi("DeliveryAttempt");
@@ -91,7 +126,10 @@ export const EventQuery = z.object({
   subject: z.string().max(64).optional().openapi({ description: "Only events about this object id" }),
 });
 
-export const ResendInput = z.object({ endpoint: z.string().min(1).max(64).openapi({ description: "The endpoint to send to" }) }).strict().openapi("ResendInput");
+export const ResendInput = z
+  .object({ endpoint: z.string().min(1).max(64).openapi({ description: "The endpoint to send to" }) })
+  .strict()
+  .openapi("ResendInput");
 
 export type EndpointT = z.infer<typeof Endpoint>;
 export type DeliveryT = z.infer<typeof Delivery>;

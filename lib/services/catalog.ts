@@ -5,8 +5,8 @@ import type { EntityManager, FilterQuery } from "@mikro-orm/postgresql";
 import { Grade, Shear, Shop, type GradeEntity, type ShearEntity } from "../../entities";
 import type { GradeProfile, ShearProfile } from "../shear";
 import { DEFAULT_SHEAR_TENSILE_RATIO } from "../shear";
-import { conflict, invalidRequest, notFound } from "../api/errors";
-import { decodeCursor, page } from "../api/pagination";
+import { conflict, invalidRequest, notFound } from "../errors";
+import { findPage } from "../db/paging";
 import type { GradeInputT, GradePatchT, GradeT } from "../schemas/grade";
 import type { ShearInputT, ShearPatchT, ShearT } from "../schemas/shear";
 
@@ -22,22 +22,40 @@ export interface ListOptions {
 
 export function viewShear(s: ShearEntity): ShearT {
   return {
-    id: s.id, name: s.name, description: s.description ?? null,
-    ratedThicknessMm: s.ratedThicknessMm, ratedTensileMpa: s.ratedTensileMpa, ratedRakeDeg: s.ratedRakeDeg,
-    bladeLengthMm: s.bladeLengthMm, backgaugeMinMm: s.backgaugeMinMm, backgaugeMaxMm: s.backgaugeMaxMm,
-    rakeMinDeg: s.rakeMinDeg, rakeMaxDeg: s.rakeMaxDeg, gapMinMm: s.gapMinMm, gapMaxMm: s.gapMaxMm,
-    strokesPerMin: s.strokesPerMin, backgaugeSpeedMmPerS: s.backgaugeSpeedMmPerS,
-    handlingSecondsPerTurn: s.handlingSecondsPerTurn, handlingSecondsPerSheet: s.handlingSecondsPerSheet,
-    maxBladeHardnessHb: s.maxBladeHardnessHb ?? null, gradeThicknessLimitsMm: s.gradeThicknessLimitsMm ?? {},
-    crownAtRatedMm: s.crownAtRatedMm ?? null, crownBaselineMm: s.crownBaselineMm ?? null,
+    id: s.id,
+    name: s.name,
+    description: s.description ?? null,
+    ratedThicknessMm: s.ratedThicknessMm,
+    ratedTensileMpa: s.ratedTensileMpa,
+    ratedRakeDeg: s.ratedRakeDeg,
+    bladeLengthMm: s.bladeLengthMm,
+    backgaugeMinMm: s.backgaugeMinMm,
+    backgaugeMaxMm: s.backgaugeMaxMm,
+    rakeMinDeg: s.rakeMinDeg,
+    rakeMaxDeg: s.rakeMaxDeg,
+    gapMinMm: s.gapMinMm,
+    gapMaxMm: s.gapMaxMm,
+    strokesPerMin: s.strokesPerMin,
+    backgaugeSpeedMmPerS: s.backgaugeSpeedMmPerS,
+    handlingSecondsPerTurn: s.handlingSecondsPerTurn,
+    handlingSecondsPerSheet: s.handlingSecondsPerSheet,
+    maxBladeHardnessHb: s.maxBladeHardnessHb ?? null,
+    gradeThicknessLimitsMm: s.gradeThicknessLimitsMm ?? {},
+    crownAtRatedMm: s.crownAtRatedMm ?? null,
+    crownBaselineMm: s.crownBaselineMm ?? null,
     backgaugeRepeatabilityMm: s.backgaugeRepeatabilityMm ?? null,
-    archivedAt: iso(s.archivedAt), createdAt: s.createdAt.toISOString(), updatedAt: s.updatedAt.toISOString(),
+    archivedAt: iso(s.archivedAt),
+    createdAt: s.createdAt.toISOString(),
+    updatedAt: s.updatedAt.toISOString(),
   };
 }
 
 export function shearProfile(s: ShearEntity): ShearProfile {
   const { archivedAt: _a, createdAt: _c, updatedAt: _u, description: _d, ...profile } = viewShear(s);
-  return { ...profile, crownAtRatedMm: s.crownAtRatedMm ?? undefined, crownBaselineMm: s.crownBaselineMm ?? undefined,
+  return {
+    ...profile,
+    crownAtRatedMm: s.crownAtRatedMm ?? undefined,
+    crownBaselineMm: s.crownBaselineMm ?? undefined,
     backgaugeRepeatabilityMm: s.backgaugeRepeatabilityMm ?? undefined,
   };
 }
@@ -49,11 +67,8 @@ export async function findShear(em: EntityManager, shopId: string, id: string): 
 }
 
 export async function listShears(em: EntityManager, shopId: string, o: ListOptions) {
-  const after = decodeCursor(o.cursor);
-  const where: FilterQuery<ShearEntity> = { shop: shopId, ...(o.includeArchived ? {} : { archivedAt: null }), ...(after ? { id: { $gt: after } } : {}) };
-  const rows = await em.find(Shear, where, { orderBy: { id: "asc" }, limit: o.limit + 1 });
-  const p = page(rows, o.limit);
-  return { data: p.data.map(viewShear), next_cursor: p.next_cursor };
+  const where: FilterQuery<ShearEntity> = { shop: shopId, ...(o.includeArchived ? {} : { archivedAt: null }) };
+  return findPage(em, Shear, where, o, viewShear, { order: "asc" });
 }
 
 async function uniqueShearName(em: EntityManager, shopId: string, name: string, exceptId?: string) {
@@ -62,7 +77,11 @@ async function uniqueShearName(em: EntityManager, shopId: string, name: string, 
 }
 
 function checkRanges(s: ShearEntity) {
-  for (const [lo, hi] of [["backgaugeMinMm", "backgaugeMaxMm"], ["rakeMinDeg", "rakeMaxDeg"], ["gapMinMm", "gapMaxMm"]] as const) {
+  for (const [lo, hi] of [
+    ["backgaugeMinMm", "backgaugeMaxMm"],
+    ["rakeMinDeg", "rakeMaxDeg"],
+    ["gapMinMm", "gapMaxMm"],
+  ] as const) {
     if (s[lo] > s[hi]) {
       const message = `must not exceed ${hi} (${s[hi]})`;
       throw invalidRequest(`${lo} ${message}.`, [{ location: "body", pointer: `/${lo}`, message }]);
@@ -106,21 +125,42 @@ export async function archiveShear(em: EntityManager, shopId: string, id: string
 
 export function viewGrade(g: GradeEntity): GradeT {
   return {
-    id: g.id, code: g.code, name: g.name, family: g.family, standard: g.standard,
-    yieldMpa: g.yieldMpa ?? null, tensileMinMpa: g.tensileMinMpa ?? null, tensileTypicalMpa: g.tensileTypicalMpa ?? null,
-    tensileMaxMpa: g.tensileMaxMpa ?? null, valuesAreTypical: g.valuesAreTypical, shearTensileRatio: g.shearTensileRatio,
-    gaugeFamily: g.gaugeFamily ?? null, hardnessHb: g.hardnessHb ?? null, note: g.note ?? null,
-    archivedAt: iso(g.archivedAt), createdAt: g.createdAt.toISOString(), updatedAt: g.updatedAt.toISOString(),
+    id: g.id,
+    code: g.code,
+    name: g.name,
+    family: g.family,
+    standard: g.standard,
+    yieldMpa: g.yieldMpa ?? null,
+    tensileMinMpa: g.tensileMinMpa ?? null,
+    tensileTypicalMpa: g.tensileTypicalMpa ?? null,
+    tensileMaxMpa: g.tensileMaxMpa ?? null,
+    valuesAreTypical: g.valuesAreTypical,
+    shearTensileRatio: g.shearTensileRatio,
+    gaugeFamily: g.gaugeFamily ?? null,
+    hardnessHb: g.hardnessHb ?? null,
+    note: g.note ?? null,
+    archivedAt: iso(g.archivedAt),
+    createdAt: g.createdAt.toISOString(),
+    updatedAt: g.updatedAt.toISOString(),
   };
 }
 
 export function gradeProfile(g: GradeEntity): GradeProfile {
   const v = viewGrade(g);
   return {
-    code: v.code, name: v.name, family: v.family, standard: v.standard, yieldMpa: v.yieldMpa,
-    tensileMinMpa: v.tensileMinMpa, tensileTypicalMpa: v.tensileTypicalMpa, tensileMaxMpa: v.tensileMaxMpa,
-    valuesAreTypical: v.valuesAreTypical, shearTensileRatio: v.shearTensileRatio, gaugeFamily: v.gaugeFamily,
-    hardnessHb: v.hardnessHb, note: v.note ?? undefined,
+    code: v.code,
+    name: v.name,
+    family: v.family,
+    standard: v.standard,
+    yieldMpa: v.yieldMpa,
+    tensileMinMpa: v.tensileMinMpa,
+    tensileTypicalMpa: v.tensileTypicalMpa,
+    tensileMaxMpa: v.tensileMaxMpa,
+    valuesAreTypical: v.valuesAreTypical,
+    shearTensileRatio: v.shearTensileRatio,
+    gaugeFamily: v.gaugeFamily,
+    hardnessHb: v.hardnessHb,
+    note: v.note ?? undefined,
   };
 }
 
@@ -136,21 +176,18 @@ export async function gradeByCode(em: EntityManager, shopId: string, code: strin
 }
 
 export async function listGrades(em: EntityManager, shopId: string, o: ListOptions & { family?: string }) {
-  const after = decodeCursor(o.cursor);
   const where: FilterQuery<GradeEntity> = {
     shop: shopId,
     ...(o.includeArchived ? {} : { archivedAt: null }),
     ...(o.family ? { family: o.family as GradeEntity["family"] } : {}),
-    ...(after ? { id: { $gt: after } } : {}),
   };
-  const rows = await em.find(Grade, where, { orderBy: { id: "asc" }, limit: o.limit + 1 });
-  const p = page(rows, o.limit);
-  return { data: p.data.map(viewGrade), next_cursor: p.next_cursor };
+  return findPage(em, Grade, where, o, viewGrade, { order: "asc" });
 }
 
 export async function createGrade(em: EntityManager, shopId: string, input: GradeInputT): Promise<GradeT> {
   const existing = await em.findOne(Grade, { shop: shopId, code: input.code });
-  if (existing) throw conflict(`A grade with code "${input.code}" already exists in this shop.`, { existingId: existing.id });
+  if (existing)
+    throw conflict(`A grade with code "${input.code}" already exists in this shop.`, { existingId: existing.id });
   const grade = em.create(Grade, {
     ...input,
     tensileTypicalMpa: input.tensileTypicalMpa ?? null,
@@ -171,7 +208,9 @@ export async function updateGrade(em: EntityManager, shopId: string, id: string,
   em.assign(grade, patch);
   if (grade.tensileMinMpa == null && grade.tensileTypicalMpa == null) {
     const message = "give tensileMinMpa or tensileTypicalMpa";
-    throw invalidRequest(`A grade needs a tensile strength: ${message}.`, [{ location: "body", pointer: "/tensileMinMpa", message }]);
+    throw invalidRequest(`A grade needs a tensile strength: ${message}.`, [
+      { location: "body", pointer: "/tensileMinMpa", message },
+    ]);
   }
   await em.flush();
   return viewGrade(grade);

@@ -8,7 +8,7 @@ import { Event, Shop } from "../../entities";
 import type { EventData } from "../schemas/events";
 import type { EventType } from "../schemas/enums";
 
-export { EVENT_TYPES, type EventType } from "../schemas/enums";
+export type { EventType } from "../schemas/enums";
 
 export const OUTBOX_CHANNEL = "shearwire_outbox";
 /** Notified with a shear's id when one of its programs becomes claimable (released, or back after a lease ran out). */
@@ -23,7 +23,13 @@ export async function announceRelease(em: EntityManager, shearId: string) {
  * Stage an event in the caller's transaction, and wake the worker when that transaction
  * commits (PostgreSQL delivers NOTIFY on commit only, so a rolled-back change wakes no one).
  */
-export async function recordEvent<T extends EventType>(em: EntityManager, shopId: string, type: T, subjectId: string, data: EventData<T>) {
+export async function recordEvent<T extends EventType>(
+  em: EntityManager,
+  shopId: string,
+  type: T,
+  subjectId: string,
+  data: EventData<T>,
+) {
   const event = em.create(Event, { shop: em.getReference(Shop, shopId), type, subjectId, data });
   await em.execute(`select pg_notify('${OUTBOX_CHANNEL}', '')`);
   return event;

@@ -7,7 +7,7 @@ import type { EntityManager } from "@mikro-orm/postgresql";
 import type { z } from "zod";
 import { Program, Shear, type ProgramEntity } from "../../entities";
 import type { ProgramStatus } from "../../entities/Program";
-import { conflict, forbidden, invalidRequest, notFound } from "../api/errors";
+import { conflict, forbidden, invalidRequest, notFound } from "../errors";
 import type { CompletionReport, FailureReport, ProgressReport } from "../schemas/gateway";
 import type { ProgramT } from "../schemas/program";
 import { waitForNotification } from "../db/notify";
@@ -21,14 +21,19 @@ const SAFETY_POLL_MS = 5_000;
 
 function boundTo(principal: Principal, shearId: string) {
   if (principal.shearIds.length && !principal.shearIds.includes(shearId)) {
-    throw forbidden(`This gateway key is bound to ${principal.shearIds.join(", ")}, not to ${shearId}.`, { shearIds: principal.shearIds });
+    throw forbidden(`This gateway key is bound to ${principal.shearIds.join(", ")}, not to ${shearId}.`, {
+      shearIds: principal.shearIds,
+    });
   }
 }
 
 const leaseUntil = (seconds: number) => new Date(Date.now() + seconds * 1000);
 
 /** Return to `released` every program of the shop (or one shear) whose lease has run out. */
-export async function sweepExpiredLeases(em: EntityManager, scope: { shopId?: string; shearId?: string } = {}): Promise<string[]> {
+export async function sweepExpiredLeases(
+  em: EntityManager,
+  scope: { shopId?: string; shearId?: string } = {},
+): Promise<string[]> {
   return em.transactional(async (tx) => {
     const rows = await tx.execute<{ id: string }[]>(
       `select id from programs where status in ('claimed', 'running') and lease_expires_at < now()
@@ -61,7 +66,12 @@ export async function sweepExpiredLeases(em: EntityManager, scope: { shopId?: st
 }
 
 /** Claim the next released program of a shear: highest priority, then earliest due, then oldest. */
-async function claimOnce(em: EntityManager, principal: Principal, shearId: string, leaseSeconds: number): Promise<ProgramT | null> {
+async function claimOnce(
+  em: EntityManager,
+  principal: Principal,
+  shearId: string,
+  leaseSeconds: number,
+): Promise<ProgramT | null> {
   return em.transactional(async (tx) => {
     const rows = await tx.execute<{ id: string }[]>(
       `update programs set status = 'claimed', claimed_by = ?, claimed_at = now(), lease_expires_at = ?,
@@ -76,13 +86,19 @@ async function claimOnce(em: EntityManager, principal: Principal, shearId: strin
     if (!rows.length) return null;
     const p = await tx.findOneOrFail(Program, { id: rows[0].id });
     const view = viewProgram(p);
-    await recordEvent(tx, principal.shopId, "program.claimed", p.id, { program: view, from: "released", gateway: principal.keyId });
+    await recordEvent(tx, principal.shopId, "program.claimed", p.id, {
+      program: view,
+      from: "released",
+      gateway: principal.keyId,
+    });
     return view;
   });
 }
 
 export async function claimNext(
-  em: EntityManager, principal: Principal, shearId: string,
+  em: EntityManager,
+  principal: Principal,
+  shearId: string,
   opts: { waitSeconds?: number; leaseSeconds?: number; signal?: AbortSignal },
 ): Promise<{ program: ProgramT; lease: { expiresAt: string; seconds: number } } | null> {
   const shear = await em.findOne(Shear, { id: shearId, shop: principal.shopId });
@@ -95,7 +111,8 @@ export async function claimNext(
     const left = deadline - Date.now();
     const stop = new AbortController();
     const signal = opts.signal ? AbortSignal.any([stop.signal, opts.signal]) : stop.signal;
-    const woken = left > 0 ? waitForNotification(RELEASED_CHANNEL, shearId, Math.min(SAFETY_POLL_MS, left), signal) : null;
+    const woken =
+      left > 0 ? waitForNotification(RELEASED_CHANNEL, shearId, Math.min(SAFETY_POLL_MS, left), signal) : null;
     try {
       await sweepExpiredLeases(em.fork(), { shopId: principal.shopId, shearId });
       const program = await claimOnce(em.fork(), principal, shearId, seconds);
@@ -114,7 +131,13 @@ export async function claimNext(
 }
 
 /** The program, held by this gateway, in one of the given states. */
-async function held(em: EntityManager, principal: Principal, id: string, allowed: ProgramStatus[], action: string): Promise<ProgramEntity> {
+async function held(
+  em: EntityManager,
+  principal: Principal,
+  id: string,
+  allowed: ProgramStatus[],
+  action: string,
+): Promise<ProgramEntity> {
   const program = await getProgram(em, principal.shopId, id);
   boundTo(principal, program.shear.id);
   mustBe(program, allowed, action);
@@ -143,25 +166,52 @@ type Limit = { field: string; value: number | undefined; max: number; what: stri
 function withinProgram(limits: Limit[]) {
   const over = limits.filter((l) => l.value !== undefined && l.value > l.max);
   if (!over.length) return;
-  const errors = over.map((l) => ({ location: "body", pointer: `/${l.field}`, message: `is ${l.value}; the program has ${l.max} ${l.what}` }));
-  throw invalidRequest(`The report claims more than the program makes: ${errors.map((e) => `${e.pointer} ${e.message}`).join("; ")}.`, errors);
+  const errors = over.map((l) => ({
+    location: "body",
+    pointer: `/${l.field}`,
+    message: `is ${l.value}; the program has ${l.max} ${l.what}`,
+  }));
+  throw invalidRequest(
+    `The report claims more than the program makes: ${errors.map((e) => `${e.pointer} ${e.message}`).join("; ")}.`,
+    errors,
+  );
 }
 
 /** Progress only moves forward: a count below the last report is refused too. */
-function notBackwards(program: ProgramEntity, report: { groupsDone: number; strokesDone: number; piecesDone?: number }) {
-  const last = program.progress as { groupsDone?: number; strokesDone?: number; piecesDone?: number } | null | undefined;
+function notBackwards(
+  program: ProgramEntity,
+  report: { groupsDone: number; strokesDone: number; piecesDone?: number },
+) {
+  const last = program.progress as
+    { groupsDone?: number; strokesDone?: number; piecesDone?: number } | null | undefined;
   if (!last) return;
   const errors = (["groupsDone", "strokesDone", "piecesDone"] as const)
     .filter((k) => report[k] !== undefined && last[k] !== undefined && report[k]! < last[k]!)
-    .map((k) => ({ location: "body", pointer: `/${k}`, message: `is ${report[k]}, below the ${last[k]} reported before; progress only moves forward` }));
-  if (errors.length) throw invalidRequest(`Progress went backwards: ${errors.map((e) => `${e.pointer} ${e.message}`).join("; ")}.`, errors);
+    .map((k) => ({
+      location: "body",
+      pointer: `/${k}`,
+      message: `is ${report[k]}, below the ${last[k]} reported before; progress only moves forward`,
+    }));
+  if (errors.length)
+    throw invalidRequest(
+      `Progress went backwards: ${errors.map((e) => `${e.pointer} ${e.message}`).join("; ")}.`,
+      errors,
+    );
 }
 
-export async function heartbeat(em: EntityManager, principal: Principal, id: string, leaseSeconds = DEFAULT_LEASE_SECONDS) {
+export async function heartbeat(
+  em: EntityManager,
+  principal: Principal,
+  id: string,
+  leaseSeconds = DEFAULT_LEASE_SECONDS,
+) {
   const program = await held(em, principal, id, ["claimed", "running"], "kept");
   program.leaseExpiresAt = leaseUntil(leaseSeconds);
   await em.flush();
-  return { program: viewProgram(program), lease: { expiresAt: program.leaseExpiresAt.toISOString(), seconds: leaseSeconds } };
+  return {
+    program: viewProgram(program),
+    lease: { expiresAt: program.leaseExpiresAt.toISOString(), seconds: leaseSeconds },
+  };
 }
 
 export async function start(em: EntityManager, principal: Principal, id: string) {
@@ -172,7 +222,12 @@ export async function start(em: EntityManager, principal: Principal, id: string)
   });
 }
 
-export async function progress(em: EntityManager, principal: Principal, id: string, report: z.infer<typeof ProgressReport>) {
+export async function progress(
+  em: EntityManager,
+  principal: Principal,
+  id: string,
+  report: z.infer<typeof ProgressReport>,
+) {
   const program = await held(em, principal, id, ["running"], "reported on");
   const { leaseSeconds, ...counts } = report;
   const totals = programTotals(program);
@@ -182,34 +237,73 @@ export async function progress(em: EntityManager, principal: Principal, id: stri
     { field: "piecesDone", value: counts.piecesDone, max: totals.blanks, what: "blanks" },
   ]);
   notBackwards(program, counts);
-  return transition(em, principal.shopId, program, "running", "program.progressed", (p) => {
-    p.progress = counts;
-    p.leaseExpiresAt = leaseUntil(leaseSeconds ?? DEFAULT_LEASE_SECONDS);
-  }, { progress: counts });
+  return transition(
+    em,
+    principal.shopId,
+    program,
+    "running",
+    "program.progressed",
+    (p) => {
+      p.progress = counts;
+      p.leaseExpiresAt = leaseUntil(leaseSeconds ?? DEFAULT_LEASE_SECONDS);
+    },
+    { progress: counts },
+  );
 }
 
-export async function complete(em: EntityManager, principal: Principal, id: string, report: z.infer<typeof CompletionReport>) {
+export async function complete(
+  em: EntityManager,
+  principal: Principal,
+  id: string,
+  report: z.infer<typeof CompletionReport>,
+) {
   const program = await held(em, principal, id, ["running"], "completed");
   const totals = programTotals(program);
   withinProgram([
-    { field: "goodPieces", value: report.goodPieces + (report.scrappedPieces ?? 0), max: totals.blanks, what: "blanks (good and scrapped pieces together)" },
+    {
+      field: "goodPieces",
+      value: report.goodPieces + (report.scrappedPieces ?? 0),
+      max: totals.blanks,
+      what: "blanks (good and scrapped pieces together)",
+    },
     { field: "sheetsUsed", value: report.sheetsUsed, max: totals.sheets, what: "sheets" },
   ]);
-  return transition(em, principal.shopId, program, "completed", "program.completed", (p) => {
-    p.finishedAt = new Date();
-    p.leaseExpiresAt = null;
-    p.outcome = { result: "completed", ...report };
-  }, { outcome: report });
+  return transition(
+    em,
+    principal.shopId,
+    program,
+    "completed",
+    "program.completed",
+    (p) => {
+      p.finishedAt = new Date();
+      p.leaseExpiresAt = null;
+      p.outcome = { result: "completed", ...report };
+    },
+    { outcome: report },
+  );
 }
 
 export async function fail(em: EntityManager, principal: Principal, id: string, report: z.infer<typeof FailureReport>) {
   const program = await held(em, principal, id, ["claimed", "running"], "failed");
   withinProgram([
-    { field: "goodPieces", value: (report.goodPieces ?? 0) + (report.scrappedPieces ?? 0), max: programTotals(program).blanks, what: "blanks (good and scrapped pieces together)" },
+    {
+      field: "goodPieces",
+      value: (report.goodPieces ?? 0) + (report.scrappedPieces ?? 0),
+      max: programTotals(program).blanks,
+      what: "blanks (good and scrapped pieces together)",
+    },
   ]);
-  return transition(em, principal.shopId, program, "failed", "program.failed", (p) => {
-    p.finishedAt = new Date();
-    p.leaseExpiresAt = null;
-    p.outcome = { result: "failed", ...report };
-  }, { outcome: report });
+  return transition(
+    em,
+    principal.shopId,
+    program,
+    "failed",
+    "program.failed",
+    (p) => {
+      p.finishedAt = new Date();
+      p.leaseExpiresAt = null;
+      p.outcome = { result: "failed", ...report };
+    },
+    { outcome: report },
+  );
 }

@@ -21,7 +21,9 @@ async function probe(fn: () => Promise<unknown>, timeoutMs = 2000): Promise<Comp
   try {
     await Promise.race([
       fn(),
-      new Promise((_, reject) => setTimeout(() => reject(new Error(`no answer within ${timeoutMs} ms`)), timeoutMs).unref()),
+      new Promise((_, reject) =>
+        setTimeout(() => reject(new Error(`no answer within ${timeoutMs} ms`)), timeoutMs).unref(),
+      ),
     ]);
     return { status: "up", latencyMs: Math.round((performance.now() - started) * 10) / 10 };
   } catch (err) {

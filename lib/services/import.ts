@@ -5,14 +5,30 @@
  */
 import type { EntityManager } from "@mikro-orm/postgresql";
 import { parse } from "csv-parse/sync";
-import { ApiError } from "../api/errors";
+import { ApiError } from "../errors";
 import { Shear } from "../../entities";
 import { ProgramInput, type ProgramInputT } from "../schemas/program";
 import { createProgram } from "./programs";
 
 export const CSV_COLUMNS = [
-  "reference", "title", "shear", "grade", "thickness", "gauge", "units", "sheet_length", "sheet_width", "sheet_count",
-  "backgauge", "count", "length", "turn", "scrap", "note", "priority", "due_at",
+  "reference",
+  "title",
+  "shear",
+  "grade",
+  "thickness",
+  "gauge",
+  "units",
+  "sheet_length",
+  "sheet_width",
+  "sheet_count",
+  "backgauge",
+  "count",
+  "length",
+  "turn",
+  "scrap",
+  "note",
+  "priority",
+  "due_at",
 ] as const;
 
 export interface RowError {
@@ -28,26 +44,49 @@ interface Parsed {
 }
 
 const num = (v: string | undefined) => (v === undefined || v.trim() === "" ? undefined : Number(v));
-const bool = (v: string | undefined) => (v === undefined || v.trim() === "" ? undefined : ["1", "true", "yes", "y"].includes(v.trim().toLowerCase()));
+const bool = (v: string | undefined) =>
+  v === undefined || v.trim() === "" ? undefined : ["1", "true", "yes", "y"].includes(v.trim().toLowerCase());
 const text = (v: string | undefined) => (v === undefined || v.trim() === "" ? undefined : v.trim());
 
 export function parseCsv(content: string): Parsed {
   let records: Record<string, string>[];
   try {
-    records = parse(content, { columns: (h: string[]) => h.map((c) => c.trim().toLowerCase()), skip_empty_lines: true, trim: true, bom: true });
+    records = parse(content, {
+      columns: (h: string[]) => h.map((c) => c.trim().toLowerCase()),
+      skip_empty_lines: true,
+      trim: true,
+      bom: true,
+    });
   } catch (err) {
-    return { programs: [], errors: [{ row: 0, field: "file", message: `not readable as CSV: ${(err as Error).message}` }] };
+    return {
+      programs: [],
+      errors: [{ row: 0, field: "file", message: `not readable as CSV: ${(err as Error).message}` }],
+    };
   }
   const errors: RowError[] = [];
   if (records.length && !("reference" in records[0])) {
-    return { programs: [], errors: [{ row: 1, field: "header", message: `the first line must name the columns: ${CSV_COLUMNS.join(", ")}` }] };
+    return {
+      programs: [],
+      errors: [{ row: 1, field: "header", message: `the first line must name the columns: ${CSV_COLUMNS.join(", ")}` }],
+    };
   }
   const byRef = new Map<string, { input: Record<string, unknown>; rows: number[] }>();
-  const NUMERIC = ["thickness", "gauge", "sheet_length", "sheet_width", "sheet_count", "backgauge", "count", "length", "priority"];
+  const NUMERIC = [
+    "thickness",
+    "gauge",
+    "sheet_length",
+    "sheet_width",
+    "sheet_count",
+    "backgauge",
+    "count",
+    "length",
+    "priority",
+  ];
   records.forEach((r, i) => {
     const line = i + 2;
     for (const col of NUMERIC) {
-      if (text(r[col]) !== undefined && !Number.isFinite(Number(r[col]))) errors.push({ row: line, field: col, message: `"${r[col]}" is not a number` });
+      if (text(r[col]) !== undefined && !Number.isFinite(Number(r[col])))
+        errors.push({ row: line, field: col, message: `"${r[col]}" is not a number` });
     }
     const ref = text(r.reference);
     if (!ref) {
@@ -60,19 +99,38 @@ export function parseCsv(content: string): Parsed {
       p = {
         rows: [],
         input: {
-          reference: ref, title: text(r.title), shear: text(r.shear), grade: text(r.grade), thickness, units: text(r.units),
+          reference: ref,
+          title: text(r.title),
+          shear: text(r.shear),
+          grade: text(r.grade),
+          thickness,
+          units: text(r.units),
           sheet: { length: num(r.sheet_length), width: num(r.sheet_width), count: num(r.sheet_count) ?? 1 },
-          cuts: [], priority: num(r.priority), dueAt: text(r.due_at),
+          cuts: [],
+          priority: num(r.priority),
+          dueAt: text(r.due_at),
         },
       };
       byRef.set(ref, p);
     }
     p.rows.push(line);
-    (p.input.cuts as unknown[]).push(JSON.parse(JSON.stringify({
-      backgauge: num(r.backgauge), count: num(r.count), length: num(r.length), turn: bool(r.turn), scrap: bool(r.scrap), note: text(r.note),
-    })));
+    (p.input.cuts as unknown[]).push(
+      JSON.parse(
+        JSON.stringify({
+          backgauge: num(r.backgauge),
+          count: num(r.count),
+          length: num(r.length),
+          turn: bool(r.turn),
+          scrap: bool(r.scrap),
+          note: text(r.note),
+        }),
+      ),
+    );
   });
-  return { programs: [...byRef.values()].map((p) => ({ input: JSON.parse(JSON.stringify(p.input)), rows: p.rows })), errors };
+  return {
+    programs: [...byRef.values()].map((p) => ({ input: JSON.parse(JSON.stringify(p.input)), rows: p.rows })),
+    errors,
+  };
 }
 
 export function parseJson(content: string): Parsed {
@@ -99,7 +157,12 @@ export async function resolveShearNames(em: EntityManager, shopId: string, parse
     const shear = typeof input?.shear === "string" ? input.shear.trim() : null;
     if (!input || !shear || /^shr_[0-9A-Z]{26}$/.test(shear)) return p;
     const id = byName.get(shear.toLowerCase());
-    if (!id) errors.push({ row: p.rows[0], field: "shear", message: `no shear in use is named "${shear}" (names: ${shears.map((s) => s.name).join(", ") || "none yet"})` });
+    if (!id)
+      errors.push({
+        row: p.rows[0],
+        field: "shear",
+        message: `no shear in use is named "${shear}" (names: ${shears.map((s) => s.name).join(", ") || "none yet"})`,
+      });
     return { ...p, input: { ...input, shear: id ?? shear } };
   });
   return { programs, errors: [...parsed.errors, ...errors] };
@@ -108,11 +171,34 @@ export async function resolveShearNames(em: EntityManager, shopId: string, parse
 /** The CSV a person fills in: the header and two rows of an example (the first shear's name in it). */
 export function csvTemplate(shearName: string): string {
   const quote = (v: string) => (/[",\n]/.test(v) ? `"${v.replace(/"/g, '""')}"` : v);
-  return [
-    CSV_COLUMNS.join(","),
-    ["SO-2291/4", "Side panels", quote(shearName), "A36", "", "10", "in", "120", "48", "2", "12", "3", "", "", "", "rip strips", "5", "2026-12-08T14:00:00Z"].join(","),
-    ["SO-2291/4", "", "", "", "", "", "", "", "", "", "16", "7", "12", "yes", "", "crosscut each strip", "", ""].join(","),
-  ].join("\n") + "\n";
+  return (
+    [
+      CSV_COLUMNS.join(","),
+      [
+        "SO-2291/4",
+        "Side panels",
+        quote(shearName),
+        "A36",
+        "",
+        "10",
+        "in",
+        "120",
+        "48",
+        "2",
+        "12",
+        "3",
+        "",
+        "",
+        "",
+        "rip strips",
+        "5",
+        "2026-12-08T14:00:00Z",
+      ].join(","),
+      ["SO-2291/4", "", "", "", "", "", "", "", "", "", "16", "7", "12", "yes", "", "crosscut each strip", "", ""].join(
+        ",",
+      ),
+    ].join("\n") + "\n"
+  );
 }
 
 /** Validate every program; an error inside cuts/N points at the N-th row of that program. */
@@ -125,11 +211,16 @@ export function validate(parsed: Parsed): { inputs: ProgramInputT[]; errors: Row
     if (!result.success) {
       for (const issue of result.error.issues) {
         const cut = issue.path[0] === "cuts" && typeof issue.path[1] === "number" ? issue.path[1] : null;
-        errors.push({ row: cut !== null ? p.rows[cut] ?? p.rows[0] : p.rows[0], field: issue.path.join(".") || "program", message: issue.message });
+        errors.push({
+          row: cut !== null ? (p.rows[cut] ?? p.rows[0]) : p.rows[0],
+          field: issue.path.join(".") || "program",
+          message: issue.message,
+        });
       }
       continue;
     }
-    if (seen.has(result.data.reference)) errors.push({ row: p.rows[0], field: "reference", message: `reference ${result.data.reference} appears twice` });
+    if (seen.has(result.data.reference))
+      errors.push({ row: p.rows[0], field: "reference", message: `reference ${result.data.reference} appears twice` });
     seen.add(result.data.reference);
     inputs.push(result.data);
   }
@@ -137,25 +228,36 @@ export function validate(parsed: Parsed): { inputs: ProgramInputT[]; errors: Row
 }
 
 /** Create every program in one transaction: all of them, or none. */
-export async function importPrograms(em: EntityManager, shopId: string, inputs: ProgramInputT[], rowsOf: (i: number) => number) {
+export async function importPrograms(
+  em: EntityManager,
+  shopId: string,
+  inputs: ProgramInputT[],
+  rowsOf: (i: number) => number,
+) {
   const errors: RowError[] = [];
-  const created = await em.transactional(async (tx) => {
-    const out: { id: string; reference: string; validation: string }[] = [];
-    for (const [i, input] of inputs.entries()) {
-      try {
-        const p = await createProgram(tx, shopId, input);
-        out.push({ id: p.id, reference: p.reference, validation: p.validation });
-      } catch (err) {
-        if (!(err instanceof ApiError)) throw err;
-        errors.push({ row: rowsOf(i), field: (err.extensions.errors as { pointer: string }[] | undefined)?.[0]?.pointer.slice(1) ?? "program", message: err.message });
+  const created = await em
+    .transactional(async (tx) => {
+      const out: { id: string; reference: string; validation: string }[] = [];
+      for (const [i, input] of inputs.entries()) {
+        try {
+          const p = await createProgram(tx, shopId, input);
+          out.push({ id: p.id, reference: p.reference, validation: p.validation });
+        } catch (err) {
+          if (!(err instanceof ApiError)) throw err;
+          errors.push({
+            row: rowsOf(i),
+            field: (err.extensions.errors as { pointer: string }[] | undefined)?.[0]?.pointer.slice(1) ?? "program",
+            message: err.message,
+          });
+        }
       }
-    }
-    if (errors.length) throw new ImportRefused();
-    return out;
-  }).catch((err) => {
-    if (err instanceof ImportRefused) return null;
-    throw err;
-  });
+      if (errors.length) throw new ImportRefused();
+      return out;
+    })
+    .catch((err) => {
+      if (err instanceof ImportRefused) return null;
+      throw err;
+    });
   return created ? { created, errors: [] } : { created: [], errors };
 }
 
@@ -167,20 +269,50 @@ export const BLANK_COLUMNS = ["label", "length", "width", "quantity", "can_turn"
 export function parseBlanksCsv(content: string): { blanks: Record<string, unknown>[]; errors: RowError[] } {
   let records: Record<string, string>[];
   try {
-    records = parse(content, { columns: (h: string[]) => h.map((c) => c.trim().toLowerCase()), skip_empty_lines: true, trim: true, bom: true });
+    records = parse(content, {
+      columns: (h: string[]) => h.map((c) => c.trim().toLowerCase()),
+      skip_empty_lines: true,
+      trim: true,
+      bom: true,
+    });
   } catch (err) {
-    return { blanks: [], errors: [{ row: 0, field: "file", message: `not readable as CSV: ${(err as Error).message}` }] };
+    return {
+      blanks: [],
+      errors: [{ row: 0, field: "file", message: `not readable as CSV: ${(err as Error).message}` }],
+    };
   }
-  if (!records.length) return { blanks: [], errors: [{ row: 1, field: "file", message: "no blanks: one row per blank after the header line" }] };
+  if (!records.length)
+    return {
+      blanks: [],
+      errors: [{ row: 1, field: "file", message: "no blanks: one row per blank after the header line" }],
+    };
   if (!("label" in records[0] && "length" in records[0] && "width" in records[0] && "quantity" in records[0])) {
-    return { blanks: [], errors: [{ row: 1, field: "header", message: `the first line must name the columns: ${BLANK_COLUMNS.join(", ")} (can_turn may be left out)` }] };
+    return {
+      blanks: [],
+      errors: [
+        {
+          row: 1,
+          field: "header",
+          message: `the first line must name the columns: ${BLANK_COLUMNS.join(", ")} (can_turn may be left out)`,
+        },
+      ],
+    };
   }
   const errors: RowError[] = [];
   const blanks = records.map((r, i) => {
     for (const col of ["length", "width", "quantity"]) {
-      if (!Number.isFinite(Number(r[col])) || text(r[col]) === undefined) errors.push({ row: i + 2, field: col, message: `"${r[col] ?? ""}" is not a number` });
+      if (!Number.isFinite(Number(r[col])) || text(r[col]) === undefined)
+        errors.push({ row: i + 2, field: col, message: `"${r[col] ?? ""}" is not a number` });
     }
-    return JSON.parse(JSON.stringify({ label: text(r.label), length: num(r.length), width: num(r.width), quantity: num(r.quantity), canTurn: bool(r.can_turn) })) as Record<string, unknown>;
+    return JSON.parse(
+      JSON.stringify({
+        label: text(r.label),
+        length: num(r.length),
+        width: num(r.width),
+        quantity: num(r.quantity),
+        canTurn: bool(r.can_turn),
+      }),
+    ) as Record<string, unknown>;
   });
   return { blanks, errors };
 }

@@ -5,8 +5,8 @@
 import { createHash, randomBytes } from "node:crypto";
 import type { EntityManager } from "@mikro-orm/postgresql";
 import { ApiKey, Shear, Shop, type ApiKeyEntity } from "../../entities";
-import type { Scope } from "../../entities/ApiKey";
-import { invalidRequest, notFound, unauthorized } from "../api/errors";
+import type { Scope } from "../../lib/schemas/enums";
+import { invalidRequest, notFound, unauthorized } from "../errors";
 
 /** Every key starts with this; keys made earlier start `swk_live_` and keep working. */
 export const KEY_PREFIX = "swk_";
@@ -64,7 +64,9 @@ async function checkShears(em: EntityManager, shopId: string, shearIds: string[]
   const index = shearIds.findIndex((id) => !known.has(id));
   if (index >= 0) {
     const message = "no shear in use with that id in this shop";
-    throw invalidRequest(`The key cannot be bound to ${shearIds[index]}: ${message}.`, [{ location: "body", pointer: `/shears/${index}`, message }]);
+    throw invalidRequest(`The key cannot be bound to ${shearIds[index]}: ${message}.`, [
+      { location: "body", pointer: `/shears/${index}`, message },
+    ]);
   }
 }
 
@@ -101,20 +103,29 @@ export async function authenticate(em: EntityManager, header: string | null): Pr
   const secret = match[1];
   if (!secret.startsWith(KEY_PREFIX)) throw unauthorized("That is not a Shearwire API key.");
   // One indexed lookup per request, without hydrating an entity: this runs before every call.
-  const [key] = await em.getConnection().execute<KeyRow[]>(
-    "select id, shop_id, scopes, shear_ids, rate_limit_per_min, expires_at, revoked_at, last_used_at from api_keys where hash = ?",
-    [digest(secret)],
-  );
+  const [key] = await em
+    .getConnection()
+    .execute<KeyRow[]>(
+      "select id, shop_id, scopes, shear_ids, rate_limit_per_min, expires_at, revoked_at, last_used_at from api_keys where hash = ?",
+      [digest(secret)],
+    );
   const now = new Date();
   if (!key) throw unauthorized("The API key is not valid.");
   if (key.revoked_at) throw unauthorized("The API key was revoked.");
   if (key.expires_at && new Date(key.expires_at) <= now) throw unauthorized("The API key has expired.");
   if (!key.last_used_at || now.getTime() - new Date(key.last_used_at).getTime() > LAST_USED_RESOLUTION_MS) {
     // Not awaited: recording the time must not slow the request down.
-    em.getConnection().execute("update api_keys set last_used_at = ? where id = ?", [now, key.id])
+    em.getConnection()
+      .execute("update api_keys set last_used_at = ? where id = ?", [now, key.id])
       .catch((err) => console.error("[keys] could not record last use:", err));
   }
-  return { keyId: key.id, shopId: key.shop_id, scopes: key.scopes, shearIds: key.shear_ids, rateLimitPerMin: key.rate_limit_per_min };
+  return {
+    keyId: key.id,
+    shopId: key.shop_id,
+    scopes: key.scopes,
+    shearIds: key.shear_ids,
+    rateLimitPerMin: key.rate_limit_per_min,
+  };
 }
 
 interface KeyRow {

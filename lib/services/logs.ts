@@ -1,7 +1,7 @@
 /** The request log of a shop: filters by key, route, status class and time. */
 import type { EntityManager, FilterQuery, InferEntity } from "@mikro-orm/postgresql";
 import { ApiKey, RequestLog } from "../../entities";
-import { decodeCursor, page } from "../api/pagination";
+import { findPage } from "../db/paging";
 
 export interface LogFilter {
   /** one request, by the id it answered with (X-Request-Id) */
@@ -16,7 +16,6 @@ export interface LogFilter {
 }
 
 export async function listRequests(em: EntityManager, shopId: string, f: LogFilter) {
-  const before = decodeCursor(f.cursor);
   const cls = f.statusClass ? Number(f.statusClass[0]) * 100 : null;
   const where: FilterQuery<InferEntity<typeof RequestLog>> = {
     shopId,
@@ -25,22 +24,24 @@ export async function listRequests(em: EntityManager, shopId: string, f: LogFilt
     ...(f.route ? { route: f.route } : {}),
     ...(cls ? { status: { $gte: cls, $lt: cls + 100 } } : {}),
     ...(f.from || f.to ? { createdAt: { ...(f.from ? { $gte: f.from } : {}), ...(f.to ? { $lte: f.to } : {}) } } : {}),
-    ...(before ? { id: { $lt: before } } : {}),
   };
-  const rows = await em.find(RequestLog, where, { orderBy: { id: "desc" }, limit: f.limit + 1 });
-  return page(rows, f.limit);
+  return findPage(em, RequestLog, where, f, (row) => row);
 }
 
 /** One logged request, with the name of the key that made it. */
 export async function getRequest(em: EntityManager, shopId: string, id: string) {
   const row = await em.findOne(RequestLog, { id, shopId });
   if (!row) return null;
-  const key = row.keyId ? await em.findOne(ApiKey, { id: row.keyId, shop: shopId }, { fields: ["id", "name", "prefix"] }) : null;
+  const key = row.keyId
+    ? await em.findOne(ApiKey, { id: row.keyId, shop: shopId }, { fields: ["id", "name", "prefix"] })
+    : null;
   return { ...row, key: key ? { id: key.id, name: key.name, prefix: key.prefix } : null };
 }
 
 /** Routes seen in the shop's log, for the filter. */
 export async function routesSeen(em: EntityManager, shopId: string): Promise<string[]> {
-  const rows = await em.getConnection().execute<{ route: string }[]>("select distinct route from request_logs where shop_id = ? order by route", [shopId]);
+  const rows = await em
+    .getConnection()
+    .execute<{ route: string }[]>("select distinct route from request_logs where shop_id = ? order by route", [shopId]);
   return rows.map((r) => r.route);
 }

@@ -20,11 +20,20 @@ export async function sendMail(to: string[], subject: string, text: string) {
 
 /** The e-mail addresses of a shop's owners and admins. */
 export async function shopAdmins(em: EntityManager, shopId: string): Promise<string[]> {
-  const members = await em.find(Membership, { shop: shopId, role: { $in: ["owner", "admin"] } }, { populate: ["user"] });
+  const members = await em.find(
+    Membership,
+    { shop: shopId, role: { $in: ["owner", "admin"] } },
+    { populate: ["user"] },
+  );
   return members.map((m) => m.user.email);
 }
 
-export async function mailEndpointDisabled(em: EntityManager, shopId: string, endpoint: { id: string; url: string }, reason: string) {
+export async function mailEndpointDisabled(
+  em: EntityManager,
+  shopId: string,
+  endpoint: { id: string; url: string },
+  reason: string,
+) {
   const base = process.env.SHEARWIRE_BASE_URL ?? "http://127.0.0.1:3000";
   await sendMail(
     await shopAdmins(em, shopId),

@@ -14,16 +14,20 @@ export async function overview(em: EntityManager, shopId: string) {
     [shopId, new Date(Date.now() - 86_400_000)],
   );
   const byStatus = await conn.execute<{ status: string; n: string }[]>(
-    "select status, count(*) as n from programs where shop_id = ? group by status", [shopId],
+    "select status, count(*) as n from programs where shop_id = ? group by status",
+    [shopId],
   );
   const perMinute = await conn.execute<{ minute: Date; n: string }[]>(
     "select date_trunc('minute', created_at) as minute, count(*) as n from request_logs where shop_id = ? and created_at >= ? group by 1 order by 1",
     [shopId, hourAgo],
   );
   const [endpoints] = await conn.execute<{ disabled: string }[]>(
-    "select count(*) filter (where not enabled) as disabled from webhook_endpoints where shop_id = ?", [shopId],
+    "select count(*) filter (where not enabled) as disabled from webhook_endpoints where shop_id = ?",
+    [shopId],
   );
-  const [setup] = await conn.execute<{ shears: string; grades: string; keys: string; endpoints: string; programs: string; released: string }[]>(
+  const [setup] = await conn.execute<
+    { shears: string; grades: string; keys: string; endpoints: string; programs: string; released: string }[]
+  >(
     `select (select count(*) from shears where shop_id = ? and archived_at is null) as shears,
             (select count(*) from grades where shop_id = ? and archived_at is null) as grades,
             (select count(*) from api_keys where shop_id = ? and revoked_at is null) as keys,

@@ -1,15 +1,15 @@
 /**
  * Plans: an order's blanks laid out on the stock on hand for one shear, grade and thickness.
  * The web process only checks an order (its schema, the shear, the planner's limits), stores
- * it as `queued` and queues it; a worker computes it (lib/queue/plan-jobs.ts). Previews are
+ * it as `queued` and queues it; a worker computes it (lib/worker/plan-jobs.ts). Previews are
  * computed by a worker too, while the caller waits, and stored nowhere. Once complete, a
  * plan's draft programs are written through the same path as any other program (checked,
  * stored, with their events), all or nothing, once.
  */
 import { LockMode, type EntityManager } from "@mikro-orm/postgresql";
 import { Plan, Shop, type PlanEntity } from "../../entities";
-import { ApiError, conflict, invalidRequest, notFound } from "../api/errors";
-import { decodeCursor, page } from "../api/pagination";
+import { ApiError, conflict, invalidRequest, notFound } from "../errors";
+import { containing, findPage } from "../db/paging";
 import { waitForNotification } from "../db/notify";
 import { checkOrderLimits, OrderRefused } from "../planner/order-limits";
 import type { PlanContext, PlannedOrder } from "../planner/order";
@@ -36,7 +36,9 @@ const iso = (d: Date | null | undefined) => d?.toISOString() ?? null;
 /** The order's limits as a 422 naming the limit, the value and where. */
 export function refusal(err: OrderRefused) {
   return invalidRequest(err.message, [{ location: "body", pointer: err.pointer, message: err.message }], {
-    limit: err.limit, value: err.value, max: err.max,
+    limit: err.limit,
+    value: err.value,
+    max: err.max,
   });
 }
 
@@ -45,12 +47,20 @@ function releasabilityFindings(order: PlanInputT, planned: PlannedOrder): PlanRe
   const findings: PlanResultT["findings"] = [];
   planned.patterns.forEach((p, i) => {
     const valid = ProgramInput.safeParse({
-      reference: `plan/${p.key}`, shear: order.shear, grade: order.grade, thickness: order.thickness, units: order.units,
-      sheet: { ...p.sheet, count: p.repeats }, cuts: p.cuts,
+      reference: `plan/${p.key}`,
+      shear: order.shear,
+      grade: order.grade,
+      thickness: order.thickness,
+      units: order.units,
+      sheet: { ...p.sheet, count: p.repeats },
+      cuts: p.cuts,
     });
     if (!valid.success) {
       findings.push({
-        code: "pattern_not_releasable", severity: "warning", pointer: `/patterns/${i}`, actual: null,
+        code: "pattern_not_releasable",
+        severity: "warning",
+        pointer: `/patterns/${i}`,
+        actual: null,
         message: `Pattern ${p.key}'s program is outside what a cut program may hold (${valid.error.issues[0].path.join(".")}: ${valid.error.issues[0].message}); it cannot be written.`,
       });
     }
@@ -65,7 +75,10 @@ export function planResultOf(order: PlanInputT, planned: PlannedOrder): PlanResu
 
 /** Plans stored before bounds were reported: nothing proved, said so. */
 const NO_BOUNDS = {
-  lowerBoundSheets: 0, provenFewest: false, bounds: { areaSheets: 0, lpSheets: null }, method: "greedy" as const,
+  lowerBoundSheets: 0,
+  provenFewest: false,
+  bounds: { areaSheets: 0, lpSheets: null },
+  method: "greedy" as const,
   methodNote: "Planned before plans reported their lower bounds.",
 };
 
@@ -78,7 +91,11 @@ function normalised(result: Record<string, unknown> | null | undefined): PlanRes
     summary: { ...NO_BOUNDS, ...r.summary },
     patterns: r.patterns.map((p) => ({
       ...p,
-      strips: p.strips.map((s) => ({ ...s, repeat: s.repeat ?? 1, pieces: s.pieces.map((piece) => ({ ...piece, count: piece.count ?? 1 })) })),
+      strips: p.strips.map((s) => ({
+        ...s,
+        repeat: s.repeat ?? 1,
+        pieces: s.pieces.map((piece) => ({ ...piece, count: piece.count ?? 1 })),
+      })),
     })),
   };
 }
@@ -115,8 +132,15 @@ export function viewPlanSummary(p: PlanEntity): PlanSummaryT {
 }
 
 /** The shear and grade of an order, checked, and the order's limits (cheap: runs on the web process). */
-async function checkedOrder(em: EntityManager, shopId: string, input: PlanInputT): Promise<{ shearId: string; context: PlanContext }> {
-  const [shear, grade] = await Promise.all([activeShear(em, shopId, input.shear, "plan"), gradeByCode(em, shopId, input.grade)]);
+async function checkedOrder(
+  em: EntityManager,
+  shopId: string,
+  input: PlanInputT,
+): Promise<{ shearId: string; context: PlanContext }> {
+  const [shear, grade] = await Promise.all([
+    activeShear(em, shopId, input.shear, "plan"),
+    gradeByCode(em, shopId, input.grade),
+  ]);
   const context = { shear: shearProfile(shear), grade: grade ? gradeProfile(grade) : null };
   input.shear = shear.id; // stored by id, however it was named
   try {
@@ -132,16 +156,30 @@ async function checkedOrder(em: EntityManager, shopId: string, input: PlanInputT
  * Store an order as a queued plan and queue it for a worker; answers at once. `queue: false`
  * stores it only (the demo seed plans it itself; the worker's sweeper queues any left behind).
  */
-export async function createPlan(em: EntityManager, shopId: string, input: PlanInputT, opts: { queue?: boolean } = {}): Promise<PlanT> {
+export async function createPlan(
+  em: EntityManager,
+  shopId: string,
+  input: PlanInputT,
+  opts: { queue?: boolean } = {},
+): Promise<PlanT> {
   const { shearId } = await checkedOrder(em, shopId, input);
   const plan = em.create(Plan, {
-    shop: em.getReference(Shop, shopId), shear: shearId, reference: input.reference ?? null, title: input.title ?? null,
-    status: "queued", input: input as unknown as Record<string, unknown>, result: null, progress: null, failure: null,
+    shop: em.getReference(Shop, shopId),
+    shear: shearId,
+    reference: input.reference ?? null,
+    title: input.title ?? null,
+    status: "queued",
+    input: input as unknown as Record<string, unknown>,
+    result: null,
+    progress: null,
+    failure: null,
   });
   await em.flush();
   // Queued after the row is stored; if Redis is away or slow, the worker's sweeper queues it later.
   if (opts.queue !== false) {
-    await enqueuePlan(plan.id, ENQUEUE_WAIT_MS).catch((err) => console.error(`[plans] queueing ${plan.id} failed; the sweeper will:`, err.message));
+    await enqueuePlan(plan.id, ENQUEUE_WAIT_MS).catch((err) =>
+      console.error(`[plans] queueing ${plan.id} failed; the sweeper will:`, err.message),
+    );
   }
   return viewPlan(plan);
 }
@@ -173,15 +211,17 @@ export async function waitForPlan(em: EntityManager, shopId: string, id: string,
   }
 }
 
-export async function listPlans(em: EntityManager, shopId: string, f: { limit: number; cursor?: string; search?: string }) {
-  const before = decodeCursor(f.cursor);
-  const like = f.search ? `%${f.search.replace(/[\\%_]/g, (c) => `\\${c}`)}%` : null;
-  const rows = await em.find(Plan, {
-    shop: shopId, ...(before ? { id: { $lt: before } } : {}),
+export async function listPlans(
+  em: EntityManager,
+  shopId: string,
+  f: { limit: number; cursor?: string; search?: string },
+) {
+  const like = f.search ? containing(f.search) : null;
+  const where = {
+    shop: shopId,
     ...(like ? { $or: [{ reference: { $ilike: like } }, { title: { $ilike: like } }] } : {}),
-  }, { orderBy: { id: "desc" }, limit: f.limit + 1 });
-  const p = page(rows, f.limit);
-  return { data: p.data.map(viewPlanSummary), next_cursor: p.next_cursor };
+  };
+  return findPage(em, Plan, where, f, viewPlanSummary);
 }
 
 /** Stop a queued or running plan; a worker computing it stops at once. */
@@ -196,7 +236,10 @@ export async function cancelPlan(em: EntityManager, shopId: string, id: string):
     row.finishedAt = new Date();
     await tx.flush();
     await recordEvent(tx, shopId, "plan.cancelled", row.id, { plan: viewPlanSummary(row) });
-    await tx.execute(`select pg_notify('${PLAN_CANCEL_CHANNEL}', ?), pg_notify('${PLAN_DONE_CHANNEL}', ?)`, [row.id, row.id]);
+    await tx.execute(`select pg_notify('${PLAN_CANCEL_CHANNEL}', ?), pg_notify('${PLAN_DONE_CHANNEL}', ?)`, [
+      row.id,
+      row.id,
+    ]);
     return row;
   });
   await dequeuePlan(plan.id).catch(() => undefined);
@@ -211,30 +254,49 @@ export async function previewPlan(em: EntityManager, shopId: string, input: Plan
     planned = await previewOnWorker(input, context);
   } catch (err) {
     if (err instanceof PreviewTimeout) {
-      throw new ApiError(503, "planning-unavailable", "No planner answered in time",
-        `${err.message} Store the plan instead (POST /plans) and read it when it is done.`, {}, { "Retry-After": "30" });
+      throw new ApiError(
+        503,
+        "planning-unavailable",
+        "No planner answered in time",
+        `${err.message} Store the plan instead (POST /plans) and read it when it is done.`,
+        {},
+        { "Retry-After": "30" },
+      );
     }
     // The worker's refusals and failures (a time limit, say) come back as messages of ours.
     throw new ApiError(422, "plan-failed", "The plan could not be computed", (err as Error).message);
   }
   return {
     ...planResultOf(input, planned),
-    reference: input.reference ?? null, title: input.title ?? null, shear: input.shear, grade: input.grade, thickness: input.thickness, units: input.units,
+    reference: input.reference ?? null,
+    title: input.title ?? null,
+    shear: input.shear,
+    grade: input.grade,
+    thickness: input.thickness,
+    units: input.units,
   };
 }
 
 /** Write one draft program per sheet pattern (its repeats are the program's `sheet.count`), all or nothing, once. */
-export async function writePrograms(em: EntityManager, shopId: string, id: string, opts: WriteProgramsInputT = {}): Promise<{ plan: string; data: ProgramT[] }> {
+export async function writePrograms(
+  em: EntityManager,
+  shopId: string,
+  id: string,
+  opts: WriteProgramsInputT = {},
+): Promise<{ plan: string; data: ProgramT[] }> {
   const plan = await findPlan(em, shopId, id);
   if (plan.programs?.length) {
     throw conflict("This plan's programs are already written.", { programs: plan.programs });
   }
   const view = viewPlan(plan);
   if (view.status !== "complete" || !view.result) {
-    throw conflict(`This plan is ${view.status}: programs are written from a complete plan.`, { currentStatus: view.status });
+    throw conflict(`This plan is ${view.status}: programs are written from a complete plan.`, {
+      currentStatus: view.status,
+    });
   }
   const result = view.result;
-  if (!result.patterns.length) throw conflict("This plan has no sheet patterns to write: nothing could be placed.", { findings: result.findings });
+  if (!result.patterns.length)
+    throw conflict("This plan has no sheet patterns to write: nothing could be placed.", { findings: result.findings });
   const prefix = opts.referencePrefix ?? plan.reference ?? plan.id;
   return em.transactional(async (tx) => {
     // One writer at a time per plan: a second request waits here, then finds the programs written.
@@ -244,7 +306,11 @@ export async function writePrograms(em: EntityManager, shopId: string, id: strin
     for (const p of result.patterns) {
       const input: ProgramInputT = {
         reference: `${prefix}/${p.key}`,
-        title: `${view.title ?? view.reference ?? "Plan"}: pattern ${p.key}, ${p.repeats} sheet${p.repeats > 1 ? "s" : ""}`.slice(0, 200),
+        title:
+          `${view.title ?? view.reference ?? "Plan"}: pattern ${p.key}, ${p.repeats} sheet${p.repeats > 1 ? "s" : ""}`.slice(
+            0,
+            200,
+          ),
         shear: view.shear,
         grade: view.grade,
         thickness: view.thickness,
@@ -256,7 +322,11 @@ export async function writePrograms(em: EntityManager, shopId: string, id: strin
         metadata: { ...(opts.metadata ?? {}), plan: plan.id, pattern: p.key },
       };
       const valid = ProgramInput.safeParse(input);
-      if (!valid.success) throw conflict(`Pattern ${p.key} cannot be written as a cut program: ${valid.error.issues[0].path.join(".")}: ${valid.error.issues[0].message}.`, { pattern: p.key });
+      if (!valid.success)
+        throw conflict(
+          `Pattern ${p.key} cannot be written as a cut program: ${valid.error.issues[0].path.join(".")}: ${valid.error.issues[0].message}.`,
+          { pattern: p.key },
+        );
       written.push(await createProgram(tx, shopId, valid.data));
     }
     row.programs = written.map((w, i) => ({ pattern: result.patterns[i].key, id: w.id }));

@@ -3,11 +3,16 @@
  * yield and estimate), read, list, update drafts, dry-run check, release and cancel.
  * Every change and its event are written in one transaction.
  */
-import { OptimisticLockError, UniqueConstraintViolationException, type EntityManager, type FilterQuery } from "@mikro-orm/postgresql";
+import {
+  OptimisticLockError,
+  UniqueConstraintViolationException,
+  type EntityManager,
+  type FilterQuery,
+} from "@mikro-orm/postgresql";
 import { Program, Shear, Shop, type ProgramEntity, type ShearEntity } from "../../entities";
 import type { ProgramStatus } from "../../entities/Program";
-import { ApiError, conflict, invalidRequest, notFound, preconditionFailed, preconditionRequired } from "../api/errors";
-import { decodeCursor, page } from "../api/pagination";
+import { ApiError, conflict, invalidRequest, notFound, preconditionFailed, preconditionRequired } from "../errors";
+import { containing, findPage } from "../db/paging";
 import type { CheckT, ProgramInputT, ProgramPatchT, ProgramT } from "../schemas/program";
 import { checkProgram, type CheckResult } from "../shear";
 import { gradeByCode, gradeProfile, shearProfile } from "./catalog";
@@ -60,21 +65,39 @@ export function viewProgram(p: ProgramEntity): ProgramT {
  * The shear a program or plan names (by id, or by name as the catalog has it, any case), if
  * it is this shop's and not archived; else 422 pointing at `/shear`.
  */
-export async function activeShear(em: EntityManager, shopId: string, idOrName: string, what = "program"): Promise<ShearEntity> {
+export async function activeShear(
+  em: EntityManager,
+  shopId: string,
+  idOrName: string,
+  what = "program",
+): Promise<ShearEntity> {
   const key = idOrName.trim();
   const shear = /^shr_[0-9A-Z]{26}$/.test(key)
     ? await em.findOne(Shear, { id: key, shop: shopId })
-    : await em.findOne(Shear, { shop: shopId, name: { $ilike: key.replace(/[\\%_]/g, (c) => `\\${c}`) }, archivedAt: null });
+    : await em.findOne(Shear, {
+        shop: shopId,
+        name: { $ilike: key.replace(/[\\%_]/g, (c) => `\\${c}`) },
+        archivedAt: null,
+      });
   if (!shear || shear.archivedAt) {
     const message = shear ? "that shear is archived" : "no shear in this shop has that id or name";
-    throw invalidRequest(`The ${what}'s shear cannot be used: ${message}.`, [{ location: "body", pointer: "/shear", message }]);
+    throw invalidRequest(`The ${what}'s shear cannot be used: ${message}.`, [
+      { location: "body", pointer: "/shear", message },
+    ]);
   }
   return shear;
 }
 
 /** Run the shear core on a program with the shop's current catalog. */
-export async function runCheck(em: EntityManager, shopId: string, input: ProgramInputT): Promise<{ shear: ShearEntity; check: CheckResult }> {
-  const [shear, grade] = await Promise.all([activeShear(em, shopId, input.shear), gradeByCode(em, shopId, input.grade)]);
+export async function runCheck(
+  em: EntityManager,
+  shopId: string,
+  input: ProgramInputT,
+): Promise<{ shear: ShearEntity; check: CheckResult }> {
+  const [shear, grade] = await Promise.all([
+    activeShear(em, shopId, input.shear),
+    gradeByCode(em, shopId, input.grade),
+  ]);
   const check = checkProgram(input, { shear: shearProfile(shear), grade: grade ? gradeProfile(grade) : null });
   // A shear named by name is stored by id: renaming it later changes nothing about the program.
   input.shear = shear.id;
@@ -91,7 +114,9 @@ async function byReference(em: EntityManager, shopId: string, reference: string)
 
 async function duplicateReference(em: EntityManager, shopId: string, reference: string): Promise<ApiError> {
   const existing = await byReference(em, shopId, reference);
-  return conflict(`A program with reference "${reference}" already exists in this shop.`, { existingId: existing?.id ?? null });
+  return conflict(`A program with reference "${reference}" already exists in this shop.`, {
+    existingId: existing?.id ?? null,
+  });
 }
 
 function applyInput(program: ProgramEntity, input: ProgramInputT, check: CheckResult) {
@@ -108,13 +133,22 @@ function applyInput(program: ProgramEntity, input: ProgramInputT, check: CheckRe
 }
 
 export async function createProgram(em: EntityManager, shopId: string, input: ProgramInputT): Promise<ProgramT> {
-  const [{ shear, check }, existing] = await Promise.all([runCheck(em, shopId, input), byReference(em, shopId, input.reference)]);
+  const [{ shear, check }, existing] = await Promise.all([
+    runCheck(em, shopId, input),
+    byReference(em, shopId, input.reference),
+  ]);
   if (existing) throw await duplicateReference(em, shopId, input.reference);
   try {
     return await em.transactional(async (tx) => {
       const program = tx.create(Program, {
-        shop: tx.getReference(Shop, shopId), shear, reference: input.reference, gradeCode: input.grade, units: input.units,
-        input: {}, validation: check.validation, check: {},
+        shop: tx.getReference(Shop, shopId),
+        shear,
+        reference: input.reference,
+        gradeCode: input.grade,
+        units: input.units,
+        input: {},
+        validation: check.validation,
+        check: {},
       });
       applyInput(program, input, check);
       await tx.flush();
@@ -123,7 +157,8 @@ export async function createProgram(em: EntityManager, shopId: string, input: Pr
       return view;
     });
   } catch (err) {
-    if (err instanceof UniqueConstraintViolationException) throw await duplicateReference(em.fork(), shopId, input.reference);
+    if (err instanceof UniqueConstraintViolationException)
+      throw await duplicateReference(em.fork(), shopId, input.reference);
     throw err;
   }
 }
@@ -147,23 +182,20 @@ export interface ProgramFilter {
   updated_since?: string;
 }
 
-/** `text` as a LIKE pattern that matches it literally anywhere. */
-const containing = (text: string) => `%${text.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
-
 export async function listPrograms(em: EntityManager, shopId: string, f: ProgramFilter) {
-  const before = decodeCursor(f.cursor);
   const where: FilterQuery<ProgramEntity> = {
     shop: shopId,
     ...(f.status ? { status: f.status } : {}),
     ...(f.shear ? { shear: f.shear } : {}),
     ...(f.reference ? { reference: f.reference } : {}),
-    ...(f.search ? { $or: [{ reference: { $ilike: containing(f.search) } }, { title: { $ilike: containing(f.search) } }] } : {}),
-    ...((f.updatedSince ?? f.updated_since) ? { updatedAt: { $gte: new Date((f.updatedSince ?? f.updated_since)!) } } : {}),
-    ...(before ? { id: { $lt: before } } : {}),
+    ...(f.search
+      ? { $or: [{ reference: { $ilike: containing(f.search) } }, { title: { $ilike: containing(f.search) } }] }
+      : {}),
+    ...((f.updatedSince ?? f.updated_since)
+      ? { updatedAt: { $gte: new Date((f.updatedSince ?? f.updated_since)!) } }
+      : {}),
   };
-  const rows = await em.find(Program, where, { orderBy: { id: "desc" }, limit: f.limit + 1 });
-  const p = page(rows, f.limit);
-  return { data: p.data.map(viewProgram), next_cursor: p.next_cursor };
+  return findPage(em, Program, where, f, viewProgram);
 }
 
 /** Check If-Match against the program's revision: 428 when missing, 412 when stale. */
@@ -171,17 +203,28 @@ export function checkIfMatch(program: ProgramEntity, ifMatch: string | null) {
   if (ifMatch === null) throw preconditionRequired("Send If-Match with the ETag you read (GET the program first).");
   const tags = ifMatch.split(",").map((t) => t.trim().replace(/^W\//, ""));
   if (!tags.includes("*") && !tags.includes(etagOf(program.revision))) {
-    throw preconditionFailed(`The program is at revision ${program.revision}; read it again and retry.`, { currentRevision: program.revision });
+    throw preconditionFailed(`The program is at revision ${program.revision}; read it again and retry.`, {
+      currentRevision: program.revision,
+    });
   }
 }
 
 export function mustBe(program: ProgramEntity, allowed: ProgramStatus[], action: string) {
   if (!allowed.includes(program.status)) {
-    throw conflict(`A ${program.status} program cannot be ${action}.`, { currentStatus: program.status, allowedFrom: allowed });
+    throw conflict(`A ${program.status} program cannot be ${action}.`, {
+      currentStatus: program.status,
+      allowedFrom: allowed,
+    });
   }
 }
 
-export async function updateProgram(em: EntityManager, shopId: string, id: string, patch: ProgramPatchT, ifMatch: string | null): Promise<ProgramT> {
+export async function updateProgram(
+  em: EntityManager,
+  shopId: string,
+  id: string,
+  patch: ProgramPatchT,
+  ifMatch: string | null,
+): Promise<ProgramT> {
   const program = await getProgram(em, shopId, id);
   checkIfMatch(program, ifMatch);
   mustBe(program, ["draft"], "edited");
@@ -193,7 +236,10 @@ export async function updateProgram(em: EntityManager, shopId: string, id: strin
   try {
     return await em.transactional(async (tx) => {
       const p = await tx.findOneOrFail(Program, { id });
-      if (p.revision !== program.revision) throw preconditionFailed(`The program changed meanwhile (revision ${p.revision}); read it again and retry.`, { currentRevision: p.revision });
+      if (p.revision !== program.revision)
+        throw preconditionFailed(`The program changed meanwhile (revision ${p.revision}); read it again and retry.`, {
+          currentRevision: p.revision,
+        });
       p.shear = shear;
       applyInput(p, input, check);
       await tx.flush();
@@ -202,28 +248,50 @@ export async function updateProgram(em: EntityManager, shopId: string, id: strin
       return view;
     });
   } catch (err) {
-    if (err instanceof OptimisticLockError) throw preconditionFailed("The program changed meanwhile; read it again and retry.");
-    if (err instanceof UniqueConstraintViolationException) throw await duplicateReference(em.fork(), shopId, input.reference);
+    if (err instanceof OptimisticLockError)
+      throw preconditionFailed("The program changed meanwhile; read it again and retry.");
+    if (err instanceof UniqueConstraintViolationException)
+      throw await duplicateReference(em.fork(), shopId, input.reference);
     throw err;
   }
 }
 
-export async function releaseProgram(em: EntityManager, shopId: string, id: string, acknowledge: string[] = []): Promise<ProgramT> {
+export async function releaseProgram(
+  em: EntityManager,
+  shopId: string,
+  id: string,
+  acknowledge: string[] = [],
+): Promise<ProgramT> {
   const program = await getProgram(em, shopId, id);
   mustBe(program, ["draft"], "released");
   // Check again: the shear or grade may have changed since the program was stored.
   const { check } = await runCheck(em, shopId, program.input as ProgramInputT);
   if (check.validation === "fail") {
-    throw new ApiError(409, "program-not-releasable", "The program has errors", "Fix the findings of severity `error` before releasing.", {
-      validation: check.validation, findings: check.findings,
-    });
+    throw new ApiError(
+      409,
+      "program-not-releasable",
+      "The program has errors",
+      "Fix the findings of severity `error` before releasing.",
+      {
+        validation: check.validation,
+        findings: check.findings,
+      },
+    );
   }
   const warnings = [...new Set(check.findings.filter((f) => f.severity === "warning").map((f) => f.code))];
   const missing = warnings.filter((c) => !acknowledge.includes(c));
   if (missing.length) {
-    throw new ApiError(409, "warnings-not-acknowledged", "Acknowledge the warnings to release",
+    throw new ApiError(
+      409,
+      "warnings-not-acknowledged",
+      "Acknowledge the warnings to release",
       `Release again with "acknowledge": ${JSON.stringify(warnings)} once you have read them.`,
-      { validation: check.validation, unacknowledged: missing, findings: check.findings.filter((f) => f.severity === "warning") });
+      {
+        validation: check.validation,
+        unacknowledged: missing,
+        findings: check.findings.filter((f) => f.severity === "warning"),
+      },
+    );
   }
   return transition(em, shopId, program, "released", "program.released", (p) => {
     p.validation = check.validation;
@@ -236,10 +304,18 @@ export async function releaseProgram(em: EntityManager, shopId: string, id: stri
 export async function cancelProgram(em: EntityManager, shopId: string, id: string, reason?: string): Promise<ProgramT> {
   const program = await getProgram(em, shopId, id);
   mustBe(program, CANCELLABLE, "cancelled");
-  return transition(em, shopId, program, "cancelled", "program.cancelled", (p) => {
-    p.cancelledAt = new Date();
-    p.leaseExpiresAt = null;
-  }, { reason: reason ?? null });
+  return transition(
+    em,
+    shopId,
+    program,
+    "cancelled",
+    "program.cancelled",
+    (p) => {
+      p.cancelledAt = new Date();
+      p.leaseExpiresAt = null;
+    },
+    { reason: reason ?? null },
+  );
 }
 
 /**
@@ -248,8 +324,13 @@ export async function cancelProgram(em: EntityManager, shopId: string, id: strin
  * this one answer 409 with the state it found.
  */
 export async function transition(
-  em: EntityManager, shopId: string, program: ProgramEntity, to: ProgramStatus,
-  type: EventType, change: (p: ProgramEntity) => void, extra: Record<string, unknown> = {},
+  em: EntityManager,
+  shopId: string,
+  program: ProgramEntity,
+  to: ProgramStatus,
+  type: EventType,
+  change: (p: ProgramEntity) => void,
+  extra: Record<string, unknown> = {},
 ): Promise<ProgramT> {
   const from = program.status;
   try {

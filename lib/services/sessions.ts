@@ -21,18 +21,28 @@ export async function startSession(em: EntityManager, userId: string, maxAgeSeco
 
 /** True while the session exists, belongs to this person, and has neither ended nor expired. */
 export async function sessionActive(em: EntityManager, sessionId: string, userId: string): Promise<boolean> {
-  const [row] = await em.getConnection().execute<{ id: string }[]>(
-    "select id from console_sessions where id = ? and user_id = ? and revoked_at is null and expires_at > now()",
-    [sessionId, userId],
-  );
+  const [row] = await em
+    .getConnection()
+    .execute<{ id: string }[]>(
+      "select id from console_sessions where id = ? and user_id = ? and revoked_at is null and expires_at > now()",
+      [sessionId, userId],
+    );
   return Boolean(row);
 }
 
 export async function endSession(em: EntityManager, sessionId: string, reason: SessionEnd = "signed-out") {
-  await em.nativeUpdate(ConsoleSession, { id: sessionId, revokedAt: null }, { revokedAt: new Date(), revokedReason: reason });
+  await em.nativeUpdate(
+    ConsoleSession,
+    { id: sessionId, revokedAt: null },
+    { revokedAt: new Date(), revokedReason: reason },
+  );
 }
 
 /** End every session of a person (their access changed: they must sign in again to get the new one). */
 export async function endUserSessions(em: EntityManager, userId: string, reason: SessionEnd): Promise<number> {
-  return em.nativeUpdate(ConsoleSession, { user: userId, revokedAt: null }, { revokedAt: new Date(), revokedReason: reason });
+  return em.nativeUpdate(
+    ConsoleSession,
+    { user: userId, revokedAt: null },
+    { revokedAt: new Date(), revokedReason: reason },
+  );
 }

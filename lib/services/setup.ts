@@ -1,8 +1,16 @@
 /** Stand-alone setup recommendations and gauge tables, from the shear core. */
 import type { EntityManager } from "@mikro-orm/postgresql";
-import { invalidRequest } from "../api/errors";
+import { invalidRequest } from "../errors";
 import {
-  GAUGE_FAMILY_NAMES, checkProgram, gaugeTable, gaugeThicknessMm, lengthToMm, recommendSetup, roundTo, type GaugeFamily, type LengthUnit,
+  GAUGE_FAMILY_NAMES,
+  checkProgram,
+  gaugeTable,
+  gaugeThicknessMm,
+  lengthToMm,
+  recommendSetup,
+  roundTo,
+  type GaugeFamily,
+  type LengthUnit,
 } from "../shear";
 import type { z } from "zod";
 import type { SetupRequest } from "../schemas/catalog";
@@ -17,18 +25,23 @@ const DEFINITIONS: Record<GaugeFamily, string> = {
 };
 
 export function gaugeTables(family?: GaugeFamily) {
-  const families = (family ? [family] : (Object.keys(GAUGE_FAMILY_NAMES) as GaugeFamily[]));
+  const families = family ? [family] : (Object.keys(GAUGE_FAMILY_NAMES) as GaugeFamily[]);
   return {
     data: families.map((f) => ({
       family: f,
       name: GAUGE_FAMILY_NAMES[f],
       definition: DEFINITIONS[f],
-      rows: gaugeTable(f).map((r) => ({ gauge: r.gauge, in: roundTo(r.thicknessIn, 4), mm: roundTo(r.thicknessMm, 3) })),
+      rows: gaugeTable(f).map((r) => ({
+        gauge: r.gauge,
+        in: roundTo(r.thicknessIn, 4),
+        mm: roundTo(r.thicknessMm, 3),
+      })),
     })),
   };
 }
 
-const fail = (pointer: string, message: string) => invalidRequest(`Cannot recommend a setup: ${message}.`, [{ location: "body", pointer, message }]);
+const fail = (pointer: string, message: string) =>
+  invalidRequest(`Cannot recommend a setup: ${message}.`, [{ location: "body", pointer, message }]);
 
 export async function setupFor(em: EntityManager, shopId: string, req: z.infer<typeof SetupRequest>) {
   const shear = await em.findOne(Shear, { id: req.shear, shop: shopId, archivedAt: null });
@@ -41,7 +54,13 @@ export async function setupFor(em: EntityManager, shopId: string, req: z.infer<t
   if ("gauge" in req.thickness) {
     gauge = req.thickness.gauge;
     thicknessMm = grade.gaugeFamily ? gaugeThicknessMm(grade.gaugeFamily, gauge) : null;
-    if (thicknessMm === null) throw fail("/thickness/gauge", grade.gaugeFamily ? `gauge ${gauge} is not in the ${GAUGE_FAMILY_NAMES[grade.gaugeFamily]} table` : `grade ${grade.code} has no gauge system`);
+    if (thicknessMm === null)
+      throw fail(
+        "/thickness/gauge",
+        grade.gaugeFamily
+          ? `gauge ${gauge} is not in the ${GAUGE_FAMILY_NAMES[grade.gaugeFamily]} table`
+          : `grade ${grade.code} has no gauge system`,
+      );
   } else {
     thicknessMm = lengthToMm(req.thickness.value, units);
   }
@@ -52,17 +71,35 @@ export async function setupFor(em: EntityManager, shopId: string, req: z.infer<t
   if (!rec) throw fail("/grade", `grade ${grade.code} has no usable tensile strength`);
   // The capacity findings come from the same checks a program gets: one full stroke of this length.
   const from = (mm: number) => roundTo(units === "mm" ? mm : mm / 25.4, 6);
-  const probe = checkProgram({
-    grade: req.grade, thickness: req.thickness, units,
-    sheet: { length: from(cutLengthMm), width: from(Math.max(4 * shear.backgaugeMinMm, 200)), count: 1 },
-    cuts: [{ backgauge: from(Math.max(2 * shear.backgaugeMinMm, 100)), count: 1 }],
-  }, { shear: shearP, grade: gradeP });
+  const probe = checkProgram(
+    {
+      grade: req.grade,
+      thickness: req.thickness,
+      units,
+      sheet: { length: from(cutLengthMm), width: from(Math.max(4 * shear.backgaugeMinMm, 200)), count: 1 },
+      cuts: [{ backgauge: from(Math.max(2 * shear.backgaugeMinMm, 100)), count: 1 }],
+    },
+    { shear: shearP, grade: gradeP },
+  );
   return {
-    thickness: probe.thickness ?? { value: from(thicknessMm), unit: units, source: gauge === null ? "value" as const : "gauge" as const, gauge, gaugeFamily: grade.gaugeFamily ?? null },
+    thickness: probe.thickness ?? {
+      value: from(thicknessMm),
+      unit: units,
+      source: gauge === null ? ("value" as const) : ("gauge" as const),
+      gauge,
+      gaugeFamily: grade.gaugeFamily ?? null,
+    },
     setup: rec.setup,
     force: rec.force,
     findings: probe.findings.filter((f) => CAPACITY_CODES.has(f.code)),
   };
 }
 
-const CAPACITY_CODES = new Set(["thickness_over_capacity", "force_over_rating", "force_dull_blade_margin", "hardness_over_blade_limit", "gap_out_of_range", "rake_out_of_range"]);
+const CAPACITY_CODES = new Set([
+  "thickness_over_capacity",
+  "force_over_rating",
+  "force_dull_blade_margin",
+  "hardness_over_blade_limit",
+  "gap_out_of_range",
+  "rake_out_of_range",
+]);

@@ -21,12 +21,24 @@ export const SIGN_IN_LIMITS = {
 
 export class SignInThrottled extends Error {}
 
-const holder = globalThis as unknown as { __shearwireSignIn?: { account: RateLimiterRedis; address: RateLimiterRedis } };
+const holder = globalThis as unknown as {
+  __shearwireSignIn?: { account: RateLimiterRedis; address: RateLimiterRedis };
+};
 
 function limiters() {
   holder.__shearwireSignIn ??= {
-    account: new RateLimiterRedis({ storeClient: getRedis(), keyPrefix: "shearwire:signin:account", points: SIGN_IN_LIMITS.perAccount, duration: SIGN_IN_LIMITS.windowSeconds }),
-    address: new RateLimiterRedis({ storeClient: getRedis(), keyPrefix: "shearwire:signin:address", points: SIGN_IN_LIMITS.perAddress, duration: SIGN_IN_LIMITS.windowSeconds }),
+    account: new RateLimiterRedis({
+      storeClient: getRedis(),
+      keyPrefix: "shearwire:signin:account",
+      points: SIGN_IN_LIMITS.perAccount,
+      duration: SIGN_IN_LIMITS.windowSeconds,
+    }),
+    address: new RateLimiterRedis({
+      storeClient: getRedis(),
+      keyPrefix: "shearwire:signin:address",
+      points: SIGN_IN_LIMITS.perAddress,
+      duration: SIGN_IN_LIMITS.windowSeconds,
+    }),
   };
   return holder.__shearwireSignIn;
 }
@@ -45,16 +57,26 @@ async function record(em: EntityManager, email: string, address: string, outcome
  * The account for this e-mail and password, or null; throws `SignInThrottled` (with a message
  * meant for the person) when the account or the address has failed too often lately.
  */
-export async function verifySignIn(em: EntityManager, emailInput: string, password: string, address: string): Promise<{ id: string; email: string; name: string } | null> {
+export async function verifySignIn(
+  em: EntityManager,
+  emailInput: string,
+  password: string,
+  address: string,
+): Promise<{ id: string; email: string; name: string } | null> {
   const email = emailInput.trim().toLowerCase();
   // Nothing that could not be an account reaches the database (NUL, broken Unicode, absurd lengths).
   if (!email || email.length > 254 || password.length > 1000 || textProblem(email)) return null;
   const { account, address: byAddress } = limiters();
   const [accountState, addressState] = await Promise.all([account.get(email), byAddress.get(address)]);
-  for (const [state, limit, what] of [[accountState, SIGN_IN_LIMITS.perAccount, "this account"], [addressState, SIGN_IN_LIMITS.perAddress, "your address"]] as const) {
+  for (const [state, limit, what] of [
+    [accountState, SIGN_IN_LIMITS.perAccount, "this account"],
+    [addressState, SIGN_IN_LIMITS.perAddress, "your address"],
+  ] as const) {
     if (state && state.consumedPoints >= limit) {
       await record(em, email, address, "throttled");
-      throw new SignInThrottled(`Too many failed sign-ins for ${what}. Try again in ${minutes(state)} minute${minutes(state) === 1 ? "" : "s"}, or ask an owner to help.`);
+      throw new SignInThrottled(
+        `Too many failed sign-ins for ${what}. Try again in ${minutes(state)} minute${minutes(state) === 1 ? "" : "s"}, or ask an owner to help.`,
+      );
     }
   }
   const user = await em.findOne(User, { email });
@@ -63,7 +85,9 @@ export async function verifySignIn(em: EntityManager, emailInput: string, passwo
     await account.delete(email).catch(() => undefined);
     return { id: user.id, email: user.email, name: user.name };
   }
-  await Promise.all([account.penalty(email, 1), byAddress.penalty(address, 1)]).catch((err) => console.error("[sign-in] could not count a failure:", err));
+  await Promise.all([account.penalty(email, 1), byAddress.penalty(address, 1)]).catch((err) =>
+    console.error("[sign-in] could not count a failure:", err),
+  );
   await record(em, email, address, "wrong-password");
   return null;
 }

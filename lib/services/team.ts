@@ -6,8 +6,8 @@ import { createHash, randomBytes } from "node:crypto";
 import type { EntityManager } from "@mikro-orm/postgresql";
 import bcrypt from "bcryptjs";
 import { Invitation, Membership, Shop, User } from "../../entities";
-import type { Role } from "../../entities/Membership";
-import { conflict, invalidRequest, notFound } from "../api/errors";
+import type { Role } from "../../lib/schemas/enums";
+import { conflict, invalidRequest, notFound } from "../errors";
 import { MIN_PASSWORD } from "../schemas/team";
 import { sendMail } from "./mail";
 import { endUserSessions } from "./sessions";
@@ -17,32 +17,64 @@ const digest = (token: string) => createHash("sha256").update(token).digest("hex
 
 export async function listTeam(em: EntityManager, shopId: string) {
   const members = await em.find(Membership, { shop: shopId }, { populate: ["user"], orderBy: { createdAt: "asc" } });
-  const invitations = await em.find(Invitation, { shop: shopId, acceptedAt: null, revokedAt: null, expiresAt: { $gt: new Date() } }, { orderBy: { createdAt: "desc" } });
+  const invitations = await em.find(
+    Invitation,
+    { shop: shopId, acceptedAt: null, revokedAt: null, expiresAt: { $gt: new Date() } },
+    { orderBy: { createdAt: "desc" } },
+  );
   return {
-    members: members.map((m) => ({ id: m.id, userId: m.user.id, name: m.user.name, email: m.user.email, role: m.role })),
-    invitations: invitations.map((i) => ({ id: i.id, email: i.email, role: i.role, expiresAt: i.expiresAt.toISOString() })),
+    members: members.map((m) => ({
+      id: m.id,
+      userId: m.user.id,
+      name: m.user.name,
+      email: m.user.email,
+      role: m.role,
+    })),
+    invitations: invitations.map((i) => ({
+      id: i.id,
+      email: i.email,
+      role: i.role,
+      expiresAt: i.expiresAt.toISOString(),
+    })),
   };
 }
 
-export async function invite(em: EntityManager, shopId: string, by: { userId: string; name: string }, email: string, role: Role) {
+export async function invite(
+  em: EntityManager,
+  shopId: string,
+  by: { userId: string; name: string },
+  email: string,
+  role: Role,
+) {
   const address = email.trim().toLowerCase();
-  if (!/^[^\s@]+@[^\s@]+\.[^\s@]+$/.test(address)) throw invalidRequest("That is not an e-mail address.", [{ location: "body", pointer: "/email", message: "not an e-mail address" }]);
+  if (!/^[^\s@]+@[^\s@]+\.[^\s@]+$/.test(address))
+    throw invalidRequest("That is not an e-mail address.", [
+      { location: "body", pointer: "/email", message: "not an e-mail address" },
+    ]);
   const existing = await em.findOne(Membership, { shop: shopId, user: { email: address } });
   if (existing) throw conflict(`${address} is already in this shop.`);
   const shop = await em.findOneOrFail(Shop, { id: shopId });
   const token = randomBytes(24).toString("base64url");
   em.create(Invitation, {
-    shop, email: address, role, tokenHash: digest(token), invitedBy: by.userId,
+    shop,
+    email: address,
+    role,
+    tokenHash: digest(token),
+    invitedBy: by.userId,
     expiresAt: new Date(Date.now() + INVITE_DAYS * 86_400_000),
   });
   await em.flush();
   const link = `${process.env.SHEARWIRE_BASE_URL ?? "http://127.0.0.1:3000"}/invite/${token}`;
-  await sendMail([address], `${by.name} invited you to ${shop.name} on Shearwire`, [
-    `${by.name} invited you to join ${shop.name} on Shearwire as ${role}.`,
-    "",
-    `Set your password and sign in here (the link works for ${INVITE_DAYS} days, once):`,
-    link,
-  ].join("\n"));
+  await sendMail(
+    [address],
+    `${by.name} invited you to ${shop.name} on Shearwire`,
+    [
+      `${by.name} invited you to join ${shop.name} on Shearwire as ${role}.`,
+      "",
+      `Set your password and sign in here (the link works for ${INVITE_DAYS} days, once):`,
+      link,
+    ].join("\n"),
+  );
   return { link };
 }
 
@@ -54,7 +86,10 @@ export async function findInvitation(em: EntityManager, token: string) {
 
 /** Accept an invitation: set the password (or keep an existing account's) and join the shop. */
 export async function acceptInvitation(em: EntityManager, token: string, name: string, password: string) {
-  if (password.length < MIN_PASSWORD) throw invalidRequest(`Choose a password of at least ${MIN_PASSWORD} characters.`, [{ location: "body", pointer: "/password", message: "too short" }]);
+  if (password.length < MIN_PASSWORD)
+    throw invalidRequest(`Choose a password of at least ${MIN_PASSWORD} characters.`, [
+      { location: "body", pointer: "/password", message: "too short" },
+    ]);
   return em.transactional(async (tx) => {
     const inv = await findInvitation(tx, token);
     if (!inv) throw notFound("invitation (it may have expired or been used)");
@@ -78,7 +113,8 @@ async function owners(em: EntityManager, shopId: string) {
 export async function changeRole(em: EntityManager, shopId: string, membershipId: string, role: Role) {
   const m = await em.findOne(Membership, { id: membershipId, shop: shopId });
   if (!m) throw notFound("member");
-  if (m.role === "owner" && role !== "owner" && (await owners(em, shopId)) <= 1) throw conflict("A shop keeps at least one owner: make someone else owner first.");
+  if (m.role === "owner" && role !== "owner" && (await owners(em, shopId)) <= 1)
+    throw conflict("A shop keeps at least one owner: make someone else owner first.");
   const changed = m.role !== role;
   m.role = role;
   await em.flush();

@@ -13,7 +13,15 @@ import { checkGroups } from "./groups";
 import { remnantToleranceMm, simulateFlow, type FlowResult } from "./flow";
 import { yieldReport } from "./yields";
 import { layoutReport } from "./layout";
-import { cutForce, forceReport, maxThicknessForGradeMm, rakedForceKn, ratedForceKn, straightForceKn, type CutForce } from "./force";
+import {
+  cutForce,
+  forceReport,
+  maxThicknessForGradeMm,
+  rakedForceKn,
+  ratedForceKn,
+  straightForceKn,
+  type CutForce,
+} from "./force";
 import { gradeShearStrengthMpa, gradeTensile, type GradeTensile } from "./grades";
 import { resolveSetup, NOTHING_GIVEN, type ResolvedSetup } from "./setup";
 import { estimateCycle, estimateReport } from "./estimate";
@@ -43,14 +51,26 @@ function computeForceAndSetup(
   const cuts: GroupCut[] =
     flow === null
       ? [{ group: -1, cutLengthMm: shear.bladeLengthMm }]
-      : flow.groups.filter((group) => group.strokes > 0 && group.cutLengthMm > 0 && !program.skip[group.index]).map((group) => ({ group: group.index, cutLengthMm: group.cutLengthMm }));
-  const forceAt = (lengthMm: number, rakeDeg: number): CutForce => cutForce({ tensileMpa: tensile.mpa, shearMpa, thicknessMm, lengthMm, rakeDeg });
+      : flow.groups
+          .filter((group) => group.strokes > 0 && group.cutLengthMm > 0 && !program.skip[group.index])
+          .map((group) => ({ group: group.index, cutLengthMm: group.cutLengthMm }));
+  const forceAt = (lengthMm: number, rakeDeg: number): CutForce =>
+    cutForce({ tensileMpa: tensile.mpa, shearMpa, thicknessMm, lengthMm, rakeDeg });
   // The raked force does not depend on the length of cut and the straight-blade cap grows with it,
   // so the longest cut needs the most force.
   const longestMm = cuts.reduce((longest, cut) => Math.max(longest, cut.cutLengthMm), 0);
   const requiredKnAt = (rakeDeg: number): number => (longestMm > 0 ? forceAt(longestMm, rakeDeg).kn : 0);
   const ratedKn = ratedForceKn(shear);
-  const setup = resolveSetup({ grade, tensileMpa: tensile.mpa, thicknessMm, shear, ratedKn, units: program.units, given: program.given, requiredKnAt });
+  const setup = resolveSetup({
+    grade,
+    tensileMpa: tensile.mpa,
+    thicknessMm,
+    shear,
+    ratedKn,
+    units: program.units,
+    given: program.given,
+    requiredKnAt,
+  });
   const maxThickness = maxThicknessForGradeMm(shear, grade.code, tensile.mpa);
   const rakePointer = program.given.rakeDeg !== null ? "/setup/rakeDeg" : thicknessPointer;
   const findings = [
@@ -72,7 +92,13 @@ function computeForceAndSetup(
 }
 
 /** Force of each group at one rake (the raked force is computed once: it does not depend on the length of cut). */
-function groupForces(cuts: readonly GroupCut[], tensileMpa: number, shearMpa: number, thicknessMm: number, rakeDeg: number): Array<GroupCut & { force: CutForce }> {
+function groupForces(
+  cuts: readonly GroupCut[],
+  tensileMpa: number,
+  shearMpa: number,
+  thicknessMm: number,
+  rakeDeg: number,
+): Array<GroupCut & { force: CutForce }> {
   const raked = rakedForceKn(tensileMpa, thicknessMm, rakeDeg);
   return cuts.map((cut) => {
     const straight = straightForceKn(shearMpa, cut.cutLengthMm, thicknessMm);
@@ -81,7 +107,12 @@ function groupForces(cuts: readonly GroupCut[], tensileMpa: number, shearMpa: nu
   });
 }
 
-function thicknessReport(thickness: ThicknessRead, mm: number, grade: GradeProfile | null, units: LengthUnit): ThicknessReport {
+function thicknessReport(
+  thickness: ThicknessRead,
+  mm: number,
+  grade: GradeProfile | null,
+  units: LengthUnit,
+): ThicknessReport {
   return {
     value: showLength(mm, units),
     unit: units,
@@ -115,7 +146,11 @@ export interface CheckOptions {
  * @param context the shear profile and the grade's catalogue entry (null when the catalogue has none)
  * @param options `layout: false` when the sheet's layout is not wanted (it is the costliest part for many pieces)
  */
-export function checkProgram(input: CutProgram | unknown, context: CheckContext, options: CheckOptions = {}): CheckResult {
+export function checkProgram(
+  input: CutProgram | unknown,
+  context: CheckContext,
+  options: CheckOptions = {},
+): CheckResult {
   const place = !(isObject(options) && options.layout === false);
   const findings: Finding[] = [];
   const program = readProgram(input, findings);
@@ -127,7 +162,10 @@ export function checkProgram(input: CutProgram | unknown, context: CheckContext,
   const tensile = resolveTensile(grade, findings);
   const thicknessMm = resolveThickness(program.thickness, grade, program.gradeCode, findings);
   if (shear !== null) findings.push(...checkUnitsSuspect(program, shear));
-  const flow = program.sheet !== null ? simulateFlow(program.sheet, program.cuts, { toleranceMm: remnantToleranceMm(shear), place }) : null;
+  const flow =
+    program.sheet !== null
+      ? simulateFlow(program.sheet, program.cuts, { toleranceMm: remnantToleranceMm(shear), place })
+      : null;
 
   let forced: ForceAndSetup | null = null;
   if (shear !== null && grade !== null && tensile !== null && thicknessMm !== null && program.thickness !== null) {
@@ -159,7 +197,10 @@ export function checkProgram(input: CutProgram | unknown, context: CheckContext,
     validation: validationOf(findings),
     units,
     findings,
-    thickness: program.thickness !== null && thicknessMm !== null ? thicknessReport(program.thickness, thicknessMm, grade, units) : null,
+    thickness:
+      program.thickness !== null && thicknessMm !== null
+        ? thicknessReport(program.thickness, thicknessMm, grade, units)
+        : null,
     setup: forced?.setup.report ?? null,
     force: forced?.report ?? null,
     yield: flow !== null && program.sheet !== null ? yieldReport(flow, program.sheet.count, units) : null,
@@ -177,12 +218,19 @@ export interface SetupRecommendation {
  * Setup recommendation for a grade × thickness × shear, for a full-length cut
  * (or `cutLengthMm`). Null when the grade has no tensile strength.
  */
-export function recommendSetup(args: { grade: GradeProfile; shear: ShearProfile; thicknessMm: number; units: LengthUnit; cutLengthMm?: number }): SetupRecommendation | null {
+export function recommendSetup(args: {
+  grade: GradeProfile;
+  shear: ShearProfile;
+  thicknessMm: number;
+  units: LengthUnit;
+  cutLengthMm?: number;
+}): SetupRecommendation | null {
   const tensile = gradeTensile(args.grade);
   if (tensile === null || !isPositive(args.thicknessMm)) return null;
   const shearMpa = gradeShearStrengthMpa(args.grade) ?? tensile.mpa;
   const lengthMm = args.cutLengthMm ?? args.shear.bladeLengthMm;
-  const forceAt = (rakeDeg: number): CutForce => cutForce({ tensileMpa: tensile.mpa, shearMpa, thicknessMm: args.thicknessMm, lengthMm, rakeDeg });
+  const forceAt = (rakeDeg: number): CutForce =>
+    cutForce({ tensileMpa: tensile.mpa, shearMpa, thicknessMm: args.thicknessMm, lengthMm, rakeDeg });
   const ratedKn = ratedForceKn(args.shear);
   const setup = resolveSetup({
     grade: args.grade,

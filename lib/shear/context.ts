@@ -11,8 +11,24 @@ import { DEFAULT_SHEAR_TENSILE_RATIO, gradeTensile, sameGradeCode, type GradeTen
 import { GAUGE_FAMILY_NAMES, GAUGE_RANGES, gaugeThicknessMm } from "./gauges";
 import { fmtLength, mmToIn } from "./units";
 
-const SHEAR_POSITIVE_FIELDS = ["ratedThicknessMm", "ratedTensileMpa", "ratedRakeDeg", "bladeLengthMm", "strokesPerMin", "backgaugeSpeedMmPerS", "rakeMaxDeg", "gapMaxMm", "backgaugeMaxMm"] as const;
-const SHEAR_NON_NEGATIVE_FIELDS = ["backgaugeMinMm", "rakeMinDeg", "gapMinMm", "handlingSecondsPerTurn", "handlingSecondsPerSheet"] as const;
+const SHEAR_POSITIVE_FIELDS = [
+  "ratedThicknessMm",
+  "ratedTensileMpa",
+  "ratedRakeDeg",
+  "bladeLengthMm",
+  "strokesPerMin",
+  "backgaugeSpeedMmPerS",
+  "rakeMaxDeg",
+  "gapMaxMm",
+  "backgaugeMaxMm",
+] as const;
+const SHEAR_NON_NEGATIVE_FIELDS = [
+  "backgaugeMinMm",
+  "rakeMinDeg",
+  "gapMinMm",
+  "handlingSecondsPerTurn",
+  "handlingSecondsPerSheet",
+] as const;
 /** Optional machine figures: kept when usable, else left out so the core's default applies. */
 const SHEAR_OPTIONAL_NON_NEGATIVE_FIELDS = ["crownAtRatedMm", "crownBaselineMm"] as const;
 
@@ -22,7 +38,13 @@ const SHEAR_OPTIONAL_POSITIVE_FIELDS = ["backgaugeRepeatabilityMm"] as const;
 /** The shear profile if it is usable (a clean copy), else a finding. */
 export function usableShear(shear: unknown, out: Finding[]): ShearProfile | null {
   if (!isObject(shear)) {
-    out.push(finding("shear_unknown", "/shear", "No shear profile was found for this program, so capacity, setup and time cannot be checked."));
+    out.push(
+      finding(
+        "shear_unknown",
+        "/shear",
+        "No shear profile was found for this program, so capacity, setup and time cannot be checked.",
+      ),
+    );
     return null;
   }
   const unusable = [
@@ -30,7 +52,13 @@ export function usableShear(shear: unknown, out: Finding[]): ShearProfile | null
     ...SHEAR_NON_NEGATIVE_FIELDS.filter((field) => !isNonNegative(shear[field])),
   ];
   if (unusable.length > 0) {
-    out.push(finding("shear_unknown", "/shear", `The shear profile is incomplete (${unusable.join(", ")}), so capacity, setup and time cannot be checked.`));
+    out.push(
+      finding(
+        "shear_unknown",
+        "/shear",
+        `The shear profile is incomplete (${unusable.join(", ")}), so capacity, setup and time cannot be checked.`,
+      ),
+    );
     return null;
   }
   const clean: Record<string, unknown> = {};
@@ -46,7 +74,14 @@ export function usableShear(shear: unknown, out: Finding[]): ShearProfile | null
   return clean as unknown as ShearProfile;
 }
 
-const GRADE_FAMILIES: ReadonlySet<unknown> = new Set(["carbon-steel", "hsla-steel", "stainless", "aluminium", "copper", "abrasion-resistant"]);
+const GRADE_FAMILIES: ReadonlySet<unknown> = new Set([
+  "carbon-steel",
+  "hsla-steel",
+  "stainless",
+  "aluminium",
+  "copper",
+  "abrasion-resistant",
+]);
 const GAUGE_FAMILIES: ReadonlySet<unknown> = new Set(["msg", "galvanized", "ussg", "awg"]);
 
 /** The grade's catalogue entry if it is the program's grade (a clean copy), else a finding. */
@@ -57,11 +92,23 @@ export function resolveGrade(code: string | null, grade: unknown, out: Finding[]
     return null;
   }
   if (typeof grade.code !== "string" || !sameGradeCode(grade.code, code)) {
-    out.push(finding("grade_unknown", "/grade", `The program names grade "${code}" but the catalogue entry given is for ${describe(grade.code)}.`));
+    out.push(
+      finding(
+        "grade_unknown",
+        "/grade",
+        `The program names grade "${code}" but the catalogue entry given is for ${describe(grade.code)}.`,
+      ),
+    );
     return null;
   }
   if (!GRADE_FAMILIES.has(grade.family)) {
-    out.push(finding("grade_incomplete", "/grade", `The catalogue entry for ${grade.code} has no known material family, so it cannot be checked.`));
+    out.push(
+      finding(
+        "grade_incomplete",
+        "/grade",
+        `The catalogue entry for ${grade.code} has no known material family, so it cannot be checked.`,
+      ),
+    );
     return null;
   }
   const family = grade.family as GradeProfile["family"];
@@ -74,7 +121,9 @@ export function resolveGrade(code: string | null, grade: unknown, out: Finding[]
     tensileTypicalMpa: positiveOrNull(grade.tensileTypicalMpa),
     tensileMaxMpa: positiveOrNull(grade.tensileMaxMpa),
     valuesAreTypical: grade.valuesAreTypical === true,
-    shearTensileRatio: isPositive(grade.shearTensileRatio) ? grade.shearTensileRatio : DEFAULT_SHEAR_TENSILE_RATIO[family],
+    shearTensileRatio: isPositive(grade.shearTensileRatio)
+      ? grade.shearTensileRatio
+      : DEFAULT_SHEAR_TENSILE_RATIO[family],
     gaugeFamily: GAUGE_FAMILIES.has(grade.gaugeFamily) ? (grade.gaugeFamily as GradeProfile["gaugeFamily"]) : null,
     hardnessHb: positiveOrNull(grade.hardnessHb),
   };
@@ -84,21 +133,51 @@ export function resolveGrade(code: string | null, grade: unknown, out: Finding[]
 export function resolveTensile(grade: GradeProfile | null, out: Finding[]): GradeTensile | null {
   if (grade === null) return null;
   const tensile = gradeTensile(grade);
-  if (tensile === null) out.push(finding("grade_incomplete", "/grade", `Grade ${grade.code} has no tensile strength in the catalogue, so force and capacity cannot be checked.`));
+  if (tensile === null)
+    out.push(
+      finding(
+        "grade_incomplete",
+        "/grade",
+        `Grade ${grade.code} has no tensile strength in the catalogue, so force and capacity cannot be checked.`,
+      ),
+    );
   return tensile;
 }
 
 /** Thickness in mm: the value given, or the gauge resolved in the grade's gauge system. */
-export function resolveThickness(thickness: ThicknessRead | null, grade: GradeProfile | null, gradeCode: string | null, out: Finding[]): number | null {
+export function resolveThickness(
+  thickness: ThicknessRead | null,
+  grade: GradeProfile | null,
+  gradeCode: string | null,
+  out: Finding[],
+): number | null {
   if (thickness === null) return null;
   if (thickness.kind === "value") return thickness.mm;
   if (grade === null) {
-    out.push(finding("gauge_unknown", thickness.pointer, `Gauge ${thickness.gauge} cannot be resolved because the grade${gradeCode ? ` "${gradeCode}"` : ""} is unknown.`, null, thickness.gauge, "gauge"));
+    out.push(
+      finding(
+        "gauge_unknown",
+        thickness.pointer,
+        `Gauge ${thickness.gauge} cannot be resolved because the grade${gradeCode ? ` "${gradeCode}"` : ""} is unknown.`,
+        null,
+        thickness.gauge,
+        "gauge",
+      ),
+    );
     return null;
   }
   const family = grade.gaugeFamily;
   if (family === null) {
-    out.push(finding("gauge_unknown", thickness.pointer, `${grade.code} has no gauge system; give the thickness as a value.`, null, thickness.gauge, "gauge"));
+    out.push(
+      finding(
+        "gauge_unknown",
+        thickness.pointer,
+        `${grade.code} has no gauge system; give the thickness as a value.`,
+        null,
+        thickness.gauge,
+        "gauge",
+      ),
+    );
     return null;
   }
   const mm = gaugeThicknessMm(family, thickness.gauge);
@@ -119,7 +198,8 @@ export const UNITS_SUSPECT_FACTOR = 4;
 
 export function checkUnitsSuspect(program: ProgramRead, shear: ShearProfile): Finding[] {
   if (program.units !== "in") return [];
-  const looksMm = (raw: number, limitMm: number): boolean => raw > UNITS_SUSPECT_FACTOR * mmToIn(limitMm) && raw <= limitMm;
+  const looksMm = (raw: number, limitMm: number): boolean =>
+    raw > UNITS_SUSPECT_FACTOR * mmToIn(limitMm) && raw <= limitMm;
   const thickness = program.thickness;
   let what: string | null = null;
   if (program.sheet !== null && looksMm(program.sheet.rawLength, shear.bladeLengthMm)) {
@@ -128,5 +208,11 @@ export function checkUnitsSuspect(program: ProgramRead, shear: ShearProfile): Fi
     what = `a ${thickness.raw} in thickness is far over the ${fmtLength(shear.ratedThicknessMm, "in")} rating`;
   }
   if (what === null) return [];
-  return [finding("units_suspect", "/units", `The program is in inches, but ${what}; read as millimetres it would fit. Check "units".`)];
+  return [
+    finding(
+      "units_suspect",
+      "/units",
+      `The program is in inches, but ${what}; read as millimetres it would fit. Check "units".`,
+    ),
+  ];
 }

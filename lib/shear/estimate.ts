@@ -73,7 +73,8 @@ function backgaugeTravel(flow: FlowResult, cuts: readonly FlowCut[], sheets: num
 export function estimateCycle(i: EstimateInput): CycleEstimate {
   let strokeSecondsPerSheet = 0;
   for (const g of i.flow.groups) {
-    if (g.strokes > 0) strokeSecondsPerSheet += g.strokes * strokeSeconds(g.cutLengthMm, i.thicknessMm, i.rakeDeg, i.shear);
+    if (g.strokes > 0)
+      strokeSecondsPerSheet += g.strokes * strokeSeconds(g.cutLengthMm, i.thicknessMm, i.rakeDeg, i.shear);
   }
   const gauge = backgaugeTravel(i.flow, i.cuts, i.sheets);
   const turns = i.flow.turnedPieces * i.sheets;
@@ -96,6 +97,12 @@ export function estimateReport(e: CycleEstimate): EstimateReport {
     backgaugeMoves: e.backgaugeMoves,
     turns: e.turns,
     sheets: e.sheets,
-    seconds: { strokes: s(e.seconds.strokes), backgauge: s(e.seconds.backgauge), turns: s(e.seconds.turns), sheets: s(e.seconds.sheets), total: s(e.seconds.total) },
+    seconds: {
+      strokes: s(e.seconds.strokes),
+      backgauge: s(e.seconds.backgauge),
+      turns: s(e.seconds.turns),
+      sheets: s(e.seconds.sheets),
+      total: s(e.seconds.total),
+    },
   };
 }

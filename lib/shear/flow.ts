@@ -132,7 +132,11 @@ const sumCount = (rects: readonly Rect[]): number => rects.reduce((total, rect) 
 function addRect(list: Rect[], rect: Rect): void {
   if (!(rect.count > 0)) return;
   for (const existing of list) {
-    if (existing.group === rect.group && Math.abs(existing.widthMm - rect.widthMm) <= SAME_SIZE_MM && Math.abs(existing.lengthMm - rect.lengthMm) <= SAME_SIZE_MM) {
+    if (
+      existing.group === rect.group &&
+      Math.abs(existing.widthMm - rect.widthMm) <= SAME_SIZE_MM &&
+      Math.abs(existing.lengthMm - rect.lengthMm) <= SAME_SIZE_MM
+    ) {
       existing.count += rect.count;
       if (existing.at && rect.at) existing.at.push(...rect.at);
       return;
@@ -142,7 +146,11 @@ function addRect(list: Rect[], rect: Rect): void {
 }
 
 /** Number of strokes that cut something on a workpiece `widthMm` wide at backgauge `backgaugeMm`. */
-export function strokesThatCut(widthMm: number, backgaugeMm: number, toleranceMm: number = REMNANT_TOLERANCE_MM): number {
+export function strokesThatCut(
+  widthMm: number,
+  backgaugeMm: number,
+  toleranceMm: number = REMNANT_TOLERANCE_MM,
+): number {
   if (!(backgaugeMm > 0) || !(widthMm > toleranceMm)) return 0;
   // SAME_SIZE_MM keeps float noise at the tolerance's edge (1000.1 − 0.1 = 1000.0000000000001) from adding a stroke.
   return Math.max(0, Math.ceil((widthMm - toleranceMm - SAME_SIZE_MM) / backgaugeMm) - 1);
@@ -175,14 +183,27 @@ function runGroup(index: number, cut: FlowCut, work: readonly Rect[], toleranceM
     }
     const cutting = Math.min(cut.count, strokesThatCut(workpiece.widthMm, backgaugeMm, toleranceMm));
     const placed = placeStrokes(workpiece, cut, index, cutting, false, placing);
-    if (cutting > 0) addRect(pieces, { widthMm: backgaugeMm, lengthMm: workpiece.lengthMm, count: workpiece.count * cutting, group: index, at: placed?.pieces });
+    if (cutting > 0)
+      addRect(pieces, {
+        widthMm: backgaugeMm,
+        lengthMm: workpiece.lengthMm,
+        count: workpiece.count * cutting,
+        group: index,
+        at: placed?.pieces,
+      });
     const remaining = workpiece.widthMm - cutting * backgaugeMm;
     if (cutting < cut.count) {
       const lost = (cut.count - cutting) * workpiece.count;
       if (beyond === null) beyond = { strokes: lost, firstStroke: cutting + 1, remainingMm: remaining };
       else beyond.strokes += lost;
     }
-    const rest: Rect = { widthMm: remaining, lengthMm: workpiece.lengthMm, count: workpiece.count, group: index, at: placed?.remnant };
+    const rest: Rect = {
+      widthMm: remaining,
+      lengthMm: workpiece.lengthMm,
+      count: workpiece.count,
+      group: index,
+      at: placed?.remnant,
+    };
     if (backgaugeMm > 0 && Math.abs(remaining - backgaugeMm) <= toleranceMm + SAME_SIZE_MM) addRect(pieces, rest);
     else addRect(nextWork, { ...rest, group: cutting > 0 ? index : workpiece.group });
   }
@@ -212,9 +233,16 @@ const turned = (rect: Rect): Rect => ({
 
 /** Simulate one sheet through the program. Pure; never throws on finite input. */
 export function simulateFlow(sheet: FlowSheet, cuts: readonly FlowCut[], options: FlowOptions = {}): FlowResult {
-  const toleranceMm = options.toleranceMm !== undefined && options.toleranceMm > 0 ? options.toleranceMm : REMNANT_TOLERANCE_MM;
+  const toleranceMm =
+    options.toleranceMm !== undefined && options.toleranceMm > 0 ? options.toleranceMm : REMNANT_TOLERANCE_MM;
   const placing: Placing = { on: options.place === true, stroke: 0, used: 0, lines: [] };
-  const stock: Rect = { widthMm: sheet.widthMm, lengthMm: sheet.lengthMm, count: 1, group: -1, at: placing.on ? [{ x: 0, y: 0, widthAlongX: false, stroke: null }] : undefined };
+  const stock: Rect = {
+    widthMm: sheet.widthMm,
+    lengthMm: sheet.lengthMm,
+    count: 1,
+    group: -1,
+    at: placing.on ? [{ x: 0, y: 0, widthAlongX: false, stroke: null }] : undefined,
+  };
   const groups: FlowGroup[] = [];
   const blanks: Rect[] = [];
   const offcuts: Rect[] = [];

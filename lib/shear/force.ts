@@ -21,7 +21,19 @@ import type { LengthUnit, ShearProfile } from "./types";
 import type { ForceReport } from "./reports";
 import type { GradeTensile } from "./grades";
 import { sameGradeCode } from "./grades";
-import { DECIMALS, fmtDeg, fmtLength, fmtStrength, forceUnitFor, roundTo, showForce, showLength, showPct, showStrength, strengthUnitFor } from "./units";
+import {
+  DECIMALS,
+  fmtDeg,
+  fmtLength,
+  fmtStrength,
+  forceUnitFor,
+  roundTo,
+  showForce,
+  showLength,
+  showPct,
+  showStrength,
+  strengthUnitFor,
+} from "./units";
 
 /** Raked-blade force constant, dimensionless (a fit; see module comment). */
 export const RAKED_FORCE_K = 0.48;
@@ -123,10 +135,19 @@ export function forceReport(i: ForceReportInput): ForceReport {
     required: showForce(i.requiredKn, u),
     rated: showForce(i.ratedKn, u),
     capacityUsedPct: showPct(capacityUsedPct(i.requiredKn, i.ratedKn)),
-    dullBlade: { factor: DULL_BLADE_FACTOR, required: showForce(dull, u), capacityUsedPct: showPct(capacityUsedPct(dull, i.ratedKn)) },
+    dullBlade: {
+      factor: DULL_BLADE_FACTOR,
+      required: showForce(dull, u),
+      capacityUsedPct: showPct(capacityUsedPct(dull, i.ratedKn)),
+    },
     rakeDeg: roundTo(i.rakeDeg, DECIMALS.deg),
     tensile: { value: showStrength(i.tensile.mpa, u), unit: strengthUnitFor(u), basis: i.tensile.basis },
     maxThicknessForGrade: { value: showLength(i.maxThickness.mm, u), unit: u, source: i.maxThickness.source, why },
-    byGroup: i.byGroup.map((g) => ({ group: g.group, cutLength: showLength(g.cutLengthMm, u), force: showForce(g.force.kn, u), model: g.force.model })),
+    byGroup: i.byGroup.map((g) => ({
+      group: g.group,
+      cutLength: showLength(g.cutLengthMm, u),
+      force: showForce(g.force.kn, u),
+      model: g.force.model,
+    })),
   };
 }

@@ -36,7 +36,11 @@ export interface GapRule {
 export const GAP_RULES: Readonly<Record<GradeFamily, GapRule>> = Object.freeze({
   "carbon-steel": {
     // 7 %: a shear-blade maker's published general rule when the machine's own chart is not at hand (common practice as a default).
-    thin: { thicknessMm: 1.0, pct: 7, source: "a shear-blade maker's general rule of 7 % of thickness (common practice)" },
+    thin: {
+      thicknessMm: 1.0,
+      pct: 7,
+      source: "a shear-blade maker's general rule of 7 % of thickness (common practice)",
+    },
     // About 5 % on half-inch plate: from memory of shear makers' gap charts. Checked against the same blade maker's
     // mild-steel clearance chart, which gives 0.005–0.009 in for 10 gauge (0.1345 in) and at least 0.007 in for 3/16 in.
     thick: { thicknessMm: 12.7, pct: 5, source: "from memory (shear makers' gap charts for mild-steel plate)" },
@@ -45,8 +49,16 @@ export const GAP_RULES: Readonly<Record<GradeFamily, GapRule>> = Object.freeze({
     // The stainless producers' association's fabrication guidance (Specialty Steel Industry of North America,
     // "Stainless Steel Fabrication"): 3 % of thickness below 16 gauge, 5 % at 16 gauge (0.0625 in) and heavier;
     // 0.001–0.002 in on thin-gauge sheet. The step is ramped over the one gauge between 18 and 16 gauge (ours).
-    thin: { thicknessMm: 1.27, pct: 3, source: "stainless producers' fabrication guidance (SSINA): 3 % below 16 gauge" },
-    thick: { thicknessMm: 1.5875, pct: 5, source: "stainless producers' fabrication guidance (SSINA): 5 % at 16 gauge and heavier" },
+    thin: {
+      thicknessMm: 1.27,
+      pct: 3,
+      source: "stainless producers' fabrication guidance (SSINA): 3 % below 16 gauge",
+    },
+    thick: {
+      thicknessMm: 1.5875,
+      pct: 5,
+      source: "stainless producers' fabrication guidance (SSINA): 5 % at 16 gauge and heavier",
+    },
   },
   aluminium: {
     // Soft aluminium and copper sit at the low end of the 4–10 % span (common practice).
@@ -59,13 +71,29 @@ export const GAP_RULES: Readonly<Record<GradeFamily, GapRule>> = Object.freeze({
   },
   "hsla-steel": {
     // A plate maker's shearing guidance: 9–12 % of thickness for 65 ksi plate (its worked example is 3/8 in plate).
-    thin: { thicknessMm: 2.0, pct: 12, source: "a plate maker's shearing guidance, 9–12 % for 65 ksi plate (upper end for sheet: ours)" },
-    thick: { thicknessMm: 9.525, pct: 10, source: "a plate maker's shearing guidance, 9–12 % for 65 ksi plate, 3/8 in" },
+    thin: {
+      thicknessMm: 2.0,
+      pct: 12,
+      source: "a plate maker's shearing guidance, 9–12 % for 65 ksi plate (upper end for sheet: ours)",
+    },
+    thick: {
+      thicknessMm: 9.525,
+      pct: 10,
+      source: "a plate maker's shearing guidance, 9–12 % for 65 ksi plate, 3/8 in",
+    },
   },
   "abrasion-resistant": {
     // The same plate maker: 16–18 % of thickness for 181 ksi (abrasion-resistant class) plate.
-    thin: { thicknessMm: 3.0, pct: 18, source: "a plate maker's shearing guidance, 16–18 % for 181 ksi plate (upper end for thinner plate: ours)" },
-    thick: { thicknessMm: 9.525, pct: 16, source: "a plate maker's shearing guidance, 16–18 % for 181 ksi plate, 3/8 in" },
+    thin: {
+      thicknessMm: 3.0,
+      pct: 18,
+      source: "a plate maker's shearing guidance, 16–18 % for 181 ksi plate (upper end for thinner plate: ours)",
+    },
+    thick: {
+      thicknessMm: 9.525,
+      pct: 16,
+      source: "a plate maker's shearing guidance, 16–18 % for 181 ksi plate, 3/8 in",
+    },
   },
 });
 
@@ -74,7 +102,8 @@ export function gapPctFor(thicknessMm: number, family: GradeFamily): number {
   const rule = GAP_RULES[family];
   if (!(thicknessMm > rule.thin.thicknessMm)) return rule.thin.pct;
   if (thicknessMm >= rule.thick.thicknessMm) return rule.thick.pct;
-  const share = Math.log(thicknessMm / rule.thin.thicknessMm) / Math.log(rule.thick.thicknessMm / rule.thin.thicknessMm);
+  const share =
+    Math.log(thicknessMm / rule.thin.thicknessMm) / Math.log(rule.thick.thicknessMm / rule.thin.thicknessMm);
   return rule.thin.pct + share * (rule.thick.pct - rule.thin.pct);
 }
 
@@ -127,7 +156,8 @@ export interface CrownRecommendation {
   forceSharePct: number;
 }
 
-const usableFigure = (value: number | null | undefined): value is number => typeof value === "number" && Number.isFinite(value) && value >= 0;
+const usableFigure = (value: number | null | undefined): value is number =>
+  typeof value === "number" && Number.isFinite(value) && value >= 0;
 
 /**
  * Crown = baseline + crown at rated force × required / rated. Under load the
@@ -142,24 +172,63 @@ export function recommendCrown(requiredKn: number, ratedKn: number, shear: Shear
   const atRatedMm = atRatedFromProfile ? (shear.crownAtRatedMm as number) : DEFAULT_CROWN_AT_RATED_MM;
   const share = ratedKn > 0 && Number.isFinite(requiredKn) ? Math.max(0, requiredKn / ratedKn) : 0;
   const forceMm = atRatedMm * share;
-  return { mm: baselineMm + forceMm, baselineMm, forceMm, baselineFromProfile, atRatedMm, atRatedFromProfile, forceSharePct: 100 * share };
+  return {
+    mm: baselineMm + forceMm,
+    baselineMm,
+    forceMm,
+    baselineFromProfile,
+    atRatedMm,
+    atRatedFromProfile,
+    forceSharePct: 100 * share,
+  };
 }
 
 /** The crown alone, mm (ends minus centre). */
-export const recommendCrownMm = (requiredKn: number, ratedKn: number, shear: ShearProfile): number => recommendCrown(requiredKn, ratedKn, shear).mm;
+export const recommendCrownMm = (requiredKn: number, ratedKn: number, shear: ShearProfile): number =>
+  recommendCrown(requiredKn, ratedKn, shear).mm;
 
-export const computedSetting = (value: number, unit: string, why: string): SetupValue => ({ value, unit, source: "computed", why });
-export const givenSetting = (value: number, unit: string, why: string): SetupValue => ({ value, unit, source: "given", why });
+export const computedSetting = (value: number, unit: string, why: string): SetupValue => ({
+  value,
+  unit,
+  source: "computed",
+  why,
+});
+export const givenSetting = (value: number, unit: string, why: string): SetupValue => ({
+  value,
+  unit,
+  source: "given",
+  why,
+});
 
 /** The crown as a setup value, with both parts and their reasons. */
-export function describeCrown(requiredKn: number, ratedKn: number, shear: ShearProfile, units: LengthUnit, givenMm: number | null): { mm: number; value: SetupValue } {
+export function describeCrown(
+  requiredKn: number,
+  ratedKn: number,
+  shear: ShearProfile,
+  units: LengthUnit,
+  givenMm: number | null,
+): { mm: number; value: SetupValue } {
   const rule = recommendCrown(requiredKn, ratedKn, shear);
   const baseline = `${fmtLength(rule.baselineMm, units)} with no load (${rule.baselineFromProfile ? "this shear's figure" : "0.002 in, a published shop setting"}: blades, seats and beam are not perfectly straight and the moving beam does not pass the fixed blade at one distance)`;
   const force = `${fmtLength(rule.forceMm, units)} for the load (${fmtLength(rule.atRatedMm, units)} at full rated force${rule.atRatedFromProfile ? ", this shear's figure" : ", our placeholder"} × ${fmtPct(rule.forceSharePct)} of the rating: ram and bed bow apart under load, opening the gap at mid-length)`;
   if (givenMm !== null) {
-    return { mm: givenMm, value: givenSetting(showLength(givenMm, units), units, `Given in the program: centre gap tighter than the ends by this much; our rule gives ${fmtLength(rule.mm, units)} = ${baseline} + ${force}.`) };
+    return {
+      mm: givenMm,
+      value: givenSetting(
+        showLength(givenMm, units),
+        units,
+        `Given in the program: centre gap tighter than the ends by this much; our rule gives ${fmtLength(rule.mm, units)} = ${baseline} + ${force}.`,
+      ),
+    };
   }
-  return { mm: rule.mm, value: computedSetting(showLength(rule.mm, units), units, `Centre ${fmtLength(rule.mm, units)} tighter than the ends = ${baseline} + ${force}.`) };
+  return {
+    mm: rule.mm,
+    value: computedSetting(
+      showLength(rule.mm, units),
+      units,
+      `Centre ${fmtLength(rule.mm, units)} tighter than the ends = ${baseline} + ${force}.`,
+    ),
+  };
 }
 
 /**
@@ -167,7 +236,12 @@ export function describeCrown(requiredKn: number, ratedKn: number, shear: ShearP
  * needs; the centre is set tighter by the crown so that under load the gap at
  * mid-length opens to about the same. Never below zero.
  */
-export function describeCentreAndEnds(gapMm: number, gapGiven: boolean, crownMm: number, units: LengthUnit): { centreMm: number; endsMm: number; centre: SetupValue; ends: SetupValue } {
+export function describeCentreAndEnds(
+  gapMm: number,
+  gapGiven: boolean,
+  crownMm: number,
+  units: LengthUnit,
+): { centreMm: number; endsMm: number; centre: SetupValue; ends: SetupValue } {
   const endsMm = gapMm;
   const centreMm = Math.max(0, gapMm - crownMm);
   const endsWhy = `${gapGiven ? "The blade gap given in the program" : "The blade gap for this material and thickness"}, set at both ends of the blade, where the beam barely deflects.`;

@@ -170,7 +170,8 @@ export interface GradeTensile {
 
 /** Tensile strength a check uses: the minimum, or the typical value when there is no minimum. */
 export function gradeTensile(grade: GradeProfile): GradeTensile | null {
-  if (isPositive(grade.tensileMinMpa)) return { mpa: grade.tensileMinMpa, basis: grade.valuesAreTypical ? "typical" : "minimum" };
+  if (isPositive(grade.tensileMinMpa))
+    return { mpa: grade.tensileMinMpa, basis: grade.valuesAreTypical ? "typical" : "minimum" };
   if (isPositive(grade.tensileTypicalMpa)) return { mpa: grade.tensileTypicalMpa, basis: "typical" };
   return null;
 }
@@ -178,7 +179,9 @@ export function gradeTensile(grade: GradeProfile): GradeTensile | null {
 /** Shear strength for the straight-blade force: tensile × shear/tensile ratio. */
 export function gradeShearStrengthMpa(grade: GradeProfile): number | null {
   const t = gradeTensile(grade);
-  const ratio = isPositive(grade.shearTensileRatio) ? grade.shearTensileRatio : DEFAULT_SHEAR_TENSILE_RATIO[grade.family];
+  const ratio = isPositive(grade.shearTensileRatio)
+    ? grade.shearTensileRatio
+    : DEFAULT_SHEAR_TENSILE_RATIO[grade.family];
   return t === null || ratio === undefined ? null : t.mpa * ratio;
 }
 

@@ -65,37 +65,94 @@ export function checkGroups(input: FlowCheckInput): Finding[] {
     // A group of 0 strokes only names the remnant as its piece: the backgauge is not set for it.
     if (input.shear && cut.count > 0) out.push(...checkBackgaugeTravel(cut, index, input.shear, units));
     if (cut.count === 0 && group.pieces.length === 0) {
-      out.push(finding("group_cuts_nothing", `${at}/count`, `${capital(groupName(index))} has nothing to cut: its count is 0.`, null, 0, "strokes"));
+      out.push(
+        finding(
+          "group_cuts_nothing",
+          `${at}/count`,
+          `${capital(groupName(index))} has nothing to cut: its count is 0.`,
+          null,
+          0,
+          "strokes",
+        ),
+      );
       continue;
     }
     if (group.workpieces === 0) {
       const source = cut.from ?? index - 1;
-      const reason = cut.turn ? `group ${source + 1} left no pieces to turn` : "the groups before it used up the workpiece";
-      out.push(finding("group_cuts_nothing", at, `${capital(groupName(index))} has nothing to cut: ${reason}.`, null, 0, "workpieces"));
+      const reason = cut.turn
+        ? `group ${source + 1} left no pieces to turn`
+        : "the groups before it used up the workpiece";
+      out.push(
+        finding(
+          "group_cuts_nothing",
+          at,
+          `${capital(groupName(index))} has nothing to cut: ${reason}.`,
+          null,
+          0,
+          "workpieces",
+        ),
+      );
       continue;
     }
     if (input.shear && group.cutLengthMm > input.shear.bladeLengthMm) {
       const pointer = cut.lengthMm !== null ? `${at}/length` : presentedEdgePointer(input.cuts, index);
       const message = `${capital(groupName(index))} cuts ${fmtLength(group.cutLengthMm, units)}, longer than this shear's ${fmtLength(input.shear.bladeLengthMm, units)} blade.`;
-      out.push(finding("cut_length_over_blade", pointer, message, showLength(input.shear.bladeLengthMm, units), showLength(group.cutLengthMm, units), units));
+      out.push(
+        finding(
+          "cut_length_over_blade",
+          pointer,
+          message,
+          showLength(input.shear.bladeLengthMm, units),
+          showLength(group.cutLengthMm, units),
+          units,
+        ),
+      );
     }
     if (group.lengthOverWorkpiece && cut.lengthMm !== null) {
       const message = `${capital(groupName(index))} gives a length of cut of ${fmtLength(cut.lengthMm, units)}, longer than the ${fmtLength(group.presentedEdgeMm, units)} edge it presents to the blade.`;
-      out.push(finding("cut_length_over_workpiece", `${at}/length`, message, showLength(group.presentedEdgeMm, units), showLength(cut.lengthMm, units), units));
+      out.push(
+        finding(
+          "cut_length_over_workpiece",
+          `${at}/length`,
+          message,
+          showLength(group.presentedEdgeMm, units),
+          showLength(cut.lengthMm, units),
+          units,
+        ),
+      );
     }
     if (group.partial && cut.lengthMm !== null) {
       const message = `${capital(groupName(index))} cuts ${fmtLength(cut.lengthMm, units)} of a ${fmtLength(group.presentedEdgeMm, units)} edge: these strokes do not cut a piece off, so no pieces are counted from them.`;
-      out.push(finding("partial_stroke", `${at}/length`, message, showLength(group.presentedEdgeMm, units), showLength(cut.lengthMm, units), units));
+      out.push(
+        finding(
+          "partial_stroke",
+          `${at}/length`,
+          message,
+          showLength(group.presentedEdgeMm, units),
+          showLength(cut.lengthMm, units),
+          units,
+        ),
+      );
     }
     if (group.beyond !== null) {
       const beyond = group.beyond;
       const message = `In ${groupName(index)}, stroke ${beyond.firstStroke} is set at ${fmtLength(cut.backgaugeMm, units)} but only ${fmtLength(beyond.remainingMm, units)} of workpiece is left: ${plural(beyond.strokes, "stroke", "strokes")} per sheet cut nothing.`;
-      out.push(finding("backgauge_beyond_workpiece", `${at}/backgauge`, message, showLength(beyond.remainingMm, units), showLength(cut.backgaugeMm, units), units));
+      out.push(
+        finding(
+          "backgauge_beyond_workpiece",
+          `${at}/backgauge`,
+          message,
+          showLength(beyond.remainingMm, units),
+          showLength(cut.backgaugeMm, units),
+          units,
+        ),
+      );
     }
     if (!cut.scrap && group.pieces.length > 0) {
       const narrow = checkNarrowStrip(cut, group.presentedEdgeMm, index, input.thicknessMm, units);
       out.push(...narrow);
-      if (narrow.length === 0) out.push(...checkStripDistortion(cut, index, input.thicknessMm, input.rakeDeg ?? null, input.shear, units));
+      if (narrow.length === 0)
+        out.push(...checkStripDistortion(cut, index, input.thicknessMm, input.rakeDeg ?? null, input.shear, units));
     }
   }
   if (input.shear) out.push(...checkBackgaugeRepeatability(input.cuts, input.skip, input.shear, units));
@@ -107,7 +164,16 @@ function checkBackgaugeTravel(cut: FlowCut, index: number, shear: ShearProfile, 
   if (setting >= shear.backgaugeMinMm && setting <= shear.backgaugeMaxMm) return [];
   const bound = setting < shear.backgaugeMinMm ? shear.backgaugeMinMm : shear.backgaugeMaxMm;
   const message = `Backgauge ${fmtLength(setting, units)} in ${groupName(index)} is outside this shear's ${fmtLength(shear.backgaugeMinMm, units)}–${fmtLength(shear.backgaugeMaxMm, units)} travel.`;
-  return [finding("backgauge_out_of_travel", `/cuts/${index}/backgauge`, message, showLength(bound, units), showLength(setting, units), units)];
+  return [
+    finding(
+      "backgauge_out_of_travel",
+      `/cuts/${index}/backgauge`,
+      message,
+      showLength(bound, units),
+      showLength(setting, units),
+      units,
+    ),
+  ];
 }
 
 /**
@@ -116,7 +182,12 @@ function checkBackgaugeTravel(cut: FlowCut, index: number, shear: ShearProfile, 
  * it. Groups of 0 strokes set no backgauge and are left out. One finding per
  * group, against the nearest such earlier setting.
  */
-export function checkBackgaugeRepeatability(cuts: readonly FlowCut[], skip: readonly boolean[], shear: ShearProfile, units: LengthUnit): Finding[] {
+export function checkBackgaugeRepeatability(
+  cuts: readonly FlowCut[],
+  skip: readonly boolean[],
+  shear: ShearProfile,
+  units: LengthUnit,
+): Finding[] {
   const repeatabilityMm = shear.backgaugeRepeatabilityMm;
   if (repeatabilityMm === undefined || !(repeatabilityMm > 0)) return [];
   const out: Finding[] = [];
@@ -133,25 +204,60 @@ export function checkBackgaugeRepeatability(cuts: readonly FlowCut[], skip: read
     const message =
       `${capital(groupName(later))} is set at ${fmtLength(cuts[later].backgaugeMm, units)}, only ${fmtLength(nearest.differenceMm, units)} from ${groupName(nearest.index)}'s ` +
       `${fmtLength(cuts[nearest.index].backgaugeMm, units)}: finer than this shear's ${fmtLength(repeatabilityMm, units)} backgauge repeatability, so the two may come out the same.`;
-    out.push(finding("backgauge_finer_than_repeatability", `/cuts/${later}/backgauge`, message, showLength(repeatabilityMm, units), showLength(nearest.differenceMm, units), units));
+    out.push(
+      finding(
+        "backgauge_finer_than_repeatability",
+        `/cuts/${later}/backgauge`,
+        message,
+        showLength(repeatabilityMm, units),
+        showLength(nearest.differenceMm, units),
+        units,
+      ),
+    );
   }
   return out;
 }
 
 /** Narrow strip (ours): width under 10 × thickness, or length over 50 × width. */
-function checkNarrowStrip(cut: FlowCut, lengthMm: number, index: number, thicknessMm: number | null, units: LengthUnit): Finding[] {
-  const minWidth = Math.max(thicknessMm === null ? 0 : NARROW_STRIP_WIDTH_PER_THICKNESS * thicknessMm, lengthMm / NARROW_STRIP_LENGTH_PER_WIDTH);
+function checkNarrowStrip(
+  cut: FlowCut,
+  lengthMm: number,
+  index: number,
+  thicknessMm: number | null,
+  units: LengthUnit,
+): Finding[] {
+  const minWidth = Math.max(
+    thicknessMm === null ? 0 : NARROW_STRIP_WIDTH_PER_THICKNESS * thicknessMm,
+    lengthMm / NARROW_STRIP_LENGTH_PER_WIDTH,
+  );
   if (cut.backgaugeMm >= minWidth) return [];
   const of = thicknessMm === null ? "" : ` of ${fmtLength(thicknessMm, units)} material`;
   const message = `${capital(groupName(index))} cuts strips ${fmtLength(cut.backgaugeMm, units)} wide and ${fmtLength(lengthMm, units)} long${of}; strips narrower than ${fmtLength(minWidth, units)} tend to twist and bow.`;
-  return [finding("strip_narrow", `/cuts/${index}/backgauge`, message, showLength(minWidth, units), showLength(cut.backgaugeMm, units), units)];
+  return [
+    finding(
+      "strip_narrow",
+      `/cuts/${index}/backgauge`,
+      message,
+      showLength(minWidth, units),
+      showLength(cut.backgaugeMm, units),
+      units,
+    ),
+  ];
 }
 
 /** The width below which strips are likely to distort at a rake (ours: 20 × thickness × rake in degrees). */
-export const distortionWidthMm = (thicknessMm: number, rakeDeg: number): number => STRIP_DISTORTION_WIDTH_PER_THICKNESS_DEGREE * thicknessMm * rakeDeg;
+export const distortionWidthMm = (thicknessMm: number, rakeDeg: number): number =>
+  STRIP_DISTORTION_WIDTH_PER_THICKNESS_DEGREE * thicknessMm * rakeDeg;
 
 /** Strips likely to twist, bow and camber at this rake; says what the shear's lowest rake would allow. */
-function checkStripDistortion(cut: FlowCut, index: number, thicknessMm: number | null, rakeDeg: number | null, shear: ShearProfile | null, units: LengthUnit): Finding[] {
+function checkStripDistortion(
+  cut: FlowCut,
+  index: number,
+  thicknessMm: number | null,
+  rakeDeg: number | null,
+  shear: ShearProfile | null,
+  units: LengthUnit,
+): Finding[] {
   if (thicknessMm === null || rakeDeg === null || !(rakeDeg > 0)) return [];
   const minWidth = distortionWidthMm(thicknessMm, rakeDeg);
   if (cut.backgaugeMm >= minWidth) return [];
@@ -166,5 +272,14 @@ function checkStripDistortion(cut: FlowCut, index: number, thicknessMm: number |
   const message =
     `${capital(groupName(index))} cuts strips ${fmtLength(cut.backgaugeMm, units)} wide of ${fmtLength(thicknessMm, units)} material at ${rakeDeg}° rake: ` +
     `narrower than ${fmtLength(minWidth, units)} (20 × thickness × rake in degrees, our rule) they are likely to twist, bow and curve (camber); a lower rake reduces this at the cost of force.${lower}`;
-  return [finding("strip_distortion", `/cuts/${index}/backgauge`, message, showLength(minWidth, units), showLength(cut.backgaugeMm, units), units)];
+  return [
+    finding(
+      "strip_distortion",
+      `/cuts/${index}/backgauge`,
+      message,
+      showLength(minWidth, units),
+      showLength(cut.backgaugeMm, units),
+      units,
+    ),
+  ];
 }

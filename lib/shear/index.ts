@@ -23,6 +23,4 @@ export * from "./layout";
 export * from "./findings";
 export * from "./groups";
 export * from "./estimate";
-export { UNITS_SUSPECT_FACTOR } from "./context";
-export { DUAL_UNIT_AGREEMENT_MM } from "./read";
-export { checkProgram, recommendSetup, type CheckOptions, type SetupRecommendation } from "./check";
+export { checkProgram, recommendSetup } from "./check";

@@ -48,7 +48,9 @@ export function layoutReport(flow: FlowResult, units: LengthUnit): LayoutReport 
   if (!flow.placed) return null;
   const rectangles: LaidMm[] = [];
   const blanksPlaced = laid(flow.blanks, "blank", rectangles);
-  const scrapPlaced = flow.groups.every((group) => group.piecesBecome !== "offcut" || laid(group.pieces, "scrap", rectangles));
+  const scrapPlaced = flow.groups.every(
+    (group) => group.piecesBecome !== "offcut" || laid(group.pieces, "scrap", rectangles),
+  );
   const offcutPlaced = laid(flow.leftovers, "offcut", rectangles);
   if (!blanksPlaced || !scrapPlaced || !offcutPlaced) return null;
   const show = (mm: number): number => showLength(mm, units);
@@ -63,12 +65,25 @@ export function layoutReport(flow: FlowResult, units: LengthUnit): LayoutReport 
       width: show(rectangle.widthMm),
       height: show(rectangle.heightMm),
     })),
-    cuts: flow.lines.map((line) => ({ group: line.group, stroke: line.stroke, x1: show(line.x1), y1: show(line.y1), x2: show(line.x2), y2: show(line.y2), partial: line.partial })),
+    cuts: flow.lines.map((line) => ({
+      group: line.group,
+      stroke: line.stroke,
+      x1: show(line.x1),
+      y1: show(line.y1),
+      x2: show(line.x2),
+      y2: show(line.y2),
+      partial: line.partial,
+    })),
   };
 }
 
 /** Simulate and place one sheet, and report it in the caller's units. */
-export function sheetLayout(sheet: FlowSheet, cuts: readonly FlowCut[], units: LengthUnit, toleranceMm?: number): LayoutReport | null {
+export function sheetLayout(
+  sheet: FlowSheet,
+  cuts: readonly FlowCut[],
+  units: LengthUnit,
+  toleranceMm?: number,
+): LayoutReport | null {
   return layoutReport(simulateFlow(sheet, cuts, { toleranceMm, place: true }), units);
 }
 

@@ -63,16 +63,33 @@ function spend(placing: Placing, amount: number): boolean {
 
 /** A placement moved `offsetMm` toward the backgauge. */
 const shifted = (at: Placement, offsetMm: number, stroke: number | null): Placement =>
-  at.widthAlongX ? { x: at.x + offsetMm, y: at.y, widthAlongX: true, stroke } : { x: at.x, y: at.y + offsetMm, widthAlongX: false, stroke };
+  at.widthAlongX
+    ? { x: at.x + offsetMm, y: at.y, widthAlongX: true, stroke }
+    : { x: at.x, y: at.y + offsetMm, widthAlongX: false, stroke };
 
 /** The cut line of a stroke `offsetMm` toward the backgauge from a workpiece's corner, `lengthMm` long. */
-function lineAt(at: Placement, offsetMm: number, lengthMm: number, group: number, stroke: number, partial: boolean): FlowLine {
-  if (at.widthAlongX) return { group, stroke, x1: at.x + offsetMm, y1: at.y, x2: at.x + offsetMm, y2: at.y + lengthMm, partial };
+function lineAt(
+  at: Placement,
+  offsetMm: number,
+  lengthMm: number,
+  group: number,
+  stroke: number,
+  partial: boolean,
+): FlowLine {
+  if (at.widthAlongX)
+    return { group, stroke, x1: at.x + offsetMm, y1: at.y, x2: at.x + offsetMm, y2: at.y + lengthMm, partial };
   return { group, stroke, x1: at.x, y1: at.y + offsetMm, x2: at.x + lengthMm, y2: at.y + offsetMm, partial };
 }
 
 /** Place one workpiece's strokes: its pieces, its remnant, and the cut lines. */
-export function placeStrokes(work: PlacedWork, cut: PlacedCut, index: number, cutting: number, partial: boolean, placing: Placing): { pieces: Placement[]; remnant: Placement[] } | null {
+export function placeStrokes(
+  work: PlacedWork,
+  cut: PlacedCut,
+  index: number,
+  cutting: number,
+  partial: boolean,
+  placing: Placing,
+): { pieces: Placement[]; remnant: Placement[] } | null {
   if (!work.at || !spend(placing, work.count * (cut.count + 2))) {
     placing.stroke += work.count * cut.count;
     return null;
@@ -92,4 +109,3 @@ export function placeStrokes(work: PlacedWork, cut: PlacedCut, index: number, cu
   }
   return { pieces, remnant };
 }
-

@@ -10,7 +10,8 @@ import { finding } from "./findings";
 import { NOTHING_GIVEN, type GivenSetup } from "./setup";
 import { inToMm, isLengthUnit, lengthToMm } from "./units";
 
-export type ThicknessRead = { kind: "value"; mm: number; raw: number; pointer: string } | { kind: "gauge"; gauge: number; pointer: string };
+export type ThicknessRead =
+  { kind: "value"; mm: number; raw: number; pointer: string } | { kind: "gauge"; gauge: number; pointer: string };
 
 export interface SheetRead {
   lengthMm: number;
@@ -34,12 +35,16 @@ export interface ProgramRead {
 }
 
 export type PlainObject = Record<string, unknown>;
-export const isObject = (value: unknown): value is PlainObject => typeof value === "object" && value !== null && !Array.isArray(value);
-export const isPositive = (value: unknown): value is number => typeof value === "number" && Number.isFinite(value) && value > 0;
-export const isNonNegative = (value: unknown): value is number => typeof value === "number" && Number.isFinite(value) && value >= 0;
+export const isObject = (value: unknown): value is PlainObject =>
+  typeof value === "object" && value !== null && !Array.isArray(value);
+export const isPositive = (value: unknown): value is number =>
+  typeof value === "number" && Number.isFinite(value) && value > 0;
+export const isNonNegative = (value: unknown): value is number =>
+  typeof value === "number" && Number.isFinite(value) && value >= 0;
 export const isAbsent = (value: unknown): boolean => value === undefined || value === null;
 export const positiveOrNull = (value: unknown): number | null => (isPositive(value) ? value : null);
-const numberOrNull = (value: unknown): number | null => (typeof value === "number" && Number.isFinite(value) ? value : null);
+const numberOrNull = (value: unknown): number | null =>
+  typeof value === "number" && Number.isFinite(value) ? value : null;
 
 /** A short description of a value for messages. */
 export function describe(value: unknown): string {
@@ -50,7 +55,16 @@ export function describe(value: unknown): string {
 }
 
 function invalid(out: Finding[], pointer: string, label: string, rule: string, actual: unknown): void {
-  out.push(finding("value_invalid", pointer, `${label} must be ${rule}; got ${describe(actual)}.`, null, numberOrNull(actual), null));
+  out.push(
+    finding(
+      "value_invalid",
+      pointer,
+      `${label} must be ${rule}; got ${describe(actual)}.`,
+      null,
+      numberOrNull(actual),
+      null,
+    ),
+  );
 }
 
 function readThickness(value: unknown, units: LengthUnit, out: Finding[]): ThicknessRead | null {
@@ -65,12 +79,14 @@ function readThickness(value: unknown, units: LengthUnit, out: Finding[]): Thick
     return null;
   }
   if (hasValue) {
-    if (isPositive(value.value)) return { kind: "value", mm: lengthToMm(value.value, units), raw: value.value, pointer: "/thickness/value" };
+    if (isPositive(value.value))
+      return { kind: "value", mm: lengthToMm(value.value, units), raw: value.value, pointer: "/thickness/value" };
     invalid(out, "/thickness/value", "Thickness", "a number greater than zero", value.value);
     return null;
   }
   if (hasGauge) {
-    if (typeof value.gauge === "number" && Number.isFinite(value.gauge)) return { kind: "gauge", gauge: value.gauge, pointer: "/thickness/gauge" };
+    if (typeof value.gauge === "number" && Number.isFinite(value.gauge))
+      return { kind: "gauge", gauge: value.gauge, pointer: "/thickness/gauge" };
     invalid(out, "/thickness/gauge", "Gauge", "a number", value.gauge);
     return null;
   }
@@ -98,10 +114,22 @@ function readSheet(value: unknown, units: LengthUnit, out: Finding[]): SheetRead
   }
   if (!usable) return null;
   const length = value.length as number;
-  return { lengthMm: lengthToMm(length, units), widthMm: lengthToMm(value.width as number, units), count: value.count as number, rawLength: length };
+  return {
+    lengthMm: lengthToMm(length, units),
+    widthMm: lengthToMm(value.width as number, units),
+    count: value.count as number,
+    rawLength: length,
+  };
 }
 
-const NO_OP_CUT = (turn: boolean): FlowCut => ({ backgaugeMm: 0, count: 0, lengthMm: null, turn, from: null, scrap: false });
+const NO_OP_CUT = (turn: boolean): FlowCut => ({
+  backgaugeMm: 0,
+  count: 0,
+  lengthMm: null,
+  turn,
+  from: null,
+  scrap: false,
+});
 
 function readCut(value: unknown, index: number, units: LengthUnit, out: Finding[]): { cut: FlowCut; usable: boolean } {
   const at = `/cuts/${index}`;
@@ -116,14 +144,17 @@ function readCut(value: unknown, index: number, units: LengthUnit, out: Finding[
     usable = false;
   };
   if (!isPositive(value.backgauge)) fail("backgauge", "backgauge", "a number greater than zero");
-  if (!(Number.isInteger(value.count) && (value.count as number) >= 0)) fail("count", "count", "a whole number, 0 or more");
-  if (!isAbsent(value.length) && !isPositive(value.length)) fail("length", "length of cut", "a number greater than zero");
+  if (!(Number.isInteger(value.count) && (value.count as number) >= 0))
+    fail("count", "count", "a whole number, 0 or more");
+  if (!isAbsent(value.length) && !isPositive(value.length))
+    fail("length", "length of cut", "a number greater than zero");
   if (!isAbsent(value.turn) && typeof value.turn !== "boolean") fail("turn", "turn", "true or false");
   if (!isAbsent(value.scrap) && typeof value.scrap !== "boolean") fail("scrap", "scrap", "true or false");
   const turn = value.turn === true;
   if (!isAbsent(value.from)) {
     if (!turn) fail("from", "from", "given only with turn: true");
-    else if (!(Number.isInteger(value.from) && (value.from as number) >= 0 && (value.from as number) < index)) fail("from", "from", `the index of an earlier group (0 to ${index - 1})`);
+    else if (!(Number.isInteger(value.from) && (value.from as number) >= 0 && (value.from as number) < index))
+      fail("from", "from", `the index of an earlier group (0 to ${index - 1})`);
   }
   if (!usable) return { cut: NO_OP_CUT(turn), usable };
   return {
@@ -143,7 +174,12 @@ function readCut(value: unknown, index: number, units: LengthUnit, out: Finding[
 export const DUAL_UNIT_AGREEMENT_MM = 0.001;
 
 /** A length given as `<base>Mm` or `<base>In` (either, or both if they agree). */
-function readDualLength(setup: PlainObject, base: string, label: string, out: Finding[]): { mm: number | null; pointer: string } {
+function readDualLength(
+  setup: PlainObject,
+  base: string,
+  label: string,
+  out: Finding[],
+): { mm: number | null; pointer: string } {
   const mmKey = `${base}Mm`;
   const inchKey = `${base}In`;
   const mmPointer = `/setup/${mmKey}`;
@@ -189,7 +225,10 @@ function readSetup(value: unknown, out: Finding[]): { given: GivenSetup; gapPoin
   const gap = readDualLength(value, "bladeGap", "Blade gap", out);
   const crown = readDualLength(value, "crown", "Crown", out);
   const retract = readDualLength(value, "backgaugeRetract", "Backgauge retract", out);
-  return { given: { rakeDeg, gapMm: gap.mm, holdDownPct, crownMm: crown.mm, retractMm: retract.mm }, gapPointer: gap.pointer };
+  return {
+    given: { rakeDeg, gapMm: gap.mm, holdDownPct, crownMm: crown.mm, retractMm: retract.mm },
+    gapPointer: gap.pointer,
+  };
 }
 
 /** Each group's pieces can be turned by one group only: a second taker is invalid and skipped. */
@@ -204,7 +243,13 @@ function checkTurnedOnce(cuts: readonly FlowCut[], skip: boolean[], out: Finding
       return;
     }
     const message = `Group ${index + 1} turns the pieces of group ${source + 1}, but group ${earlier + 1} already took them; each group's pieces can be turned once.`;
-    out.push(finding("value_invalid", `/cuts/${index}/${cut.from === null || cut.from === undefined ? "turn" : "from"}`, message));
+    out.push(
+      finding(
+        "value_invalid",
+        `/cuts/${index}/${cut.from === null || cut.from === undefined ? "turn" : "from"}`,
+        message,
+      ),
+    );
     skip[index] = true;
   });
 }
@@ -216,7 +261,13 @@ export function readProgram(input: unknown, out: Finding[]): ProgramRead | null 
     return null;
   }
   if (!isLengthUnit(input.units)) {
-    out.push(finding("units_inconsistent", "/units", `"units" must be "in" or "mm"; got ${describe(input.units)}. Nothing else can be checked without it.`));
+    out.push(
+      finding(
+        "units_inconsistent",
+        "/units",
+        `"units" must be "in" or "mm"; got ${describe(input.units)}. Nothing else can be checked without it.`,
+      ),
+    );
     return null;
   }
   const units = input.units;
@@ -239,5 +290,15 @@ export function readProgram(input: unknown, out: Finding[]): ProgramRead | null 
     invalid(out, "/cuts", "Cuts", "a list of cut groups", input.cuts);
   }
   const setup = readSetup(input.setup, out);
-  return { units, gradeCode, thickness, sheet, cutsIsArray, cuts, skip, given: setup.given, gapPointer: setup.gapPointer };
+  return {
+    units,
+    gradeCode,
+    thickness,
+    sheet,
+    cutsIsArray,
+    cuts,
+    skip,
+    given: setup.given,
+    gapPointer: setup.gapPointer,
+  };
 }

@@ -9,7 +9,14 @@
 import type { GradeFamily, GradeProfile, LengthUnit, ShearProfile } from "./types";
 import type { SetupReport, SetupValue } from "./reports";
 import { DULL_BLADE_FACTOR, rakeForForceDeg } from "./force";
-import { GAP_RULES, computedSetting as computed, describeCentreAndEnds, describeCrown, givenSetting as given, recommendGap } from "./gap";
+import {
+  GAP_RULES,
+  computedSetting as computed,
+  describeCentreAndEnds,
+  describeCrown,
+  givenSetting as given,
+  recommendGap,
+} from "./gap";
 import { fmtDeg, fmtForce, fmtLength, fmtNumber, fmtStrength, DECIMALS, roundTo, showLength } from "./units";
 
 const FAMILY_LABEL: Readonly<Record<GradeFamily, string>> = {
@@ -46,9 +53,17 @@ const ceilToStep = (deg: number, step: number): number => roundTo(Math.ceil(deg 
  * rated force. If no rake in range gives that margin, the lowest rake at which
  * sharp blades fit; if none does, the largest rake.
  */
-export function recommendRake(tensileMpa: number, thicknessMm: number, ratedKn: number, shear: ShearProfile): RakeRecommendation {
+export function recommendRake(
+  tensileMpa: number,
+  thicknessMm: number,
+  ratedKn: number,
+  shear: ShearProfile,
+): RakeRecommendation {
   const fit = (forceKn: number): number | null => {
-    const deg = Math.max(shear.rakeMinDeg, ceilToStep(rakeForForceDeg(tensileMpa, thicknessMm, forceKn), RAKE_STEP_DEG));
+    const deg = Math.max(
+      shear.rakeMinDeg,
+      ceilToStep(rakeForForceDeg(tensileMpa, thicknessMm, forceKn), RAKE_STEP_DEG),
+    );
     return deg <= shear.rakeMaxDeg ? deg : null;
   };
   const dull = fit(ratedKn / DULL_BLADE_FACTOR);
@@ -93,7 +108,13 @@ export interface GivenSetup {
   retractMm: number | null;
 }
 
-export const NOTHING_GIVEN: GivenSetup = Object.freeze({ rakeDeg: null, gapMm: null, holdDownPct: null, crownMm: null, retractMm: null });
+export const NOTHING_GIVEN: GivenSetup = Object.freeze({
+  rakeDeg: null,
+  gapMm: null,
+  holdDownPct: null,
+  crownMm: null,
+  retractMm: null,
+});
 
 export interface SetupInputs {
   grade: GradeProfile;
@@ -130,8 +151,16 @@ export function resolveSetup(inputs: SetupInputs): ResolvedSetup {
   const retractMm = inputs.given.retractMm ?? BACKGAUGE_RETRACT_MM;
   const retract: SetupValue =
     inputs.given.retractMm !== null
-      ? given(showLength(retractMm, units), units, "Given in the program; about 0.1 in is usual so the piece is not trapped.")
-      : computed(showLength(retractMm, units), units, `Back the gauge off ${fmtLength(retractMm, units)} after the hold-down clamps so the piece is not trapped (common practice).`);
+      ? given(
+          showLength(retractMm, units),
+          units,
+          "Given in the program; about 0.1 in is usual so the piece is not trapped.",
+        )
+      : computed(
+          showLength(retractMm, units),
+          units,
+          `Back the gauge off ${fmtLength(retractMm, units)} after the hold-down clamps so the piece is not trapped (common practice).`,
+        );
   return {
     rakeDeg: rake.deg,
     gapMm: gap.mm,
@@ -163,13 +192,21 @@ function resolveRake(inputs: SetupInputs): { deg: number; value: SetupValue } {
     const forceKn = inputs.requiredKnAt(deg);
     const inRange = deg >= shear.rakeMinDeg && deg <= shear.rakeMaxDeg;
     const where = inRange ? `inside this shear's ${range} range` : `OUTSIDE this shear's ${range} range`;
-    return { deg, value: given(roundTo(deg, DECIMALS.deg), "deg", `Given in the program, ${where}; the cut needs ${fmtForce(forceKn, units)} of the ${rated} rating at this rake.`) };
+    return {
+      deg,
+      value: given(
+        roundTo(deg, DECIMALS.deg),
+        "deg",
+        `Given in the program, ${where}; the cut needs ${fmtForce(forceKn, units)} of the ${rated} rating at this rake.`,
+      ),
+    };
   }
   const recommendation = recommendRake(inputs.tensileMpa, inputs.thicknessMm, inputs.ratedKn, shear);
   const forceKn = inputs.requiredKnAt(recommendation.deg);
   const sharp = fmtForce(forceKn, units);
   const dull = fmtForce(forceKn * DULL_BLADE_FACTOR, units);
-  const lowRake = " Lower rake means less twist, bow and camber of narrow strips, at the cost of force (stainless producers' fabrication guidance; common practice), so the lowest that fits is taken.";
+  const lowRake =
+    " Lower rake means less twist, bow and camber of narrow strips, at the cost of force (stainless producers' fabrication guidance; common practice), so the lowest that fits is taken.";
   let why: string;
   if (recommendation.basis === "dull") {
     why = `Lowest rake in this shear's ${range} range at which even dull blades (${DULL_BLADE_FACTOR} × ${sharp} = ${dull}) stay within the ${rated} rating.`;
@@ -194,11 +231,20 @@ function resolveGap(inputs: SetupInputs): { mm: number; value: SetupValue } {
     const mm = inputs.given.gapMm;
     const inRange = mm >= shear.gapMinMm && mm <= shear.gapMaxMm;
     const where = inRange ? `inside this shear's ${range} range` : `OUTSIDE this shear's ${range} range`;
-    return { mm, value: given(showLength(mm, units), units, `Given in the program, ${where}; our rule, ${rule}, gives ${fmtLength(recommendation.mm, units)}.`) };
+    return {
+      mm,
+      value: given(
+        showLength(mm, units),
+        units,
+        `Given in the program, ${where}; our rule, ${rule}, gives ${fmtLength(recommendation.mm, units)}.`,
+      ),
+    };
   }
   let why: string;
-  if (recommendation.clamped === "min") why = `${capitalise(rule)} would be ${fmtLength(recommendation.idealMm, units)}, below this shear's smallest gap, so its minimum is used.`;
-  else if (recommendation.clamped === "max") why = `${capitalise(rule)} would be ${fmtLength(recommendation.idealMm, units)}, above this shear's largest gap, so its maximum is used.`;
+  if (recommendation.clamped === "min")
+    why = `${capitalise(rule)} would be ${fmtLength(recommendation.idealMm, units)}, below this shear's smallest gap, so its minimum is used.`;
+  else if (recommendation.clamped === "max")
+    why = `${capitalise(rule)} would be ${fmtLength(recommendation.idealMm, units)}, above this shear's largest gap, so its maximum is used.`;
   else why = `${capitalise(rule)} = ${fmtLength(recommendation.mm, units)}, inside this shear's ${range} range.`;
   return { mm: recommendation.mm, value: computed(showLength(recommendation.mm, units), units, why) };
 }
@@ -209,12 +255,21 @@ function resolveHoldDown(inputs: SetupInputs): { pct: number; value: SetupValue 
   const recommendation = recommendHoldDown(inputs.grade, inputs.tensileMpa);
   const units = inputs.units;
   if (inputs.given.holdDownPct !== null) {
-    return { pct: inputs.given.holdDownPct, value: given(roundTo(inputs.given.holdDownPct, DECIMALS.pct), "%", `Given in the program; our rule gives ${recommendation.pct} % for this grade.`) };
+    return {
+      pct: inputs.given.holdDownPct,
+      value: given(
+        roundTo(inputs.given.holdDownPct, DECIMALS.pct),
+        "%",
+        `Given in the program; our rule gives ${recommendation.pct} % for this grade.`,
+      ),
+    };
   }
   const full = fmtStrength(HOLD_DOWN_FULL_AT_YIELD_MPA, units);
   let basis: string;
-  if (recommendation.yieldFrom === "yield" && recommendation.yieldMpa !== null) basis = `yield ${fmtStrength(recommendation.yieldMpa, units)} against full force at ${full}`;
-  else if (recommendation.yieldFrom === "tensile" && recommendation.yieldMpa !== null) basis = `no yield stated, half the tensile (${fmtStrength(recommendation.yieldMpa, units)}) against full force at ${full}`;
+  if (recommendation.yieldFrom === "yield" && recommendation.yieldMpa !== null)
+    basis = `yield ${fmtStrength(recommendation.yieldMpa, units)} against full force at ${full}`;
+  else if (recommendation.yieldFrom === "tensile" && recommendation.yieldMpa !== null)
+    basis = `no yield stated, half the tensile (${fmtStrength(recommendation.yieldMpa, units)}) against full force at ${full}`;
   else basis = "no strength stated, so full force";
   const why = `${recommendation.pct} % of full hold-down: ${basis}, kept within ${HOLD_DOWN_MIN_PCT}–100 % (our rule); use less on finished or coated surfaces.`;
   return { pct: recommendation.pct, value: computed(recommendation.pct, "%", why) };

@@ -16,13 +16,7 @@ export type ForceUnit = "tonf" | "kN";
 /** Area unit shown to a caller. */
 export type AreaUnit = "in2" | "mm2";
 
-export type GradeFamily =
-  | "carbon-steel"
-  | "hsla-steel"
-  | "stainless"
-  | "aluminium"
-  | "copper"
-  | "abrasion-resistant";
+export type GradeFamily = "carbon-steel" | "hsla-steel" | "stainless" | "aluminium" | "copper" | "abrasion-resistant";
 
 /**
  * Gauge systems:
@@ -208,4 +202,3 @@ export interface Finding {
   actual: number | null;
   unit: string | null;
 }
-

@@ -38,8 +38,7 @@ export const strengthUnitFor = (unit: LengthUnit): StrengthUnit => (unit === "in
 export const forceUnitFor = (unit: LengthUnit): ForceUnit => (unit === "in" ? "tonf" : "kN");
 export const areaUnitFor = (unit: LengthUnit): AreaUnit => (unit === "in" ? "in2" : "mm2");
 
-export const strengthFromMpa = (mpa: number, unit: LengthUnit): number =>
-  unit === "in" ? mpaToKsi(mpa) : mpa;
+export const strengthFromMpa = (mpa: number, unit: LengthUnit): number => (unit === "in" ? mpaToKsi(mpa) : mpa);
 export const forceFromKn = (kn: number, unit: LengthUnit): number => (unit === "in" ? knToTonf(kn) : kn);
 export const areaFromMm2 = (mm2: number, unit: LengthUnit): number =>
   unit === "in" ? mm2 / (MM_PER_IN * MM_PER_IN) : mm2;
@@ -72,8 +71,7 @@ export function roundTo(value: number, decimals: number): number {
 /** mm → caller's length unit, rounded for reports. */
 export const showLength = (mm: number, unit: LengthUnit): number =>
   roundTo(lengthFromMm(mm, unit), DECIMALS.length[unit]);
-export const showArea = (mm2: number, unit: LengthUnit): number =>
-  roundTo(areaFromMm2(mm2, unit), DECIMALS.area[unit]);
+export const showArea = (mm2: number, unit: LengthUnit): number => roundTo(areaFromMm2(mm2, unit), DECIMALS.area[unit]);
 export const showForce = (kn: number, unit: LengthUnit): number => roundTo(forceFromKn(kn, unit), DECIMALS.force);
 export const showStrength = (mpa: number, unit: LengthUnit): number =>
   roundTo(strengthFromMpa(mpa, unit), DECIMALS.strength[unit]);
@@ -86,7 +84,8 @@ export function fmtNumber(value: number, decimals: number): string {
 }
 
 /** Text for messages: "0.1345 in", "3.416 mm", "12 in". */
-export const fmtLength = (mm: number, unit: LengthUnit): string => `${fmtNumber(lengthFromMm(mm, unit), DECIMALS.length[unit])} ${unit}`;
+export const fmtLength = (mm: number, unit: LengthUnit): string =>
+  `${fmtNumber(lengthFromMm(mm, unit), DECIMALS.length[unit])} ${unit}`;
 export const fmtForce = (kn: number, unit: LengthUnit): string =>
   `${forceFromKn(kn, unit).toFixed(1)} ${forceUnitFor(unit)}`;
 export const fmtStrength = (mpa: number, unit: LengthUnit): string =>

@@ -37,15 +37,13 @@ export function yieldReport(flow: FlowResult, sheets: number, units: LengthUnit)
     perSheet: totals(flow, 1, units),
     total: totals(flow, sheets, units),
     utilisationPct: showPct(flow.stockAreaMm2 > 0 ? (100 * flow.blankAreaMm2) / flow.stockAreaMm2 : 0),
-    groups: flow.groups.map(
-      (group): GroupYield => ({
-        group: group.index,
-        workpieces: group.workpieces,
-        strokes: group.strokes,
-        pieces: group.pieces.map((piece) => pieceReport(piece, 1, units)),
-        piecesBecome: group.piecesBecome,
-      }),
-    ),
+    groups: flow.groups.map((group): GroupYield => ({
+      group: group.index,
+      workpieces: group.workpieces,
+      strokes: group.strokes,
+      pieces: group.pieces.map((piece) => pieceReport(piece, 1, units)),
+      piecesBecome: group.piecesBecome,
+    })),
     blanks: flow.blanks.map((piece) => pieceReport(piece, sheets, units)),
     offcuts: flow.offcuts.map((piece) => pieceReport(piece, sheets, units)),
   };

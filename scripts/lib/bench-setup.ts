@@ -2,7 +2,7 @@
 import { MikroORM } from "@mikro-orm/postgresql";
 import pg from "pg";
 import { Shear, Shop } from "../../entities";
-import { SCOPES } from "../../entities/ApiKey";
+import { SCOPES } from "../../lib/schemas/enums";
 import { ormConfig } from "../../lib/db/config";
 import { migrateUp } from "../../lib/db/migrate";
 import { createKey } from "../../lib/services/keys";
@@ -25,9 +25,22 @@ export async function benchDatabase(name: string) {
   const em = orm.em.fork();
   const shop = em.create(Shop, { name: "Bench shop", slug: "bench" });
   const shear = em.create(Shear, {
-    shop, name: "Bench shear", ratedThicknessMm: 6.35, ratedTensileMpa: 414, ratedRakeDeg: 1.5, bladeLengthMm: 3100,
-    backgaugeMinMm: 5, backgaugeMaxMm: 1000, rakeMinDeg: 0.5, rakeMaxDeg: 2.5, gapMinMm: 0.03, gapMaxMm: 1,
-    strokesPerMin: 30, backgaugeSpeedMmPerS: 250, handlingSecondsPerTurn: 6, handlingSecondsPerSheet: 30,
+    shop,
+    name: "Bench shear",
+    ratedThicknessMm: 6.35,
+    ratedTensileMpa: 414,
+    ratedRakeDeg: 1.5,
+    bladeLengthMm: 3100,
+    backgaugeMinMm: 5,
+    backgaugeMaxMm: 1000,
+    rakeMinDeg: 0.5,
+    rakeMaxDeg: 2.5,
+    gapMinMm: 0.03,
+    gapMaxMm: 1,
+    strokesPerMin: 30,
+    backgaugeSpeedMmPerS: 250,
+    handlingSecondsPerTurn: 6,
+    handlingSecondsPerSheet: 30,
   });
   addGradeLibrary(em, shop);
   await em.flush();

@@ -7,7 +7,7 @@ import { existsSync, readFileSync, writeFileSync } from "node:fs";
 import path from "node:path";
 import type { EntityManager } from "@mikro-orm/postgresql";
 import { ApiKey } from "../../entities";
-import { SCOPES } from "../../entities/ApiKey";
+import { SCOPES } from "../../lib/schemas/enums";
 import { createKey } from "../../lib/services/keys";
 
 export async function demoKey(em: EntityManager, dataRoot: string, shopId: string): Promise<string> {

@@ -6,11 +6,11 @@
 import type { EntityManager, InferEntity, RequiredEntityData } from "@mikro-orm/postgresql";
 import bcrypt from "bcryptjs";
 import { Grade, Membership, Plan, Shear, Shop, User, type ShopEntity } from "../../entities";
-import { processStoredPlan } from "../../lib/queue/plan-jobs";
+import { processStoredPlan } from "../../lib/worker/plan-jobs";
 import { planTimeLimitMs } from "../../lib/queue/plan-queue";
 import { createPlan, viewPlan } from "../../lib/services/plans";
 import { DEMO_SHEARS } from "../../lib/schemas/shear";
-import type { Role } from "../../entities/Membership";
+import type { Role } from "../../lib/schemas/enums";
 import { GRADE_LIBRARY } from "../../lib/shear/grades";
 
 export const DEMO_SHOP = { name: "Ridgeback Sheet & Plate", slug: "ridgeback" };
@@ -30,10 +30,20 @@ const SHEARS = DEMO_SHEARS;
 export function addGradeLibrary(em: EntityManager, shop: ShopEntity) {
   for (const g of GRADE_LIBRARY) {
     em.create(Grade, {
-      shop, code: g.code, name: g.name ?? g.code, family: g.family, standard: g.standard,
-      yieldMpa: g.yieldMpa, tensileMinMpa: g.tensileMinMpa, tensileTypicalMpa: g.tensileTypicalMpa,
-      tensileMaxMpa: g.tensileMaxMpa ?? null, valuesAreTypical: g.valuesAreTypical,
-      shearTensileRatio: g.shearTensileRatio, gaugeFamily: g.gaugeFamily, hardnessHb: g.hardnessHb, note: g.note ?? null,
+      shop,
+      code: g.code,
+      name: g.name ?? g.code,
+      family: g.family,
+      standard: g.standard,
+      yieldMpa: g.yieldMpa,
+      tensileMinMpa: g.tensileMinMpa,
+      tensileTypicalMpa: g.tensileTypicalMpa,
+      tensileMaxMpa: g.tensileMaxMpa ?? null,
+      valuesAreTypical: g.valuesAreTypical,
+      shearTensileRatio: g.shearTensileRatio,
+      gaugeFamily: g.gaugeFamily,
+      hardnessHb: g.hardnessHb,
+      note: g.note ?? null,
     });
   }
 }
@@ -53,7 +63,10 @@ const DEMO_PLAN = {
   grade: "A36",
   thickness: { value: 3 },
   units: "mm" as const,
-  stock: [{ length: 2500, width: 1250, count: 12, label: "rack A" }, { length: 3000, width: 1500, count: 4, label: "rack B" }],
+  stock: [
+    { length: 2500, width: 1250, count: 12, label: "rack A" },
+    { length: 3000, width: 1500, count: 4, label: "rack B" },
+  ],
   blanks: [
     { label: "cabinet side", length: 900, width: 450, quantity: 16, canTurn: false },
     { label: "shelf", length: 860, width: 380, quantity: 24 },
@@ -72,11 +85,13 @@ export async function seedDemo(em: EntityManager): Promise<DemoSummary> {
       shop = tx.create(Shop, DEMO_SHOP);
       const hash = await bcrypt.hash(DEMO_PASSWORD, 10);
       for (const person of PEOPLE) {
-        const user = (await tx.findOne(User, { email: person.email })) ??
+        const user =
+          (await tx.findOne(User, { email: person.email })) ??
           tx.create(User, { email: person.email, name: person.name, passwordHash: hash });
         tx.create(Membership, { user, shop, role: person.role });
       }
-      for (const s of SHEARS) tx.create(Shear, { ...(s as Omit<RequiredEntityData<InferEntity<typeof Shear>>, "shop">), shop });
+      for (const s of SHEARS)
+        tx.create(Shear, { ...(s as Omit<RequiredEntityData<InferEntity<typeof Shear>>, "shop">), shop });
       addGradeLibrary(tx, shop);
       await tx.flush();
     }
@@ -89,7 +104,9 @@ export async function seedDemo(em: EntityManager): Promise<DemoSummary> {
     };
   });
   const existing = await em.findOne(Plan, { shop: summary.shop.id }, { orderBy: { id: "asc" } });
-  const plan = existing ? viewPlan(existing) : await createPlan(em, summary.shop.id, { ...DEMO_PLAN, shear: summary.shears[0].id }, { queue: false });
+  const plan = existing
+    ? viewPlan(existing)
+    : await createPlan(em, summary.shop.id, { ...DEMO_PLAN, shear: summary.shears[0].id }, { queue: false });
   if (plan.status === "queued") {
     // This script is not the web server: it may plan right here, so the demo plan is ready when the console opens.
     await processStoredPlan(() => em.fork(), plan.id, planTimeLimitMs());

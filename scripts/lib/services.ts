@@ -40,8 +40,14 @@ export function portInUse(port: number, host = "127.0.0.1"): Promise<boolean> {
   return new Promise((resolve) => {
     const socket = net.connect({ port, host });
     socket.setTimeout(1000);
-    socket.once("connect", () => { socket.destroy(); resolve(true); });
-    socket.once("timeout", () => { socket.destroy(); resolve(false); });
+    socket.once("connect", () => {
+      socket.destroy();
+      resolve(true);
+    });
+    socket.once("timeout", () => {
+      socket.destroy();
+      resolve(false);
+    });
     socket.once("error", () => resolve(false));
   });
 }
@@ -131,7 +137,9 @@ function givePostgres(dir: string) {
 export function pgRunning(opts: Pick<PgOptions, "dataDir">): boolean {
   if (!existsSync(path.join(opts.dataDir, "PG_VERSION"))) return false;
   const bin = findPgBin(false);
-  return run(path.join(bin, "pg_ctl"), ["-D", opts.dataDir, "status"], { asPostgres: true, allowFail: true }).status === 0;
+  return (
+    run(path.join(bin, "pg_ctl"), ["-D", opts.dataDir, "status"], { asPostgres: true, allowFail: true }).status === 0
+  );
 }
 
 function pgConfiguredPort(dataDir: string): number | null {
@@ -156,10 +164,21 @@ export async function startPostgres(opts: PgOptions): Promise<"started" | "reuse
     const pwFile = path.join(opts.dataDir, "..", `.pw-${process.pid}`);
     writeFileSync(pwFile, `${opts.password}\n`, { mode: 0o644 });
     try {
-      run(path.join(bin, "initdb"), [
-        "-D", opts.dataDir, "-U", opts.user, `--pwfile=${pwFile}`,
-        "--auth-host=scram-sha-256", "--auth-local=peer", "--encoding=UTF8", "--locale=C.UTF-8",
-      ], { asPostgres: true });
+      run(
+        path.join(bin, "initdb"),
+        [
+          "-D",
+          opts.dataDir,
+          "-U",
+          opts.user,
+          `--pwfile=${pwFile}`,
+          "--auth-host=scram-sha-256",
+          "--auth-local=peer",
+          "--encoding=UTF8",
+          "--locale=C.UTF-8",
+        ],
+        { asPostgres: true },
+      );
     } finally {
       rmSync(pwFile, { force: true });
     }
@@ -167,7 +186,9 @@ export async function startPostgres(opts: PgOptions): Promise<"started" | "reuse
   if (pgRunning(opts)) {
     const port = pgConfiguredPort(opts.dataDir);
     if (port !== null && port !== opts.port) {
-      throw new ServiceError(`PostgreSQL in ${opts.dataDir} is already running on port ${port}, not ${opts.port}; run npm run down first`);
+      throw new ServiceError(
+        `PostgreSQL in ${opts.dataDir} is already running on port ${port}, not ${opts.port}; run npm run down first`,
+      );
     }
     await ensureDatabase(opts);
     return "reused";
@@ -180,21 +201,36 @@ export async function startPostgres(opts: PgOptions): Promise<"started" | "reuse
   }
   log(`starting PostgreSQL on 127.0.0.1:${opts.port}`);
   const logFile = path.join(opts.dataDir, "server.log");
-  const logTail = () => (existsSync(logFile) ? readFileSync(logFile, "utf8").trim().split("\n").slice(-12).join("\n") : "(no server log)");
+  const logTail = () =>
+    existsSync(logFile) ? readFileSync(logFile, "utf8").trim().split("\n").slice(-12).join("\n") : "(no server log)";
   // A closed connection that used this port as its own (client) port keeps it for up to a minute
   // (TIME_WAIT): nothing listens, yet the server cannot bind. Wait it out, as PostgreSQL's hint says.
   for (let waited = 0; ; waited += PORT_WAIT_STEP_MS) {
     try {
-      run(path.join(bin, "pg_ctl"), [
-        "-D", opts.dataDir, "-l", logFile, "-w", "-t", "60",
-        "-o", `-p ${opts.port} -c listen_addresses=127.0.0.1 -c unix_socket_directories='${opts.dataDir}'`,
-        "start",
-      ], { asPostgres: true });
+      run(
+        path.join(bin, "pg_ctl"),
+        [
+          "-D",
+          opts.dataDir,
+          "-l",
+          logFile,
+          "-w",
+          "-t",
+          "60",
+          "-o",
+          `-p ${opts.port} -c listen_addresses=127.0.0.1 -c unix_socket_directories='${opts.dataDir}'`,
+          "start",
+        ],
+        { asPostgres: true },
+      );
       break;
     } catch (err) {
       const tail = logTail();
       if (/Address already in use/.test(tail.split("\n").slice(-6).join("\n")) && waited < PORT_WAIT_MAX_MS) {
-        if (waited === 0) log(`port ${opts.port} is still held by a closing connection; waiting for it (up to ${PORT_WAIT_MAX_MS / 1000} s)`);
+        if (waited === 0)
+          log(
+            `port ${opts.port} is still held by a closing connection; waiting for it (up to ${PORT_WAIT_MAX_MS / 1000} s)`,
+          );
         await new Promise((r) => setTimeout(r, PORT_WAIT_STEP_MS));
         continue;
       }
@@ -208,7 +244,13 @@ export async function startPostgres(opts: PgOptions): Promise<"started" | "reuse
 
 async function ensureDatabase(opts: PgOptions) {
   const { default: pg } = await import("pg");
-  const client = new pg.Client({ host: "127.0.0.1", port: opts.port, user: opts.user, password: opts.password, database: "postgres" });
+  const client = new pg.Client({
+    host: "127.0.0.1",
+    port: opts.port,
+    user: opts.user,
+    password: opts.password,
+    database: "postgres",
+  });
   await client.connect();
   try {
     const found = await client.query("select 1 from pg_database where datname = $1", [opts.database]);
@@ -221,7 +263,9 @@ async function ensureDatabase(opts: PgOptions) {
 export function stopPostgres(opts: Pick<PgOptions, "dataDir">): "stopped" | "not running" {
   if (!pgRunning(opts)) return "not running";
   log("stopping PostgreSQL");
-  run(path.join(findPgBin(false), "pg_ctl"), ["-D", opts.dataDir, "-m", "fast", "-w", "-t", "60", "stop"], { asPostgres: true });
+  run(path.join(findPgBin(false), "pg_ctl"), ["-D", opts.dataDir, "-m", "fast", "-w", "-t", "60", "stop"], {
+    asPostgres: true,
+  });
   return "stopped";
 }
 
@@ -267,10 +311,26 @@ export async function startRedis(opts: RedisOptions): Promise<"started" | "reuse
   for (let waited = 0; ; waited += PORT_WAIT_STEP_MS) {
     const logged = existsSync(logFile) ? readFileSync(logFile, "utf8").length : 0;
     run(server, [
-      "--port", String(opts.port), "--bind", "127.0.0.1", "--protected-mode", "yes",
-      "--dir", opts.dataDir, "--daemonize", "yes",
-      "--pidfile", path.join(opts.dataDir, "redis.pid"), "--logfile", logFile,
-      "--save", "60 1", "--appendonly", "no", "--maxmemory-policy", "noeviction",
+      "--port",
+      String(opts.port),
+      "--bind",
+      "127.0.0.1",
+      "--protected-mode",
+      "yes",
+      "--dir",
+      opts.dataDir,
+      "--daemonize",
+      "yes",
+      "--pidfile",
+      path.join(opts.dataDir, "redis.pid"),
+      "--logfile",
+      logFile,
+      "--save",
+      "60 1",
+      "--appendonly",
+      "no",
+      "--maxmemory-policy",
+      "noeviction",
     ]);
     for (let i = 0; i < 100; i++) {
       if (redisRunning(opts) && (await portInUse(opts.port))) return "started";
@@ -280,7 +340,10 @@ export async function startRedis(opts: RedisOptions): Promise<"started" | "reuse
     // The same wait as PostgreSQL's for a port still held by a closing connection.
     const said = existsSync(logFile) ? readFileSync(logFile, "utf8").slice(logged) : "";
     if (!/Address already in use/.test(said) || waited >= PORT_WAIT_MAX_MS) break;
-    if (waited === 0) log(`port ${opts.port} is still held by a closing connection; waiting for it (up to ${PORT_WAIT_MAX_MS / 1000} s)`);
+    if (waited === 0)
+      log(
+        `port ${opts.port} is still held by a closing connection; waiting for it (up to ${PORT_WAIT_MAX_MS / 1000} s)`,
+      );
     await new Promise((r) => setTimeout(r, PORT_WAIT_STEP_MS));
   }
   throw new ServiceError(`Redis did not start; see ${logFile}`);
@@ -330,13 +393,19 @@ export function devProfile(projectDir = process.cwd()): Profile {
       database: "shearwire",
     },
     redis: { dataDir: path.join(dataRoot, "redis"), port: envNum("SHEARWIRE_REDIS_PORT", 56379) },
-    mail: { smtpPort: envNum("SHEARWIRE_SMTP_PORT", 2525), httpPort: envNum("SHEARWIRE_INBOX_PORT", 2580), dir: path.join(dataRoot, "mail") },
+    mail: {
+      smtpPort: envNum("SHEARWIRE_SMTP_PORT", 2525),
+      httpPort: envNum("SHEARWIRE_INBOX_PORT", 2580),
+      dir: path.join(dataRoot, "mail"),
+    },
   };
 }
 
 /** The throw-away profile used by `npm test`: other ports, data under the system temp folder. */
 export function testProfile(): Profile {
-  const dataRoot = process.env.SHEARWIRE_TEST_DATA_DIR ?? path.join(os.tmpdir(), `shearwire-test-${isRoot() ? "root" : os.userInfo().username}`);
+  const dataRoot =
+    process.env.SHEARWIRE_TEST_DATA_DIR ??
+    path.join(os.tmpdir(), `shearwire-test-${isRoot() ? "root" : os.userInfo().username}`);
   return {
     name: "test",
     dataRoot,
@@ -348,7 +417,11 @@ export function testProfile(): Profile {
       database: "shearwire_test",
     },
     redis: { dataDir: path.join(dataRoot, "redis"), port: envNum("SHEARWIRE_TEST_REDIS_PORT", 56389) },
-    mail: { smtpPort: envNum("SHEARWIRE_TEST_SMTP_PORT", 2526), httpPort: envNum("SHEARWIRE_TEST_INBOX_PORT", 2581), dir: path.join(dataRoot, "mail") },
+    mail: {
+      smtpPort: envNum("SHEARWIRE_TEST_SMTP_PORT", 2526),
+      httpPort: envNum("SHEARWIRE_TEST_INBOX_PORT", 2581),
+      dir: path.join(dataRoot, "mail"),
+    },
   };
 }
 

@@ -47,7 +47,11 @@ export async function stopDaemon(d: Daemon): Promise<"stopped" | "not running"> 
     try {
       process.kill(-pid!, sig);
     } catch {
-      try { process.kill(pid!, sig); } catch { /* gone */ }
+      try {
+        process.kill(pid!, sig);
+      } catch {
+        /* gone */
+      }
     }
   };
   signal("SIGTERM");
@@ -75,11 +79,31 @@ export function startWorker(d: Daemon, env: NodeJS.ProcessEnv) {
 }
 
 /** The fake SMTP server and its inbox page, in the background. */
-export async function startMail(d: Daemon, mail: { smtpPort: number; httpPort: number; dir: string }, env: NodeJS.ProcessEnv) {
+export async function startMail(
+  d: Daemon,
+  mail: { smtpPort: number; httpPort: number; dir: string },
+  env: NodeJS.ProcessEnv,
+) {
   for (const port of [mail.smtpPort, mail.httpPort]) {
-    if (await portInUse(port)) throw new ServiceError(`port ${port} on 127.0.0.1 is busy with another program; the fake mail server cannot start there`);
+    if (await portInUse(port))
+      throw new ServiceError(
+        `port ${port} on 127.0.0.1 is busy with another program; the fake mail server cannot start there`,
+      );
   }
-  startDaemon(d, bin("tsx"), [path.join(root, "scripts", "mail-server.ts"), "--smtp", String(mail.smtpPort), "--http", String(mail.httpPort), "--dir", mail.dir], env);
+  startDaemon(
+    d,
+    bin("tsx"),
+    [
+      path.join(root, "scripts", "mail-server.ts"),
+      "--smtp",
+      String(mail.smtpPort),
+      "--http",
+      String(mail.httpPort),
+      "--dir",
+      mail.dir,
+    ],
+    env,
+  );
   await waitForHttp(`http://127.0.0.1:${mail.httpPort}/messages`, d, 30_000);
 }
 

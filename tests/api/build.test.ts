@@ -13,7 +13,9 @@ const files = (dir: string, ext: string) =>
 
 describe("the built app", () => {
   it("serves its fonts itself", () => {
-    const css = files(path.join(TEST_DIST_DIR, "static"), ".css").map((f) => readFileSync(f, "utf8")).join("\n");
+    const css = files(path.join(TEST_DIST_DIR, "static"), ".css")
+      .map((f) => readFileSync(f, "utf8"))
+      .join("\n");
     expect(css).toMatch(/@font-face/);
     const fontUrls = [...css.matchAll(/url\(([^)]+\.woff2)\)/g)].map((m) => m[1]);
     expect(fontUrls.length).toBeGreaterThan(0);

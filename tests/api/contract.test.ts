@@ -13,7 +13,14 @@ import * as planOps from "../../lib/api/operations/plans";
 import * as webhookOps from "../../lib/api/operations/webhooks";
 import { startReceiver, type Receiver } from "../support/receiver";
 import { BASE_URL } from "../support/env";
-import { closeTestOrm, createTestShop, examplePlan, exampleProgram, TEST_SHEAR, type TestShop } from "../support/fixtures";
+import {
+  closeTestOrm,
+  createTestShop,
+  examplePlan,
+  exampleProgram,
+  TEST_SHEAR,
+  type TestShop,
+} from "../support/fixtures";
 import { doc, exercised, expectDocumented } from "../support/openapi";
 
 let shop: TestShop;
@@ -42,7 +49,9 @@ describe("meta", () => {
     const res = await api().get("/api/v1/schemas/cut-program.json");
     expectDocumented(metaOps.getCutProgramSchema, res);
     expect(res.body.$schema).toBe("https://json-schema.org/draft/2020-12/schema");
-    expect(res.body.required).toEqual(expect.arrayContaining(["reference", "shear", "grade", "thickness", "units", "sheet", "cuts"]));
+    expect(res.body.required).toEqual(
+      expect.arrayContaining(["reference", "shear", "grade", "thickness", "units", "sheet", "cuts"]),
+    );
   });
 });
 
@@ -55,7 +64,10 @@ describe("catalog", () => {
     expectDocumented(catalogOps.listShears, list);
     expect(list.body.data).toHaveLength(1);
 
-    const created = await api().post("/api/v1/shears").set(auth()).send({ ...TEST_SHEAR, name: "Contract shear", backgaugeRepeatabilityMm: 0.05, crownBaselineMm: 0.03 });
+    const created = await api()
+      .post("/api/v1/shears")
+      .set(auth())
+      .send({ ...TEST_SHEAR, name: "Contract shear", backgaugeRepeatabilityMm: 0.05, crownBaselineMm: 0.03 });
     expectDocumented(catalogOps.createShear, created);
     expect(created.status).toBe(201);
     expect(created.body).toMatchObject({ backgaugeRepeatabilityMm: 0.05, crownBaselineMm: 0.03, crownAtRatedMm: null }); // the machine's figures as given
@@ -66,7 +78,10 @@ describe("catalog", () => {
     expectDocumented(catalogOps.getShear, read);
     expect(read.body).toEqual(created.body);
 
-    const changed = await api().patch(`/api/v1/shears/${shearId}`).set(auth()).send({ strokesPerMin: 25, gradeThicknessLimitsMm: { "304": 3 } });
+    const changed = await api()
+      .patch(`/api/v1/shears/${shearId}`)
+      .set(auth())
+      .send({ strokesPerMin: 25, gradeThicknessLimitsMm: { "304": 3 } });
     expectDocumented(catalogOps.updateShear, changed);
     expect(changed.body).toMatchObject({ strokesPerMin: 25, gradeThicknessLimitsMm: { "304": 3 } });
 
@@ -85,8 +100,13 @@ describe("catalog", () => {
     expect(list.body.data.every((g: { family: string }) => g.family === "stainless")).toBe(true);
 
     const created = await api().post("/api/v1/grades").set(auth()).send({
-      code: "S355", name: "Structural steel (demo entry)", family: "hsla-steel", standard: "entered by the shop",
-      yieldMpa: 355, tensileMinMpa: 470, gaugeFamily: null,
+      code: "S355",
+      name: "Structural steel (demo entry)",
+      family: "hsla-steel",
+      standard: "entered by the shop",
+      yieldMpa: 355,
+      tensileMinMpa: 470,
+      gaugeFamily: null,
     });
     expectDocumented(catalogOps.createGrade, created);
     expect(created.status).toBe(201);
@@ -114,7 +134,10 @@ describe("catalog", () => {
   });
 
   it("recommends a setup without a program", async () => {
-    const res = await api().post("/api/v1/setup").set(auth()).send({ shear: shop.shearId, grade: "A36", thickness: { gauge: 10 }, units: "in" });
+    const res = await api()
+      .post("/api/v1/setup")
+      .set(auth())
+      .send({ shear: shop.shearId, grade: "A36", thickness: { gauge: 10 }, units: "in" });
     expectDocumented(catalogOps.recommendSetup, res);
     expect(res.body.thickness.value).toBeCloseTo(0.1345, 4);
     expect(res.body.setup.bladeGap.why).toMatch(/thickness/);
@@ -127,7 +150,10 @@ describe("catalog", () => {
     expect(res.body.setup.rake.why).toMatch(/twist, bow and camber/);
     expect(res.body.findings).toEqual([]);
 
-    const over = await api().post("/api/v1/setup").set(auth()).send({ shear: shop.shearId, grade: "A36", thickness: { value: 12 }, units: "mm" });
+    const over = await api()
+      .post("/api/v1/setup")
+      .set(auth())
+      .send({ shear: shop.shearId, grade: "A36", thickness: { value: 12 }, units: "mm" });
     expect(over.body.findings.map((f: { code: string }) => f.code)).toContain("thickness_over_capacity");
   });
 });
@@ -173,7 +199,11 @@ describe("programs", () => {
   });
 
   it("changes a draft with If-Match", async () => {
-    const res = await api().patch(`/api/v1/programs/${id}`).set(auth()).set("If-Match", etag).send({ title: "Side panels, lot 4 (rev B)" });
+    const res = await api()
+      .patch(`/api/v1/programs/${id}`)
+      .set(auth())
+      .set("If-Match", etag)
+      .send({ title: "Side panels, lot 4 (rev B)" });
     expectDocumented(programOps.updateProgram, res);
     expect(res.body.revision).toBe(2);
     etag = res.headers.etag;
@@ -193,7 +223,11 @@ describe("plans", () => {
   let planId: string;
 
   it("queues, waits, lists, reads, previews and writes the programs; cancels another", async () => {
-    const created = await api().post("/api/v1/plans").set(auth()).set("Prefer", "wait=10").send(examplePlan(shop.shearId));
+    const created = await api()
+      .post("/api/v1/plans")
+      .set(auth())
+      .set("Prefer", "wait=10")
+      .send(examplePlan(shop.shearId));
     expectDocumented(planOps.createPlan, created);
     expect(created.status).toBe(201);
     expect(created.body.status).toBe("complete");
@@ -247,10 +281,16 @@ describe("gateway", () => {
     expect(hb.body.lease.seconds).toBe(120);
     const started = await api().post(`/api/v1/programs/${id}/start`).set(auth());
     expectDocumented(gatewayOps.startProgram, started);
-    const progressed = await api().post(`/api/v1/programs/${id}/progress`).set(auth()).send({ groupsDone: 2, strokesDone: 10 });
+    const progressed = await api()
+      .post(`/api/v1/programs/${id}/progress`)
+      .set(auth())
+      .send({ groupsDone: 2, strokesDone: 10 });
     expectDocumented(gatewayOps.reportProgress, progressed);
     expect(progressed.body.run.progress).toEqual({ groupsDone: 2, strokesDone: 10 });
-    const done = await api().post(`/api/v1/programs/${id}/complete`).set(auth()).send({ goodPieces: 56, scrappedPieces: 0 });
+    const done = await api()
+      .post(`/api/v1/programs/${id}/complete`)
+      .set(auth())
+      .send({ goodPieces: 56, scrappedPieces: 0 });
     expectDocumented(gatewayOps.completeProgram, done);
     expect(done.body).toMatchObject({ status: "completed", run: { outcome: { result: "completed", goodPieces: 56 } } });
   });
@@ -258,7 +298,10 @@ describe("gateway", () => {
   it("reports a failed run, and answers 204 when nothing is released", async () => {
     const id = await released();
     await api().post(`/api/v1/shears/${shop.shearId}/claims`).set(auth()).send({}).expect(200);
-    const failed = await api().post(`/api/v1/programs/${id}/fail`).set(auth()).send({ reason: "guard_tripped", message: "rear guard opened" });
+    const failed = await api()
+      .post(`/api/v1/programs/${id}/fail`)
+      .set(auth())
+      .send({ reason: "guard_tripped", message: "rear guard opened" });
     expectDocumented(gatewayOps.failProgram, failed);
     expect(failed.body.status).toBe("failed");
     const none = await api().post(`/api/v1/shears/${shop.shearId}/claims`).set(auth()).send({ waitSeconds: 0 });
@@ -270,11 +313,16 @@ describe("gateway", () => {
 describe("webhooks", () => {
   let receiver: Receiver;
   let endpointId: string;
-  beforeAll(async () => { receiver = await startReceiver(); });
+  beforeAll(async () => {
+    receiver = await startReceiver();
+  });
   afterAll(async () => receiver.close());
 
   it("adds, lists, reads and changes an endpoint", async () => {
-    const created = await api().post("/api/v1/webhook-endpoints").set(auth()).send({ url: receiver.url, description: "contract", eventTypes: ["program.created"] });
+    const created = await api()
+      .post("/api/v1/webhook-endpoints")
+      .set(auth())
+      .send({ url: receiver.url, description: "contract", eventTypes: ["program.created"] });
     expectDocumented(webhookOps.createEndpoint, created);
     expect(created.body.secret).toMatch(/^whsec_/);
     endpointId = created.body.endpoint.id;
@@ -292,7 +340,10 @@ describe("webhooks", () => {
     expectDocumented(webhookOps.testEndpoint, test);
     expect(test.status).toBe(202);
     await receiver.waitFor(1);
-    const rotated = await api().post(`/api/v1/webhook-endpoints/${endpointId}/rotate-secret`).set(auth()).send({ overlapHours: 1 });
+    const rotated = await api()
+      .post(`/api/v1/webhook-endpoints/${endpointId}/rotate-secret`)
+      .set(auth())
+      .send({ overlapHours: 1 });
     expectDocumented(webhookOps.rotateSecret, rotated);
     expect(rotated.body.endpoint.secretRotation).not.toBeNull();
     const deliveries = await api().get(`/api/v1/webhook-endpoints/${endpointId}/deliveries`).set(auth());

@@ -47,22 +47,44 @@ describe("Idempotency-Key", () => {
   });
 
   it("answers 422 when the key comes back with another body", async () => {
-    await api().post("/api/v1/programs").set(auth()).set("Idempotency-Key", "other-1").send(exampleProgram(shop.shearId)).expect(201);
-    const res = await api().post("/api/v1/programs").set(auth()).set("Idempotency-Key", "other-1").send(exampleProgram(shop.shearId));
+    await api()
+      .post("/api/v1/programs")
+      .set(auth())
+      .set("Idempotency-Key", "other-1")
+      .send(exampleProgram(shop.shearId))
+      .expect(201);
+    const res = await api()
+      .post("/api/v1/programs")
+      .set(auth())
+      .set("Idempotency-Key", "other-1")
+      .send(exampleProgram(shop.shearId));
     expect(res.status).toBe(422);
     expect(res.body.type).toBe("/problems/idempotency-key-reused");
   });
 
   it("keeps keys per API key: another key may use the same value", async () => {
     const { secret } = await keyFor(shop.shopId, ["programs:write"]);
-    const a = await api().post("/api/v1/programs").set(auth()).set("Idempotency-Key", "per-key").send(exampleProgram(shop.shearId));
-    const b = await api().post("/api/v1/programs").set("Authorization", `Bearer ${secret}`).set("Idempotency-Key", "per-key").send(exampleProgram(shop.shearId));
+    const a = await api()
+      .post("/api/v1/programs")
+      .set(auth())
+      .set("Idempotency-Key", "per-key")
+      .send(exampleProgram(shop.shearId));
+    const b = await api()
+      .post("/api/v1/programs")
+      .set("Authorization", `Bearer ${secret}`)
+      .set("Idempotency-Key", "per-key")
+      .send(exampleProgram(shop.shearId));
     expect([a.status, b.status]).toEqual([201, 201]);
     expect(a.body.id).not.toBe(b.body.id);
   });
 
   it("keeps a record for 24 hours", async () => {
-    await api().post("/api/v1/programs").set(auth()).set("Idempotency-Key", "ttl-1").send(exampleProgram(shop.shearId)).expect(201);
+    await api()
+      .post("/api/v1/programs")
+      .set(auth())
+      .set("Idempotency-Key", "ttl-1")
+      .send(exampleProgram(shop.shearId))
+      .expect(201);
     const rec = await (await testOrm()).em.fork().findOneOrFail(IdempotencyRecord, { idempotencyKey: "ttl-1" });
     const hours = (rec.expiresAt.getTime() - rec.createdAt.getTime()) / 3_600_000;
     expect(hours).toBeCloseTo(24, 5);
@@ -81,7 +103,11 @@ describe("Idempotency-Key", () => {
     const body = exampleProgram(own.shearId, "RACE-1");
     const results = await Promise.all(
       Array.from({ length: 20 }, () =>
-        api().post("/api/v1/programs").set("Authorization", `Bearer ${own.key}`).set("Idempotency-Key", "race-1").send(body),
+        api()
+          .post("/api/v1/programs")
+          .set("Authorization", `Bearer ${own.key}`)
+          .set("Idempotency-Key", "race-1")
+          .send(body),
       ),
     );
     const statuses = results.map((r) => r.status);
@@ -93,7 +119,11 @@ describe("Idempotency-Key", () => {
   });
 
   it("refuses a malformed key", async () => {
-    const res = await api().post("/api/v1/programs").set(auth()).set("Idempotency-Key", "x".repeat(300)).send(exampleProgram(shop.shearId));
+    const res = await api()
+      .post("/api/v1/programs")
+      .set(auth())
+      .set("Idempotency-Key", "x".repeat(300))
+      .send(exampleProgram(shop.shearId));
     expect(res.status).toBe(400);
     expect(res.body.type).toBe("/problems/bad-idempotency-key");
   });
@@ -126,7 +156,11 @@ describe("bodies", () => {
   it("refuses a body that is not JSON with 415, and broken JSON with 400", async () => {
     const form = await api().post("/api/v1/programs").set(auth()).set("Content-Type", "text/plain").send("reference=1");
     expect(form.status).toBe(415);
-    const broken = await api().post("/api/v1/programs").set(auth()).set("Content-Type", "application/json").send('{"reference":');
+    const broken = await api()
+      .post("/api/v1/programs")
+      .set(auth())
+      .set("Content-Type", "application/json")
+      .send('{"reference":');
     expect(broken.status).toBe(400);
     expect(broken.body.detail).toMatch(/not valid JSON/);
   });
@@ -135,13 +169,45 @@ describe("bodies", () => {
     const own = await createTestShop("fuzz");
     const valid = exampleProgram(own.shearId);
     // Break a valid program in one or more places: wrong types, out-of-range numbers, unknown fields, missing fields.
-    const junk = fc.oneof(fc.string(), fc.integer(), fc.double(), fc.boolean(), fc.constant(null), fc.array(fc.integer(), { maxLength: 3 }), fc.object({ maxDepth: 1 }));
-    const field = fc.constantFrom("reference", "shear", "grade", "thickness", "units", "sheet", "cuts", "setup", "priority", "dueAt", "metadata", "title");
+    const junk = fc.oneof(
+      fc.string(),
+      fc.integer(),
+      fc.double(),
+      fc.boolean(),
+      fc.constant(null),
+      fc.array(fc.integer(), { maxLength: 3 }),
+      fc.object({ maxDepth: 1 }),
+    );
+    const field = fc.constantFrom(
+      "reference",
+      "shear",
+      "grade",
+      "thickness",
+      "units",
+      "sheet",
+      "cuts",
+      "setup",
+      "priority",
+      "dueAt",
+      "metadata",
+      "title",
+    );
     const breakage = fc.oneof(
       fc.record({ kind: fc.constant("set" as const), field, value: junk }),
-      fc.record({ kind: fc.constant("drop" as const), field: fc.constantFrom("reference", "shear", "grade", "thickness", "units", "sheet", "cuts") }),
-      fc.record({ kind: fc.constant("extra" as const), field: fc.string({ minLength: 1, maxLength: 8 }).filter((k) => !(k in valid)), value: junk }),
-      fc.record({ kind: fc.constant("cut" as const), field: fc.constantFrom("backgauge", "count", "length", "turn"), value: fc.oneof(junk, fc.constantFrom(-1, 0, 1e9, Number.NaN)) }),
+      fc.record({
+        kind: fc.constant("drop" as const),
+        field: fc.constantFrom("reference", "shear", "grade", "thickness", "units", "sheet", "cuts"),
+      }),
+      fc.record({
+        kind: fc.constant("extra" as const),
+        field: fc.string({ minLength: 1, maxLength: 8 }).filter((k) => !(k in valid)),
+        value: junk,
+      }),
+      fc.record({
+        kind: fc.constant("cut" as const),
+        field: fc.constantFrom("backgauge", "count", "length", "turn"),
+        value: fc.oneof(junk, fc.constantFrom(-1, 0, 1e9, Number.NaN)),
+      }),
     );
     await fc.assert(
       fc.asyncProperty(fc.array(breakage, { minLength: 1, maxLength: 3 }), async (changes) => {
@@ -152,7 +218,11 @@ describe("bodies", () => {
           else if (c.kind === "extra") body[c.field] = c.value;
           else (body.cuts as Record<string, unknown>[])[0] = { ...valid.cuts[0], [c.field]: c.value };
         }
-        const res = await api().post("/api/v1/programs").set("Authorization", `Bearer ${own.key}`).set("Content-Type", "application/json").send(JSON.stringify(body));
+        const res = await api()
+          .post("/api/v1/programs")
+          .set("Authorization", `Bearer ${own.key}`)
+          .set("Content-Type", "application/json")
+          .send(JSON.stringify(body));
         if (res.status === 201) {
           // some breakages keep the program valid (e.g. a new title); then it is stored as usual
           await (await testOrm()).em.fork().nativeDelete(Program, { id: res.body.id });
@@ -161,7 +231,12 @@ describe("bodies", () => {
         expect(res.status).toBeGreaterThanOrEqual(400);
         expect(res.status).toBeLessThan(500);
         expect(res.headers["content-type"]).toMatch(/application\/problem\+json/);
-        expect(res.body).toMatchObject({ type: expect.any(String), title: expect.any(String), status: res.status, detail: expect.any(String) });
+        expect(res.body).toMatchObject({
+          type: expect.any(String),
+          title: expect.any(String),
+          status: res.status,
+          detail: expect.any(String),
+        });
       }),
       { numRuns: 60, seed: 20261201 },
     );
@@ -195,7 +270,11 @@ describe("what callers choose cannot break the request or the log", () => {
   });
 
   it("answers TRACE and other methods nothing serves with 405 problem+json and Allow", async () => {
-    for (const [method, path] of [["TRACE", "/api/v1/programs"], ["PROPFIND", "/api/v1/programs"], ["MKCOL", "/console"]]) {
+    for (const [method, path] of [
+      ["TRACE", "/api/v1/programs"],
+      ["PROPFIND", "/api/v1/programs"],
+      ["MKCOL", "/console"],
+    ]) {
       const res = await raw(method, path);
       expect(res.statusCode, method).toBe(405);
       expect(res.headers.allow).toMatch(/GET/);
@@ -208,36 +287,50 @@ describe("what callers choose cannot break the request or the log", () => {
 
   it("stops reading a chunked body at the limit: the 413 comes while the client is still sending", async () => {
     const total = 64 * 1024 * 1024;
-    const { status, sentBeforeAnswer } = await new Promise<{ status: number; sentBeforeAnswer: number }>((resolve, reject) => {
-      let sent = 0;
-      let answered = false;
-      const req = http.request(`${BASE_URL}/api/v1/programs`, { method: "POST", headers: { ...auth(), "Content-Type": "application/json" } }, (res) => {
-        answered = true;
-        res.resume();
-        resolve({ status: res.statusCode ?? 0, sentBeforeAnswer: sent });
-        req.destroy();
-      });
-      req.on("error", (err) => { if (!answered) reject(err); });
-      const chunk = Buffer.alloc(64 * 1024, "x");
-      const write = () => {
-        while (!answered && sent < total) {
-          sent += chunk.length;
-          if (!req.write(chunk)) return void req.once("drain", write);
-        }
-        if (!answered) req.end();
-      };
-      req.write('{"reference":"R","title":"');
-      write();
-    });
+    const { status, sentBeforeAnswer } = await new Promise<{ status: number; sentBeforeAnswer: number }>(
+      (resolve, reject) => {
+        let sent = 0;
+        let answered = false;
+        const req = http.request(
+          `${BASE_URL}/api/v1/programs`,
+          { method: "POST", headers: { ...auth(), "Content-Type": "application/json" } },
+          (res) => {
+            answered = true;
+            res.resume();
+            resolve({ status: res.statusCode ?? 0, sentBeforeAnswer: sent });
+            req.destroy();
+          },
+        );
+        req.on("error", (err) => {
+          if (!answered) reject(err);
+        });
+        const chunk = Buffer.alloc(64 * 1024, "x");
+        const write = () => {
+          while (!answered && sent < total) {
+            sent += chunk.length;
+            if (!req.write(chunk)) return void req.once("drain", write);
+          }
+          if (!answered) req.end();
+        };
+        req.write('{"reference":"R","title":"');
+        write();
+      },
+    );
     expect(status).toBe(413);
     expect(sentBeforeAnswer).toBeLessThan(total);
   });
 
   it("refuses NUL and broken Unicode where they arrive, naming the place", async () => {
     const body = { ...exampleProgram(shop.shearId), metadata: { line: "a\ud800b" } };
-    const res = await api().post("/api/v1/programs").set(auth()).set("Content-Type", "application/json").send(JSON.stringify(body));
+    const res = await api()
+      .post("/api/v1/programs")
+      .set(auth())
+      .set("Content-Type", "application/json")
+      .send(JSON.stringify(body));
     expect(res.status).toBe(422);
-    expect(res.body.errors).toEqual([{ location: "body", pointer: "/metadata/line", message: expect.stringMatching(/unpaired UTF-16 surrogate/) }]);
+    expect(res.body.errors).toEqual([
+      { location: "body", pointer: "/metadata/line", message: expect.stringMatching(/unpaired UTF-16 surrogate/) },
+    ]);
     const query = await api().get("/api/v1/programs?reference=a%00b").set(auth());
     expect(query.status).toBe(422);
     expect(query.body.errors[0]).toMatchObject({ location: "query", pointer: "/reference" });

@@ -7,7 +7,15 @@ import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
 import { Event, Program } from "../../entities";
 import { createProgram, releaseProgram } from "../../lib/services/programs";
 import { BASE_URL } from "../support/env";
-import { closeTestOrm, createTestShop, exampleProgram, keyFor, TEST_SHEAR, testOrm, type TestShop } from "../support/fixtures";
+import {
+  closeTestOrm,
+  createTestShop,
+  exampleProgram,
+  keyFor,
+  TEST_SHEAR,
+  testOrm,
+  type TestShop,
+} from "../support/fixtures";
 
 const api = () => request(BASE_URL);
 const bearer = (key: string) => ({ Authorization: `Bearer ${key}` });
@@ -35,7 +43,10 @@ describe("claims", () => {
       keys.map(async ({ secret }) => {
         const mine: string[] = [];
         for (;;) {
-          const res = await api().post(`/api/v1/shears/${shop.shearId}/claims`).set(bearer(secret)).send({ waitSeconds: 0 });
+          const res = await api()
+            .post(`/api/v1/shears/${shop.shearId}/claims`)
+            .set(bearer(secret))
+            .send({ waitSeconds: 0 });
           if (res.status === 204) return mine;
           expect(res.status).toBe(200);
           mine.push(res.body.program.id);
@@ -61,7 +72,9 @@ describe("claims", () => {
     const ids = await releasedPrograms(shop, spec.length, (i) => spec[i]);
     const order: string[] = [];
     for (let i = 0; i < spec.length; i++) {
-      order.push((await api().post(`/api/v1/shears/${shop.shearId}/claims`).set(bearer(shop.key)).send({})).body.program.id);
+      order.push(
+        (await api().post(`/api/v1/shears/${shop.shearId}/claims`).set(bearer(shop.key)).send({})).body.program.id,
+      );
     }
     expect(order).toEqual([ids[1], ids[3], ids[2], ids[0]]);
   });
@@ -69,7 +82,10 @@ describe("claims", () => {
   it("waits (long poll) for a program released meanwhile, and answers 204 when the wait ends empty", async () => {
     const shop = await createTestShop("longpoll");
     const started = Date.now();
-    const empty = await api().post(`/api/v1/shears/${shop.shearId}/claims`).set(bearer(shop.key)).send({ waitSeconds: 1 });
+    const empty = await api()
+      .post(`/api/v1/shears/${shop.shearId}/claims`)
+      .set(bearer(shop.key))
+      .send({ waitSeconds: 1 });
     expect(empty.status).toBe(204);
     expect(Date.now() - started).toBeGreaterThanOrEqual(900);
 
@@ -108,14 +124,25 @@ describe("leases", () => {
     await (await testOrm()).em.fork().nativeUpdate(Program, { id }, { leaseExpiresAt: new Date(Date.now() - 1000) });
 
     // the worker's sweeper notices within a few seconds
-    const p = await vi.waitFor(async () => {
-      const row = await (await testOrm()).em.fork().findOneOrFail(Program, { id }, { disableIdentityMap: true });
-      expect(row.status).toBe("released");
-      return row;
-    }, { timeout: 10_000, interval: 200 });
+    const p = await vi.waitFor(
+      async () => {
+        const row = await (await testOrm()).em.fork().findOneOrFail(Program, { id }, { disableIdentityMap: true });
+        expect(row.status).toBe("released");
+        return row;
+      },
+      { timeout: 10_000, interval: 200 },
+    );
     expect(p.leaseExpiries).toBe(1);
-    const expired = await (await testOrm()).em.fork().findOneOrFail(Event, { subjectId: id, type: "program.lease_expired" });
-    expect(expired.data).toMatchObject({ from: "running", gateway: first.key.id, reason: expect.stringMatching(/No heartbeat/) });
+    const expired = await (
+      await testOrm()
+    ).em
+      .fork()
+      .findOneOrFail(Event, { subjectId: id, type: "program.lease_expired" });
+    expect(expired.data).toMatchObject({
+      from: "running",
+      gateway: first.key.id,
+      reason: expect.stringMatching(/No heartbeat/),
+    });
 
     // the quiet gateway has lost it; the other one gets it
     const late = await api().post(`/api/v1/programs/${id}/heartbeat`).set(bearer(first.secret)).send({});
@@ -127,7 +154,10 @@ describe("leases", () => {
   it("extends the lease on heartbeat", async () => {
     const shop = await createTestShop("heartbeat");
     const [id] = await releasedPrograms(shop, 1);
-    const claim = await api().post(`/api/v1/shears/${shop.shearId}/claims`).set(bearer(shop.key)).send({ leaseSeconds: 30 });
+    const claim = await api()
+      .post(`/api/v1/shears/${shop.shearId}/claims`)
+      .set(bearer(shop.key))
+      .send({ leaseSeconds: 30 });
     const before = Date.parse(claim.body.lease.expiresAt);
     const hb = await api().post(`/api/v1/programs/${id}/heartbeat`).set(bearer(shop.key)).send({ leaseSeconds: 300 });
     expect(Date.parse(hb.body.lease.expiresAt)).toBeGreaterThan(before + 200_000);
@@ -136,7 +166,9 @@ describe("leases", () => {
 
 describe("the lifecycle", () => {
   let shop: TestShop;
-  beforeAll(async () => { shop = await createTestShop("lifecycle"); });
+  beforeAll(async () => {
+    shop = await createTestShop("lifecycle");
+  });
 
   it("refuses moves the lifecycle does not allow, answering 409 with the current state", async () => {
     const [id] = await releasedPrograms(shop, 1);
@@ -166,7 +198,11 @@ describe("the lifecycle", () => {
     const [id] = await releasedPrograms(shop, 1);
     await api().post(`/api/v1/shears/${shop.shearId}/claims`).set(bearer(shop.key)).send({}).expect(200);
     await api().post(`/api/v1/programs/${id}/start`).set(bearer(shop.key)).expect(200);
-    await api().post(`/api/v1/programs/${id}/cancel`).set(bearer(shop.key)).send({ reason: "customer changed the order" }).expect(200);
+    await api()
+      .post(`/api/v1/programs/${id}/cancel`)
+      .set(bearer(shop.key))
+      .send({ reason: "customer changed the order" })
+      .expect(200);
     const hb = await api().post(`/api/v1/programs/${id}/heartbeat`).set(bearer(shop.key)).send({});
     expect(hb.status).toBe(409);
     expect(hb.body.currentStatus).toBe("cancelled");
@@ -176,18 +212,33 @@ describe("the lifecycle", () => {
     const [id] = await releasedPrograms(shop, 1);
     await api().post(`/api/v1/shears/${shop.shearId}/claims`).set(bearer(shop.key)).send({}).expect(200);
     await api().post(`/api/v1/programs/${id}/start`).set(bearer(shop.key)).expect(200);
-    await api().post(`/api/v1/programs/${id}/progress`).set(bearer(shop.key)).send({ groupsDone: 1, strokesDone: 3 }).expect(200);
-    await api().post(`/api/v1/programs/${id}/fail`).set(bearer(shop.key)).send({ reason: "overload", message: "relief valve opened" }).expect(200);
+    await api()
+      .post(`/api/v1/programs/${id}/progress`)
+      .set(bearer(shop.key))
+      .send({ groupsDone: 1, strokesDone: 3 })
+      .expect(200);
+    await api()
+      .post(`/api/v1/programs/${id}/fail`)
+      .set(bearer(shop.key))
+      .send({ reason: "overload", message: "relief valve opened" })
+      .expect(200);
     const events = await api().get(`/api/v1/events?subject=${id}`).set(bearer(shop.key));
     expect(events.body.data.map((e: { type: string }) => e.type).reverse()).toEqual([
-      "program.created", "program.released", "program.claimed", "program.started", "program.progressed", "program.failed",
+      "program.created",
+      "program.released",
+      "program.claimed",
+      "program.started",
+      "program.progressed",
+      "program.failed",
     ]);
   });
 });
 
 describe("run reports are checked against the program", () => {
   let shop: TestShop;
-  beforeAll(async () => { shop = await createTestShop("reports"); });
+  beforeAll(async () => {
+    shop = await createTestShop("reports");
+  });
 
   async function running() {
     const [id] = await releasedPrograms(shop, 1);
@@ -199,28 +250,59 @@ describe("run reports are checked against the program", () => {
   it("refuses more pieces, strokes, groups or sheets than the program makes, naming the field and the limit", async () => {
     // The worked example: 56 blanks from 62 strokes on 2 sheets of 2 cut groups (its check says so).
     const id = await running();
-    const huge = await api().post(`/api/v1/programs/${id}/complete`).set(bearer(shop.key)).send({ goodPieces: 9_007_199_254_740_991 });
+    const huge = await api()
+      .post(`/api/v1/programs/${id}/complete`)
+      .set(bearer(shop.key))
+      .send({ goodPieces: 9_007_199_254_740_991 });
     expect(huge.status).toBe(422);
-    const tooMany = await api().post(`/api/v1/programs/${id}/complete`).set(bearer(shop.key)).send({ goodPieces: 50, scrappedPieces: 7 });
+    const tooMany = await api()
+      .post(`/api/v1/programs/${id}/complete`)
+      .set(bearer(shop.key))
+      .send({ goodPieces: 50, scrappedPieces: 7 });
     expect(tooMany.status).toBe(422);
-    expect(tooMany.body.errors[0]).toMatchObject({ pointer: "/goodPieces", message: expect.stringMatching(/is 57; the program has 56 blanks/) });
-    const sheets = await api().post(`/api/v1/programs/${id}/complete`).set(bearer(shop.key)).send({ goodPieces: 56, sheetsUsed: 3 });
-    expect(sheets.body.errors[0]).toMatchObject({ pointer: "/sheetsUsed", message: expect.stringMatching(/the program has 2 sheets/) });
-    const strokes = await api().post(`/api/v1/programs/${id}/progress`).set(bearer(shop.key)).send({ groupsDone: 5, strokesDone: 63 });
+    expect(tooMany.body.errors[0]).toMatchObject({
+      pointer: "/goodPieces",
+      message: expect.stringMatching(/is 57; the program has 56 blanks/),
+    });
+    const sheets = await api()
+      .post(`/api/v1/programs/${id}/complete`)
+      .set(bearer(shop.key))
+      .send({ goodPieces: 56, sheetsUsed: 3 });
+    expect(sheets.body.errors[0]).toMatchObject({
+      pointer: "/sheetsUsed",
+      message: expect.stringMatching(/the program has 2 sheets/),
+    });
+    const strokes = await api()
+      .post(`/api/v1/programs/${id}/progress`)
+      .set(bearer(shop.key))
+      .send({ groupsDone: 5, strokesDone: 63 });
     expect(strokes.status).toBe(422);
     expect(strokes.body.errors.map((e: { pointer: string }) => e.pointer)).toEqual(["/groupsDone", "/strokesDone"]);
     const stored = await (await testOrm()).em.fork().findOneOrFail(Program, { id });
     expect(stored.status).toBe("running");
     expect(stored.outcome ?? null).toBeNull();
-    await api().post(`/api/v1/programs/${id}/complete`).set(bearer(shop.key)).send({ goodPieces: 55, scrappedPieces: 1, sheetsUsed: 2 }).expect(200);
+    await api()
+      .post(`/api/v1/programs/${id}/complete`)
+      .set(bearer(shop.key))
+      .send({ goodPieces: 55, scrappedPieces: 1, sheetsUsed: 2 })
+      .expect(200);
   });
 
   it("lets progress only move forward", async () => {
     const id = await running();
-    await api().post(`/api/v1/programs/${id}/progress`).set(bearer(shop.key)).send({ groupsDone: 2, strokesDone: 31 }).expect(200);
-    const back = await api().post(`/api/v1/programs/${id}/progress`).set(bearer(shop.key)).send({ groupsDone: 1, strokesDone: 31 });
+    await api()
+      .post(`/api/v1/programs/${id}/progress`)
+      .set(bearer(shop.key))
+      .send({ groupsDone: 2, strokesDone: 31 })
+      .expect(200);
+    const back = await api()
+      .post(`/api/v1/programs/${id}/progress`)
+      .set(bearer(shop.key))
+      .send({ groupsDone: 1, strokesDone: 31 });
     expect(back.status).toBe(422);
-    expect(back.body.errors[0]).toMatchObject({ pointer: "/groupsDone", message: expect.stringMatching(/below the 2 reported before/) });
+    expect(back.body.errors[0]).toMatchObject({
+      pointer: "/groupsDone",
+      message: expect.stringMatching(/below the 2 reported before/),
+    });
   });
 });
-

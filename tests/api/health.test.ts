@@ -24,7 +24,10 @@ describe("landing page (real server)", () => {
     expect(res.text).toContain("Shearwire");
     expect(res.text).toContain('href="/console"');
     expect(res.text).toContain('href="/docs"');
-    await request(BASE_URL).get("/console").expect(307).expect("location", /\/signin/);
+    await request(BASE_URL)
+      .get("/console")
+      .expect(307)
+      .expect("location", /\/signin/);
     for (const href of ["/signin", "/docs", "/api/v1/health", "/logo.svg"]) {
       await request(BASE_URL).get(href).expect(200);
     }

@@ -9,7 +9,16 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { operations } from "../../lib/api/operations";
 import type { Operation } from "../../lib/api/operation";
 import { BASE_URL } from "../support/env";
-import { closeTestOrm, createTestShop, examplePlan, exampleProgram, keyFor, TEST_SHEAR, testOrm, type TestShop } from "../support/fixtures";
+import {
+  closeTestOrm,
+  createTestShop,
+  examplePlan,
+  exampleProgram,
+  keyFor,
+  TEST_SHEAR,
+  testOrm,
+  type TestShop,
+} from "../support/fixtures";
 import { startReceiver, type Receiver } from "../support/receiver";
 
 let shop: TestShop;
@@ -19,8 +28,21 @@ const ids: Record<string, string> = {};
 
 /** Strings no database column can hold, and other trouble. */
 const HOSTILE_STRINGS = [
-  "\u0000", "a\u0000b", "\u0000".repeat(50), "\ud800", "x\udfffy", "\udc00\ud800", "🙂\ud83d", "\ud83d" + "x".repeat(300),
-  "x".repeat(300), "y".repeat(5_000), "z".repeat(120_000), "'; drop table programs; --", "../../etc/passwd", "%00", "\u202e\u0000",
+  "\u0000",
+  "a\u0000b",
+  "\u0000".repeat(50),
+  "\ud800",
+  "x\udfffy",
+  "\udc00\ud800",
+  "🙂\ud83d",
+  "\ud83d" + "x".repeat(300),
+  "x".repeat(300),
+  "y".repeat(5_000),
+  "z".repeat(120_000),
+  "'; drop table programs; --",
+  "../../etc/passwd",
+  "%00",
+  "\u202e\u0000",
 ];
 const HOSTILE_NUMBERS = [1e308, -1e308, 2 ** 53 + 1, -(2 ** 63), 1e-320, 4_294_967_296, 9_007_199_254_740_991];
 
@@ -33,7 +55,13 @@ function deep(levels: number, leaf: unknown = "\u0000"): unknown {
 const hostileValue = fc.oneof(
   fc.constantFrom(...HOSTILE_STRINGS),
   fc.constantFrom(...HOSTILE_NUMBERS),
-  fc.constantFrom(deep(40), deep(3_000), Array.from({ length: 20_000 }, () => 1), { "\u0000": 1 }, { "\ud800key": "v" }),
+  fc.constantFrom(
+    deep(40),
+    deep(3_000),
+    Array.from({ length: 20_000 }, () => 1),
+    { "\u0000": 1 },
+    { "\ud800key": "v" },
+  ),
   fc.string({ unit: "binary", maxLength: 30 }).map((s) => `${s}\u0000${s}`),
   fc.string({ unit: "binary", maxLength: 30 }).map((s) => `${s}\udbff`),
 );
@@ -41,27 +69,50 @@ const hostileValue = fc.oneof(
 /** A valid body for each operation, to break in one place at a time. */
 function baseBody(op: Operation): unknown {
   switch (op.operationId) {
-    case "createProgram": case "validateProgram": return exampleProgram(shop.shearId);
-    case "updateProgram": return { title: "t", metadata: { line: "1" } };
-    case "releaseProgram": return { acknowledge: [] };
-    case "cancelProgram": return { reason: "r" };
-    case "createPlan": case "previewPlan": return examplePlan(shop.shearId);
-    case "writePlanPrograms": return { referencePrefix: "P", metadata: { a: "b" } };
-    case "claimProgram": return { waitSeconds: 0, leaseSeconds: 600 };
-    case "heartbeatProgram": return {};
-    case "reportProgress": return { groupsDone: 1, strokesDone: 1 };
-    case "completeProgram": return { goodPieces: 1 };
-    case "failProgram": return { reason: "other", message: "m" };
-    case "createWebhookEndpoint": return { url: receiver.url, description: "d" };
-    case "updateWebhookEndpoint": return { description: "d" };
-    case "rotateWebhookSecret": return { overlapHours: 1 };
-    case "resendEvent": return { endpoint: ids.endpoint };
-    case "createShear": return { ...TEST_SHEAR, name: "s" };
-    case "updateShear": return { strokesPerMin: 25 };
-    case "createGrade": return { code: "G1", name: "g", family: "carbon-steel", standard: "s", yieldMpa: 250, tensileMinMpa: 400 };
-    case "updateGrade": return { name: "g" };
-    case "setupRecommendation": return { shear: shop.shearId, grade: "A36", thickness: { value: 3 }, units: "mm" };
-    default: return {};
+    case "createProgram":
+    case "validateProgram":
+      return exampleProgram(shop.shearId);
+    case "updateProgram":
+      return { title: "t", metadata: { line: "1" } };
+    case "releaseProgram":
+      return { acknowledge: [] };
+    case "cancelProgram":
+      return { reason: "r" };
+    case "createPlan":
+    case "previewPlan":
+      return examplePlan(shop.shearId);
+    case "writePlanPrograms":
+      return { referencePrefix: "P", metadata: { a: "b" } };
+    case "claimProgram":
+      return { waitSeconds: 0, leaseSeconds: 600 };
+    case "heartbeatProgram":
+      return {};
+    case "reportProgress":
+      return { groupsDone: 1, strokesDone: 1 };
+    case "completeProgram":
+      return { goodPieces: 1 };
+    case "failProgram":
+      return { reason: "other", message: "m" };
+    case "createWebhookEndpoint":
+      return { url: receiver.url, description: "d" };
+    case "updateWebhookEndpoint":
+      return { description: "d" };
+    case "rotateWebhookSecret":
+      return { overlapHours: 1 };
+    case "resendEvent":
+      return { endpoint: ids.endpoint };
+    case "createShear":
+      return { ...TEST_SHEAR, name: "s" };
+    case "updateShear":
+      return { strokesPerMin: 25 };
+    case "createGrade":
+      return { code: "G1", name: "g", family: "carbon-steel", standard: "s", yieldMpa: 250, tensileMinMpa: 400 };
+    case "updateGrade":
+      return { name: "g" };
+    case "setupRecommendation":
+      return { shear: shop.shearId, grade: "A36", thickness: { value: 3 }, units: "mm" };
+    default:
+      return {};
   }
 }
 
@@ -94,22 +145,43 @@ const idFor = (op: Operation) => {
   return "x";
 };
 
-const HOSTILE_IDS = ["%00", "prg_%00", "a%00b", "%ED%A0%80", "%FF%FE", "x".repeat(3_000), "%F0%9F%99%82", "..%2F..%2Fetc", "%E2%80%AE"];
+const HOSTILE_IDS = [
+  "%00",
+  "prg_%00",
+  "a%00b",
+  "%ED%A0%80",
+  "%FF%FE",
+  "x".repeat(3_000),
+  "%F0%9F%99%82",
+  "..%2F..%2Fetc",
+  "%E2%80%AE",
+];
 
-type Case = { kind: "body"; where: number; value: unknown } | { kind: "extra"; key: string; value: unknown } | { kind: "whole"; value: unknown } | { kind: "query"; name: string; value: unknown } | { kind: "id"; value: string };
+type Case =
+  | { kind: "body"; where: number; value: unknown }
+  | { kind: "extra"; key: string; value: unknown }
+  | { kind: "whole"; value: unknown }
+  | { kind: "query"; name: string; value: unknown }
+  | { kind: "id"; value: string };
 
 function caseFor(op: Operation): fc.Arbitrary<Case> {
   const options: fc.Arbitrary<Case>[] = [];
   if (op.body) {
     options.push(
       fc.record({ kind: fc.constant("body" as const), where: fc.nat(), value: hostileValue }),
-      fc.record({ kind: fc.constant("extra" as const), key: fc.constantFrom("metadata", "note", "\u0000", "\udc00", "x".repeat(2_000)), value: hostileValue }),
+      fc.record({
+        kind: fc.constant("extra" as const),
+        key: fc.constantFrom("metadata", "note", "\u0000", "\udc00", "x".repeat(2_000)),
+        value: hostileValue,
+      }),
       fc.record({ kind: fc.constant("whole" as const), value: hostileValue }),
     );
   }
   if (op.query) {
     const names = [...Object.keys(op.query.shape), "cursor", "unknown\u0000"];
-    options.push(fc.record({ kind: fc.constant("query" as const), name: fc.constantFrom(...names), value: hostileValue }));
+    options.push(
+      fc.record({ kind: fc.constant("query" as const), name: fc.constantFrom(...names), value: hostileValue }),
+    );
   }
   if (op.params) options.push(fc.record({ kind: fc.constant("id" as const), value: fc.constantFrom(...HOSTILE_IDS) }));
   return fc.oneof(...options);
@@ -120,7 +192,8 @@ function requestFor(op: Operation, c: Case): { url: string; init: RequestInit } 
   if (c.kind === "id") path = op.path.replace("{id}", c.value);
   const url = new URL(`${BASE_URL}/api/v1${path}`);
   // (a URL has room for about 16 KB with its headers: longer ones are cut, as any HTTP server refuses them before the app)
-  if (c.kind === "query") url.searchParams.set(c.name, (typeof c.value === "string" ? c.value : JSON.stringify(c.value)).slice(0, 4_000));
+  if (c.kind === "query")
+    url.searchParams.set(c.name, (typeof c.value === "string" ? c.value : JSON.stringify(c.value)).slice(0, 4_000));
   const headers: Record<string, string> = { Authorization: `Bearer ${key}` };
   if (op.ifMatch) headers["If-Match"] = "*";
   let body: string | undefined;
@@ -139,24 +212,48 @@ function requestFor(op: Operation, c: Case): { url: string; init: RequestInit } 
 
 /** The shop's rows in every table a request writes to (deliveries and plan events are left out: the worker writes those, in its own time). */
 async function rowCounts(): Promise<Record<string, number>> {
-  const [row] = await (await testOrm()).em.fork().getConnection().execute<Record<string, string>[]>(
-    `select (select count(*) from programs where shop_id = ?) as programs, (select count(*) from plans where shop_id = ?) as plans,
+  const [row] = await (
+    await testOrm()
+  ).em
+    .fork()
+    .getConnection()
+    .execute<Record<string, string>[]>(
+      `select (select count(*) from programs where shop_id = ?) as programs, (select count(*) from plans where shop_id = ?) as plans,
             (select count(*) from events where shop_id = ? and type not like 'plan.%') as events, (select count(*) from webhook_endpoints where shop_id = ?) as endpoints,
             (select count(*) from shears where shop_id = ?) as shears,
             (select count(*) from grades where shop_id = ?) as grades, (select count(*) from api_keys where shop_id = ?) as keys,
             (select coalesce(sum(revision), 0) from programs where shop_id = ?) as revisions,
             (select count(*) from shears where shop_id = ? and archived_at is not null) as archived`,
-    Array(9).fill(shop.shopId),
-  );
+      Array(9).fill(shop.shopId),
+    );
   return Object.fromEntries(Object.entries(row).map(([k, v]) => [k, Number(v)]));
 }
 
 beforeAll(async () => {
   shop = await createTestShop("hostile");
-  key = (await keyFor(shop.shopId, ["programs:read", "programs:write", "programs:release", "gateway", "catalog:read", "catalog:write", "events:read", "webhooks:write"], { rateLimitPerMin: 1_000_000 })).secret;
+  key = (
+    await keyFor(
+      shop.shopId,
+      [
+        "programs:read",
+        "programs:write",
+        "programs:release",
+        "gateway",
+        "catalog:read",
+        "catalog:write",
+        "events:read",
+        "webhooks:write",
+      ],
+      { rateLimitPerMin: 1_000_000 },
+    )
+  ).secret;
   receiver = await startReceiver();
   const call = async (method: string, path: string, body?: unknown) => {
-    const res = await fetch(`${BASE_URL}/api/v1${path}`, { method, headers: { Authorization: `Bearer ${key}`, "Content-Type": "application/json" }, body: body === undefined ? undefined : JSON.stringify(body) });
+    const res = await fetch(`${BASE_URL}/api/v1${path}`, {
+      method,
+      headers: { Authorization: `Bearer ${key}`, "Content-Type": "application/json" },
+      body: body === undefined ? undefined : JSON.stringify(body),
+    });
     return res.json();
   };
   ids.shear = shop.shearId;
@@ -175,25 +272,31 @@ describe("hostile input on every operation", () => {
   const keyed = operations.filter((op) => op.scope !== null);
   let sent = 0;
 
-  it.each(keyed.map((op) => [`${op.method.toUpperCase()} ${op.path}`, op] as const))("%s: never 5xx, refusals store nothing", async (_name, op) => {
-    const write = op.method !== "get";
-    await fc.assert(
-      fc.asyncProperty(caseFor(op), async (c) => {
-        const { url, init } = requestFor(op, c);
-        const before = write ? await rowCounts() : null;
-        const res = await fetch(url, init);
-        const text = await res.text();
-        sent += 1;
-        expect(res.status, `${init.method} ${url.slice(0, 200)} answered ${res.status}: ${text.slice(0, 300)}`).toBeLessThan(500);
-        if (res.status >= 400) {
-          expect(res.headers.get("content-type")).toMatch(/application\/problem\+json/);
-          expect(text).not.toMatch(/insert into|update "|select .* from|syntax error|invalid message format/i);
-          if (before) expect(await rowCounts()).toEqual(before);
-        }
-      }),
-      { numRuns: 52, seed: 20261202 },
-    );
-  });
+  it.each(keyed.map((op) => [`${op.method.toUpperCase()} ${op.path}`, op] as const))(
+    "%s: never 5xx, refusals store nothing",
+    async (_name, op) => {
+      const write = op.method !== "get";
+      await fc.assert(
+        fc.asyncProperty(caseFor(op), async (c) => {
+          const { url, init } = requestFor(op, c);
+          const before = write ? await rowCounts() : null;
+          const res = await fetch(url, init);
+          const text = await res.text();
+          sent += 1;
+          expect(
+            res.status,
+            `${init.method} ${url.slice(0, 200)} answered ${res.status}: ${text.slice(0, 300)}`,
+          ).toBeLessThan(500);
+          if (res.status >= 400) {
+            expect(res.headers.get("content-type")).toMatch(/application\/problem\+json/);
+            expect(text).not.toMatch(/insert into|update "|select .* from|syntax error|invalid message format/i);
+            if (before) expect(await rowCounts()).toEqual(before);
+          }
+        }),
+        { numRuns: 52, seed: 20261202 },
+      );
+    },
+  );
 
   it("sent at least 2,000 requests in all", () => {
     expect(sent).toBeGreaterThanOrEqual(2_000);

@@ -22,7 +22,9 @@ describe("OpenAPI document", () => {
 
   it("is committed as generated", () => {
     expect(committed("openapi.json"), regenerate).toEqual(JSON.parse(JSON.stringify(openApiDocument())));
-    expect(committed("cut-program.schema.json"), regenerate).toEqual(JSON.parse(JSON.stringify(cutProgramJsonSchema())));
+    expect(committed("cut-program.schema.json"), regenerate).toEqual(
+      JSON.parse(JSON.stringify(cutProgramJsonSchema())),
+    );
   });
 
   it("has exactly the operations the route files export", async () => {
@@ -33,7 +35,8 @@ describe("OpenAPI document", () => {
     for (const file of routeFiles) {
       const path = `/${file.replace(/^app\//, "").replace(/\/route\.ts$/, "")}`.replace(/\[(\w+)\]/g, "{$1}");
       const mod = await import(`../../${file}`);
-      for (const method of ["GET", "POST", "PATCH", "PUT", "DELETE"]) if (mod[method]) fromFiles.push(`${method.toLowerCase()} ${path}`);
+      for (const method of ["GET", "POST", "PATCH", "PUT", "DELETE"])
+        if (mod[method]) fromFiles.push(`${method.toLowerCase()} ${path}`);
     }
     const fromDoc = Object.entries(openApiDocument().paths ?? {}).flatMap(([path, item]) =>
       Object.keys(item as object).map((method) => `${method} ${path}`),

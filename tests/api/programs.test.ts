@@ -93,7 +93,10 @@ describe("update", () => {
 
   it("checks the program again after a change", async () => {
     const { body: p } = await create(exampleProgram(shop.shearId));
-    const res = await api().patch(`/api/v1/programs/${p.id}`).set(auth()).set("If-Match", '"1"')
+    const res = await api()
+      .patch(`/api/v1/programs/${p.id}`)
+      .set(auth())
+      .set("If-Match", '"1"')
       .send({ sheet: { length: 120, width: 48, count: 5 } });
     expect(res.body.check.yield.total.blanks).toBe(140); // 28 blanks a sheet × 5 sheets
   });
@@ -101,7 +104,11 @@ describe("update", () => {
   it("refuses to change a released program (409, with its state)", async () => {
     const { body: p } = await create(exampleProgram(shop.shearId));
     await api().post(`/api/v1/programs/${p.id}/release`).set(auth()).send({}).expect(200);
-    const res = await api().patch(`/api/v1/programs/${p.id}`).set(auth()).set("If-Match", '"2"').send({ title: "late" });
+    const res = await api()
+      .patch(`/api/v1/programs/${p.id}`)
+      .set(auth())
+      .set("If-Match", '"2"')
+      .send({ title: "late" });
     expect(res.status).toBe(409);
     expect(res.body.currentStatus).toBe("released");
   });
@@ -109,7 +116,11 @@ describe("update", () => {
   it("refuses to take another program's reference", async () => {
     const a = await create(exampleProgram(shop.shearId, "REF-A"));
     const b = await create(exampleProgram(shop.shearId, "REF-B"));
-    const res = await api().patch(`/api/v1/programs/${b.body.id}`).set(auth()).set("If-Match", '"1"').send({ reference: "REF-A" });
+    const res = await api()
+      .patch(`/api/v1/programs/${b.body.id}`)
+      .set(auth())
+      .set("If-Match", '"1"')
+      .send({ reference: "REF-A" });
     expect(res.status).toBe(409);
     expect(res.body.existingId).toBe(a.body.id);
   });
@@ -171,13 +182,18 @@ describe("list", () => {
     const own = await createTestShop("paging");
     const ids: string[] = [];
     for (let i = 0; i < 5; i++) {
-      const r = await api().post("/api/v1/programs").set("Authorization", `Bearer ${own.key}`).send(exampleProgram(own.shearId));
+      const r = await api()
+        .post("/api/v1/programs")
+        .set("Authorization", `Bearer ${own.key}`)
+        .send(exampleProgram(own.shearId));
       ids.push(r.body.id);
     }
     const seen: string[] = [];
     let cursor: string | null = null;
     do {
-      const res: request.Response = await api().get(`/api/v1/programs?limit=2${cursor ? `&cursor=${cursor}` : ""}`).set("Authorization", `Bearer ${own.key}`);
+      const res: request.Response = await api()
+        .get(`/api/v1/programs?limit=2${cursor ? `&cursor=${cursor}` : ""}`)
+        .set("Authorization", `Bearer ${own.key}`);
       expect(res.body.data.length).toBeLessThanOrEqual(2);
       seen.push(...res.body.data.map((p: { id: string }) => p.id));
       cursor = res.body.next_cursor;
@@ -188,7 +204,9 @@ describe("list", () => {
   it("filters by status and updated_since, and refuses a forged cursor", async () => {
     const since = new Date().toISOString();
     const { body: p } = await create(exampleProgram(shop.shearId));
-    const res = await api().get(`/api/v1/programs?status=draft&updated_since=${encodeURIComponent(since)}`).set(auth());
+    const res = await api()
+      .get(`/api/v1/programs?status=draft&updated_since=${encodeURIComponent(since)}`)
+      .set(auth());
     expect(res.body.data.map((x: { id: string }) => x.id)).toContain(p.id);
     expect(res.body.data.every((x: { status: string }) => x.status === "draft")).toBe(true);
     const bad = await api().get("/api/v1/programs?cursor=not-a-cursor").set(auth());
@@ -202,13 +220,26 @@ describe("list", () => {
 
 describe("request log", () => {
   it("logs key, route, status, latency and idempotency key, never the secret or body", async () => {
-    const res = await api().post("/api/v1/programs").set(auth()).set("Idempotency-Key", "log-check-1").send(exampleProgram(shop.shearId, "LOG-SECRET-REF"));
+    const res = await api()
+      .post("/api/v1/programs")
+      .set(auth())
+      .set("Idempotency-Key", "log-check-1")
+      .send(exampleProgram(shop.shearId, "LOG-SECRET-REF"));
     const id = res.headers["x-request-id"];
     expect(id).toMatch(/^req_/);
     const em = (await testOrm()).em.fork();
     // rows are written in batches a fraction of a second after the response
-    const row = await vi.waitFor(() => em.findOneOrFail(RequestLog, { id }, { disableIdentityMap: true }), { timeout: 5000, interval: 100 });
-    expect(row).toMatchObject({ shopId: shop.shopId, method: "POST", route: "/api/v1/programs", status: 201, idempotencyKey: "log-check-1" });
+    const row = await vi.waitFor(() => em.findOneOrFail(RequestLog, { id }, { disableIdentityMap: true }), {
+      timeout: 5000,
+      interval: 100,
+    });
+    expect(row).toMatchObject({
+      shopId: shop.shopId,
+      method: "POST",
+      route: "/api/v1/programs",
+      status: 201,
+      idempotencyKey: "log-check-1",
+    });
     expect(row.latencyMs).toBeGreaterThan(0);
     const raw = JSON.stringify(await em.getConnection().execute("select * from request_logs where id = ?", [id]));
     expect(raw).not.toContain(shop.key);
@@ -221,7 +252,10 @@ describe("request log", () => {
   });
 
   it("sends no-store and a request id on every authenticated response, errors included", async () => {
-    for (const r of [await api().get("/api/v1/programs").set(auth()), await api().get("/api/v1/programs/prg_x").set(auth())]) {
+    for (const r of [
+      await api().get("/api/v1/programs").set(auth()),
+      await api().get("/api/v1/programs/prg_x").set(auth()),
+    ]) {
       expect(r.headers["cache-control"]).toBe("no-store");
       expect(r.headers["x-request-id"]).toMatch(/^req_/);
     }

@@ -5,12 +5,21 @@
  */
 import request from "supertest";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { SCOPES } from "../../entities/ApiKey";
+import { SCOPES } from "../../lib/schemas/enums";
 import type { Operation } from "../../lib/api/operation";
 import { operations } from "../../lib/api/operations";
 import { revokeKey } from "../../lib/services/keys";
 import { BASE_URL } from "../support/env";
-import { closeTestOrm, createTestShop, examplePlan, exampleProgram, keyFor, TEST_SHEAR, testOrm, type TestShop } from "../support/fixtures";
+import {
+  closeTestOrm,
+  createTestShop,
+  examplePlan,
+  exampleProgram,
+  keyFor,
+  TEST_SHEAR,
+  testOrm,
+  type TestShop,
+} from "../support/fixtures";
 import { expectDocumented } from "../support/openapi";
 
 let mine: TestShop;
@@ -43,7 +52,14 @@ function bodyFor(op: Operation): object | undefined {
     case "updateShear":
       return { strokesPerMin: 20 };
     case "createGrade":
-      return { code: `G${Date.now()}${Math.floor(Math.random() * 1000)}`, name: "x", family: "carbon-steel", standard: "test", yieldMpa: 250, tensileMinMpa: 400 };
+      return {
+        code: `G${Date.now()}${Math.floor(Math.random() * 1000)}`,
+        name: "x",
+        family: "carbon-steel",
+        standard: "test",
+        yieldMpa: 250,
+        tensileMinMpa: 400,
+      };
     case "updateGrade":
       return { note: "changed" };
     case "recommendSetup":
@@ -89,11 +105,23 @@ beforeAll(async () => {
     request(BASE_URL).post(path).set("Authorization", `Bearer ${theirs.key}`).send(body).expect(201);
   foreign.prg = (await post("/api/v1/programs", exampleProgram(theirs.shearId))).body.id;
   foreign.shr = theirs.shearId;
-  foreign.pln = (await request(BASE_URL).post("/api/v1/plans").set("Authorization", `Bearer ${theirs.key}`).send(examplePlan(theirs.shearId)).expect(202)).body.id;
-  const grades = await request(BASE_URL).get("/api/v1/grades?limit=1").set("Authorization", `Bearer ${theirs.key}`).expect(200);
+  foreign.pln = (
+    await request(BASE_URL)
+      .post("/api/v1/plans")
+      .set("Authorization", `Bearer ${theirs.key}`)
+      .send(examplePlan(theirs.shearId))
+      .expect(202)
+  ).body.id;
+  const grades = await request(BASE_URL)
+    .get("/api/v1/grades?limit=1")
+    .set("Authorization", `Bearer ${theirs.key}`)
+    .expect(200);
   foreign.grd = grades.body.data[0].id;
   foreign.whe = (await post("/api/v1/webhook-endpoints", { url: "http://127.0.0.1:9/theirs" })).body.endpoint.id;
-  const events = await request(BASE_URL).get("/api/v1/events?limit=1").set("Authorization", `Bearer ${theirs.key}`).expect(200);
+  const events = await request(BASE_URL)
+    .get("/api/v1/events?limit=1")
+    .set("Authorization", `Bearer ${theirs.key}`)
+    .expect(200);
   foreign.evt = events.body.data[0].id;
 });
 afterAll(closeTestOrm);
@@ -117,7 +145,14 @@ describe.each(secured.map((op) => [op.operationId, op] as const))("%s", (_name, 
 
   if (op.path.includes("{id}")) {
     it("answers 404 for another shop's object, saying nothing about it", async () => {
-      const prefixes: [string, string][] = [["/programs", "prg"], ["/plans", "pln"], ["/shears", "shr"], ["/grades", "grd"], ["/webhook-endpoints", "whe"], ["/events", "evt"]];
+      const prefixes: [string, string][] = [
+        ["/programs", "prg"],
+        ["/plans", "pln"],
+        ["/shears", "shr"],
+        ["/grades", "grd"],
+        ["/webhook-endpoints", "whe"],
+        ["/events", "evt"],
+      ];
       const prefix = prefixes.find(([p]) => op.path.startsWith(p))![1];
       const res = await call(op, pathFor(op, foreign[prefix]), mine.key);
       expectDocumented(op, res);

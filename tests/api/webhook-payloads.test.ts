@@ -8,13 +8,13 @@ import request from "supertest";
 import { Webhook } from "standardwebhooks";
 import { afterAll, describe, expect, it, vi } from "vitest";
 import { Program } from "../../entities";
-import { finishPlan } from "../../lib/queue/plan-jobs";
+import { finishPlan } from "../../lib/worker/plan-jobs";
 import { EVENT_TYPES } from "../../lib/schemas/enums";
 import { createPlan } from "../../lib/services/plans";
 import { BASE_URL } from "../support/env";
 import { closeTestOrm, createTestShop, examplePlan, exampleProgram, testOrm } from "../support/fixtures";
 import { doc, expectDocumentedWebhook } from "../support/openapi";
-import { largestOrder } from "../support/orders";
+import { largestOrder } from "../../scripts/lib/orders";
 import { startReceiver, type Receiver } from "../support/receiver";
 
 const api = () => request(BASE_URL);
@@ -42,18 +42,31 @@ describe("webhook payloads", () => {
     // created, updated, released, claimed, started, progressed, completed
     const created = await api().post("/api/v1/programs").set(auth).send(exampleProgram(shop.shearId)).expect(201);
     const a = created.body.id as string;
-    await api().patch(`/api/v1/programs/${a}`).set(auth).set("If-Match", created.headers.etag).send({ title: "Side panels (rev B)" }).expect(200);
+    await api()
+      .patch(`/api/v1/programs/${a}`)
+      .set(auth)
+      .set("If-Match", created.headers.etag)
+      .send({ title: "Side panels (rev B)" })
+      .expect(200);
     await api().post(`/api/v1/programs/${a}/release`).set(auth).send({}).expect(200);
     await api().post(`/api/v1/shears/${shop.shearId}/claims`).set(auth).send({}).expect(200);
     await api().post(`/api/v1/programs/${a}/start`).set(auth).expect(200);
     await api().post(`/api/v1/programs/${a}/progress`).set(auth).send({ groupsDone: 1, strokesDone: 5 }).expect(200);
-    await api().post(`/api/v1/programs/${a}/complete`).set(auth).send({ goodPieces: 56, scrappedPieces: 0 }).expect(200);
+    await api()
+      .post(`/api/v1/programs/${a}/complete`)
+      .set(auth)
+      .send({ goodPieces: 56, scrappedPieces: 0 })
+      .expect(200);
 
     // failed
     const b = (await api().post("/api/v1/programs").set(auth).send(exampleProgram(shop.shearId)).expect(201)).body.id;
     await api().post(`/api/v1/programs/${b}/release`).set(auth).send({}).expect(200);
     await api().post(`/api/v1/shears/${shop.shearId}/claims`).set(auth).send({}).expect(200);
-    await api().post(`/api/v1/programs/${b}/fail`).set(auth).send({ reason: "overload", message: "relief valve opened" }).expect(200);
+    await api()
+      .post(`/api/v1/programs/${b}/fail`)
+      .set(auth)
+      .send({ reason: "overload", message: "relief valve opened" })
+      .expect(200);
 
     // cancelled
     const c = (await api().post("/api/v1/programs").set(auth).send(exampleProgram(shop.shearId)).expect(201)).body.id;
@@ -75,13 +88,20 @@ describe("webhook payloads", () => {
     const em = (await testOrm()).em.fork();
     const failing = await createPlan(em, shop.shopId, examplePlan(shop.shearId), { queue: false });
     await em.getConnection().execute("update plans set status = 'running', attempts = 1 where id = ?", [failing.id]);
-    await finishPlan(em.fork(), failing.id, { kind: "failed", reason: "time_limit", message: "The plan took longer than this install's limit of 60 s and was stopped." });
+    await finishPlan(em.fork(), failing.id, {
+      kind: "failed",
+      reason: "time_limit",
+      message: "The plan took longer than this install's limit of 60 s and was stopped.",
+    });
 
-    const received = await vi.waitFor(() => {
-      const types = new Set(receiver!.received.map((r) => JSON.parse(r.body).type));
-      expect([...types].sort()).toEqual([...EVENT_TYPES].sort());
-      return receiver!.received;
-    }, { timeout: 30_000, interval: 200 });
+    const received = await vi.waitFor(
+      () => {
+        const types = new Set(receiver!.received.map((r) => JSON.parse(r.body).type));
+        expect([...types].sort()).toEqual([...EVENT_TYPES].sort());
+        return receiver!.received;
+      },
+      { timeout: 30_000, interval: 200 },
+    );
 
     const verifier = new Webhook(secret.replace(/^whsec_/, ""));
     for (const r of received) {

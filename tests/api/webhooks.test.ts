@@ -24,7 +24,11 @@ async function setup(respond?: Responder, endpoint: object = {}) {
   const shop = await createTestShop("hooks");
   const receiver = await startReceiver(respond);
   receivers.push(receiver);
-  const created = await api().post("/api/v1/webhook-endpoints").set(bearer(shop)).send({ url: receiver.url, ...endpoint }).expect(201);
+  const created = await api()
+    .post("/api/v1/webhook-endpoints")
+    .set(bearer(shop))
+    .send({ url: receiver.url, ...endpoint })
+    .expect(201);
   return { shop, receiver, endpointId: created.body.endpoint.id as string, secret: created.body.secret as string };
 }
 
@@ -42,9 +46,17 @@ async function endpointRow(id: string) {
 describe("delivery", () => {
   it("sends each event as a Standard Webhooks request that the standardwebhooks package verifies", async () => {
     const { shop, receiver, secret } = await setup();
-    const program = await api().post("/api/v1/programs").set(bearer(shop)).send(exampleProgram(shop.shearId)).expect(201);
+    const program = await api()
+      .post("/api/v1/programs")
+      .set(bearer(shop))
+      .send(exampleProgram(shop.shearId))
+      .expect(201);
     const [req] = await receiver.waitFor(1);
-    const payload = verifier(secret).verify(req.body, headersOf(req)) as { type: string; timestamp: string; data: { program: { id: string } } };
+    const payload = verifier(secret).verify(req.body, headersOf(req)) as {
+      type: string;
+      timestamp: string;
+      data: { program: { id: string } };
+    };
     expect(payload.type).toBe("program.created");
     expect(payload.data.program.id).toBe(program.body.id);
     expect(Date.parse(payload.timestamp)).not.toBeNaN();
@@ -52,7 +64,9 @@ describe("delivery", () => {
     expect(req.headers["webhook-id"]).toBe(events.body.data[0].id);
     expect(req.headers["content-type"]).toBe("application/json");
     // a tampered body does not verify
-    expect(() => verifier(secret).verify(req.body.replace("program.created", "program.completed"), headersOf(req))).toThrow();
+    expect(() =>
+      verifier(secret).verify(req.body.replace("program.created", "program.completed"), headersOf(req)),
+    ).toThrow();
   });
 
   it("sends only the event types an endpoint chose", async () => {
@@ -66,28 +80,41 @@ describe("delivery", () => {
   });
 
   it("retries on the schedule with the same webhook-id and logs every attempt", async () => {
-    const { shop, receiver, endpointId } = await setup((_r, n) => (n < 3 ? { status: 500, body: "receiver down" } : { status: 200, body: "ok", headers: { "X-Receiver": "erp-test" } }));
+    const { shop, receiver, endpointId } = await setup((_r, n) =>
+      n < 3
+        ? { status: 500, body: "receiver down" }
+        : { status: 200, body: "ok", headers: { "X-Receiver": "erp-test" } },
+    );
     await api().post(`/api/v1/webhook-endpoints/${endpointId}/test`).set(bearer(shop)).expect(202);
     const reqs = await receiver.waitFor(3);
     expect(new Set(reqs.map((r) => r.headers["webhook-id"])).size).toBe(1);
     // schedule ×0.001 in tests: 5 s → 5 ms, 5 min → 300 ms (each ±10 %)
     expect(reqs[2].at - reqs[1].at).toBeGreaterThanOrEqual(250);
-    const deliveries = await vi.waitFor(async () => {
-      const res = await api().get(`/api/v1/webhook-endpoints/${endpointId}/deliveries`).set(bearer(shop));
-      expect(res.body.data[0].status).toBe("succeeded");
-      return res.body.data;
-    }, { timeout: 5000 });
+    const deliveries = await vi.waitFor(
+      async () => {
+        const res = await api().get(`/api/v1/webhook-endpoints/${endpointId}/deliveries`).set(bearer(shop));
+        expect(res.body.data[0].status).toBe("succeeded");
+        return res.body.data;
+      },
+      { timeout: 5000 },
+    );
     expect(deliveries[0].attemptLog.map((a: { statusCode: number }) => a.statusCode)).toEqual([500, 500, 200]);
     expect(deliveries[0].attemptLog[0].responseExcerpt).toBe("receiver down");
     // Every attempt keeps what was sent (signature included) and what came back.
     const last = deliveries[0].attemptLog[2];
-    expect(last.requestHeaders).toMatchObject({ "webhook-id": reqs[2].headers["webhook-id"], "webhook-signature": reqs[2].headers["webhook-signature"], "content-type": "application/json" });
+    expect(last.requestHeaders).toMatchObject({
+      "webhook-id": reqs[2].headers["webhook-id"],
+      "webhook-signature": reqs[2].headers["webhook-signature"],
+      "content-type": "application/json",
+    });
     expect(last.responseHeaders).toMatchObject({ "x-receiver": "erp-test" });
     expect((await endpointRow(endpointId)).consecutiveFailures).toBe(0);
   });
 
   it("honours Retry-After", async () => {
-    const { shop, receiver, endpointId } = await setup((_r, n) => (n === 1 ? { status: 503, headers: { "Retry-After": "2" } } : { status: 204 }));
+    const { shop, receiver, endpointId } = await setup((_r, n) =>
+      n === 1 ? { status: 503, headers: { "Retry-After": "2" } } : { status: 204 },
+    );
     await api().post(`/api/v1/webhook-endpoints/${endpointId}/test`).set(bearer(shop)).expect(202);
     const reqs = await receiver.waitFor(2);
     expect(reqs[1].at - reqs[0].at).toBeGreaterThanOrEqual(1900); // the schedule alone would wait ~5 ms
@@ -117,12 +144,15 @@ describe("delivery", () => {
     await api().post(`/api/v1/webhook-endpoints/${endpointId}/test`).set(bearer(shop)).expect(202);
     await receiver.waitFor(3); // the test install disables after 3 failed attempts in a row
     await vi.waitFor(async () => expect((await endpointRow(endpointId)).enabled).toBe(false), { timeout: 5000 });
-    const mail = await vi.waitFor(async () => {
-      const inbox = (await (await fetch(INBOX_URL)).json()) as { to: string[]; subject: string; text: string }[];
-      const found = inbox.find((m) => m.text.includes(endpointId));
-      expect(found).toBeDefined();
-      return found!;
-    }, { timeout: 10_000, interval: 200 });
+    const mail = await vi.waitFor(
+      async () => {
+        const inbox = (await (await fetch(INBOX_URL)).json()) as { to: string[]; subject: string; text: string }[];
+        const found = inbox.find((m) => m.text.includes(endpointId));
+        expect(found).toBeDefined();
+        return found!;
+      },
+      { timeout: 10_000, interval: 200 },
+    );
     expect(mail.to.sort()).toEqual([...shop.admins].sort()); // owner and admin, not the viewer
     expect(mail.subject).toContain(receiver.url);
     // later events are not sent to a disabled endpoint
@@ -149,7 +179,11 @@ describe("delivery", () => {
 describe("secret rotation", () => {
   it("signs with both secrets during the overlap, and with the new one only after", async () => {
     const { shop, receiver, endpointId, secret: oldSecret } = await setup();
-    const rotated = await api().post(`/api/v1/webhook-endpoints/${endpointId}/rotate-secret`).set(bearer(shop)).send({ overlapHours: 24 }).expect(200);
+    const rotated = await api()
+      .post(`/api/v1/webhook-endpoints/${endpointId}/rotate-secret`)
+      .set(bearer(shop))
+      .send({ overlapHours: 24 })
+      .expect(200);
     const newSecret = rotated.body.secret as string;
     expect(newSecret).not.toBe(oldSecret);
     await api().post(`/api/v1/webhook-endpoints/${endpointId}/test`).set(bearer(shop)).expect(202);
@@ -159,7 +193,11 @@ describe("secret rotation", () => {
     expect(() => verifier(newSecret).verify(during.body, headersOf(during))).not.toThrow();
 
     // end the overlap: rotate again with none
-    const again = await api().post(`/api/v1/webhook-endpoints/${endpointId}/rotate-secret`).set(bearer(shop)).send({ overlapHours: 0 }).expect(200);
+    const again = await api()
+      .post(`/api/v1/webhook-endpoints/${endpointId}/rotate-secret`)
+      .set(bearer(shop))
+      .send({ overlapHours: 0 })
+      .expect(200);
     await api().post(`/api/v1/webhook-endpoints/${endpointId}/test`).set(bearer(shop)).expect(202);
     const [, after] = await receiver.waitFor(2);
     expect(String(after.headers["webhook-signature"]).split(" ")).toHaveLength(1);

@@ -7,7 +7,18 @@ import { describe, expect, it } from "vitest";
 import { createElement } from "react";
 import { renderToStaticMarkup } from "react-dom/server";
 import { CutDrawing } from "../../components/console/CutDrawing";
-import { checkProgram, findGrade, lengthFromMm, programLayout, simulateFlow, type CheckResult, type CutProgram, type FlowCut, type GradeProfile, type Rect } from "@/lib/shear";
+import {
+  checkProgram,
+  findGrade,
+  lengthFromMm,
+  programLayout,
+  simulateFlow,
+  type CheckResult,
+  type CutProgram,
+  type FlowCut,
+  type GradeProfile,
+  type Rect,
+} from "@/lib/shear";
 import { DEMO_SHEAR, PROGRAM_FIXTURES, WORKED_EXAMPLE } from "../shear/fixtures";
 
 interface Drawn {
@@ -21,9 +32,15 @@ interface Drawn {
 }
 
 /** The rectangles and lines the component actually rendered, read back from its SVG. */
-function drawn(program: CutProgram, check: CheckResult): { rects: Drawn[]; lines: Array<{ group: number; dashed: boolean }> } {
-  const markup = renderToStaticMarkup(createElement(CutDrawing, { sheet: program.sheet, layout: check.layout, units: program.units }));
-  const attribute = (tag: string, name: string): string | null => new RegExp(`${name}="([^"]*)"`).exec(tag)?.[1] ?? null;
+function drawn(
+  program: CutProgram,
+  check: CheckResult,
+): { rects: Drawn[]; lines: Array<{ group: number; dashed: boolean }> } {
+  const markup = renderToStaticMarkup(
+    createElement(CutDrawing, { sheet: program.sheet, layout: check.layout, units: program.units }),
+  );
+  const attribute = (tag: string, name: string): string | null =>
+    new RegExp(`${name}="([^"]*)"`).exec(tag)?.[1] ?? null;
   const rects = [...markup.matchAll(/<rect [^>]*data-kind="[^"]*"[^>]*>/g)].map(([tag]) => ({
     kind: attribute(tag, "data-kind") as string,
     group: Number(attribute(tag, "data-group")),
@@ -41,10 +58,15 @@ function drawn(program: CutProgram, check: CheckResult): { rects: Drawn[]; lines
 }
 
 /** Sizes as sorted "short×long" keys with counts, rounded to the report's decimals. */
-function sizeCounts(items: ReadonlyArray<{ a: number; b: number; count: number; group: number }>, decimals: number): Map<string, number> {
+function sizeCounts(
+  items: ReadonlyArray<{ a: number; b: number; count: number; group: number }>,
+  decimals: number,
+): Map<string, number> {
   const counts = new Map<string, number>();
   for (const item of items) {
-    const [short, long] = [item.a, item.b].sort((first, second) => first - second).map((value) => value.toFixed(decimals));
+    const [short, long] = [item.a, item.b]
+      .sort((first, second) => first - second)
+      .map((value) => value.toFixed(decimals));
     const key = `${item.group}:${short}×${long}`;
     counts.set(key, (counts.get(key) ?? 0) + item.count);
   }
@@ -74,20 +96,44 @@ describe("the drawing draws the piece flow's rectangles, for every program fixtu
       const fromMm = (mm: number): number => lengthFromMm(mm, units);
 
       // The same flow, run on its own (not placed), at the same tolerance as the check.
-      const flow = simulateFlow({ lengthMm: toMm(program.sheet.length), widthMm: toMm(program.sheet.width) }, program.cuts.map((cut) => toFlowCut(cut, toMm)));
+      const flow = simulateFlow(
+        { lengthMm: toMm(program.sheet.length), widthMm: toMm(program.sheet.width) },
+        program.cuts.map((cut) => toFlowCut(cut, toMm)),
+      );
       const scrapGroups = new Set(program.cuts.flatMap((cut, index) => (cut.scrap ? [index] : [])));
-      const flowSizes = (list: readonly Rect[]) => list.map((rect) => ({ a: fromMm(rect.widthMm), b: fromMm(rect.lengthMm), count: rect.count, group: rect.group }));
-      const drawnSizes = (kinds: string[]) => rects.filter((rect) => kinds.includes(rect.kind)).map((rect) => ({ a: rect.width, b: rect.height, count: 1, group: rect.group }));
+      const flowSizes = (list: readonly Rect[]) =>
+        list.map((rect) => ({
+          a: fromMm(rect.widthMm),
+          b: fromMm(rect.lengthMm),
+          count: rect.count,
+          group: rect.group,
+        }));
+      const drawnSizes = (kinds: string[]) =>
+        rects
+          .filter((rect) => kinds.includes(rect.kind))
+          .map((rect) => ({ a: rect.width, b: rect.height, count: 1, group: rect.group }));
 
       // Blanks: same sizes, groups and counts as the flow, and as the yield printed beside the drawing.
       expect(sizeCounts(drawnSizes(["blank"]), decimals)).toEqual(sizeCounts(flowSizes(flow.blanks), decimals));
       expect(rects.filter((rect) => rect.kind === "blank")).toHaveLength(check.yield?.perSheet.blanks ?? -1);
       // Offcut (left over) and scrap together: the flow's offcuts, and the yield's offcut pieces.
-      const flowScrap = flow.offcuts.filter((rect) => scrapGroups.has(rect.group) && flow.groups[rect.group]?.piecesBecome === "offcut");
+      const flowScrap = flow.offcuts.filter(
+        (rect) => scrapGroups.has(rect.group) && flow.groups[rect.group]?.piecesBecome === "offcut",
+      );
       expect(rects.filter((rect) => rect.kind !== "blank")).toHaveLength(check.yield?.perSheet.offcutPieces ?? -1);
-      expect(rects.filter((rect) => rect.kind === "scrap").length).toBeLessThanOrEqual(flowScrap.reduce((total, rect) => total + rect.count, 0));
-      expect(sizeCounts(drawnSizes(["offcut", "scrap"]).map((size) => ({ ...size, group: 0 })), decimals)).toEqual(
-        sizeCounts(flowSizes(flow.offcuts).map((size) => ({ ...size, group: 0 })), decimals),
+      expect(rects.filter((rect) => rect.kind === "scrap").length).toBeLessThanOrEqual(
+        flowScrap.reduce((total, rect) => total + rect.count, 0),
+      );
+      expect(
+        sizeCounts(
+          drawnSizes(["offcut", "scrap"]).map((size) => ({ ...size, group: 0 })),
+          decimals,
+        ),
+      ).toEqual(
+        sizeCounts(
+          flowSizes(flow.offcuts).map((size) => ({ ...size, group: 0 })),
+          decimals,
+        ),
       );
 
       // The rectangles tile the sheet: inside it, no overlaps, areas adding up to it (a shear has no kerf).
@@ -107,12 +153,16 @@ describe("the drawing draws the piece flow's rectangles, for every program fixtu
           const b = rects[second];
           const overlapX = Math.min(a.x + a.width, b.x + b.width) - Math.max(a.x, b.x);
           const overlapY = Math.min(a.y + a.height, b.y + b.height) - Math.max(a.y, b.y);
-          expect(overlapX <= slack || overlapY <= slack, `${name}: rectangles ${first} and ${second} overlap`).toBe(true);
+          expect(overlapX <= slack || overlapY <= slack, `${name}: rectangles ${first} and ${second} overlap`).toBe(
+            true,
+          );
         }
       }
 
       // One line per stroke that cut (partial strokes dashed); strokes that cut nothing draw none.
-      const partialStrokes = flow.groups.filter((group) => group.partial).reduce((total, group) => total + group.strokes, 0);
+      const partialStrokes = flow.groups
+        .filter((group) => group.partial)
+        .reduce((total, group) => total + group.strokes, 0);
       expect(lines.filter((line) => line.dashed)).toHaveLength(partialStrokes);
       const beyondStrokes = flow.groups.reduce((total, group) => total + (group.beyond?.strokes ?? 0), 0);
       expect(lines.filter((line) => !line.dashed)).toHaveLength(flow.strokes - partialStrokes - beyondStrokes);
@@ -136,7 +186,10 @@ describe("the cut-program worked example in our API docs", () => {
   });
 
   it("numbers strokes in cutting order: rips first, then each strip's crosscuts", () => {
-    const strokes = rects.filter((rect) => rect.kind === "blank").map((rect) => rect.stroke as number).sort((a, b) => a - b);
+    const strokes = rects
+      .filter((rect) => rect.kind === "blank")
+      .map((rect) => rect.stroke as number)
+      .sort((a, b) => a - b);
     expect(strokes[0]).toBe(4); // strokes 1–3 are the rips
     expect(strokes[strokes.length - 1]).toBe(31); // worked example: 31 strokes per sheet
   });
@@ -147,16 +200,24 @@ describe("partial strokes and the remnant rule, which the old drawing got wrong"
     const program = PROGRAM_FIXTURES["partial strokes"];
     const { rects, lines } = drawn(program, checkProgram(program, { shear: DEMO_SHEAR, grade: grade("A36") }));
     expect(rects).toEqual([expect.objectContaining({ kind: "offcut", x: 0, y: 0, width: 1000, height: 500 })]); // our piece-flow rule: partial strokes sever nothing
-    expect(lines).toEqual([{ group: 0, dashed: true }, { group: 0, dashed: true }]);
+    expect(lines).toEqual([
+      { group: 0, dashed: true },
+      { group: 0, dashed: true },
+    ]);
   });
 
   it("a remnant within the machine's repeatability is a blank, outside it offcut", () => {
     const program = PROGRAM_FIXTURES["remnant within the tolerance"];
     const loose = checkProgram(program, { shear: DEMO_SHEAR, grade: grade("A36") });
-    const tight = checkProgram(program, { shear: { ...DEMO_SHEAR, backgaugeRepeatabilityMm: 0.02 }, grade: grade("A36") });
+    const tight = checkProgram(program, {
+      shear: { ...DEMO_SHEAR, backgaugeRepeatabilityMm: 0.02 },
+      grade: grade("A36"),
+    });
     expect(drawn(program, loose).rects.filter((rect) => rect.kind === "blank")).toHaveLength(3); // 100.05 within ±0.1 mm of 100
     expect(drawn(program, tight).rects.filter((rect) => rect.kind === "blank")).toHaveLength(2); // not within ±0.02 mm
-    expect(drawn(program, tight).rects.filter((rect) => rect.kind === "blank")).toHaveLength(tight.yield?.perSheet.blanks ?? -1);
+    expect(drawn(program, tight).rects.filter((rect) => rect.kind === "blank")).toHaveLength(
+      tight.yield?.perSheet.blanks ?? -1,
+    );
   });
 
   it("a check stored without a layout is drawn from the program by the same flow", () => {

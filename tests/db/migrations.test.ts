@@ -13,9 +13,13 @@ beforeAll(async () => {
 afterAll(async () => orm?.close(true));
 
 const tables = async () =>
-  (await orm.em.getConnection().execute<{ table_name: string }[]>(
-    "select table_name from information_schema.tables where table_schema = 'public' order by table_name",
-  )).map((r) => r.table_name);
+  (
+    await orm.em
+      .getConnection()
+      .execute<{ table_name: string }[]>(
+        "select table_name from information_schema.tables where table_schema = 'public' order by table_name",
+      )
+  ).map((r) => r.table_name);
 
 describe("migrations", () => {
   it("run up from an empty database, in the order listed in code", async () => {

@@ -39,7 +39,12 @@ describe("demo seed", () => {
     const demo = await seedDemo(orm.em.fork());
     const plan = await orm.em.fork().findOneOrFail(Plan, { id: demo.plan.id });
     expect(plan.status).toBe("complete");
-    const result = plan.result as { coverage: string; findings: unknown[]; stock: { count: number | null; used: number }[]; summary: { short: number } };
+    const result = plan.result as {
+      coverage: string;
+      findings: unknown[];
+      stock: { count: number | null; used: number }[];
+      summary: { short: number };
+    };
     expect(result.coverage).toBe("complete");
     expect(result.summary.short).toBe(0);
     for (const s of result.stock) if (s.count !== null) expect(s.used).toBeLessThanOrEqual(s.count);

@@ -10,7 +10,14 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { createProgram } from "../../lib/services/programs";
 import { launch, SCREENSHOTS } from "../support/browser";
 import { BASE_URL, INBOX_URL } from "../support/env";
-import { closeTestOrm, createTestShop, exampleProgram, TEST_PASSWORD, testOrm, type TestShop } from "../support/fixtures";
+import {
+  closeTestOrm,
+  createTestShop,
+  exampleProgram,
+  TEST_PASSWORD,
+  testOrm,
+  type TestShop,
+} from "../support/fixtures";
 import { startReceiver, type Receiver } from "../support/receiver";
 
 let browser: Browser;
@@ -37,7 +44,8 @@ async function signIn(page: Page, email: string) {
   await page.waitForURL(`${BASE_URL}/console`);
 }
 
-const shot = (page: Page, name: string) => page.screenshot({ path: path.join(SCREENSHOTS, `console-${name}.png`), fullPage: true });
+const shot = (page: Page, name: string) =>
+  page.screenshot({ path: path.join(SCREENSHOTS, `console-${name}.png`), fullPage: true });
 
 describe("the console", () => {
   it("sends a visitor without a session to sign-in, and refuses a wrong password", async () => {
@@ -74,7 +82,10 @@ describe("the console", () => {
     await row.getByRole("button", { name: "Revoke key Browser test key" }).click();
     await row.waitFor({ state: "detached" }); // revoked keys are hidden unless asked for
     await page.getByRole("link", { name: /Show 1 revoked key/ }).click();
-    await page.getByRole("row", { name: /Browser test key/ }).getByText("revoked").waitFor();
+    await page
+      .getByRole("row", { name: /Browser test key/ })
+      .getByText("revoked")
+      .waitFor();
     await shot(page, "keys");
     await request(BASE_URL).get("/api/v1/shears").set("Authorization", `Bearer ${secret}`).expect(401);
     await page.close();
@@ -101,7 +112,12 @@ describe("the console", () => {
     await page.goto(`${BASE_URL}/console/events`);
     await page.getByTestId("event-row").filter({ hasText: "endpoint.test" }).first().waitFor();
     await shot(page, "events");
-    await page.getByTestId("event-row").filter({ hasText: "endpoint.test" }).first().getByRole("link", { name: /^evt_/ }).click();
+    await page
+      .getByTestId("event-row")
+      .filter({ hasText: "endpoint.test" })
+      .first()
+      .getByRole("link", { name: /^evt_/ })
+      .click();
     await page.getByText("Deliveries and their attempts").waitFor();
     expect(await page.getByRole("cell", { name: receiver.url }).count()).toBeGreaterThan(0);
     await shot(page, "event");
@@ -149,9 +165,23 @@ describe("the console", () => {
     const form = page.locator("form", { hasText: "Rated thickness" });
     const fill = async (label: string, value: string) => form.getByLabel(label, { exact: false }).first().fill(value);
     await fill("Name", "Bay 5 light shear");
-    for (const [label, value] of [["Rated thickness", "3"], ["Rated at tensile", "414"], ["Rated at rake", "1"], ["Blade length", "2500"],
-      ["Backgauge from", "600"], ["Backgauge to", "500"], ["Rake from", "0.5"], ["Rake to", "2"], ["Blade gap from", "0.02"], ["Blade gap to", "0.5"],
-      ["Strokes", "40"], ["Backgauge speed", "200"], ["Handling per turn", "5"], ["Handling per sheet", "20"]] as const) await fill(label, value);
+    for (const [label, value] of [
+      ["Rated thickness", "3"],
+      ["Rated at tensile", "414"],
+      ["Rated at rake", "1"],
+      ["Blade length", "2500"],
+      ["Backgauge from", "600"],
+      ["Backgauge to", "500"],
+      ["Rake from", "0.5"],
+      ["Rake to", "2"],
+      ["Blade gap from", "0.02"],
+      ["Blade gap to", "0.5"],
+      ["Strokes", "40"],
+      ["Backgauge speed", "200"],
+      ["Handling per turn", "5"],
+      ["Handling per sheet", "20"],
+    ] as const)
+      await fill(label, value);
     await form.getByRole("button", { name: "Add" }).click();
     await form.getByText("must not exceed backgaugeMaxMm").waitFor(); // the range rule of the shear schema
     await fill("Backgauge from", "5");
@@ -197,25 +227,40 @@ describe("the console", () => {
   it("uploads a CSV cut list: one bad row is shown and nothing is imported; fixed, it imports", async () => {
     const page = await browser.newPage({ viewport: { width: 1400, height: 900 } });
     await signIn(page, shop.admins[0]);
-    const header = "reference,title,shear,grade,thickness,gauge,units,sheet_length,sheet_width,sheet_count,backgauge,count,length,turn,scrap,note,priority,due_at";
+    const header =
+      "reference,title,shear,grade,thickness,gauge,units,sheet_length,sheet_width,sheet_count,backgauge,count,length,turn,scrap,note,priority,due_at";
     const good = (ref: string) => [
       `${ref},Brackets,${shop.shearId},A36,,10,in,120,48,1,12,3,,,,rips,5,`,
       `${ref},,,,,,,,,,16,7,12,yes,,,,`,
     ];
-    const bad = [header, ...good("UP-1"), `UP-2,Plates,${shop.shearId},A36,0.25,,in,96,48,1,twelve,2,,,,,,`, ...good("UP-3")].join("\n");
+    const bad = [
+      header,
+      ...good("UP-1"),
+      `UP-2,Plates,${shop.shearId},A36,0.25,,in,96,48,1,twelve,2,,,,,,`,
+      ...good("UP-3"),
+    ].join("\n");
     await page.goto(`${BASE_URL}/console/upload`);
-    await page.setInputFiles("input[type=file]", { name: "cut-list.csv", mimeType: "text/csv", buffer: Buffer.from(bad) });
+    await page.setInputFiles("input[type=file]", {
+      name: "cut-list.csv",
+      mimeType: "text/csv",
+      buffer: Buffer.from(bad),
+    });
     await page.getByRole("button", { name: "Check and import" }).click();
     const errors = page.getByTestId("upload-errors");
     await errors.waitFor();
     expect(await errors.textContent()).toMatch(/row 4 · backgauge: "twelve" is not a number/);
     await shot(page, "upload-errors");
     const { Program } = await import("../../entities");
-    const count = () => testOrm().then((o) => o.em.fork().count(Program, { shop: shop.shopId, reference: { $like: "UP-%" } }));
+    const count = () =>
+      testOrm().then((o) => o.em.fork().count(Program, { shop: shop.shopId, reference: { $like: "UP-%" } }));
     expect(await count()).toBe(0);
 
     const fixed = [header, ...good("UP-1"), ...good("UP-3")].join("\n");
-    await page.setInputFiles("input[type=file]", { name: "cut-list.csv", mimeType: "text/csv", buffer: Buffer.from(fixed) });
+    await page.setInputFiles("input[type=file]", {
+      name: "cut-list.csv",
+      mimeType: "text/csv",
+      buffer: Buffer.from(fixed),
+    });
     await page.getByRole("button", { name: "Check and import" }).click();
     await page.getByTestId("upload-created").waitFor();
     expect(await count()).toBe(2);
@@ -234,7 +279,11 @@ describe("the console", () => {
     await page.getByLabel("Thickness", { exact: true }).fill("3");
     await page.getByLabel(/Stock on hand/).fill("2500, 1250, 4\n3000, 1500");
     const bad = "label,length,width,quantity,can_turn\nbase,600,400,10,yes\nside,450,three hundred,12,yes\n";
-    await page.setInputFiles("input[type=file]", { name: "blanks.csv", mimeType: "text/csv", buffer: Buffer.from(bad) });
+    await page.setInputFiles("input[type=file]", {
+      name: "blanks.csv",
+      mimeType: "text/csv",
+      buffer: Buffer.from(bad),
+    });
     await page.getByRole("button", { name: "Plan", exact: true }).click();
     const errors = page.getByTestId("plan-errors");
     await errors.waitFor();
@@ -244,7 +293,11 @@ describe("the console", () => {
     expect(await page.getByLabel(/paste its rows/).inputValue()).toContain("three hundred"); // the file's rows, to fix in place
 
     const good = "label,length,width,quantity,can_turn\nbase,600,400,10,yes\nside,450,300,12,yes\ntab,250,150,30,no\n";
-    await page.setInputFiles("input[type=file]", { name: "blanks.csv", mimeType: "text/csv", buffer: Buffer.from(good) });
+    await page.setInputFiles("input[type=file]", {
+      name: "blanks.csv",
+      mimeType: "text/csv",
+      buffer: Buffer.from(good),
+    });
     await page.getByLabel(/Trim the first edge by/).fill("5");
     await page.getByRole("button", { name: "Plan", exact: true }).click();
     await page.waitForURL(/\/console\/plans\/pln_/);
@@ -255,7 +308,9 @@ describe("the console", () => {
     await page.getByRole("button", { name: /Write \d+ draft program/ }).click();
     await page.getByTestId("plan-programs").waitFor();
     const planId = page.url().split("/").pop()!;
-    const written = await testOrm().then((o) => o.em.fork().find(Program, { shop: shop.shopId, metadata: { plan: planId } }));
+    const written = await testOrm().then((o) =>
+      o.em.fork().find(Program, { shop: shop.shopId, metadata: { plan: planId } }),
+    );
     expect(written.length).toBeGreaterThan(0);
     expect(written.every((p) => p.reference.startsWith("E2E-PLAN/") && p.status === "draft")).toBe(true);
     await page.goto(`${BASE_URL}/console/plans`);
@@ -307,7 +362,7 @@ describe("the console", () => {
     await signIn(page, shop.admins[1]);
     await page.goto(`${BASE_URL}/console/keys`);
     await page.getByLabel("Name").fill("Made by a viewer");
-    await page.locator("input[name=scopes][value=\"programs:read\"]").check();
+    await page.locator('input[name=scopes][value="programs:read"]').check();
     // …then, in the same browser, the session becomes a viewer's.
     const other = await context.newPage();
     await other.goto(`${BASE_URL}/console`);

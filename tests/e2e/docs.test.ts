@@ -10,8 +10,12 @@ import { BASE_URL } from "../support/env";
 import { launch, SCREENSHOTS } from "../support/browser";
 
 let browser: Browser;
-beforeAll(async () => { browser = await launch(); });
-afterAll(async () => { await browser?.close(); });
+beforeAll(async () => {
+  browser = await launch();
+});
+afterAll(async () => {
+  await browser?.close();
+});
 
 describe("/docs", () => {
   it("loads its script from this server, with no fonts or assistant", async () => {

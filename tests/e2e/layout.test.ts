@@ -10,7 +10,14 @@ import request from "supertest";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { launch, SCREENSHOTS } from "../support/browser";
 import { BASE_URL } from "../support/env";
-import { closeTestOrm, createTestShop, examplePlan, exampleProgram, TEST_PASSWORD, type TestShop } from "../support/fixtures";
+import {
+  closeTestOrm,
+  createTestShop,
+  examplePlan,
+  exampleProgram,
+  TEST_PASSWORD,
+  type TestShop,
+} from "../support/fixtures";
 
 let browser: Browser;
 let shop: TestShop;
@@ -28,18 +35,37 @@ beforeAll(async () => {
   const auth = { Authorization: `Bearer ${shop.key}` };
   const api = () => request(BASE_URL);
   const program = (await api().post("/api/v1/programs").set(auth).send(exampleProgram(shop.shearId)).expect(201)).body;
-  const plan = (await api().post("/api/v1/plans").set(auth).set("Prefer", "wait=10").send(examplePlan(shop.shearId)).expect(201)).body;
-  await api().post("/api/v1/webhook-endpoints").set(auth).send({ url: "http://localhost:9/hook", description: "ERP receiver" }).expect(201);
+  const plan = (
+    await api().post("/api/v1/plans").set(auth).set("Prefer", "wait=10").send(examplePlan(shop.shearId)).expect(201)
+  ).body;
+  await api()
+    .post("/api/v1/webhook-endpoints")
+    .set(auth)
+    .send({ url: "http://localhost:9/hook", description: "ERP receiver" })
+    .expect(201);
   const event = (await api().get(`/api/v1/events?subject=${program.id}`).set(auth)).body.data[0];
   const grade = (await api().get("/api/v1/grades?limit=1").set(auth)).body.data[0];
   const log = (await api().get("/api/v1/shears").set(auth)).headers["x-request-id"];
   await new Promise((r) => setTimeout(r, 800)); // the request log is written in batches
   Object.assign(pages, {
-    overview: "/console", programs: "/console/programs", program: `/console/programs/${program.id}`, plans: "/console/plans",
-    "plan-new": "/console/plans/new", plan: `/console/plans/${plan.id}`, upload: "/console/upload", keys: "/console/keys",
-    webhooks: "/console/webhooks", events: "/console/events", event: `/console/events/${event.id}`, logs: "/console/logs",
-    log: `/console/logs/${log}`, shears: "/console/shears", shear: `/console/shears/${shop.shearId}`, grades: "/console/grades",
-    grade: `/console/grades/${grade.id}`, team: "/console/team",
+    overview: "/console",
+    programs: "/console/programs",
+    program: `/console/programs/${program.id}`,
+    plans: "/console/plans",
+    "plan-new": "/console/plans/new",
+    plan: `/console/plans/${plan.id}`,
+    upload: "/console/upload",
+    keys: "/console/keys",
+    webhooks: "/console/webhooks",
+    events: "/console/events",
+    event: `/console/events/${event.id}`,
+    logs: "/console/logs",
+    log: `/console/logs/${log}`,
+    shears: "/console/shears",
+    shear: `/console/shears/${shop.shearId}`,
+    grades: "/console/grades",
+    grade: `/console/grades/${grade.id}`,
+    team: "/console/team",
   });
 });
 afterAll(async () => {
@@ -102,7 +128,12 @@ describe("accessibility", () => {
       await page.locator("main h1").first().waitFor();
       const result = await new AxeBuilder({ page }).withTags(["wcag2a", "wcag2aa", "wcag21a", "wcag21aa"]).analyze();
       for (const v of result.violations.filter((x) => x.impact === "serious" || x.impact === "critical")) {
-        found.push(`${label}: ${v.id} (${v.impact}) ${v.nodes.slice(0, 3).map((n) => n.target.join(" ")).join(" | ")}`);
+        found.push(
+          `${label}: ${v.id} (${v.impact}) ${v.nodes
+            .slice(0, 3)
+            .map((n) => n.target.join(" "))
+            .join(" | ")}`,
+        );
       }
     }
     expect(found).toEqual([]);

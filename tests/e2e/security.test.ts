@@ -32,7 +32,8 @@ async function signIn(page: Page, email: string, callbackUrl?: string) {
 }
 
 /** What a leaked database error looks like in a page: the ORM's statements, PostgreSQL's messages, secrets. */
-const SQL = /insert into "|update "[a-z_]+" set|select "[a-z]|delete from "|whsec_|violates|syntax error|invalid message format|token_hash/i;
+const SQL =
+  /insert into "|update "[a-z_]+" set|select "[a-z]|delete from "|whsec_|violates|syntax error|invalid message format|token_hash/i;
 
 describe("sessions", () => {
   it("refuses a session token once its person signed out", async () => {
@@ -63,17 +64,20 @@ describe("sessions", () => {
 });
 
 describe("after sign-in", () => {
-  it.each(["https://other.example/", "//other.example/x", "/\\other.example", "javascript:alert(1)", "https:other.example"])(
-    "stays inside the console when callbackUrl is %s",
-    async (callbackUrl) => {
-      const context = await browser.newContext();
-      const page = await context.newPage();
-      await signIn(page, shop.admins[0], callbackUrl);
-      await page.waitForURL((url) => url.pathname.startsWith("/console"));
-      expect(new URL(page.url()).origin).toBe(BASE_URL);
-      await context.close();
-    },
-  );
+  it.each([
+    "https://other.example/",
+    "//other.example/x",
+    "/\\other.example",
+    "javascript:alert(1)",
+    "https:other.example",
+  ])("stays inside the console when callbackUrl is %s", async (callbackUrl) => {
+    const context = await browser.newContext();
+    const page = await context.newPage();
+    await signIn(page, shop.admins[0], callbackUrl);
+    await page.waitForURL((url) => url.pathname.startsWith("/console"));
+    expect(new URL(page.url()).origin).toBe(BASE_URL);
+    await context.close();
+  });
 
   it("follows a callbackUrl on this site", async () => {
     const context = await browser.newContext();
@@ -96,8 +100,11 @@ describe("console forms", () => {
 
     await page.goto(`${BASE_URL}/console/keys`);
     const longName = "k".repeat(300);
-    await page.getByLabel("Name").evaluate((el, v) => { (el as HTMLInputElement).removeAttribute("maxlength"); (el as HTMLInputElement).value = v; }, longName);
-    await page.locator("input[name=scopes][value=\"programs:read\"]").check();
+    await page.getByLabel("Name").evaluate((el, v) => {
+      (el as HTMLInputElement).removeAttribute("maxlength");
+      (el as HTMLInputElement).value = v;
+    }, longName);
+    await page.locator('input[name=scopes][value="programs:read"]').check();
     await page.getByRole("button", { name: "Create key" }).click();
     await page.locator("#key-name-error").waitFor();
     expect(await page.locator("#key-name-error").textContent()).toMatch(/100/);
@@ -106,13 +113,20 @@ describe("console forms", () => {
 
     await page.goto(`${BASE_URL}/console/webhooks`);
     await page.getByLabel("URL").fill("https://erp.example/hooks");
-    await page.getByLabel("Description").evaluate((el) => { (el as HTMLInputElement).value = "before\u0000after"; });
+    await page.getByLabel("Description").evaluate((el) => {
+      (el as HTMLInputElement).value = "before\u0000after";
+    });
     await page.getByRole("button", { name: "Add endpoint" }).click();
     await page.getByRole("alert").filter({ hasText: /NUL/ }).first().waitFor();
     expect(await page.getByLabel("URL").inputValue()).toBe("https://erp.example/hooks");
     expect(await page.content()).not.toMatch(SQL);
 
-    for (const url of ["javascript:alert(1)", "file:///etc/passwd", `https://erp.example/${"p".repeat(5000)}`, "http://10.1.2.3/hook"]) {
+    for (const url of [
+      "javascript:alert(1)",
+      "file:///etc/passwd",
+      `https://erp.example/${"p".repeat(5000)}`,
+      "http://10.1.2.3/hook",
+    ]) {
       await page.getByLabel("URL").fill(url);
       await page.getByLabel("Description").fill("d");
       await page.getByRole("button", { name: "Add endpoint" }).click();
@@ -141,7 +155,11 @@ describe("console forms", () => {
       el.appendChild(option);
     }, other.shearId);
     await page.getByRole("button", { name: "Create key" }).click();
-    await page.getByRole("alert").filter({ hasText: /no shear in use with that id/ }).first().waitFor();
+    await page
+      .getByRole("alert")
+      .filter({ hasText: /no shear in use with that id/ })
+      .first()
+      .waitFor();
     expect(await page.locator("[data-testid=secret]").count()).toBe(0);
     await context.close();
   });
@@ -165,7 +183,9 @@ describe("headers", () => {
     // No script is refused by the policy on the sign-in page or the reference.
     const page = await browser.newPage();
     const refused: string[] = [];
-    page.on("console", (m) => { if (/Content Security Policy/i.test(m.text())) refused.push(m.text()); });
+    page.on("console", (m) => {
+      if (/Content Security Policy/i.test(m.text())) refused.push(m.text());
+    });
     await page.goto(`${BASE_URL}/signin`);
     await page.getByLabel("E-mail").waitFor();
     await page.goto(`${BASE_URL}/docs`);
@@ -176,41 +196,52 @@ describe("headers", () => {
 });
 
 describe("sign-in throttling", () => {
-  it("slows an account down after repeated wrong passwords, says so, and records each attempt", { timeout: 90_000 }, async () => {
-    // Start from a clean count for this machine's address (earlier runs against the same Redis may have added to it).
-    const redis = new Redis(REDIS_URL);
-    const stale = await redis.keys("shearwire:signin:address:*");
-    if (stale.length) await redis.del(...stale);
-    await redis.quit();
-    const target = await createTestShop("throttle");
-    const email = target.admins[0];
-    const context = await browser.newContext();
-    const page = await context.newPage();
-    await page.goto(`${BASE_URL}/signin`);
-    const wrong = () => testOrm().then((o) => o.em.fork().count(SignInAttempt, { email, outcome: "wrong-password" }));
-    for (let i = 0; i < SIGN_IN_LIMITS.perAccount; i++) {
+  it(
+    "slows an account down after repeated wrong passwords, says so, and records each attempt",
+    { timeout: 90_000 },
+    async () => {
+      // Start from a clean count for this machine's address (earlier runs against the same Redis may have added to it).
+      const redis = new Redis(REDIS_URL);
+      const stale = await redis.keys("shearwire:signin:address:*");
+      if (stale.length) await redis.del(...stale);
+      await redis.quit();
+      const target = await createTestShop("throttle");
+      const email = target.admins[0];
+      const context = await browser.newContext();
+      const page = await context.newPage();
+      await page.goto(`${BASE_URL}/signin`);
+      const wrong = () => testOrm().then((o) => o.em.fork().count(SignInAttempt, { email, outcome: "wrong-password" }));
+      for (let i = 0; i < SIGN_IN_LIMITS.perAccount; i++) {
+        await page.getByLabel("E-mail").fill(email);
+        await page.getByLabel("Password").fill(`wrong-${i}`);
+        const answered = page.waitForResponse((r) => r.url().includes("/api/auth/callback/credentials"));
+        await page.getByRole("button", { name: "Sign in" }).click();
+        await answered;
+        // Each wrong password is counted on the server before the next one goes.
+        for (let t = 0; t < 100 && (await wrong()) < i + 1; t++) await new Promise((r) => setTimeout(r, 100));
+        expect(await wrong(), `wrong passwords recorded after attempt ${i + 1}`).toBe(i + 1);
+        await page.getByRole("button", { name: "Sign in" }).and(page.locator(":enabled")).waitFor();
+      }
+      // Now even the right password is refused, with a clear message.
       await page.getByLabel("E-mail").fill(email);
-      await page.getByLabel("Password").fill(`wrong-${i}`);
+      await page.getByLabel("Password").fill(TEST_PASSWORD);
       const answered = page.waitForResponse((r) => r.url().includes("/api/auth/callback/credentials"));
       await page.getByRole("button", { name: "Sign in" }).click();
-      await answered;
-      // Each wrong password is counted on the server before the next one goes.
-      for (let t = 0; t < 100 && (await wrong()) < i + 1; t++) await new Promise((r) => setTimeout(r, 100));
-      expect(await wrong(), `wrong passwords recorded after attempt ${i + 1}`).toBe(i + 1);
-      await page.getByRole("button", { name: "Sign in" }).and(page.locator(":enabled")).waitFor();
-    }
-    // Now even the right password is refused, with a clear message.
-    await page.getByLabel("E-mail").fill(email);
-    await page.getByLabel("Password").fill(TEST_PASSWORD);
-    const answered = page.waitForResponse((r) => r.url().includes("/api/auth/callback/credentials"));
-    await page.getByRole("button", { name: "Sign in" }).click();
-    expect((await answered).status()).toBe(401);
-    await page.getByRole("alert").filter({ hasText: /Too many failed sign-ins for this account\. Try again in \d+ minutes?/ }).waitFor({ timeout: 10_000 })
-      .catch(async (err) => { throw new Error(`${err.message}; alerts: ${JSON.stringify(await page.getByRole("alert").allTextContents())}, at ${page.url()}`); });
-    expect(page.url()).toMatch(/\/signin/);
-    const attempts = await (await testOrm()).em.fork().find(SignInAttempt, { email });
-    expect(attempts.filter((a) => a.outcome === "wrong-password")).toHaveLength(SIGN_IN_LIMITS.perAccount);
-    expect(attempts.filter((a) => a.outcome === "throttled")).toHaveLength(1);
-    await context.close();
-  });
+      expect((await answered).status()).toBe(401);
+      await page
+        .getByRole("alert")
+        .filter({ hasText: /Too many failed sign-ins for this account\. Try again in \d+ minutes?/ })
+        .waitFor({ timeout: 10_000 })
+        .catch(async (err) => {
+          throw new Error(
+            `${err.message}; alerts: ${JSON.stringify(await page.getByRole("alert").allTextContents())}, at ${page.url()}`,
+          );
+        });
+      expect(page.url()).toMatch(/\/signin/);
+      const attempts = await (await testOrm()).em.fork().find(SignInAttempt, { email });
+      expect(attempts.filter((a) => a.outcome === "wrong-password")).toHaveLength(SIGN_IN_LIMITS.perAccount);
+      expect(attempts.filter((a) => a.outcome === "throttled")).toHaveLength(1);
+      await context.close();
+    },
+  );
 });

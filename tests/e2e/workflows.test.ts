@@ -11,7 +11,14 @@ import { Membership, User } from "../../entities";
 import { createProgram } from "../../lib/services/programs";
 import { launch } from "../support/browser";
 import { BASE_URL } from "../support/env";
-import { closeTestOrm, createTestShop, exampleProgram, TEST_PASSWORD, testOrm, type TestShop } from "../support/fixtures";
+import {
+  closeTestOrm,
+  createTestShop,
+  exampleProgram,
+  TEST_PASSWORD,
+  testOrm,
+  type TestShop,
+} from "../support/fixtures";
 import { startReceiver, type Receiver } from "../support/receiver";
 
 let browser: Browser;
@@ -45,7 +52,10 @@ describe("forms", () => {
     await page.goto(`${BASE_URL}/console/keys`);
     await page.getByLabel("Name").fill("Nightly export");
     await page.getByRole("button", { name: "Create key" }).click(); // no scope ticked
-    await page.getByText(/at least one scope/i).first().waitFor();
+    await page
+      .getByText(/at least one scope/i)
+      .first()
+      .waitFor();
     expect(await page.getByLabel("Name").inputValue()).toBe("Nightly export");
 
     await page.goto(`${BASE_URL}/console/webhooks`);
@@ -63,7 +73,10 @@ describe("programs", () => {
   it("asks before releasing, naming the shear, and a program with errors says how many and what to do", async () => {
     const em = (await testOrm()).em.fork();
     const good = await createProgram(em, shop.shopId, exampleProgram(shop.shearId));
-    const bad = await createProgram(em.fork(), shop.shopId, { ...exampleProgram(shop.shearId), thickness: { value: 0.5 } }); // 12.7 mm: over the test shear's 6.35 mm
+    const bad = await createProgram(em.fork(), shop.shopId, {
+      ...exampleProgram(shop.shearId),
+      thickness: { value: 0.5 },
+    }); // 12.7 mm: over the test shear's 6.35 mm
     expect(bad.validation).toBe("fail");
     const page = await signIn(shop.admins[0]);
 
@@ -101,7 +114,10 @@ describe("programs", () => {
     for (const n of [2, 3]) {
       await page.getByRole("button", { name: "Older programs →" }).and(page.locator(":enabled")).click();
       await page.getByText(`Page ${n}`).waitFor();
-      await page.getByTestId("program-row").filter({ hasText: references[100 - 50 * (n - 1)] }).waitFor(); // the page's newest row
+      await page
+        .getByTestId("program-row")
+        .filter({ hasText: references[100 - 50 * (n - 1)] })
+        .waitFor(); // the page's newest row
     }
     await page.getByTestId("program-row").filter({ hasText: references[0] }).waitFor(); // the oldest, the 101st from the top
     expect(await page.getByTestId("program-row").count()).toBe(1);
@@ -127,7 +143,11 @@ describe("uploads", () => {
       "BY-NAME-1,By name,test SHEAR,A36,,10,in,120,48,2,12,3,,,,,,",
       "BY-NAME-1,,,,,,,,,,16,7,12,yes,,,,",
     ].join("\n");
-    await page.setInputFiles("input[type=file]", { name: "by-name.csv", mimeType: "text/csv", buffer: Buffer.from(csv) });
+    await page.setInputFiles("input[type=file]", {
+      name: "by-name.csv",
+      mimeType: "text/csv",
+      buffer: Buffer.from(csv),
+    });
     await page.getByRole("button", { name: "Check and import" }).click();
     await page.getByTestId("upload-created").waitFor();
     expect(await page.getByTestId("upload-created").textContent()).toMatch(/1 draft program created/);
@@ -138,7 +158,13 @@ describe("uploads", () => {
 describe("webhook deliveries", () => {
   it("open each attempt to the headers and body sent and the answer received", async () => {
     const auth = { Authorization: `Bearer ${shop.key}` };
-    const endpoint = (await request(BASE_URL).post("/api/v1/webhook-endpoints").set(auth).send({ url: receiver.url, description: "Inspection receiver" }).expect(201)).body.endpoint;
+    const endpoint = (
+      await request(BASE_URL)
+        .post("/api/v1/webhook-endpoints")
+        .set(auth)
+        .send({ url: receiver.url, description: "Inspection receiver" })
+        .expect(201)
+    ).body.endpoint;
     receiver.respond = () => ({ status: 202, headers: { "X-Receiver": "inspected" }, body: "thanks" });
     await request(BASE_URL).post(`/api/v1/webhook-endpoints/${endpoint.id}/test`).set(auth).expect(202);
     await receiver.waitFor(1);
@@ -170,13 +196,17 @@ describe("a developer", () => {
     await em.flush();
     const page = await signIn(shop.viewer);
     await page.goto(`${BASE_URL}/console/keys`);
-    expect(await page.locator("input[name=scopes][value=\"programs:write\"]").count()).toBe(0);
+    expect(await page.locator('input[name=scopes][value="programs:write"]').count()).toBe(0);
     await page.getByLabel("Name").fill("My reads");
     await page.getByRole("button", { name: "Read-only" }).click();
     await page.getByRole("button", { name: "Create key" }).click();
     const secret = (await page.getByTestId("secret").textContent())!;
     await request(BASE_URL).get("/api/v1/programs").set("Authorization", `Bearer ${secret}`).expect(200);
-    await request(BASE_URL).post("/api/v1/programs").set("Authorization", `Bearer ${secret}`).send(exampleProgram(shop.shearId)).expect(403);
+    await request(BASE_URL)
+      .post("/api/v1/programs")
+      .set("Authorization", `Bearer ${secret}`)
+      .send(exampleProgram(shop.shearId))
+      .expect(403);
     await page.context().close();
   });
 });

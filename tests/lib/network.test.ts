@@ -3,8 +3,15 @@ import type { AddressInfo } from "node:net";
 import { lookup } from "node:dns/promises";
 import { hostname } from "node:os";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { BlockedAddressError, isPublicAddress, LOOPBACK_ONLY, parseAllowList, pinnedLookup, resolveReceiver } from "../../lib/network";
-import { post } from "../../lib/queue/deliver";
+import {
+  BlockedAddressError,
+  isPublicAddress,
+  LOOPBACK_ONLY,
+  parseAllowList,
+  pinnedLookup,
+  resolveReceiver,
+} from "../../lib/network";
+import { post } from "../../lib/worker/deliver";
 
 const hosted = parseAllowList("");
 const loopback = parseAllowList(LOOPBACK_ONLY);
@@ -12,9 +19,17 @@ const loopback = parseAllowList(LOOPBACK_ONLY);
 // Address ranges as the IANA special-purpose registries define them (RFC 6890 and successors).
 describe("outbound address check", () => {
   it.each([
-    ["127.0.0.1", "loopback"], ["10.1.2.3", "private (RFC 1918)"], ["172.16.0.5", "private (RFC 1918)"], ["192.168.1.10", "private (RFC 1918)"],
-    ["169.254.169.254", "link-local, cloud metadata"], ["100.64.0.1", "carrier-grade NAT (RFC 6598)"], ["0.0.0.0", "unspecified"],
-    ["224.0.0.1", "multicast"], ["::1", "IPv6 loopback"], ["fc00::1", "IPv6 unique local"], ["fe80::1", "IPv6 link-local"],
+    ["127.0.0.1", "loopback"],
+    ["10.1.2.3", "private (RFC 1918)"],
+    ["172.16.0.5", "private (RFC 1918)"],
+    ["192.168.1.10", "private (RFC 1918)"],
+    ["169.254.169.254", "link-local, cloud metadata"],
+    ["100.64.0.1", "carrier-grade NAT (RFC 6598)"],
+    ["0.0.0.0", "unspecified"],
+    ["224.0.0.1", "multicast"],
+    ["::1", "IPv6 loopback"],
+    ["fc00::1", "IPv6 unique local"],
+    ["fe80::1", "IPv6 link-local"],
     ["::ffff:127.0.0.1", "IPv4-mapped loopback"],
   ])("refuses %s (%s) on a hosted install", async (address) => {
     expect(isPublicAddress(address)).toBe(false);
@@ -23,35 +38,58 @@ describe("outbound address check", () => {
   });
 
   it("refuses a name that resolves to loopback, after DNS", async () => {
-    await expect(resolveReceiver(new URL("http://localhost:8080/hook"), hosted)).rejects.toThrow(/resolves to .*non-public/);
+    await expect(resolveReceiver(new URL("http://localhost:8080/hook"), hosted)).rejects.toThrow(
+      /resolves to .*non-public/,
+    );
   });
 
   it("accepts public addresses", async () => {
     for (const a of ["93.184.216.34", "8.8.8.8", "2606:4700:4700::1111"]) expect(isPublicAddress(a)).toBe(true);
-    await expect(resolveReceiver(new URL("http://8.8.8.8/hook"), hosted)).resolves.toEqual([{ address: "8.8.8.8", family: 4 }]);
+    await expect(resolveReceiver(new URL("http://8.8.8.8/hook"), hosted)).resolves.toEqual([
+      { address: "8.8.8.8", family: 4 },
+    ]);
   });
 
   it("allows private receivers only as the install lists them: ranges, names and wildcards", async () => {
     const lan = parseAllowList("192.168.1.0/24, erp.shop.lan, *.plant.lan");
-    await expect(resolveReceiver(new URL("http://192.168.1.10/hook"), lan)).resolves.toEqual([{ address: "192.168.1.10", family: 4 }]);
-    await expect(resolveReceiver(new URL("http://192.168.2.10/hook"), lan)).rejects.toThrow(/not on this install's list/);
-    await expect(resolveReceiver(new URL("http://10.0.0.1/hook"), lan)).rejects.toThrow(/SHEARWIRE_PRIVATE_RECEIVERS = 192\.168\.1\.0\/24/);
+    await expect(resolveReceiver(new URL("http://192.168.1.10/hook"), lan)).resolves.toEqual([
+      { address: "192.168.1.10", family: 4 },
+    ]);
+    await expect(resolveReceiver(new URL("http://192.168.2.10/hook"), lan)).rejects.toThrow(
+      /not on this install's list/,
+    );
+    await expect(resolveReceiver(new URL("http://10.0.0.1/hook"), lan)).rejects.toThrow(
+      /SHEARWIRE_PRIVATE_RECEIVERS = 192\.168\.1\.0\/24/,
+    );
     // The demo's list is loopback only: the LAN stays closed.
     await expect(resolveReceiver(new URL("http://127.0.0.1:9/hook"), loopback)).resolves.toHaveLength(1);
-    await expect(resolveReceiver(new URL("http://192.168.1.10/hook"), loopback)).rejects.toBeInstanceOf(BlockedAddressError);
+    await expect(resolveReceiver(new URL("http://192.168.1.10/hook"), loopback)).rejects.toBeInstanceOf(
+      BlockedAddressError,
+    );
     // Unspecified and multicast addresses are never receivers, whatever the list says.
-    await expect(resolveReceiver(new URL("http://0.0.0.0/hook"), parseAllowList("0.0.0.0/0"))).rejects.toThrow(/never receive/);
+    await expect(resolveReceiver(new URL("http://0.0.0.0/hook"), parseAllowList("0.0.0.0/0"))).rejects.toThrow(
+      /never receive/,
+    );
     expect(() => parseAllowList("not a host!")).toThrow(/neither a host name nor an address range/);
   });
 
   it("answers Node's lookup in both of its shapes, with checked addresses only", () => {
-    const lookupFn = pinnedLookup([{ address: "127.0.0.1", family: 4 }, { address: "::1", family: 6 }]);
+    const lookupFn = pinnedLookup([
+      { address: "127.0.0.1", family: 4 },
+      { address: "::1", family: 6 },
+    ]);
     const one: unknown[] = [];
     lookupFn("x", {}, (...args) => one.push(...args));
     expect(one).toEqual([null, "127.0.0.1", 4]);
     const all: unknown[] = [];
     lookupFn("x", { all: true }, (...args) => all.push(...args));
-    expect(all).toEqual([null, [{ address: "127.0.0.1", family: 4 }, { address: "::1", family: 6 }]]);
+    expect(all).toEqual([
+      null,
+      [
+        { address: "127.0.0.1", family: 4 },
+        { address: "::1", family: 6 },
+      ],
+    ]);
     const six: unknown[] = [];
     lookupFn("x", { all: true, family: 6 }, (...args) => six.push(...args));
     expect(six).toEqual([null, [{ address: "::1", family: 6 }]]);

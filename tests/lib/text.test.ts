@@ -20,7 +20,10 @@ describe("text that cannot be stored", () => {
   });
 
   it("points at the first bad value or key, however deep, without recursion", () => {
-    expect(findUnsafeText({ a: ["ok", { b: "x\ud800" }] })).toEqual({ pointer: "/a/1/b", message: expect.stringMatching(/unpaired UTF-16 surrogate/) });
+    expect(findUnsafeText({ a: ["ok", { b: "x\ud800" }] })).toEqual({
+      pointer: "/a/1/b",
+      message: expect.stringMatching(/unpaired UTF-16 surrogate/),
+    });
     expect(findUnsafeText({ "k/\u0000": 1 })?.pointer).toBe("/k~1\u0000");
     expect(findUnsafeText({ a: 1, b: "fine" })).toBeNull();
     let deep: unknown = "\u0000";

@@ -27,7 +27,11 @@ function strips(pieces: Piece[], sheet: { length: number; width: number }, caps:
         return;
       }
       const piece = fitting[index];
-      for (let copies = 0; copies * piece.length <= left && counts[piece.blank] + copies <= caps[piece.blank]; copies++) {
+      for (
+        let copies = 0;
+        copies * piece.length <= left && counts[piece.blank] + copies <= caps[piece.blank];
+        copies++
+      ) {
         counts[piece.blank] += copies;
         walk(index + 1, left - copies * piece.length, value + copies * piece.value);
         counts[piece.blank] -= copies;
@@ -39,7 +43,11 @@ function strips(pieces: Piece[], sheet: { length: number; width: number }, caps:
 }
 
 /** Every sheet pattern (strips whose widths fit across the sheet, caps kept over the sheet), as pieces per blank and worth. */
-export function allPatterns(pieces: Piece[], sheet: { length: number; width: number }, caps: number[]): { counts: number[]; value: number }[] {
+export function allPatterns(
+  pieces: Piece[],
+  sheet: { length: number; width: number },
+  caps: number[],
+): { counts: number[]; value: number }[] {
   const kinds = strips(pieces, sheet, caps);
   const seen = new Map<string, { counts: number[]; value: number }>();
   const counts = caps.map(() => 0);
@@ -65,12 +73,26 @@ export const bestPattern = (pieces: Piece[], sheet: { length: number; width: num
  * The fewest sheets, fractionally, over every pattern with strips along either side of the sheet
  * (pieces keep their direction to the sheet): the LP solved by HiGHS.
  */
-export async function lpOverAllPatterns(pieces: Piece[], sheet: { length: number; width: number }, demand: number[]): Promise<number> {
+export async function lpOverAllPatterns(
+  pieces: Piece[],
+  sheet: { length: number; width: number },
+  demand: number[],
+): Promise<number> {
   const across = pieces.map((piece) => ({ ...piece, length: piece.width, width: piece.length }));
-  const patterns = [...allPatterns(pieces, sheet, demand), ...allPatterns(across, { length: sheet.width, width: sheet.length }, demand)];
+  const patterns = [
+    ...allPatterns(pieces, sheet, demand),
+    ...allPatterns(across, { length: sheet.width, width: sheet.length }, demand),
+  ];
   const solver = await loadHighs();
   const rows = demand
-    .map((count, blank) => (count > 0 ? ` d${blank}: ${patterns.map((pattern, index) => (pattern.counts[blank] ? `${pattern.counts[blank]} x${index}` : "")).filter(Boolean).join(" + ")} >= ${count}` : ""))
+    .map((count, blank) =>
+      count > 0
+        ? ` d${blank}: ${patterns
+            .map((pattern, index) => (pattern.counts[blank] ? `${pattern.counts[blank]} x${index}` : ""))
+            .filter(Boolean)
+            .join(" + ")} >= ${count}`
+        : "",
+    )
     .filter(Boolean);
   const lp = `Minimize\n obj: ${patterns.map((_, index) => `x${index}`).join(" + ")}\nSubject To\n${rows.join("\n")}\nEnd\n`;
   const result = solver.solve(lp, { output_flag: false });

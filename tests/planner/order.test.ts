@@ -11,17 +11,35 @@ const base = { shear: "shr_demo", grade: "A36", thickness: { gauge: 10 } } as co
 
 describe("planning an order", () => {
   it("the worked example of our cut-program docs: 56 blanks 16 × 12 in on two 120 × 48 in sheets, provably the fewest", async () => {
-    const order: Order = { ...base, units: "in", stock: [{ length: 120, width: 48 }], blanks: [{ label: "panel", length: 16, width: 12, quantity: 56, canTurn: false }] };
+    const order: Order = {
+      ...base,
+      units: "in",
+      stock: [{ length: 120, width: 48 }],
+      blanks: [{ label: "panel", length: 16, width: 12, quantity: 56, canTurn: false }],
+    };
     const reports: PlanProgress[] = [];
     const planned = await planOrder(order, { shear: DEMO_SHEAR, grade: null }, (progress) => reports.push(progress));
     // worked example: 2 sheets of 28; 56 × 192 in² = 10 752 in² is more than one 5 760 in² sheet (hand arithmetic)
-    expect(planned.summary).toMatchObject({ sheets: 2, patterns: 1, lowerBoundSheets: 2, provenFewest: true, bounds: { areaSheets: 2, lpSheets: null }, method: "greedy", methodNote: null });
+    expect(planned.summary).toMatchObject({
+      sheets: 2,
+      patterns: 1,
+      lowerBoundSheets: 2,
+      provenFewest: true,
+      bounds: { areaSheets: 2, lpSheets: null },
+      method: "greedy",
+      methodNote: null,
+    });
     expect(reports.at(-1)).toEqual({ patterns: 1, piecesPlaced: 56, piecesWanted: 56 });
   });
 
   it("mixed demand in millimetres: a bound never above the sheets, and 'fewest' exactly when it is met", async () => {
     const order: Order = {
-      ...base, units: "mm", stock: [{ length: 2500, width: 1250, count: 3 }, { length: 3000, width: 1500 }],
+      ...base,
+      units: "mm",
+      stock: [
+        { length: 2500, width: 1250, count: 3 },
+        { length: 3000, width: 1500 },
+      ],
       blanks: [
         { label: "base", length: 600, width: 400, quantity: 10 },
         { label: "side", length: 450, width: 300, quantity: 12 },
@@ -43,11 +61,22 @@ describe("planning an order", () => {
 
   it("a partial plan bounds only what it places, by area", async () => {
     const order: Order = {
-      ...base, units: "mm", stock: [{ length: 2000, width: 1000, count: 1 }],
-      blanks: [{ label: "too long", length: 2600, width: 300, quantity: 2 }, { label: "many", length: 1000, width: 500, quantity: 6 }],
+      ...base,
+      units: "mm",
+      stock: [{ length: 2000, width: 1000, count: 1 }],
+      blanks: [
+        { label: "too long", length: 2600, width: 300, quantity: 2 },
+        { label: "many", length: 1000, width: 500, quantity: 6 },
+      ],
     };
     const planned = await planOrder(order, { shear: DEMO_SHEAR, grade: null });
     // one 2000 × 1000 sheet holds 4 of 1000 × 500 and nothing of 2600 mm (hand arithmetic)
-    expect(planned.summary).toMatchObject({ sheets: 1, short: 4, lowerBoundSheets: 1, provenFewest: true, bounds: { areaSheets: 1, lpSheets: null } });
+    expect(planned.summary).toMatchObject({
+      sheets: 1,
+      short: 4,
+      lowerBoundSheets: 1,
+      provenFewest: true,
+      bounds: { areaSheets: 1, lpSheets: null },
+    });
   });
 });

@@ -16,7 +16,11 @@ import { MaxRectsPacker, Rectangle } from "maxrects-packer/dist/maxrects-packer.
 import { bench, describe } from "vitest";
 import { planBlanks, type Blank, type Plan, type Stock } from "../../lib/planner/plan";
 
-interface Order { name: string; sheet: { length: number; width: number }; blanks: Blank[] }
+interface Order {
+  name: string;
+  sheet: { length: number; width: number };
+  blanks: Blank[];
+}
 
 /** Seeded random numbers (mulberry32, a public-domain generator): the same orders every run. */
 function random(seed: number) {
@@ -55,13 +59,26 @@ function published(folder: string, keep: (name: string) => boolean): Order[] {
   const dir = path.join(FIXTURES, folder, "json");
   return readdirSync(dir)
     .filter((file) => file.endsWith(".json"))
-    .map((file) => JSON.parse(readFileSync(path.join(dir, file), "utf8")) as { Name: string; Objects: { Length: number; Height: number }[]; Items: { Length: number; Height: number; Demand: number }[] })
+    .map(
+      (file) =>
+        JSON.parse(readFileSync(path.join(dir, file), "utf8")) as {
+          Name: string;
+          Objects: { Length: number; Height: number }[];
+          Items: { Length: number; Height: number; Demand: number }[];
+        },
+    )
     .filter((data) => keep(data.Name))
     .sort((a, b) => a.Name.localeCompare(b.Name))
     .map((data) => ({
       name: data.Name,
       sheet: { length: data.Objects[0].Length, width: data.Objects[0].Height },
-      blanks: data.Items.map((item, index) => ({ label: `${data.Name}/${index}`, length: item.Length, width: item.Height, quantity: item.Demand, canTurn: false })),
+      blanks: data.Items.map((item, index) => ({
+        label: `${data.Name}/${index}`,
+        length: item.Length,
+        width: item.Height,
+        quantity: item.Demand,
+        canTurn: false,
+      })),
     }));
 }
 
@@ -82,14 +99,28 @@ function guillotine(rects: { x: number; y: number; width: number; height: number
 
 /** Bins `maxrects-packer` uses (turning only blanks that may turn), and whether every bin is a guillotine packing. */
 function reference(order: Order): { bins: number; guillotine: boolean } {
-  const packer = new MaxRectsPacker<Rectangle>(order.sheet.length, order.sheet.width, 0, { smart: false, pot: false, square: false, allowRotation: true, border: 0 });
+  const packer = new MaxRectsPacker<Rectangle>(order.sheet.length, order.sheet.width, 0, {
+    smart: false,
+    pot: false,
+    square: false,
+    allowRotation: true,
+    border: 0,
+  });
   const rects: Rectangle[] = [];
-  for (const blank of order.blanks) for (let copy = 0; copy < blank.quantity; copy++) rects.push(new Rectangle(blank.length, blank.width, 0, 0, false, blank.canTurn ?? true));
+  for (const blank of order.blanks)
+    for (let copy = 0; copy < blank.quantity; copy++)
+      rects.push(new Rectangle(blank.length, blank.width, 0, 0, false, blank.canTurn ?? true));
   packer.addArray(rects);
   return { bins: packer.bins.length, guillotine: packer.bins.every((bin) => guillotine(bin.rects)) };
 }
 
-interface Row { order: Order; plan: Plan; milliseconds: number; greedy: number; maxrects: { bins: number; guillotine: boolean } }
+interface Row {
+  order: Order;
+  plan: Plan;
+  milliseconds: number;
+  greedy: number;
+  maxrects: { bins: number; guillotine: boolean };
+}
 const rows: Row[] = [];
 
 /** A shear whose blade and backgauge reach every sheet and blank here. */
@@ -138,11 +169,28 @@ function totals(of: Row[]): string {
 const ONCE = { iterations: 1, warmupIterations: 0, time: 0, warmupTime: 0 };
 
 describe("sheets against the lower bounds", () => {
-  bench("30 random orders on 2500 × 1250 and 3000 × 1500 mm", () => run("random orders (a shear that does not bind)", randomOrders, FREE_SHEAR), ONCE);
-  bench("2D bin-packing classes, first instance of each class and size", () => run("bin-packing classes (Berkey & Wang; Martello & Vigo)", () => published("CLASS", (name) => name.endsWith("_01")), null), ONCE);
-  bench("Hopper instances, first two of each category", async () => {
-    const first = !runs.has("Hopper (2000)");
-    await run("Hopper (2000)", () => published("HOPPER", (name) => /[ab]$/.test(name)), null);
-    if (first) console.log(`\nall orders\n  ${totals(rows)}`);
-  }, ONCE);
+  bench(
+    "30 random orders on 2500 × 1250 and 3000 × 1500 mm",
+    () => run("random orders (a shear that does not bind)", randomOrders, FREE_SHEAR),
+    ONCE,
+  );
+  bench(
+    "2D bin-packing classes, first instance of each class and size",
+    () =>
+      run(
+        "bin-packing classes (Berkey & Wang; Martello & Vigo)",
+        () => published("CLASS", (name) => name.endsWith("_01")),
+        null,
+      ),
+    ONCE,
+  );
+  bench(
+    "Hopper instances, first two of each category",
+    async () => {
+      const first = !runs.has("Hopper (2000)");
+      await run("Hopper (2000)", () => published("HOPPER", (name) => /[ab]$/.test(name)), null);
+      if (first) console.log(`\nall orders\n  ${totals(rows)}`);
+    },
+    ONCE,
+  );
 });

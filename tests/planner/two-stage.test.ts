@@ -9,14 +9,17 @@ import { bestTwoStagePattern } from "../../lib/planner/two-stage";
 import { gcut, TABLE } from "./gcut";
 
 describe("best two-stage pattern on one sheet (gcut instances)", () => {
-  it.each(TABLE)("gcut%d: %d along the length, %d along the width, never above the optimum %d", (n, alongL, alongW, optimum) => {
-    const { sheet, pieces } = gcut(n);
-    const l = bestTwoStagePattern(sheet, pieces, "length");
-    const w = bestTwoStagePattern(sheet, pieces, "width");
-    expect(l.value).toBe(alongL);
-    expect(w.value).toBe(alongW);
-    expect(Math.max(l.value, w.value)).toBeLessThanOrEqual(optimum);
-  });
+  it.each(TABLE)(
+    "gcut%d: %d along the length, %d along the width, never above the optimum %d",
+    (n, alongL, alongW, optimum) => {
+      const { sheet, pieces } = gcut(n);
+      const l = bestTwoStagePattern(sheet, pieces, "length");
+      const w = bestTwoStagePattern(sheet, pieces, "width");
+      expect(l.value).toBe(alongL);
+      expect(w.value).toBe(alongW);
+      expect(Math.max(l.value, w.value)).toBeLessThanOrEqual(optimum);
+    },
+  );
 
   it("returns a pattern that really fits and adds up to its value", () => {
     const { sheet, pieces } = gcut(3);

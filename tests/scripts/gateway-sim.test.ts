@@ -10,9 +10,28 @@ import { closeTestOrm, createTestShop, exampleProgram, testOrm } from "../suppor
 afterAll(closeTestOrm);
 
 function sim(shearId: string, key: string, speed: string, state: string): ChildProcess & { out: string } {
-  const child = spawn("node_modules/.bin/tsx", ["scripts/gateway-sim.ts", "--shear", shearId, "--key", key, "--url", BASE_URL, "--speed", speed, "--once", "--lease", "10", "--state", state], {
-    stdio: ["ignore", "pipe", "pipe"],
-  }) as ChildProcess & { out: string };
+  const child = spawn(
+    "node_modules/.bin/tsx",
+    [
+      "scripts/gateway-sim.ts",
+      "--shear",
+      shearId,
+      "--key",
+      key,
+      "--url",
+      BASE_URL,
+      "--speed",
+      speed,
+      "--once",
+      "--lease",
+      "10",
+      "--state",
+      state,
+    ],
+    {
+      stdio: ["ignore", "pipe", "pipe"],
+    },
+  ) as ChildProcess & { out: string };
   child.out = "";
   child.stdout!.on("data", (d) => (child.out += d));
   child.stderr!.on("data", (d) => (child.out += d));
@@ -27,7 +46,8 @@ async function releasedProgram() {
   return { shop, id: p.id };
 }
 
-const row = async (id: string) => (await testOrm()).em.fork().findOneOrFail(Program, { id }, { disableIdentityMap: true });
+const row = async (id: string) =>
+  (await testOrm()).em.fork().findOneOrFail(Program, { id }, { disableIdentityMap: true });
 const exited = (c: ChildProcess) => new Promise((r) => c.once("exit", r));
 
 describe("npm run gateway:sim", () => {

@@ -5,11 +5,16 @@ import { BASE_URL, DATABASE_URL } from "../support/env";
 import { closeTestOrm, createTestShop, type TestShop } from "../support/fixtures";
 
 let shop: TestShop;
-beforeAll(async () => { shop = await createTestShop("keycli"); });
+beforeAll(async () => {
+  shop = await createTestShop("keycli");
+});
 afterAll(closeTestOrm);
 
 const cli = (...args: string[]) =>
-  spawnSync("node_modules/.bin/tsx", ["scripts/key-create.ts", ...args], { encoding: "utf8", env: { ...process.env, DATABASE_URL } });
+  spawnSync("node_modules/.bin/tsx", ["scripts/key-create.ts", ...args], {
+    encoding: "utf8",
+    env: { ...process.env, DATABASE_URL },
+  });
 
 describe("npm run key:create", () => {
   it("creates a scoped key whose secret is printed once and works against the API", () => {

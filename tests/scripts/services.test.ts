@@ -6,7 +6,15 @@ import pg from "pg";
 import { Redis } from "ioredis";
 import { afterAll, describe, expect, it } from "vitest";
 import {
-  databaseUrl, pgRunning, redisRunning, redisUrl, ServiceError, startAll, startPostgres, startRedis, stopAll,
+  databaseUrl,
+  pgRunning,
+  redisRunning,
+  redisUrl,
+  ServiceError,
+  startAll,
+  startPostgres,
+  startRedis,
+  stopAll,
   type Profile,
 } from "../../scripts/lib/services";
 
@@ -15,7 +23,13 @@ const dataRoot = mkdtempSync(path.join(os.tmpdir(), "shearwire-svc-"));
 const profile: Profile = {
   name: "test",
   dataRoot,
-  pg: { dataDir: path.join(dataRoot, "pg"), port: 55452, user: "shearwire", password: "s3cret-test", database: "svc_test" },
+  pg: {
+    dataDir: path.join(dataRoot, "pg"),
+    port: 55452,
+    user: "shearwire",
+    password: "s3cret-test",
+    database: "svc_test",
+  },
   redis: { dataDir: path.join(dataRoot, "redis"), port: 56399 },
   mail: { smtpPort: 2599, httpPort: 2598, dir: path.join(dataRoot, "mail") },
 };
@@ -39,7 +53,9 @@ describe("local PostgreSQL and Redis", () => {
   it("initialises and starts both on loopback, then reuses them when started again", async () => {
     expect(await startAll(profile)).toEqual({ pg: "started", redis: "started" });
     expect(await startAll(profile)).toEqual({ pg: "reused", redis: "reused" });
-    const [row] = await sql<{ addr: string; port: number }>("select inet_server_addr()::text as addr, inet_server_port() as port");
+    const [row] = await sql<{ addr: string; port: number }>(
+      "select inet_server_addr()::text as addr, inet_server_port() as port",
+    );
     expect(row).toEqual({ addr: "127.0.0.1/32", port: 55452 });
   });
 
@@ -63,7 +79,13 @@ describe("local PostgreSQL and Redis", () => {
   });
 
   it("refuses password-less connections over TCP", async () => {
-    const client = new pg.Client({ host: "127.0.0.1", port: profile.pg.port, user: "shearwire", password: "wrong", database: "svc_test" });
+    const client = new pg.Client({
+      host: "127.0.0.1",
+      port: profile.pg.port,
+      user: "shearwire",
+      password: "wrong",
+      database: "svc_test",
+    });
     await expect(client.connect()).rejects.toThrow(/password authentication failed/);
   });
 
@@ -72,7 +94,9 @@ describe("local PostgreSQL and Redis", () => {
     await new Promise<void>((resolve) => blocker.listen(55462, "127.0.0.1", resolve));
     try {
       const other = path.join(dataRoot, "other");
-      const pgErr = await startPostgres({ ...profile.pg, dataDir: path.join(other, "pg"), port: 55462 }).catch((e) => e);
+      const pgErr = await startPostgres({ ...profile.pg, dataDir: path.join(other, "pg"), port: 55462 }).catch(
+        (e) => e,
+      );
       expect(pgErr).toBeInstanceOf(ServiceError);
       expect(pgErr.message).toMatch(/port 55462 on 127\.0\.0\.1 is busy.*SHEARWIRE_PG_PORT/);
       const redisErr = await startRedis({ dataDir: path.join(other, "redis"), port: 55462 }).catch((e) => e);

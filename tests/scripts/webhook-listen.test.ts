@@ -11,8 +11,16 @@ describe("npm run webhook:listen", () => {
     const shop = await createTestShop("listen");
     const auth = { Authorization: `Bearer ${shop.key}` };
     const port = 4711;
-    const created = await request(BASE_URL).post("/api/v1/webhook-endpoints").set(auth).send({ url: `http://localhost:${port}/` }).expect(201);
-    const child = spawn("node_modules/.bin/tsx", ["scripts/webhook-listen.ts", "--port", String(port), "--secret", created.body.secret], { stdio: ["ignore", "pipe", "pipe"] });
+    const created = await request(BASE_URL)
+      .post("/api/v1/webhook-endpoints")
+      .set(auth)
+      .send({ url: `http://localhost:${port}/` })
+      .expect(201);
+    const child = spawn(
+      "node_modules/.bin/tsx",
+      ["scripts/webhook-listen.ts", "--port", String(port), "--secret", created.body.secret],
+      { stdio: ["ignore", "pipe", "pipe"] },
+    );
     let out = "";
     child.stdout.on("data", (d) => (out += d));
     try {
@@ -21,7 +29,11 @@ describe("npm run webhook:listen", () => {
       await vi.waitFor(() => expect(out).toMatch(/endpoint\.test\s+evt_/), { timeout: 15_000 });
       const forged = await fetch(`http://127.0.0.1:${port}/`, {
         method: "POST",
-        headers: { "webhook-id": "evt_forged", "webhook-timestamp": String(Math.floor(Date.now() / 1000)), "webhook-signature": "v1,AAAA" },
+        headers: {
+          "webhook-id": "evt_forged",
+          "webhook-timestamp": String(Math.floor(Date.now() / 1000)),
+          "webhook-signature": "v1,AAAA",
+        },
         body: JSON.stringify({ type: "program.completed", timestamp: new Date().toISOString(), data: {} }),
       });
       expect(forged.status).toBe(400);

@@ -6,7 +6,9 @@ import { checkHealth } from "../../lib/services/health";
 import { DATABASE_URL, REDIS_URL } from "../support/env";
 
 let orm: MikroORM;
-beforeAll(async () => { orm = await MikroORM.init(ormConfig(DATABASE_URL)); });
+beforeAll(async () => {
+  orm = await MikroORM.init(ormConfig(DATABASE_URL));
+});
 afterAll(async () => orm?.close(true));
 
 describe("checkHealth", () => {
@@ -19,7 +21,11 @@ describe("checkHealth", () => {
 
   it("is degraded, naming no secrets, when Redis does not answer", async () => {
     // nothing listens on port 1 of loopback
-    const redis = new Redis("redis://:hunter2@127.0.0.1:1", { lazyConnect: true, maxRetriesPerRequest: 0, retryStrategy: () => null });
+    const redis = new Redis("redis://:hunter2@127.0.0.1:1", {
+      lazyConnect: true,
+      maxRetriesPerRequest: 0,
+      retryStrategy: () => null,
+    });
     redis.on("error", () => undefined);
     const health = await checkHealth(async () => orm.em.fork(), redis);
     expect(health).toMatchObject({ status: "degraded", database: { status: "up" }, redis: { status: "down" } });

@@ -22,6 +22,8 @@ describe("the team", () => {
     const shop = await createTestShop("team-dup");
     const em = (await testOrm()).em.fork();
     const someone = await em.findOneOrFail(User, { email: shop.viewer });
-    await expect(invite(em, shop.shopId, { userId: someone.id, name: "x" }, shop.viewer, "admin")).rejects.toThrow(/already in this shop/);
+    await expect(invite(em, shop.shopId, { userId: someone.id, name: "x" }, shop.viewer, "admin")).rejects.toThrow(
+      /already in this shop/,
+    );
   });
 });

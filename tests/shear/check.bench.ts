@@ -11,9 +11,19 @@ const context = { shear: DEMO_SHEAR, grade: findGrade("A36") as GradeProfile };
 
 /** Rip 300 mm strips, turn them, and cut each into blanks at 38 settings: 40 groups, no findings. */
 function cleanProgram(): CutProgram {
-  const cuts: CutGroup[] = [{ backgauge: 300, count: 4 }, { backgauge: 60, count: 1, turn: true }];
+  const cuts: CutGroup[] = [
+    { backgauge: 300, count: 4 },
+    { backgauge: 60, count: 1, turn: true },
+  ];
   for (let i = 0; i < 38; i++) cuts.push({ backgauge: 60 + (i % 5) * 5, count: 1 });
-  return { reference: "BENCH-40", grade: "A36", thickness: { value: 2 }, units: "mm", sheet: { length: 3000, width: 1500, count: 10 }, cuts };
+  return {
+    reference: "BENCH-40",
+    grade: "A36",
+    thickness: { value: 2 },
+    units: "mm",
+    sheet: { length: 3000, width: 1500, count: 10 },
+    cuts,
+  };
 }
 
 /** 30 narrow rips (each a warning), then the last strip turned and cut at 9 more settings. */
@@ -22,7 +32,14 @@ function warningProgram(): CutProgram {
   for (let i = 0; i < 30; i++) cuts.push({ backgauge: 30 + (i % 5) * 5, count: 1 });
   cuts.push({ backgauge: 100, count: 5, turn: true });
   for (let i = 0; i < 9; i++) cuts.push({ backgauge: 100 + (i % 3) * 10, count: 1 });
-  return { reference: "BENCH-40W", grade: "A36", thickness: { value: 2 }, units: "mm", sheet: { length: 3000, width: 1500, count: 10 }, cuts };
+  return {
+    reference: "BENCH-40W",
+    grade: "A36",
+    thickness: { value: 2 },
+    units: "mm",
+    sheet: { length: 3000, width: 1500, count: 10 },
+    cuts,
+  };
 }
 
 const median = (xs: readonly number[]): number => {
@@ -42,7 +59,10 @@ function timedTask(label: string, program: CutProgram) {
     samples.push(performance.now() - t0);
   };
   const teardown = (_task: unknown, mode?: "run" | "warmup"): void => {
-    if (mode === "run") console.log(`median checkProgram, ${label}: ${(median(samples) * 1000).toFixed(1)} µs over ${samples.length} runs (target < 50 µs)`);
+    if (mode === "run")
+      console.log(
+        `median checkProgram, ${label}: ${(median(samples) * 1000).toFixed(1)} µs over ${samples.length} runs (target < 50 µs)`,
+      );
     samples = [];
   };
   return { fn, options: { time: 2000, warmupTime: 500, teardown } };

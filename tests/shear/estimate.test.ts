@@ -1,15 +1,33 @@
 import { describe, expect, it } from "vitest";
-import { estimateCycle, estimateReport, inToMm, simulateFlow, STROKE_FIXED_FRACTION, strokeSeconds, type FlowCut } from "@/lib/shear";
+import {
+  estimateCycle,
+  estimateReport,
+  inToMm,
+  simulateFlow,
+  STROKE_FIXED_FRACTION,
+  strokeSeconds,
+  type FlowCut,
+} from "@/lib/shear";
 import { DEMO_SHEAR } from "./fixtures";
 
-const cut = (backgaugeMm: number, count: number, over: Partial<FlowCut> = {}): FlowCut => ({ backgaugeMm, count, lengthMm: null, turn: false, scrap: false, ...over });
+const cut = (backgaugeMm: number, count: number, over: Partial<FlowCut> = {}): FlowCut => ({
+  backgaugeMm,
+  count,
+  lengthMm: null,
+  turn: false,
+  scrap: false,
+  ...over,
+});
 const FULL_STROKE_S = 60 / DEMO_SHEAR.strokesPerMin; // 30 strokes/min (demo profile) → 2 s
 
 describe("stroke time (our split: fixed share + travel share)", () => {
-  const fullTravel = DEMO_SHEAR.ratedThicknessMm + DEMO_SHEAR.bladeLengthMm * Math.tan((DEMO_SHEAR.rakeMaxDeg * Math.PI) / 180);
+  const fullTravel =
+    DEMO_SHEAR.ratedThicknessMm + DEMO_SHEAR.bladeLengthMm * Math.tan((DEMO_SHEAR.rakeMaxDeg * Math.PI) / 180);
 
   it("a full-length cut of rated plate at the largest rake is a full stroke", () => {
-    expect(strokeSeconds(DEMO_SHEAR.bladeLengthMm, DEMO_SHEAR.ratedThicknessMm, DEMO_SHEAR.rakeMaxDeg, DEMO_SHEAR)).toBeCloseTo(FULL_STROKE_S, 12); // our stroke-time rule: share of travel = 1
+    expect(
+      strokeSeconds(DEMO_SHEAR.bladeLengthMm, DEMO_SHEAR.ratedThicknessMm, DEMO_SHEAR.rakeMaxDeg, DEMO_SHEAR),
+    ).toBeCloseTo(FULL_STROKE_S, 12); // our stroke-time rule: share of travel = 1
   });
 
   it("a shorter cut takes the fixed share plus its travel share", () => {
@@ -38,7 +56,10 @@ describe("cycle estimate of the cut-program worked example in our API docs", () 
     expect(e.seconds.backgauge).toBeCloseTo((3 * inToMm(4)) / DEMO_SHEAR.backgaugeSpeedMmPerS, 9); // three 4 in moves
     expect(e.seconds.turns).toBe(8 * DEMO_SHEAR.handlingSecondsPerTurn); // 8 turns × profile constant (demo data)
     expect(e.seconds.sheets).toBe(2 * DEMO_SHEAR.handlingSecondsPerSheet); // 2 sheets × profile constant (demo data)
-    expect(e.seconds.total).toBeCloseTo(e.seconds.strokes + e.seconds.backgauge + e.seconds.turns + e.seconds.sheets, 9); // sum of the parts
+    expect(e.seconds.total).toBeCloseTo(
+      e.seconds.strokes + e.seconds.backgauge + e.seconds.turns + e.seconds.sheets,
+      9,
+    ); // sum of the parts
   });
 
   it("reports seconds to 0.1 s", () => {
@@ -51,6 +72,8 @@ describe("backgauge moves", () => {
   it("a single setting never moves", () => {
     const cuts = [cut(100, 3)];
     const flow = simulateFlow({ lengthMm: 1000, widthMm: 1000 }, cuts);
-    expect(estimateCycle({ flow, cuts, sheets: 5, shear: DEMO_SHEAR, rakeDeg: 1, thicknessMm: 2 }).backgaugeMoves).toBe(0); // one setting: the gauge never moves
+    expect(estimateCycle({ flow, cuts, sheets: 5, shear: DEMO_SHEAR, rakeDeg: 1, thicknessMm: 2 }).backgaugeMoves).toBe(
+      0,
+    ); // one setting: the gauge never moves
   });
 });

@@ -1,15 +1,33 @@
 import { describe, expect, it } from "vitest";
 import fc from "fast-check";
-import { inToMm, REMNANT_TOLERANCE_MM, remnantToleranceMm, simulateFlow, strokesThatCut, yieldReport, type FlowCut } from "@/lib/shear";
+import {
+  inToMm,
+  REMNANT_TOLERANCE_MM,
+  remnantToleranceMm,
+  simulateFlow,
+  strokesThatCut,
+  yieldReport,
+  type FlowCut,
+} from "@/lib/shear";
 import { DEMO_SHEAR } from "./fixtures";
 
-const cut = (backgaugeMm: number, count: number, over: Partial<FlowCut> = {}): FlowCut => ({ backgaugeMm, count, lengthMm: null, turn: false, scrap: false, ...over });
+const cut = (backgaugeMm: number, count: number, over: Partial<FlowCut> = {}): FlowCut => ({
+  backgaugeMm,
+  count,
+  lengthMm: null,
+  turn: false,
+  scrap: false,
+  ...over,
+});
 const sumCount = (rs: ReadonlyArray<{ count: number }>): number => rs.reduce((a, r) => a + r.count, 0);
 
 describe("the cut-program worked example in our API docs", () => {
   // 120 × 48 in sheet: 3 strokes at 12 in make 4 strips 12 × 120 (the remnant is the fourth);
   // each strip turned: 7 strokes at 16 in make 7 blanks 12 × 16 and an 8 × 12 offcut.
-  const flow = simulateFlow({ lengthMm: inToMm(120), widthMm: inToMm(48) }, [cut(inToMm(12), 3), cut(inToMm(16), 7, { turn: true, lengthMm: inToMm(12) })]);
+  const flow = simulateFlow({ lengthMm: inToMm(120), widthMm: inToMm(48) }, [
+    cut(inToMm(12), 3),
+    cut(inToMm(16), 7, { turn: true, lengthMm: inToMm(12) }),
+  ]);
   const report = yieldReport(flow, 2, "in");
 
   it("per sheet: 4 strips, 28 blanks, 4 offcuts, 31 strokes", () => {
@@ -144,7 +162,9 @@ describe("properties", () => {
   });
 
   it("the same input gives the same output", () => {
-    fc.assert(fc.property(program, (p) => JSON.stringify(simulateFlow(p, p.cuts)) === JSON.stringify(simulateFlow(p, p.cuts))));
+    fc.assert(
+      fc.property(program, (p) => JSON.stringify(simulateFlow(p, p.cuts)) === JSON.stringify(simulateFlow(p, p.cuts))),
+    );
   });
 });
 
@@ -178,7 +198,11 @@ describe("turning the pieces of an earlier group (from)", () => {
   });
 
   it("a group's pieces are turned once: a second group taking them finds nothing", () => {
-    const f = simulateFlow({ lengthMm: 2000, widthMm: 1000 }, [cut(300, 2), cut(500, 3, { turn: true, from: 0 }), cut(500, 3, { turn: true, from: 0 })]);
+    const f = simulateFlow({ lengthMm: 2000, widthMm: 1000 }, [
+      cut(300, 2),
+      cut(500, 3, { turn: true, from: 0 }),
+      cut(500, 3, { turn: true, from: 0 }),
+    ]);
     expect(f.groups[2].workpieces).toBe(0);
   });
 });

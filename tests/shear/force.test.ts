@@ -38,10 +38,13 @@ describe("raked-blade force F = k · UTS · t² / tan α", () => {
     expect(RAKED_FORCE_K).toBe(0.48); // our fit to the plate maker's worked example below
   });
 
-  it.each(WORKED_TABLE)("3/8 in plate, %d ksi at %d° rake ≈ %d t (plate maker's worked example, within 1.5 percent)", (ksi, rake, tonnes) => {
-    const kn = rakedForceKn(ksiToMpa(ksi), inToMm(3 / 8), rake);
-    expect(Math.abs(kn / KN_PER_TONNE_FORCE / tonnes - 1)).toBeLessThanOrEqual(FIT_TOLERANCE);
-  });
+  it.each(WORKED_TABLE)(
+    "3/8 in plate, %d ksi at %d° rake ≈ %d t (plate maker's worked example, within 1.5 percent)",
+    (ksi, rake, tonnes) => {
+      const kn = rakedForceKn(ksiToMpa(ksi), inToMm(3 / 8), rake);
+      expect(Math.abs(kn / KN_PER_TONNE_FORCE / tonnes - 1)).toBeLessThanOrEqual(FIT_TOLERANCE);
+    },
+  );
 
   it("rises with thickness and tensile, falls with rake", () => {
     const pos = fc.double({ min: 0.1, max: 100, noNaN: true });
@@ -50,14 +53,20 @@ describe("raked-blade force F = k · UTS · t² / tan α", () => {
     fc.assert(
       fc.property(uts, pos, rake, fc.double({ min: 1.01, max: 3, noNaN: true }), (s, t, a, f) => {
         const base = rakedForceKn(s, t, a);
-        return rakedForceKn(s, t * f, a) > base && rakedForceKn(s * f, t, a) > base && rakedForceKn(s, t, Math.min(a * f, 45)) < base;
+        return (
+          rakedForceKn(s, t * f, a) > base &&
+          rakedForceKn(s * f, t, a) > base &&
+          rakedForceKn(s, t, Math.min(a * f, 45)) < base
+        );
       }),
     );
   });
 
   it("is infinite at zero rake (the straight-blade form takes over)", () => {
     expect(rakedForceKn(400, 5, 0)).toBe(Number.POSITIVE_INFINITY); // tan 0° = 0
-    expect(cutForce({ tensileMpa: 400, shearMpa: 300, thicknessMm: 5, lengthMm: 1000, rakeDeg: 0 }).model).toBe("straight");
+    expect(cutForce({ tensileMpa: 400, shearMpa: 300, thicknessMm: 5, lengthMm: 1000, rakeDeg: 0 }).model).toBe(
+      "straight",
+    );
   });
 
   it("rakeForForceDeg inverts it", () => {

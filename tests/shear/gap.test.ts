@@ -10,7 +10,8 @@ import { DEMO_SHEAR } from "./fixtures";
 
 /** A shear whose gap range never clamps, so the rule itself is seen. */
 const WIDE: ShearProfile = { ...DEMO_SHEAR, gapMinMm: 0, gapMaxMm: 50 };
-const gapIn = (thicknessIn: number, family: GradeFamily): number => unit(recommendGap(unit(thicknessIn, "inch").toNumber("mm"), family, WIDE).mm, "mm").toNumber("inch"); // conversions via mathjs
+const gapIn = (thicknessIn: number, family: GradeFamily): number =>
+  unit(recommendGap(unit(thicknessIn, "inch").toNumber("mm"), family, WIDE).mm, "mm").toNumber("inch"); // conversions via mathjs
 const FAMILIES = Object.keys(GAP_RULES) as GradeFamily[];
 
 describe("published mild-steel clearances", () => {
@@ -49,7 +50,8 @@ describe("published high-strength plate clearances", () => {
 
 describe("published stainless clearances (stainless producers' fabrication guidance, SSINA)", () => {
   it("5 % of thickness at 16 gauge and heavier, up to quarter-inch plate and beyond", () => {
-    for (const thicknessIn of [0.0625, 0.1875, 0.25, 0.5]) expect(gapPctFor(unit(thicknessIn, "inch").toNumber("mm"), "stainless")).toBe(5); // SSINA: 5 % at 16 ga (0.062 in) and heavier
+    for (const thicknessIn of [0.0625, 0.1875, 0.25, 0.5])
+      expect(gapPctFor(unit(thicknessIn, "inch").toNumber("mm"), "stainless")).toBe(5); // SSINA: 5 % at 16 ga (0.062 in) and heavier
     // A single 9 % was 1.8 × this on plate.
     expect(9 / gapPctFor(6.35, "stainless")).toBeCloseTo(1.8, 9);
   });

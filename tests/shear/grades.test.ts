@@ -19,7 +19,18 @@ const ksi = (mpa: number | null | undefined): number => mpaToKsi(mpa as number);
 
 describe("seed grade library: the standards' minimums", () => {
   it("holds the seed grades, each naming its standard", () => {
-    expect(GRADE_LIBRARY.map((x) => x.code)).toEqual(["A36", "A572-50", "304", "316", "5052-H32", "6061-T6", "C11000-H02", "AR400", "A1011-CS", "A1008-CS"]); // the seed list (ours)
+    expect(GRADE_LIBRARY.map((x) => x.code)).toEqual([
+      "A36",
+      "A572-50",
+      "304",
+      "316",
+      "5052-H32",
+      "6061-T6",
+      "C11000-H02",
+      "AR400",
+      "A1011-CS",
+      "A1008-CS",
+    ]); // the seed list (ours)
     for (const grade of GRADE_LIBRARY) expect(grade.standard.length).toBeGreaterThan(3);
   });
 

@@ -123,7 +123,14 @@ describe("findings from checkProgram", () => {
 
   it("gauge outside the family or a grade with no gauge system", () => {
     expect(codes(check(edit((p) => (p.thickness = { gauge: 99 }))))).toEqual(["gauge_unknown"]);
-    expect(codes(check(edit((p) => (p.grade = "C11000-H02")), grade("C11000-H02")))).toEqual(["gauge_unknown"]);
+    expect(
+      codes(
+        check(
+          edit((p) => (p.grade = "C11000-H02")),
+          grade("C11000-H02"),
+        ),
+      ),
+    ).toEqual(["gauge_unknown"]);
   });
 
   it("grade with no tensile strength", () => {
@@ -135,7 +142,9 @@ describe("findings from checkProgram", () => {
     const r = check(WORKED_EXAMPLE, grade("A36"), null);
     expect(codes(r)).toEqual(["shear_unknown"]);
     expect(r.estimate).toBeNull();
-    expect(codes(check(WORKED_EXAMPLE, grade("A36"), { ...DEMO_SHEAR, bladeLengthMm: Number.NaN }))).toEqual(["shear_unknown"]);
+    expect(codes(check(WORKED_EXAMPLE, grade("A36"), { ...DEMO_SHEAR, bladeLengthMm: Number.NaN }))).toEqual([
+      "shear_unknown",
+    ]);
   });
 
   it("units: missing, disagreeing, or looking like the other unit", () => {
@@ -174,7 +183,10 @@ describe("findings from checkProgram", () => {
   });
 
   it("grade harder than the blades allow", () => {
-    const r = check(edit((p) => ((p.grade = "AR400"), (p.thickness = { value: 0.1 }))), grade("AR400"));
+    const r = check(
+      edit((p) => ((p.grade = "AR400"), (p.thickness = { value: 0.1 }))),
+      grade("AR400"),
+    );
     expect(codes(r)).toContain("hardness_over_blade_limit");
   });
 
@@ -202,16 +214,52 @@ describe("findings from checkProgram", () => {
 
   it("invalid values are findings, never exceptions", () => {
     const r = check(edit((p) => ((p.sheet.width = -4), (p.cuts[0].count = 1.5))));
-    expect(r.findings.filter((f) => f.code === "value_invalid").map((f) => f.pointer)).toEqual(["/sheet/width", "/cuts/0/count"]);
+    expect(r.findings.filter((f) => f.code === "value_invalid").map((f) => f.pointer)).toEqual([
+      "/sheet/width",
+      "/cuts/0/count",
+    ]);
     expect(r.yield).toBeNull();
     expect(check(null).findings[0]).toMatchObject({ code: "value_invalid", pointer: "" });
   });
 
   it("from: only with turn, only an earlier group, and each group's pieces turned once", () => {
     const ptrs = (r: CheckResult) => r.findings.filter((f) => f.code === "value_invalid").map((f) => f.pointer);
-    expect(ptrs(check(edit((p) => (p.cuts = [{ backgauge: 12, count: 3 }, { backgauge: 16, count: 7, from: 0 }]))))).toEqual(["/cuts/1/from"]);
-    expect(ptrs(check(edit((p) => (p.cuts = [{ backgauge: 12, count: 3 }, { backgauge: 16, count: 7, turn: true, from: 1 }]))))).toEqual(["/cuts/1/from"]);
-    const twice = check(edit((p) => (p.cuts = [{ backgauge: 12, count: 3 }, { backgauge: 16, count: 7, turn: true, from: 0 }, { backgauge: 16, count: 7, turn: true, from: 0 }])));
+    expect(
+      ptrs(
+        check(
+          edit(
+            (p) =>
+              (p.cuts = [
+                { backgauge: 12, count: 3 },
+                { backgauge: 16, count: 7, from: 0 },
+              ]),
+          ),
+        ),
+      ),
+    ).toEqual(["/cuts/1/from"]);
+    expect(
+      ptrs(
+        check(
+          edit(
+            (p) =>
+              (p.cuts = [
+                { backgauge: 12, count: 3 },
+                { backgauge: 16, count: 7, turn: true, from: 1 },
+              ]),
+          ),
+        ),
+      ),
+    ).toEqual(["/cuts/1/from"]);
+    const twice = check(
+      edit(
+        (p) =>
+          (p.cuts = [
+            { backgauge: 12, count: 3 },
+            { backgauge: 16, count: 7, turn: true, from: 0 },
+            { backgauge: 16, count: 7, turn: true, from: 0 },
+          ]),
+      ),
+    );
     expect(ptrs(twice)).toEqual(["/cuts/2/from"]);
     // A strip kind ripped first and crosscut after another kind: worked example sheet, 12 in and 8 in strips.
     const two = check(
@@ -259,11 +307,20 @@ const programArb = fc.record(
     grade: fc.oneof(fc.constantFrom(...GRADE_LIBRARY.map((g) => g.code)), fc.string()),
     thickness: fc.oneof(fc.record({ value: num }), fc.record({ gauge: num }), fc.anything()),
     units: fc.oneof(fc.constantFrom("in", "mm"), fc.anything()),
-    sheet: fc.oneof(fc.record({ length: num, width: num, count: fc.oneof(fc.integer({ min: -1, max: 5 }), num) }), fc.anything()),
+    sheet: fc.oneof(
+      fc.record({ length: num, width: num, count: fc.oneof(fc.integer({ min: -1, max: 5 }), num) }),
+      fc.anything(),
+    ),
     cuts: fc.oneof(
       fc.array(
         fc.record(
-          { backgauge: num, count: fc.oneof(fc.integer({ min: -1, max: 20 }), num), length: num, turn: fc.oneof(fc.boolean(), fc.anything()), scrap: fc.boolean() },
+          {
+            backgauge: num,
+            count: fc.oneof(fc.integer({ min: -1, max: 20 }), num),
+            length: num,
+            turn: fc.oneof(fc.boolean(), fc.anything()),
+            scrap: fc.boolean(),
+          },
           { requiredKeys: ["backgauge", "count"] },
         ),
         { maxLength: 8 },
@@ -271,13 +328,17 @@ const programArb = fc.record(
       fc.anything(),
     ),
     setup: fc.oneof(
-      fc.record({ rakeDeg: num, bladeGapMm: num, bladeGapIn: num, holdDownPct: num, crownIn: num, backgaugeRetractMm: num }, { requiredKeys: [] }),
+      fc.record(
+        { rakeDeg: num, bladeGapMm: num, bladeGapIn: num, holdDownPct: num, crownIn: num, backgaugeRetractMm: num },
+        { requiredKeys: [] },
+      ),
       fc.anything(),
     ),
   },
   { requiredKeys: [] },
 );
-const contextGrade = (p: unknown): GradeProfile | null => (typeof (p as { grade?: unknown })?.grade === "string" ? findGrade((p as { grade: string }).grade) : null);
+const contextGrade = (p: unknown): GradeProfile | null =>
+  typeof (p as { grade?: unknown })?.grade === "string" ? findGrade((p as { grade: string }).grade) : null;
 
 describe("properties of checkProgram", () => {
   it("no generated program throws", () => {
@@ -299,7 +360,13 @@ describe("properties of checkProgram", () => {
   });
 
   it("the same input always gives the same output", () => {
-    fc.assert(fc.property(programArb, (p) => JSON.stringify(check(p, contextGrade(p))) === JSON.stringify(check(p, contextGrade(p)))), { numRuns: 300 });
+    fc.assert(
+      fc.property(
+        programArb,
+        (p) => JSON.stringify(check(p, contextGrade(p))) === JSON.stringify(check(p, contextGrade(p))),
+      ),
+      { numRuns: 300 },
+    );
   });
 
   it("every pointer lands in the program (or on a field it could carry)", () => {
@@ -339,10 +406,13 @@ describe("the module", () => {
   const dir = join(__dirname, "../../lib/shear");
   const sources = readdirSync(dir).filter((f) => f.endsWith(".ts"));
   const importsOf = (file: string): string[] =>
-    [...readFileSync(join(dir, file), "utf8").matchAll(/(?:import|export)[^"']*?from\s+["']([^"']+)["']/g)].map((m) => m[1]);
+    [...readFileSync(join(dir, file), "utf8").matchAll(/(?:import|export)[^"']*?from\s+["']([^"']+)["']/g)].map(
+      (m) => m[1],
+    );
 
   it("imports nothing but its own files (no framework, ORM or I/O)", () => {
-    for (const f of sources) for (const spec of importsOf(f)) expect(spec, `${f} imports ${spec}`).toMatch(/^\.\/[a-z]+$/);
+    for (const f of sources)
+      for (const spec of importsOf(f)) expect(spec, `${f} imports ${spec}`).toMatch(/^\.\/[a-z]+$/);
   });
 
   it("has no import cycles", () => {
@@ -360,6 +430,7 @@ describe("the module", () => {
 
   it("its README documents every finding code with its severity", () => {
     const readme = readFileSync(join(dir, "README.md"), "utf8");
-    for (const [code, spec] of Object.entries(FINDING_CATALOGUE)) expect(readme).toContain(`| \`${code}\` | ${spec.severity} | ${spec.meaning} |`);
+    for (const [code, spec] of Object.entries(FINDING_CATALOGUE))
+      expect(readme).toContain(`| \`${code}\` | ${spec.severity} | ${spec.meaning} |`);
   });
 });

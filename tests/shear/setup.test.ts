@@ -83,8 +83,14 @@ describe("crown and retract", () => {
   it("crown = a baseline with no load + a part proportional to force (common practice)", () => {
     expect(DEFAULT_CROWN_BASELINE_MM).toBe(unit(0.002, "inch").toNumber("mm")); // US Navy shipfitter manual (NAVEDTRA 14119): centre 0.002 in less than the ends
     expect(recommendCrownMm(0, RATED, DEMO_SHEAR)).toBeCloseTo(DEFAULT_CROWN_BASELINE_MM, 12); // thin sheet: the baseline, not zero
-    expect(recommendCrownMm(RATED / 2, RATED, DEMO_SHEAR)).toBeCloseTo(DEFAULT_CROWN_BASELINE_MM + DEFAULT_CROWN_AT_RATED_MM / 2, 12);
-    expect(recommendCrownMm(RATED, RATED, { ...DEMO_SHEAR, crownAtRatedMm: 0.3, crownBaselineMm: 0.025 })).toBeCloseTo(0.325, 12); // profile figures win
+    expect(recommendCrownMm(RATED / 2, RATED, DEMO_SHEAR)).toBeCloseTo(
+      DEFAULT_CROWN_BASELINE_MM + DEFAULT_CROWN_AT_RATED_MM / 2,
+      12,
+    );
+    expect(recommendCrownMm(RATED, RATED, { ...DEMO_SHEAR, crownAtRatedMm: 0.3, crownBaselineMm: 0.025 })).toBeCloseTo(
+      0.325,
+      12,
+    ); // profile figures win
   });
   it("the published fixed differences are a few thousandths of an inch", () => {
     const baselineIn = unit(DEFAULT_CROWN_BASELINE_MM, "mm").toNumber("inch");

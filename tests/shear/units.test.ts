@@ -19,7 +19,8 @@ import {
   tonfToKn,
 } from "@/lib/shear";
 
-const relClose = (a: number, b: number, rel: number): boolean => Math.abs(a - b) <= rel * Math.max(Math.abs(a), Math.abs(b));
+const relClose = (a: number, b: number, rel: number): boolean =>
+  Math.abs(a - b) <= rel * Math.max(Math.abs(a), Math.abs(b));
 
 describe("unit constants against mathjs", () => {
   it("1 in = 25.4 mm exactly", () => {
@@ -61,7 +62,11 @@ describe("round trips are exact to floating-point tolerance", () => {
   });
   it("caller's length unit → mm → caller's unit", () => {
     fc.assert(
-      fc.property(finite, fc.constantFrom("in" as const, "mm" as const), (x, u) => relClose(lengthFromMm(lengthToMm(x, u), u), x, 1e-15) || Math.abs(x) < 1e-300),
+      fc.property(
+        finite,
+        fc.constantFrom("in" as const, "mm" as const),
+        (x, u) => relClose(lengthFromMm(lengthToMm(x, u), u), x, 1e-15) || Math.abs(x) < 1e-300,
+      ),
     );
   });
 });

@@ -4,7 +4,11 @@ import { profile } from "./env";
 /** Drop and create a database on the test server (used for a clean slate per suite). */
 export async function recreateDatabase(name: string) {
   const client = new pg.Client({
-    host: "127.0.0.1", port: profile.pg.port, user: profile.pg.user, password: profile.pg.password, database: "postgres",
+    host: "127.0.0.1",
+    port: profile.pg.port,
+    user: profile.pg.user,
+    password: profile.pg.password,
+    database: "postgres",
   });
   await client.connect();
   try {

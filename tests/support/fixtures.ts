@@ -2,7 +2,7 @@
 import { MikroORM } from "@mikro-orm/postgresql";
 import bcrypt from "bcryptjs";
 import { Membership, Shear, Shop, User } from "../../entities";
-import { SCOPES, type Scope } from "../../entities/ApiKey";
+import { SCOPES, type Scope } from "../../lib/schemas/enums";
 import { ormConfig } from "../../lib/db/config";
 import { createKey } from "../../lib/services/keys";
 import { addGradeLibrary } from "../../scripts/lib/seed";
@@ -30,10 +30,22 @@ const TEST_PASSWORD_HASH = bcrypt.hashSync(TEST_PASSWORD, 4);
 
 /** A machine profile for tests (invented figures): a 3 m shear rated 6.35 mm at 414 MPa and 1.5°. */
 export const TEST_SHEAR = {
-  ratedThicknessMm: 6.35, ratedTensileMpa: 414, ratedRakeDeg: 1.5, bladeLengthMm: 3100,
-  backgaugeMinMm: 5, backgaugeMaxMm: 1000, rakeMinDeg: 0.5, rakeMaxDeg: 2.5, gapMinMm: 0.03, gapMaxMm: 1,
-  strokesPerMin: 30, backgaugeSpeedMmPerS: 250, handlingSecondsPerTurn: 6, handlingSecondsPerSheet: 30,
-  maxBladeHardnessHb: 300, gradeThicknessLimitsMm: {},
+  ratedThicknessMm: 6.35,
+  ratedTensileMpa: 414,
+  ratedRakeDeg: 1.5,
+  bladeLengthMm: 3100,
+  backgaugeMinMm: 5,
+  backgaugeMaxMm: 1000,
+  rakeMinDeg: 0.5,
+  rakeMaxDeg: 2.5,
+  gapMinMm: 0.03,
+  gapMaxMm: 1,
+  strokesPerMin: 30,
+  backgaugeSpeedMmPerS: 250,
+  handlingSecondsPerTurn: 6,
+  handlingSecondsPerSheet: 30,
+  maxBladeHardnessHb: 300,
+  gradeThicknessLimitsMm: {},
 };
 
 export interface TestShop {
@@ -64,7 +76,11 @@ export async function createTestShop(label = "shop"): Promise<TestShop> {
   return { shopId: shop.id, shearId: shear.id, key: secret, admins, viewer: `viewer-${slug}@test.example` };
 }
 
-export async function keyFor(shopId: string, scopes: Scope[], extra: { expiresAt?: Date; rateLimitPerMin?: number } = {}) {
+export async function keyFor(
+  shopId: string,
+  scopes: Scope[],
+  extra: { expiresAt?: Date; rateLimitPerMin?: number } = {},
+) {
   const em = (await testOrm()).em.fork();
   return createKey(em, shopId, { name: `test ${scopes.join(",")}`, scopes, ...extra });
 }

@@ -28,7 +28,12 @@ function compiled(schema: unknown) {
 
 export const exercised = new Set<string>();
 
-interface Res { status: number; headers: Record<string, string>; body: unknown; text?: string }
+interface Res {
+  status: number;
+  headers: Record<string, string>;
+  body: unknown;
+  text?: string;
+}
 
 /** Assert that the response's status, content type and body are what the document says. */
 export function expectDocumented(op: Operation, res: Res) {
@@ -47,7 +52,9 @@ export function expectDocumented(op: Operation, res: Res) {
     const schema = content[type].schema as Record<string, unknown>;
     const validate = compiled(schema);
     const ok = validate(res.body);
-    expect(ok, `${op.operationId} ${res.status} body matches the document: ${ajv.errorsText(validate.errors)}`).toBe(true);
+    expect(ok, `${op.operationId} ${res.status} body matches the document: ${ajv.errorsText(validate.errors)}`).toBe(
+      true,
+    );
   }
   exercised.add(op.operationId);
 }

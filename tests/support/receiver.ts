@@ -8,7 +8,10 @@ export interface Received {
   body: string;
 }
 
-export type Responder = (req: Received, count: number) => { status: number; headers?: Record<string, string>; body?: string; holdMs?: number };
+export type Responder = (
+  req: Received,
+  count: number,
+) => { status: number; headers?: Record<string, string>; body?: string; holdMs?: number };
 
 export interface Receiver {
   url: string;
@@ -25,7 +28,11 @@ export async function startReceiver(respond: Responder = () => ({ status: 204 })
     url: "",
     received,
     respond,
-    close: () => new Promise((resolve) => { server.closeAllConnections(); server.close(() => resolve()); }),
+    close: () =>
+      new Promise((resolve) => {
+        server.closeAllConnections();
+        server.close(() => resolve());
+      }),
     async waitFor(n, timeoutMs = 20_000) {
       const deadline = Date.now() + timeoutMs;
       while (received.length < n) {

@@ -12,10 +12,23 @@ export default async function Events({ searchParams }: { searchParams: Promise<{
   const type = (EVENT_TYPES as readonly string[]).includes(q.type ?? "") ? q.type : undefined;
   return (
     <>
-      <PageHeader title="Events" lead="Everything that happened in your shop, newest first. Each is delivered to the endpoints that chose its type." />
+      <PageHeader
+        title="Events"
+        lead="Everything that happened in your shop, newest first. Each is delivered to the endpoints that chose its type."
+      />
       <nav className="mb-3 flex flex-wrap gap-1 text-xs" aria-label="Filter by type">
-        <Link href="/console/events" className={`rounded px-2 py-1 ${!type ? "bg-ink text-scale-50" : "bg-scale-200"}`}>all</Link>
-        {EVENT_TYPES.map((t) => <Link key={t} href={`/console/events?type=${t}`} className={`rounded px-2 py-1 font-mono ${type === t ? "bg-ink text-scale-50" : "bg-scale-200"}`}>{t}</Link>)}
+        <Link href="/console/events" className={`rounded px-2 py-1 ${!type ? "bg-ink text-scale-50" : "bg-scale-200"}`}>
+          all
+        </Link>
+        {EVENT_TYPES.map((t) => (
+          <Link
+            key={t}
+            href={`/console/events?type=${t}`}
+            className={`rounded px-2 py-1 font-mono ${type === t ? "bg-ink text-scale-50" : "bg-scale-200"}`}
+          >
+            {t}
+          </Link>
+        ))}
       </nav>
       <EventsTable type={type} />
     </>

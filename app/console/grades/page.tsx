@@ -16,16 +16,38 @@ export default async function Grades() {
     <>
       <PageHeader title="Grades" lead="Materials programs may name, with the strengths the checks use." />
       <div className="grid gap-6 2xl:grid-cols-[1fr_28rem]">
-        <Table head={["Code", "Name", "Family", "Yield", "Tensile", "Shear / tensile", "Gauges", "Hardness", "Standard"]} empty="No grades yet.">
+        <Table
+          head={["Code", "Name", "Family", "Yield", "Tensile", "Shear / tensile", "Gauges", "Hardness", "Standard"]}
+          empty="No grades yet."
+        >
           {grades.data.map((g) => (
             <tr key={g.id}>
-              <Td mono><Link className="text-edge hover:underline" href={`/console/grades/${g.id}`}>{g.code}</Link></Td>
+              <Td mono>
+                <Link className="text-edge hover:underline" href={`/console/grades/${g.id}`}>
+                  {g.code}
+                </Link>
+              </Td>
               <Td>{g.name}</Td>
               <Td>{g.family}</Td>
               <Td mono>{g.yieldMpa ? mpa(g.yieldMpa) : "—"}</Td>
-              <Td mono>{g.tensileMinMpa ? `at least ${mpa(g.tensileMinMpa)}` : g.tensileTypicalMpa ? `about ${mpa(g.tensileTypicalMpa)}` : "—"}{g.valuesAreTypical ? " (typical)" : ""}</Td>
+              <Td mono>
+                {g.tensileMinMpa
+                  ? `at least ${mpa(g.tensileMinMpa)}`
+                  : g.tensileTypicalMpa
+                    ? `about ${mpa(g.tensileTypicalMpa)}`
+                    : "—"}
+                {g.valuesAreTypical ? " (typical)" : ""}
+              </Td>
               <Td mono>{g.shearTensileRatio}</Td>
-              <Td>{g.gaugeFamily ? <abbr title={GAUGE_SYSTEM_WORDS[g.gaugeFamily]} className="font-mono text-xs">{g.gaugeFamily}</abbr> : "—"}</Td>
+              <Td>
+                {g.gaugeFamily ? (
+                  <abbr title={GAUGE_SYSTEM_WORDS[g.gaugeFamily]} className="font-mono text-xs">
+                    {g.gaugeFamily}
+                  </abbr>
+                ) : (
+                  "—"
+                )}
+              </Td>
               <Td mono>{g.hardnessHb ? `${g.hardnessHb} HB` : "—"}</Td>
               <Td className="text-xs text-ink-muted">{g.standard}</Td>
             </tr>
@@ -33,8 +55,14 @@ export default async function Grades() {
         </Table>
         <dl className="text-xs text-ink-muted 2xl:col-start-1">
           <dt className="font-semibold text-ink">Gauge systems</dt>
-          {Object.entries(GAUGE_SYSTEM_WORDS).map(([code, words]) => <dd key={code}><span className="font-mono">{code}</span>: {words}</dd>)}
-          <dd className="mt-1">A program may give its thickness as a gauge number; the grade&apos;s system turns it into a size.</dd>
+          {Object.entries(GAUGE_SYSTEM_WORDS).map(([code, words]) => (
+            <dd key={code}>
+              <span className="font-mono">{code}</span>: {words}
+            </dd>
+          ))}
+          <dd className="mt-1">
+            A program may give its thickness as a gauge number; the grade&apos;s system turns it into a size.
+          </dd>
         </dl>
         {can(member.role, "catalog:manage") && (
           <section className="rounded-md border border-scale-200 bg-white p-4">

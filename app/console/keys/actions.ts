@@ -27,11 +27,17 @@ export const createKeyAction = memberAction("keys:create-read-only")
   .action(async ({ parsedInput, ctx: { member, em } }) => {
     const beyond = parsedInput.scopes.filter((scope) => !READ_ONLY_SCOPES.includes(scope));
     if (!can(member.role, "keys:manage") && beyond.length) {
-      throw new NotAllowedError(`Your role (${member.role}) may create read-only keys (${READ_ONLY_SCOPES.join(", ")}); ${beyond.join(", ")} need an admin or owner.`);
+      throw new NotAllowedError(
+        `Your role (${member.role}) may create read-only keys (${READ_ONLY_SCOPES.join(", ")}); ${beyond.join(", ")} need an admin or owner.`,
+      );
     }
     const expiresAt = parsedInput.expires ? new Date(`${parsedInput.expires}T23:59:59Z`) : null;
     const { key, secret } = await createKey(em, member.shopId, {
-      name: parsedInput.name, scopes: parsedInput.scopes, shearIds: parsedInput.shears, expiresAt, createdBy: member.userId,
+      name: parsedInput.name,
+      scopes: parsedInput.scopes,
+      shearIds: parsedInput.shears,
+      expiresAt,
+      createdBy: member.userId,
     });
     revalidatePath("/console/keys");
     return { secret, prefix: key.prefix, message: `Key ${key.name} created.` };

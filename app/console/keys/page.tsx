@@ -3,7 +3,7 @@ import { ActionForm } from "@/components/console/ActionForm";
 import { KeyForm } from "@/components/console/KeyForm";
 import { Badge, PageHeader, Table, Td, when } from "@/components/ui";
 import { Shear, User } from "@/entities";
-import { SCOPES } from "@/entities/ApiKey";
+import { SCOPES } from "@/lib/schemas/enums";
 import { can } from "@/lib/auth/roles";
 import { currentMember } from "@/lib/auth/session";
 import { requestEm } from "@/lib/db/orm";
@@ -21,33 +21,69 @@ export default async function Keys({ searchParams }: { searchParams: Promise<{ s
   const keys = showRevoked ? all : all.filter((k) => !k.revokedAt);
   const revoked = all.length - all.filter((k) => !k.revokedAt).length;
   const shears = await em.find(Shear, { shop: member.shopId, archivedAt: null }, { orderBy: { name: "asc" } });
-  const shearNames = new Map((await em.find(Shear, { shop: member.shopId }, { fields: ["name"] })).map((s) => [s.id, s.name]));
+  const shearNames = new Map(
+    (await em.find(Shear, { shop: member.shopId }, { fields: ["name"] })).map((s) => [s.id, s.name]),
+  );
   const creatorIds = [...new Set(all.map((k) => k.createdBy).filter((id): id is string => Boolean(id)))];
-  const creators = new Map((creatorIds.length ? await em.find(User, { id: { $in: creatorIds } }, { fields: ["name"] }) : []).map((u) => [u.id, u.name]));
+  const creators = new Map(
+    (creatorIds.length ? await em.find(User, { id: { $in: creatorIds } }, { fields: ["name"] }) : []).map((u) => [
+      u.id,
+      u.name,
+    ]),
+  );
   const manage = can(member.role, "keys:manage");
   const readOnly = !manage && can(member.role, "keys:create-read-only");
-  const state = (k: (typeof keys)[number]) => (k.revokedAt ? "revoked" : k.expiresAt && new Date(k.expiresAt) <= new Date() ? "expired" : "active");
+  const state = (k: (typeof keys)[number]) =>
+    k.revokedAt ? "revoked" : k.expiresAt && new Date(k.expiresAt) <= new Date() ? "expired" : "active";
   return (
     <>
-      <PageHeader title="API keys" lead="Keys your systems and gateways use. Secrets are shown once, at creation; Shearwire keeps only a digest." />
+      <PageHeader
+        title="API keys"
+        lead="Keys your systems and gateways use. Secrets are shown once, at creation; Shearwire keeps only a digest."
+      />
       <div className="grid gap-6 xl:grid-cols-[1fr_26rem]">
         <div className="space-y-3">
-          <Table head={["Name", "Key", "Scopes", "Shears", "Created", "Last used", "Expires", "State", ""]}
-            empty={showRevoked ? "No keys yet." : "No keys in use. Create one with the form: pick “ERP integration” for the system that sends orders."}>
+          <Table
+            head={["Name", "Key", "Scopes", "Shears", "Created", "Last used", "Expires", "State", ""]}
+            empty={
+              showRevoked
+                ? "No keys yet."
+                : "No keys in use. Create one with the form: pick “ERP integration” for the system that sends orders."
+            }
+          >
             {keys.map((k) => (
               <tr key={k.id}>
                 <Td>{k.name}</Td>
                 <Td mono>{k.prefix}…</Td>
                 <Td mono>{k.scopes.join(" ")}</Td>
                 <Td>{k.shearIds.length ? k.shearIds.map((id) => shearNames.get(id) ?? id).join(", ") : "all"}</Td>
-                <Td><span className="font-mono text-xs">{when(k.createdAt)}</span>{k.createdBy ? <><br /><span className="text-xs text-ink-muted">by {creators.get(k.createdBy) ?? "a former member"}</span></> : null}</Td>
+                <Td>
+                  <span className="font-mono text-xs">{when(k.createdAt)}</span>
+                  {k.createdBy ? (
+                    <>
+                      <br />
+                      <span className="text-xs text-ink-muted">
+                        by {creators.get(k.createdBy) ?? "a former member"}
+                      </span>
+                    </>
+                  ) : null}
+                </Td>
                 <Td mono>{when(k.lastUsedAt)}</Td>
                 <Td mono>{when(k.expiresAt)}</Td>
-                <Td><Badge value={state(k)} /></Td>
+                <Td>
+                  <Badge value={state(k)} />
+                </Td>
                 <Td>
                   {manage && !k.revokedAt && (
-                    <ActionForm action={revokeKeyAction} fields={{ id: k.id }} label={`Revoke key ${k.name}`} buttonClassName="text-xs text-fault hover:underline"
-                      confirm={`Revoke ${k.name} (${k.prefix}…)? Requests with it fail from the next one on.`}>Revoke</ActionForm>
+                    <ActionForm
+                      action={revokeKeyAction}
+                      fields={{ id: k.id }}
+                      label={`Revoke key ${k.name}`}
+                      buttonClassName="text-xs text-fault hover:underline"
+                      confirm={`Revoke ${k.name} (${k.prefix}…)? Requests with it fail from the next one on.`}
+                    >
+                      Revoke
+                    </ActionForm>
                   )}
                 </Td>
               </tr>
@@ -55,21 +91,35 @@ export default async function Keys({ searchParams }: { searchParams: Promise<{ s
           </Table>
           {revoked > 0 && (
             <p className="text-xs">
-              <Link className="text-edge" href={showRevoked ? "/console/keys" : "/console/keys?show=revoked"}>{showRevoked ? "Hide revoked keys" : `Show ${revoked} revoked key${revoked === 1 ? "" : "s"}`}</Link>
+              <Link className="text-edge" href={showRevoked ? "/console/keys" : "/console/keys?show=revoked"}>
+                {showRevoked ? "Hide revoked keys" : `Show ${revoked} revoked key${revoked === 1 ? "" : "s"}`}
+              </Link>
             </p>
           )}
           <details className="rounded-md border border-scale-200 bg-white p-4 text-sm">
             <summary className="cursor-pointer font-semibold">What each scope allows</summary>
             <dl className="mt-2 grid gap-x-4 gap-y-1 sm:grid-cols-[10rem_1fr]">
-              {SCOPES.map((s) => <div key={s} className="contents"><dt className="font-mono text-xs">{s}</dt><dd className="text-ink-muted">{SCOPE_WORDS[s]}</dd></div>)}
+              {SCOPES.map((s) => (
+                <div key={s} className="contents">
+                  <dt className="font-mono text-xs">{s}</dt>
+                  <dd className="text-ink-muted">{SCOPE_WORDS[s]}</dd>
+                </div>
+              ))}
             </dl>
           </details>
         </div>
         {manage || readOnly ? (
-          <KeyForm scopes={readOnly ? READ_ONLY_SCOPES : SCOPES} words={SCOPE_WORDS} presets={readOnly ? KEY_PRESETS.filter((p) => p.name === "read-only") : KEY_PRESETS}
-            shears={shears.map((s) => ({ id: s.id, name: s.name }))} readOnly={readOnly} />
+          <KeyForm
+            scopes={readOnly ? READ_ONLY_SCOPES : SCOPES}
+            words={SCOPE_WORDS}
+            presets={readOnly ? KEY_PRESETS.filter((p) => p.name === "read-only") : KEY_PRESETS}
+            shears={shears.map((s) => ({ id: s.id, name: s.name }))}
+            readOnly={readOnly}
+          />
         ) : (
-          <p className="text-sm text-ink-muted">Your role ({member.role}) can see keys; admins and owners create and revoke them.</p>
+          <p className="text-sm text-ink-muted">
+            Your role ({member.role}) can see keys; admins and owners create and revoke them.
+          </p>
         )}
       </div>
     </>

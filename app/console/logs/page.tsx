@@ -15,33 +15,96 @@ export default async function Logs({ searchParams }: { searchParams: Promise<Rec
   const em = await requestEm();
   const hours = q.hours && q.hours in HOURS ? Number(q.hours) : 24;
   const filter: Pick<LogFilter, "statusClass"> = {
-    statusClass: ["2xx", "3xx", "4xx", "5xx"].includes(q.status ?? "") ? (q.status as LogFilter["statusClass"]) : undefined,
+    statusClass: ["2xx", "3xx", "4xx", "5xx"].includes(q.status ?? "")
+      ? (q.status as LogFilter["statusClass"])
+      : undefined,
   };
   const [keys, routes] = await Promise.all([listKeys(em, member.shopId), routesSeen(em, member.shopId)]);
   const keyName = new Map(keys.map((k) => [k.id, `${k.name} (${k.prefix}…)`]));
   return (
     <>
-      <PageHeader title="Request log" lead="Every API call with a key of this shop: who, what, how it went. Bodies and secrets are never logged." />
+      <PageHeader
+        title="Request log"
+        lead="Every API call with a key of this shop: who, what, how it went. Bodies and secrets are never logged."
+      />
       <form className="mb-3 flex flex-wrap items-end gap-2 text-sm" role="search">
-        <label className="grid gap-0.5 text-xs">Request id
-          <input name="id" defaultValue={q.id ?? ""} maxLength={64} placeholder="req_…" className="rounded border border-scale-300 bg-white px-2 py-1 font-mono text-sm" />
+        <label className="grid gap-0.5 text-xs">
+          Request id
+          <input
+            name="id"
+            defaultValue={q.id ?? ""}
+            maxLength={64}
+            placeholder="req_…"
+            className="rounded border border-scale-300 bg-white px-2 py-1 font-mono text-sm"
+          />
         </label>
-        <label className="grid gap-0.5 text-xs">Key
-          <select name="key" defaultValue={q.key ?? ""} className="rounded border border-scale-300 px-2 py-1 text-sm"><option value="">any</option>{keys.map((k) => <option key={k.id} value={k.id}>{keyName.get(k.id)}</option>)}</select>
+        <label className="grid gap-0.5 text-xs">
+          Key
+          <select name="key" defaultValue={q.key ?? ""} className="rounded border border-scale-300 px-2 py-1 text-sm">
+            <option value="">any</option>
+            {keys.map((k) => (
+              <option key={k.id} value={k.id}>
+                {keyName.get(k.id)}
+              </option>
+            ))}
+          </select>
         </label>
-        <label className="grid gap-0.5 text-xs">Route
-          <select name="route" defaultValue={q.route ?? ""} className="rounded border border-scale-300 px-2 py-1 text-sm"><option value="">any</option>{routes.map((r) => <option key={r}>{r}</option>)}</select>
+        <label className="grid gap-0.5 text-xs">
+          Route
+          <select
+            name="route"
+            defaultValue={q.route ?? ""}
+            className="rounded border border-scale-300 px-2 py-1 text-sm"
+          >
+            <option value="">any</option>
+            {routes.map((r) => (
+              <option key={r}>{r}</option>
+            ))}
+          </select>
         </label>
-        <label className="grid gap-0.5 text-xs">Status
-          <select name="status" defaultValue={q.status ?? ""} className="rounded border border-scale-300 px-2 py-1 text-sm"><option value="">any</option>{["2xx", "3xx", "4xx", "5xx"].map((s) => <option key={s}>{s}</option>)}</select>
+        <label className="grid gap-0.5 text-xs">
+          Status
+          <select
+            name="status"
+            defaultValue={q.status ?? ""}
+            className="rounded border border-scale-300 px-2 py-1 text-sm"
+          >
+            <option value="">any</option>
+            {["2xx", "3xx", "4xx", "5xx"].map((s) => (
+              <option key={s}>{s}</option>
+            ))}
+          </select>
         </label>
-        <label className="grid gap-0.5 text-xs">Time
-          <select name="hours" defaultValue={String(hours)} className="rounded border border-scale-300 px-2 py-1 text-sm">{Object.entries(HOURS).map(([h, l]) => <option key={h} value={h}>{l}</option>)}</select>
+        <label className="grid gap-0.5 text-xs">
+          Time
+          <select
+            name="hours"
+            defaultValue={String(hours)}
+            className="rounded border border-scale-300 px-2 py-1 text-sm"
+          >
+            {Object.entries(HOURS).map(([h, l]) => (
+              <option key={h} value={h}>
+                {l}
+              </option>
+            ))}
+          </select>
         </label>
         <button className="rounded-md bg-ink px-3 py-1.5 text-scale-50">Filter</button>
       </form>
-      <RequestTable query={new URLSearchParams({ hours: String(hours), ...(q.id ? { id: q.id.trim().slice(0, 64) } : {}), ...(q.key ? { key: q.key } : {}), ...(q.route ? { route: q.route } : {}), ...(filter.statusClass ? { status: filter.statusClass } : {}) }).toString()} keyNames={Object.fromEntries(keyName)} />
-      <p className="mt-2 text-xs text-ink-muted">50 to a page, newest first; the first page refreshes every 5 seconds. A request id finds its request at any age. Click a column to sort the page.</p>
+      <RequestTable
+        query={new URLSearchParams({
+          hours: String(hours),
+          ...(q.id ? { id: q.id.trim().slice(0, 64) } : {}),
+          ...(q.key ? { key: q.key } : {}),
+          ...(q.route ? { route: q.route } : {}),
+          ...(filter.statusClass ? { status: filter.statusClass } : {}),
+        }).toString()}
+        keyNames={Object.fromEntries(keyName)}
+      />
+      <p className="mt-2 text-xs text-ink-muted">
+        50 to a page, newest first; the first page refreshes every 5 seconds. A request id finds its request at any age.
+        Click a column to sort the page.
+      </p>
     </>
   );
 }

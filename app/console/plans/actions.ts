@@ -2,7 +2,7 @@
 
 import { revalidatePath } from "next/cache";
 import { redirect } from "next/navigation";
-import { ApiError } from "@/lib/api/errors";
+import { ApiError } from "@/lib/errors";
 import { zfd } from "zod-form-data";
 import { memberAction } from "@/lib/auth/action";
 import { PlanInput } from "@/lib/schemas/plan";
@@ -10,21 +10,32 @@ import { z } from "@/lib/schemas/zod";
 import { parseBlanksCsv, type RowError } from "@/lib/services/import";
 import { cancelPlan, createPlan, writePrograms } from "@/lib/services/plans";
 
-
 const MAX_BYTES = 1_048_576;
 const text = (v: FormDataEntryValue | null) => (typeof v === "string" && v.trim() !== "" ? v.trim() : undefined);
 const num = (v: FormDataEntryValue | null) => (text(v) === undefined ? undefined : Number(text(v)));
 
 /** Stock lines: "length, width[, count]" one per line; an empty count is as many as needed. */
 function parseStock(v: string | undefined) {
-  return (v ?? "").split(/\r?\n/).map((l) => l.trim()).filter(Boolean).map((line) => {
-    const [length, width, count] = line.split(/[,;×x\s]+/).filter(Boolean).map(Number);
-    return count === undefined || Number.isNaN(count) ? { length, width } : { length, width, count };
-  });
+  return (v ?? "")
+    .split(/\r?\n/)
+    .map((l) => l.trim())
+    .filter(Boolean)
+    .map((line) => {
+      const [length, width, count] = line
+        .split(/[,;×x\s]+/)
+        .filter(Boolean)
+        .map(Number);
+      return count === undefined || Number.isNaN(count) ? { length, width } : { length, width, count };
+    });
 }
 
 /** Why nothing was planned; `csv` is an uploaded file's rows, for the form to show in its rows box to be fixed there. */
-export type PlanRefusal = { message?: string; errors?: RowError[]; fields?: { field: string; message: string }[]; csv?: string };
+export type PlanRefusal = {
+  message?: string;
+  errors?: RowError[];
+  fields?: { field: string; message: string }[];
+  csv?: string;
+};
 
 /** The planner form: blanks from an uploaded cut list (CSV) or pasted rows, checked with the API's schema. */
 export const planAction = memberAction("programs:write")
@@ -49,24 +60,31 @@ export const planAction = memberAction("programs:write")
       title: text(form.get("title")),
       shear: text(form.get("shear")) ?? "",
       grade: text(form.get("grade")) ?? "",
-      thickness: thicknessKind === "gauge" ? { gauge: num(form.get("thickness")) } : { value: num(form.get("thickness")) },
+      thickness:
+        thicknessKind === "gauge" ? { gauge: num(form.get("thickness")) } : { value: num(form.get("thickness")) },
       units: text(form.get("units")) ?? "mm",
       stock: parseStock(text(form.get("stock"))),
       blanks: parsed.blanks,
-      options: JSON.parse(JSON.stringify({
-        objective: text(form.get("objective")),
-        trim: num(form.get("trim")),
-        overProductionPct: num(form.get("overProductionPct")),
-        reusableOffcut: reusableLength && reusableWidth ? { length: reusableLength, width: reusableWidth } : undefined,
-        offcutsAsStock: form.get("offcutsAsStock") === "on" ? true : undefined,
-      })),
+      options: JSON.parse(
+        JSON.stringify({
+          objective: text(form.get("objective")),
+          trim: num(form.get("trim")),
+          overProductionPct: num(form.get("overProductionPct")),
+          reusableOffcut:
+            reusableLength && reusableWidth ? { length: reusableLength, width: reusableWidth } : undefined,
+          offcutsAsStock: form.get("offcutsAsStock") === "on" ? true : undefined,
+        }),
+      ),
     };
     const result = PlanInput.safeParse(input);
     if (!result.success) {
       return refused({
         fields: result.error.issues.map((i) => {
           const [head, row, ...rest] = i.path;
-          const field = head === "blanks" && typeof row === "number" ? `row ${row + 2}${rest.length ? ` · ${rest.join(".")}` : ""}` : i.path.join(".") || "form";
+          const field =
+            head === "blanks" && typeof row === "number"
+              ? `row ${row + 2}${rest.length ? ` · ${rest.join(".")}` : ""}`
+              : i.path.join(".") || "form";
           return { field, message: i.message };
         }),
       });
@@ -77,14 +95,19 @@ export const planAction = memberAction("programs:write")
     } catch (err) {
       if (!(err instanceof ApiError) || err.status >= 500) throw err;
       const errs = (err.extensions.errors as { pointer: string; message: string }[] | undefined) ?? [];
-      return refused({ message: err.message, fields: errs.map((e) => ({ field: e.pointer.slice(1).replace(/\//g, "."), message: e.message })) });
+      return refused({
+        message: err.message,
+        fields: errs.map((e) => ({ field: e.pointer.slice(1).replace(/\//g, "."), message: e.message })),
+      });
     }
     revalidatePath("/console/plans");
     redirect(`/console/plans/${id}`);
   });
 
 export const writeProgramsAction = memberAction("programs:write")
-  .inputSchema(zfd.formData({ plan: zfd.text(z.string().max(64)), prefix: zfd.text(z.string().trim().max(90).optional()) }))
+  .inputSchema(
+    zfd.formData({ plan: zfd.text(z.string().max(64)), prefix: zfd.text(z.string().trim().max(90).optional()) }),
+  )
   .action(async ({ parsedInput, ctx: { member, em } }) => {
     const written = await writePrograms(em, member.shopId, parsedInput.plan, { referencePrefix: parsedInput.prefix });
     revalidatePath(`/console/plans/${parsedInput.plan}`);

@@ -13,41 +13,107 @@ export default async function Plans({ searchParams }: { searchParams: Promise<{ 
   const q = await searchParams;
   const search = q.search?.trim().slice(0, 100) || undefined;
   const unsafe = [search, q.cursor].some((v) => v && textProblem(v));
-  const { data, next_cursor } = unsafe ? { data: [], next_cursor: null }
-    : await listPlans(await requestEm(), member.shopId, { limit: 50, search, cursor: q.cursor }).catch(() => ({ data: [], next_cursor: null }));
+  const { data, next_cursor } = unsafe
+    ? { data: [], next_cursor: null }
+    : await listPlans(await requestEm(), member.shopId, { limit: 50, search, cursor: q.cursor }).catch(() => ({
+        data: [],
+        next_cursor: null,
+      }));
   return (
     <>
-      <PageHeader title="Plans" lead="Order lines laid out on the stock on hand in patterns your shear can cut, and the draft programs written from them.">
-        {can(member.role, "programs:write") && <Link href="/console/plans/new" className="rounded-md bg-ink px-3 py-1.5 text-sm font-medium text-scale-50">New plan</Link>}
+      <PageHeader
+        title="Plans"
+        lead="Order lines laid out on the stock on hand in patterns your shear can cut, and the draft programs written from them."
+      >
+        {can(member.role, "programs:write") && (
+          <Link href="/console/plans/new" className="rounded-md bg-ink px-3 py-1.5 text-sm font-medium text-scale-50">
+            New plan
+          </Link>
+        )}
       </PageHeader>
       <form className="mb-3 flex flex-wrap items-end gap-2 text-sm" role="search">
-        <label className="grid gap-0.5 text-xs">Reference or title contains
-          <input name="search" defaultValue={search ?? ""} maxLength={100} className="rounded border border-scale-300 bg-white px-2 py-1 text-sm" />
+        <label className="grid gap-0.5 text-xs">
+          Reference or title contains
+          <input
+            name="search"
+            defaultValue={search ?? ""}
+            maxLength={100}
+            className="rounded border border-scale-300 bg-white px-2 py-1 text-sm"
+          />
         </label>
         <button className="rounded-md bg-ink px-3 py-1.5 text-scale-50">Show</button>
-        {search && <Link href="/console/plans" className="text-xs text-edge">Clear</Link>}
+        {search && (
+          <Link href="/console/plans" className="text-xs text-edge">
+            Clear
+          </Link>
+        )}
       </form>
-      <Table head={["Plan", "Created", "Status", "Sheets", "Patterns", "Blanks", "Stock used", "Programs"]} empty={search ? "No plans match." : "No plans yet. Send one to POST /api/v1/plans, or start one here with a cut list."}>
+      <Table
+        head={["Plan", "Created", "Status", "Sheets", "Patterns", "Blanks", "Stock used", "Programs"]}
+        empty={
+          search
+            ? "No plans match."
+            : "No plans yet. Send one to POST /api/v1/plans, or start one here with a cut list."
+        }
+      >
         {data.map((p) => (
           <tr key={p.id}>
-            <Td><Link href={`/console/plans/${p.id}`} className="text-edge hover:underline">{p.reference ?? p.id}</Link>{p.title ? <span className="text-ink-muted"> · {p.title}</span> : null}</Td>
+            <Td>
+              <Link href={`/console/plans/${p.id}`} className="text-edge hover:underline">
+                {p.reference ?? p.id}
+              </Link>
+              {p.title ? <span className="text-ink-muted"> · {p.title}</span> : null}
+            </Td>
             <Td className="text-ink-muted">{when(p.createdAt)}</Td>
             <Td>
-              {p.status === "complete"
-                ? <Badge value={p.coverage === "complete" ? "pass" : "warn"} label={p.coverage === "complete" ? "complete" : "partial"} />
-                : <Badge value={p.status === "running" || p.status === "queued" ? "running" : p.status === "failed" ? "fail" : "cancelled"} label={p.status} />}
+              {p.status === "complete" ? (
+                <Badge
+                  value={p.coverage === "complete" ? "pass" : "warn"}
+                  label={p.coverage === "complete" ? "complete" : "partial"}
+                />
+              ) : (
+                <Badge
+                  value={
+                    p.status === "running" || p.status === "queued"
+                      ? "running"
+                      : p.status === "failed"
+                        ? "fail"
+                        : "cancelled"
+                  }
+                  label={p.status}
+                />
+              )}
             </Td>
             <Td mono>{p.summary?.sheets ?? "—"}</Td>
             <Td mono>{p.summary?.patterns ?? (p.progress ? `${p.progress.patterns}…` : "—")}</Td>
-            <Td mono>{p.summary ? `${p.summary.blanksPlanned} / ${p.summary.blanksAsked}` : p.progress ? `${p.progress.piecesPlaced} / ${p.progress.piecesWanted}…` : "—"}</Td>
+            <Td mono>
+              {p.summary
+                ? `${p.summary.blanksPlanned} / ${p.summary.blanksAsked}`
+                : p.progress
+                  ? `${p.progress.piecesPlaced} / ${p.progress.piecesWanted}…`
+                  : "—"}
+            </Td>
             <Td mono>{p.summary ? `${p.summary.utilisationPct} %` : "—"}</Td>
-            <Td>{p.programs.length ? `${p.programs.length} written` : <span className="text-ink-muted">not yet</span>}</Td>
+            <Td>
+              {p.programs.length ? `${p.programs.length} written` : <span className="text-ink-muted">not yet</span>}
+            </Td>
           </tr>
         ))}
       </Table>
       <p className="mt-2 flex gap-3 text-xs">
-        {q.cursor && <Link className="text-edge" href={`/console/plans${search ? `?search=${encodeURIComponent(search)}` : ""}`}>Newest</Link>}
-        {next_cursor && <Link className="text-edge" href={`/console/plans?${new URLSearchParams({ ...(search ? { search } : {}), cursor: next_cursor })}`}>Older plans →</Link>}
+        {q.cursor && (
+          <Link className="text-edge" href={`/console/plans${search ? `?search=${encodeURIComponent(search)}` : ""}`}>
+            Newest
+          </Link>
+        )}
+        {next_cursor && (
+          <Link
+            className="text-edge"
+            href={`/console/plans?${new URLSearchParams({ ...(search ? { search } : {}), cursor: next_cursor })}`}
+          >
+            Older plans →
+          </Link>
+        )}
       </p>
     </>
   );

@@ -13,17 +13,35 @@ export default async function Shears() {
   const shears = await listShears(await requestEm(), member.shopId, { limit: 200 });
   return (
     <>
-      <PageHeader title="Shears" lead="The capacity of each machine. Programs are checked against these figures: keep them true to the maker's plate and manual." />
+      <PageHeader
+        title="Shears"
+        lead="The capacity of each machine. Programs are checked against these figures: keep them true to the maker's plate and manual."
+      />
       <div className="grid gap-6 2xl:grid-cols-[1fr_28rem]">
-        <Table head={["Name", "Rating", "Blade", "Backgauge", "Rake", "Blade gap", "Strokes", "Blades to", "Id"]} empty="No shears yet.">
+        <Table
+          head={["Name", "Rating", "Blade", "Backgauge", "Rake", "Blade gap", "Strokes", "Blades to", "Id"]}
+          empty="No shears yet."
+        >
           {shears.data.map((s) => (
             <tr key={s.id}>
-              <Td><Link className="text-edge hover:underline" href={`/console/shears/${s.id}`}>{s.name}</Link></Td>
-              <Td mono>{s.ratedThicknessMm} mm at {s.ratedTensileMpa} MPa, {s.ratedRakeDeg}°</Td>
+              <Td>
+                <Link className="text-edge hover:underline" href={`/console/shears/${s.id}`}>
+                  {s.name}
+                </Link>
+              </Td>
+              <Td mono>
+                {s.ratedThicknessMm} mm at {s.ratedTensileMpa} MPa, {s.ratedRakeDeg}°
+              </Td>
               <Td mono>{s.bladeLengthMm} mm</Td>
-              <Td mono>{s.backgaugeMinMm}–{s.backgaugeMaxMm} mm</Td>
-              <Td mono>{s.rakeMinDeg}–{s.rakeMaxDeg}°</Td>
-              <Td mono>{s.gapMinMm}–{s.gapMaxMm} mm</Td>
+              <Td mono>
+                {s.backgaugeMinMm}–{s.backgaugeMaxMm} mm
+              </Td>
+              <Td mono>
+                {s.rakeMinDeg}–{s.rakeMaxDeg}°
+              </Td>
+              <Td mono>
+                {s.gapMinMm}–{s.gapMaxMm} mm
+              </Td>
               <Td mono>{s.strokesPerMin}/min</Td>
               <Td mono>{s.maxBladeHardnessHb ? `${s.maxBladeHardnessHb} HB` : "—"}</Td>
               <Td mono>{s.id}</Td>

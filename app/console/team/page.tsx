@@ -27,23 +27,40 @@ export default async function Team() {
           <Table head={["Name", "E-mail", "Role", ...(manage ? [""] : [])]}>
             {members.map((m) => (
               <tr key={m.id} data-testid="member">
-                <Td>{m.name}{m.userId === member.userId ? " (you)" : ""}</Td>
+                <Td>
+                  {m.name}
+                  {m.userId === member.userId ? " (you)" : ""}
+                </Td>
                 <Td mono>{m.email}</Td>
-                <Td><Badge value="draft" label={m.role} /></Td>
-                {manage && <Td><MemberControls id={m.id} name={m.name} role={m.role} self={m.userId === member.userId} /></Td>}
+                <Td>
+                  <Badge value="draft" label={m.role} />
+                </Td>
+                {manage && (
+                  <Td>
+                    <MemberControls id={m.id} name={m.name} role={m.role} self={m.userId === member.userId} />
+                  </Td>
+                )}
               </tr>
             ))}
           </Table>
           {invitations.length > 0 && (
             <Table head={["Invited", "Role", "Link expires", ""]}>
               {invitations.map((i) => (
-                <tr key={i.id}><Td mono>{i.email}</Td><Td>{i.role}</Td><Td mono>{when(i.expiresAt)}</Td><Td>{manage && <RevokeInvite id={i.id} email={i.email} />}</Td></tr>
+                <tr key={i.id}>
+                  <Td mono>{i.email}</Td>
+                  <Td>{i.role}</Td>
+                  <Td mono>{when(i.expiresAt)}</Td>
+                  <Td>{manage && <RevokeInvite id={i.id} email={i.email} />}</Td>
+                </tr>
               ))}
             </Table>
           )}
           <dl className="grid grid-cols-[6rem_1fr] gap-y-1 text-xs text-ink-muted">
             {Object.entries(ROLE_TEXT).map(([r, t]) => (
-              <Fragment key={r}><dt className="font-mono">{r}</dt><dd>{t}</dd></Fragment>
+              <Fragment key={r}>
+                <dt className="font-mono">{r}</dt>
+                <dd>{t}</dd>
+              </Fragment>
             ))}
           </dl>
         </div>

@@ -17,7 +17,13 @@ const done = <T extends object>(value: T) => {
 };
 
 export const createEndpointAction = memberAction("webhooks:manage")
-  .inputSchema(zfd.formData({ url: zfd.text(fields.url), description: zfd.text(fields.description), eventTypes: zfd.repeatable(z.array(EventType).max(50)) }))
+  .inputSchema(
+    zfd.formData({
+      url: zfd.text(fields.url),
+      description: zfd.text(fields.description),
+      eventTypes: zfd.repeatable(z.array(EventType).max(50)),
+    }),
+  )
   .action(async ({ parsedInput, ctx: { member, em } }) => {
     const { secret } = await webhooks.createEndpoint(em, member.shopId, parsedInput);
     return done({ secret, message: "Endpoint added." });
@@ -53,7 +59,14 @@ export const resendAction = memberAction("webhooks:manage")
   });
 
 export const updateEndpointAction = memberAction("webhooks:manage")
-  .inputSchema(zfd.formData({ id, url: zfd.text(fields.url), description: zfd.text(fields.description), eventTypes: zfd.repeatable(z.array(EventType).max(50)) }))
+  .inputSchema(
+    zfd.formData({
+      id,
+      url: zfd.text(fields.url),
+      description: zfd.text(fields.description),
+      eventTypes: zfd.repeatable(z.array(EventType).max(50)),
+    }),
+  )
   .action(async ({ parsedInput: { id: endpointId, url, description, eventTypes }, ctx: { member, em } }) => {
     await webhooks.updateEndpoint(em, member.shopId, endpointId, { url, description: description ?? "", eventTypes });
     revalidatePath(`/console/webhooks/${endpointId}`);
@@ -73,5 +86,9 @@ export const resendFailedAction = memberAction("webhooks:manage")
   .action(async ({ parsedInput, ctx: { member, em } }) => {
     const count = await webhooks.resendFailed(em, member.shopId, parsedInput.id);
     revalidatePath(`/console/webhooks/${parsedInput.id}`);
-    return done({ message: count ? `${count} failed event${count === 1 ? "" : "s"} sent again.` : "Nothing has failed that was not already sent again." });
+    return done({
+      message: count
+        ? `${count} failed event${count === 1 ? "" : "s"} sent again.`
+        : "Nothing has failed that was not already sent again.",
+    });
   });

@@ -15,16 +15,24 @@ export default async function Webhooks() {
   const endpoints = await listEndpoints(em, member.shopId, { limit: 100 });
   const manage = can(member.role, "webhooks:manage");
   const test = can(member.role, "webhooks:test");
-  const recent = await Promise.all(endpoints.data.map((e) => listDeliveries(em, member.shopId, { endpoint: e.id }, { limit: 5 })));
+  const recent = await Promise.all(
+    endpoints.data.map((e) => listDeliveries(em, member.shopId, { endpoint: e.id }, { limit: 5 })),
+  );
   return (
     <>
-      <PageHeader title="Webhooks" lead="Where Shearwire sends events, signed per Standard Webhooks, retried for a day, every attempt logged." />
+      <PageHeader
+        title="Webhooks"
+        lead="Where Shearwire sends events, signed per Standard Webhooks, retried for a day, every attempt logged."
+      />
       <div className="grid gap-6 xl:grid-cols-[1fr_24rem]">
         <div className="space-y-4">
           {endpoints.data.length === 0 && (
             <div className="rounded-md border border-dashed border-scale-300 p-6 text-sm text-ink-muted">
               <p className="font-medium text-ink">No endpoints yet.</p>
-              <p className="mt-1">Add the URL of the system that should hear about programs and plans (your ERP, say) with the form; then send it a test event and verify the signature with the secret it is given. The API reference shows how.</p>
+              <p className="mt-1">
+                Add the URL of the system that should hear about programs and plans (your ERP, say) with the form; then
+                send it a test event and verify the signature with the secret it is given. The API reference shows how.
+              </p>
             </div>
           )}
           {endpoints.data.map((e, i) => (
@@ -32,28 +40,53 @@ export default async function Webhooks() {
               <div className="flex flex-wrap items-start justify-between gap-2">
                 <div className="min-w-0">
                   <p className="break-all font-mono text-sm">{e.url}</p>
-                  <p className="text-xs text-ink-muted">{e.description || "—"} · {e.eventTypes.length ? e.eventTypes.join(", ") : "every event"}</p>
+                  <p className="text-xs text-ink-muted">
+                    {e.description || "—"} · {e.eventTypes.length ? e.eventTypes.join(", ") : "every event"}
+                  </p>
                   {e.disabledReason && <p className="text-xs text-fault">Disabled: {e.disabledReason}</p>}
-                  {e.secretRotation && <p className="text-xs text-caution-dark">The previous secret signs too until {when(e.secretRotation.previousSecretExpiresAt)}</p>}
+                  {e.secretRotation && (
+                    <p className="text-xs text-caution-dark">
+                      The previous secret signs too until {when(e.secretRotation.previousSecretExpiresAt)}
+                    </p>
+                  )}
                 </div>
                 <Badge value={e.enabled ? "enabled" : "disabled"} />
               </div>
-              <div className="mt-2"><EndpointButtons id={e.id} enabled={e.enabled} manage={manage} test={test} /></div>
-              <h3 className="mb-1 mt-3 text-xs font-semibold uppercase tracking-wide text-ink-muted">Latest deliveries</h3>
+              <div className="mt-2">
+                <EndpointButtons id={e.id} enabled={e.enabled} manage={manage} test={test} />
+              </div>
+              <h3 className="mb-1 mt-3 text-xs font-semibold uppercase tracking-wide text-ink-muted">
+                Latest deliveries
+              </h3>
               <ul className="space-y-0.5 text-xs">
                 {recent[i].data.length === 0 && <li className="text-ink-muted">Nothing sent yet.</li>}
                 {recent[i].data.map((d) => (
                   <li key={d.id} data-testid="delivery" className="flex flex-wrap items-center gap-2">
                     <Badge value={d.status} /> <span className="font-mono">{d.eventType}</span>
-                    <span className="text-ink-muted">{d.attempts} attempt{d.attempts === 1 ? "" : "s"}{d.lastStatusCode ? ` · HTTP ${d.lastStatusCode}` : d.lastError ? ` · ${d.lastError}` : ""} · {when(d.updatedAt)}</span>
+                    <span className="text-ink-muted">
+                      {d.attempts} attempt{d.attempts === 1 ? "" : "s"}
+                      {d.lastStatusCode ? ` · HTTP ${d.lastStatusCode}` : d.lastError ? ` · ${d.lastError}` : ""} ·{" "}
+                      {when(d.updatedAt)}
+                    </span>
                   </li>
                 ))}
               </ul>
-              <p className="mt-2 text-xs"><Link className="text-edge" href={`/console/webhooks/${e.id}`}>Deliveries and settings of {e.description || e.url} →</Link></p>
+              <p className="mt-2 text-xs">
+                <Link className="text-edge" href={`/console/webhooks/${e.id}`}>
+                  Deliveries and settings of {e.description || e.url} →
+                </Link>
+              </p>
             </section>
           ))}
         </div>
-        {manage ? <NewEndpointForm types={EVENT_TYPES} words={EVENT_TYPE_WORDS} /> : <p className="text-sm text-ink-muted">Your role ({member.role}) can read endpoints and deliveries{test ? " and send test events" : ""}; admins and owners change them.</p>}
+        {manage ? (
+          <NewEndpointForm types={EVENT_TYPES} words={EVENT_TYPE_WORDS} />
+        ) : (
+          <p className="text-sm text-ink-muted">
+            Your role ({member.role}) can read endpoints and deliveries{test ? " and send test events" : ""}; admins and
+            owners change them.
+          </p>
+        )}
       </div>
     </>
   );

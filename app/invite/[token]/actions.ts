@@ -9,7 +9,9 @@ import { acceptInvitation } from "@/lib/services/team";
 const fields = AcceptInput.shape;
 
 export const acceptAction = publicAction
-  .inputSchema(zfd.formData({ token: zfd.text(fields.token), name: zfd.text(fields.name), password: zfd.text(fields.password) }))
+  .inputSchema(
+    zfd.formData({ token: zfd.text(fields.token), name: zfd.text(fields.name), password: zfd.text(fields.password) }),
+  )
   .action(async ({ parsedInput, ctx: { em } }) => {
     const { email } = await acceptInvitation(em, parsedInput.token, parsedInput.name, parsedInput.password);
     redirect(`/signin?joined=${encodeURIComponent(email)}`);

@@ -12,7 +12,9 @@ export default async function Invite({ params }: { params: Promise<{ token: stri
   const inv = await findInvitation(await requestEm(), token);
   return (
     <main className="mx-auto max-w-sm px-6 py-16">
-      <Link href="/"><Logo /></Link>
+      <Link href="/">
+        <Logo />
+      </Link>
       {inv ? (
         <>
           <h1 className="mt-10 text-2xl font-semibold">Join {inv.shop.name}</h1>
@@ -22,7 +24,9 @@ export default async function Invite({ params }: { params: Promise<{ token: stri
       ) : (
         <>
           <h1 className="mt-10 text-2xl font-semibold">This invitation cannot be used</h1>
-          <p className="mt-2 text-sm text-ink-muted">It was used already, withdrawn, or it expired. Ask the shop&apos;s owner for a new one.</p>
+          <p className="mt-2 text-sm text-ink-muted">
+            It was used already, withdrawn, or it expired. Ask the shop&apos;s owner for a new one.
+          </p>
         </>
       )}
     </main>

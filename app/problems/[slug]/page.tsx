@@ -13,14 +13,24 @@ export default async function ProblemPage({ params }: { params: Promise<{ slug: 
   if (!problem) notFound();
   return (
     <main className="mx-auto max-w-2xl px-6 py-12">
-      <Link href="/"><Logo /></Link>
-      <p className="mt-10 font-mono text-sm text-edge">HTTP {problem.status} · /problems/{slug}</p>
+      <Link href="/">
+        <Logo />
+      </Link>
+      <p className="mt-10 font-mono text-sm text-edge">
+        HTTP {problem.status} · /problems/{slug}
+      </p>
       <h1 className="mt-2 text-2xl font-semibold">{problem.title}</h1>
       <p className="mt-4 text-ink-muted">{problem.explanation}</p>
       <p className="mt-8 text-sm">
-        Errors from the Shearwire API are <code>application/problem+json</code> (RFC 9457) with <code>type</code>, <code>title</code>,{" "}
-        <code>status</code>, <code>detail</code> and the <code>requestId</code> to quote. <Link className="text-edge hover:underline" href="/problems">All problem types</Link> ·{" "}
-        <a className="text-edge hover:underline" href="/docs">API reference</a>
+        Errors from the Shearwire API are <code>application/problem+json</code> (RFC 9457) with <code>type</code>,{" "}
+        <code>title</code>, <code>status</code>, <code>detail</code> and the <code>requestId</code> to quote.{" "}
+        <Link className="text-edge hover:underline" href="/problems">
+          All problem types
+        </Link>{" "}
+        ·{" "}
+        <a className="text-edge hover:underline" href="/docs">
+          API reference
+        </a>
       </p>
     </main>
   );

@@ -1,6 +1,14 @@
 import { defineOperation } from "../operation";
 import { idParam } from "../../schemas/common";
-import { Claim, ClaimRequest, CompletionReport, FailureReport, HeartbeatRequest, Lease, ProgressReport } from "../../schemas/gateway";
+import {
+  Claim,
+  ClaimRequest,
+  CompletionReport,
+  FailureReport,
+  HeartbeatRequest,
+  Lease,
+  ProgressReport,
+} from "../../schemas/gateway";
 import { Program } from "../../schemas/program";
 import { z } from "../../schemas/zod";
 
@@ -8,36 +16,96 @@ const tags = ["Gateway"];
 const params = idParam("prg", "program");
 
 export const claimProgram = defineOperation({
-  operationId: "claimProgram", method: "post", path: "/shears/{id}/claims", tags, scope: "gateway",
+  operationId: "claimProgram",
+  method: "post",
+  path: "/shears/{id}/claims",
+  tags,
+  scope: "gateway",
   summary: "Claim the next released program",
-  description: "For the gateway beside a shear: takes the released program with the highest priority, then the earliest due date, then the oldest, under a lease. With `waitSeconds` the call waits (long poll) up to 30 s and answers 204 if nothing comes. Two gateways never get the same program. Keep the lease with heartbeats or progress reports; when it runs out the program goes back to `released`.",
-  params: idParam("shr", "shear"), body: ClaimRequest,
-  responses: { 200: { description: "A program, now `claimed` by this key.", schema: Claim }, 204: { description: "Nothing to claim." } },
+  description:
+    "For the gateway beside a shear: takes the released program with the highest priority, then the earliest due date, then the oldest, under a lease. With `waitSeconds` the call waits (long poll) up to 30 s and answers 204 if nothing comes. Two gateways never get the same program. Keep the lease with heartbeats or progress reports; when it runs out the program goes back to `released`.",
+  params: idParam("shr", "shear"),
+  body: ClaimRequest,
+  responses: {
+    200: { description: "A program, now `claimed` by this key.", schema: Claim },
+    204: { description: "Nothing to claim." },
+  },
 });
 export const heartbeatProgram = defineOperation({
-  operationId: "heartbeatProgram", method: "post", path: "/programs/{id}/heartbeat", tags, scope: "gateway",
-  summary: "Keep the lease", params, body: HeartbeatRequest, errors: [409],
-  responses: { 200: { description: "The lease, extended.", schema: z.object({ program: Program, lease: Lease }).openapi("Heartbeat") } },
+  operationId: "heartbeatProgram",
+  method: "post",
+  path: "/programs/{id}/heartbeat",
+  tags,
+  scope: "gateway",
+  summary: "Keep the lease",
+  params,
+  body: HeartbeatRequest,
+  errors: [409],
+  responses: {
+    200: {
+      description: "The lease, extended.",
+      schema: z.object({ program: Program, lease: Lease }).openapi("Heartbeat"),
+    },
+  },
 });
 export const startProgram = defineOperation({
-  operationId: "startProgram", method: "post", path: "/programs/{id}/start", tags, scope: "gateway",
-  summary: "Report that the run started", description: "From `claimed` to `running`.", params, errors: [409],
+  operationId: "startProgram",
+  method: "post",
+  path: "/programs/{id}/start",
+  tags,
+  scope: "gateway",
+  summary: "Report that the run started",
+  description: "From `claimed` to `running`.",
+  params,
+  errors: [409],
   responses: { 200: { description: "The running program.", schema: Program } },
 });
 export const reportProgress = defineOperation({
-  operationId: "reportProgress", method: "post", path: "/programs/{id}/progress", tags, scope: "gateway",
-  summary: "Report progress", description: "Groups and strokes done so far; also keeps the lease.", params, body: ProgressReport, errors: [409],
+  operationId: "reportProgress",
+  method: "post",
+  path: "/programs/{id}/progress",
+  tags,
+  scope: "gateway",
+  summary: "Report progress",
+  description: "Groups and strokes done so far; also keeps the lease.",
+  params,
+  body: ProgressReport,
+  errors: [409],
   responses: { 200: { description: "The program with its progress.", schema: Program } },
 });
 export const completeProgram = defineOperation({
-  operationId: "completeProgram", method: "post", path: "/programs/{id}/complete", tags, scope: "gateway",
-  summary: "Report completion", description: "From `running` to `completed`, with good and scrapped pieces.", params, body: CompletionReport, errors: [409],
+  operationId: "completeProgram",
+  method: "post",
+  path: "/programs/{id}/complete",
+  tags,
+  scope: "gateway",
+  summary: "Report completion",
+  description: "From `running` to `completed`, with good and scrapped pieces.",
+  params,
+  body: CompletionReport,
+  errors: [409],
   responses: { 200: { description: "The completed program.", schema: Program } },
 });
 export const failProgram = defineOperation({
-  operationId: "failProgram", method: "post", path: "/programs/{id}/fail", tags, scope: "gateway",
-  summary: "Report a failed run", description: "From `claimed` or `running` to `failed`, with a reason code (for example `guard_tripped`, `overload`, `operator_abort`).", params, body: FailureReport, errors: [409],
+  operationId: "failProgram",
+  method: "post",
+  path: "/programs/{id}/fail",
+  tags,
+  scope: "gateway",
+  summary: "Report a failed run",
+  description:
+    "From `claimed` or `running` to `failed`, with a reason code (for example `guard_tripped`, `overload`, `operator_abort`).",
+  params,
+  body: FailureReport,
+  errors: [409],
   responses: { 200: { description: "The failed program.", schema: Program } },
 });
 
-export const gatewayOperations = [claimProgram, heartbeatProgram, startProgram, reportProgress, completeProgram, failProgram];
+export const gatewayOperations = [
+  claimProgram,
+  heartbeatProgram,
+  startProgram,
+  reportProgress,
+  completeProgram,
+  failProgram,
+];

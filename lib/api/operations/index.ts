@@ -7,4 +7,11 @@ import { planOperations } from "./plans";
 import { programOperations } from "./programs";
 import { webhookOperations } from "./webhooks";
 
-export const operations: Operation[] = [...programOperations, ...planOperations, ...gatewayOperations, ...webhookOperations, ...catalogOperations, ...metaOperations] as Operation[];
+export const operations: Operation[] = [
+  ...programOperations,
+  ...planOperations,
+  ...gatewayOperations,
+  ...webhookOperations,
+  ...catalogOperations,
+  ...metaOperations,
+] as Operation[];

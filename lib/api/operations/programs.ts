@@ -1,59 +1,123 @@
 import { defineOperation } from "../operation";
 import { idParam, listOf, Pagination } from "../../schemas/common";
-import { CancelInput, Check, Program, ProgramInput, ProgramListQuery, ProgramPatch, ReleaseInput } from "../../schemas/program";
+import {
+  CancelInput,
+  Check,
+  Program,
+  ProgramInput,
+  ProgramListQuery,
+  ProgramPatch,
+  ReleaseInput,
+} from "../../schemas/program";
 
 const tags = ["Programs"];
 const params = idParam("prg", "program");
 const etag = { ETag: { description: "The program's revision, for If-Match.", schema: { type: "string" as const } } };
 
 export const createProgram = defineOperation({
-  operationId: "createProgram", method: "post", path: "/programs", tags, scope: "programs:write",
+  operationId: "createProgram",
+  method: "post",
+  path: "/programs",
+  tags,
+  scope: "programs:write",
   summary: "Create a cut program",
-  description: "Checks the program against its shear and grade and stores it as a `draft` with the findings, setup, yield and estimate. A program with findings of severity `error` is stored too, and cannot be released until fixed. A second program with the same `reference` answers 409 with the existing id.",
+  description:
+    "Checks the program against its shear and grade and stores it as a `draft` with the findings, setup, yield and estimate. A program with findings of severity `error` is stored too, and cannot be released until fixed. A second program with the same `reference` answers 409 with the existing id.",
   body: ProgramInput,
-  responses: { 201: { description: "Created.", schema: Program, headers: { ...etag, Location: { description: "The program's URL.", schema: { type: "string" } } } } },
+  responses: {
+    201: {
+      description: "Created.",
+      schema: Program,
+      headers: { ...etag, Location: { description: "The program's URL.", schema: { type: "string" } } },
+    },
+  },
 });
 
 export const listPrograms = defineOperation({
-  operationId: "listPrograms", method: "get", path: "/programs", tags, scope: "programs:read",
-  summary: "List cut programs", description: "Newest first.",
+  operationId: "listPrograms",
+  method: "get",
+  path: "/programs",
+  tags,
+  scope: "programs:read",
+  summary: "List cut programs",
+  description: "Newest first.",
   query: Pagination.extend(ProgramListQuery.shape),
   responses: { 200: { description: "A page of programs.", schema: listOf(Program, "ProgramList") } },
 });
 
 export const getProgram = defineOperation({
-  operationId: "getProgram", method: "get", path: "/programs/{id}", tags, scope: "programs:read",
-  summary: "Read a cut program", params,
+  operationId: "getProgram",
+  method: "get",
+  path: "/programs/{id}",
+  tags,
+  scope: "programs:read",
+  summary: "Read a cut program",
+  params,
   responses: { 200: { description: "The program.", schema: Program, headers: etag } },
 });
 
 export const updateProgram = defineOperation({
-  operationId: "updateProgram", method: "patch", path: "/programs/{id}", tags, scope: "programs:write",
-  summary: "Change a draft", description: "Only `draft` programs change. Send `If-Match` with the ETag you read; the program is checked again.",
-  params, body: ProgramPatch, ifMatch: true, errors: [409],
+  operationId: "updateProgram",
+  method: "patch",
+  path: "/programs/{id}",
+  tags,
+  scope: "programs:write",
+  summary: "Change a draft",
+  description: "Only `draft` programs change. Send `If-Match` with the ETag you read; the program is checked again.",
+  params,
+  body: ProgramPatch,
+  ifMatch: true,
+  errors: [409],
   responses: { 200: { description: "The changed program.", schema: Program, headers: etag } },
 });
 
 export const validateProgram = defineOperation({
-  operationId: "validateProgram", method: "post", path: "/programs/validate", tags, scope: "programs:read",
-  summary: "Check a program without storing it", description: "A dry run: the same check as create, nothing stored, no events.",
+  operationId: "validateProgram",
+  method: "post",
+  path: "/programs/validate",
+  tags,
+  scope: "programs:read",
+  summary: "Check a program without storing it",
+  description: "A dry run: the same check as create, nothing stored, no events.",
   body: ProgramInput,
   responses: { 200: { description: "The check.", schema: Check } },
 });
 
 export const releaseProgram = defineOperation({
-  operationId: "releaseProgram", method: "post", path: "/programs/{id}/release", tags, scope: "programs:release",
+  operationId: "releaseProgram",
+  method: "post",
+  path: "/programs/{id}/release",
+  tags,
+  scope: "programs:release",
   summary: "Release a draft to the shear",
-  description: "Checks the program again against the current catalog. Needs a `pass`, or a `warn` whose warning codes are all in `acknowledge`. Answers 409 with the findings otherwise.",
-  params, body: ReleaseInput, errors: [409],
+  description:
+    "Checks the program again against the current catalog. Needs a `pass`, or a `warn` whose warning codes are all in `acknowledge`. Answers 409 with the findings otherwise.",
+  params,
+  body: ReleaseInput,
+  errors: [409],
   responses: { 200: { description: "The released program.", schema: Program, headers: etag } },
 });
 
 export const cancelProgram = defineOperation({
-  operationId: "cancelProgram", method: "post", path: "/programs/{id}/cancel", tags, scope: "programs:write",
-  summary: "Cancel a program", description: "From `draft`, `released`, `claimed` or `running`.",
-  params, body: CancelInput, errors: [409],
+  operationId: "cancelProgram",
+  method: "post",
+  path: "/programs/{id}/cancel",
+  tags,
+  scope: "programs:write",
+  summary: "Cancel a program",
+  description: "From `draft`, `released`, `claimed` or `running`.",
+  params,
+  body: CancelInput,
+  errors: [409],
   responses: { 200: { description: "The cancelled program.", schema: Program, headers: etag } },
 });
 
-export const programOperations = [createProgram, listPrograms, getProgram, updateProgram, validateProgram, releaseProgram, cancelProgram];
+export const programOperations = [
+  createProgram,
+  listPrograms,
+  getProgram,
+  updateProgram,
+  validateProgram,
+  releaseProgram,
+  cancelProgram,
+];

@@ -1,6 +1,16 @@
 import { defineOperation } from "../operation";
 import { idParam, listOf, Pagination } from "../../schemas/common";
-import { Delivery, Endpoint, EndpointInput, EndpointPatch, EndpointWithSecret, Event, EventQuery, ResendInput, RotateInput } from "../../schemas/webhook";
+import {
+  Delivery,
+  Endpoint,
+  EndpointInput,
+  EndpointPatch,
+  EndpointWithSecret,
+  Event,
+  EventQuery,
+  ResendInput,
+  RotateInput,
+} from "../../schemas/webhook";
 
 const tags = ["Webhooks"];
 const endpointParams = idParam("whe", "webhook endpoint");
@@ -8,63 +18,155 @@ const eventParams = idParam("evt", "event");
 const DeliveryList = listOf(Delivery, "DeliveryList");
 
 export const listEndpoints = defineOperation({
-  operationId: "listWebhookEndpoints", method: "get", path: "/webhook-endpoints", tags, scope: "webhooks:write", summary: "List webhook endpoints",
-  query: Pagination, responses: { 200: { description: "A page of endpoints.", schema: listOf(Endpoint, "WebhookEndpointList") } },
+  operationId: "listWebhookEndpoints",
+  method: "get",
+  path: "/webhook-endpoints",
+  tags,
+  scope: "webhooks:write",
+  summary: "List webhook endpoints",
+  query: Pagination,
+  responses: { 200: { description: "A page of endpoints.", schema: listOf(Endpoint, "WebhookEndpointList") } },
 });
 export const createEndpoint = defineOperation({
-  operationId: "createWebhookEndpoint", method: "post", path: "/webhook-endpoints", tags, scope: "webhooks:write", summary: "Add a webhook endpoint",
-  description: "Answers the signing secret (`whsec_…`) this once. Deliveries follow Standard Webhooks: verify `webhook-signature` over `webhook-id.webhook-timestamp.body`, and de-duplicate on `webhook-id` (delivery is at least once).",
-  body: EndpointInput, responses: { 201: { description: "Created, with its secret.", schema: EndpointWithSecret } },
+  operationId: "createWebhookEndpoint",
+  method: "post",
+  path: "/webhook-endpoints",
+  tags,
+  scope: "webhooks:write",
+  summary: "Add a webhook endpoint",
+  description:
+    "Answers the signing secret (`whsec_…`) this once. Deliveries follow Standard Webhooks: verify `webhook-signature` over `webhook-id.webhook-timestamp.body`, and de-duplicate on `webhook-id` (delivery is at least once).",
+  body: EndpointInput,
+  responses: { 201: { description: "Created, with its secret.", schema: EndpointWithSecret } },
 });
 export const getEndpoint = defineOperation({
-  operationId: "getWebhookEndpoint", method: "get", path: "/webhook-endpoints/{id}", tags, scope: "webhooks:write", summary: "Read a webhook endpoint",
-  params: endpointParams, responses: { 200: { description: "The endpoint.", schema: Endpoint } },
+  operationId: "getWebhookEndpoint",
+  method: "get",
+  path: "/webhook-endpoints/{id}",
+  tags,
+  scope: "webhooks:write",
+  summary: "Read a webhook endpoint",
+  params: endpointParams,
+  responses: { 200: { description: "The endpoint.", schema: Endpoint } },
 });
 export const updateEndpoint = defineOperation({
-  operationId: "updateWebhookEndpoint", method: "patch", path: "/webhook-endpoints/{id}", tags, scope: "webhooks:write", summary: "Change a webhook endpoint",
-  description: "Change the URL, description or event types, or enable and disable it. Enabling resets the failure count.",
-  params: endpointParams, body: EndpointPatch, responses: { 200: { description: "The changed endpoint.", schema: Endpoint } },
+  operationId: "updateWebhookEndpoint",
+  method: "patch",
+  path: "/webhook-endpoints/{id}",
+  tags,
+  scope: "webhooks:write",
+  summary: "Change a webhook endpoint",
+  description:
+    "Change the URL, description or event types, or enable and disable it. Enabling resets the failure count.",
+  params: endpointParams,
+  body: EndpointPatch,
+  responses: { 200: { description: "The changed endpoint.", schema: Endpoint } },
 });
 export const deleteEndpoint = defineOperation({
-  operationId: "deleteWebhookEndpoint", method: "delete", path: "/webhook-endpoints/{id}", tags, scope: "webhooks:write", summary: "Remove a webhook endpoint",
-  params: endpointParams, responses: { 204: { description: "Removed, with its deliveries." } },
+  operationId: "deleteWebhookEndpoint",
+  method: "delete",
+  path: "/webhook-endpoints/{id}",
+  tags,
+  scope: "webhooks:write",
+  summary: "Remove a webhook endpoint",
+  params: endpointParams,
+  responses: { 204: { description: "Removed, with its deliveries." } },
 });
 export const rotateSecret = defineOperation({
-  operationId: "rotateWebhookSecret", method: "post", path: "/webhook-endpoints/{id}/rotate-secret", tags, scope: "webhooks:write", summary: "Rotate the signing secret",
-  description: "Answers the new secret this once. For `overlapHours` (default 24) deliveries carry two signatures, one per secret, so receivers can switch without missing an event.",
-  params: endpointParams, body: RotateInput, responses: { 200: { description: "The endpoint and its new secret.", schema: EndpointWithSecret } },
+  operationId: "rotateWebhookSecret",
+  method: "post",
+  path: "/webhook-endpoints/{id}/rotate-secret",
+  tags,
+  scope: "webhooks:write",
+  summary: "Rotate the signing secret",
+  description:
+    "Answers the new secret this once. For `overlapHours` (default 24) deliveries carry two signatures, one per secret, so receivers can switch without missing an event.",
+  params: endpointParams,
+  body: RotateInput,
+  responses: { 200: { description: "The endpoint and its new secret.", schema: EndpointWithSecret } },
 });
 export const testEndpoint = defineOperation({
-  operationId: "testWebhookEndpoint", method: "post", path: "/webhook-endpoints/{id}/test", tags, scope: "webhooks:write", summary: "Send a test event",
-  description: "Sends an `endpoint.test` event to this endpoint only.", params: endpointParams, errors: [409],
+  operationId: "testWebhookEndpoint",
+  method: "post",
+  path: "/webhook-endpoints/{id}/test",
+  tags,
+  scope: "webhooks:write",
+  summary: "Send a test event",
+  description: "Sends an `endpoint.test` event to this endpoint only.",
+  params: endpointParams,
+  errors: [409],
   responses: { 202: { description: "Queued; follow the delivery.", schema: Delivery } },
 });
 export const listEndpointDeliveries = defineOperation({
-  operationId: "listEndpointDeliveries", method: "get", path: "/webhook-endpoints/{id}/deliveries", tags, scope: "events:read", summary: "Deliveries to an endpoint",
-  description: "Newest first, each with its attempts.", params: endpointParams, query: Pagination,
+  operationId: "listEndpointDeliveries",
+  method: "get",
+  path: "/webhook-endpoints/{id}/deliveries",
+  tags,
+  scope: "events:read",
+  summary: "Deliveries to an endpoint",
+  description: "Newest first, each with its attempts.",
+  params: endpointParams,
+  query: Pagination,
   responses: { 200: { description: "A page of deliveries.", schema: DeliveryList } },
 });
 
 export const listEvents = defineOperation({
-  operationId: "listEvents", method: "get", path: "/events", tags, scope: "events:read", summary: "List events",
-  description: "Everything that happened in the shop, newest first.", query: Pagination.extend(EventQuery.shape),
+  operationId: "listEvents",
+  method: "get",
+  path: "/events",
+  tags,
+  scope: "events:read",
+  summary: "List events",
+  description: "Everything that happened in the shop, newest first.",
+  query: Pagination.extend(EventQuery.shape),
   responses: { 200: { description: "A page of events.", schema: listOf(Event, "EventList") } },
 });
 export const getEvent = defineOperation({
-  operationId: "getEvent", method: "get", path: "/events/{id}", tags, scope: "events:read", summary: "Read an event",
-  params: eventParams, responses: { 200: { description: "The event.", schema: Event } },
+  operationId: "getEvent",
+  method: "get",
+  path: "/events/{id}",
+  tags,
+  scope: "events:read",
+  summary: "Read an event",
+  params: eventParams,
+  responses: { 200: { description: "The event.", schema: Event } },
 });
 export const listEventDeliveries = defineOperation({
-  operationId: "listEventDeliveries", method: "get", path: "/events/{id}/deliveries", tags, scope: "events:read", summary: "Deliveries of an event",
-  params: eventParams, query: Pagination, responses: { 200: { description: "A page of deliveries.", schema: DeliveryList } },
+  operationId: "listEventDeliveries",
+  method: "get",
+  path: "/events/{id}/deliveries",
+  tags,
+  scope: "events:read",
+  summary: "Deliveries of an event",
+  params: eventParams,
+  query: Pagination,
+  responses: { 200: { description: "A page of deliveries.", schema: DeliveryList } },
 });
 export const resendEvent = defineOperation({
-  operationId: "resendEvent", method: "post", path: "/events/{id}/resend", tags, scope: "webhooks:write", summary: "Resend an event to an endpoint",
-  description: "A new delivery of the same event (same `webhook-id`) to one endpoint.", params: eventParams, body: ResendInput, errors: [409],
+  operationId: "resendEvent",
+  method: "post",
+  path: "/events/{id}/resend",
+  tags,
+  scope: "webhooks:write",
+  summary: "Resend an event to an endpoint",
+  description: "A new delivery of the same event (same `webhook-id`) to one endpoint.",
+  params: eventParams,
+  body: ResendInput,
+  errors: [409],
   responses: { 202: { description: "Queued; follow the delivery.", schema: Delivery } },
 });
 
 export const webhookOperations = [
-  listEndpoints, createEndpoint, getEndpoint, updateEndpoint, deleteEndpoint, rotateSecret, testEndpoint, listEndpointDeliveries,
-  listEvents, getEvent, listEventDeliveries, resendEvent,
+  listEndpoints,
+  createEndpoint,
+  getEndpoint,
+  updateEndpoint,
+  deleteEndpoint,
+  rotateSecret,
+  testEndpoint,
+  listEndpointDeliveries,
+  listEvents,
+  getEvent,
+  listEventDeliveries,
+  resendEvent,
 ];

@@ -2,4 +2,6 @@ import { listEvents } from "@/lib/api/operations/webhooks";
 import { route } from "@/lib/api/route";
 import * as webhooks from "@/lib/services/webhooks";
 
-export const GET = route(listEvents, async ({ em, principal, query }) => ({ body: await webhooks.listEvents(em, principal.shopId, query) }));
+export const GET = route(listEvents, async ({ em, principal, query }) => ({
+  body: await webhooks.listEvents(em, principal.shopId, query),
+}));

@@ -3,7 +3,10 @@ import { route } from "@/lib/api/route";
 import * as catalog from "@/lib/services/catalog";
 
 export const GET = route(listGrades, async ({ em, principal, query }) => ({
-  body: await catalog.listGrades(em, principal.shopId, { ...query, includeArchived: (query.includeArchived ?? query.include_archived) === "true" }),
+  body: await catalog.listGrades(em, principal.shopId, {
+    ...query,
+    includeArchived: (query.includeArchived ?? query.include_archived) === "true",
+  }),
 }));
 
 export const POST = route(createGrade, async ({ em, principal, body }) => ({

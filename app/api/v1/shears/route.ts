@@ -3,7 +3,10 @@ import { route } from "@/lib/api/route";
 import * as catalog from "@/lib/services/catalog";
 
 export const GET = route(listShears, async ({ em, principal, query }) => ({
-  body: await catalog.listShears(em, principal.shopId, { ...query, includeArchived: (query.includeArchived ?? query.include_archived) === "true" }),
+  body: await catalog.listShears(em, principal.shopId, {
+    ...query,
+    includeArchived: (query.includeArchived ?? query.include_archived) === "true",
+  }),
 }));
 
 export const POST = route(createShear, async ({ em, principal, body }) => ({

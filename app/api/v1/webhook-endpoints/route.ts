@@ -2,7 +2,9 @@ import { createEndpoint, listEndpoints } from "@/lib/api/operations/webhooks";
 import { route } from "@/lib/api/route";
 import * as webhooks from "@/lib/services/webhooks";
 
-export const GET = route(listEndpoints, async ({ em, principal, query }) => ({ body: await webhooks.listEndpoints(em, principal.shopId, query) }));
+export const GET = route(listEndpoints, async ({ em, principal, query }) => ({
+  body: await webhooks.listEndpoints(em, principal.shopId, query),
+}));
 
 export const POST = route(createEndpoint, async ({ em, principal, body }) => ({
   status: 201,

@@ -12,9 +12,12 @@ function about(subjectId: string, data: Record<string, unknown>): { label: strin
   const program = data.program as { reference?: string } | undefined;
   const plan = data.plan as { reference?: string | null } | undefined;
   const endpoint = data.endpoint as { url?: string } | undefined;
-  if (subjectId.startsWith("prg_")) return { label: program?.reference ?? subjectId, href: `/console/programs/${subjectId}` };
-  if (subjectId.startsWith("pln_")) return { label: plan?.reference ?? "a plan without a reference", href: `/console/plans/${subjectId}` };
-  if (subjectId.startsWith("whe_")) return { label: endpoint?.url ?? subjectId, href: `/console/webhooks/${subjectId}` };
+  if (subjectId.startsWith("prg_"))
+    return { label: program?.reference ?? subjectId, href: `/console/programs/${subjectId}` };
+  if (subjectId.startsWith("pln_"))
+    return { label: plan?.reference ?? "a plan without a reference", href: `/console/plans/${subjectId}` };
+  if (subjectId.startsWith("whe_"))
+    return { label: endpoint?.url ?? subjectId, href: `/console/webhooks/${subjectId}` };
   return { label: subjectId, href: null };
 }
 
@@ -28,10 +31,16 @@ export async function GET(request: Request) {
   try {
     const page = await listEvents(await requestEm(), member.shopId, { limit: 50, type, cursor });
     return NextResponse.json(
-      { data: page.data.map(({ data, ...e }) => ({ ...e, about: about(e.subjectId, data) })), next_cursor: page.next_cursor },
+      {
+        data: page.data.map(({ data, ...e }) => ({ ...e, about: about(e.subjectId, data) })),
+        next_cursor: page.next_cursor,
+      },
       { headers: { "Cache-Control": "no-store" } },
     );
   } catch {
-    return NextResponse.json({ error: "The events could not be read; start again from the newest page." }, { status: 400 });
+    return NextResponse.json(
+      { error: "The events could not be read; start again from the newest page." },
+      { status: 400 },
+    );
   }
 }

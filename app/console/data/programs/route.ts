@@ -11,17 +11,35 @@ export const dynamic = "force-dynamic";
 export async function GET(request: Request) {
   const member = await currentMember();
   const q = new URL(request.url).searchParams;
-  const status = PROGRAM_STATUSES.includes(q.get("status") as ProgramStatus) ? (q.get("status") as ProgramStatus) : undefined;
+  const status = PROGRAM_STATUSES.includes(q.get("status") as ProgramStatus)
+    ? (q.get("status") as ProgramStatus)
+    : undefined;
   const search = q.get("search")?.trim().slice(0, 100) || undefined;
   const cursor = q.get("cursor") ?? undefined;
-  if ((search && textProblem(search)) || (cursor && textProblem(cursor))) return NextResponse.json({ error: "The search holds characters that cannot be searched for." }, { status: 400 });
+  if ((search && textProblem(search)) || (cursor && textProblem(cursor)))
+    return NextResponse.json({ error: "The search holds characters that cannot be searched for." }, { status: 400 });
   try {
     const page = await listPrograms(await requestEm(), member.shopId, { limit: 50, status, search, cursor });
-    return NextResponse.json({
-      data: page.data.map((p) => ({ id: p.id, reference: p.reference, title: p.title, status: p.status, validation: p.validation, findings: p.check.findings.length, dueAt: p.dueAt, updatedAt: p.updatedAt })),
-      next_cursor: page.next_cursor,
-    }, { headers: { "Cache-Control": "no-store" } });
+    return NextResponse.json(
+      {
+        data: page.data.map((p) => ({
+          id: p.id,
+          reference: p.reference,
+          title: p.title,
+          status: p.status,
+          validation: p.validation,
+          findings: p.check.findings.length,
+          dueAt: p.dueAt,
+          updatedAt: p.updatedAt,
+        })),
+        next_cursor: page.next_cursor,
+      },
+      { headers: { "Cache-Control": "no-store" } },
+    );
   } catch {
-    return NextResponse.json({ error: "The programs could not be read; start again from the newest page." }, { status: 400 });
+    return NextResponse.json(
+      { error: "The programs could not be read; start again from the newest page." },
+      { status: 400 },
+    );
   }
 }

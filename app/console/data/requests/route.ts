@@ -14,11 +14,17 @@ export async function GET(request: Request) {
   const status = q.get("status");
   const id = q.get("id")?.trim();
   for (const value of [id, q.get("cursor"), q.get("key"), q.get("route")]) {
-    if (value && textProblem(value)) return NextResponse.json({ error: "The filter holds characters that cannot be searched for." }, { status: 400 });
+    if (value && textProblem(value))
+      return NextResponse.json({ error: "The filter holds characters that cannot be searched for." }, { status: 400 });
   }
   const filter: LogFilter = {
-    limit: 50, cursor: q.get("cursor") ?? undefined, id: id || undefined, keyId: q.get("key") || undefined, route: q.get("route") || undefined,
-    statusClass: status && ["2xx", "3xx", "4xx", "5xx"].includes(status) ? (status as LogFilter["statusClass"]) : undefined,
+    limit: 50,
+    cursor: q.get("cursor") ?? undefined,
+    id: id || undefined,
+    keyId: q.get("key") || undefined,
+    route: q.get("route") || undefined,
+    statusClass:
+      status && ["2xx", "3xx", "4xx", "5xx"].includes(status) ? (status as LogFilter["statusClass"]) : undefined,
     from: id ? undefined : new Date(Date.now() - hours * 3_600_000),
   };
   try {

@@ -2,7 +2,7 @@ import Link from "next/link";
 import { notFound } from "next/navigation";
 import { ResendButton } from "@/components/console/WebhookForms";
 import { Badge, PageHeader, Table, Td, when } from "@/components/ui";
-import { ApiError } from "@/lib/api/errors";
+import { ApiError } from "@/lib/errors";
 import { can } from "@/lib/auth/roles";
 import { currentMember } from "@/lib/auth/session";
 import { requestEm } from "@/lib/db/orm";
@@ -18,22 +18,47 @@ export default async function EventPage({ params }: { params: Promise<{ id: stri
     if (err instanceof ApiError && err.status === 404) notFound();
     throw err;
   });
-  const [deliveries, endpoints] = await Promise.all([listDeliveries(em, member.shopId, { event: id }, { limit: 100 }), listEndpoints(em, member.shopId, { limit: 100 })]);
+  const [deliveries, endpoints] = await Promise.all([
+    listDeliveries(em, member.shopId, { event: id }, { limit: 100 }),
+    listEndpoints(em, member.shopId, { limit: 100 }),
+  ]);
   const url = new Map(endpoints.data.map((e) => [e.id, e.url]));
   const manage = can(member.role, "webhooks:manage");
   return (
     <>
-      <p className="mb-1 text-xs"><Link href="/console/events" className="text-edge hover:underline">← Events</Link></p>
-      <PageHeader title={event.type} lead={<span className="font-mono text-xs">{event.id} · {when(event.createdAt)} · the webhook-id of every delivery below</span>} />
+      <p className="mb-1 text-xs">
+        <Link href="/console/events" className="text-edge hover:underline">
+          ← Events
+        </Link>
+      </p>
+      <PageHeader
+        title={event.type}
+        lead={
+          <span className="font-mono text-xs">
+            {event.id} · {when(event.createdAt)} · the webhook-id of every delivery below
+          </span>
+        }
+      />
       <h2 className="mb-2 text-sm font-semibold">Deliveries and their attempts</h2>
-      <Table head={["Endpoint", "State", "Attempts (time · answer · latency)", ""]} empty="This event went to no endpoint.">
+      <Table
+        head={["Endpoint", "State", "Attempts (time · answer · latency)", ""]}
+        empty="This event went to no endpoint."
+      >
         {deliveries.data.map((d) => (
           <tr key={d.id}>
-            <Td mono>{url.get(d.endpointId) ?? d.endpointId}{d.manual ? " (resent or test)" : ""}</Td>
-            <Td><Badge value={d.status} /></Td>
+            <Td mono>
+              {url.get(d.endpointId) ?? d.endpointId}
+              {d.manual ? " (resent or test)" : ""}
+            </Td>
+            <Td>
+              <Badge value={d.status} />
+            </Td>
             <Td mono>
               {d.attemptLog.map((a) => (
-                <div key={a.id}>{when(a.attemptedAt)} · {a.statusCode ?? a.error ?? "no answer"} · {a.latencyMs} ms{a.responseExcerpt ? ` · “${a.responseExcerpt.slice(0, 60)}”` : ""}</div>
+                <div key={a.id}>
+                  {when(a.attemptedAt)} · {a.statusCode ?? a.error ?? "no answer"} · {a.latencyMs} ms
+                  {a.responseExcerpt ? ` · “${a.responseExcerpt.slice(0, 60)}”` : ""}
+                </div>
               ))}
               {d.nextAttemptAt && <div className="text-ink-muted">next try {when(d.nextAttemptAt)}</div>}
             </Td>
@@ -42,7 +67,9 @@ export default async function EventPage({ params }: { params: Promise<{ id: stri
         ))}
       </Table>
       <h2 className="mb-2 mt-6 text-sm font-semibold">Payload data</h2>
-      <pre tabIndex={0} className="max-h-96 overflow-auto rounded-md bg-scale-100 p-3 text-xs">{JSON.stringify(event.data, null, 2)}</pre>
+      <pre tabIndex={0} className="max-h-96 overflow-auto rounded-md bg-scale-100 p-3 text-xs">
+        {JSON.stringify(event.data, null, 2)}
+      </pre>
     </>
   );
 }

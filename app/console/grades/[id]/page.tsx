@@ -21,14 +21,39 @@ export default async function GradePage({ params }: { params: Promise<{ id: stri
   const manage = can(member.role, "catalog:manage");
   return (
     <>
-      <p className="mb-1 text-xs"><Link href="/console/grades" className="text-edge hover:underline">← Grades</Link></p>
-      <PageHeader title={`${s.code} · ${s.name}`} lead={<span className="font-mono text-xs">{s.id}{s.archivedAt ? " · archived" : ""}</span>}>
+      <p className="mb-1 text-xs">
+        <Link href="/console/grades" className="text-edge hover:underline">
+          ← Grades
+        </Link>
+      </p>
+      <PageHeader
+        title={`${s.code} · ${s.name}`}
+        lead={
+          <span className="font-mono text-xs">
+            {s.id}
+            {s.archivedAt ? " · archived" : ""}
+          </span>
+        }
+      >
         {manage && !s.archivedAt && (
-          <ActionForm action={archiveAction} fields={{ id: s.id }} confirm="Archive this grade? Programs naming it get a grade_unknown finding." buttonClassName="rounded border border-fault/50 px-2 py-1 text-xs text-fault">Archive</ActionForm>
+          <ActionForm
+            action={archiveAction}
+            fields={{ id: s.id }}
+            confirm="Archive this grade? Programs naming it get a grade_unknown finding."
+            buttonClassName="rounded border border-fault/50 px-2 py-1 text-xs text-fault"
+          >
+            Archive
+          </ActionForm>
         )}
       </PageHeader>
       <section className="max-w-2xl rounded-md border border-scale-200 bg-white p-4">
-        {manage ? <GradeForm id={s.id} initial={s} /> : <pre tabIndex={0} className="overflow-x-auto text-xs">{JSON.stringify(s, null, 2)}</pre>}
+        {manage ? (
+          <GradeForm id={s.id} initial={s} />
+        ) : (
+          <pre tabIndex={0} className="overflow-x-auto text-xs">
+            {JSON.stringify(s, null, 2)}
+          </pre>
+        )}
       </section>
     </>
   );

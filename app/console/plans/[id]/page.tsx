@@ -6,7 +6,7 @@ import { PlanProgress } from "@/components/console/PlanProgress";
 import { groupName } from "@/components/console/words";
 import { SafetyNote } from "@/components/SafetyNote";
 import { Badge, PageHeader, Stat, Table, Td } from "@/components/ui";
-import { ApiError } from "@/lib/api/errors";
+import { ApiError } from "@/lib/errors";
 import { can } from "@/lib/auth/roles";
 import { currentMember } from "@/lib/auth/session";
 import { requestEm } from "@/lib/db/orm";
@@ -18,7 +18,8 @@ import { programLayout } from "@/lib/shear";
 
 export const metadata = { title: "Plan" };
 
-const fmtTime = (s: number) => (s >= 3600 ? `${Math.floor(s / 3600)} h ${Math.round((s % 3600) / 60)} min` : `${Math.round(s / 60)} min`);
+const fmtTime = (s: number) =>
+  s >= 3600 ? `${Math.floor(s / 3600)} h ${Math.round((s % 3600) / 60)} min` : `${Math.round(s / 60)} min`;
 
 export default async function PlanPage({ params }: { params: Promise<{ id: string }> }) {
   const { id } = await params;
@@ -31,9 +32,21 @@ export default async function PlanPage({ params }: { params: Promise<{ id: strin
   const u = view.units;
   const header = (badge: { value: string; label: string }, objective?: string) => (
     <>
-      <p className="mb-1 text-xs"><Link href="/console/plans" className="text-edge hover:underline">← Plans</Link></p>
-      <PageHeader title={`${view.reference ?? view.id}${view.title ? ` · ${view.title}` : ""}`}
-        lead={<span className="font-mono text-xs">{view.id} · {view.grade} · {"gauge" in view.thickness ? `${view.thickness.gauge} ga` : `${view.thickness.value} ${u}`}{objective ? ` · ${objective}` : ""}</span>}>
+      <p className="mb-1 text-xs">
+        <Link href="/console/plans" className="text-edge hover:underline">
+          ← Plans
+        </Link>
+      </p>
+      <PageHeader
+        title={`${view.reference ?? view.id}${view.title ? ` · ${view.title}` : ""}`}
+        lead={
+          <span className="font-mono text-xs">
+            {view.id} · {view.grade} ·{" "}
+            {"gauge" in view.thickness ? `${view.thickness.gauge} ga` : `${view.thickness.value} ${u}`}
+            {objective ? ` · ${objective}` : ""}
+          </span>
+        }
+      >
         <Badge value={badge.value} label={badge.label} />
       </PageHeader>
     </>
@@ -41,26 +54,65 @@ export default async function PlanPage({ params }: { params: Promise<{ id: strin
   if (view.status !== "complete" || !view.result) {
     return (
       <>
-        {header({ value: view.status === "failed" ? "fail" : view.status === "cancelled" ? "cancelled" : "running", label: view.status })}
-        <PlanProgress id={view.id} initial={{ status: view.status, progress: view.progress, failure: view.failure, attempts: view.attempts, startedAt: view.startedAt }} canCancel={can(member.role, "programs:write")} />
+        {header({
+          value: view.status === "failed" ? "fail" : view.status === "cancelled" ? "cancelled" : "running",
+          label: view.status,
+        })}
+        <PlanProgress
+          id={view.id}
+          initial={{
+            status: view.status,
+            progress: view.progress,
+            failure: view.failure,
+            attempts: view.attempts,
+            startedAt: view.startedAt,
+          }}
+          canCancel={can(member.role, "programs:write")}
+        />
       </>
     );
   }
-  const plan: PlanResultT & { id: string; reference: string | null; programs: { pattern: string; id: string }[] } = { ...view.result, id: view.id, reference: view.reference, programs: view.programs };
+  const plan: PlanResultT & { id: string; reference: string | null; programs: { pattern: string; id: string }[] } = {
+    ...view.result,
+    id: view.id,
+    reference: view.reference,
+    programs: view.programs,
+  };
   const s = plan.summary;
   const written = new Map(plan.programs.map((p) => [p.pattern, p.id]));
-  const programs = new Map((plan.programs.length ? await em.find(Program, { id: { $in: plan.programs.map((p) => p.id) }, shop: member.shopId }, { fields: ["reference", "status"] }) : [])
-    .map((p) => [p.id, { reference: p.reference, status: p.status }]));
+  const programs = new Map(
+    (plan.programs.length
+      ? await em.find(
+          Program,
+          { id: { $in: plan.programs.map((p) => p.id) }, shop: member.shopId },
+          { fields: ["reference", "status"] },
+        )
+      : []
+    ).map((p) => [p.id, { reference: p.reference, status: p.status }]),
+  );
 
   return (
     <>
-      {header({ value: plan.coverage === "complete" ? "pass" : "warn", label: plan.coverage === "complete" ? "complete" : "partial" },
-        `${PLAN_OBJECTIVE_LABELS[plan.options.objective]}${plan.options.trim ? ` · trim ${plan.options.trim} ${u}` : ""}`)}
+      {header(
+        {
+          value: plan.coverage === "complete" ? "pass" : "warn",
+          label: plan.coverage === "complete" ? "complete" : "partial",
+        },
+        `${PLAN_OBJECTIVE_LABELS[plan.options.objective]}${plan.options.trim ? ` · trim ${plan.options.trim} ${u}` : ""}`,
+      )}
 
       <div className="mb-6 grid gap-3 sm:grid-cols-3 lg:grid-cols-6">
         <Stat label="Sheets" value={s.sheets} hint={`${s.patterns} pattern${s.patterns === 1 ? "" : "s"}`} />
-        <Stat label="Blanks" value={`${s.blanksPlanned} / ${s.blanksAsked}`} hint={s.short ? `${s.short} not planned` : s.extra ? `${s.extra} extra` : "as asked"} />
-        <Stat label="Stock used" value={`${s.utilisationPct} %`} hint={plan.options.reusableOffcut ? `${s.netUtilisationPct} % less kept offcuts` : "blank area ÷ sheet area"} />
+        <Stat
+          label="Blanks"
+          value={`${s.blanksPlanned} / ${s.blanksAsked}`}
+          hint={s.short ? `${s.short} not planned` : s.extra ? `${s.extra} extra` : "as asked"}
+        />
+        <Stat
+          label="Stock used"
+          value={`${s.utilisationPct} %`}
+          hint={plan.options.reusableOffcut ? `${s.netUtilisationPct} % less kept offcuts` : "blank area ÷ sheet area"}
+        />
         <Stat label="Strokes" value={s.strokes} />
         <Stat label="Turns" value={s.turns} />
         <Stat label="Estimate" value={fmtTime(s.estimateSeconds)} hint="at the shear, all sheets" />
@@ -73,7 +125,14 @@ export default async function PlanPage({ params }: { params: Promise<{ id: strin
               <h2 className="mb-2 text-sm font-semibold">Findings</h2>
               <Table head={["Severity", "Code", "Where", "Message"]}>
                 {plan.findings.map((f, i) => (
-                  <tr key={i}><Td><Badge value={f.severity} /></Td><Td mono>{f.code}</Td><Td mono>{f.pointer}</Td><Td>{f.message}</Td></tr>
+                  <tr key={i}>
+                    <Td>
+                      <Badge value={f.severity} />
+                    </Td>
+                    <Td mono>{f.code}</Td>
+                    <Td mono>{f.pointer}</Td>
+                    <Td>{f.message}</Td>
+                  </tr>
                 ))}
               </Table>
             </section>
@@ -82,31 +141,78 @@ export default async function PlanPage({ params }: { params: Promise<{ id: strin
           <SafetyNote />
 
           {plan.patterns.map((p) => {
-            const faulty = [...new Set(p.check.findings.map((f) => /^\/cuts\/(\d+)/.exec(f.pointer)?.[1]).filter(Boolean).map(Number))];
+            const faulty = [
+              ...new Set(
+                p.check.findings
+                  .map((f) => /^\/cuts\/(\d+)/.exec(f.pointer)?.[1])
+                  .filter(Boolean)
+                  .map(Number),
+              ),
+            ];
             // Strips and pieces come as runs (repeat, count): each copy is one height or one length further on.
-            const marks = p.strips.flatMap((st) => Array.from({ length: st.repeat }, (_, k) => st.pieces.flatMap((pc) =>
-              Array.from({ length: pc.count }, (_, i) => ({ x: pc.x + i * pc.length, y: pc.y + k * st.height, w: pc.length, h: pc.width, text: pc.label })))).flat());
-            const reusable = p.offcuts.filter((o) => o.reusable).map((o) => ({ x: o.x, y: o.y, w: o.length, h: o.width }));
+            const marks = p.strips.flatMap((st) =>
+              Array.from({ length: st.repeat }, (_, k) =>
+                st.pieces.flatMap((pc) =>
+                  Array.from({ length: pc.count }, (_, i) => ({
+                    x: pc.x + i * pc.length,
+                    y: pc.y + k * st.height,
+                    w: pc.length,
+                    h: pc.width,
+                    text: pc.label,
+                  })),
+                ),
+              ).flat(),
+            );
+            const reusable = p.offcuts
+              .filter((o) => o.reusable)
+              .map((o) => ({ x: o.x, y: o.y, w: o.length, h: o.width }));
             const programId = written.get(p.key);
             return (
               <section key={p.key} data-testid={`pattern-${p.key}`}>
                 <h2 className="mb-2 flex flex-wrap items-baseline gap-2 text-sm font-semibold">
-                  Pattern {p.key} · {p.repeats} sheet{p.repeats === 1 ? "" : "s"} of {plan.stock[p.stock].length} × {plan.stock[p.stock].width} {u}
-                  <span className="font-normal text-ink-muted">{p.rotated ? "width to the blade · " : ""}{p.utilisationPct} % used · {p.strokes} stroke{p.strokes === 1 ? "" : "s"}, {p.turns} turn{p.turns === 1 ? "" : "s"} per sheet</span>
+                  Pattern {p.key} · {p.repeats} sheet{p.repeats === 1 ? "" : "s"} of {plan.stock[p.stock].length} ×{" "}
+                  {plan.stock[p.stock].width} {u}
+                  <span className="font-normal text-ink-muted">
+                    {p.rotated ? "width to the blade · " : ""}
+                    {p.utilisationPct} % used · {p.strokes} stroke{p.strokes === 1 ? "" : "s"}, {p.turns} turn
+                    {p.turns === 1 ? "" : "s"} per sheet
+                  </span>
                   <Badge value={p.check.validation} label={`check: ${p.check.validation}`} />
-                  {programId && <Link href={`/console/programs/${programId}`} className="font-normal text-edge hover:underline">program →</Link>}
+                  {programId && (
+                    <Link href={`/console/programs/${programId}`} className="font-normal text-edge hover:underline">
+                      program →
+                    </Link>
+                  )}
                 </h2>
-                <CutDrawing sheet={p.sheet} layout={programLayout({ units: u, sheet: { ...p.sheet, count: 1 }, cuts: p.cuts })} units={u} faultyGroups={faulty} marks={marks} reusable={reusable} />
+                <CutDrawing
+                  sheet={p.sheet}
+                  layout={programLayout({ units: u, sheet: { ...p.sheet, count: 1 }, cuts: p.cuts })}
+                  units={u}
+                  faultyGroups={faulty}
+                  marks={marks}
+                  reusable={reusable}
+                />
                 <details className="mt-2 text-xs text-ink-muted">
-                  <summary className="cursor-pointer">The program: {p.cuts.length} groups{p.check.findings.length ? ` · ${p.check.findings.length} finding${p.check.findings.length === 1 ? "" : "s"}` : ""}</summary>
+                  <summary className="cursor-pointer">
+                    The program: {p.cuts.length} groups
+                    {p.check.findings.length
+                      ? ` · ${p.check.findings.length} finding${p.check.findings.length === 1 ? "" : "s"}`
+                      : ""}
+                  </summary>
                   <ol className="mt-1 space-y-0.5">
                     {p.cuts.map((c, i) => (
                       <li key={i} className={faulty.includes(i) ? "text-fault" : ""}>
-                        <span className="font-medium">{groupName(i)}</span>: {c.count} stroke{c.count === 1 ? "" : "s"} at {c.backgauge} {u}{c.note ? ` · ${c.note}` : ""}
+                        <span className="font-medium">{groupName(i)}</span>: {c.count} stroke{c.count === 1 ? "" : "s"}{" "}
+                        at {c.backgauge} {u}
+                        {c.note ? ` · ${c.note}` : ""}
                       </li>
                     ))}
                   </ol>
-                  {p.check.findings.map((f, i) => <p key={i} className={f.severity === "error" ? "text-fault" : "text-caution-dark"}>{f.code}: {f.message}</p>)}
+                  {p.check.findings.map((f, i) => (
+                    <p key={i} className={f.severity === "error" ? "text-fault" : "text-caution-dark"}>
+                      {f.code}: {f.message}
+                    </p>
+                  ))}
                 </details>
               </section>
             );
@@ -122,7 +228,9 @@ export default async function PlanPage({ params }: { params: Promise<{ id: strin
                   const program = programs.get(p.id);
                   return (
                     <li key={p.id} className="flex flex-wrap items-center gap-2">
-                      <Link href={`/console/programs/${p.id}`} className="text-edge hover:underline">{program?.reference ?? p.id}</Link>
+                      <Link href={`/console/programs/${p.id}`} className="text-edge hover:underline">
+                        {program?.reference ?? p.id}
+                      </Link>
                       {program && <Badge value={program.status} />}
                       <span className="text-xs text-ink-muted">pattern {p.pattern}</span>
                     </li>
@@ -139,10 +247,25 @@ export default async function PlanPage({ params }: { params: Promise<{ id: strin
             <Table head={["Blank", "Size", "Asked", "Planned"]}>
               {plan.blanks.map((b, i) => (
                 <tr key={i}>
-                  <Td>{b.label}{b.canTurn ? "" : <span className="text-ink-muted" title="keeps the sheet's direction: grain or finish"> (not turned)</span>}</Td>
-                  <Td mono>{b.length} × {b.width}</Td>
+                  <Td>
+                    {b.label}
+                    {b.canTurn ? (
+                      ""
+                    ) : (
+                      <span className="text-ink-muted" title="keeps the sheet's direction: grain or finish">
+                        {" "}
+                        (not turned)
+                      </span>
+                    )}
+                  </Td>
+                  <Td mono>
+                    {b.length} × {b.width}
+                  </Td>
                   <Td mono>{b.quantity}</Td>
-                  <Td mono className={b.short ? "text-fault" : b.extra ? "text-caution-dark" : ""}>{b.planned}{b.short ? ` (−${b.short})` : b.extra ? ` (+${b.extra})` : ""}</Td>
+                  <Td mono className={b.short ? "text-fault" : b.extra ? "text-caution-dark" : ""}>
+                    {b.planned}
+                    {b.short ? ` (−${b.short})` : b.extra ? ` (+${b.extra})` : ""}
+                  </Td>
                 </tr>
               ))}
             </Table>
@@ -151,12 +274,22 @@ export default async function PlanPage({ params }: { params: Promise<{ id: strin
           <section className="rounded-md border border-scale-200 bg-white p-4 text-sm">
             <h2 className="mb-2 font-semibold">Stock</h2>
             <ul className="space-y-0.5 font-mono text-xs">
-              {plan.stock.map((st, i) => <li key={i}>{st.length} × {st.width} {u}: {st.used} used{st.count !== null ? ` of ${st.count}` : ""}</li>)}
+              {plan.stock.map((st, i) => (
+                <li key={i}>
+                  {st.length} × {st.width} {u}: {st.used} used{st.count !== null ? ` of ${st.count}` : ""}
+                </li>
+              ))}
             </ul>
             {plan.reusableOffcuts.length > 0 && (
               <>
                 <h3 className="mb-1 mt-3 font-semibold">Offcuts to keep</h3>
-                <ul className="space-y-0.5 font-mono text-xs">{plan.reusableOffcuts.map((o, i) => <li key={i}>{o.count} × {o.length} × {o.width} {u}</li>)}</ul>
+                <ul className="space-y-0.5 font-mono text-xs">
+                  {plan.reusableOffcuts.map((o, i) => (
+                    <li key={i}>
+                      {o.count} × {o.length} × {o.width} {u}
+                    </li>
+                  ))}
+                </ul>
               </>
             )}
           </section>

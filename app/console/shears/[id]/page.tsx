@@ -21,14 +21,39 @@ export default async function ShearPage({ params }: { params: Promise<{ id: stri
   const manage = can(member.role, "catalog:manage");
   return (
     <>
-      <p className="mb-1 text-xs"><Link href="/console/shears" className="text-edge hover:underline">← Shears</Link></p>
-      <PageHeader title={s.name} lead={<span className="font-mono text-xs">{s.id}{s.archivedAt ? " · archived" : ""}</span>}>
+      <p className="mb-1 text-xs">
+        <Link href="/console/shears" className="text-edge hover:underline">
+          ← Shears
+        </Link>
+      </p>
+      <PageHeader
+        title={s.name}
+        lead={
+          <span className="font-mono text-xs">
+            {s.id}
+            {s.archivedAt ? " · archived" : ""}
+          </span>
+        }
+      >
         {manage && !s.archivedAt && (
-          <ActionForm action={archiveAction} fields={{ id: s.id }} confirm="Archive this shear? It takes no new programs." buttonClassName="rounded border border-fault/50 px-2 py-1 text-xs text-fault">Archive</ActionForm>
+          <ActionForm
+            action={archiveAction}
+            fields={{ id: s.id }}
+            confirm="Archive this shear? It takes no new programs."
+            buttonClassName="rounded border border-fault/50 px-2 py-1 text-xs text-fault"
+          >
+            Archive
+          </ActionForm>
         )}
       </PageHeader>
       <section className="max-w-2xl rounded-md border border-scale-200 bg-white p-4">
-        {manage ? <ShearForm id={s.id} initial={s} /> : <pre tabIndex={0} className="overflow-x-auto text-xs">{JSON.stringify(s, null, 2)}</pre>}
+        {manage ? (
+          <ShearForm id={s.id} initial={s} />
+        ) : (
+          <pre tabIndex={0} className="overflow-x-auto text-xs">
+            {JSON.stringify(s, null, 2)}
+          </pre>
+        )}
       </section>
     </>
   );

@@ -2,4 +2,6 @@ import { getEvent } from "@/lib/api/operations/webhooks";
 import { route } from "@/lib/api/route";
 import * as webhooks from "@/lib/services/webhooks";
 
-export const GET = route(getEvent, async ({ em, principal, params }) => ({ body: await webhooks.getEvent(em, principal.shopId, params.id) }));
+export const GET = route(getEvent, async ({ em, principal, params }) => ({
+  body: await webhooks.getEvent(em, principal.shopId, params.id),
+}));

@@ -13,5 +13,8 @@ export async function GET(_request: Request, { params }: { params: Promise<{ id:
   const plan = await findPlan(await requestEm(), member.shopId, id).catch(() => null);
   if (!plan) return NextResponse.json({ error: "No plan with that id in this shop." }, { status: 404 });
   const { status, progress, failure, attempts, startedAt } = viewPlanSummary(plan);
-  return NextResponse.json({ status, progress, failure, attempts, startedAt }, { headers: { "Cache-Control": "no-store" } });
+  return NextResponse.json(
+    { status, progress, failure, attempts, startedAt },
+    { headers: { "Cache-Control": "no-store" } },
+  );
 }

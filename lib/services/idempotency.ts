@@ -7,7 +7,7 @@
 import { createHash } from "node:crypto";
 import type { EntityManager } from "@mikro-orm/postgresql";
 import { IdempotencyRecord } from "../../entities";
-import { ApiError, conflict } from "./errors";
+import { ApiError, conflict } from "../errors";
 
 export const IDEMPOTENCY_TTL_MS = 24 * 60 * 60 * 1000;
 const ABANDONED_AFTER_MS = 60_000;
@@ -27,11 +27,23 @@ export function fingerprint(method: string, path: string, body: string): string 
 
 export function checkKeyFormat(key: string) {
   if (!KEY_PATTERN.test(key)) {
-    throw new ApiError(400, "bad-idempotency-key", "Idempotency-Key is malformed", "Use 1 to 255 visible ASCII characters, e.g. a UUID.");
+    throw new ApiError(
+      400,
+      "bad-idempotency-key",
+      "Idempotency-Key is malformed",
+      "Use 1 to 255 visible ASCII characters, e.g. a UUID.",
+    );
   }
 }
 
-export async function claim(em: EntityManager, keyId: string, idemKey: string, method: string, path: string, print: string): Promise<Claim> {
+export async function claim(
+  em: EntityManager,
+  keyId: string,
+  idemKey: string,
+  method: string,
+  path: string,
+  print: string,
+): Promise<Claim> {
   const conn = em.getConnection();
   for (let attempt = 0; attempt < 3; attempt++) {
     const now = new Date();
@@ -41,34 +53,51 @@ export async function claim(em: EntityManager, keyId: string, idemKey: string, m
       [keyId, idemKey, method, path, print, now, new Date(now.getTime() + IDEMPOTENCY_TTL_MS)],
     );
     if (inserted.length === 1) return { kind: "new" };
-    const existing = await em.findOne(IdempotencyRecord, { keyId, idempotencyKey: idemKey }, { disableIdentityMap: true });
+    const existing = await em.findOne(
+      IdempotencyRecord,
+      { keyId, idempotencyKey: idemKey },
+      { disableIdentityMap: true },
+    );
     if (!existing) continue; // removed meanwhile: try again
-    const abandoned = existing.responseStatus == null && now.getTime() - existing.createdAt.getTime() > ABANDONED_AFTER_MS;
+    const abandoned =
+      existing.responseStatus == null && now.getTime() - existing.createdAt.getTime() > ABANDONED_AFTER_MS;
     if (existing.expiresAt <= now || abandoned) {
       await em.nativeDelete(IdempotencyRecord, { keyId, idempotencyKey: idemKey, createdAt: existing.createdAt });
       continue;
     }
     if (existing.fingerprint !== print) {
-      throw new ApiError(422, "idempotency-key-reused", "Idempotency-Key reused with another request",
-        "This Idempotency-Key was already used with a different method, path or body. Use a new key for a new request.");
+      throw new ApiError(
+        422,
+        "idempotency-key-reused",
+        "Idempotency-Key reused with another request",
+        "This Idempotency-Key was already used with a different method, path or body. Use a new key for a new request.",
+      );
     }
     if (existing.responseStatus == null) {
       throw conflict("A request with this Idempotency-Key is still being processed; retry shortly.");
     }
     return {
       kind: "replay",
-      response: { status: existing.responseStatus, body: existing.responseBody, headers: existing.responseHeaders ?? {} },
+      response: {
+        status: existing.responseStatus,
+        body: existing.responseBody,
+        headers: existing.responseHeaders ?? {},
+      },
     };
   }
   throw conflict("Could not reserve the Idempotency-Key; retry shortly.");
 }
 
 export async function complete(em: EntityManager, keyId: string, idemKey: string, response: StoredResponse) {
-  await em.nativeUpdate(IdempotencyRecord, { keyId, idempotencyKey: idemKey }, {
-    responseStatus: response.status,
-    responseBody: response.body as object,
-    responseHeaders: response.headers,
-  });
+  await em.nativeUpdate(
+    IdempotencyRecord,
+    { keyId, idempotencyKey: idemKey },
+    {
+      responseStatus: response.status,
+      responseBody: response.body as object,
+      responseHeaders: response.headers,
+    },
+  );
 }
 
 /** Forget a reservation whose request failed on our side, so a retry runs again. */

@@ -19,6 +19,13 @@ try {
   const result = await planOrder(order, context, (progress) => post({ kind: "progress", progress }));
   post({ kind: "result", result });
 } catch (err) {
-  const refused = err && typeof err === "object" && "limit" in err ? (err as { limit: string; pointer: string; value: number; max: number | null }) : undefined;
-  post({ kind: "error", message: (err as Error).message, refused: refused && { limit: refused.limit, pointer: refused.pointer, value: refused.value, max: refused.max } });
+  const refused =
+    err && typeof err === "object" && "limit" in err
+      ? (err as { limit: string; pointer: string; value: number; max: number | null })
+      : undefined;
+  post({
+    kind: "error",
+    message: (err as Error).message,
+    refused: refused && { limit: refused.limit, pointer: refused.pointer, value: refused.value, max: refused.max },
+  });
 }

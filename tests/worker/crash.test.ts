@@ -29,7 +29,8 @@ describe("worker crash", () => {
       const auth = { Authorization: `Bearer ${shop.key}` };
       await request(BASE_URL).post("/api/v1/webhook-endpoints").set(auth).send({ url: receiver.url }).expect(201);
       const creating = (async () => {
-        for (let i = 0; i < 30; i++) await request(BASE_URL).post("/api/v1/programs").set(auth).send(exampleProgram(shop.shearId)).expect(201);
+        for (let i = 0; i < 30; i++)
+          await request(BASE_URL).post("/api/v1/programs").set(auth).send(exampleProgram(shop.shearId)).expect(201);
       })();
       for (let k = 0; k < 4; k++) {
         await new Promise((r) => setTimeout(r, 700));

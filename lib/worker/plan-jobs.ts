@@ -16,7 +16,7 @@ import type { PlanInputT } from "../schemas/plan";
 import { gradeByCode, gradeProfile, shearProfile } from "../services/catalog";
 import { recordEvent } from "../services/events";
 import { PLAN_CANCEL_CHANNEL, PLAN_DONE_CHANNEL, planResultOf, viewPlanSummary } from "../services/plans";
-import { enqueuePlan } from "./plan-queue";
+import { enqueuePlan } from "../queue/plan-queue";
 
 export type PlanOutcome =
   | { kind: "complete"; result: PlannedOrder }
@@ -30,7 +30,8 @@ const THREAD_HEAP_MB = Number(process.env.SHEARWIRE_PLAN_HEAP_MB ?? 1536);
 
 /** Plan an order in a worker thread; ends it at the time limit or when `signal` aborts. */
 export function planInThread(
-  order: Order, context: PlanContext,
+  order: Order,
+  context: PlanContext,
   opts: { timeLimitMs: number; onProgress?: (progress: Progress) => void; signal?: AbortSignal },
 ): Promise<PlanOutcome> {
   return new Promise((resolve) => {
@@ -49,27 +50,47 @@ export function planInThread(
       resolve(outcome);
     };
     const seconds = Math.round(opts.timeLimitMs / 1000);
-    const timer = setTimeout(() => finish({ kind: "failed", reason: "time_limit", message: `The plan took longer than this install's limit of ${seconds} s and was stopped. Plan fewer blank types or pieces at once, or coarser sizes.` }), opts.timeLimitMs);
+    const timer = setTimeout(
+      () =>
+        finish({
+          kind: "failed",
+          reason: "time_limit",
+          message: `The plan took longer than this install's limit of ${seconds} s and was stopped. Plan fewer blank types or pieces at once, or coarser sizes.`,
+        }),
+      opts.timeLimitMs,
+    );
     const onAbort = () => finish({ kind: "cancelled" });
     if (opts.signal?.aborted) return onAbort();
     opts.signal?.addEventListener("abort", onAbort, { once: true });
     thread.on("message", (message: { kind: string; progress?: Progress; result?: PlannedOrder; message?: string }) => {
       if (message.kind === "progress" && message.progress) opts.onProgress?.(message.progress);
       else if (message.kind === "result") finish({ kind: "complete", result: message.result! });
-      else if (message.kind === "error") finish({ kind: "failed", reason: "error", message: `The planner stopped: ${message.message}` });
+      else if (message.kind === "error")
+        finish({ kind: "failed", reason: "error", message: `The planner stopped: ${message.message}` });
     });
     thread.on("error", (err: Error & { code?: string }) => {
       const memory = err.code === "ERR_WORKER_OUT_OF_MEMORY";
-      finish(memory
-        ? { kind: "failed", reason: "out_of_memory", message: `The plan needed more than ${THREAD_HEAP_MB} MiB of memory and was stopped. Plan fewer blank types or pieces at once.` }
-        : { kind: "failed", reason: "error", message: `The planner stopped: ${err.message}` });
+      finish(
+        memory
+          ? {
+              kind: "failed",
+              reason: "out_of_memory",
+              message: `The plan needed more than ${THREAD_HEAP_MB} MiB of memory and was stopped. Plan fewer blank types or pieces at once.`,
+            }
+          : { kind: "failed", reason: "error", message: `The planner stopped: ${err.message}` },
+      );
     });
-    thread.on("exit", (code) => finish({ kind: "failed", reason: "error", message: `The planner ended without an answer (exit ${code}).` }));
+    thread.on("exit", (code) =>
+      finish({ kind: "failed", reason: "error", message: `The planner ended without an answer (exit ${code}).` }),
+    );
   });
 }
 
 /** The order and the catalog as the plan's shear and grade are now. */
-async function contextOf(em: EntityManager, plan: { shop: { id: string }; shear: { id: string }; input: Record<string, unknown> }): Promise<{ order: Order; context: PlanContext }> {
+async function contextOf(
+  em: EntityManager,
+  plan: { shop: { id: string }; shear: { id: string }; input: Record<string, unknown> },
+): Promise<{ order: Order; context: PlanContext }> {
   const order = plan.input as unknown as PlanInputT;
   const shear = await em.findOneOrFail(Shear, { id: plan.shear.id });
   const grade = await gradeByCode(em, plan.shop.id, order.grade);
@@ -89,7 +110,11 @@ async function take(em: EntityManager, planId: string): Promise<boolean> {
 const PROGRESS_EVERY_MS = 500;
 
 /** Compute a stored plan and store the outcome (the worker's job; `npm run up`'s seed calls it too). */
-export async function processStoredPlan(fork: () => EntityManager, planId: string, timeLimitMs: number): Promise<PlanOutcome["kind"] | "skipped"> {
+export async function processStoredPlan(
+  fork: () => EntityManager,
+  planId: string,
+  timeLimitMs: number,
+): Promise<PlanOutcome["kind"] | "skipped"> {
   if (!(await take(fork(), planId))) return "skipped";
   const em = fork();
   const plan = await em.findOneOrFail(Plan, { id: planId });
@@ -98,7 +123,9 @@ export async function processStoredPlan(fork: () => EntityManager, planId: strin
   // Cancelled while running: PostgreSQL tells us (NOTIFY on commit); progress writes notice too.
   const cancelled = new AbortController();
   const stopListening = new AbortController();
-  void waitForNotification(PLAN_CANCEL_CHANNEL, planId, timeLimitMs + 5_000, stopListening.signal).then((heard) => heard && cancelled.abort());
+  void waitForNotification(PLAN_CANCEL_CHANNEL, planId, timeLimitMs + 5_000, stopListening.signal).then(
+    (heard) => heard && cancelled.abort(),
+  );
   let lastWrite = 0;
   let writing: Promise<unknown> = Promise.resolve();
   const onProgress = (progress: Progress) => {
@@ -106,9 +133,13 @@ export async function processStoredPlan(fork: () => EntityManager, planId: strin
     if (now - lastWrite < PROGRESS_EVERY_MS) return;
     lastWrite = now;
     writing = writing.then(async () => {
-      const rows = await fork().getConnection().execute<{ id: string }[]>(
-        "update plans set progress = ?, updated_at = now() where id = ? and status = 'running' returning id", [JSON.stringify(progress), planId],
-      ).catch(() => [{ id: planId }]);
+      const rows = await fork()
+        .getConnection()
+        .execute<{ id: string }[]>(
+          "update plans set progress = ?, updated_at = now() where id = ? and status = 'running' returning id",
+          [JSON.stringify(progress), planId],
+        )
+        .catch(() => [{ id: planId }]);
       if (!rows.length) cancelled.abort(); // no longer running: cancelled
     });
   };
@@ -122,7 +153,11 @@ export async function processStoredPlan(fork: () => EntityManager, planId: strin
 }
 
 /** Store a finished plan and its event, in one transaction, unless it was cancelled meanwhile. */
-export async function finishPlan(em: EntityManager, planId: string, outcome: Exclude<PlanOutcome, { kind: "cancelled" }>) {
+export async function finishPlan(
+  em: EntityManager,
+  planId: string,
+  outcome: Exclude<PlanOutcome, { kind: "cancelled" }>,
+) {
   await em.transactional(async (tx) => {
     const plan = await tx.findOne(Plan, { id: planId, status: "running" }, { populate: ["shop"] });
     if (!plan) return; // cancelled (or finished by another worker) meanwhile
@@ -131,14 +166,20 @@ export async function finishPlan(em: EntityManager, planId: string, outcome: Exc
       const result = planResultOf(plan.input as unknown as PlanInputT, outcome.result);
       plan.status = "complete";
       plan.result = result as unknown as Record<string, unknown>;
-      plan.progress = { patterns: result.summary.patterns, piecesPlaced: result.summary.blanksPlanned - result.summary.extra, piecesWanted: result.summary.blanksAsked };
+      plan.progress = {
+        patterns: result.summary.patterns,
+        piecesPlaced: result.summary.blanksPlanned - result.summary.extra,
+        piecesWanted: result.summary.blanksAsked,
+      };
       plan.failure = null;
     } else {
       plan.status = "failed";
       plan.failure = { reason: outcome.reason, message: outcome.message };
     }
     await tx.flush();
-    await recordEvent(tx, plan.shop.id, outcome.kind === "complete" ? "plan.completed" : "plan.failed", plan.id, { plan: viewPlanSummary(plan) });
+    await recordEvent(tx, plan.shop.id, outcome.kind === "complete" ? "plan.completed" : "plan.failed", plan.id, {
+      plan: viewPlanSummary(plan),
+    });
     await tx.execute(`select pg_notify('${PLAN_DONE_CHANNEL}', ?)`, [plan.id]);
   });
 }
@@ -154,10 +195,12 @@ export async function failLostPlan(em: EntityManager, planId: string, message: s
  * a plan's job id is the plan's id.
  */
 export async function requeueOrphanPlans(em: EntityManager, staleMs: number): Promise<string[]> {
-  const rows = await em.getConnection().execute<{ id: string }[]>(
-    `select id from plans where (status = 'queued' and created_at < ?) or (status = 'running' and updated_at < ?) order by id limit 100`,
-    [new Date(Date.now() - 30_000), new Date(Date.now() - staleMs)],
-  );
+  const rows = await em
+    .getConnection()
+    .execute<{ id: string }[]>(
+      `select id from plans where (status = 'queued' and created_at < ?) or (status = 'running' and updated_at < ?) order by id limit 100`,
+      [new Date(Date.now() - 30_000), new Date(Date.now() - staleMs)],
+    );
   for (const { id } of rows) await enqueuePlan(id);
   return rows.map((r) => r.id);
 }

@@ -8,7 +8,7 @@
 import { Worker } from "bullmq";
 import pg from "pg";
 import { WebhookEndpoint } from "../../entities";
-import { purgeExpired } from "../api/idempotency";
+import { purgeExpired } from "../services/idempotency";
 import { DEFAULT_DATABASE_URL } from "../db/config";
 import { getOrm } from "../db/orm";
 import { OUTBOX_CHANNEL } from "../services/events";
@@ -16,9 +16,9 @@ import { sweepExpiredLeases } from "../services/gateway";
 import { mailEndpointDisabled } from "../services/mail";
 import { attemptDelivery } from "./deliver";
 import { dispatchPending, overdueDeliveries } from "./dispatch";
-import { bullConnection, closeQueue, enqueueAttempt, QUEUE_NAME, type DeliveryJob } from "./queue";
+import { bullConnection, closeQueue, enqueueAttempt, QUEUE_NAME, type DeliveryJob } from "../queue/queue";
 import { failLostPlan, planInThread, processStoredPlan, requeueOrphanPlans } from "./plan-jobs";
-import { PLAN_QUEUE, planTimeLimitMs, previewTimeLimitMs, type PlanJob } from "./plan-queue";
+import { PLAN_QUEUE, planTimeLimitMs, previewTimeLimitMs, type PlanJob } from "../queue/plan-queue";
 
 /** A plan job's lock: a worker that dies loses it within this, and another worker takes the plan over. */
 const PLAN_LOCK_MS = Number(process.env.SHEARWIRE_PLAN_LOCK_MS ?? 15_000);
@@ -108,21 +108,31 @@ export async function runWorker({
     async (job) => {
       if (job.data.kind === "preview") {
         const outcome = await planInThread(job.data.order, job.data.context, { timeLimitMs: previewTimeLimitMs() });
-        if (outcome.kind !== "complete") throw new Error(outcome.kind === "failed" ? outcome.message : "The preview was stopped.");
+        if (outcome.kind !== "complete")
+          throw new Error(outcome.kind === "failed" ? outcome.message : "The preview was stopped.");
         return outcome.result;
       }
       const outcome = await processStoredPlan(fork, job.data.planId, planTimeLimitMs());
       log(`plan ${job.data.planId}: ${outcome}`);
       return outcome;
     },
-    { connection: bullConnection(), concurrency: planConcurrency, lockDuration: PLAN_LOCK_MS, stalledInterval: Math.max(1_000, PLAN_LOCK_MS / 3), maxStalledCount: 3 },
+    {
+      connection: bullConnection(),
+      concurrency: planConcurrency,
+      lockDuration: PLAN_LOCK_MS,
+      stalledInterval: Math.max(1_000, PLAN_LOCK_MS / 3),
+      maxStalledCount: 3,
+    },
   );
   planWorker.on("error", (err) => log(`plan queue: ${err.message}`));
   planWorker.on("failed", (job, err) => {
     // A stored plan whose workers kept dying (the job stalled too often) is failed, with the reason.
     if (job?.data.kind === "stored" && /stalled/i.test(err.message)) {
-      void failLostPlan(fork(), job.data.planId, `The workers computing this plan stopped ${job.attemptsStarted ?? "several"} times; it was given up. ${err.message}`)
-        .catch((e) => log(`plan ${job.data.kind === "stored" ? job.data.planId : ""}: ${(e as Error).message}`));
+      void failLostPlan(
+        fork(),
+        job.data.planId,
+        `The workers computing this plan stopped ${job.attemptsStarted ?? "several"} times; it was given up. ${err.message}`,
+      ).catch((e) => log(`plan ${job.data.kind === "stored" ? job.data.planId : ""}: ${(e as Error).message}`));
     }
   });
 

@@ -21,13 +21,19 @@ const HEADERS_KEPT = 40;
 const HEADER_CHARS = 500;
 
 function keptHeaders(headers: Record<string, string | string[] | undefined>): Record<string, string> {
-  return Object.fromEntries(Object.entries(headers).slice(0, HEADERS_KEPT)
-    .filter((entry): entry is [string, string | string[]] => entry[1] !== undefined)
-    .map(([name, value]) => [name, (Array.isArray(value) ? value.join(", ") : value).slice(0, HEADER_CHARS)]));
+  return Object.fromEntries(
+    Object.entries(headers)
+      .slice(0, HEADERS_KEPT)
+      .filter((entry): entry is [string, string | string[]] => entry[1] !== undefined)
+      .map(([name, value]) => [name, (Array.isArray(value) ? value.join(", ") : value).slice(0, HEADER_CHARS)]),
+  );
 }
 const USER_AGENT = "Shearwire-Webhooks/1";
 // Connections to receivers are kept open between deliveries (a socket is only ever opened to an address that passed the check).
-const agents = { http: new http.Agent({ keepAlive: true, maxSockets: 64 }), https: new https.Agent({ keepAlive: true, maxSockets: 64 }) };
+const agents = {
+  http: new http.Agent({ keepAlive: true, maxSockets: 64 }),
+  https: new https.Agent({ keepAlive: true, maxSockets: 64 }),
+};
 
 export interface HttpResult {
   status: number | null;
@@ -50,16 +56,26 @@ function signer(secret: string): Webhook {
 }
 
 /** Sign a payload with every secret that is currently valid for the endpoint. */
-export function signatures(endpoint: Pick<WebhookEndpointEntity, "secret" | "previousSecret" | "previousSecretExpiresAt">, id: string, at: Date, payload: string, now = new Date()): string {
+export function signatures(
+  endpoint: Pick<WebhookEndpointEntity, "secret" | "previousSecret" | "previousSecretExpiresAt">,
+  id: string,
+  at: Date,
+  payload: string,
+  now = new Date(),
+): string {
   const secrets = [endpoint.secret];
-  if (endpoint.previousSecret && endpoint.previousSecretExpiresAt && endpoint.previousSecretExpiresAt > now) secrets.push(endpoint.previousSecret);
+  if (endpoint.previousSecret && endpoint.previousSecretExpiresAt && endpoint.previousSecretExpiresAt > now)
+    secrets.push(endpoint.previousSecret);
   return secrets.map((s) => signer(s).sign(id, at, payload)).join(" ");
 }
 
 /** POST to the receiver at the address that passed the address check. */
 export async function post(urlText: string, body: string, headers: Record<string, string>): Promise<HttpResult> {
   const started = performance.now();
-  const done = (r: Omit<HttpResult, "latencyMs">): HttpResult => ({ ...r, latencyMs: Math.round((performance.now() - started) * 10) / 10 });
+  const done = (r: Omit<HttpResult, "latencyMs">): HttpResult => ({
+    ...r,
+    latencyMs: Math.round((performance.now() - started) * 10) / 10,
+  });
   let url: URL;
   let targets: CheckedAddress[];
   try {
@@ -73,7 +89,12 @@ export async function post(urlText: string, body: string, headers: Record<string
   return new Promise((resolve) => {
     const req = client.request(url, {
       method: "POST",
-      headers: { ...headers, "content-type": "application/json", "content-length": Buffer.byteLength(body), "user-agent": USER_AGENT },
+      headers: {
+        ...headers,
+        "content-type": "application/json",
+        "content-length": Buffer.byteLength(body),
+        "user-agent": USER_AGENT,
+      },
       lookup: pinnedLookup(targets) as unknown as http.RequestOptions["lookup"],
       timeout: TIMEOUT_MS,
       agent: secure ? agents.https : agents.http,
@@ -92,7 +113,14 @@ export async function post(urlText: string, body: string, headers: Record<string
       });
       const finish = () => {
         clearTimeout(timer);
-        resolve(done({ status: res.statusCode ?? null, headers: res.headers, excerpt: text.slice(0, EXCERPT_CHARS) || null, error: null }));
+        resolve(
+          done({
+            status: res.statusCode ?? null,
+            headers: res.headers,
+            excerpt: text.slice(0, EXCERPT_CHARS) || null,
+            error: null,
+          }),
+        );
       };
       res.on("end", finish);
       res.on("error", finish);
@@ -131,9 +159,12 @@ const BODIES_KEPT = 2000;
 async function bodyOf(em: EntityManager, eventId: string): Promise<string> {
   const kept = bodies.get(eventId);
   if (kept !== undefined) return kept;
-  const [ev] = await em.getConnection().execute<{ type: string; data: unknown; created_at: Date }[]>(
-    "select type, data, created_at from events where id = ?", [eventId],
-  );
+  const [ev] = await em
+    .getConnection()
+    .execute<{ type: string; data: unknown; created_at: Date }[]>(
+      "select type, data, created_at from events where id = ?",
+      [eventId],
+    );
   const body = webhookPayload({ type: ev.type, createdAt: ev.created_at, data: ev.data });
   bodies.set(eventId, body);
   if (bodies.size > BODIES_KEPT) bodies.delete(bodies.keys().next().value as string);
@@ -145,7 +176,11 @@ async function bodyOf(em: EntityManager, eventId: string): Promise<string> {
  * UPDATE that also reads the endpoint and event), so two workers that got the same job do
  * not both send it; a success is then recorded in one more statement.
  */
-export async function attemptDelivery(em: EntityManager, deliveryId: string, expectedAttempt?: number): Promise<AttemptOutcome> {
+export async function attemptDelivery(
+  em: EntityManager,
+  deliveryId: string,
+  expectedAttempt?: number,
+): Promise<AttemptOutcome> {
   const conn = em.getConnection();
   const [row] = await conn.execute<ClaimedRow[]>(
     `update deliveries d set attempts = d.attempts + 1, updated_at = now()
@@ -160,14 +195,23 @@ export async function attemptDelivery(em: EntityManager, deliveryId: string, exp
 
   const sentAt = new Date();
   const payload = await bodyOf(em, row.event_id);
-  const endpoint = { secret: row.secret, previousSecret: row.previous_secret, previousSecretExpiresAt: row.previous_secret_expires_at ? new Date(row.previous_secret_expires_at) : null };
+  const endpoint = {
+    secret: row.secret,
+    previousSecret: row.previous_secret,
+    previousSecretExpiresAt: row.previous_secret_expires_at ? new Date(row.previous_secret_expires_at) : null,
+  };
   const sent = {
     "webhook-id": row.event_id,
     "webhook-timestamp": String(Math.floor(sentAt.getTime() / 1000)),
     "webhook-signature": signatures(endpoint, row.event_id, sentAt, payload),
   };
   const result = await post(row.url, payload, sent);
-  const requestHeaders = JSON.stringify({ ...sent, "content-type": "application/json", "content-length": String(Buffer.byteLength(payload)), "user-agent": USER_AGENT });
+  const requestHeaders = JSON.stringify({
+    ...sent,
+    "content-type": "application/json",
+    "content-length": String(Buffer.byteLength(payload)),
+    "user-agent": USER_AGENT,
+  });
   const responseHeaders = result.status === null ? null : JSON.stringify(keptHeaders(result.headers));
   const ok = result.status !== null && result.status >= 200 && result.status <= 299;
 
@@ -180,7 +224,19 @@ export async function attemptDelivery(em: EntityManager, deliveryId: string, exp
        endpoint as (
          update webhook_endpoints set consecutive_failures = 0 where id = (select endpoint_id from deliveries where id = ?) and consecutive_failures <> 0)
        update deliveries set status = 'succeeded', next_attempt_at = null, last_status_code = ?, last_error = null, updated_at = now() where id = ?`,
-      [newId("attempt"), deliveryId, sentAt, requestHeaders, result.status, responseHeaders, result.latencyMs, result.excerpt, deliveryId, result.status, deliveryId],
+      [
+        newId("attempt"),
+        deliveryId,
+        sentAt,
+        requestHeaders,
+        result.status,
+        responseHeaders,
+        result.latencyMs,
+        result.excerpt,
+        deliveryId,
+        result.status,
+        deliveryId,
+      ],
     );
     return { kind: "done", status: "succeeded" };
   }
@@ -189,9 +245,14 @@ export async function attemptDelivery(em: EntityManager, deliveryId: string, exp
     const d = await tx.findOneOrFail(Delivery, { id: deliveryId }, { populate: ["endpoint"] });
     const ep = d.endpoint;
     tx.create(DeliveryAttempt, {
-      delivery: d, attemptedAt: sentAt, statusCode: result.status, latencyMs: result.latencyMs,
-      requestHeaders: JSON.parse(requestHeaders), responseHeaders: responseHeaders === null ? null : JSON.parse(responseHeaders),
-      responseExcerpt: result.excerpt, error: result.error,
+      delivery: d,
+      attemptedAt: sentAt,
+      statusCode: result.status,
+      latencyMs: result.latencyMs,
+      requestHeaders: JSON.parse(requestHeaders),
+      responseHeaders: responseHeaders === null ? null : JSON.parse(responseHeaders),
+      responseExcerpt: result.excerpt,
+      error: result.error,
     });
     d.attempts = attempt;
     d.lastStatusCode = result.status;

@@ -3,7 +3,9 @@
  * 2 h, 5 h, 10 h, 14 h, 20 h and 24 h after each failure, with ±10 % jitter.
  * SHEARWIRE_WEBHOOK_TIME_SCALE shrinks it for tests (0.001 turns 5 min into 300 ms).
  */
-export const RETRY_SCHEDULE_MS = [0, 5_000, 300_000, 1_800_000, 7_200_000, 18_000_000, 36_000_000, 50_400_000, 72_000_000, 86_400_000];
+export const RETRY_SCHEDULE_MS = [
+  0, 5_000, 300_000, 1_800_000, 7_200_000, 18_000_000, 36_000_000, 50_400_000, 72_000_000, 86_400_000,
+];
 export const MAX_ATTEMPTS = RETRY_SCHEDULE_MS.length;
 const MAX_RETRY_AFTER_MS = 86_400_000;
 const JITTER = 0.1;

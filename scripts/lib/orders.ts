@@ -24,10 +24,17 @@ export function largestOrder(shear: string, seed = 20261202) {
   const each = Math.floor(PLAN_LIMITS.totalPieces / types);
   return {
     reference: `LARGEST-${seed}`,
-    shear, grade: "A36", thickness: { value: 3 }, units: "mm" as const,
+    shear,
+    grade: "A36",
+    thickness: { value: 3 },
+    units: "mm" as const,
     stock: Array.from({ length: PLAN_LIMITS.stockSizes }, (_, i) => ({ length: 2000 + 50 * i, width: 1000 + 25 * i })),
     blanks: Array.from({ length: types }, (_, i) => ({
-      label: `part ${i + 1}`, length: between(40, 900), width: between(40, 600), quantity: each, canTurn: random() < 0.8,
+      label: `part ${i + 1}`,
+      length: between(40, 900),
+      width: between(40, 600),
+      quantity: each,
+      canTurn: random() < 0.8,
     })),
   };
 }
@@ -38,10 +45,21 @@ export function mediumOrder(shear: string, seed: number, types: number) {
   const between = (low: number, high: number) => low + Math.floor(random() * (high - low + 1));
   return {
     reference: `MIXED-${seed}-${types}`,
-    shear, grade: "A36", thickness: { value: 3 }, units: "mm" as const,
-    stock: [{ length: 2500, width: 1250 }, { length: 3000, width: 1500 }, { length: 2000, width: 1000, count: 10 }],
+    shear,
+    grade: "A36",
+    thickness: { value: 3 },
+    units: "mm" as const,
+    stock: [
+      { length: 2500, width: 1250 },
+      { length: 3000, width: 1500 },
+      { length: 2000, width: 1000, count: 10 },
+    ],
     blanks: Array.from({ length: types }, (_, i) => ({
-      label: `part ${i + 1}`, length: between(60, 1100), width: between(40, 700), quantity: between(5, 60), canTurn: random() < 0.75,
+      label: `part ${i + 1}`,
+      length: between(60, 1100),
+      width: between(40, 700),
+      quantity: between(5, 60),
+      canTurn: random() < 0.75,
     })),
   };
 }

@@ -37,9 +37,11 @@ export async function dispatchPending(em: EntityManager): Promise<string[]> {
 
 /** Pending deliveries whose next attempt is overdue: their job was lost; queue them again. */
 export async function overdueDeliveries(em: EntityManager): Promise<{ id: string; attempt: number }[]> {
-  const rows = await em.getConnection().execute<{ id: string; attempts: number }[]>(
-    `select id, attempts from deliveries where status = 'pending' and next_attempt_at < ? order by next_attempt_at limit 500`,
-    [new Date(Date.now() - OVERDUE_MS)],
-  );
+  const rows = await em
+    .getConnection()
+    .execute<{ id: string; attempts: number }[]>(
+      `select id, attempts from deliveries where status = 'pending' and next_attempt_at < ? order by next_attempt_at limit 500`,
+      [new Date(Date.now() - OVERDUE_MS)],
+    );
   return rows.map((r) => ({ id: r.id, attempt: r.attempts + 1 }));
 }

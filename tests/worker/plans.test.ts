@@ -11,7 +11,7 @@ import { Event } from "../../entities";
 import { daemon, startWorker, stopDaemon } from "../../scripts/lib/web";
 import { BASE_URL, profile, testAppEnv, WORKER_DAEMON } from "../support/env";
 import { closeTestOrm, createTestShop, TEST_PASSWORD, testOrm, type TestShop } from "../support/fixtures";
-import { largestOrder, mediumOrder } from "../support/orders";
+import { largestOrder, mediumOrder } from "../../scripts/lib/orders";
 
 let shop: TestShop;
 const api = () => request(BASE_URL);
@@ -40,7 +40,11 @@ function readPid(file: string): number | null {
 
 const read = (id: string) => api().get(`/api/v1/plans/${id}`).set(auth());
 
-async function until(id: string, done: (body: { status: string; progress: { patterns: number } | null }) => boolean, seconds: number) {
+async function until(
+  id: string,
+  done: (body: { status: string; progress: { patterns: number } | null }) => boolean,
+  seconds: number,
+) {
   const deadline = Date.now() + seconds * 1000;
   for (;;) {
     const res = await read(id);
@@ -55,7 +59,15 @@ describe("two workers", () => {
   it("compute each plan once", async () => {
     startWorker(second, testAppEnv());
     const ids: string[] = [];
-    for (let i = 0; i < 6; i++) ids.push((await api().post("/api/v1/plans").set(auth()).send(mediumOrder(shop.shearId, 100 + i, 20))).body.id);
+    for (let i = 0; i < 6; i++)
+      ids.push(
+        (
+          await api()
+            .post("/api/v1/plans")
+            .set(auth())
+            .send(mediumOrder(shop.shearId, 100 + i, 20))
+        ).body.id,
+      );
     for (const id of ids) {
       const plan = await until(id, ended, 120);
       expect(plan).toMatchObject({ status: "complete", attempts: 1 });
@@ -80,7 +92,9 @@ describe("two workers", () => {
     const finished = await until(id, ended, 150);
     expect(finished.status).toBe("complete");
     expect((finished as unknown as { attempts: number }).attempts).toBeGreaterThanOrEqual(2); // it really was taken over
-    expect((finished as unknown as { result: unknown }).result).toEqual((calm as unknown as { result: unknown }).result);
+    expect((finished as unknown as { result: unknown }).result).toEqual(
+      (calm as unknown as { result: unknown }).result,
+    );
     startWorker(main, testAppEnv());
     await stopDaemon(second);
   }, 360_000);
@@ -92,11 +106,15 @@ async function consoleCookie(email: string): Promise<string> {
   const cookies = csrf.headers.getSetCookie().map((c) => c.split(";")[0]);
   const { csrfToken } = await csrf.json();
   const res = await fetch(`${BASE_URL}/api/auth/callback/credentials`, {
-    method: "POST", redirect: "manual",
+    method: "POST",
+    redirect: "manual",
     headers: { "Content-Type": "application/x-www-form-urlencoded", Cookie: cookies.join("; ") },
     body: new URLSearchParams({ csrfToken, email, password: TEST_PASSWORD, json: "true" }),
   });
-  const session = res.headers.getSetCookie().map((c) => c.split(";")[0]).find((c) => c.includes("session-token"));
+  const session = res.headers
+    .getSetCookie()
+    .map((c) => c.split(";")[0])
+    .find((c) => c.includes("session-token"));
   if (!session) throw new Error(`sign-in failed: ${res.status}`);
   return [...cookies, session].join("; ");
 }
@@ -114,11 +132,19 @@ describe("a server that never stalls", () => {
       return { status: res.status, ms: performance.now() - t };
     };
     const answers = await Promise.all([
-      ...Array.from({ length: 50 }, (_, i) => new Promise<{ status: number; ms: number }>((resolve) => setTimeout(() => resolve(timed(`${BASE_URL}/api/v1/health`)), i * 40))),
+      ...Array.from(
+        { length: 50 },
+        (_, i) =>
+          new Promise<{ status: number; ms: number }>((resolve) =>
+            setTimeout(() => resolve(timed(`${BASE_URL}/api/v1/health`)), i * 40),
+          ),
+      ),
       timed(`${BASE_URL}/console/plans/${id}`, { Cookie: cookie }),
     ]);
     const stillRunning = (await read(id)).body.status;
-    console.log(`while a plan ran (${stillRunning} at the end): ${answers.length} requests in ${Math.round(performance.now() - started)} ms, worst ${Math.round(Math.max(...answers.map((a) => a.ms)))} ms`);
+    console.log(
+      `while a plan ran (${stillRunning} at the end): ${answers.length} requests in ${Math.round(performance.now() - started)} ms, worst ${Math.round(Math.max(...answers.map((a) => a.ms)))} ms`,
+    );
     expect(answers.map((a) => a.status)).toEqual(answers.map(() => 200));
     await api().post(`/api/v1/plans/${id}/cancel`).set(auth()).send({});
   }, 120_000);

@@ -43,10 +43,20 @@ export class ApiError extends Error {
 
 export const badRequest = (detail: string, ext?: Record<string, unknown>) =>
   new ApiError(400, "bad-request", "The request is malformed", detail, ext);
-export const invalidRequest = (detail: string, errors: { location: string; pointer: string; message: string }[], ext: Record<string, unknown> = {}) =>
-  new ApiError(422, "invalid-request", "The request does not match the schema", detail, { errors, ...ext });
+export const invalidRequest = (
+  detail: string,
+  errors: { location: string; pointer: string; message: string }[],
+  ext: Record<string, unknown> = {},
+) => new ApiError(422, "invalid-request", "The request does not match the schema", detail, { errors, ...ext });
 export const unauthorized = (detail: string) =>
-  new ApiError(401, "unauthorized", "Authentication required", detail, {}, { "WWW-Authenticate": 'Bearer realm="shearwire"' });
+  new ApiError(
+    401,
+    "unauthorized",
+    "Authentication required",
+    detail,
+    {},
+    { "WWW-Authenticate": 'Bearer realm="shearwire"' },
+  );
 export const forbidden = (detail: string, ext?: Record<string, unknown>) =>
   new ApiError(403, "insufficient-scope", "The API key lacks a scope this operation needs", detail, ext);
 export const notFound = (what = "resource") =>
@@ -58,10 +68,27 @@ export const preconditionFailed = (detail: string, ext?: Record<string, unknown>
 export const preconditionRequired = (detail: string) =>
   new ApiError(428, "precondition-required", "If-Match is required", detail);
 export const payloadTooLarge = (limit: number) =>
-  new ApiError(413, "payload-too-large", "The request body is too large", `Request bodies are limited to ${limit} bytes.`);
+  new ApiError(
+    413,
+    "payload-too-large",
+    "The request body is too large",
+    `Request bodies are limited to ${limit} bytes.`,
+  );
 export const unsupportedMediaType = () =>
   new ApiError(415, "unsupported-media-type", "Send JSON", "Request bodies must be application/json.");
 export const tooManyRequests = (retryAfterS: number) =>
-  new ApiError(429, "rate-limited", "Too many requests", `Slow down: try again in ${retryAfterS} s.`, {}, { "Retry-After": String(retryAfterS) });
+  new ApiError(
+    429,
+    "rate-limited",
+    "Too many requests",
+    `Slow down: try again in ${retryAfterS} s.`,
+    {},
+    { "Retry-After": String(retryAfterS) },
+  );
 export const internalError = () =>
-  new ApiError(500, "internal", "Something went wrong on our side", "The error was logged; quote the request id if you contact support.");
+  new ApiError(
+    500,
+    "internal",
+    "Something went wrong on our side",
+    "The error was logged; quote the request id if you contact support.",
+  );

@@ -3,7 +3,7 @@
 import { revalidatePath } from "next/cache";
 import { zfd } from "zod-form-data";
 import { invalidRequest } from "@/lib/errors";
-import { zodErrors } from "@/lib/api/route";
+import { zodErrors } from "@/lib/api/route-input";
 import { memberAction } from "@/lib/auth/action";
 import { GradeInput, GradePatch } from "@/lib/schemas/grade";
 import { ShearInput, ShearPatch } from "@/lib/schemas/shear";

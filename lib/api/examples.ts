@@ -8,7 +8,8 @@ import { DEMO_SHEARS } from "../schemas/shear";
 import type { EventType } from "../schemas/enums";
 import type { EventData } from "../schemas/events";
 import type { PlanSummaryT } from "../schemas/plan";
-import { EXAMPLE_PROGRAM, type CheckT, type ProgramT } from "../schemas/program";
+import { EXAMPLE_PROGRAM, type ProgramT } from "../schemas/program";
+import { type CheckT } from "../schemas/check";
 import type { ShearT } from "../schemas/shear";
 import { checkProgram, findGrade } from "../shear";
 

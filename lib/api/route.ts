@@ -12,23 +12,15 @@ import { requestEm } from "../db/orm";
 import { newId } from "../ids";
 import { authenticate, type Principal } from "../services/keys";
 import { SECURITY_HEADERS } from "../security-headers";
-import { findUnsafeText } from "../text";
-import {
-  ApiError,
-  badRequest,
-  forbidden,
-  internalError,
-  invalidRequest,
-  payloadTooLarge,
-  unsupportedMediaType,
-} from "../errors";
+
+import { ApiError, badRequest, forbidden, internalError, unsupportedMediaType } from "../errors";
 import * as idempotency from "../services/idempotency";
 import type { Infer, Operation } from "./operation";
 import { consume } from "./rate-limit";
 import { logRequest } from "./request-log";
+import { parse, queryObject, readBody } from "./route-input";
 
 export const API_PREFIX = "/api/v1";
-export const MAX_BODY_BYTES = Number(process.env.SHEARWIRE_MAX_BODY_BYTES ?? 1_048_576);
 
 export interface HandlerContext<P, Q, B> {
   em: EntityManager;
@@ -49,82 +41,6 @@ export interface Reply {
 }
 
 type RouteContext = { params: Promise<Record<string, string | string[]>> };
-type Location = "body" | "query" | "path" | "header";
-
-const escapePointer = (s: string | number | symbol) => String(s).replace(/~/g, "~0").replace(/\//g, "~1");
-
-export function zodErrors(location: Location, error: z.ZodError) {
-  return error.issues.map((i) => ({
-    location,
-    pointer: i.path.length ? `/${i.path.map(escapePointer).join("/")}` : "",
-    message: i.message,
-  }));
-}
-
-const plural = (n: number, word: string) => `${n} ${word}${n === 1 ? "" : "s"}`;
-
-/** Refuse text that cannot be stored (NUL, broken Unicode) before any schema or service sees it. */
-function refuseUnsafeText(value: unknown, location: Exclude<Location, "header">) {
-  const bad = findUnsafeText(value);
-  if (bad) {
-    const where = bad.pointer || "(root)";
-    throw invalidRequest(`The ${location} ${where} ${bad.message}.`, [
-      { location, pointer: bad.pointer, message: bad.message },
-    ]);
-  }
-}
-
-function parse<T extends z.ZodType | undefined>(
-  schema: T | undefined,
-  value: unknown,
-  location: "body" | "query" | "path",
-): Infer<T> {
-  if (!schema) return undefined as Infer<T>;
-  refuseUnsafeText(value, location);
-  const result = schema.safeParse(value);
-  if (!result.success) {
-    const errors = zodErrors(location, result.error);
-    throw invalidRequest(
-      `The ${location} has ${plural(errors.length, "problem")}: ${errors.map((e) => `${e.pointer || "(root)"} ${e.message}`).join("; ")}.`,
-      errors,
-    );
-  }
-  return result.data as Infer<T>;
-}
-
-/** Read the body as UTF-8, stopping as soon as it passes the limit (a chunked body is never read whole first). */
-export async function readBody(request: Request, limit = MAX_BODY_BYTES): Promise<string> {
-  const declared = Number(request.headers.get("content-length") ?? 0);
-  if (declared > limit) throw payloadTooLarge(limit);
-  if (!request.body) return "";
-  const reader = request.body.getReader();
-  const chunks: Uint8Array[] = [];
-  let size = 0;
-  for (;;) {
-    const { done, value } = await reader.read();
-    if (done) break;
-    size += value.byteLength;
-    if (size > limit) {
-      await reader.cancel().catch(() => undefined);
-      throw payloadTooLarge(limit);
-    }
-    chunks.push(value);
-  }
-  try {
-    return new TextDecoder("utf-8", { fatal: true }).decode(Buffer.concat(chunks));
-  } catch {
-    throw badRequest("The body is not valid UTF-8.");
-  }
-}
-
-function queryObject(url: URL): Record<string, string | string[]> {
-  const out: Record<string, string | string[]> = {};
-  for (const [k, v] of url.searchParams) {
-    const prev = out[k];
-    out[k] = prev === undefined ? v : Array.isArray(prev) ? [...prev, v] : [prev, v];
-  }
-  return out;
-}
 
 function json(status: number, body: unknown, headers: Record<string, string>, problem = false): Response {
   const h = new Headers(headers);

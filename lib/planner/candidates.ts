@@ -6,7 +6,8 @@
  */
 import { REMNANT_TOLERANCE_MM } from "../shear/flow";
 import { isReusable, present, variantsOf, type Presentation } from "./presentation";
-import { writePattern, type PlacedStrip, type PlanCut, type StripIn } from "./program";
+import { writePattern } from "./program";
+import { type PlacedStrip, type PlanCut, type StripIn } from "./written";
 import {
   STROKES_UTILISATION_SLACK,
   type Blank,

@@ -11,7 +11,7 @@
  */
 import type { LpSolver } from "./lp-solver";
 import type { Presentation } from "./presentation";
-import type { StripIn } from "./program";
+import type { StripIn } from "./written";
 import { priceSheet } from "./pricing";
 
 /** A pattern must beat the target by this much to count (the same margin a column needs to enter the LP). */

@@ -14,7 +14,7 @@ import { PricingMemory, priceWithCaps } from "./capped-pricing";
 import { writeCandidate, type PlanSetup } from "./candidates";
 import type { LpSolver } from "./lp-solver";
 import type { Master, MasterSolution } from "./master";
-import type { StripIn } from "./program";
+import type { StripIn } from "./written";
 
 /** Numerical slack for reduced costs and for rounding a bound up. */
 export const LP_EPSILON = 1e-6;

@@ -9,7 +9,7 @@
  */
 import { choose, toSheetPattern, writeCandidate, type Candidate, type PlanSetup } from "./candidates";
 import { newStripTables, type StripTables } from "./knapsack";
-import type { StripIn } from "./program";
+import type { StripIn } from "./written";
 import { buildStrips, exactPattern } from "./strips";
 import type { SheetPattern } from "./types";
 

@@ -17,7 +17,7 @@
  * Work is counted in table cells. Pure; integer dimensions.
  */
 import type { Presentation, Variant } from "./presentation";
-import type { StripIn } from "./program";
+import type { StripIn } from "./written";
 import { fitsStrip } from "./strips";
 
 export interface Priced {

@@ -5,7 +5,7 @@
  */
 import { fillStrip, fittingFor, type StripTables } from "./knapsack";
 import type { Presentation, Variant } from "./presentation";
-import type { StripIn } from "./program";
+import type { StripIn } from "./written";
 import { bestTwoStagePattern } from "./two-stage";
 import { PLAN_WORK_BUDGET } from "./types";
 

@@ -4,7 +4,7 @@
  * width is the rip's backgauge setting). Integer dimensions on the caller's grid.
  */
 import type { LpSolver } from "./lp-solver";
-import type { Leftover, PlanCut } from "./program";
+import type { Leftover, PlanCut } from "./written";
 
 export interface Blank {
   label: string;

@@ -8,7 +8,7 @@
 import { writeCandidate, type Candidate, type PlanSetup } from "./candidates";
 import type { Residual } from "./column-generation";
 import type { LpSolver } from "./lp-solver";
-import type { StripIn } from "./program";
+import type { StripIn } from "./written";
 
 export interface SheetUse {
   candidate: Candidate;

@@ -5,7 +5,8 @@
  */
 import { Queue, QueueEvents } from "bullmq";
 import { randomUUID } from "node:crypto";
-import type { Order, PlanContext, PlannedOrder } from "../planner/order";
+import type { Order } from "../planner/order";
+import type { PlanContext, PlannedOrder } from "../planner/planned";
 import { bullConnection, within } from "./queue";
 
 export const PLAN_QUEUE = "shearwire-plans";

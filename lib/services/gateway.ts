@@ -7,13 +7,15 @@ import type { EntityManager } from "@mikro-orm/postgresql";
 import type { z } from "zod";
 import { Program, Shear, type ProgramEntity } from "../../entities";
 import type { ProgramStatus } from "../../entities/Program";
-import { conflict, forbidden, invalidRequest, notFound } from "../errors";
+import { conflict, forbidden, notFound } from "../errors";
 import type { CompletionReport, FailureReport, ProgressReport } from "../schemas/gateway";
 import type { ProgramT } from "../schemas/program";
 import { waitForNotification } from "../db/notify";
 import { announceRelease, RELEASED_CHANNEL, recordEvent } from "./events";
 import type { Principal } from "./keys";
-import { getProgram, mustBe, transition, viewProgram } from "./programs";
+import { getProgram, mustBe, transition } from "./programs";
+import { viewProgram } from "./program-view";
+import { programTotals, withinProgram, notBackwards } from "./run-reports";
 
 export const DEFAULT_LEASE_SECONDS = 60;
 /** A waiting gateway is woken by the release itself (NOTIFY on commit); this slow poll is only a safety net. */
@@ -145,58 +147,6 @@ async function held(
     throw conflict("Another gateway holds this program's lease.", { currentStatus: program.status });
   }
   return program;
-}
-
-/** What the program can make, from its stored check: a run's report may not claim more. */
-function programTotals(program: ProgramEntity) {
-  const check = program.check as { yield?: { total?: { blanks?: number; strokes?: number } } | null };
-  const input = program.input as { sheet?: { count?: number }; cuts?: unknown[] };
-  const sheets = input.sheet?.count ?? 1;
-  return {
-    blanks: check.yield?.total?.blanks ?? 0,
-    strokes: check.yield?.total?.strokes ?? 0,
-    groups: (input.cuts?.length ?? 0) * sheets,
-    sheets,
-  };
-}
-
-type Limit = { field: string; value: number | undefined; max: number; what: string };
-
-/** Refuse a report that claims more than the program makes (422 naming the field, the value and the limit). */
-function withinProgram(limits: Limit[]) {
-  const over = limits.filter((l) => l.value !== undefined && l.value > l.max);
-  if (!over.length) return;
-  const errors = over.map((l) => ({
-    location: "body",
-    pointer: `/${l.field}`,
-    message: `is ${l.value}; the program has ${l.max} ${l.what}`,
-  }));
-  throw invalidRequest(
-    `The report claims more than the program makes: ${errors.map((e) => `${e.pointer} ${e.message}`).join("; ")}.`,
-    errors,
-  );
-}
-
-/** Progress only moves forward: a count below the last report is refused too. */
-function notBackwards(
-  program: ProgramEntity,
-  report: { groupsDone: number; strokesDone: number; piecesDone?: number },
-) {
-  const last = program.progress as
-    { groupsDone?: number; strokesDone?: number; piecesDone?: number } | null | undefined;
-  if (!last) return;
-  const errors = (["groupsDone", "strokesDone", "piecesDone"] as const)
-    .filter((k) => report[k] !== undefined && last[k] !== undefined && report[k]! < last[k]!)
-    .map((k) => ({
-      location: "body",
-      pointer: `/${k}`,
-      message: `is ${report[k]}, below the ${last[k]} reported before; progress only moves forward`,
-    }));
-  if (errors.length)
-    throw invalidRequest(
-      `Progress went backwards: ${errors.map((e) => `${e.pointer} ${e.message}`).join("; ")}.`,
-      errors,
-    );
 }
 
 export async function heartbeat(

@@ -43,10 +43,10 @@ interface Parsed {
   errors: RowError[];
 }
 
-const num = (v: string | undefined) => (v === undefined || v.trim() === "" ? undefined : Number(v));
-const bool = (v: string | undefined) =>
+export const num = (v: string | undefined) => (v === undefined || v.trim() === "" ? undefined : Number(v));
+export const bool = (v: string | undefined) =>
   v === undefined || v.trim() === "" ? undefined : ["1", "true", "yes", "y"].includes(v.trim().toLowerCase());
-const text = (v: string | undefined) => (v === undefined || v.trim() === "" ? undefined : v.trim());
+export const text = (v: string | undefined) => (v === undefined || v.trim() === "" ? undefined : v.trim());
 
 export function parseCsv(content: string): Parsed {
   let records: Record<string, string>[];
@@ -262,57 +262,3 @@ export async function importPrograms(
 }
 
 class ImportRefused extends Error {}
-
-/** Blanks for the planner from a CSV: one row per blank (order line). */
-export const BLANK_COLUMNS = ["label", "length", "width", "quantity", "can_turn"] as const;
-
-export function parseBlanksCsv(content: string): { blanks: Record<string, unknown>[]; errors: RowError[] } {
-  let records: Record<string, string>[];
-  try {
-    records = parse(content, {
-      columns: (h: string[]) => h.map((c) => c.trim().toLowerCase()),
-      skip_empty_lines: true,
-      trim: true,
-      bom: true,
-    });
-  } catch (err) {
-    return {
-      blanks: [],
-      errors: [{ row: 0, field: "file", message: `not readable as CSV: ${(err as Error).message}` }],
-    };
-  }
-  if (!records.length)
-    return {
-      blanks: [],
-      errors: [{ row: 1, field: "file", message: "no blanks: one row per blank after the header line" }],
-    };
-  if (!("label" in records[0] && "length" in records[0] && "width" in records[0] && "quantity" in records[0])) {
-    return {
-      blanks: [],
-      errors: [
-        {
-          row: 1,
-          field: "header",
-          message: `the first line must name the columns: ${BLANK_COLUMNS.join(", ")} (can_turn may be left out)`,
-        },
-      ],
-    };
-  }
-  const errors: RowError[] = [];
-  const blanks = records.map((r, i) => {
-    for (const col of ["length", "width", "quantity"]) {
-      if (!Number.isFinite(Number(r[col])) || text(r[col]) === undefined)
-        errors.push({ row: i + 2, field: col, message: `"${r[col] ?? ""}" is not a number` });
-    }
-    return JSON.parse(
-      JSON.stringify({
-        label: text(r.label),
-        length: num(r.length),
-        width: num(r.width),
-        quantity: num(r.quantity),
-        canTurn: bool(r.can_turn),
-      }),
-    ) as Record<string, unknown>;
-  });
-  return { blanks, errors };
-}

@@ -3,63 +3,22 @@
  * yield and estimate), read, list, update drafts, dry-run check, release and cancel.
  * Every change and its event are written in one transaction.
  */
-import {
-  OptimisticLockError,
-  UniqueConstraintViolationException,
-  type EntityManager,
-  type FilterQuery,
-} from "@mikro-orm/postgresql";
+import { OptimisticLockError, UniqueConstraintViolationException, type EntityManager } from "@mikro-orm/postgresql";
 import { Program, Shear, Shop, type ProgramEntity, type ShearEntity } from "../../entities";
 import type { ProgramStatus } from "../../entities/Program";
 import { ApiError, conflict, invalidRequest, notFound, preconditionFailed, preconditionRequired } from "../errors";
-import { containing, findPage } from "../db/paging";
-import type { CheckT, ProgramInputT, ProgramPatchT, ProgramT } from "../schemas/program";
+
+import type { ProgramInputT, ProgramPatchT, ProgramT } from "../schemas/program";
+import type { CheckT } from "../schemas/check";
 import { checkProgram, type CheckResult } from "../shear";
 import { gradeByCode, gradeProfile, shearProfile } from "./catalog";
 import { announceRelease, recordEvent, type EventType } from "./events";
+import { viewProgram } from "./program-view";
 
 export const DEFAULT_PRIORITY = 5;
 const CANCELLABLE: ProgramStatus[] = ["draft", "released", "claimed", "running"];
 
 export const etagOf = (revision: number) => `"${revision}"`;
-
-export function viewProgram(p: ProgramEntity): ProgramT {
-  const input = p.input as ProgramInputT;
-  return {
-    id: p.id,
-    status: p.status,
-    revision: p.revision,
-    reference: p.reference,
-    title: p.title ?? null,
-    shear: p.shear.id,
-    grade: p.gradeCode,
-    thickness: input.thickness,
-    units: input.units,
-    sheet: input.sheet,
-    cuts: input.cuts,
-    ...(input.setup ? { setup: input.setup } : {}),
-    priority: p.priority,
-    dueAt: p.dueAt?.toISOString() ?? null,
-    metadata: p.metadata ?? {},
-    validation: p.validation as ProgramT["validation"],
-    check: p.check as CheckT,
-    acknowledged: p.acknowledged ?? [],
-    releasedAt: p.releasedAt?.toISOString() ?? null,
-    cancelledAt: p.cancelledAt?.toISOString() ?? null,
-    run: {
-      claimedBy: p.claimedBy ?? null,
-      claimedAt: p.claimedAt?.toISOString() ?? null,
-      leaseExpiresAt: p.leaseExpiresAt?.toISOString() ?? null,
-      leaseExpiries: p.leaseExpiries ?? 0,
-      startedAt: p.startedAt?.toISOString() ?? null,
-      finishedAt: p.finishedAt?.toISOString() ?? null,
-      progress: p.progress ?? null,
-      outcome: p.outcome ?? null,
-    },
-    createdAt: p.createdAt.toISOString(),
-    updatedAt: p.updatedAt.toISOString(),
-  };
-}
 
 /**
  * The shear a program or plan names (by id, or by name as the catalog has it, any case), if
@@ -167,35 +126,6 @@ export async function getProgram(em: EntityManager, shopId: string, id: string):
   const program = await em.findOne(Program, { id, shop: shopId });
   if (!program) throw notFound("program");
   return program;
-}
-
-export interface ProgramFilter {
-  limit: number;
-  cursor?: string;
-  status?: ProgramStatus;
-  shear?: string;
-  reference?: string;
-  /** part of the reference or title, any case */
-  search?: string;
-  updatedSince?: string;
-  /** the earlier spelling of updatedSince */
-  updated_since?: string;
-}
-
-export async function listPrograms(em: EntityManager, shopId: string, f: ProgramFilter) {
-  const where: FilterQuery<ProgramEntity> = {
-    shop: shopId,
-    ...(f.status ? { status: f.status } : {}),
-    ...(f.shear ? { shear: f.shear } : {}),
-    ...(f.reference ? { reference: f.reference } : {}),
-    ...(f.search
-      ? { $or: [{ reference: { $ilike: containing(f.search) } }, { title: { $ilike: containing(f.search) } }] }
-      : {}),
-    ...((f.updatedSince ?? f.updated_since)
-      ? { updatedAt: { $gte: new Date((f.updatedSince ?? f.updated_since)!) } }
-      : {}),
-  };
-  return findPage(em, Program, where, f, viewProgram);
 }
 
 /** Check If-Match against the program's revision: 428 when missing, 412 when stale. */

@@ -6,7 +6,8 @@
 import type { CheckContext, CutProgram, Finding, GradeProfile, LengthUnit, ShearProfile } from "./types";
 import type { CheckResult, ForceReport, SetupReport, ThicknessReport } from "./reports";
 import type { ProgramRead, ThicknessRead } from "./read";
-import { isObject, isPositive, readProgram } from "./read";
+import { readProgram } from "./read";
+import { isObject, isPositive } from "./values";
 import { checkUnitsSuspect, resolveGrade, resolveTensile, resolveThickness, usableShear } from "./context";
 import { validationOf, checkThickness, checkForce, checkHardness, checkGivenSetup } from "./findings";
 import { checkGroups } from "./groups";

@@ -5,7 +5,7 @@
  */
 import type { Finding, GradeProfile, ShearProfile } from "./types";
 import type { ProgramRead, ThicknessRead } from "./read";
-import { describe, isNonNegative, isObject, isPositive, positiveOrNull } from "./read";
+import { describe, isNonNegative, isObject, isPositive, positiveOrNull } from "./values";
 import { finding } from "./findings";
 import { DEFAULT_SHEAR_TENSILE_RATIO, gradeTensile, sameGradeCode, type GradeTensile } from "./grades";
 import { GAUGE_FAMILY_NAMES, GAUGE_RANGES, gaugeThicknessMm } from "./gauges";

@@ -9,6 +9,7 @@ import type { FlowCut } from "./flow";
 import { finding } from "./findings";
 import { NOTHING_GIVEN, type GivenSetup } from "./setup";
 import { inToMm, isLengthUnit, lengthToMm } from "./units";
+import { describe, isAbsent, isNonNegative, isObject, isPositive, numberOrNull, type PlainObject } from "./values";
 
 export type ThicknessRead =
   { kind: "value"; mm: number; raw: number; pointer: string } | { kind: "gauge"; gauge: number; pointer: string };
@@ -32,26 +33,6 @@ export interface ProgramRead {
   skip: boolean[];
   given: GivenSetup;
   gapPointer: string;
-}
-
-export type PlainObject = Record<string, unknown>;
-export const isObject = (value: unknown): value is PlainObject =>
-  typeof value === "object" && value !== null && !Array.isArray(value);
-export const isPositive = (value: unknown): value is number =>
-  typeof value === "number" && Number.isFinite(value) && value > 0;
-export const isNonNegative = (value: unknown): value is number =>
-  typeof value === "number" && Number.isFinite(value) && value >= 0;
-export const isAbsent = (value: unknown): boolean => value === undefined || value === null;
-export const positiveOrNull = (value: unknown): number | null => (isPositive(value) ? value : null);
-const numberOrNull = (value: unknown): number | null =>
-  typeof value === "number" && Number.isFinite(value) ? value : null;
-
-/** A short description of a value for messages. */
-export function describe(value: unknown): string {
-  if (typeof value === "string") return `"${value.slice(0, 40)}"`;
-  if (value === null) return "null";
-  if (typeof value === "number") return String(value);
-  return typeof value;
 }
 
 function invalid(out: Finding[], pointer: string, label: string, rule: string, actual: unknown): void {

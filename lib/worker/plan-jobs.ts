@@ -11,11 +11,13 @@ import { Worker as Thread } from "node:worker_threads";
 import type { EntityManager } from "@mikro-orm/postgresql";
 import { Plan, Shear } from "../../entities";
 import { waitForNotification } from "../db/notify";
-import type { Order, PlanContext, PlannedOrder } from "../planner/order";
+import type { Order } from "../planner/order";
+import type { PlanContext, PlannedOrder } from "../planner/planned";
 import type { PlanInputT } from "../schemas/plan";
 import { gradeByCode, gradeProfile, shearProfile } from "../services/catalog";
 import { recordEvent } from "../services/events";
-import { PLAN_CANCEL_CHANNEL, PLAN_DONE_CHANNEL, planResultOf, viewPlanSummary } from "../services/plans";
+import { PLAN_CANCEL_CHANNEL, PLAN_DONE_CHANNEL } from "../services/plans";
+import { planResultOf, viewPlanSummary } from "../services/plan-views";
 import { enqueuePlan } from "../queue/plan-queue";
 
 export type PlanOutcome =

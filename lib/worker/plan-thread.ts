@@ -5,7 +5,8 @@
  * time limit) by terminating it.
  */
 import { parentPort, workerData } from "node:worker_threads";
-import { planOrder, type Order, type PlanContext } from "../planner/order";
+import { planOrder, type Order } from "../planner/order";
+import { type PlanContext } from "../planner/planned";
 
 export type ThreadMessage =
   | { kind: "progress"; progress: { patterns: number; piecesPlaced: number; piecesWanted: number } }

@@ -11,7 +11,7 @@ import {
   pinnedLookup,
   resolveReceiver,
 } from "../../lib/network";
-import { post } from "../../lib/worker/deliver";
+import { post } from "../../lib/worker/post";
 
 const hosted = parseAllowList("");
 const loopback = parseAllowList(LOOPBACK_ONLY);

@@ -1,6 +1,7 @@
 import { afterAll, describe, expect, it } from "vitest";
 import { Event, Program } from "../../entities";
-import { createProgram, viewProgram } from "../../lib/services/programs";
+import { createProgram } from "../../lib/services/programs";
+import { viewProgram } from "../../lib/services/program-view";
 import { recordEvent } from "../../lib/services/events";
 import { closeTestOrm, createTestShop, exampleProgram, testOrm } from "../support/fixtures";
 

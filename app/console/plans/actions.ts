@@ -7,7 +7,8 @@ import { zfd } from "zod-form-data";
 import { memberAction } from "@/lib/auth/action";
 import { PlanInput } from "@/lib/schemas/plan";
 import { z } from "@/lib/schemas/zod";
-import { parseBlanksCsv, type RowError } from "@/lib/services/import";
+import { type RowError } from "@/lib/services/import";
+import { parseBlanksCsv } from "@/lib/services/import-blanks";
 import { cancelPlan, createPlan, writePrograms } from "@/lib/services/plans";
 
 const MAX_BYTES = 1_048_576;

@@ -3,7 +3,7 @@ import { defineOperation } from "../operation";
 import { GaugeQuery, GaugeTable, SetupRequest } from "../../schemas/catalog";
 import { idParam, listOf, Pagination } from "../../schemas/common";
 import { Grade, GradeInput, GradePatch } from "../../schemas/grade";
-import { Check } from "../../schemas/program";
+import { Check } from "../../schemas/check";
 import { Shear, ShearInput, ShearPatch } from "../../schemas/shear";
 import { z } from "../../schemas/zod";
 

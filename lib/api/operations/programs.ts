@@ -2,13 +2,13 @@ import { defineOperation } from "../operation";
 import { idParam, listOf, Pagination } from "../../schemas/common";
 import {
   CancelInput,
-  Check,
   Program,
   ProgramInput,
   ProgramListQuery,
   ProgramPatch,
   ReleaseInput,
 } from "../../schemas/program";
+import { Check } from "../../schemas/check";
 
 const tags = ["Programs"];
 const params = idParam("prg", "program");

@@ -1,9 +1,10 @@
 import { createProgram, listPrograms } from "@/lib/api/operations/programs";
 import { route } from "@/lib/api/route";
+import * as programList from "@/lib/services/program-list";
 import * as programs from "@/lib/services/programs";
 
 export const GET = route(listPrograms, async ({ em, principal, query }) => ({
-  body: await programs.listPrograms(em, principal.shopId, query),
+  body: await programList.listPrograms(em, principal.shopId, query),
 }));
 
 export const POST = route(createProgram, async ({ em, principal, body }) => {

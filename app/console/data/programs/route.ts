@@ -2,7 +2,7 @@ import { NextResponse } from "next/server";
 import { PROGRAM_STATUSES, type ProgramStatus } from "@/lib/schemas/enums";
 import { currentMember } from "@/lib/auth/session";
 import { requestEm } from "@/lib/db/orm";
-import { listPrograms } from "@/lib/services/programs";
+import { listPrograms } from "@/lib/services/program-list";
 import { textProblem } from "@/lib/text";
 
 export const dynamic = "force-dynamic";

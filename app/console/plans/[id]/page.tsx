@@ -11,7 +11,7 @@ import { can } from "@/lib/auth/roles";
 import { currentMember } from "@/lib/auth/session";
 import { requestEm } from "@/lib/db/orm";
 import { PLAN_OBJECTIVE_LABELS } from "@/lib/schemas/enums";
-import type { PlanResultT } from "@/lib/schemas/plan";
+import type { PlanResultT } from "@/lib/schemas/plan-result";
 import { Program } from "@/entities";
 import { getPlan } from "@/lib/services/plans";
 import { programLayout } from "@/lib/shear";

@@ -4,7 +4,7 @@ import { can } from "@/lib/auth/roles";
 import { currentMember } from "@/lib/auth/session";
 import { requestEm } from "@/lib/db/orm";
 import { listGrades, listShears } from "@/lib/services/catalog";
-import { BLANK_COLUMNS } from "@/lib/services/import";
+import { BLANK_COLUMNS } from "@/lib/services/import-blanks";
 
 export const metadata = { title: "New plan" };
 

@@ -10,7 +10,8 @@ import { can } from "@/lib/auth/roles";
 import { currentMember } from "@/lib/auth/session";
 import { requestEm } from "@/lib/db/orm";
 import { Shear } from "@/entities";
-import { getProgram, viewProgram } from "@/lib/services/programs";
+import { getProgram } from "@/lib/services/programs";
+import { viewProgram } from "@/lib/services/program-view";
 import { listEvents } from "@/lib/services/webhooks";
 import { programLayout } from "@/lib/shear";
 

@@ -1,10 +1,11 @@
 import { getProgram, updateProgram } from "@/lib/api/operations/programs";
 import { route } from "@/lib/api/route";
+import { viewProgram } from "@/lib/services/program-view";
 import * as programs from "@/lib/services/programs";
 
 export const GET = route(getProgram, async ({ em, principal, params }) => {
   const program = await programs.getProgram(em, principal.shopId, params.id);
-  return { body: programs.viewProgram(program), headers: { ETag: programs.etagOf(program.revision) } };
+  return { body: viewProgram(program), headers: { ETag: programs.etagOf(program.revision) } };
 });
 
 export const PATCH = route(updateProgram, async ({ em, principal, params, body, ifMatch }) => {

@@ -1,7 +1,8 @@
 import { NextResponse } from "next/server";
 import { currentMember } from "@/lib/auth/session";
 import { requestEm } from "@/lib/db/orm";
-import { findPlan, viewPlanSummary } from "@/lib/services/plans";
+import { findPlan } from "@/lib/services/plans";
+import { viewPlanSummary } from "@/lib/services/plan-views";
 
 export const dynamic = "force-dynamic";
 

@@ -1,0 +1,42 @@
+/** How a stored program reads in the API, in events and in the console. */
+import { type ProgramEntity } from "../../entities";
+import type { ProgramInputT, ProgramT } from "../schemas/program";
+import type { CheckT } from "../schemas/check";
+
+export function viewProgram(p: ProgramEntity): ProgramT {
+  const input = p.input as ProgramInputT;
+  return {
+    id: p.id,
+    status: p.status,
+    revision: p.revision,
+    reference: p.reference,
+    title: p.title ?? null,
+    shear: p.shear.id,
+    grade: p.gradeCode,
+    thickness: input.thickness,
+    units: input.units,
+    sheet: input.sheet,
+    cuts: input.cuts,
+    ...(input.setup ? { setup: input.setup } : {}),
+    priority: p.priority,
+    dueAt: p.dueAt?.toISOString() ?? null,
+    metadata: p.metadata ?? {},
+    validation: p.validation as ProgramT["validation"],
+    check: p.check as CheckT,
+    acknowledged: p.acknowledged ?? [],
+    releasedAt: p.releasedAt?.toISOString() ?? null,
+    cancelledAt: p.cancelledAt?.toISOString() ?? null,
+    run: {
+      claimedBy: p.claimedBy ?? null,
+      claimedAt: p.claimedAt?.toISOString() ?? null,
+      leaseExpiresAt: p.leaseExpiresAt?.toISOString() ?? null,
+      leaseExpiries: p.leaseExpiries ?? 0,
+      startedAt: p.startedAt?.toISOString() ?? null,
+      finishedAt: p.finishedAt?.toISOString() ?? null,
+      progress: p.progress ?? null,
+      outcome: p.outcome ?? null,
+    },
+    createdAt: p.createdAt.toISOString(),
+    updatedAt: p.updatedAt.toISOString(),
+  };
+}

@@ -13,7 +13,7 @@ import type { ProgramT } from "../schemas/program";
 import { waitForNotification } from "../db/notify";
 import { announceRelease, RELEASED_CHANNEL, recordEvent } from "./events";
 import type { Principal } from "./keys";
-import { getProgram, mustBe, transition } from "./programs";
+import { findProgram, mustBe, transition } from "./programs";
 import { viewProgram } from "./program-view";
 import { programTotals, withinProgram, notBackwards } from "./run-reports";
 
@@ -140,7 +140,7 @@ async function held(
   allowed: ProgramStatus[],
   action: string,
 ): Promise<ProgramEntity> {
-  const program = await getProgram(em, principal.shopId, id);
+  const program = await findProgram(em, principal.shopId, id);
   boundTo(principal, program.shear.id);
   mustBe(program, allowed, action);
   if (program.claimedBy !== principal.keyId) {

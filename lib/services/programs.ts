@@ -122,7 +122,7 @@ export async function createProgram(em: EntityManager, shopId: string, input: Pr
   }
 }
 
-export async function getProgram(em: EntityManager, shopId: string, id: string): Promise<ProgramEntity> {
+export async function findProgram(em: EntityManager, shopId: string, id: string): Promise<ProgramEntity> {
   const program = await em.findOne(Program, { id, shop: shopId });
   if (!program) throw notFound("program");
   return program;
@@ -155,7 +155,7 @@ export async function updateProgram(
   patch: ProgramPatchT,
   ifMatch: string | null,
 ): Promise<ProgramT> {
-  const program = await getProgram(em, shopId, id);
+  const program = await findProgram(em, shopId, id);
   checkIfMatch(program, ifMatch);
   mustBe(program, ["draft"], "edited");
   const input = { ...(program.input as ProgramInputT), ...patch } as ProgramInputT;
@@ -192,7 +192,7 @@ export async function releaseProgram(
   id: string,
   acknowledge: string[] = [],
 ): Promise<ProgramT> {
-  const program = await getProgram(em, shopId, id);
+  const program = await findProgram(em, shopId, id);
   mustBe(program, ["draft"], "released");
   // Check again: the shear or grade may have changed since the program was stored.
   const { check } = await runCheck(em, shopId, program.input as ProgramInputT);
@@ -232,7 +232,7 @@ export async function releaseProgram(
 }
 
 export async function cancelProgram(em: EntityManager, shopId: string, id: string, reason?: string): Promise<ProgramT> {
-  const program = await getProgram(em, shopId, id);
+  const program = await findProgram(em, shopId, id);
   mustBe(program, CANCELLABLE, "cancelled");
   return transition(
     em,

@@ -151,7 +151,7 @@ export async function sendTestEvent(em: EntityManager, shopId: string, id: strin
     return d;
   });
   await queueNow(delivery);
-  return viewDelivery(await loadDelivery(em.fork(), shopId, delivery.id));
+  return viewDelivery(await findDelivery(em.fork(), shopId, delivery.id));
 }
 
 export async function resend(em: EntityManager, shopId: string, eventId: string, endpointId: string) {
@@ -168,7 +168,7 @@ export async function resend(em: EntityManager, shopId: string, eventId: string,
   });
   await em.flush();
   await queueNow(d);
-  return viewDelivery(await loadDelivery(em.fork(), shopId, d.id));
+  return viewDelivery(await findDelivery(em.fork(), shopId, d.id));
 }
 
 /** Send again every event whose delivery to this endpoint failed (once per event, newest 500). */
@@ -222,7 +222,7 @@ export async function getEvent(em: EntityManager, shopId: string, id: string) {
   return viewEvent(e);
 }
 
-async function loadDelivery(em: EntityManager, shopId: string, id: string) {
+async function findDelivery(em: EntityManager, shopId: string, id: string) {
   const d = await em.findOne(Delivery, { id, shop: shopId }, { populate: ["event"] });
   if (!d) throw notFound("delivery");
   return d;

@@ -10,7 +10,7 @@ import { can } from "@/lib/auth/roles";
 import { currentMember } from "@/lib/auth/session";
 import { requestEm } from "@/lib/db/orm";
 import { Shear } from "@/entities";
-import { getProgram } from "@/lib/services/programs";
+import { findProgram } from "@/lib/services/programs";
 import { viewProgram } from "@/lib/services/program-view";
 import { listEvents } from "@/lib/services/webhooks";
 import { programLayout } from "@/lib/shear";
@@ -31,7 +31,7 @@ export default async function ProgramPage({ params }: { params: Promise<{ id: st
   const { id } = await params;
   const member = await currentMember();
   const em = await requestEm();
-  const entity = await getProgram(em, member.shopId, id).catch((err) => {
+  const entity = await findProgram(em, member.shopId, id).catch((err) => {
     if (err instanceof ApiError && err.status === 404) notFound();
     throw err;
   });

@@ -4,7 +4,7 @@ import { viewProgram } from "@/lib/services/program-view";
 import * as programs from "@/lib/services/programs";
 
 export const GET = route(getProgram, async ({ em, principal, params }) => {
-  const program = await programs.getProgram(em, principal.shopId, params.id);
+  const program = await programs.findProgram(em, principal.shopId, params.id);
   return { body: viewProgram(program), headers: { ETag: programs.etagOf(program.revision) } };
 });
 

@@ -1,4 +1,6 @@
 import { defineEntity, p } from "@mikro-orm/core";
+import type { PlanInputT } from "../lib/schemas/plan";
+import type { PlanResultT } from "../lib/schemas/plan-result";
 import { newId } from "../lib/ids";
 import { Shear } from "./Shear";
 import { Shop } from "./Shop";
@@ -25,9 +27,10 @@ export const Plan = defineEntity({
     title: p.text().nullable(),
     /** queued | running | complete | failed | cancelled */
     status: p.string(),
-    input: p.json<Record<string, unknown>>(),
+    input: p.json<PlanInputT>(),
     /** the planner's answer, once complete */
-    result: p.json<Record<string, unknown>>().nullable(),
+    // Plans stored before the planner stated bounds lack them: read through viewPlan (plan-views.ts).
+    result: p.json<PlanResultT>().nullable(),
     progress: p.json<{ patterns: number; piecesPlaced: number; piecesWanted: number }>().nullable(),
     failure: p.json<{ reason: string; message: string }>().nullable(),
     attempts: p.integer().default(0),

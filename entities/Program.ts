@@ -1,4 +1,6 @@
 import { defineEntity, p } from "@mikro-orm/core";
+import type { CheckT } from "../lib/schemas/check";
+import type { ProgramInputT } from "../lib/schemas/program";
 import { newId } from "../lib/ids";
 import { Shear } from "./Shear";
 import { Shop } from "./Shop";
@@ -34,14 +36,14 @@ export const Program = defineEntity({
     status: p.enum([...PROGRAM_STATUSES]).default("draft"),
     revision: p.integer().version(),
     /** the program as submitted (units, sheet, cuts, setup overrides …) */
-    input: p.json<Record<string, unknown>>(),
+    input: p.json<ProgramInputT>(),
     gradeCode: p.text(),
     units: p.string(),
     priority: p.integer().default(0),
     dueAt: p.datetime().nullable(),
     /** pass | warn | fail, and the full check: findings, setup, force, yield, estimate */
     validation: p.string(),
-    check: p.json<Record<string, unknown>>(),
+    check: p.json<CheckT>(),
     /** warning codes the caller acknowledged when releasing */
     acknowledged: p.json<string[]>().default("[]"),
     metadata: p.json<Record<string, string>>().default("{}"),

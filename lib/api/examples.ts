@@ -71,7 +71,7 @@ export function exampleProgram(): ProgramT {
       },
       grade: findGrade("A36"),
     },
-  ) as unknown as CheckT;
+  ) satisfies CheckT;
   return {
     id: EXAMPLE_IDS.program,
     status: "draft",

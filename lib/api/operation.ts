@@ -20,6 +20,7 @@ export interface Operation<
   P extends ZObject | undefined = ZObject | undefined,
   Q extends ZObject | undefined = ZObject | undefined,
   B extends z.ZodType | undefined = z.ZodType | undefined,
+  R extends Record<number, ResponseSpec> = Record<number, ResponseSpec>,
 > {
   operationId: string;
   method: Method;
@@ -34,7 +35,7 @@ export interface Operation<
   query?: Q;
   body?: B;
   /** the success responses; error responses are added from the operation's traits */
-  responses: Record<number, ResponseSpec>;
+  responses: R;
   /** needs If-Match (412 on a stale revision, 428 when missing) */
   ifMatch?: boolean;
   /** extra error statuses this operation can answer, besides the common ones */
@@ -49,6 +50,18 @@ export function defineOperation<
   P extends ZObject | undefined = undefined,
   Q extends ZObject | undefined = undefined,
   B extends z.ZodType | undefined = undefined,
->(op: Operation<P, Q, B>): Operation<P, Q, B> {
+  const R extends Record<number, ResponseSpec> = Record<number, ResponseSpec>,
+>(op: Operation<P, Q, B, R>): Operation<P, Q, B, R> {
   return op;
 }
+
+/** The body a response answers with: its schema's type, or nothing when it declares none. */
+type BodyOf<S> = S extends { schema: infer Z extends z.ZodType } ? z.infer<Z> : undefined;
+
+/**
+ * What a handler may return for an operation: one of its declared success statuses (200 when
+ * left out) with that response's body type, so a handler returning the wrong shape fails to compile.
+ */
+export type ReplyOf<R extends Record<number, ResponseSpec>> = {
+  [K in Extract<keyof R, number>]: { status?: K; body?: BodyOf<R[K]>; headers?: Record<string, string> };
+}[Extract<keyof R, number>];

@@ -15,7 +15,7 @@ import { SECURITY_HEADERS } from "../security-headers";
 
 import { ApiError, badRequest, forbidden, internalError, unsupportedMediaType } from "../errors";
 import * as idempotency from "../services/idempotency";
-import type { Infer, Operation } from "./operation";
+import type { Infer, Operation, ReplyOf, ResponseSpec } from "./operation";
 import { consume } from "./rate-limit";
 import { logRequest } from "./request-log";
 import { parse, queryObject, readBody } from "./route-input";
@@ -201,7 +201,8 @@ export function route<
   P extends z.ZodObject<z.ZodRawShape> | undefined,
   Q extends z.ZodObject<z.ZodRawShape> | undefined,
   B extends z.ZodType | undefined,
->(op: Operation<P, Q, B>, handler: (ctx: HandlerContext<Infer<P>, Infer<Q>, Infer<B>>) => Promise<Reply>) {
+  R extends Record<number, ResponseSpec>,
+>(op: Operation<P, Q, B, R>, handler: (ctx: HandlerContext<Infer<P>, Infer<Q>, Infer<B>>) => Promise<ReplyOf<R>>) {
   const routeTemplate = `${API_PREFIX}${op.path}`;
   const method = op.method.toUpperCase();
 

@@ -77,7 +77,7 @@ function normalised(result: Record<string, unknown> | null | undefined): PlanRes
 }
 
 function common(p: PlanEntity) {
-  const input = p.input as unknown as PlanInputT;
+  const input = p.input;
   return {
     id: p.id,
     status: p.status as PlanT["status"],

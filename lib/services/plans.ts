@@ -71,7 +71,7 @@ export async function createPlan(
     reference: input.reference ?? null,
     title: input.title ?? null,
     status: "queued",
-    input: input as unknown as Record<string, unknown>,
+    input,
     result: null,
     progress: null,
     failure: null,

@@ -79,7 +79,7 @@ async function duplicateReference(em: EntityManager, shopId: string, reference: 
 }
 
 function applyInput(program: ProgramEntity, input: ProgramInputT, check: CheckResult) {
-  program.input = input as unknown as Record<string, unknown>;
+  program.input = input;
   program.reference = input.reference;
   program.title = input.title ?? null;
   program.gradeCode = input.grade;
@@ -88,7 +88,7 @@ function applyInput(program: ProgramEntity, input: ProgramInputT, check: CheckRe
   program.dueAt = input.dueAt ? new Date(input.dueAt) : null;
   program.metadata = input.metadata ?? {};
   program.validation = check.validation;
-  program.check = check as unknown as Record<string, unknown>;
+  program.check = check;
 }
 
 export async function createProgram(em: EntityManager, shopId: string, input: ProgramInputT): Promise<ProgramT> {
@@ -105,9 +105,9 @@ export async function createProgram(em: EntityManager, shopId: string, input: Pr
         reference: input.reference,
         gradeCode: input.grade,
         units: input.units,
-        input: {},
+        input,
         validation: check.validation,
-        check: {},
+        check,
       });
       applyInput(program, input, check);
       await tx.flush();
@@ -225,7 +225,7 @@ export async function releaseProgram(
   }
   return transition(em, shopId, program, "released", "program.released", (p) => {
     p.validation = check.validation;
-    p.check = check as unknown as Record<string, unknown>;
+    p.check = check;
     p.acknowledged = warnings;
     p.releasedAt = new Date();
   });

@@ -91,9 +91,9 @@ export function planInThread(
 /** The order and the catalog as the plan's shear and grade are now. */
 async function contextOf(
   em: EntityManager,
-  plan: { shop: { id: string }; shear: { id: string }; input: Record<string, unknown> },
+  plan: { shop: { id: string }; shear: { id: string }; input: PlanInputT },
 ): Promise<{ order: Order; context: PlanContext }> {
-  const order = plan.input as unknown as PlanInputT;
+  const order = plan.input;
   const shear = await em.findOneOrFail(Shear, { id: plan.shear.id });
   const grade = await gradeByCode(em, plan.shop.id, order.grade);
   return { order, context: { shear: shearProfile(shear), grade: grade ? gradeProfile(grade) : null } };
@@ -165,9 +165,9 @@ export async function finishPlan(
     if (!plan) return; // cancelled (or finished by another worker) meanwhile
     plan.finishedAt = new Date();
     if (outcome.kind === "complete") {
-      const result = planResultOf(plan.input as unknown as PlanInputT, outcome.result);
+      const result = planResultOf(plan.input, outcome.result);
       plan.status = "complete";
-      plan.result = result as unknown as Record<string, unknown>;
+      plan.result = result;
       plan.progress = {
         patterns: result.summary.patterns,
         piecesPlaced: result.summary.blanksPlanned - result.summary.extra,

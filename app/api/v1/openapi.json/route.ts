@@ -2,4 +2,5 @@ import { openApiDocument } from "@/lib/api/document";
 import { getOpenApi } from "@/lib/api/operations/meta";
 import { route } from "@/lib/api/route";
 
-export const GET = route(getOpenApi, async () => ({ body: openApiDocument() }));
+// The document's own type has no index signature; it is the JSON object the operation declares.
+export const GET = route(getOpenApi, async () => ({ body: openApiDocument() as unknown as Record<string, unknown> }));

@@ -5,6 +5,10 @@ import { Grade, Membership, Plan, Shear, User } from "../../entities";
 import { ormConfig } from "../../lib/db/config";
 import { migrateUp } from "../../lib/db/migrate";
 import { isId } from "../../lib/ids";
+import { EXAMPLE_PLAN, PlanInput } from "../../lib/schemas/plan";
+import { EXAMPLE_PROGRAM, ProgramInput } from "../../lib/schemas/program";
+import { createPlan } from "../../lib/services/plans";
+import { validateProgram } from "../../lib/services/programs";
 import { DEMO_PASSWORD, seedDemo } from "../../scripts/lib/seed";
 import { recreateDatabase } from "../support/db";
 
@@ -48,6 +52,17 @@ describe("demo seed", () => {
     expect(result.coverage).toBe("complete");
     expect(result.summary.short).toBe(0);
     for (const s of result.stock) if (s.count !== null) expect(s.used).toBeLessThanOrEqual(s.count);
+  });
+
+  it("runs the reference's examples as written: the program and the plan name the demo shop's first shear", async () => {
+    const demo = await seedDemo(orm.em.fork());
+    const check = await validateProgram(orm.em.fork(), demo.shop.id, ProgramInput.parse(EXAMPLE_PROGRAM));
+    expect(check.validation).not.toBe("fail");
+    expect(check.yield?.total).toMatchObject({ blanks: 56, strokes: 62 }); // the worked example the quickstart describes
+    const em = orm.em.fork();
+    const plan = await createPlan(em, demo.shop.id, PlanInput.parse(EXAMPLE_PLAN), { queue: false });
+    expect(plan.shear).toBe(demo.shears.find((s) => s.name === "Bay 1 sheet shear")!.id);
+    await em.nativeDelete(Plan, { id: plan.id });
   });
 
   it("is idempotent", async () => {

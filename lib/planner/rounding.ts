@@ -29,8 +29,8 @@ import type { SheetPattern } from "./types";
 /** Share of the budget the first LP may take; whole sheets are fixed from it (converged or not) with the rest. */
 const ROOT_SHARE = 0.6;
 /** Patterns offered to the whole-sheet program: at most this many, each within this reduced cost (sheets) of paying its way. */
-const WHOLE_SHEET_COLUMNS = 400;
-const WHOLE_SHEET_REDUCED_COST = 0.5;
+const WHOLE_SHEET_COLUMNS = 800;
+const WHOLE_SHEET_REDUCED_COST = 1;
 
 export interface ColumnGenerationPlan {
   /** the Lagrangian lower bound on sheets for placing everything wanted (fractional; 0 when none was found) */

@@ -16,7 +16,7 @@ export interface SheetUse {
 }
 
 /** Branch-and-bound nodes the integer program may take. */
-export const WHOLE_SHEET_NODES = 500;
+export const WHOLE_SHEET_NODES = 3000;
 
 /**
  * The fewest whole sheets over `columns` that cover `residual.wanted` within the stock, if fewer

@@ -100,7 +100,7 @@ export type ShearT = z.infer<typeof Shear>;
  * The demo shop's two machines (invented figures, a scenario of our own): the seed creates
  * them, and the API reference's examples show the first, so "try it" works against the demo.
  */
-export const DEMO_SHEARS = ([] = [
+export const DEMO_SHEARS = [
   {
     name: "Bay 1 sheet shear",
     description: "3 m light shear for sheet up to 6.35 mm mild steel. Demo machine.",
@@ -145,4 +145,4 @@ export const DEMO_SHEARS = ([] = [
     crownBaselineMm: 0.08,
     backgaugeRepeatabilityMm: 0.1,
   },
-] satisfies z.infer<typeof ShearInput>[]);
+] satisfies z.infer<typeof ShearInput>[];

@@ -74,9 +74,10 @@ export function ProgramActions({
           >
             Release to {shearName}
           </button>
-          <ActionMessage result={release.result} />
         </form>
       )}
+      {/* Outside the draft-only form: the refreshed page (now released) keeps the message. */}
+      <ActionMessage result={release.result} />
       {canCancel && (
         <ActionForm
           action={cancelAction}

@@ -375,6 +375,16 @@ describe("the console", () => {
     expect(await other.getByTestId("role").textContent()).toBe("viewer");
     await other.goto(`${BASE_URL}/console/keys`);
     expect(await other.getByRole("button", { name: "Create key" }).count()).toBe(0);
+    // A viewer reads a shear's figures, named, with neither form nor archive button.
+    await other.goto(`${BASE_URL}/console/shears/${shop.shearId}`);
+    await other.getByText("bladeLengthMm").waitFor();
+    expect(
+      await other
+        .getByRole("definition")
+        .filter({ hasText: /^3100$/ })
+        .count(),
+    ).toBe(1);
+    expect(await other.getByRole("button", { name: /Save changes|Archive/ }).count()).toBe(0);
     // The stale form is sent with the viewer's session: the server says no and creates nothing.
     await page.getByRole("button", { name: "Create key" }).click();
     await page.getByRole("alert").filter({ hasText: "viewer" }).waitFor();

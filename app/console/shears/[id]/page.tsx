@@ -1,9 +1,6 @@
-import Link from "next/link";
 import { notFound } from "next/navigation";
-import { archiveAction } from "@/app/console/catalog-actions";
+import { CatalogDetail } from "@/components/console/CatalogDetail";
 import { ShearForm } from "@/components/console/CatalogForms";
-import { PageHeader } from "@/components/ui";
-import { ActionForm } from "@/components/console/ActionForm";
 import { Shear } from "@/entities";
 import { can } from "@/lib/auth/roles";
 import { currentMember } from "@/lib/auth/session";
@@ -17,44 +14,17 @@ export default async function ShearPage({ params }: { params: Promise<{ id: stri
   const member = await currentMember();
   const shear = await (await requestEm()).findOne(Shear, { id, shop: member.shopId });
   if (!shear) notFound();
-  const s = viewShear(shear);
-  const manage = can(member.role, "catalog:manage");
+  const view = viewShear(shear);
   return (
-    <>
-      <p className="mb-1 text-xs">
-        <Link href="/console/shears" className="text-edge hover:underline">
-          ← Shears
-        </Link>
-      </p>
-      <PageHeader
-        title={s.name}
-        lead={
-          <span className="font-mono text-xs">
-            {s.id}
-            {s.archivedAt ? " · archived" : ""}
-          </span>
-        }
-      >
-        {manage && !s.archivedAt && (
-          <ActionForm
-            action={archiveAction}
-            fields={{ id: s.id }}
-            confirm="Archive this shear? It takes no new programs."
-            buttonClassName="rounded border border-fault/50 px-2 py-1 text-xs text-fault"
-          >
-            Archive
-          </ActionForm>
-        )}
-      </PageHeader>
-      <section className="max-w-2xl rounded-md border border-scale-200 bg-white p-4">
-        {manage ? (
-          <ShearForm id={s.id} initial={s} />
-        ) : (
-          <pre tabIndex={0} className="overflow-x-auto text-xs">
-            {JSON.stringify(s, null, 2)}
-          </pre>
-        )}
-      </section>
-    </>
+    <CatalogDetail
+      back={{ href: "/console/shears", label: "Shears" }}
+      title={view.name}
+      id={view.id}
+      archivedAt={view.archivedAt}
+      manage={can(member.role, "catalog:manage")}
+      archiveConfirm="Archive this shear? It takes no new programs."
+      form={<ShearForm id={view.id} initial={view} />}
+      fields={view}
+    />
   );
 }

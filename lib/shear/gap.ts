@@ -210,7 +210,7 @@ export function describeCrown(
 ): { mm: number; value: SetupValue } {
   const rule = recommendCrown(requiredKn, ratedKn, shear);
   const baseline = `${fmtLength(rule.baselineMm, units)} with no load (${rule.baselineFromProfile ? "this shear's figure" : "0.002 in, a published shop setting"}: blades, seats and beam are not perfectly straight and the moving beam does not pass the fixed blade at one distance)`;
-  const force = `${fmtLength(rule.forceMm, units)} for the load (${fmtLength(rule.atRatedMm, units)} at full rated force${rule.atRatedFromProfile ? ", this shear's figure" : ", our placeholder"} × ${fmtPct(rule.forceSharePct)} of the rating: ram and bed bow apart under load, opening the gap at mid-length)`;
+  const force = `${fmtLength(rule.forceMm, units)} for the load (${fmtLength(rule.atRatedMm, units)} at full rated force × ${fmtPct(rule.forceSharePct)} of the rating; ${rule.atRatedFromProfile ? "the full-force figure is this shear's own" : "the full-force figure is a default until this shear's profile states the machine's own"}: ram and bed bow apart under load, opening the gap at mid-length)`;
   if (givenMm !== null) {
     return {
       mm: givenMm,

@@ -8,7 +8,10 @@ import bcrypt from "bcryptjs";
 import { Grade, Membership, Plan, Shear, Shop, User, type ShopEntity } from "../../entities";
 import { processStoredPlan } from "../../lib/worker/plan-jobs";
 import { planTimeLimitMs } from "../../lib/queue/plan-queue";
-import { createPlan } from "../../lib/services/plans";
+import { claimNext, complete, start } from "../../lib/services/gateway";
+import { createKey, type Principal } from "../../lib/services/keys";
+import { createPlan, writePrograms } from "../../lib/services/plans";
+import { releaseProgram } from "../../lib/services/programs";
 import { viewPlan } from "../../lib/services/plan-views";
 import { DEMO_SHEARS } from "../../lib/schemas/shear";
 import type { Role } from "../../lib/schemas/enums";
@@ -112,5 +115,46 @@ export async function seedDemo(em: EntityManager): Promise<DemoSummary> {
     // This script is not the web server: it may plan right here, so the demo plan is ready when the console opens.
     await processStoredPlan(() => em.fork(), plan.id, planTimeLimitMs());
   }
+  if (!existing) await setDemoWorkGoing(em, summary.shop.id, plan.id, summary.shears[0]);
   return { ...summary, plan: { id: plan.id, reference: plan.reference } };
+}
+
+/**
+ * The demo plan's programs written and set going, so the console shows work at every stage:
+ * the first run to the end by the demo gateway of the first shear, the second released and
+ * waiting for it, the rest drafts.
+ */
+async function setDemoWorkGoing(
+  em: EntityManager,
+  shopId: string,
+  planId: string,
+  shear: { id: string; name: string },
+) {
+  const shearId = shear.id;
+  const dueAt = new Date(Date.now() + 3 * 24 * 3600 * 1000).toISOString();
+  const { data: programs } = await writePrograms(em.fork(), shopId, planId, { dueAt });
+  const release = (index: number) => {
+    const program = programs[index];
+    const warnings = (program?.check.findings ?? []).filter((f) => f.severity === "warning").map((f) => f.code);
+    return program && program.validation !== "fail" ? releaseProgram(em.fork(), shopId, program.id, warnings) : null;
+  };
+  if (!(await release(0))) return;
+  const { key } = await createKey(em.fork(), shopId, {
+    name: `Gateway beside ${shear.name} (demo)`,
+    scopes: ["gateway"],
+    shearIds: [shearId],
+  });
+  const gateway: Principal = { keyId: key.id, shopId, scopes: ["gateway"], shearIds: [shearId], rateLimitPerMin: null };
+  const claimed = await claimNext(em.fork(), gateway, shearId, { waitSeconds: 0 });
+  if (claimed) {
+    const { program } = claimed;
+    await start(em.fork(), gateway, program.id);
+    await complete(em.fork(), gateway, program.id, {
+      goodPieces: program.check.yield?.total.blanks ?? 0,
+      scrappedPieces: 0,
+      sheetsUsed: program.sheet.count,
+      notes: "Demo run: every blank good.",
+    });
+  }
+  await release(1);
 }

@@ -1,7 +1,7 @@
 import { MikroORM } from "@mikro-orm/postgresql";
 import bcrypt from "bcryptjs";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { Grade, Membership, Plan, Shear, User } from "../../entities";
+import { ApiKey, Event, Grade, Membership, Plan, Program, Shear, User } from "../../entities";
 import { ormConfig } from "../../lib/db/config";
 import { migrateUp } from "../../lib/db/migrate";
 import { isId } from "../../lib/ids";
@@ -65,11 +65,42 @@ describe("demo seed", () => {
     await em.nativeDelete(Plan, { id: plan.id });
   });
 
+  it("sets the demo plan's programs going: one run to the end by its shear's gateway, one released, the rest drafts", async () => {
+    const demo = await seedDemo(orm.em.fork());
+    const em = orm.em.fork();
+    const programs = await em.find(Program, { shop: demo.shop.id }, { orderBy: { reference: "asc" } });
+    const plan = await em.findOneOrFail(Plan, { id: demo.plan.id });
+    expect(programs.map((p) => p.id).sort()).toEqual((plan.programs ?? []).map((p) => p.id).sort());
+    const byStatus = (status: string) => programs.filter((p) => p.status === status);
+    expect(byStatus("completed")).toHaveLength(1);
+    expect(byStatus("released")).toHaveLength(programs.length > 1 ? 1 : 0);
+    expect(byStatus("draft")).toHaveLength(Math.max(0, programs.length - 2));
+    const [done] = byStatus("completed");
+    // The report books every blank the program's own check counts, on the sheets it names.
+    expect(done.outcome).toMatchObject({
+      result: "completed",
+      goodPieces: done.check!.yield!.total.blanks,
+      sheetsUsed: (done.input as { sheet: { count: number } }).sheet.count,
+    });
+    const gateway = await em.findOneOrFail(ApiKey, { id: done.claimedBy! });
+    expect(gateway.scopes).toEqual(["gateway"]);
+    expect(gateway.shearIds).toEqual([done.shear.id]);
+    const events = await em.find(Event, { subjectId: done.id }, { orderBy: { id: "asc" } });
+    expect(events.map((e) => e.type)).toEqual([
+      "program.created",
+      "program.released",
+      "program.claimed",
+      "program.started",
+      "program.completed",
+    ]);
+  });
+
   it("is idempotent", async () => {
     const first = await seedDemo(orm.em.fork());
     const second = await seedDemo(orm.em.fork());
     expect(second).toEqual(first);
     expect(await orm.em.fork().count(Shear)).toBe(2);
     expect(await orm.em.fork().count(Plan)).toBe(1);
+    expect(await orm.em.fork().count(ApiKey)).toBe(1); // the demo gateway's, once
   });
 });

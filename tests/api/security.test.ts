@@ -36,6 +36,8 @@ function bodyFor(op: Operation): object | undefined {
     case "createProgram":
     case "validateProgram":
       return exampleProgram(mine.shearId);
+    case "createProgramBatch":
+      return { programs: [exampleProgram(mine.shearId)] };
     case "createPlan":
     case "previewPlan":
       return examplePlan(mine.shearId);

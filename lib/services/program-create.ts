@@ -10,7 +10,9 @@ import { ApiError, conflict, invalidRequest } from "../errors";
 import type { ProgramInputT, ProgramT } from "../schemas/program";
 import { checkProgram, type CheckResult } from "../shear";
 import { gradeProfile, shearProfile } from "./catalog";
-import { recordEvents } from "./events";
+import { newId } from "../ids";
+import { wakeAfterCommit } from "../db/wake";
+import { OUTBOX_CHANNEL } from "./events";
 import { viewProgram } from "./program-view";
 
 export const DEFAULT_PRIORITY = 5;
@@ -105,42 +107,103 @@ export async function checkPrograms(
   });
 }
 
-async function insert(tx: EntityManager, shopId: string, checked: Checked[]): Promise<ProgramT[]> {
-  const shop = tx.getReference(Shop, shopId);
+/**
+ * What a new program sets (the other columns keep their defaults), as `jsonb_to_recordset`
+ * reads it: the row, its event's id and the program as the API shows it, which is also the
+ * event's body and holds the check, so the largest part is sent once.
+ */
+const ROW =
+  "id text, shop_id text, shear_id text, reference text, title text, revision int, input jsonb, grade_code text, units text, priority int, due_at timestamptz, validation text, metadata jsonb, created_at timestamptz, updated_at timestamptz, event_id text, view jsonb";
+const COLUMNS = ROW.split(", ")
+  .map((c) => c.split(" ")[0])
+  .slice(0, -2)
+  .join(", ");
+const INSERT = `with x as materialized (select * from jsonb_to_recordset(?::jsonb) as x(${ROW})),
+  p as (insert into programs (${COLUMNS}, "check") select ${COLUMNS}, view->'check' from x returning 1),
+  e as (insert into events (id, shop_id, type, subject_id, data, created_at)
+        select event_id, shop_id, 'program.created', id, jsonb_build_object('program', view), created_at from x returning 1)
+  select (select count(*) from p) as programs, (select count(*) from e) as events`;
+
+/**
+ * The programs and their events in one statement (one round trip; on its own, one
+ * transaction): both inserts happen, or, when a reference was taken meanwhile, neither.
+ */
+async function insert(em: EntityManager, shopId: string, checked: Checked[]): Promise<ProgramT[]> {
+  const now = new Date();
+  const shop = em.getReference(Shop, shopId);
   const programs = checked.map(({ input, shear, check }) => {
-    const program = tx.create(Program, {
-      shop,
-      shear,
-      reference: input.reference,
-      gradeCode: input.grade,
-      units: input.units,
-      input,
-      validation: check.validation,
-      check,
-    });
+    const program = em.create(
+      Program,
+      {
+        id: newId("program"),
+        shop,
+        shear,
+        reference: input.reference,
+        gradeCode: input.grade,
+        units: input.units,
+        input,
+        validation: check.validation,
+        check,
+        status: "draft",
+        revision: 1,
+        acknowledged: [],
+        leaseExpiries: 0,
+        createdAt: now,
+        updatedAt: now,
+      },
+      { persist: false },
+    );
     applyInput(program, input, check);
     return program;
   });
-  await tx.flush();
   const views = programs.map(viewProgram);
-  await recordEvents(
-    tx,
-    shopId,
-    views.map((program) => ({ type: "program.created" as const, subjectId: program.id, data: { program } })),
-  );
-  await tx.flush();
+  // the event's body is `{ program }` (EventData<"program.created">), built in the statement from `view`
+  const rows = programs.map((p, i) => ({
+    id: p.id,
+    shop_id: shopId,
+    shear_id: p.shear.id,
+    reference: p.reference,
+    title: p.title,
+    revision: p.revision,
+    input: p.input,
+    grade_code: p.gradeCode,
+    units: p.units,
+    priority: p.priority,
+    due_at: p.dueAt,
+    validation: p.validation,
+    metadata: p.metadata,
+    created_at: now,
+    updated_at: now,
+    event_id: newId("event"),
+    view: views[i],
+  }));
+  const inTransaction = em.isInTransaction();
+  try {
+    // Bound parameters, not MikroORM's `execute`, which writes every value into the SQL text: a batch's JSON runs to megabytes.
+    const query = em
+      .getConnection()
+      .getKnex()
+      .raw(inTransaction ? `${INSERT}, pg_notify('${OUTBOX_CHANNEL}', '')` : INSERT, [JSON.stringify(rows)]);
+    const transaction = em.getTransactionContext();
+    if (transaction) query.transacting(transaction);
+    await query;
+  } catch (err) {
+    if ((err as { code?: string }).code === "23505" && !(err instanceof UniqueConstraintViolationException))
+      throw new UniqueConstraintViolationException(err as Error);
+    throw err;
+  }
+  // In the caller's transaction the NOTIFY above goes out at its commit; on its own the statement has committed.
+  if (!inTransaction) wakeAfterCommit(OUTBOX_CHANNEL);
   return views;
 }
 
 /**
  * Write checked programs with their events: in the caller's transaction when there is one,
- * else in a transaction of their own. A reference taken meanwhile by a concurrent writer
+ * else atomically on their own. A reference taken meanwhile by a concurrent writer
  * surfaces as `UniqueConstraintViolationException`, for the caller to answer.
  */
 export async function storePrograms(em: EntityManager, shopId: string, checked: Checked[]): Promise<ProgramT[]> {
-  if (!checked.length) return [];
-  if (em.isInTransaction()) return insert(em, shopId, checked);
-  return em.transactional((tx) => insert(tx, shopId, checked));
+  return checked.length ? insert(em, shopId, checked) : [];
 }
 
 /** Create one program (a draft, with its check and its `program.created` event). */

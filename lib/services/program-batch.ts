@@ -7,7 +7,8 @@
 import { UniqueConstraintViolationException, type EntityManager } from "@mikro-orm/postgresql";
 import { ApiError, conflict, invalidRequest } from "../errors";
 import { ProgramInput, type ProgramBatchResultT, type ProgramInputT, type ProgramT } from "../schemas/program";
-import { checkPrograms, duplicateReference, existingReferences, storePrograms, type Checked } from "./program-create";
+import { existingReferences } from "./lookups";
+import { checkPrograms, duplicateReference, storePrograms, type Checked } from "./program-create";
 
 type ItemError = { location: string; pointer: string; message: string };
 type ProblemT = Extract<ProgramBatchResultT, { problem: unknown }>["problem"];

@@ -5,7 +5,7 @@
  * `program.created` events are written in one transaction, one insert for each table.
  */
 import { UniqueConstraintViolationException, type EntityManager } from "@mikro-orm/postgresql";
-import { Grade, Program, Shear, Shop, type GradeEntity, type ProgramEntity, type ShearEntity } from "../../entities";
+import { type ProgramEntity, type ShearEntity } from "../../entities";
 import { ApiError, conflict, invalidRequest } from "../errors";
 import type { ProgramInputT, ProgramT } from "../schemas/program";
 import { checkProgram, type CheckResult } from "../shear";
@@ -13,10 +13,10 @@ import { gradeProfile, shearProfile } from "./catalog";
 import { newId } from "../ids";
 import { wakeAfterCommit } from "../db/wake";
 import { OUTBOX_CHANNEL } from "./events";
-import { viewProgram } from "./program-view";
+import { existingReferences, gradesByCode, shearsNamed } from "./lookups";
+import { viewProgram, type ProgramRecord } from "./program-view";
 
 export const DEFAULT_PRIORITY = 5;
-const SHEAR_ID = /^shr_[0-9A-Z]{26}$/;
 
 /** A program that passed its checks and can be written. */
 export interface Checked {
@@ -50,31 +50,6 @@ export function applyInput(program: ProgramEntity, input: ProgramInputT, check: 
   program.check = check;
 }
 
-/** The shears the inputs name, by id (archived ones too, to say so) or by name in any case (in use only). */
-async function shearsNamed(em: EntityManager, shopId: string, inputs: ProgramInputT[]) {
-  const keys = inputs.map((i) => i.shear.trim());
-  const ids = [...new Set(keys.filter((k) => SHEAR_ID.test(k)))];
-  const byName = keys.some((k) => !SHEAR_ID.test(k));
-  const [withIds, inUse] = await Promise.all([
-    ids.length ? em.find(Shear, { id: { $in: ids }, shop: shopId }) : [],
-    byName ? em.find(Shear, { shop: shopId, archivedAt: null }) : [],
-  ]);
-  const found = new Map<string, ShearEntity>(withIds.map((s) => [s.id, s]));
-  for (const s of inUse) found.set(s.name.trim().toLowerCase(), s);
-  return (key: string) => found.get(SHEAR_ID.test(key) ? key : key.toLowerCase()) ?? null;
-}
-
-/** Existing programs of this shop with any of these references: reference → id. */
-export async function existingReferences(em: EntityManager, shopId: string, references: string[]) {
-  if (!references.length) return new Map<string, string>();
-  const rows = await em.find(
-    Program,
-    { shop: shopId, reference: { $in: [...new Set(references)] } },
-    { fields: ["id", "reference"], disableIdentityMap: true },
-  );
-  return new Map(rows.map((r) => [r.reference, r.id]));
-}
-
 /**
  * Check each program against its shear and grade as the catalog has them now, and against
  * the shop's references. Each answer is the checked program or the refusal for it, in order.
@@ -84,17 +59,23 @@ export async function checkPrograms(
   shopId: string,
   inputs: ProgramInputT[],
 ): Promise<(Checked | ApiError)[]> {
-  const codes = [...new Set(inputs.map((i) => i.grade))];
-  const [shearOf, grades, existing] = await Promise.all([
-    shearsNamed(em, shopId, inputs),
-    em.find(Grade, { shop: shopId, code: { $in: codes }, archivedAt: null }),
+  const [shearOf, gradeOf, existing] = await Promise.all([
+    shearsNamed(
+      em,
+      shopId,
+      inputs.map((i) => i.shear.trim()),
+    ),
+    gradesByCode(
+      em,
+      shopId,
+      inputs.map((i) => i.grade),
+    ),
     existingReferences(
       em,
       shopId,
       inputs.map((i) => i.reference),
     ),
   ]);
-  const gradeOf = new Map<string, GradeEntity>(grades.map((g) => [g.code, g]));
   return inputs.map((input) => {
     const shear = shearOf(input.shear.trim());
     if (!shear || shear.archivedAt) return shearRefusal("program", Boolean(shear));
@@ -130,32 +111,35 @@ const INSERT = `with x as materialized (select * from jsonb_to_recordset(?::json
  */
 async function insert(em: EntityManager, shopId: string, checked: Checked[]): Promise<ProgramT[]> {
   const now = new Date();
-  const shop = em.getReference(Shop, shopId);
-  const programs = checked.map(({ input, shear, check }) => {
-    const program = em.create(
-      Program,
-      {
-        id: newId("program"),
-        shop,
-        shear,
-        reference: input.reference,
-        gradeCode: input.grade,
-        units: input.units,
-        input,
-        validation: check.validation,
-        check,
-        status: "draft",
-        revision: 1,
-        acknowledged: [],
-        leaseExpiries: 0,
-        createdAt: now,
-        updatedAt: now,
-      },
-      { persist: false },
-    );
-    applyInput(program, input, check);
-    return program;
-  });
+  const programs = checked.map(({ input, shear, check }): ProgramRecord & { units: string } => ({
+    id: newId("program"),
+    status: "draft",
+    revision: 1,
+    reference: input.reference,
+    title: input.title ?? null,
+    input,
+    shear: { id: shear.id },
+    gradeCode: input.grade,
+    units: input.units,
+    priority: input.priority ?? DEFAULT_PRIORITY,
+    dueAt: input.dueAt ? new Date(input.dueAt) : null,
+    metadata: input.metadata ?? {},
+    validation: check.validation,
+    check,
+    acknowledged: [],
+    releasedAt: null,
+    cancelledAt: null,
+    claimedBy: null,
+    claimedAt: null,
+    leaseExpiresAt: null,
+    leaseExpiries: 0,
+    startedAt: null,
+    finishedAt: null,
+    progress: null,
+    outcome: null,
+    createdAt: now,
+    updatedAt: now,
+  }));
   const views = programs.map(viewProgram);
   // the event's body is `{ program }` (EventData<"program.created">), built in the statement from `view`
   const rows = programs.map((p, i) => ({

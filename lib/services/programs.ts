@@ -13,7 +13,8 @@ import type { CheckT } from "../schemas/check";
 import { checkProgram, type CheckResult } from "../shear";
 import { gradeByCode, gradeProfile, shearProfile } from "./catalog";
 import { announceRelease, recordEvent, type EventType } from "./events";
-import { applyInput, duplicateReference, existingReferences, shearRefusal } from "./program-create";
+import { existingReferences, gradesByCode, shearsNamed } from "./lookups";
+import { applyInput, duplicateReference, shearRefusal } from "./program-create";
 import { viewProgram } from "./program-view";
 
 export { createProgram } from "./program-create";
@@ -60,8 +61,17 @@ export async function runCheck(
   return { shear, check };
 }
 
+/** The dry run: the same check as create, with the reads concurrent requests share (lib/services/lookups.ts). */
 export async function validateProgram(em: EntityManager, shopId: string, input: ProgramInputT): Promise<CheckT> {
-  return (await runCheck(em, shopId, input)).check as CheckT;
+  const key = input.shear.trim();
+  const [shearOf, grades] = await Promise.all([
+    shearsNamed(em, shopId, [key]),
+    gradesByCode(em, shopId, [input.grade]),
+  ]);
+  const shear = shearOf(key);
+  if (!shear || shear.archivedAt) throw shearRefusal("program", Boolean(shear));
+  const grade = grades.get(input.grade);
+  return checkProgram(input, { shear: shearProfile(shear), grade: grade ? gradeProfile(grade) : null }) as CheckT;
 }
 
 async function byReference(em: EntityManager, shopId: string, reference: string) {

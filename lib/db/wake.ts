@@ -5,18 +5,21 @@
  * a wake-up is pending for the channel share it. A wake-up is a hint: whoever listens also
  * looks for work on a timer, so one lost to a crash costs a short delay, never the work.
  */
-import { getOrm } from "./orm";
+import type { EntityManager } from "@mikro-orm/postgresql";
 
-const holder = globalThis as unknown as { __shearwireWake?: Set<string> };
-const pending: Set<string> = (holder.__shearwireWake ??= new Set());
+/** Channels with a wake-up pending, per database connection (the one that wrote the change). */
+const pending = new WeakMap<object, Set<string>>();
 
-export function wakeAfterCommit(channel: string): void {
-  if (pending.has(channel)) return;
-  pending.add(channel);
+export function wakeAfterCommit(em: EntityManager, channel: string): void {
+  const connection = em.getConnection();
+  let channels = pending.get(connection);
+  if (!channels) pending.set(connection, (channels = new Set()));
+  if (channels.has(channel)) return;
+  channels.add(channel);
   setImmediate(() => {
-    pending.delete(channel);
-    getOrm()
-      .then((orm) => orm.em.getConnection().execute(`select pg_notify(?, '')`, [channel]))
+    channels.delete(channel);
+    connection
+      .execute(`select pg_notify(?, '')`, [channel])
       .catch((err) => console.error(`[wake] could not notify ${channel}:`, err));
   });
 }

@@ -177,7 +177,7 @@ async function insert(em: EntityManager, shopId: string, checked: Checked[]): Pr
     throw err;
   }
   // In the caller's transaction the NOTIFY above goes out at its commit; on its own the statement has committed.
-  if (!inTransaction) wakeAfterCommit(OUTBOX_CHANNEL);
+  if (!inTransaction) wakeAfterCommit(em, OUTBOX_CHANNEL);
   return views;
 }
 

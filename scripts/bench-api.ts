@@ -1,49 +1,64 @@
 /**
- * API benchmark (part of `npm run bench`): throughput and p99 latency of POST /api/v1/programs
- * at 32 connections (autocannon) against the built app and real PostgreSQL, next to a bare
- * node:http server doing one INSERT into the same database in the same run. Target: the API
- * reaches at least 0.6 of the bare baseline. Not a test: it reports, it does not fail.
+ * API benchmark (part of `npm run bench`): every route below at the same 32 connections in one
+ * run, against the built app (web server and worker, as `npm run up` runs them) and real
+ * PostgreSQL and Redis. The yardstick is the framework's own floor, `GET /api/v1/health` (one
+ * PostgreSQL and one Redis round trip through the same route wrapper); a bare node:http INSERT
+ * is printed for context. The load generator (autocannon, this process) shares a process with
+ * no server it measures. Targets: POST /programs ≥ 0.5 × health with p99 ≤ 4 × its p50,
+ * validate ≥ 0.8 × health, batches of 100 ≥ 10 × single create in programs per second.
+ * Not a test: it reports, it does not fail.
  */
-import http from "node:http";
 import autocannon from "autocannon";
-import pg from "pg";
 import { benchDatabase } from "./lib/bench-setup";
 import { appEnv } from "./lib/env";
-import { buildApp, daemon, startWeb, stopDaemon, waitForHttp } from "./lib/web";
+import { buildApp, daemon, startDaemon, startWeb, startWorker, stopDaemon, waitForHttp } from "./lib/web";
 
 const CONNECTIONS = 32;
 const SECONDS = Number(process.env.BENCH_SECONDS ?? 10);
+const BATCH = 100;
 const PORT = 3210;
 const BARE_PORT = 3211;
 const DIST = ".next-test";
 
 const { profile, url, orm, shearId, key: secret } = await benchDatabase("shearwire_bench");
 await orm.close(true);
-const shear = { id: shearId };
 
 let n = 0;
-const program = () =>
-  JSON.stringify({
-    reference: `BENCH-${process.pid}-${n++}`,
-    shear: shear.id,
-    grade: "A36",
-    thickness: { gauge: 10 },
-    units: "in",
-    sheet: { length: 120, width: 48, count: 2 },
-    cuts: [
-      { backgauge: 12, count: 3 },
-      { turn: true, backgauge: 16, length: 12, count: 7 },
-    ],
-  });
+const program = () => ({
+  reference: `BENCH-${process.pid}-${n++}`,
+  shear: shearId,
+  grade: "A36",
+  thickness: { gauge: 10 },
+  units: "in",
+  sheet: { length: 120, width: 48, count: 2 },
+  cuts: [
+    { backgauge: 12, count: 3 },
+    { turn: true, backgauge: 16, length: 12, count: 7 },
+  ],
+});
 
-async function run(target: string, headers: Record<string, string>) {
+interface Result {
+  rps: number;
+  p50: number;
+  p99: number;
+  non2xx: number;
+  errors: number;
+}
+
+async function run(
+  path: string,
+  method: "GET" | "POST",
+  body?: () => object,
+  base = `http://127.0.0.1:${PORT}`,
+  seconds = SECONDS,
+) {
   const result = await autocannon({
-    url: target,
+    url: `${base}${path}`,
     connections: CONNECTIONS,
-    duration: SECONDS,
-    method: "POST",
-    headers: { "content-type": "application/json", ...headers },
-    requests: [{ setupRequest: (req) => ({ ...req, body: program() }) }],
+    duration: seconds,
+    method,
+    headers: { "content-type": "application/json", authorization: `Bearer ${secret}` },
+    requests: body ? [{ setupRequest: (req) => ({ ...req, body: JSON.stringify(body()) }) }] : undefined,
   });
   return {
     rps: result.requests.average,
@@ -51,44 +66,58 @@ async function run(target: string, headers: Record<string, string>) {
     p99: result.latency.p99,
     non2xx: result.non2xx,
     errors: result.errors,
-  };
+  } satisfies Result;
 }
 
-// The app, built and served as `npm test` does.
 const env = { ...appEnv(profile, PORT), SHEARWIRE_DIST_DIR: DIST, DATABASE_URL: url };
 if (process.env.BENCH_REBUILD === "1") buildApp(env);
 const web = daemon(profile.dataRoot, "web-bench");
-await stopDaemon(web);
+const worker = daemon(profile.dataRoot, "worker-bench");
+const bareServer = daemon(profile.dataRoot, "bare-bench");
+for (const d of [web, worker, bareServer]) await stopDaemon(d);
 await startWeb(web, PORT, env);
+startWorker(worker, env);
+startDaemon(bareServer, "node_modules/.bin/tsx", ["scripts/bench-bare-server.ts", String(BARE_PORT), url], env);
 await waitForHttp(`http://127.0.0.1:${PORT}/api/v1/health`, web);
-// warm up the route (first request compiles nothing in production, but fills pools and caches)
-await run(`http://127.0.0.1:${PORT}/api/v1/programs`, { authorization: `Bearer ${secret}` }).catch(() => undefined);
-const api = await run(`http://127.0.0.1:${PORT}/api/v1/programs`, { authorization: `Bearer ${secret}` });
-await stopDaemon(web);
+await waitForHttp(`http://127.0.0.1:${BARE_PORT}/`, bareServer);
 
-// The baseline: node:http with one INSERT per request into the same database.
-const pool = new pg.Pool({ connectionString: url, max: 10 });
-await pool.query(
-  "create table if not exists bench_bare (id bigserial primary key, body jsonb not null, created_at timestamptz not null default now())",
-);
-const bare = http.createServer((req, res) => {
-  let body = "";
-  req.on("data", (c) => (body += c));
-  req.on("end", async () => {
-    await pool.query("insert into bench_bare (body) values ($1)", [body]);
-    res.writeHead(201, { "content-type": "application/json" }).end('{"ok":true}');
-  });
-});
-await new Promise<void>((r) => bare.listen(BARE_PORT, "127.0.0.1", r));
-const baseline = await run(`http://127.0.0.1:${BARE_PORT}/`, {});
-bare.close();
-await pool.end();
+const results: Record<string, Result> = {};
+try {
+  // warm up: fills the pools and the JIT on every route measured
+  for (const [p, m, b] of [
+    ["/api/v1/health", "GET", undefined],
+    ["/api/v1/programs/validate", "POST", program],
+    ["/api/v1/programs", "POST", program],
+  ] as const)
+    await run(p, m, b, undefined, 3).catch(() => undefined);
+  results.bare = await run("/", "POST", program, `http://127.0.0.1:${BARE_PORT}`);
+  results.health = await run("/api/v1/health", "GET");
+  results.shears = await run("/api/v1/shears", "GET");
+  results.validate = await run("/api/v1/programs/validate", "POST", program);
+  results.create = await run("/api/v1/programs", "POST", program);
+  results.batch = await run("/api/v1/programs/batch", "POST", () => ({
+    programs: Array.from({ length: BATCH }, program),
+  }));
+} finally {
+  for (const d of [web, worker, bareServer]) await stopDaemon(d);
+}
 
-const ratio = api.rps / baseline.rps;
+const h = results.health.rps;
+const line = (name: string, r: Result, extra = "") =>
+  `  ${name.padEnd(34)} ${r.rps.toFixed(0).padStart(6)} req/s   p50 ${String(r.p50).padStart(5)} ms   p99 ${String(r.p99).padStart(5)} ms   ×health ${(r.rps / h).toFixed(2).padStart(5)}   non-2xx ${r.non2xx}  errors ${r.errors}${extra}`;
+const create = results.create;
+const batchPrograms = results.batch.rps * BATCH;
+const verdict = (ok: boolean) => (ok ? "met" : "NOT met");
 console.log(`
-POST /api/v1/programs, ${CONNECTIONS} connections, ${SECONDS} s (check + store + outbox event + request log)
-  Shearwire API     ${api.rps.toFixed(0).padStart(6)} req/s   p50 ${api.p50} ms   p99 ${api.p99} ms   non-2xx ${api.non2xx}   errors ${api.errors}
-  bare node:http    ${baseline.rps.toFixed(0).padStart(6)} req/s   p50 ${baseline.p50} ms   p99 ${baseline.p99} ms   (one INSERT)
-  ratio             ${ratio.toFixed(2)}   (target ≥ 0.60: ${ratio >= 0.6 ? "met" : "NOT met"})
+API at ${CONNECTIONS} connections, ${SECONDS} s each (web server + worker + PostgreSQL + Redis on this machine)
+${line("bare node:http INSERT (context)", results.bare)}
+${line("GET /api/v1/health (the floor)", results.health)}
+${line("GET /api/v1/shears", results.shears)}
+${line("POST /api/v1/programs/validate", results.validate)}
+${line("POST /api/v1/programs", create)}
+${line(`POST /api/v1/programs/batch (${BATCH})`, results.batch, `   = ${batchPrograms.toFixed(0)} programs/s`)}
+  create ≥ 0.5 × health: ${(create.rps / h).toFixed(2)} (${verdict(create.rps >= 0.5 * h)}); create p99 ≤ 4 × p50: ${create.p99} vs ${4 * create.p50} ms (${verdict(create.p99 <= 4 * create.p50)})
+  validate ≥ 0.8 × health: ${(results.validate.rps / h).toFixed(2)} (${verdict(results.validate.rps >= 0.8 * h)})
+  batch ≥ 10 × single create in programs/s: ${(batchPrograms / create.rps).toFixed(1)} × (${verdict(batchPrograms >= 10 * create.rps)})
 `);
 process.exit(0);

@@ -4,6 +4,7 @@
  * and is the JSON Schema served at /api/v1/schemas/cut-program.json.
  */
 import { Check } from "./check";
+import { Problem } from "./common";
 import { PROGRAM_STATUSES } from "./enums";
 import { z } from "./zod";
 
@@ -188,6 +189,46 @@ export const Program = z
   })
   .openapi("Program");
 
+/** At most this many programs in one batch. */
+export const BATCH_LIMIT = 100;
+
+export const ProgramBatchInput = z
+  .object({
+    programs: z
+      .array(z.unknown())
+      .min(1)
+      .max(BATCH_LIMIT)
+      .openapi({
+        items: { $ref: "#/components/schemas/ProgramInput" },
+        description: `1 to ${BATCH_LIMIT} programs, each as \`POST /programs\` takes it; each is checked on its own, so one program's problems point into \`/programs/{index}\`.`,
+      }),
+    atomic: z.boolean().default(true).openapi({
+      description:
+        "`true` (the default): all or nothing, one problem naming every program that cannot be created. `false`: every program that can be created is, and the answer (207) lists each program's result or problem in order.",
+    }),
+  })
+  .strict()
+  .openapi("ProgramBatchInput");
+
+export const ProgramBatch = z
+  .object({ data: z.array(Program).openapi({ description: "The created programs, in the order sent" }) })
+  .openapi("ProgramBatch");
+
+export const ProgramBatchResult = z
+  .union([
+    z.object({ index: z.number().int(), status: z.literal(201), program: Program }),
+    z.object({
+      index: z.number().int(),
+      status: z.number().int().openapi({ description: "What creating this program alone would have answered" }),
+      problem: Problem,
+    }),
+  ])
+  .openapi("ProgramBatchResult", { description: "One program's result: the program, or its problem." });
+
+export const ProgramBatchResults = z
+  .object({ data: z.array(ProgramBatchResult).openapi({ description: "One result per program, in the order sent" }) })
+  .openapi("ProgramBatchResults");
+
 export const ReleaseInput = z
   .object({
     acknowledge: z
@@ -227,3 +268,4 @@ export const ProgramListQuery = z.object({
 export type ProgramInputT = z.infer<typeof ProgramInput>;
 export type ProgramPatchT = z.infer<typeof ProgramPatch>;
 export type ProgramT = z.infer<typeof Program>;
+export type ProgramBatchResultT = z.infer<typeof ProgramBatchResult>;

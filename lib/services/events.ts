@@ -30,7 +30,18 @@ export async function recordEvent<T extends EventType>(
   subjectId: string,
   data: EventData<T>,
 ) {
-  const event = em.create(Event, { shop: em.getReference(Shop, shopId), type, subjectId, data });
-  await em.execute(`select pg_notify('${OUTBOX_CHANNEL}', '')`);
+  const [event] = await recordEvents(em, shopId, [{ type, subjectId, data }]);
   return event;
+}
+
+/** Stage several events in the caller's transaction (written together at flush), with one wake-up. */
+export async function recordEvents<T extends EventType>(
+  em: EntityManager,
+  shopId: string,
+  events: { type: T; subjectId: string; data: EventData<T> }[],
+) {
+  const shop = em.getReference(Shop, shopId);
+  const staged = events.map((e) => em.create(Event, { shop, type: e.type, subjectId: e.subjectId, data: e.data }));
+  if (staged.length) await em.execute(`select pg_notify('${OUTBOX_CHANNEL}', '')`);
+  return staged;
 }

@@ -5,10 +5,10 @@
  */
 import type { EntityManager } from "@mikro-orm/postgresql";
 import { parse } from "csv-parse/sync";
-import { ApiError } from "../errors";
+import { ApiError, type ProblemBody } from "../errors";
 import { Shear } from "../../entities";
 import { ProgramInput, type ProgramInputT } from "../schemas/program";
-import { createProgram } from "./programs";
+import { createBatch } from "./program-batch";
 
 export const CSV_COLUMNS = [
   "reference",
@@ -227,38 +227,28 @@ export function validate(parsed: Parsed): { inputs: ProgramInputT[]; errors: Row
   return { inputs, errors: errors.sort((a, b) => a.row - b.row) };
 }
 
-/** Create every program in one transaction: all of them, or none. */
+/** Create every program through the batch path, in one transaction: all of them, or none. */
 export async function importPrograms(
   em: EntityManager,
   shopId: string,
   inputs: ProgramInputT[],
   rowsOf: (i: number) => number,
 ) {
-  const errors: RowError[] = [];
-  const created = await em
-    .transactional(async (tx) => {
-      const out: { id: string; reference: string; validation: string }[] = [];
-      for (const [i, input] of inputs.entries()) {
-        try {
-          const p = await createProgram(tx, shopId, input);
-          out.push({ id: p.id, reference: p.reference, validation: p.validation });
-        } catch (err) {
-          if (!(err instanceof ApiError)) throw err;
-          errors.push({
-            row: rowsOf(i),
-            field: (err.extensions.errors as { pointer: string }[] | undefined)?.[0]?.pointer.slice(1) ?? "program",
-            message: err.message,
-          });
-        }
-      }
-      if (errors.length) throw new ImportRefused();
-      return out;
-    })
-    .catch((err) => {
-      if (err instanceof ImportRefused) return null;
-      throw err;
-    });
-  return created ? { created, errors: [] } : { created: [], errors };
+  try {
+    const created = await createBatch(em, shopId, inputs);
+    return {
+      created: created.map((p) => ({ id: p.id, reference: p.reference, validation: p.validation })),
+      errors: [],
+    };
+  } catch (err) {
+    const failures = err instanceof ApiError ? (err.extensions.failures as ProblemBody[] | undefined) : undefined;
+    if (!failures) throw err;
+    const errors: RowError[] = failures.map((f) => ({
+      row: rowsOf(f.index as number),
+      field:
+        (f.errors as { pointer: string }[] | undefined)?.[0]?.pointer.replace(/^\/programs\/\d+\//, "") ?? "program",
+      message: f.detail.replace(/^Program \d+: /, ""),
+    }));
+    return { created: [], errors };
+  }
 }
-
-class ImportRefused extends Error {}

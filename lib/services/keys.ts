@@ -6,6 +6,7 @@ import { createHash, randomBytes } from "node:crypto";
 import type { EntityManager } from "@mikro-orm/postgresql";
 import { ApiKey, Shear, Shop, type ApiKeyEntity } from "../../entities";
 import type { Scope } from "../../lib/schemas/enums";
+import { batchedLookup } from "../db/batched-lookup";
 import { invalidRequest, notFound, unauthorized } from "../errors";
 
 /** Every key starts with this; keys made earlier start `swk_live_` and keep working. */
@@ -102,13 +103,8 @@ export async function authenticate(em: EntityManager, header: string | null): Pr
   if (!match) throw unauthorized("Send an API key as `Authorization: Bearer swk_…`.");
   const secret = match[1];
   if (!secret.startsWith(KEY_PREFIX)) throw unauthorized("That is not a Shearwire API key.");
-  // One indexed lookup per request, without hydrating an entity: this runs before every call.
-  const [key] = await em
-    .getConnection()
-    .execute<KeyRow[]>(
-      "select id, shop_id, scopes, shear_ids, rate_limit_per_min, expires_at, revoked_at, last_used_at from api_keys where hash = ?",
-      [digest(secret)],
-    );
+  // An indexed lookup without hydrating an entity, shared by the requests that arrive together: this runs before every call.
+  const key = await keysByDigest(em)(digest(secret));
   const now = new Date();
   if (!key) throw unauthorized("The API key is not valid.");
   if (key.revoked_at) throw unauthorized("The API key was revoked.");
@@ -126,6 +122,26 @@ export async function authenticate(em: EntityManager, header: string | null): Pr
     shearIds: key.shear_ids,
     rateLimitPerMin: key.rate_limit_per_min,
   };
+}
+
+/**
+ * Keys by digest, looked up by the requests that arrive while another lookup runs in one query
+ * (never from a cache: each answer is read after its request arrived, so revocation holds on the next request).
+ */
+const lookups = new WeakMap<object, (digest: string) => Promise<KeyRow | undefined>>();
+function keysByDigest(em: EntityManager) {
+  const connection = em.getConnection();
+  let lookup = lookups.get(connection);
+  if (lookup) return lookup;
+  lookup = batchedLookup(async (digests: string[]) => {
+    const rows = await connection.execute<(KeyRow & { hash: string })[]>(
+      "select id, hash, shop_id, scopes, shear_ids, rate_limit_per_min, expires_at, revoked_at, last_used_at from api_keys where hash in (?)",
+      [digests],
+    );
+    return new Map(rows.map((r) => [r.hash, r]));
+  });
+  lookups.set(connection, lookup);
+  return lookup;
 }
 
 interface KeyRow {

@@ -6,7 +6,7 @@
  * plan's draft programs are written through the same path as any other program (checked,
  * stored, with their events), all or nothing, once.
  */
-import { LockMode, type EntityManager } from "@mikro-orm/postgresql";
+import { LockMode, UniqueConstraintViolationException, type EntityManager } from "@mikro-orm/postgresql";
 import { Plan, Shop, type PlanEntity } from "../../entities";
 import { ApiError, conflict, notFound } from "../errors";
 import { containing, findPage } from "../db/paging";
@@ -17,9 +17,10 @@ import { dequeuePlan, enqueuePlan, previewOnWorker, PreviewTimeout } from "../qu
 import type { PlanInputT, PlanPreviewT, PlanT, WriteProgramsInputT } from "../schemas/plan";
 
 import { ProgramInput, type ProgramInputT, type ProgramT } from "../schemas/program";
+import { checkPrograms, storePrograms, type Checked } from "./program-create";
 import { gradeByCode, gradeProfile, shearProfile } from "./catalog";
 import { recordEvent } from "./events";
-import { activeShear, createProgram } from "./programs";
+import { activeShear } from "./programs";
 import { refusal, planResultOf, viewPlan, viewPlanSummary } from "./plan-views";
 
 /** How long a request waits for Redis to take a plan's job before leaving it to the sweeper. */
@@ -204,8 +205,7 @@ export async function writePrograms(
     // One writer at a time per plan: a second request waits here, then finds the programs written.
     const row = await tx.findOneOrFail(Plan, { id: plan.id }, { lockMode: LockMode.PESSIMISTIC_WRITE, refresh: true });
     if (row.programs?.length) throw conflict("This plan's programs are already written.", { programs: row.programs });
-    const written: ProgramT[] = [];
-    for (const p of result.patterns) {
+    const inputs = result.patterns.map((p): ProgramInputT => {
       const input: ProgramInputT = {
         reference: `${prefix}/${p.key}`,
         title:
@@ -229,8 +229,16 @@ export async function writePrograms(
           `Pattern ${p.key} cannot be written as a cut program: ${valid.error.issues[0].path.join(".")}: ${valid.error.issues[0].message}.`,
           { pattern: p.key },
         );
-      written.push(await createProgram(tx, shopId, valid.data));
-    }
+      return valid.data;
+    });
+    const checked = await checkPrograms(tx, shopId, inputs);
+    const refused = checked.find((c) => c instanceof ApiError);
+    if (refused) throw refused;
+    const written = await storePrograms(tx, shopId, checked as Checked[]).catch((err) => {
+      if (err instanceof UniqueConstraintViolationException)
+        throw conflict("A program with one of these references was created meanwhile; nothing was written.");
+      throw err;
+    });
     row.programs = written.map((w, i) => ({ pattern: result.patterns[i].key, id: w.id }));
     await tx.flush();
     return { plan: plan.id, data: written };

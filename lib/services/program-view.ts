@@ -3,7 +3,37 @@ import { type ProgramEntity } from "../../entities";
 import type { ProgramInputT, ProgramT } from "../schemas/program";
 import type { CheckT } from "../schemas/check";
 
-export function viewProgram(p: ProgramEntity): ProgramT {
+/** What the view reads of a program: a stored one, or one about to be written. */
+export type ProgramRecord = Pick<
+  ProgramEntity,
+  | "id"
+  | "status"
+  | "revision"
+  | "reference"
+  | "title"
+  | "input"
+  | "gradeCode"
+  | "priority"
+  | "dueAt"
+  | "metadata"
+  | "validation"
+  | "check"
+  | "acknowledged"
+  | "releasedAt"
+  | "cancelledAt"
+  | "claimedBy"
+  | "claimedAt"
+  | "leaseExpiresAt"
+  | "leaseExpiries"
+  | "startedAt"
+  | "finishedAt"
+  | "progress"
+  | "outcome"
+  | "createdAt"
+  | "updatedAt"
+> & { shear: { id: string } };
+
+export function viewProgram(p: ProgramRecord): ProgramT {
   const input = p.input as ProgramInputT;
   return {
     id: p.id,

@@ -4,18 +4,21 @@
  * Every change and its event are written in one transaction.
  */
 import { OptimisticLockError, UniqueConstraintViolationException, type EntityManager } from "@mikro-orm/postgresql";
-import { Program, Shear, Shop, type ProgramEntity, type ShearEntity } from "../../entities";
+import { Program, Shear, type ProgramEntity, type ShearEntity } from "../../entities";
 import type { ProgramStatus } from "../../entities/Program";
-import { ApiError, conflict, invalidRequest, notFound, preconditionFailed, preconditionRequired } from "../errors";
+import { ApiError, conflict, notFound, preconditionFailed, preconditionRequired } from "../errors";
 
 import type { ProgramInputT, ProgramPatchT, ProgramT } from "../schemas/program";
 import type { CheckT } from "../schemas/check";
 import { checkProgram, type CheckResult } from "../shear";
 import { gradeByCode, gradeProfile, shearProfile } from "./catalog";
 import { announceRelease, recordEvent, type EventType } from "./events";
+import { existingReferences, gradesByCode, shearsNamed } from "./lookups";
+import { applyInput, duplicateReference, shearRefusal } from "./program-create";
 import { viewProgram } from "./program-view";
 
-export const DEFAULT_PRIORITY = 5;
+export { createProgram } from "./program-create";
+
 const CANCELLABLE: ProgramStatus[] = ["draft", "released", "claimed", "running"];
 
 export const etagOf = (revision: number) => `"${revision}"`;
@@ -38,12 +41,7 @@ export async function activeShear(
         name: { $ilike: key.replace(/[\\%_]/g, (c) => `\\${c}`) },
         archivedAt: null,
       });
-  if (!shear || shear.archivedAt) {
-    const message = shear ? "that shear is archived" : "no shear in this shop has that id or name";
-    throw invalidRequest(`The ${what}'s shear cannot be used: ${message}.`, [
-      { location: "body", pointer: "/shear", message },
-    ]);
-  }
+  if (!shear || shear.archivedAt) throw shearRefusal(what, Boolean(shear));
   return shear;
 }
 
@@ -63,63 +61,21 @@ export async function runCheck(
   return { shear, check };
 }
 
+/** The dry run: the same check as create, with the reads concurrent requests share (lib/services/lookups.ts). */
 export async function validateProgram(em: EntityManager, shopId: string, input: ProgramInputT): Promise<CheckT> {
-  return (await runCheck(em, shopId, input)).check as CheckT;
+  const key = input.shear.trim();
+  const [shearOf, grades] = await Promise.all([
+    shearsNamed(em, shopId, [key]),
+    gradesByCode(em, shopId, [input.grade]),
+  ]);
+  const shear = shearOf(key);
+  if (!shear || shear.archivedAt) throw shearRefusal("program", Boolean(shear));
+  const grade = grades.get(input.grade);
+  return checkProgram(input, { shear: shearProfile(shear), grade: grade ? gradeProfile(grade) : null }) as CheckT;
 }
 
 async function byReference(em: EntityManager, shopId: string, reference: string) {
-  return em.findOne(Program, { shop: shopId, reference }, { fields: ["id"], disableIdentityMap: true });
-}
-
-async function duplicateReference(em: EntityManager, shopId: string, reference: string): Promise<ApiError> {
-  const existing = await byReference(em, shopId, reference);
-  return conflict(`A program with reference "${reference}" already exists in this shop.`, {
-    existingId: existing?.id ?? null,
-  });
-}
-
-function applyInput(program: ProgramEntity, input: ProgramInputT, check: CheckResult) {
-  program.input = input;
-  program.reference = input.reference;
-  program.title = input.title ?? null;
-  program.gradeCode = input.grade;
-  program.units = input.units;
-  program.priority = input.priority ?? DEFAULT_PRIORITY;
-  program.dueAt = input.dueAt ? new Date(input.dueAt) : null;
-  program.metadata = input.metadata ?? {};
-  program.validation = check.validation;
-  program.check = check;
-}
-
-export async function createProgram(em: EntityManager, shopId: string, input: ProgramInputT): Promise<ProgramT> {
-  const [{ shear, check }, existing] = await Promise.all([
-    runCheck(em, shopId, input),
-    byReference(em, shopId, input.reference),
-  ]);
-  if (existing) throw await duplicateReference(em, shopId, input.reference);
-  try {
-    return await em.transactional(async (tx) => {
-      const program = tx.create(Program, {
-        shop: tx.getReference(Shop, shopId),
-        shear,
-        reference: input.reference,
-        gradeCode: input.grade,
-        units: input.units,
-        input,
-        validation: check.validation,
-        check,
-      });
-      applyInput(program, input, check);
-      await tx.flush();
-      const view = viewProgram(program);
-      await recordEvent(tx, shopId, "program.created", program.id, { program: view });
-      return view;
-    });
-  } catch (err) {
-    if (err instanceof UniqueConstraintViolationException)
-      throw await duplicateReference(em.fork(), shopId, input.reference);
-    throw err;
-  }
+  return (await existingReferences(em, shopId, [reference])).get(reference) ?? null;
 }
 
 export async function findProgram(em: EntityManager, shopId: string, id: string): Promise<ProgramEntity> {
@@ -159,8 +115,9 @@ export async function updateProgram(
   checkIfMatch(program, ifMatch);
   mustBe(program, ["draft"], "edited");
   const input = { ...(program.input as ProgramInputT), ...patch } as ProgramInputT;
-  if (patch.reference && patch.reference !== program.reference && (await byReference(em, shopId, patch.reference))) {
-    throw await duplicateReference(em, shopId, patch.reference);
+  if (patch.reference && patch.reference !== program.reference) {
+    const existingId = await byReference(em, shopId, patch.reference);
+    if (existingId) throw duplicateReference(patch.reference, existingId);
   }
   const { shear, check } = await runCheck(em, shopId, input);
   try {
@@ -181,7 +138,7 @@ export async function updateProgram(
     if (err instanceof OptimisticLockError)
       throw preconditionFailed("The program changed meanwhile; read it again and retry.");
     if (err instanceof UniqueConstraintViolationException)
-      throw await duplicateReference(em.fork(), shopId, input.reference);
+      throw duplicateReference(input.reference, await byReference(em.fork(), shopId, input.reference));
     throw err;
   }
 }

@@ -189,6 +189,23 @@ describe("programs", () => {
     expect(res.body.check.setup.gapCentre.value).toBeLessThan(res.body.check.setup.gapEnds.value);
   });
 
+  it("creates programs in a batch, all or nothing or each on its own", async () => {
+    const all = await api()
+      .post("/api/v1/programs/batch")
+      .set(auth())
+      .send({ programs: [exampleProgram(shop.shearId), exampleProgram(shop.shearId)] });
+    expectDocumented(programOps.createProgramBatch, all);
+    expect(all.status).toBe(201);
+    expect(all.body.data).toHaveLength(2);
+    const each = await api()
+      .post("/api/v1/programs/batch")
+      .set(auth())
+      .send({ atomic: false, programs: [exampleProgram(shop.shearId), { reference: "half a program" }] });
+    expectDocumented(programOps.createProgramBatch, each);
+    expect(each.status).toBe(207);
+    expect(each.body.data.map((d: { status: number }) => d.status)).toEqual([201, 422]);
+  });
+
   it("reads and lists programs", async () => {
     const read = await api().get(`/api/v1/programs/${id}`).set(auth());
     expectDocumented(programOps.getProgram, read);

@@ -36,6 +36,8 @@ function bodyFor(op: Operation): object | undefined {
     case "createProgram":
     case "validateProgram":
       return exampleProgram(mine.shearId);
+    case "createProgramBatch":
+      return { programs: [exampleProgram(mine.shearId)] };
     case "createPlan":
     case "previewPlan":
       return examplePlan(mine.shearId);
@@ -170,6 +172,20 @@ describe("key lifecycle", () => {
     const res = await request(BASE_URL).get("/api/v1/shears").set("Authorization", `Bearer ${secret}`);
     expect(res.status).toBe(401);
     expect(res.body.detail).toMatch(/revoked/);
+  });
+
+  it("refuses a revoked key on the next request even while requests with it are in flight", async () => {
+    const { key, secret } = await keyFor(mine.shopId, ["catalog:read"]);
+    const get = () =>
+      request(BASE_URL)
+        .get("/api/v1/shears")
+        .set("Authorization", `Bearer ${secret}`)
+        .then((r) => r.status);
+    const during = Array.from({ length: 24 }, get); // sent before the revocation: each may pass or not
+    await revokeKey((await testOrm()).em.fork(), mine.shopId, key.id);
+    const after = await Promise.all(Array.from({ length: 24 }, get));
+    expect(after).toEqual(Array(24).fill(401));
+    expect((await Promise.all(during)).every((s) => s === 200 || s === 401)).toBe(true);
   });
 
   it("refuses an expired key", async () => {

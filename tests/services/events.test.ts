@@ -1,8 +1,11 @@
+import pg from "pg";
 import { afterAll, describe, expect, it } from "vitest";
 import { Event, Program } from "../../entities";
 import { createProgram } from "../../lib/services/programs";
 import { viewProgram } from "../../lib/services/program-view";
-import { recordEvent } from "../../lib/services/events";
+import { OUTBOX_CHANNEL, recordEvent } from "../../lib/services/events";
+import { createBatch } from "../../lib/services/program-batch";
+import { DATABASE_URL } from "../support/env";
 import { closeTestOrm, createTestShop, exampleProgram, testOrm } from "../support/fixtures";
 
 afterAll(closeTestOrm);
@@ -24,5 +27,27 @@ describe("the outbox", () => {
     const fresh = (await testOrm()).em.fork();
     expect((await fresh.findOneOrFail(Program, { id })).title).toBe("Side panels, lot 4");
     expect((await fresh.find(Event, { subjectId: id })).map((e) => e.type)).toEqual(["program.created"]);
+  });
+
+  it("wakes the worker on the database that holds the change, once the change is committed", async () => {
+    const shop = await createTestShop("wake");
+    const listener = new pg.Client({ connectionString: DATABASE_URL });
+    await listener.connect();
+    try {
+      const heard: number[] = [];
+      listener.on("notification", (n) => n.channel === OUTBOX_CHANNEL && heard.push(Date.now()));
+      await listener.query(`listen ${OUTBOX_CHANNEL}`);
+      const em = (await testOrm()).em.fork();
+      const ids = [(await createProgram(em, shop.shopId, exampleProgram(shop.shearId))).id];
+      ids.push(...(await createBatch(em, shop.shopId, [exampleProgram(shop.shearId)])).map((p) => p.id));
+      const deadline = Date.now() + 2000;
+      while (!heard.length && Date.now() < deadline) await new Promise((r) => setTimeout(r, 10));
+      expect(heard.length).toBeGreaterThan(0);
+      // by the time anyone is woken, the programs and their events are there to be read
+      const fresh = (await testOrm()).em.fork();
+      expect(await fresh.count(Event, { subjectId: { $in: ids }, type: "program.created" })).toBe(2);
+    } finally {
+      await listener.end();
+    }
   });
 });

@@ -3,6 +3,9 @@ import { idParam, listOf, Pagination } from "../../schemas/common";
 import {
   CancelInput,
   Program,
+  ProgramBatch,
+  ProgramBatchInput,
+  ProgramBatchResults,
   ProgramInput,
   ProgramListQuery,
   ProgramPatch,
@@ -29,6 +32,25 @@ export const createProgram = defineOperation({
       description: "Created.",
       schema: Program,
       headers: { ...etag, Location: { description: "The program's URL.", schema: { type: "string" } } },
+    },
+  },
+});
+
+export const createProgramBatch = defineOperation({
+  operationId: "createProgramBatch",
+  method: "post",
+  path: "/programs/batch",
+  tags,
+  scope: "programs:write",
+  summary: "Create up to 100 cut programs at once",
+  description:
+    'Each program is read and checked exactly as `POST /programs` would, and every program the batch creates is written in one transaction with its `program.created` event. By default the batch is all or nothing: if any program cannot be created, nothing is stored and the answer is one problem (422 when a program is invalid, else 409) whose `errors` point into `/programs/{index}/…` and whose `failures` hold each program\'s own problem with its `index`. With `"atomic": false` every program that can be created is, and the answer is 207 with one result per program in order: the program, or the problem creating it alone would have answered. One `Idempotency-Key` covers the whole batch.',
+  body: ProgramBatchInput,
+  responses: {
+    201: { description: "Every program created (all or nothing).", schema: ProgramBatch },
+    207: {
+      description: "With `atomic: false`: each program's result or problem, in order.",
+      schema: ProgramBatchResults,
     },
   },
 });
@@ -114,6 +136,7 @@ export const cancelProgram = defineOperation({
 
 export const programOperations = [
   createProgram,
+  createProgramBatch,
   listPrograms,
   getProgram,
   updateProgram,

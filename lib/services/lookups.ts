@@ -1,0 +1,94 @@
+/**
+ * The reads every create and check makes (a shear by id, a grade by code, whether a reference
+ * is taken), shared by the requests that arrive together: one query answers all of them
+ * (lib/db/batched-lookup.ts), never a cache, so each answer is read after its request
+ * arrived. Inside a transaction they read through the transaction instead.
+ */
+import type { EntityManager } from "@mikro-orm/postgresql";
+import { Grade, Program, Shear, type GradeEntity, type ShearEntity } from "../../entities";
+import { batchedLookup } from "../db/batched-lookup";
+
+const SHEAR_ID = /^shr_[0-9A-Z]{26}$/;
+const SEP = "\u0000";
+const pairs = (keys: string[]) => keys.map((k) => k.split(SEP) as [string, string]);
+
+type Lookup<V> = (key: string) => Promise<V | undefined>;
+interface Lookups {
+  shear: Lookup<ShearEntity>;
+  grade: Lookup<GradeEntity>;
+  reference: Lookup<string>;
+}
+const shared = new WeakMap<object, Lookups>();
+
+/** The shared lookups of this database connection (each query in a fork of its own). */
+function lookups(em: EntityManager): Lookups {
+  const connection = em.getConnection();
+  let l = shared.get(connection);
+  if (l) return l;
+  l = {
+    shear: batchedLookup(async (keys) => {
+      const found = await em.fork().find(Shear, { $or: pairs(keys).map(([shop, id]) => ({ shop, id })) });
+      return new Map(found.map((s) => [`${s.shop.id}${SEP}${s.id}`, s]));
+    }),
+    grade: batchedLookup(async (keys) => {
+      const found = await em
+        .fork()
+        .find(Grade, { $or: pairs(keys).map(([shop, code]) => ({ shop, code, archivedAt: null })) });
+      return new Map(found.map((g) => [`${g.shop.id}${SEP}${g.code}`, g]));
+    }),
+    reference: batchedLookup(async (keys) => {
+      const found = await em
+        .fork()
+        .find(
+          Program,
+          { $or: pairs(keys).map(([shop, reference]) => ({ shop, reference })) },
+          { fields: ["id", "reference", "shop"], disableIdentityMap: true },
+        );
+      return new Map(found.map((p) => [`${p.shop.id}${SEP}${p.reference}`, p.id]));
+    }),
+  };
+  shared.set(connection, l);
+  return l;
+}
+
+async function each<V>(lookup: Lookup<V>, shopId: string, keys: string[]): Promise<Map<string, V>> {
+  const unique = [...new Set(keys)];
+  const values = await Promise.all(unique.map((k) => lookup(`${shopId}${SEP}${k}`)));
+  return new Map(unique.flatMap((k, i) => (values[i] === undefined ? [] : [[k, values[i]] as const])));
+}
+
+/** The shears these keys name, by id (archived ones too, to say so) or by name in any case (in use only). */
+export async function shearsNamed(em: EntityManager, shopId: string, keys: string[]) {
+  const ids = [...new Set(keys.filter((k) => SHEAR_ID.test(k)))];
+  const byName = keys.some((k) => !SHEAR_ID.test(k));
+  const [withIds, inUse] = await Promise.all([
+    !ids.length
+      ? new Map<string, ShearEntity>()
+      : em.isInTransaction()
+        ? em.find(Shear, { id: { $in: ids }, shop: shopId }).then((f) => new Map(f.map((s) => [s.id, s])))
+        : each(lookups(em).shear, shopId, ids),
+    byName ? em.find(Shear, { shop: shopId, archivedAt: null }) : [],
+  ]);
+  const found = new Map<string, ShearEntity>(withIds);
+  for (const s of inUse) found.set(s.name.trim().toLowerCase(), s);
+  return (key: string) => found.get(SHEAR_ID.test(key) ? key : key.toLowerCase()) ?? null;
+}
+
+/** The shop's grades in use with these codes: code → grade. */
+export async function gradesByCode(em: EntityManager, shopId: string, codes: string[]) {
+  if (!em.isInTransaction()) return each(lookups(em).grade, shopId, codes);
+  const found = await em.find(Grade, { shop: shopId, code: { $in: [...new Set(codes)] }, archivedAt: null });
+  return new Map(found.map((g) => [g.code, g]));
+}
+
+/** Existing programs of this shop with any of these references: reference → id. */
+export async function existingReferences(em: EntityManager, shopId: string, references: string[]) {
+  if (!references.length) return new Map<string, string>();
+  if (!em.isInTransaction()) return each(lookups(em).reference, shopId, references);
+  const rows = await em.find(
+    Program,
+    { shop: shopId, reference: { $in: [...new Set(references)] } },
+    { fields: ["id", "reference"], disableIdentityMap: true },
+  );
+  return new Map(rows.map((r) => [r.reference, r.id]));
+}

@@ -1,0 +1,204 @@
+/**
+ * Creating programs: the one path behind a single create, a batch, a cut-list upload and a
+ * plan's programs. Everything is checked first (the shears and grades a batch names are read
+ * once, its references looked up in one query), then the programs and their
+ * `program.created` events are written in one transaction, one insert for each table.
+ */
+import { UniqueConstraintViolationException, type EntityManager } from "@mikro-orm/postgresql";
+import { type ProgramEntity, type ShearEntity } from "../../entities";
+import { ApiError, conflict, invalidRequest } from "../errors";
+import type { ProgramInputT, ProgramT } from "../schemas/program";
+import { checkProgram, type CheckResult } from "../shear";
+import { gradeProfile, shearProfile } from "./catalog";
+import { newId } from "../ids";
+import { wakeAfterCommit } from "../db/wake";
+import { OUTBOX_CHANNEL } from "./events";
+import { existingReferences, gradesByCode, shearsNamed } from "./lookups";
+import { viewProgram, type ProgramRecord } from "./program-view";
+
+export const DEFAULT_PRIORITY = 5;
+
+/** A program that passed its checks and can be written. */
+export interface Checked {
+  input: ProgramInputT;
+  shear: ShearEntity;
+  check: CheckResult;
+}
+
+/** The refusal of a program whose shear cannot be used (422 pointing at `/shear`). */
+export function shearRefusal(what: string, archived: boolean): ApiError {
+  const message = archived ? "that shear is archived" : "no shear in this shop has that id or name";
+  return invalidRequest(`The ${what}'s shear cannot be used: ${message}.`, [
+    { location: "body", pointer: "/shear", message },
+  ]);
+}
+
+export function duplicateReference(reference: string, existingId: string | null): ApiError {
+  return conflict(`A program with reference "${reference}" already exists in this shop.`, { existingId });
+}
+
+export function applyInput(program: ProgramEntity, input: ProgramInputT, check: CheckResult) {
+  program.input = input;
+  program.reference = input.reference;
+  program.title = input.title ?? null;
+  program.gradeCode = input.grade;
+  program.units = input.units;
+  program.priority = input.priority ?? DEFAULT_PRIORITY;
+  program.dueAt = input.dueAt ? new Date(input.dueAt) : null;
+  program.metadata = input.metadata ?? {};
+  program.validation = check.validation;
+  program.check = check;
+}
+
+/**
+ * Check each program against its shear and grade as the catalog has them now, and against
+ * the shop's references. Each answer is the checked program or the refusal for it, in order.
+ */
+export async function checkPrograms(
+  em: EntityManager,
+  shopId: string,
+  inputs: ProgramInputT[],
+): Promise<(Checked | ApiError)[]> {
+  const [shearOf, gradeOf, existing] = await Promise.all([
+    shearsNamed(
+      em,
+      shopId,
+      inputs.map((i) => i.shear.trim()),
+    ),
+    gradesByCode(
+      em,
+      shopId,
+      inputs.map((i) => i.grade),
+    ),
+    existingReferences(
+      em,
+      shopId,
+      inputs.map((i) => i.reference),
+    ),
+  ]);
+  return inputs.map((input) => {
+    const shear = shearOf(input.shear.trim());
+    if (!shear || shear.archivedAt) return shearRefusal("program", Boolean(shear));
+    const existingId = existing.get(input.reference);
+    if (existingId) return duplicateReference(input.reference, existingId);
+    const grade = gradeOf.get(input.grade);
+    const check = checkProgram(input, { shear: shearProfile(shear), grade: grade ? gradeProfile(grade) : null });
+    // A shear named by name is stored by id: renaming it later changes nothing about the program.
+    return { input: { ...input, shear: shear.id }, shear, check };
+  });
+}
+
+/**
+ * What a new program sets (the other columns keep their defaults), as `jsonb_to_recordset`
+ * reads it: the row, its event's id and the program as the API shows it, which is also the
+ * event's body and holds the check, so the largest part is sent once.
+ */
+const ROW =
+  "id text, shop_id text, shear_id text, reference text, title text, revision int, input jsonb, grade_code text, units text, priority int, due_at timestamptz, validation text, metadata jsonb, created_at timestamptz, updated_at timestamptz, event_id text, view jsonb";
+const COLUMNS = ROW.split(", ")
+  .map((c) => c.split(" ")[0])
+  .slice(0, -2)
+  .join(", ");
+const INSERT = `with x as materialized (select * from jsonb_to_recordset(?::jsonb) as x(${ROW})),
+  p as (insert into programs (${COLUMNS}, "check") select ${COLUMNS}, view->'check' from x returning 1),
+  e as (insert into events (id, shop_id, type, subject_id, data, created_at)
+        select event_id, shop_id, 'program.created', id, jsonb_build_object('program', view), created_at from x returning 1)
+  select (select count(*) from p) as programs, (select count(*) from e) as events`;
+
+/**
+ * The programs and their events in one statement (one round trip; on its own, one
+ * transaction): both inserts happen, or, when a reference was taken meanwhile, neither.
+ */
+async function insert(em: EntityManager, shopId: string, checked: Checked[]): Promise<ProgramT[]> {
+  const now = new Date();
+  const programs = checked.map(({ input, shear, check }): ProgramRecord & { units: string } => ({
+    id: newId("program"),
+    status: "draft",
+    revision: 1,
+    reference: input.reference,
+    title: input.title ?? null,
+    input,
+    shear: { id: shear.id },
+    gradeCode: input.grade,
+    units: input.units,
+    priority: input.priority ?? DEFAULT_PRIORITY,
+    dueAt: input.dueAt ? new Date(input.dueAt) : null,
+    metadata: input.metadata ?? {},
+    validation: check.validation,
+    check,
+    acknowledged: [],
+    releasedAt: null,
+    cancelledAt: null,
+    claimedBy: null,
+    claimedAt: null,
+    leaseExpiresAt: null,
+    leaseExpiries: 0,
+    startedAt: null,
+    finishedAt: null,
+    progress: null,
+    outcome: null,
+    createdAt: now,
+    updatedAt: now,
+  }));
+  const views = programs.map(viewProgram);
+  // the event's body is `{ program }` (EventData<"program.created">), built in the statement from `view`
+  const rows = programs.map((p, i) => ({
+    id: p.id,
+    shop_id: shopId,
+    shear_id: p.shear.id,
+    reference: p.reference,
+    title: p.title,
+    revision: p.revision,
+    input: p.input,
+    grade_code: p.gradeCode,
+    units: p.units,
+    priority: p.priority,
+    due_at: p.dueAt,
+    validation: p.validation,
+    metadata: p.metadata,
+    created_at: now,
+    updated_at: now,
+    event_id: newId("event"),
+    view: views[i],
+  }));
+  const inTransaction = em.isInTransaction();
+  try {
+    // Bound parameters, not MikroORM's `execute`, which writes every value into the SQL text: a batch's JSON runs to megabytes.
+    const query = em
+      .getConnection()
+      .getKnex()
+      .raw(inTransaction ? `${INSERT}, pg_notify('${OUTBOX_CHANNEL}', '')` : INSERT, [JSON.stringify(rows)]);
+    const transaction = em.getTransactionContext();
+    if (transaction) query.transacting(transaction);
+    await query;
+  } catch (err) {
+    if ((err as { code?: string }).code === "23505" && !(err instanceof UniqueConstraintViolationException))
+      throw new UniqueConstraintViolationException(err as Error);
+    throw err;
+  }
+  // In the caller's transaction the NOTIFY above goes out at its commit; on its own the statement has committed.
+  if (!inTransaction) wakeAfterCommit(em, OUTBOX_CHANNEL);
+  return views;
+}
+
+/**
+ * Write checked programs with their events: in the caller's transaction when there is one,
+ * else atomically on their own. A reference taken meanwhile by a concurrent writer
+ * surfaces as `UniqueConstraintViolationException`, for the caller to answer.
+ */
+export async function storePrograms(em: EntityManager, shopId: string, checked: Checked[]): Promise<ProgramT[]> {
+  return checked.length ? insert(em, shopId, checked) : [];
+}
+
+/** Create one program (a draft, with its check and its `program.created` event). */
+export async function createProgram(em: EntityManager, shopId: string, input: ProgramInputT): Promise<ProgramT> {
+  const [checked] = await checkPrograms(em, shopId, [input]);
+  if (checked instanceof ApiError) throw checked;
+  try {
+    return (await storePrograms(em, shopId, [checked]))[0];
+  } catch (err) {
+    if (!(err instanceof UniqueConstraintViolationException)) throw err;
+    const existing = await existingReferences(em.fork(), shopId, [input.reference]).catch(() => new Map());
+    throw duplicateReference(input.reference, existing.get(input.reference) ?? null);
+  }
+}

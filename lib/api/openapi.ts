@@ -233,6 +233,7 @@ export function buildOpenApi(operations: Operation[], extra?: (registry: OpenAPI
           "Endpoints that hear about every change, signed per Standard Webhooks; the events and each delivery attempt.",
       },
       { name: "Catalog", description: "Shears, grades, gauges and setup recommendations." },
+      { name: "Settings", description: "The shop's settings: how work that names no shear is given one." },
       { name: "Meta", description: "Health, the OpenAPI document and the JSON Schema." },
     ],
   });

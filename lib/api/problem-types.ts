@@ -43,6 +43,12 @@ export const PROBLEM_TYPES: Record<string, { status: number; title: string; expl
     title: "Acknowledge the warnings to release",
     explanation: "The program's check has warnings. Read them, then release again with their codes in `acknowledge`.",
   },
+  "no-shear-can-cut": {
+    status: 422,
+    title: "No shear of the shop can cut this",
+    explanation:
+      "The program or plan named no shear, and none of the shop's active shears can cut it. `shears` lists each one with its reason (its check's errors, or the planner's limits); name a shear to see its full check, or change the program.",
+  },
   "precondition-failed": {
     status: 412,
     title: "The resource changed since you read it",

@@ -33,7 +33,7 @@ export interface OrderOptions {
 export interface Order {
   reference?: string;
   title?: string;
-  shear: string;
+  shear?: string;
   grade: string;
   thickness: { value: number } | { gauge: number };
   units: LengthUnit;

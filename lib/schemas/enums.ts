@@ -27,6 +27,13 @@ export const PLAN_OBJECTIVE_LABELS: Record<(typeof PLAN_OBJECTIVES)[number], str
   fewest_strokes: "Fewest strokes and turns",
 };
 
+/**
+ * How a program or plan that names no shear is given one: the shear that can cut it with the least
+ * of its capacity used, or the one with the fewest released programs waiting.
+ */
+export const ROUTING_RULES = ["least_capacity", "shortest_queue"] as const;
+export type RoutingRule = (typeof ROUTING_RULES)[number];
+
 /** Every event type Shearwire emits. */
 export const EVENT_TYPES = [
   "program.created",
@@ -74,5 +81,6 @@ export const SCOPES = [
   "catalog:write",
   "events:read",
   "webhooks:write",
+  "settings:write",
 ] as const;
 export type Scope = (typeof SCOPES)[number];

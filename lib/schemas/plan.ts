@@ -4,6 +4,7 @@
  * types the service and documents the API.
  */
 import { jobFields, Program, Thickness } from "./program";
+import { Routing } from "./settings";
 import { PLAN_FAILURES, PLAN_STATUSES, PlanResult, PlanSummaryFigures } from "./plan-result";
 import { PLAN_OBJECTIVES } from "./enums";
 import { z } from "./zod";
@@ -134,6 +135,7 @@ const PlanCommon = {
   reference: z.string().nullable(),
   title: z.string().nullable(),
   shear: z.string(),
+  routing: Routing.nullable(),
   grade: z.string(),
   thickness: Thickness,
   units: z.enum(["in", "mm"]),
@@ -188,6 +190,7 @@ export const PlanPreview = PlanResult.extend({
   reference: z.string().nullable(),
   title: z.string().nullable(),
   shear: z.string(),
+  routing: Routing.nullable(),
   grade: z.string(),
   thickness: Thickness,
   units: z.enum(["in", "mm"]),

@@ -84,6 +84,7 @@ function common(p: PlanEntity) {
     reference: p.reference ?? null,
     title: p.title ?? null,
     shear: p.shear.id,
+    routing: p.routing ?? null,
     grade: input.grade,
     thickness: input.thickness,
     units: input.units,

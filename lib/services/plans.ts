@@ -20,6 +20,8 @@ import { ProgramInput, type ProgramInputT, type ProgramT } from "../schemas/prog
 import { gradeByCode, gradeProfile, shearProfile } from "./catalog";
 import { recordEvent } from "./events";
 import { activeShear, createProgram } from "./programs";
+import { routePlan } from "./routing";
+import type { RoutingT } from "../schemas/settings";
 import { refusal, planResultOf, viewPlan, viewPlanSummary } from "./plan-views";
 
 /** How long a request waits for Redis to take a plan's job before leaving it to the sweeper. */
@@ -38,9 +40,10 @@ async function checkedOrder(
   em: EntityManager,
   shopId: string,
   input: PlanInputT,
-): Promise<{ shearId: string; context: PlanContext }> {
+): Promise<{ shearId: string; context: PlanContext; routing: RoutingT | null }> {
+  const routed = input.shear === undefined ? await routePlan(em, shopId, input) : null;
   const [shear, grade] = await Promise.all([
-    activeShear(em, shopId, input.shear, "plan"),
+    routed?.shear ?? activeShear(em, shopId, input.shear ?? "", "plan"),
     gradeByCode(em, shopId, input.grade),
   ]);
   const context = { shear: shearProfile(shear), grade: grade ? gradeProfile(grade) : null };
@@ -51,7 +54,7 @@ async function checkedOrder(
     if (err instanceof OrderRefused) throw refusal(err);
     throw err;
   }
-  return { shearId: shear.id, context };
+  return { shearId: shear.id, context, routing: routed?.routing ?? null };
 }
 
 /**
@@ -64,10 +67,11 @@ export async function createPlan(
   input: PlanInputT,
   opts: { queue?: boolean } = {},
 ): Promise<PlanT> {
-  const { shearId } = await checkedOrder(em, shopId, input);
+  const { shearId, routing } = await checkedOrder(em, shopId, input);
   const plan = em.create(Plan, {
     shop: em.getReference(Shop, shopId),
     shear: shearId,
+    routing,
     reference: input.reference ?? null,
     title: input.title ?? null,
     status: "queued",
@@ -150,7 +154,7 @@ export async function cancelPlan(em: EntityManager, shopId: string, id: string):
 
 /** Plan without storing anything: a worker computes it while the caller waits (under the same limits). */
 export async function previewPlan(em: EntityManager, shopId: string, input: PlanInputT): Promise<PlanPreviewT> {
-  const { context } = await checkedOrder(em, shopId, input);
+  const { shearId, context, routing } = await checkedOrder(em, shopId, input);
   let planned: PlannedOrder;
   try {
     planned = await previewOnWorker(input, context);
@@ -172,7 +176,8 @@ export async function previewPlan(em: EntityManager, shopId: string, input: Plan
     ...planResultOf(input, planned),
     reference: input.reference ?? null,
     title: input.title ?? null,
-    shear: input.shear,
+    shear: shearId,
+    routing,
     grade: input.grade,
     thickness: input.thickness,
     units: input.units,

@@ -12,6 +12,7 @@ export function viewProgram(p: ProgramEntity): ProgramT {
     reference: p.reference,
     title: p.title ?? null,
     shear: p.shear.id,
+    routing: p.routing ?? null,
     grade: p.gradeCode,
     thickness: input.thickness,
     units: input.units,

@@ -8,12 +8,14 @@ import { Program, Shear, Shop, type ProgramEntity, type ShearEntity } from "../.
 import type { ProgramStatus } from "../../entities/Program";
 import { ApiError, conflict, invalidRequest, notFound, preconditionFailed, preconditionRequired } from "../errors";
 
-import type { ProgramInputT, ProgramPatchT, ProgramT } from "../schemas/program";
+import type { ProgramInputT, ProgramPatchT, ProgramT, ProgramValidationT } from "../schemas/program";
+import type { RoutingT } from "../schemas/settings";
 import type { CheckT } from "../schemas/check";
 import { checkProgram, type CheckResult } from "../shear";
 import { gradeByCode, gradeProfile, shearProfile } from "./catalog";
 import { announceRelease, recordEvent, type EventType } from "./events";
 import { viewProgram } from "./program-view";
+import { routeProgram } from "./routing";
 
 export const DEFAULT_PRIORITY = 5;
 const CANCELLABLE: ProgramStatus[] = ["draft", "released", "claimed", "running"];
@@ -47,12 +49,21 @@ export async function activeShear(
   return shear;
 }
 
-/** Run the shear core on a program with the shop's current catalog. */
+/**
+ * Run the shear core on a program with the shop's current catalog. A program that names no shear
+ * is routed (lib/services/routing.ts) and from then on names the one chosen.
+ */
 export async function runCheck(
   em: EntityManager,
   shopId: string,
   input: ProgramInputT,
-): Promise<{ shear: ShearEntity; check: CheckResult }> {
+  opts: { allowNone?: boolean } = {},
+): Promise<{ shear: ShearEntity; check: CheckResult; routing: RoutingT | null }> {
+  if (input.shear === undefined) {
+    const routed = await routeProgram(em, shopId, input, opts);
+    input.shear = routed.shear.id;
+    return routed;
+  }
   const [shear, grade] = await Promise.all([
     activeShear(em, shopId, input.shear),
     gradeByCode(em, shopId, input.grade),
@@ -60,11 +71,16 @@ export async function runCheck(
   const check = checkProgram(input, { shear: shearProfile(shear), grade: grade ? gradeProfile(grade) : null });
   // A shear named by name is stored by id: renaming it later changes nothing about the program.
   input.shear = shear.id;
-  return { shear, check };
+  return { shear, check, routing: null };
 }
 
-export async function validateProgram(em: EntityManager, shopId: string, input: ProgramInputT): Promise<CheckT> {
-  return (await runCheck(em, shopId, input)).check as CheckT;
+export async function validateProgram(
+  em: EntityManager,
+  shopId: string,
+  input: ProgramInputT,
+): Promise<ProgramValidationT> {
+  const { check, routing } = await runCheck(em, shopId, input, { allowNone: true });
+  return { ...(check as CheckT), routing };
 }
 
 async function byReference(em: EntityManager, shopId: string, reference: string) {
@@ -92,7 +108,7 @@ function applyInput(program: ProgramEntity, input: ProgramInputT, check: CheckRe
 }
 
 export async function createProgram(em: EntityManager, shopId: string, input: ProgramInputT): Promise<ProgramT> {
-  const [{ shear, check }, existing] = await Promise.all([
+  const [{ shear, check, routing }, existing] = await Promise.all([
     runCheck(em, shopId, input),
     byReference(em, shopId, input.reference),
   ]);
@@ -108,6 +124,7 @@ export async function createProgram(em: EntityManager, shopId: string, input: Pr
         input,
         validation: check.validation,
         check,
+        routing,
       });
       applyInput(program, input, check);
       await tx.flush();

@@ -11,6 +11,7 @@ import * as gatewayOps from "../../lib/api/operations/gateway";
 import * as programOps from "../../lib/api/operations/programs";
 import * as planOps from "../../lib/api/operations/plans";
 import * as webhookOps from "../../lib/api/operations/webhooks";
+import * as settingsOps from "../../lib/api/operations/settings";
 import { startReceiver, type Receiver } from "../support/receiver";
 import { BASE_URL } from "../support/env";
 import {
@@ -50,8 +51,9 @@ describe("meta", () => {
     expectDocumented(metaOps.getCutProgramSchema, res);
     expect(res.body.$schema).toBe("https://json-schema.org/draft/2020-12/schema");
     expect(res.body.required).toEqual(
-      expect.arrayContaining(["reference", "shear", "grade", "thickness", "units", "sheet", "cuts"]),
+      expect.arrayContaining(["reference", "grade", "thickness", "units", "sheet", "cuts"]),
     );
+    expect(res.body.required).not.toContain("shear"); // left out, the shop's shears are checked and one chosen
   });
 });
 
@@ -367,6 +369,17 @@ describe("webhooks", () => {
     const res = await api().delete(`/api/v1/webhook-endpoints/${endpointId}`).set(auth());
     expectDocumented(webhookOps.deleteEndpoint, res);
     expect(res.status).toBe(204);
+  });
+});
+
+describe("settings", () => {
+  it("reads and changes the shop's settings", async () => {
+    const read = await api().get("/api/v1/settings").set(auth());
+    expectDocumented(settingsOps.getSettings, read);
+    expect(read.body).toEqual({ routingRule: "least_capacity" });
+    const changed = await api().patch("/api/v1/settings").set(auth()).send({ routingRule: "least_capacity" });
+    expectDocumented(settingsOps.updateSettings, changed);
+    expect(changed.status).toBe(200);
   });
 });
 

@@ -177,12 +177,11 @@ function caseFor(op: Operation): fc.Arbitrary<Case> {
       fc.record({ kind: fc.constant("whole" as const), value: hostileValue }),
     );
   }
-  if (op.query) {
-    const names = [...Object.keys(op.query.shape), "cursor", "unknown\u0000"];
-    options.push(
-      fc.record({ kind: fc.constant("query" as const), name: fc.constantFrom(...names), value: hostileValue }),
-    );
-  }
+  // every operation gets a query string: one that takes none must ignore it or refuse it cleanly
+  const names = [...Object.keys(op.query?.shape ?? {}), "cursor", "unknown\u0000"];
+  options.push(
+    fc.record({ kind: fc.constant("query" as const), name: fc.constantFrom(...names), value: hostileValue }),
+  );
   if (op.params) options.push(fc.record({ kind: fc.constant("id" as const), value: fc.constantFrom(...HOSTILE_IDS) }));
   return fc.oneof(...options);
 }
@@ -243,6 +242,7 @@ beforeAll(async () => {
         "catalog:write",
         "events:read",
         "webhooks:write",
+        "settings:write",
       ],
       { rateLimitPerMin: 1_000_000 },
     )

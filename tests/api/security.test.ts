@@ -79,6 +79,8 @@ function bodyFor(op: Operation): object | undefined {
       return { url: "http://127.0.0.1:9/hook" };
     case "updateWebhookEndpoint":
       return { description: "changed" };
+    case "updateSettings":
+      return { routingRule: "least_capacity" };
     case "resendEvent":
       return { endpoint: foreign.whe };
     default:

@@ -5,6 +5,7 @@ import { gatewayOperations } from "./gateway";
 import { metaOperations } from "./meta";
 import { planOperations } from "./plans";
 import { programOperations } from "./programs";
+import { settingsOperations } from "./settings";
 import { webhookOperations } from "./webhooks";
 
 export const operations: Operation[] = [
@@ -13,5 +14,6 @@ export const operations: Operation[] = [
   ...gatewayOperations,
   ...webhookOperations,
   ...catalogOperations,
+  ...settingsOperations,
   ...metaOperations,
 ] as Operation[];

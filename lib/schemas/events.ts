@@ -9,6 +9,7 @@ import { PROGRAM_STATUSES } from "./enums";
 import { FAILURE_REASONS } from "./gateway";
 import { PlanSummary } from "./plan";
 import { Program } from "./program";
+import { StockItem, StockReservation } from "./stock";
 import { z } from "./zod";
 
 const from = z.enum(PROGRAM_STATUSES).openapi({ description: "The state the program was in before" });
@@ -57,6 +58,19 @@ export const EVENT_DATA = {
   "plan.completed": z.object({ plan: PlanSummary }),
   "plan.failed": z.object({ plan: PlanSummary }),
   "plan.cancelled": z.object({ plan: PlanSummary }),
+  "stock.created": z.object({ item: StockItem }),
+  "stock.adjusted": z.object({
+    item: StockItem,
+    delta: z.number().int().openapi({ description: "Sheets added (positive) or taken away (negative)" }),
+    reason: z.string(),
+  }),
+  "stock.archived": z.object({ item: StockItem }),
+  "stock.reserved": z.object({ item: StockItem, reservation: StockReservation }),
+  "stock.released": z.object({
+    item: StockItem,
+    reservation: StockReservation,
+    reason: z.string().openapi({ description: "Why the sheets went back" }),
+  }),
   "endpoint.test": z.object({ endpoint: z.object({ id: z.string(), url: z.string() }), message: z.string() }),
 } as const satisfies Record<EventType, z.ZodType>;
 

@@ -19,8 +19,8 @@ import type { PlanInputT, PlanPreviewT, PlanT, WriteProgramsInputT } from "../sc
 import { ProgramInput, type ProgramInputT, type ProgramT } from "../schemas/program";
 import { gradeByCode, gradeProfile, shearProfile } from "./catalog";
 import { recordEvent } from "./events";
-import { activeShear, createProgram } from "./programs";
-import { routePlan } from "./routing";
+import { createProgram } from "./programs";
+import { activeShear, routePlan } from "./routing";
 import type { RoutingT } from "../schemas/settings";
 import { refusal, planResultOf, viewPlan, viewPlanSummary } from "./plan-views";
 

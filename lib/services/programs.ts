@@ -4,9 +4,9 @@
  * Every change and its event are written in one transaction.
  */
 import { OptimisticLockError, UniqueConstraintViolationException, type EntityManager } from "@mikro-orm/postgresql";
-import { Program, Shear, Shop, type ProgramEntity, type ShearEntity } from "../../entities";
+import { Program, Shop, type ProgramEntity, type ShearEntity } from "../../entities";
 import type { ProgramStatus } from "../../entities/Program";
-import { ApiError, conflict, invalidRequest, notFound, preconditionFailed, preconditionRequired } from "../errors";
+import { ApiError, conflict, notFound, preconditionFailed, preconditionRequired } from "../errors";
 
 import type { ProgramInputT, ProgramPatchT, ProgramT, ProgramValidationT } from "../schemas/program";
 import type { RoutingT } from "../schemas/settings";
@@ -15,39 +15,13 @@ import { checkProgram, type CheckResult } from "../shear";
 import { gradeByCode, gradeProfile, shearProfile } from "./catalog";
 import { announceRelease, recordEvent, type EventType } from "./events";
 import { viewProgram } from "./program-view";
-import { routeProgram } from "./routing";
+import { activeShear, routeProgram } from "./routing";
+import { releaseForProgram } from "./stock";
 
 export const DEFAULT_PRIORITY = 5;
 const CANCELLABLE: ProgramStatus[] = ["draft", "released", "claimed", "running"];
 
 export const etagOf = (revision: number) => `"${revision}"`;
-
-/**
- * The shear a program or plan names (by id, or by name as the catalog has it, any case), if
- * it is this shop's and not archived; else 422 pointing at `/shear`.
- */
-export async function activeShear(
-  em: EntityManager,
-  shopId: string,
-  idOrName: string,
-  what = "program",
-): Promise<ShearEntity> {
-  const key = idOrName.trim();
-  const shear = /^shr_[0-9A-Z]{26}$/.test(key)
-    ? await em.findOne(Shear, { id: key, shop: shopId })
-    : await em.findOne(Shear, {
-        shop: shopId,
-        name: { $ilike: key.replace(/[\\%_]/g, (c) => `\\${c}`) },
-        archivedAt: null,
-      });
-  if (!shear || shear.archivedAt) {
-    const message = shear ? "that shear is archived" : "no shear in this shop has that id or name";
-    throw invalidRequest(`The ${what}'s shear cannot be used: ${message}.`, [
-      { location: "body", pointer: "/shear", message },
-    ]);
-  }
-  return shear;
-}
 
 /**
  * Run the shear core on a program with the shop's current catalog. A program that names no shear
@@ -262,6 +236,7 @@ export async function cancelProgram(em: EntityManager, shopId: string, id: strin
       p.leaseExpiresAt = null;
     },
     { reason: reason ?? null },
+    (tx, p) => releaseForProgram(tx, shopId, p.id),
   );
 }
 
@@ -278,6 +253,8 @@ export async function transition(
   type: EventType,
   change: (p: ProgramEntity) => void,
   extra: Record<string, unknown> = {},
+  /** more to do in the same transaction (a cancelled program's stock goes back) */
+  also?: (tx: EntityManager, p: ProgramEntity) => Promise<unknown>,
 ): Promise<ProgramT> {
   const from = program.status;
   try {
@@ -293,6 +270,7 @@ export async function transition(
       if (to === "released") await announceRelease(tx, p.shear.id);
       const view = viewProgram(p);
       await recordEvent(tx, shopId, type, p.id, { program: view, from, ...extra });
+      await also?.(tx, p);
       return view;
     });
   } catch (err) {

@@ -6,7 +6,7 @@
  */
 import type { EntityManager } from "@mikro-orm/postgresql";
 import { Shear, Shop, type ShearEntity } from "../../entities";
-import { ApiError } from "../errors";
+import { ApiError, invalidRequest } from "../errors";
 import { checkOrderLimits, OrderRefused } from "../planner/order-limits";
 import type { RoutingRule } from "../schemas/enums";
 import type { PlanInputT } from "../schemas/plan";
@@ -17,6 +17,33 @@ import { gradeByCode, gradeProfile, shearProfile } from "./catalog";
 
 /** The reasons shown for a shear that cannot cut: its first few errors. */
 const REASONS_SHOWN = 3;
+
+/**
+ * The shear a program or plan names (by id, or by name as the catalog has it, any case), if
+ * it is this shop's and not archived; else 422 pointing at `/shear`.
+ */
+export async function activeShear(
+  em: EntityManager,
+  shopId: string,
+  idOrName: string,
+  what = "program",
+): Promise<ShearEntity> {
+  const key = idOrName.trim();
+  const shear = /^shr_[0-9A-Z]{26}$/.test(key)
+    ? await em.findOne(Shear, { id: key, shop: shopId })
+    : await em.findOne(Shear, {
+        shop: shopId,
+        name: { $ilike: key.replace(/[\\%_]/g, (c) => `\\${c}`) },
+        archivedAt: null,
+      });
+  if (!shear || shear.archivedAt) {
+    const message = shear ? "that shear is archived" : "no shear in this shop has that id or name";
+    throw invalidRequest(`The ${what}'s shear cannot be used: ${message}.`, [
+      { location: "body", pointer: "/shear", message },
+    ]);
+  }
+  return shear;
+}
 
 /**
  * The share of the shear's capacity a check uses, in percent: the largest of the force against its

@@ -78,6 +78,26 @@ describe("webhook payloads", () => {
     await api().post(`/api/v1/shears/${shop.shearId}/claims`).set(auth).send({}).expect(200);
     await (await testOrm()).em.fork().nativeUpdate(Program, { id: d }, { leaseExpiresAt: new Date(Date.now() - 1000) });
 
+    // stock: created, adjusted, reserved for a program and released when it is cancelled, archived
+    const stock = await api()
+      .post("/api/v1/stock")
+      .set(auth)
+      .send({ kind: "sheet", grade: "A36", thicknessMm: 3.42, lengthMm: 3048, widthMm: 1219.2, quantity: 4 })
+      .expect(201);
+    await api()
+      .post(`/api/v1/stock/${stock.body.id}/adjust`)
+      .set(auth)
+      .send({ delta: -1, reason: "dented" })
+      .expect(200);
+    const e = (await api().post("/api/v1/programs").set(auth).send(exampleProgram(shop.shearId)).expect(201)).body.id;
+    await api()
+      .post(`/api/v1/stock/${stock.body.id}/reservations`)
+      .set(auth)
+      .send({ quantity: 2, program: e })
+      .expect(201);
+    await api().post(`/api/v1/programs/${e}/cancel`).set(auth).send({}).expect(200);
+    await api().post(`/api/v1/stock/${stock.body.id}/archive`).set(auth).expect(200);
+
     // plan.completed and plan.cancelled through the API
     await api().post("/api/v1/plans").set(auth).set("Prefer", "wait=10").send(examplePlan(shop.shearId)).expect(201);
     const long = await api().post("/api/v1/plans").set(auth).send(largestOrder(shop.shearId, 11)).expect(202);

@@ -6,11 +6,13 @@ import { metaOperations } from "./meta";
 import { planOperations } from "./plans";
 import { programOperations } from "./programs";
 import { settingsOperations } from "./settings";
+import { stockOperations } from "./stock";
 import { webhookOperations } from "./webhooks";
 
 export const operations: Operation[] = [
   ...programOperations,
   ...planOperations,
+  ...stockOperations,
   ...gatewayOperations,
   ...webhookOperations,
   ...catalogOperations,

@@ -1,5 +1,5 @@
 import { defineEntity, p } from "@mikro-orm/core";
-import type { PlanInputT } from "../lib/schemas/plan";
+import type { PlanOrderT } from "../lib/schemas/plan";
 import type { PlanResultT } from "../lib/schemas/plan-result";
 import { newId } from "../lib/ids";
 import type { RoutingT } from "../lib/schemas/settings";
@@ -28,7 +28,7 @@ export const Plan = defineEntity({
     title: p.text().nullable(),
     /** queued | running | complete | failed | cancelled */
     status: p.string(),
-    input: p.json<PlanInputT>(),
+    input: p.json<PlanOrderT>(),
     /** the planner's answer, once complete */
     // Plans stored before the planner stated bounds lack them: read through viewPlan (plan-views.ts).
     result: p.json<PlanResultT>().nullable(),

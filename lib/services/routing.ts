@@ -9,7 +9,7 @@ import { Shear, Shop, type ShearEntity } from "../../entities";
 import { ApiError, invalidRequest } from "../errors";
 import { checkOrderLimits, OrderRefused } from "../planner/order-limits";
 import type { RoutingRule } from "../schemas/enums";
-import type { PlanInputT } from "../schemas/plan";
+import type { PlanOrderT } from "../schemas/plan";
 import type { ProgramInputT } from "../schemas/program";
 import type { RoutingT } from "../schemas/settings";
 import { checkProgram, lengthToMm, roundTo, type CheckResult, type LengthUnit } from "../shear";
@@ -207,7 +207,7 @@ export async function routeProgram(
  * The program a plan's sheets start with on a shear: its largest sheet ripped once at the plan's
  * narrowest blank side, which checks the force, thickness and length of cut and the backgauge's reach.
  */
-function planProbe(input: PlanInputT): ProgramInputT {
+function planProbe(input: PlanOrderT): ProgramInputT {
   const sheet = input.stock.reduce((a, b) => (b.length * b.width > a.length * a.width ? b : a));
   const narrowest = Math.min(...input.blanks.map((b) => Math.min(b.length, b.width)));
   return {
@@ -224,7 +224,7 @@ function planProbe(input: PlanInputT): ProgramInputT {
 export async function routePlan(
   em: EntityManager,
   shopId: string,
-  input: PlanInputT,
+  input: PlanOrderT,
 ): Promise<{ shear: ShearEntity; routing: RoutingT }> {
   const probe = planProbe(input);
   const { ranked, routing } = await rankShears(em, shopId, input.grade, (shear, grade) => {

@@ -15,6 +15,8 @@ export const Shop = defineEntity({
     slug: p.string().unique(),
     /** how a program or plan that names no shear is given one */
     routingRule: p.enum([...ROUTING_RULES]).default("least_capacity"),
+    /** offcuts at least this long both ways are booked in as remnants when a run completes; null = none */
+    remnantMinMm: p.float().columnType("double precision").nullable(),
     createdAt: p.datetime().onCreate(() => new Date()),
     updatedAt: p
       .datetime()

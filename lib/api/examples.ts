@@ -23,6 +23,7 @@ export const EXAMPLE_IDS = {
   gatewayKey: "key_01JDEMOBAY1GATEWAY0000000",
   stockItem: "stk_01JDEMORACKB2A36SHEETS0000",
   reservation: "srv_01JDEMOSIDEPANELS40000000",
+  remnant: "stk_01JDEMOREMNANTSIDEPANELS00",
 } as const;
 
 /** An invented rack of 3 mm A36 sheets, for the stock events' examples. */
@@ -46,6 +47,11 @@ function exampleStockItem(reserved: number): StockItemT {
     updatedAt: AT,
   };
 }
+
+const exampleRemnant = (): StockItemT => ({
+  ...exampleStockItem(0),
+  ...{ id: EXAMPLE_IDS.remnant, kind: "remnant", lengthMm: 2500, widthMm: 304.8, quantity: 2, available: 2 },
+});
 
 function exampleReservation(status: StockReservationT["status"]): StockReservationT {
   return {
@@ -270,6 +276,16 @@ export function exampleWebhook(type: EventType): { type: EventType; timestamp: s
       item: exampleStockItem(0),
       reservation: exampleReservation("released"),
       reason: `program ${EXAMPLE_IDS.program} was cancelled`,
+    },
+    "stock.consumed": {
+      item: { ...exampleStockItem(0), quantity: 10 },
+      reservation: exampleReservation("consumed"),
+      program: EXAMPLE_IDS.program,
+      sheets: 2,
+    },
+    "stock.remnant_added": {
+      item: { ...exampleRemnant(), sourceProgram: EXAMPLE_IDS.program },
+      program: EXAMPLE_IDS.program,
     },
     "endpoint.test": {
       endpoint: { id: EXAMPLE_IDS.endpoint, url: "https://erp.example/hooks/shearwire" },

@@ -60,6 +60,8 @@ export const EVENT_TYPES = [
   "stock.archived",
   "stock.reserved",
   "stock.released",
+  "stock.consumed",
+  "stock.remnant_added",
   "endpoint.test",
 ] as const;
 export type EventType = (typeof EVENT_TYPES)[number];
@@ -84,6 +86,8 @@ export const EVENT_TYPE_WORDS: Record<EventType, string> = {
   "stock.archived": "A stock item was archived: no longer offered to plans or reservations.",
   "stock.reserved": "Sheets of a stock item were reserved, for a program or by hand.",
   "stock.released": "A reservation was given back (its program was cancelled, or it was released by hand).",
+  "stock.consumed": "A run used reserved sheets: they are booked out of stock.",
+  "stock.remnant_added": "A run left an offcut at least the shop's remnant size: it is booked in as a remnant.",
   "endpoint.test": "A test event, sent only to the endpoint it was asked for.",
 };
 

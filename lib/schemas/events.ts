@@ -51,6 +51,7 @@ export const EVENT_DATA = {
       message: z.string().optional(),
       goodPieces: z.number().int().optional(),
       scrappedPieces: z.number().int().optional(),
+      sheetsUsed: z.number().int().optional(),
     }),
   }),
   "program.cancelled": z.object({ program: Program, from, reason: z.string().nullable() }),
@@ -70,6 +71,16 @@ export const EVENT_DATA = {
     item: StockItem,
     reservation: StockReservation,
     reason: z.string().openapi({ description: "Why the sheets went back" }),
+  }),
+  "stock.consumed": z.object({
+    item: StockItem,
+    reservation: StockReservation,
+    program: z.string().openapi({ description: "The program whose run used the sheets" }),
+    sheets: z.number().int().openapi({ description: "Sheets booked out of stock" }),
+  }),
+  "stock.remnant_added": z.object({
+    item: StockItem,
+    program: z.string().openapi({ description: "The program whose run left the offcut" }),
   }),
   "endpoint.test": z.object({ endpoint: z.object({ id: z.string(), url: z.string() }), message: z.string() }),
 } as const satisfies Record<EventType, z.ZodType>;

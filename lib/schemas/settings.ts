@@ -10,10 +10,15 @@ const routingRule = z.enum(ROUTING_RULES).openapi({
     "How a program or plan that names no shear is given one: `least_capacity` (default) picks the shear that can cut it with the least of its capacity used (the largest of force, thickness and cut length against its ratings); `shortest_queue` the one with the fewest released programs waiting (then the least capacity).",
 });
 
-export const Settings = z.object({ routingRule }).openapi("Settings");
+const remnantMinMm = z.number().positive().max(100_000).nullable().openapi({
+  description:
+    "The shortest side, in mm, of an offcut worth keeping: when a run completes, its offcuts at least this long both ways are booked in as remnants. Null (default): none are booked.",
+});
+
+export const Settings = z.object({ routingRule, remnantMinMm }).openapi("Settings");
 
 export const SettingsPatch = z
-  .object({ routingRule: routingRule.optional() })
+  .object({ routingRule: routingRule.optional(), remnantMinMm: remnantMinMm.optional() })
   .strict()
   .refine((p) => Object.keys(p).length > 0, { message: "send at least one setting to change" })
   .openapi("SettingsPatch");

@@ -3,7 +3,10 @@ import type { EntityManager } from "@mikro-orm/postgresql";
 import { Shop, type ShopEntity } from "../../entities";
 import type { SettingsPatchT, SettingsT } from "../schemas/settings";
 
-const viewSettings = (shop: ShopEntity): SettingsT => ({ routingRule: shop.routingRule });
+const viewSettings = (shop: ShopEntity): SettingsT => ({
+  routingRule: shop.routingRule,
+  remnantMinMm: shop.remnantMinMm ?? null,
+});
 
 export async function getSettings(em: EntityManager, shopId: string): Promise<SettingsT> {
   return viewSettings(await em.findOneOrFail(Shop, { id: shopId }));
@@ -12,6 +15,7 @@ export async function getSettings(em: EntityManager, shopId: string): Promise<Se
 export async function updateSettings(em: EntityManager, shopId: string, patch: SettingsPatchT): Promise<SettingsT> {
   const shop = await em.findOneOrFail(Shop, { id: shopId });
   if (patch.routingRule) shop.routingRule = patch.routingRule;
+  if (patch.remnantMinMm !== undefined) shop.remnantMinMm = patch.remnantMinMm;
   await em.flush();
   return viewSettings(shop);
 }

@@ -42,7 +42,7 @@ export function viewStockItem(s: StockItemEntity): StockItemT {
   };
 }
 
-function viewReservation(r: StockReservationEntity): StockReservationT {
+export function viewReservation(r: StockReservationEntity): StockReservationT {
   return {
     id: r.id,
     item: r.item.id,

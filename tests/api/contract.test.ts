@@ -375,18 +375,15 @@ describe("webhooks", () => {
 
 describe("stock", () => {
   it("adds, lists, reads, adjusts, reserves, releases and archives stock", async () => {
-    const created = await api()
-      .post("/api/v1/stock")
-      .set(auth())
-      .send({
-        kind: "remnant",
-        grade: "A36",
-        thicknessMm: 3,
-        lengthMm: 900,
-        widthMm: 600,
-        quantity: 2,
-        location: "R9",
-      });
+    const created = await api().post("/api/v1/stock").set(auth()).send({
+      kind: "remnant",
+      grade: "A36",
+      thicknessMm: 3,
+      lengthMm: 900,
+      widthMm: 600,
+      quantity: 2,
+      location: "R9",
+    });
     expectDocumented(stockOps.createStockItem, created);
     expect(created.status).toBe(201);
     const id = created.body.id;
@@ -414,7 +411,7 @@ describe("settings", () => {
   it("reads and changes the shop's settings", async () => {
     const read = await api().get("/api/v1/settings").set(auth());
     expectDocumented(settingsOps.getSettings, read);
-    expect(read.body).toEqual({ routingRule: "least_capacity" });
+    expect(read.body).toEqual({ routingRule: "least_capacity", remnantMinMm: null });
     const changed = await api().patch("/api/v1/settings").set(auth()).send({ routingRule: "least_capacity" });
     expectDocumented(settingsOps.updateSettings, changed);
     expect(changed.status).toBe(200);

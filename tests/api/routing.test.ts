@@ -81,10 +81,10 @@ describe("a program without a shear", () => {
   it("goes to the shortest queue of released programs when the shop says so", async () => {
     const patched = await api().patch("/api/v1/settings").set(auth()).send({ routingRule: "shortest_queue" });
     expectDocumented(settingsOps.updateSettings, patched);
-    expect(patched.body).toEqual({ routingRule: "shortest_queue" });
+    expect(patched.body).toEqual({ routingRule: "shortest_queue", remnantMinMm: null });
     const read = await api().get("/api/v1/settings").set(auth());
     expectDocumented(settingsOps.getSettings, read);
-    expect(read.body).toEqual({ routingRule: "shortest_queue" });
+    expect(read.body).toEqual({ routingRule: "shortest_queue", remnantMinMm: null });
     try {
       // one released program waits for the heavy shear
       const waiting = await api().post("/api/v1/programs").set(auth()).send(exampleProgram(big)).expect(201);

@@ -39,9 +39,21 @@ describe("webhook payloads", () => {
     // endpoint.test
     await api().post(`/api/v1/webhook-endpoints/${endpoint.body.endpoint.id}/test`).set(auth).expect(202);
 
-    // created, updated, released, claimed, started, progressed, completed
+    // created, updated, released, claimed, started, progressed, completed; its run books the reserved
+    // sheets out (stock.consumed) and its offcuts in as remnants (stock.remnant_added)
+    await api().patch("/api/v1/settings").set(auth).send({ remnantMinMm: 200 }).expect(200);
     const created = await api().post("/api/v1/programs").set(auth).send(exampleProgram(shop.shearId)).expect(201);
     const a = created.body.id as string;
+    const rack = await api()
+      .post("/api/v1/stock")
+      .set(auth)
+      .send({ kind: "sheet", grade: "A36", thicknessMm: 3.42, lengthMm: 3048, widthMm: 1219.2, quantity: 2 })
+      .expect(201);
+    await api()
+      .post(`/api/v1/stock/${rack.body.id}/reservations`)
+      .set(auth)
+      .send({ quantity: 2, program: a })
+      .expect(201);
     await api()
       .patch(`/api/v1/programs/${a}`)
       .set(auth)

@@ -64,7 +64,7 @@ export const planAction = memberAction("programs:write")
       thickness:
         thicknessKind === "gauge" ? { gauge: num(form.get("thickness")) } : { value: num(form.get("thickness")) },
       units: text(form.get("units")) ?? "mm",
-      stock: parseStock(text(form.get("stock"))),
+      stock: form.get("onHand") === "on" ? ("on_hand" as const) : parseStock(text(form.get("stock"))),
       blanks: parsed.blanks,
       options: JSON.parse(
         JSON.stringify({

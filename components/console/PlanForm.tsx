@@ -41,12 +41,13 @@ export function PlanForm({
         </label>
         <label className="grid min-w-0 gap-1">
           Shear
-          <select name="shear" required className={`${input} w-full min-w-0`}>
+          <select name="shear" className={`${input} w-full min-w-0`}>
             {shears.map((s) => (
               <option key={s.id} value={s.id}>
                 {s.name}
               </option>
             ))}
+            <option value="">Any shear: the shop&apos;s rule chooses</option>
           </select>
         </label>
         <label className="grid min-w-0 gap-1">

@@ -59,7 +59,7 @@ export const planAction = memberAction("programs:write")
     const input = {
       reference: text(form.get("reference")),
       title: text(form.get("title")),
-      shear: text(form.get("shear")) ?? "",
+      shear: text(form.get("shear")), // none: the hub checks every active shear and chooses one
       grade: text(form.get("grade")) ?? "",
       thickness:
         thicknessKind === "gauge" ? { gauge: num(form.get("thickness")) } : { value: num(form.get("thickness")) },

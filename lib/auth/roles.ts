@@ -11,6 +11,7 @@ export const PERMISSIONS = {
   "webhooks:manage": "admin",
   "catalog:manage": "admin",
   "stock:manage": "admin",
+  "settings:manage": "admin",
   "programs:release": "admin",
   "programs:write": "admin",
   "team:manage": "owner",

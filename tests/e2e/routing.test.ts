@@ -83,4 +83,27 @@ describe("a routed program's page", () => {
     expect(await light.getByRole("cell").nth(1).textContent()).toBe("no"); // can it cut?
     await page.close();
   });
+
+  it("lets an admin change the routing rule and the remnant size on the Shears page", async () => {
+    const page = await browser.newPage({ viewport: { width: 1440, height: 1000 } });
+    await page.goto(`${BASE_URL}/signin`);
+    await page.getByLabel("E-mail").fill(shop.admins[1]);
+    await page.getByLabel("Password").fill(TEST_PASSWORD);
+    await page.getByRole("button", { name: "Sign in" }).click();
+    await page.waitForURL(`${BASE_URL}/console`);
+    await page.goto(`${BASE_URL}/console/shears`);
+    const form = page.locator("section", { has: page.getByRole("heading", { name: "Routing and remnants" }) });
+    await form.getByLabel(/Keep offcuts as remnants/).fill("-5");
+    await form.getByRole("button", { name: "Save settings" }).click();
+    await form.getByRole("alert").first().waitFor(); // a negative size is refused by the API's schema
+    await form.getByLabel("Work without a shear goes to").selectOption("shortest_queue");
+    await form.getByLabel(/Keep offcuts as remnants/).fill("250");
+    await form.getByRole("button", { name: "Save settings" }).click();
+    await form.getByText("Settings saved.").waitFor();
+    const read = await request(BASE_URL)
+      .get("/api/v1/settings")
+      .set({ Authorization: `Bearer ${shop.key}` });
+    expect(read.body).toEqual({ routingRule: "shortest_queue", remnantMinMm: 250 });
+    await page.close();
+  });
 });

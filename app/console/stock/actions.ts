@@ -2,9 +2,13 @@
 
 import { revalidatePath } from "next/cache";
 import { zfd } from "zod-form-data";
+import { zodErrors } from "@/lib/api/route-input";
 import { memberAction } from "@/lib/auth/action";
+import { invalidRequest } from "@/lib/errors";
+import { SettingsPatch } from "@/lib/schemas/settings";
 import { StockAdjustInput, StockItemInput } from "@/lib/schemas/stock";
 import { z } from "@/lib/schemas/zod";
+import * as settings from "@/lib/services/settings";
 import * as stock from "@/lib/services/stock";
 
 // The API's own schemas, fed from form fields (numbers arrive as text).
@@ -49,4 +53,21 @@ export const archiveStockAction = memberAction("stock:manage")
   .action(async ({ parsedInput: { id }, ctx: { member, em } }) => {
     await stock.archiveStockItem(em, member.shopId, id);
     return done({ message: "Archived." });
+  });
+
+/** The shop's settings: how work without a shear is routed, and the smallest offcut kept as a remnant. */
+export const settingsAction = memberAction("settings:manage")
+  .inputSchema(
+    zfd.formData({
+      routingRule: zfd.text(SettingsPatch.shape.routingRule),
+      remnantMinMm: zfd.text(z.string().max(20).optional()),
+    }),
+  )
+  .action(async ({ parsedInput, ctx: { member, em } }) => {
+    const size = parsedInput.remnantMinMm === undefined ? null : Number(parsedInput.remnantMinMm);
+    const patch = SettingsPatch.safeParse({ routingRule: parsedInput.routingRule, remnantMinMm: size });
+    if (!patch.success) throw invalidRequest("Some fields need attention.", zodErrors("body", patch.error));
+    await settings.updateSettings(em, member.shopId, patch.data);
+    revalidatePath("/console/shears");
+    return done({ message: "Settings saved." });
   });

@@ -1,7 +1,8 @@
 import { defineEntity, p } from "@mikro-orm/core";
-import type { PlanInputT } from "../lib/schemas/plan";
+import type { PlanOrderT } from "../lib/schemas/plan";
 import type { PlanResultT } from "../lib/schemas/plan-result";
 import { newId } from "../lib/ids";
+import type { RoutingT } from "../lib/schemas/settings";
 import { Shear } from "./Shear";
 import { Shop } from "./Shop";
 
@@ -27,7 +28,7 @@ export const Plan = defineEntity({
     title: p.text().nullable(),
     /** queued | running | complete | failed | cancelled */
     status: p.string(),
-    input: p.json<PlanInputT>(),
+    input: p.json<PlanOrderT>(),
     /** the planner's answer, once complete */
     // Plans stored before the planner stated bounds lack them: read through viewPlan (plan-views.ts).
     result: p.json<PlanResultT>().nullable(),
@@ -35,6 +36,8 @@ export const Plan = defineEntity({
     failure: p.json<{ reason: string; message: string }>().nullable(),
     attempts: p.integer().default(0),
     programs: p.json<{ pattern: string; id: string }[]>().default("[]"),
+    /** how the shear was chosen when the request named none; null when it named one */
+    routing: p.json<RoutingT>().nullable(),
     createdAt: p.datetime().onCreate(() => new Date()),
     startedAt: p.datetime().nullable(),
     finishedAt: p.datetime().nullable(),

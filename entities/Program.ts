@@ -2,6 +2,7 @@ import { defineEntity, p } from "@mikro-orm/core";
 import type { CheckT } from "../lib/schemas/check";
 import type { ProgramInputT } from "../lib/schemas/program";
 import { newId } from "../lib/ids";
+import type { RoutingT } from "../lib/schemas/settings";
 import { Shear } from "./Shear";
 import { Shop } from "./Shop";
 
@@ -47,6 +48,8 @@ export const Program = defineEntity({
     /** warning codes the caller acknowledged when releasing */
     acknowledged: p.json<string[]>().default("[]"),
     metadata: p.json<Record<string, string>>().default("{}"),
+    /** how the shear was chosen when the request named none; null when it named one */
+    routing: p.json<RoutingT>().nullable(),
     releasedAt: p.datetime().nullable(),
     cancelledAt: p.datetime().nullable(),
     // The gateway's lease while the program is claimed or running.

@@ -14,6 +14,8 @@ import { RequestLog } from "./RequestLog";
 import { Shear } from "./Shear";
 import { Shop } from "./Shop";
 import { SignInAttempt } from "./SignInAttempt";
+import { StockItem } from "./StockItem";
+import { StockReservation } from "./StockReservation";
 import { User } from "./User";
 import { WebhookEndpoint } from "./WebhookEndpoint";
 
@@ -33,6 +35,8 @@ export {
   Shear,
   Shop,
   SignInAttempt,
+  StockItem,
+  StockReservation,
   User,
   WebhookEndpoint,
 };
@@ -46,6 +50,8 @@ export type PlanEntity = InferEntity<typeof Plan>;
 export type GradeEntity = InferEntity<typeof Grade>;
 export type ShearEntity = InferEntity<typeof Shear>;
 export type ShopEntity = InferEntity<typeof Shop>;
+export type StockItemEntity = InferEntity<typeof StockItem>;
+export type StockReservationEntity = InferEntity<typeof StockReservation>;
 
 /** Every entity, for the ORM configuration. */
 export const entities = [
@@ -66,4 +72,6 @@ export const entities = [
   Plan,
   ConsoleSession,
   SignInAttempt,
+  StockItem,
+  StockReservation,
 ];

@@ -21,6 +21,8 @@ export const ID_PREFIXES = {
   plan: "pln",
   session: "ses",
   signInAttempt: "sia",
+  stockItem: "stk",
+  stockReservation: "srv",
 } as const;
 
 export type IdKind = keyof typeof ID_PREFIXES;

@@ -15,6 +15,9 @@ import { Migration20261202160000_shear_crown_baseline } from "./Migration2026120
 import { Migration20261202163000_backgauge_repeatability } from "./Migration20261202163000_backgauge_repeatability";
 import { Migration20261202170059_plan_jobs } from "./Migration20261202170059_plan_jobs";
 import { Migration20261202180135_attempt_headers } from "./Migration20261202180135_attempt_headers";
+import { Migration20261203060000_routing } from "./Migration20261203060000_routing";
+import { Migration20261203063000_stock } from "./Migration20261203063000_stock";
+import { Migration20261203070000_remnant_size } from "./Migration20261203070000_remnant_size";
 
 export const migrationsList: MigrationObject[] = [
   { name: "Migration20261201234604_initial", class: Migration20261201234604_initial },
@@ -28,4 +31,7 @@ export const migrationsList: MigrationObject[] = [
   { name: "Migration20261202163000_backgauge_repeatability", class: Migration20261202163000_backgauge_repeatability },
   { name: "Migration20261202170059_plan_jobs", class: Migration20261202170059_plan_jobs },
   { name: "Migration20261202180135_attempt_headers", class: Migration20261202180135_attempt_headers },
+  { name: "Migration20261203060000_routing", class: Migration20261203060000_routing },
+  { name: "Migration20261203063000_stock", class: Migration20261203063000_stock },
+  { name: "Migration20261203070000_remnant_size", class: Migration20261203070000_remnant_size },
 ];

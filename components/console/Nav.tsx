@@ -7,6 +7,7 @@ const ITEMS = [
   { href: "/console", label: "Overview" },
   { href: "/console/programs", label: "Programs" },
   { href: "/console/plans", label: "Plans" },
+  { href: "/console/stock", label: "Stock" },
   { href: "/console/upload", label: "Upload" },
   { href: "/console/keys", label: "API keys" },
   { href: "/console/webhooks", label: "Webhooks" },

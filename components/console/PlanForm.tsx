@@ -41,12 +41,13 @@ export function PlanForm({
         </label>
         <label className="grid min-w-0 gap-1">
           Shear
-          <select name="shear" required className={`${input} w-full min-w-0`}>
+          <select name="shear" className={`${input} w-full min-w-0`}>
             {shears.map((s) => (
               <option key={s.id} value={s.id}>
                 {s.name}
               </option>
             ))}
+            <option value="">Any shear: the shop&apos;s rule chooses</option>
           </select>
         </label>
         <label className="grid min-w-0 gap-1">
@@ -82,17 +83,23 @@ export function PlanForm({
         </div>
       </div>
       <div className="grid gap-3 sm:grid-cols-2">
-        <label className="grid gap-1">
-          Stock on hand, in the plan&apos;s units: one size per line, <code>length, width, count</code> (leave the count
-          out for as many as needed)
-          <textarea
-            name="stock"
-            required
-            rows={4}
-            defaultValue={"2500, 1250, 10\n3000, 1500"}
-            className={`${input} font-mono text-xs`}
-          />
-        </label>
+        <div className="grid content-start gap-2">
+          <label className="grid gap-1">
+            Stock on hand, in the plan&apos;s units: one size per line, <code>length, width, count</code> (leave the
+            count out for as many as needed)
+            <textarea
+              name="stock"
+              required
+              rows={4}
+              defaultValue={"2500, 1250, 10\n3000, 1500"}
+              className={`${input} font-mono text-xs`}
+            />
+          </label>
+          <label className="flex items-start gap-1.5 text-sm">
+            <input type="checkbox" name="onHand" className="mt-1" /> Plan on the shop&apos;s stock of this grade and
+            thickness instead (remnants first); writing the programs reserves the sheets they use
+          </label>
+        </div>
         <div className="grid gap-2">
           <label className="grid gap-1">
             Cut list (.csv), sizes in the plan&apos;s units: <code>label, length, width, quantity, can_turn</code>{" "}

@@ -11,6 +11,7 @@ import type { PlanSummaryT } from "../schemas/plan";
 import { EXAMPLE_PROGRAM, type ProgramT } from "../schemas/program";
 import { type CheckT } from "../schemas/check";
 import type { ShearT } from "../schemas/shear";
+import type { StockItemT, StockReservationT } from "../schemas/stock";
 import { checkProgram, findGrade } from "../shear";
 
 const AT = "2026-12-08T09:30:00.000Z";
@@ -20,7 +21,50 @@ export const EXAMPLE_IDS = {
   plan: "pln_01JDEMOWEEK49A36000000000",
   endpoint: "whe_01JDEMOERPRECEIVER0000000",
   gatewayKey: "key_01JDEMOBAY1GATEWAY0000000",
+  stockItem: "stk_01JDEMORACKB2A36SHEETS0000",
+  reservation: "srv_01JDEMOSIDEPANELS40000000",
+  remnant: "stk_01JDEMOREMNANTSIDEPANELS00",
 } as const;
+
+/** An invented rack of 3 mm A36 sheets, for the stock events' examples. */
+function exampleStockItem(reserved: number): StockItemT {
+  return {
+    id: EXAMPLE_IDS.stockItem,
+    kind: "sheet",
+    grade: "A36",
+    thicknessMm: 3,
+    lengthMm: 2500,
+    widthMm: 1250,
+    quantity: 12,
+    reserved,
+    available: 12 - reserved,
+    location: "Rack B2",
+    note: null,
+    sourceProgram: null,
+    sourceRun: null,
+    archivedAt: null,
+    createdAt: AT,
+    updatedAt: AT,
+  };
+}
+
+const exampleRemnant = (): StockItemT => ({
+  ...exampleStockItem(0),
+  ...{ id: EXAMPLE_IDS.remnant, kind: "remnant", lengthMm: 2500, widthMm: 304.8, quantity: 2, available: 2 },
+});
+
+function exampleReservation(status: StockReservationT["status"]): StockReservationT {
+  return {
+    id: EXAMPLE_IDS.reservation,
+    item: EXAMPLE_IDS.stockItem,
+    quantity: 2,
+    status,
+    program: EXAMPLE_IDS.program,
+    note: null,
+    createdAt: AT,
+    closedAt: status === "open" ? null : AT,
+  };
+}
 
 export function exampleShear(): ShearT {
   const demo = DEMO_SHEARS[0] as Omit<
@@ -78,6 +122,7 @@ export function exampleProgram(): ProgramT {
     revision: 1,
     reference: EXAMPLE_PROGRAM.reference,
     title: EXAMPLE_PROGRAM.title ?? null,
+    routing: null,
     shear: shear.id,
     grade: EXAMPLE_PROGRAM.grade,
     thickness: EXAMPLE_PROGRAM.thickness,
@@ -115,6 +160,7 @@ function examplePlanSummary(status: "complete" | "failed" | "cancelled"): PlanSu
     reference: "WK49-A36-10GA",
     title: "Week 49, 10 ga A36",
     shear: EXAMPLE_IDS.shear,
+    routing: null,
     grade: "A36",
     thickness: { gauge: 10 },
     units: "in",
@@ -222,6 +268,25 @@ export function exampleWebhook(type: EventType): { type: EventType; timestamp: s
     "plan.completed": { plan: examplePlanSummary("complete") },
     "plan.failed": { plan: examplePlanSummary("failed") },
     "plan.cancelled": { plan: examplePlanSummary("cancelled") },
+    "stock.created": { item: exampleStockItem(0) },
+    "stock.adjusted": { item: exampleStockItem(0), delta: -1, reason: "One sheet dented in handling." },
+    "stock.archived": { item: { ...exampleStockItem(0), quantity: 0, available: 0, archivedAt: AT } },
+    "stock.reserved": { item: exampleStockItem(2), reservation: exampleReservation("open") },
+    "stock.released": {
+      item: exampleStockItem(0),
+      reservation: exampleReservation("released"),
+      reason: `program ${EXAMPLE_IDS.program} was cancelled`,
+    },
+    "stock.consumed": {
+      item: { ...exampleStockItem(0), quantity: 10 },
+      reservation: exampleReservation("consumed"),
+      program: EXAMPLE_IDS.program,
+      sheets: 2,
+    },
+    "stock.remnant_added": {
+      item: { ...exampleRemnant(), sourceProgram: EXAMPLE_IDS.program },
+      program: EXAMPLE_IDS.program,
+    },
     "endpoint.test": {
       endpoint: { id: EXAMPLE_IDS.endpoint, url: "https://erp.example/hooks/shearwire" },
       message: "A test event from Shearwire. If you can read this, your receiver works.",

@@ -224,6 +224,11 @@ export function buildOpenApi(operations: Operation[], extra?: (registry: OpenAPI
           "From order lines to cut programs: blanks planned onto the stock on hand in patterns the shear can cut, then written as draft programs.",
       },
       {
+        name: "Stock",
+        description:
+          "Material on the racks: full sheets and remnants, adjusted with a reason, reserved for programs and given back.",
+      },
+      {
         name: "Gateway",
         description: "For the gateway beside each shear: claim released programs under a lease, report the run.",
       },
@@ -233,6 +238,7 @@ export function buildOpenApi(operations: Operation[], extra?: (registry: OpenAPI
           "Endpoints that hear about every change, signed per Standard Webhooks; the events and each delivery attempt.",
       },
       { name: "Catalog", description: "Shears, grades, gauges and setup recommendations." },
+      { name: "Settings", description: "The shop's settings: how work that names no shear is given one." },
       { name: "Meta", description: "Health, the OpenAPI document and the JSON Schema." },
     ],
   });

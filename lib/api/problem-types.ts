@@ -43,6 +43,18 @@ export const PROBLEM_TYPES: Record<string, { status: number; title: string; expl
     title: "Acknowledge the warnings to release",
     explanation: "The program's check has warnings. Read them, then release again with their codes in `acknowledge`.",
   },
+  "no-shear-can-cut": {
+    status: 422,
+    title: "No shear of the shop can cut this",
+    explanation:
+      "The program or plan named no shear, and none of the shop's active shears can cut it. `shears` lists each one with its reason (its check's errors, or the planner's limits); name a shear to see its full check, or change the program.",
+  },
+  "stock-not-available": {
+    status: 409,
+    title: "Not enough stock available",
+    explanation:
+      "Fewer sheets of the stock item are free (on hand less reserved) than asked, or it is archived. `available` says how many are free; another reservation may have taken them a moment earlier.",
+  },
   "precondition-failed": {
     status: 412,
     title: "The resource changed since you read it",

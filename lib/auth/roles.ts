@@ -10,6 +10,8 @@ export const PERMISSIONS = {
   "keys:manage": "admin",
   "webhooks:manage": "admin",
   "catalog:manage": "admin",
+  "stock:manage": "admin",
+  "settings:manage": "admin",
   "programs:release": "admin",
   "programs:write": "admin",
   "team:manage": "owner",

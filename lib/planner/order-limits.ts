@@ -11,6 +11,10 @@ export interface OrderStock {
   width: number;
   count?: number | null;
   label?: string;
+  /** a remnant: planned before the rows that are not */
+  remnant?: boolean;
+  /** the stock item the row was drawn from (the service reserves it when the programs are written) */
+  item?: string;
 }
 
 export interface OrderBlank {
@@ -33,7 +37,7 @@ export interface OrderOptions {
 export interface Order {
   reference?: string;
   title?: string;
-  shear: string;
+  shear?: string;
   grade: string;
   thickness: { value: number } | { gauge: number };
   units: LengthUnit;

@@ -8,7 +8,8 @@
  */
 import { checkProgram } from "../shear";
 import { checkOrderLimits, MM_PER_UNIT, percent, round, type Order, type OrderBlank } from "./order-limits";
-import { planBlanks, type PlanProgress } from "./plan";
+import type { PlanProgress } from "./plan";
+import { planRemnantsFirst } from "./remnants-first";
 import { compressStrips, type PlanContext, type PlanFinding, type PlannedOrder, type PlannedPattern } from "./planned";
 
 export { PLAN_LIMITS, type Order } from "./order-limits";
@@ -42,7 +43,7 @@ export async function planOrder(
         width: Math.ceil(options.reusableOffcut.width * grid - 1e-9),
       }
     : null;
-  const planned = await planBlanks(
+  const planned = await planRemnantsFirst(
     order.stock.map((sheet) => ({
       length: toGrid(sheet.length),
       width: toGrid(sheet.width),
@@ -55,6 +56,7 @@ export async function planOrder(
       quantity: blank.quantity,
       canTurn: canTurn(blank),
     })),
+    order.stock.map((sheet) => sheet.remnant === true),
     {
       objective: options.objective ?? "fewest_sheets",
       trim: toGrid(options.trim ?? 0),

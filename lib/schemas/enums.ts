@@ -27,6 +27,19 @@ export const PLAN_OBJECTIVE_LABELS: Record<(typeof PLAN_OBJECTIVES)[number], str
   fewest_strokes: "Fewest strokes and turns",
 };
 
+/**
+ * How a program or plan that names no shear is given one: the shear that can cut it with the least
+ * of its capacity used, or the one with the fewest released programs waiting.
+ */
+export const ROUTING_RULES = ["least_capacity", "shortest_queue"] as const;
+export type RoutingRule = (typeof ROUTING_RULES)[number];
+
+/** Material on the racks: a full sheet as bought, or a remnant kept from a cut sheet. */
+export const STOCK_KINDS = ["sheet", "remnant"] as const;
+export type StockKind = (typeof STOCK_KINDS)[number];
+/** A reservation holds sheets for a program until they are cut (`consumed`) or given back (`released`). */
+export const RESERVATION_STATUSES = ["open", "consumed", "released"] as const;
+
 /** Every event type Shearwire emits. */
 export const EVENT_TYPES = [
   "program.created",
@@ -42,6 +55,13 @@ export const EVENT_TYPES = [
   "plan.completed",
   "plan.failed",
   "plan.cancelled",
+  "stock.created",
+  "stock.adjusted",
+  "stock.archived",
+  "stock.reserved",
+  "stock.released",
+  "stock.consumed",
+  "stock.remnant_added",
   "endpoint.test",
 ] as const;
 export type EventType = (typeof EVENT_TYPES)[number];
@@ -61,6 +81,13 @@ export const EVENT_TYPE_WORDS: Record<EventType, string> = {
   "plan.completed": "A plan was computed: its sheets, patterns and figures (read the plan for its layout).",
   "plan.failed": "A plan could not be computed (a time or memory limit, or a lost worker), with the reason.",
   "plan.cancelled": "A plan was cancelled before it was computed.",
+  "stock.created": "Material was added to the shop's stock: full sheets or a remnant.",
+  "stock.adjusted": "A stock item's quantity was corrected by hand, with the reason.",
+  "stock.archived": "A stock item was archived: no longer offered to plans or reservations.",
+  "stock.reserved": "Sheets of a stock item were reserved, for a program or by hand.",
+  "stock.released": "A reservation was given back (its program was cancelled, or it was released by hand).",
+  "stock.consumed": "A run used reserved sheets: they are booked out of stock.",
+  "stock.remnant_added": "A run left an offcut at least the shop's remnant size: it is booked in as a remnant.",
   "endpoint.test": "A test event, sent only to the endpoint it was asked for.",
 };
 
@@ -74,5 +101,8 @@ export const SCOPES = [
   "catalog:write",
   "events:read",
   "webhooks:write",
+  "settings:write",
+  "stock:read",
+  "stock:write",
 ] as const;
 export type Scope = (typeof SCOPES)[number];

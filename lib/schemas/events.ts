@@ -9,6 +9,7 @@ import { PROGRAM_STATUSES } from "./enums";
 import { FAILURE_REASONS } from "./gateway";
 import { PlanSummary } from "./plan";
 import { Program } from "./program";
+import { StockItem, StockReservation } from "./stock";
 import { z } from "./zod";
 
 const from = z.enum(PROGRAM_STATUSES).openapi({ description: "The state the program was in before" });
@@ -50,6 +51,7 @@ export const EVENT_DATA = {
       message: z.string().optional(),
       goodPieces: z.number().int().optional(),
       scrappedPieces: z.number().int().optional(),
+      sheetsUsed: z.number().int().optional(),
     }),
   }),
   "program.cancelled": z.object({ program: Program, from, reason: z.string().nullable() }),
@@ -57,6 +59,29 @@ export const EVENT_DATA = {
   "plan.completed": z.object({ plan: PlanSummary }),
   "plan.failed": z.object({ plan: PlanSummary }),
   "plan.cancelled": z.object({ plan: PlanSummary }),
+  "stock.created": z.object({ item: StockItem }),
+  "stock.adjusted": z.object({
+    item: StockItem,
+    delta: z.number().int().openapi({ description: "Sheets added (positive) or taken away (negative)" }),
+    reason: z.string(),
+  }),
+  "stock.archived": z.object({ item: StockItem }),
+  "stock.reserved": z.object({ item: StockItem, reservation: StockReservation }),
+  "stock.released": z.object({
+    item: StockItem,
+    reservation: StockReservation,
+    reason: z.string().openapi({ description: "Why the sheets went back" }),
+  }),
+  "stock.consumed": z.object({
+    item: StockItem,
+    reservation: StockReservation,
+    program: z.string().openapi({ description: "The program whose run used the sheets" }),
+    sheets: z.number().int().openapi({ description: "Sheets booked out of stock" }),
+  }),
+  "stock.remnant_added": z.object({
+    item: StockItem,
+    program: z.string().openapi({ description: "The program whose run left the offcut" }),
+  }),
   "endpoint.test": z.object({ endpoint: z.object({ id: z.string(), url: z.string() }), message: z.string() }),
 } as const satisfies Record<EventType, z.ZodType>;
 

@@ -62,7 +62,10 @@ export const CompletionReport = z
       description: "Good blanks made; with `scrappedPieces`, at most the program's blanks",
     }),
     scrappedPieces: count().default(0),
-    sheetsUsed: count().optional().openapi({ description: "Sheets cut (at most the program's `sheet.count`)" }),
+    sheetsUsed: count().optional().openapi({
+      description:
+        "Sheets cut (at most the program's `sheet.count`; default all of them): booked out of the stock reserved for the program",
+    }),
     notes: z.string().max(2000).optional(),
   })
   .strict()
@@ -74,6 +77,10 @@ export const FailureReport = z
     message: z.string().max(2000).optional(),
     goodPieces: count().optional(),
     scrappedPieces: count().optional(),
+    sheetsUsed: count().optional().openapi({
+      description:
+        "Sheets cut or spoiled before the run stopped (at most the program's `sheet.count`; default 0): booked out of the stock reserved for the program, the rest given back",
+    }),
   })
   .strict()
   .openapi("FailureReport");

@@ -27,6 +27,9 @@ export const SCOPE_WORDS: Record<(typeof SCOPES)[number], string> = {
   "catalog:write": "Add and change shears and grades.",
   "events:read": "Read events and their webhook deliveries.",
   "webhooks:write": "Add, change and test webhook endpoints, rotate their secrets, resend events.",
+  "settings:write": "Change the shop's settings: how work without a shear is routed, the remnant size kept.",
+  "stock:read": "Read the stock on hand and its reservations.",
+  "stock:write": "Add, adjust, reserve, release and archive stock.",
 };
 
 /** Ready-made sets of scopes for the usual kinds of key. */

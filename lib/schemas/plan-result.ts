@@ -154,6 +154,8 @@ export const PlanResult = z
           width: z.number(),
           count: z.number().int().nullable(),
           label: z.string().optional(),
+          remnant: z.boolean().optional(),
+          item: z.string().optional().openapi({ description: "The stock item the row was drawn from" }),
           used: z.number().int().openapi({ description: "Sheets of this size the plan uses" }),
         })
         .openapi("PlanStockUse"),

@@ -4,6 +4,7 @@
  * types the service and documents the API.
  */
 import { jobFields, Program, Thickness } from "./program";
+import { Routing } from "./settings";
 import { PLAN_FAILURES, PLAN_STATUSES, PlanResult, PlanSummaryFigures } from "./plan-result";
 import { PLAN_OBJECTIVES } from "./enums";
 import { z } from "./zod";
@@ -32,6 +33,13 @@ export const StockInput = z
       .optional()
       .openapi({ description: "Sheets on hand; omit or null for as many as needed" }),
     label: z.string().max(100).optional(),
+    remnant: z.boolean().optional().openapi({
+      description: "A remnant: rows marked so are planned first, and only what they cannot take goes onto the others",
+    }),
+    item: z.string().max(64).optional().openapi({
+      description:
+        "The stock item this row is drawn from (its id); writing the plan's programs reserves the sheets each pattern uses",
+    }),
   })
   .strict()
   .openapi("PlanStock");
@@ -92,10 +100,18 @@ const PlanShape = z
     units: z.enum(["in", "mm"]).openapi({ description: "Units of every length in this plan" }),
     // The planner's own limits (10 stock sizes, 200 blank types, …) are checked after the schema, so a refusal names the limit and the value.
     stock: z
-      .array(StockInput)
-      .min(1)
-      .max(1_000)
-      .openapi({ description: "Stock sizes on hand (a plan takes at most 10: limit `stockSizes`)" }),
+      .union([
+        z.literal("on_hand"),
+        z
+          .array(StockInput)
+          .min(1)
+          .max(1_000)
+          .openapi({ description: "Stock sizes on hand (a plan takes at most 10: limit `stockSizes`)" }),
+      ])
+      .openapi({
+        description:
+          "The sheets to plan on: explicit rows, or `\"on_hand\"` for the shop's stock of the plan's grade and thickness (remnants first; at most 10 items). The stored plan lists the rows drawn, each naming its stock item.",
+      }),
     blanks: z.array(BlankInput).min(1).max(10_000).openapi({
       description:
         "Order lines (a plan takes at most 200 blank types: limit `blankTypes`, and 20,000 pieces in all: limit `totalPieces`)",
@@ -134,6 +150,7 @@ const PlanCommon = {
   reference: z.string().nullable(),
   title: z.string().nullable(),
   shear: z.string(),
+  routing: Routing.nullable(),
   grade: z.string(),
   thickness: Thickness,
   units: z.enum(["in", "mm"]),
@@ -188,6 +205,7 @@ export const PlanPreview = PlanResult.extend({
   reference: z.string().nullable(),
   title: z.string().nullable(),
   shear: z.string(),
+  routing: Routing.nullable(),
   grade: z.string(),
   thickness: Thickness,
   units: z.enum(["in", "mm"]),
@@ -215,6 +233,8 @@ export const WriteProgramsInput = z
 export const WrittenPrograms = z.object({ plan: z.string(), data: z.array(Program) }).openapi("WrittenPrograms");
 
 export type PlanInputT = z.infer<typeof PlanInput>;
+/** A plan's order once its stock is drawn: explicit rows (what is stored and planned). */
+export type PlanOrderT = Omit<PlanInputT, "stock"> & { stock: z.infer<typeof StockInput>[] };
 export type PlanT = z.infer<typeof Plan>;
 export type PlanSummaryT = z.infer<typeof PlanSummary>;
 export type PlanPreviewT = z.infer<typeof PlanPreview>;

@@ -5,6 +5,7 @@
  */
 import { Check } from "./check";
 import { Problem } from "./common";
+import { Routing } from "./settings";
 import { PROGRAM_STATUSES } from "./enums";
 import { z } from "./zod";
 
@@ -75,8 +76,9 @@ export const Thickness = z
 
 /** What a program or a plan is cut on and from: the shear, the grade and its thickness. */
 export const jobFields = () => ({
-  shear: z.string().trim().min(1).max(100).openapi({
-    description: "The shear: its id, or its name as the catalog has it (any case). Stored as the id.",
+  shear: z.string().trim().min(1).max(100).optional().openapi({
+    description:
+      "The shear: its id, or its name as the catalog has it (any case). Stored as the id. Leave it out to have the shop's active shears checked and one chosen by the shop's `routingRule` (the answer's `routing` says which and why).",
     example: "Bay 1 sheet shear",
   }),
   grade: z.string().trim().min(1).max(50).openapi({ description: "The grade's code in your catalog", example: "A36" }),
@@ -151,6 +153,8 @@ export const Program = z
     status: z.enum(PROGRAM_STATUSES),
     revision: z.number().int().openapi({ description: "Bumped by every change; the ETag is its quoted form" }),
     ...programFields,
+    shear: z.string().openapi({ description: "The shear's id" }),
+    routing: Routing.nullable(),
     title: z.string().nullable(),
     priority: z.number().int(),
     dueAt: z.string().nullable(),
@@ -265,7 +269,17 @@ export const ProgramListQuery = z.object({
     .openapi({ description: "The earlier spelling of `updatedSince`, still accepted", deprecated: true }),
 });
 
+export const ProgramValidation = Check.extend({
+  routing: Routing.nullable().openapi({
+    description: "When the program names no shear: which of the shop's active shears can cut it, and the one chosen",
+  }),
+}).openapi("ProgramValidation", {
+  description:
+    "The check of the program on its shear (or, when it names none, on the shear chosen; when none can cut it, on the first by name).",
+});
+
 export type ProgramInputT = z.infer<typeof ProgramInput>;
 export type ProgramPatchT = z.infer<typeof ProgramPatch>;
 export type ProgramT = z.infer<typeof Program>;
 export type ProgramBatchResultT = z.infer<typeof ProgramBatchResult>;
+export type ProgramValidationT = z.infer<typeof ProgramValidation>;

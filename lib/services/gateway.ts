@@ -16,6 +16,7 @@ import type { Principal } from "./keys";
 import { findProgram, mustBe, transition } from "./programs";
 import { viewProgram } from "./program-view";
 import { programTotals, withinProgram, notBackwards } from "./run-reports";
+import { bookRun } from "./booking";
 
 export const DEFAULT_LEASE_SECONDS = 60;
 /** A waiting gateway is woken by the release itself (NOTIFY on commit); this slow poll is only a safety net. */
@@ -230,18 +231,21 @@ export async function complete(
       p.outcome = { result: "completed", ...report };
     },
     { outcome: report },
+    (tx, p) => bookRun(tx, principal.shopId, p, report.sheetsUsed ?? totals.sheets, true),
   );
 }
 
 export async function fail(em: EntityManager, principal: Principal, id: string, report: z.infer<typeof FailureReport>) {
   const program = await held(em, principal, id, ["claimed", "running"], "failed");
+  const totals = programTotals(program);
   withinProgram([
     {
       field: "goodPieces",
       value: (report.goodPieces ?? 0) + (report.scrappedPieces ?? 0),
-      max: programTotals(program).blanks,
+      max: totals.blanks,
       what: "blanks (good and scrapped pieces together)",
     },
+    { field: "sheetsUsed", value: report.sheetsUsed, max: totals.sheets, what: "sheets" },
   ]);
   return transition(
     em,
@@ -255,5 +259,6 @@ export async function fail(em: EntityManager, principal: Principal, id: string, 
       p.outcome = { result: "failed", ...report };
     },
     { outcome: report },
+    (tx, p) => bookRun(tx, principal.shopId, p, report.sheetsUsed ?? 0, false),
   );
 }

@@ -3,7 +3,7 @@ import { type PlanEntity } from "../../entities";
 import { invalidRequest } from "../errors";
 import { OrderRefused } from "../planner/order-limits";
 import type { PlannedOrder } from "../planner/planned";
-import type { PlanInputT, PlanSummaryT, PlanT } from "../schemas/plan";
+import type { PlanOrderT, PlanSummaryT, PlanT } from "../schemas/plan";
 import type { PlanResultT } from "../schemas/plan-result";
 import { ProgramInput } from "../schemas/program";
 
@@ -19,7 +19,7 @@ export function refusal(err: OrderRefused) {
 }
 
 /** A pattern whose program a cut program may not hold (too many groups, say) cannot be written: say so. */
-function releasabilityFindings(order: PlanInputT, planned: PlannedOrder): PlanResultT["findings"] {
+function releasabilityFindings(order: PlanOrderT, planned: PlannedOrder): PlanResultT["findings"] {
   const findings: PlanResultT["findings"] = [];
   planned.patterns.forEach((p, i) => {
     const valid = ProgramInput.safeParse({
@@ -45,7 +45,7 @@ function releasabilityFindings(order: PlanInputT, planned: PlannedOrder): PlanRe
 }
 
 /** The planner's answer as the API shows it (with the cut-program schema's findings added). */
-export function planResultOf(order: PlanInputT, planned: PlannedOrder): PlanResultT {
+export function planResultOf(order: PlanOrderT, planned: PlannedOrder): PlanResultT {
   return { ...planned, findings: [...releasabilityFindings(order, planned), ...planned.findings] };
 }
 
@@ -84,6 +84,7 @@ function common(p: PlanEntity) {
     reference: p.reference ?? null,
     title: p.title ?? null,
     shear: p.shear.id,
+    routing: p.routing ?? null,
     grade: input.grade,
     thickness: input.thickness,
     units: input.units,

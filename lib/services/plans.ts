@@ -14,13 +14,15 @@ import { waitForNotification } from "../db/notify";
 import { checkOrderLimits, OrderRefused } from "../planner/order-limits";
 import type { PlanContext, PlannedOrder } from "../planner/planned";
 import { dequeuePlan, enqueuePlan, previewOnWorker, PreviewTimeout } from "../queue/plan-queue";
-import type { PlanInputT, PlanPreviewT, PlanT, WriteProgramsInputT } from "../schemas/plan";
+import type { PlanInputT, PlanOrderT, PlanPreviewT, PlanT, WriteProgramsInputT } from "../schemas/plan";
 
 import { ProgramInput, type ProgramInputT, type ProgramT } from "../schemas/program";
 import { checkPrograms, storePrograms, type Checked } from "./program-create";
 import { gradeByCode, gradeProfile, shearProfile } from "./catalog";
 import { recordEvent } from "./events";
-import { activeShear } from "./programs";
+import { activeShear, routePlan } from "./routing";
+import { drawStock, reservePattern } from "./plan-stock";
+import type { RoutingT } from "../schemas/settings";
 import { refusal, planResultOf, viewPlan, viewPlanSummary } from "./plan-views";
 
 /** How long a request waits for Redis to take a plan's job before leaving it to the sweeper. */
@@ -39,20 +41,20 @@ async function checkedOrder(
   em: EntityManager,
   shopId: string,
   input: PlanInputT,
-): Promise<{ shearId: string; context: PlanContext }> {
-  const [shear, grade] = await Promise.all([
-    activeShear(em, shopId, input.shear, "plan"),
-    gradeByCode(em, shopId, input.grade),
-  ]);
+): Promise<{ order: PlanOrderT; shearId: string; context: PlanContext; routing: RoutingT | null }> {
+  const grade = await gradeByCode(em, shopId, input.grade);
+  const order = await drawStock(em, shopId, input, grade);
+  const routed = order.shear === undefined ? await routePlan(em, shopId, order) : null;
+  const shear = routed?.shear ?? (await activeShear(em, shopId, order.shear ?? "", "plan"));
   const context = { shear: shearProfile(shear), grade: grade ? gradeProfile(grade) : null };
-  input.shear = shear.id; // stored by id, however it was named
+  order.shear = shear.id; // stored by id, however it was named
   try {
-    checkOrderLimits(input, context.shear);
+    checkOrderLimits(order, context.shear);
   } catch (err) {
     if (err instanceof OrderRefused) throw refusal(err);
     throw err;
   }
-  return { shearId: shear.id, context };
+  return { order, shearId: shear.id, context, routing: routed?.routing ?? null };
 }
 
 /**
@@ -65,14 +67,15 @@ export async function createPlan(
   input: PlanInputT,
   opts: { queue?: boolean } = {},
 ): Promise<PlanT> {
-  const { shearId } = await checkedOrder(em, shopId, input);
+  const { order, shearId, routing } = await checkedOrder(em, shopId, input);
   const plan = em.create(Plan, {
     shop: em.getReference(Shop, shopId),
     shear: shearId,
+    routing,
     reference: input.reference ?? null,
     title: input.title ?? null,
     status: "queued",
-    input,
+    input: order,
     result: null,
     progress: null,
     failure: null,
@@ -151,10 +154,10 @@ export async function cancelPlan(em: EntityManager, shopId: string, id: string):
 
 /** Plan without storing anything: a worker computes it while the caller waits (under the same limits). */
 export async function previewPlan(em: EntityManager, shopId: string, input: PlanInputT): Promise<PlanPreviewT> {
-  const { context } = await checkedOrder(em, shopId, input);
+  const { order, shearId, context, routing } = await checkedOrder(em, shopId, input);
   let planned: PlannedOrder;
   try {
-    planned = await previewOnWorker(input, context);
+    planned = await previewOnWorker(order, context);
   } catch (err) {
     if (err instanceof PreviewTimeout) {
       throw new ApiError(
@@ -170,10 +173,11 @@ export async function previewPlan(em: EntityManager, shopId: string, input: Plan
     throw new ApiError(422, "plan-failed", "The plan could not be computed", (err as Error).message);
   }
   return {
-    ...planResultOf(input, planned),
+    ...planResultOf(order, planned),
     reference: input.reference ?? null,
     title: input.title ?? null,
-    shear: input.shear,
+    shear: shearId,
+    routing,
     grade: input.grade,
     thickness: input.thickness,
     units: input.units,
@@ -239,6 +243,9 @@ export async function writePrograms(
         throw conflict("A program with one of these references was created meanwhile; nothing was written.");
       throw err;
     });
+    // Each pattern's sheets are held for its program, in the same transaction: all or nothing.
+    for (const [i, program] of written.entries())
+      await reservePattern(tx, shopId, row.input, result.patterns[i], program.id);
     row.programs = written.map((w, i) => ({ pattern: result.patterns[i].key, id: w.id }));
     await tx.flush();
     return { plan: plan.id, data: written };

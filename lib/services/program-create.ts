@@ -8,6 +8,7 @@ import { UniqueConstraintViolationException, type EntityManager } from "@mikro-o
 import { type ProgramEntity, type ShearEntity } from "../../entities";
 import { ApiError, conflict, invalidRequest } from "../errors";
 import type { ProgramInputT, ProgramT } from "../schemas/program";
+import type { RoutingT } from "../schemas/settings";
 import { checkProgram, type CheckResult } from "../shear";
 import { gradeProfile, shearProfile } from "./catalog";
 import { newId } from "../ids";
@@ -15,6 +16,7 @@ import { wakeAfterCommit } from "../db/wake";
 import { OUTBOX_CHANNEL } from "./events";
 import { existingReferences, gradesByCode, shearsNamed } from "./lookups";
 import { viewProgram, type ProgramRecord } from "./program-view";
+import { routeProgram } from "./routing";
 
 export const DEFAULT_PRIORITY = 5;
 
@@ -23,6 +25,8 @@ export interface Checked {
   input: ProgramInputT;
   shear: ShearEntity;
   check: CheckResult;
+  /** how the shear was chosen, when the program named none */
+  routing: RoutingT | null;
 }
 
 /** The refusal of a program whose shear cannot be used (422 pointing at `/shear`). */
@@ -53,6 +57,7 @@ export function applyInput(program: ProgramEntity, input: ProgramInputT, check: 
 /**
  * Check each program against its shear and grade as the catalog has them now, and against
  * the shop's references. Each answer is the checked program or the refusal for it, in order.
+ * A program that names no shear is routed to the one the shop's rule chooses (lib/services/routing.ts).
  */
 export async function checkPrograms(
   em: EntityManager,
@@ -63,7 +68,7 @@ export async function checkPrograms(
     shearsNamed(
       em,
       shopId,
-      inputs.map((i) => i.shear.trim()),
+      inputs.flatMap((i) => (i.shear === undefined ? [] : [i.shear.trim()])),
     ),
     gradesByCode(
       em,
@@ -76,16 +81,34 @@ export async function checkPrograms(
       inputs.map((i) => i.reference),
     ),
   ]);
-  return inputs.map((input) => {
-    const shear = shearOf(input.shear.trim());
-    if (!shear || shear.archivedAt) return shearRefusal("program", Boolean(shear));
+  const checked: (Checked | ApiError)[] = [];
+  for (const input of inputs) {
     const existingId = existing.get(input.reference);
-    if (existingId) return duplicateReference(input.reference, existingId);
+    if (existingId) {
+      checked.push(duplicateReference(input.reference, existingId));
+      continue;
+    }
+    if (input.shear === undefined) {
+      try {
+        const { shear, check, routing } = await routeProgram(em, shopId, input);
+        checked.push({ input: { ...input, shear: shear.id }, shear, check, routing });
+      } catch (err) {
+        if (!(err instanceof ApiError)) throw err;
+        checked.push(err);
+      }
+      continue;
+    }
+    const shear = shearOf(input.shear.trim());
+    if (!shear || shear.archivedAt) {
+      checked.push(shearRefusal("program", Boolean(shear)));
+      continue;
+    }
     const grade = gradeOf.get(input.grade);
     const check = checkProgram(input, { shear: shearProfile(shear), grade: grade ? gradeProfile(grade) : null });
     // A shear named by name is stored by id: renaming it later changes nothing about the program.
-    return { input: { ...input, shear: shear.id }, shear, check };
-  });
+    checked.push({ input: { ...input, shear: shear.id }, shear, check, routing: null });
+  }
+  return checked;
 }
 
 /**
@@ -94,7 +117,7 @@ export async function checkPrograms(
  * event's body and holds the check, so the largest part is sent once.
  */
 const ROW =
-  "id text, shop_id text, shear_id text, reference text, title text, revision int, input jsonb, grade_code text, units text, priority int, due_at timestamptz, validation text, metadata jsonb, created_at timestamptz, updated_at timestamptz, event_id text, view jsonb";
+  "id text, shop_id text, shear_id text, reference text, title text, revision int, input jsonb, grade_code text, units text, priority int, due_at timestamptz, validation text, metadata jsonb, routing jsonb, created_at timestamptz, updated_at timestamptz, event_id text, view jsonb";
 const COLUMNS = ROW.split(", ")
   .map((c) => c.split(" ")[0])
   .slice(0, -2)
@@ -111,7 +134,7 @@ const INSERT = `with x as materialized (select * from jsonb_to_recordset(?::json
  */
 async function insert(em: EntityManager, shopId: string, checked: Checked[]): Promise<ProgramT[]> {
   const now = new Date();
-  const programs = checked.map(({ input, shear, check }): ProgramRecord & { units: string } => ({
+  const programs = checked.map(({ input, shear, check, routing }): ProgramRecord & { units: string } => ({
     id: newId("program"),
     status: "draft",
     revision: 1,
@@ -137,6 +160,7 @@ async function insert(em: EntityManager, shopId: string, checked: Checked[]): Pr
     finishedAt: null,
     progress: null,
     outcome: null,
+    routing,
     createdAt: now,
     updatedAt: now,
   }));
@@ -156,6 +180,7 @@ async function insert(em: EntityManager, shopId: string, checked: Checked[]): Pr
     due_at: p.dueAt,
     validation: p.validation,
     metadata: p.metadata,
+    routing: p.routing,
     created_at: now,
     updated_at: now,
     event_id: newId("event"),

@@ -29,6 +29,7 @@ export type ProgramRecord = Pick<
   | "finishedAt"
   | "progress"
   | "outcome"
+  | "routing"
   | "createdAt"
   | "updatedAt"
 > & { shear: { id: string } };
@@ -42,6 +43,7 @@ export function viewProgram(p: ProgramRecord): ProgramT {
     reference: p.reference,
     title: p.title ?? null,
     shear: p.shear.id,
+    routing: p.routing ?? null,
     grade: p.gradeCode,
     thickness: input.thickness,
     units: input.units,

@@ -4,11 +4,12 @@
  * Every change and its event are written in one transaction.
  */
 import { OptimisticLockError, UniqueConstraintViolationException, type EntityManager } from "@mikro-orm/postgresql";
-import { Program, Shear, type ProgramEntity, type ShearEntity } from "../../entities";
+import { Program, type ProgramEntity, type ShearEntity } from "../../entities";
 import type { ProgramStatus } from "../../entities/Program";
 import { ApiError, conflict, notFound, preconditionFailed, preconditionRequired } from "../errors";
 
-import type { ProgramInputT, ProgramPatchT, ProgramT } from "../schemas/program";
+import type { ProgramInputT, ProgramPatchT, ProgramT, ProgramValidationT } from "../schemas/program";
+import type { RoutingT } from "../schemas/settings";
 import type { CheckT } from "../schemas/check";
 import { checkProgram, type CheckResult } from "../shear";
 import { gradeByCode, gradeProfile, shearProfile } from "./catalog";
@@ -16,6 +17,8 @@ import { announceRelease, recordEvent, type EventType } from "./events";
 import { existingReferences, gradesByCode, shearsNamed } from "./lookups";
 import { applyInput, duplicateReference, shearRefusal } from "./program-create";
 import { viewProgram } from "./program-view";
+import { activeShear, routeProgram } from "./routing";
+import { releaseForProgram } from "./stock";
 
 export { createProgram } from "./program-create";
 
@@ -24,33 +27,20 @@ const CANCELLABLE: ProgramStatus[] = ["draft", "released", "claimed", "running"]
 export const etagOf = (revision: number) => `"${revision}"`;
 
 /**
- * The shear a program or plan names (by id, or by name as the catalog has it, any case), if
- * it is this shop's and not archived; else 422 pointing at `/shear`.
+ * Run the shear core on a program with the shop's current catalog. A program that names no shear
+ * is routed (lib/services/routing.ts) and from then on names the one chosen.
  */
-export async function activeShear(
-  em: EntityManager,
-  shopId: string,
-  idOrName: string,
-  what = "program",
-): Promise<ShearEntity> {
-  const key = idOrName.trim();
-  const shear = /^shr_[0-9A-Z]{26}$/.test(key)
-    ? await em.findOne(Shear, { id: key, shop: shopId })
-    : await em.findOne(Shear, {
-        shop: shopId,
-        name: { $ilike: key.replace(/[\\%_]/g, (c) => `\\${c}`) },
-        archivedAt: null,
-      });
-  if (!shear || shear.archivedAt) throw shearRefusal(what, Boolean(shear));
-  return shear;
-}
-
-/** Run the shear core on a program with the shop's current catalog. */
 export async function runCheck(
   em: EntityManager,
   shopId: string,
   input: ProgramInputT,
-): Promise<{ shear: ShearEntity; check: CheckResult }> {
+  opts: { allowNone?: boolean } = {},
+): Promise<{ shear: ShearEntity; check: CheckResult; routing: RoutingT | null }> {
+  if (input.shear === undefined) {
+    const routed = await routeProgram(em, shopId, input, opts);
+    input.shear = routed.shear.id;
+    return routed;
+  }
   const [shear, grade] = await Promise.all([
     activeShear(em, shopId, input.shear),
     gradeByCode(em, shopId, input.grade),
@@ -58,11 +48,22 @@ export async function runCheck(
   const check = checkProgram(input, { shear: shearProfile(shear), grade: grade ? gradeProfile(grade) : null });
   // A shear named by name is stored by id: renaming it later changes nothing about the program.
   input.shear = shear.id;
-  return { shear, check };
+  return { shear, check, routing: null };
 }
 
-/** The dry run: the same check as create, with the reads concurrent requests share (lib/services/lookups.ts). */
-export async function validateProgram(em: EntityManager, shopId: string, input: ProgramInputT): Promise<CheckT> {
+/**
+ * The dry run: the same check as create, with the reads concurrent requests share (lib/services/lookups.ts).
+ * A program that names no shear is checked on every active shear, and the answer says which can run it.
+ */
+export async function validateProgram(
+  em: EntityManager,
+  shopId: string,
+  input: ProgramInputT,
+): Promise<ProgramValidationT> {
+  if (input.shear === undefined) {
+    const { check, routing } = await runCheck(em, shopId, input, { allowNone: true });
+    return { ...(check as CheckT), routing };
+  }
   const key = input.shear.trim();
   const [shearOf, grades] = await Promise.all([
     shearsNamed(em, shopId, [key]),
@@ -71,7 +72,8 @@ export async function validateProgram(em: EntityManager, shopId: string, input: 
   const shear = shearOf(key);
   if (!shear || shear.archivedAt) throw shearRefusal("program", Boolean(shear));
   const grade = grades.get(input.grade);
-  return checkProgram(input, { shear: shearProfile(shear), grade: grade ? gradeProfile(grade) : null }) as CheckT;
+  const check = checkProgram(input, { shear: shearProfile(shear), grade: grade ? gradeProfile(grade) : null });
+  return { ...(check as CheckT), routing: null };
 }
 
 async function byReference(em: EntityManager, shopId: string, reference: string) {
@@ -202,6 +204,7 @@ export async function cancelProgram(em: EntityManager, shopId: string, id: strin
       p.leaseExpiresAt = null;
     },
     { reason: reason ?? null },
+    (tx, p) => releaseForProgram(tx, shopId, p.id),
   );
 }
 
@@ -218,6 +221,8 @@ export async function transition(
   type: EventType,
   change: (p: ProgramEntity) => void,
   extra: Record<string, unknown> = {},
+  /** more to do in the same transaction (a cancelled program's stock goes back) */
+  also?: (tx: EntityManager, p: ProgramEntity) => Promise<unknown>,
 ): Promise<ProgramT> {
   const from = program.status;
   try {
@@ -233,6 +238,7 @@ export async function transition(
       if (to === "released") await announceRelease(tx, p.shear.id);
       const view = viewProgram(p);
       await recordEvent(tx, shopId, type, p.id, { program: view, from, ...extra });
+      await also?.(tx, p);
       return view;
     });
   } catch (err) {

@@ -13,7 +13,7 @@ import { Plan, Shear } from "../../entities";
 import { waitForNotification } from "../db/notify";
 import type { Order } from "../planner/order";
 import type { PlanContext, PlannedOrder } from "../planner/planned";
-import type { PlanInputT } from "../schemas/plan";
+import type { PlanOrderT } from "../schemas/plan";
 import { gradeByCode, gradeProfile, shearProfile } from "../services/catalog";
 import { recordEvent } from "../services/events";
 import { PLAN_CANCEL_CHANNEL, PLAN_DONE_CHANNEL } from "../services/plans";
@@ -91,7 +91,7 @@ export function planInThread(
 /** The order and the catalog as the plan's shear and grade are now. */
 async function contextOf(
   em: EntityManager,
-  plan: { shop: { id: string }; shear: { id: string }; input: PlanInputT },
+  plan: { shop: { id: string }; shear: { id: string }; input: PlanOrderT },
 ): Promise<{ order: Order; context: PlanContext }> {
   const order = plan.input;
   const shear = await em.findOneOrFail(Shear, { id: plan.shear.id });

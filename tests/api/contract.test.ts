@@ -11,6 +11,8 @@ import * as gatewayOps from "../../lib/api/operations/gateway";
 import * as programOps from "../../lib/api/operations/programs";
 import * as planOps from "../../lib/api/operations/plans";
 import * as webhookOps from "../../lib/api/operations/webhooks";
+import * as settingsOps from "../../lib/api/operations/settings";
+import * as stockOps from "../../lib/api/operations/stock";
 import { startReceiver, type Receiver } from "../support/receiver";
 import { BASE_URL } from "../support/env";
 import {
@@ -50,8 +52,9 @@ describe("meta", () => {
     expectDocumented(metaOps.getCutProgramSchema, res);
     expect(res.body.$schema).toBe("https://json-schema.org/draft/2020-12/schema");
     expect(res.body.required).toEqual(
-      expect.arrayContaining(["reference", "shear", "grade", "thickness", "units", "sheet", "cuts"]),
+      expect.arrayContaining(["reference", "grade", "thickness", "units", "sheet", "cuts"]),
     );
+    expect(res.body.required).not.toContain("shear"); // left out, the shop's shears are checked and one chosen
   });
 });
 
@@ -384,6 +387,51 @@ describe("webhooks", () => {
     const res = await api().delete(`/api/v1/webhook-endpoints/${endpointId}`).set(auth());
     expectDocumented(webhookOps.deleteEndpoint, res);
     expect(res.status).toBe(204);
+  });
+});
+
+describe("stock", () => {
+  it("adds, lists, reads, adjusts, reserves, releases and archives stock", async () => {
+    const created = await api().post("/api/v1/stock").set(auth()).send({
+      kind: "remnant",
+      grade: "A36",
+      thicknessMm: 3,
+      lengthMm: 900,
+      widthMm: 600,
+      quantity: 2,
+      location: "R9",
+    });
+    expectDocumented(stockOps.createStockItem, created);
+    expect(created.status).toBe(201);
+    const id = created.body.id;
+    const list = await api().get("/api/v1/stock?grade=A36&thicknessMm=3&kind=remnant&limit=5").set(auth());
+    expectDocumented(stockOps.listStock, list);
+    expect(list.body.data.map((s: { id: string }) => s.id)).toContain(id);
+    const read = await api().get(`/api/v1/stock/${id}`).set(auth());
+    expectDocumented(stockOps.getStockItem, read);
+    const adjusted = await api().post(`/api/v1/stock/${id}/adjust`).set(auth()).send({ delta: 1, reason: "found" });
+    expectDocumented(stockOps.adjustStock, adjusted);
+    expect(adjusted.body.quantity).toBe(3);
+    const reserved = await api().post(`/api/v1/stock/${id}/reservations`).set(auth()).send({ quantity: 2 });
+    expectDocumented(stockOps.reserveStock, reserved);
+    expect(reserved.status).toBe(201);
+    const released = await api().post(`/api/v1/stock-reservations/${reserved.body.id}/release`).set(auth());
+    expectDocumented(stockOps.releaseReservation, released);
+    expect(released.body.status).toBe("released");
+    const archived = await api().post(`/api/v1/stock/${id}/archive`).set(auth());
+    expectDocumented(stockOps.archiveStockItem, archived);
+    expect(archived.body.archivedAt).not.toBeNull();
+  });
+});
+
+describe("settings", () => {
+  it("reads and changes the shop's settings", async () => {
+    const read = await api().get("/api/v1/settings").set(auth());
+    expectDocumented(settingsOps.getSettings, read);
+    expect(read.body).toEqual({ routingRule: "least_capacity", remnantMinMm: null });
+    const changed = await api().patch("/api/v1/settings").set(auth()).send({ routingRule: "least_capacity" });
+    expectDocumented(settingsOps.updateSettings, changed);
+    expect(changed.status).toBe(200);
   });
 });
 

@@ -109,6 +109,20 @@ function baseBody(op: Operation): unknown {
       return { code: "G1", name: "g", family: "carbon-steel", standard: "s", yieldMpa: 250, tensileMinMpa: 400 };
     case "updateGrade":
       return { name: "g" };
+    case "createStockItem":
+      return {
+        kind: "sheet",
+        grade: "A36",
+        thicknessMm: 3,
+        lengthMm: 2500,
+        widthMm: 1250,
+        quantity: 4,
+        location: "R1",
+      };
+    case "adjustStock":
+      return { delta: 1, reason: "counted" };
+    case "reserveStock":
+      return { quantity: 1, note: "n" };
     case "setupRecommendation":
       return { shear: shop.shearId, grade: "A36", thickness: { value: 3 }, units: "mm" };
     default:
@@ -142,6 +156,8 @@ const idFor = (op: Operation) => {
   if (op.path.startsWith("/events")) return ids.event;
   if (op.path.startsWith("/shears")) return ids.shear;
   if (op.path.startsWith("/grades")) return ids.grade;
+  if (op.path.startsWith("/stock-reservations")) return ids.reservation;
+  if (op.path.startsWith("/stock")) return ids.stock;
   return "x";
 };
 
@@ -177,12 +193,11 @@ function caseFor(op: Operation): fc.Arbitrary<Case> {
       fc.record({ kind: fc.constant("whole" as const), value: hostileValue }),
     );
   }
-  if (op.query) {
-    const names = [...Object.keys(op.query.shape), "cursor", "unknown\u0000"];
-    options.push(
-      fc.record({ kind: fc.constant("query" as const), name: fc.constantFrom(...names), value: hostileValue }),
-    );
-  }
+  // every operation gets a query string: one that takes none must ignore it or refuse it cleanly
+  const names = [...Object.keys(op.query?.shape ?? {}), "cursor", "unknown\u0000"];
+  options.push(
+    fc.record({ kind: fc.constant("query" as const), name: fc.constantFrom(...names), value: hostileValue }),
+  );
   if (op.params) options.push(fc.record({ kind: fc.constant("id" as const), value: fc.constantFrom(...HOSTILE_IDS) }));
   return fc.oneof(...options);
 }
@@ -223,8 +238,10 @@ async function rowCounts(): Promise<Record<string, number>> {
             (select count(*) from shears where shop_id = ?) as shears,
             (select count(*) from grades where shop_id = ?) as grades, (select count(*) from api_keys where shop_id = ?) as keys,
             (select coalesce(sum(revision), 0) from programs where shop_id = ?) as revisions,
-            (select count(*) from shears where shop_id = ? and archived_at is not null) as archived`,
-      Array(9).fill(shop.shopId),
+            (select count(*) from shears where shop_id = ? and archived_at is not null) as archived,
+            (select count(*) from stock_items where shop_id = ?) as stock, (select coalesce(sum(quantity * 1000 + reserved), 0) from stock_items where shop_id = ?) as sheets,
+            (select count(*) from stock_reservations where shop_id = ? and status = 'open') as reservations`,
+      Array(12).fill(shop.shopId),
     );
   return Object.fromEntries(Object.entries(row).map(([k, v]) => [k, Number(v)]));
 }
@@ -243,6 +260,9 @@ beforeAll(async () => {
         "catalog:write",
         "events:read",
         "webhooks:write",
+        "settings:write",
+        "stock:read",
+        "stock:write",
       ],
       { rateLimitPerMin: 1_000_000 },
     )
@@ -262,6 +282,8 @@ beforeAll(async () => {
   ids.endpoint = (await call("POST", "/webhook-endpoints", { url: receiver.url })).endpoint.id;
   ids.event = (await call("GET", `/events?subject=${ids.program}`)).data[0].id;
   ids.grade = (await call("GET", "/grades?limit=1")).data[0].id;
+  ids.stock = (await call("POST", "/stock", baseBody({ operationId: "createStockItem" } as Operation))).id;
+  ids.reservation = (await call("POST", `/stock/${ids.stock}/reservations`, { quantity: 1 })).id;
 });
 afterAll(async () => {
   await receiver?.close();

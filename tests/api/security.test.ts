@@ -81,6 +81,14 @@ function bodyFor(op: Operation): object | undefined {
       return { url: "http://127.0.0.1:9/hook" };
     case "updateWebhookEndpoint":
       return { description: "changed" };
+    case "createStockItem":
+      return { kind: "sheet", grade: "A36", thicknessMm: 3, lengthMm: 2500, widthMm: 1250, quantity: 4 };
+    case "adjustStock":
+      return { delta: 1, reason: "counted" };
+    case "reserveStock":
+      return { quantity: 1 };
+    case "updateSettings":
+      return { routingRule: "least_capacity" };
     case "resendEvent":
       return { endpoint: foreign.whe };
     default:
@@ -125,6 +133,17 @@ beforeAll(async () => {
     .set("Authorization", `Bearer ${theirs.key}`)
     .expect(200);
   foreign.evt = events.body.data[0].id;
+  foreign.stk = (
+    await post("/api/v1/stock", {
+      kind: "sheet",
+      grade: "A36",
+      thicknessMm: 3,
+      lengthMm: 2500,
+      widthMm: 1250,
+      quantity: 4,
+    })
+  ).body.id;
+  foreign.srv = (await post(`/api/v1/stock/${foreign.stk}/reservations`, { quantity: 1 })).body.id;
 });
 afterAll(closeTestOrm);
 
@@ -154,6 +173,8 @@ describe.each(secured.map((op) => [op.operationId, op] as const))("%s", (_name, 
         ["/grades", "grd"],
         ["/webhook-endpoints", "whe"],
         ["/events", "evt"],
+        ["/stock-reservations", "srv"],
+        ["/stock", "stk"],
       ];
       const prefix = prefixes.find(([p]) => op.path.startsWith(p))![1];
       const res = await call(op, pathFor(op, foreign[prefix]), mine.key);

@@ -39,9 +39,21 @@ describe("webhook payloads", () => {
     // endpoint.test
     await api().post(`/api/v1/webhook-endpoints/${endpoint.body.endpoint.id}/test`).set(auth).expect(202);
 
-    // created, updated, released, claimed, started, progressed, completed
+    // created, updated, released, claimed, started, progressed, completed; its run books the reserved
+    // sheets out (stock.consumed) and its offcuts in as remnants (stock.remnant_added)
+    await api().patch("/api/v1/settings").set(auth).send({ remnantMinMm: 200 }).expect(200);
     const created = await api().post("/api/v1/programs").set(auth).send(exampleProgram(shop.shearId)).expect(201);
     const a = created.body.id as string;
+    const rack = await api()
+      .post("/api/v1/stock")
+      .set(auth)
+      .send({ kind: "sheet", grade: "A36", thicknessMm: 3.42, lengthMm: 3048, widthMm: 1219.2, quantity: 2 })
+      .expect(201);
+    await api()
+      .post(`/api/v1/stock/${rack.body.id}/reservations`)
+      .set(auth)
+      .send({ quantity: 2, program: a })
+      .expect(201);
     await api()
       .patch(`/api/v1/programs/${a}`)
       .set(auth)
@@ -77,6 +89,26 @@ describe("webhook payloads", () => {
     await api().post(`/api/v1/programs/${d}/release`).set(auth).send({}).expect(200);
     await api().post(`/api/v1/shears/${shop.shearId}/claims`).set(auth).send({}).expect(200);
     await (await testOrm()).em.fork().nativeUpdate(Program, { id: d }, { leaseExpiresAt: new Date(Date.now() - 1000) });
+
+    // stock: created, adjusted, reserved for a program and released when it is cancelled, archived
+    const stock = await api()
+      .post("/api/v1/stock")
+      .set(auth)
+      .send({ kind: "sheet", grade: "A36", thicknessMm: 3.42, lengthMm: 3048, widthMm: 1219.2, quantity: 4 })
+      .expect(201);
+    await api()
+      .post(`/api/v1/stock/${stock.body.id}/adjust`)
+      .set(auth)
+      .send({ delta: -1, reason: "dented" })
+      .expect(200);
+    const e = (await api().post("/api/v1/programs").set(auth).send(exampleProgram(shop.shearId)).expect(201)).body.id;
+    await api()
+      .post(`/api/v1/stock/${stock.body.id}/reservations`)
+      .set(auth)
+      .send({ quantity: 2, program: e })
+      .expect(201);
+    await api().post(`/api/v1/programs/${e}/cancel`).set(auth).send({}).expect(200);
+    await api().post(`/api/v1/stock/${stock.body.id}/archive`).set(auth).expect(200);
 
     // plan.completed and plan.cancelled through the API
     await api().post("/api/v1/plans").set(auth).set("Prefer", "wait=10").send(examplePlan(shop.shearId)).expect(201);

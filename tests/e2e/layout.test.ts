@@ -45,6 +45,19 @@ beforeAll(async () => {
     .expect(201);
   const event = (await api().get(`/api/v1/events?subject=${program.id}`).set(auth)).body.data[0];
   const grade = (await api().get("/api/v1/grades?limit=1").set(auth)).body.data[0];
+  await api()
+    .post("/api/v1/stock")
+    .set(auth)
+    .send({
+      kind: "remnant",
+      grade: "A36",
+      thicknessMm: 3.42,
+      lengthMm: 1800,
+      widthMm: 600,
+      quantity: 2,
+      location: "Rack B2",
+    })
+    .expect(201);
   const log = (await api().get("/api/v1/shears").set(auth)).headers["x-request-id"];
   await new Promise((r) => setTimeout(r, 800)); // the request log is written in batches
   Object.assign(pages, {
@@ -54,6 +67,7 @@ beforeAll(async () => {
     plans: "/console/plans",
     "plan-new": "/console/plans/new",
     plan: `/console/plans/${plan.id}`,
+    stock: "/console/stock",
     upload: "/console/upload",
     keys: "/console/keys",
     webhooks: "/console/webhooks",

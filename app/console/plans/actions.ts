@@ -59,12 +59,12 @@ export const planAction = memberAction("programs:write")
     const input = {
       reference: text(form.get("reference")),
       title: text(form.get("title")),
-      shear: text(form.get("shear")) ?? "",
+      shear: text(form.get("shear")), // none: the hub checks every active shear and chooses one
       grade: text(form.get("grade")) ?? "",
       thickness:
         thicknessKind === "gauge" ? { gauge: num(form.get("thickness")) } : { value: num(form.get("thickness")) },
       units: text(form.get("units")) ?? "mm",
-      stock: parseStock(text(form.get("stock"))),
+      stock: form.get("onHand") === "on" ? ("on_hand" as const) : parseStock(text(form.get("stock"))),
       blanks: parsed.blanks,
       options: JSON.parse(
         JSON.stringify({

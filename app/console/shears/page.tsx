@@ -5,12 +5,18 @@ import { can } from "@/lib/auth/roles";
 import { currentMember } from "@/lib/auth/session";
 import { requestEm } from "@/lib/db/orm";
 import { listShears } from "@/lib/services/catalog";
+import { getSettings } from "@/lib/services/settings";
+import { SettingsForm } from "@/components/console/SettingsForm";
 
 export const metadata = { title: "Shears" };
 
 export default async function Shears() {
   const member = await currentMember();
-  const shears = await listShears(await requestEm(), member.shopId, { limit: 200 });
+  const em = await requestEm();
+  const [shears, settings] = await Promise.all([
+    listShears(em, member.shopId, { limit: 200 }),
+    getSettings(em, member.shopId),
+  ]);
   return (
     <>
       <PageHeader
@@ -54,6 +60,7 @@ export default async function Shears() {
             <ShearForm />
           </section>
         )}
+        {can(member.role, "settings:manage") && <SettingsForm settings={settings} />}
       </div>
     </>
   );

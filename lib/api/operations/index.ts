@@ -5,13 +5,17 @@ import { gatewayOperations } from "./gateway";
 import { metaOperations } from "./meta";
 import { planOperations } from "./plans";
 import { programOperations } from "./programs";
+import { settingsOperations } from "./settings";
+import { stockOperations } from "./stock";
 import { webhookOperations } from "./webhooks";
 
 export const operations: Operation[] = [
   ...programOperations,
   ...planOperations,
+  ...stockOperations,
   ...gatewayOperations,
   ...webhookOperations,
   ...catalogOperations,
+  ...settingsOperations,
   ...metaOperations,
 ] as Operation[];

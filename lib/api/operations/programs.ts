@@ -9,9 +9,9 @@ import {
   ProgramInput,
   ProgramListQuery,
   ProgramPatch,
+  ProgramValidation,
   ReleaseInput,
 } from "../../schemas/program";
-import { Check } from "../../schemas/check";
 
 const tags = ["Programs"];
 const params = idParam("prg", "program");
@@ -25,7 +25,7 @@ export const createProgram = defineOperation({
   scope: "programs:write",
   summary: "Create a cut program",
   description:
-    "Checks the program against its shear and grade and stores it as a `draft` with the findings, setup, yield and estimate. A program with findings of severity `error` is stored too, and cannot be released until fixed. A second program with the same `reference` answers 409 with the existing id.",
+    "Checks the program against its shear and grade and stores it as a `draft` with the findings, setup, yield and estimate. A program with findings of severity `error` is stored too, and cannot be released until fixed. A second program with the same `reference` answers 409 with the existing id. Without `shear`, the shop's active shears are checked and one chosen (`routing`); when none can cut it, 422 `no-shear-can-cut` with each shear's reason.",
   body: ProgramInput,
   responses: {
     201: {
@@ -100,9 +100,10 @@ export const validateProgram = defineOperation({
   tags,
   scope: "programs:read",
   summary: "Check a program without storing it",
-  description: "A dry run: the same check as create, nothing stored, no events.",
+  description:
+    "A dry run: the same check as create, nothing stored, no events. Without `shear`, every active shear of the shop is checked and `routing` says which can cut it, which would be chosen and why the others were not.",
   body: ProgramInput,
-  responses: { 200: { description: "The check.", schema: Check } },
+  responses: { 200: { description: "The check.", schema: ProgramValidation } },
 });
 
 export const releaseProgram = defineOperation({

@@ -5,6 +5,7 @@ import { WritePrograms } from "@/components/console/PlanActions";
 import { PlanProgress } from "@/components/console/PlanProgress";
 import { groupName } from "@/components/console/words";
 import { SafetyNote } from "@/components/SafetyNote";
+import { RoutingNote } from "@/components/console/RoutingNote";
 import { Badge, PageHeader, Stat, Table, Td } from "@/components/ui";
 import { ApiError } from "@/lib/errors";
 import { can } from "@/lib/auth/roles";
@@ -120,6 +121,7 @@ export default async function PlanPage({ params }: { params: Promise<{ id: strin
 
       <div className="grid gap-6 xl:grid-cols-[1fr_22rem]">
         <div className="space-y-6">
+          {view.routing && <RoutingNote routing={view.routing} />}
           {plan.findings.length > 0 && (
             <section>
               <h2 className="mb-2 text-sm font-semibold">Findings</h2>

@@ -4,6 +4,7 @@ import { CutDrawing } from "@/components/console/CutDrawing";
 import { ProgramActions } from "@/components/console/ProgramActions";
 import { groupName, pointerInWords, thicknessInWords } from "@/components/console/words";
 import { SafetyNote } from "@/components/SafetyNote";
+import { RoutingNote } from "@/components/console/RoutingNote";
 import { Badge, PageHeader, Table, Td, when } from "@/components/ui";
 import { ApiError } from "@/lib/errors";
 import { can } from "@/lib/auth/roles";
@@ -93,6 +94,7 @@ export default async function ProgramPage({ params }: { params: Promise<{ id: st
 
       <div className="grid gap-6 xl:grid-cols-[1fr_22rem]">
         <div className="space-y-6">
+          {p.routing && <RoutingNote routing={p.routing} />}
           <section>
             <h2 className="mb-2 text-sm font-semibold">Findings</h2>
             {c.findings.length === 0 ? (

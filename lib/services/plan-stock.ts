@@ -24,6 +24,17 @@ function thicknessMm(input: PlanInputT, grade: GradeEntity | null): number | nul
 const inUnits = (mm: number, units: PlanInputT["units"]) =>
   units === "mm" ? Math.floor(mm + 1e-9) : Math.floor((mm / MM_PER_IN) * 16 + 1e-9) / 16;
 
+/**
+ * At most the planner's number of stock sizes: every full-sheet item keeps its place first (the
+ * order must be cuttable from what the racks hold), and the remnants fill the places left,
+ * smallest first as listed, so a rack full of small remnants never crowds the full sheets out.
+ */
+function keepWithinLimit<T extends { remnant: boolean }>(rows: T[]): T[] {
+  const sheets = rows.filter((r) => !r.remnant).slice(0, PLAN_LIMITS.stockSizes);
+  const remnants = rows.filter((r) => r.remnant).slice(0, PLAN_LIMITS.stockSizes - sheets.length);
+  return [...remnants, ...sheets];
+}
+
 /** The order with its stock as explicit rows; `"on_hand"` is drawn from the shop's stock (422 when there is none). */
 export async function drawStock(
   em: EntityManager,
@@ -49,7 +60,7 @@ export async function drawStock(
       a.lengthMm * a.widthMm - b.lengthMm * b.widthMm ||
       (a.id < b.id ? -1 : 1),
   );
-  const rows = items
+  const usable = items
     .map((s) => ({
       length: inUnits(s.lengthMm, input.units),
       width: inUnits(s.widthMm, input.units),
@@ -58,8 +69,8 @@ export async function drawStock(
       remnant: s.kind === "remnant",
       item: s.id,
     }))
-    .filter((r) => r.length > 0 && r.width > 0)
-    .slice(0, PLAN_LIMITS.stockSizes);
+    .filter((r) => r.length > 0 && r.width > 0);
+  const rows = keepWithinLimit(usable);
   if (!rows.length) {
     const message = `no ${input.grade} stock of this thickness has sheets available`;
     throw invalidRequest(`The plan cannot draw on stock: ${message}.`, [

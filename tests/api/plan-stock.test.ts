@@ -111,4 +111,24 @@ describe("a plan from stock on hand", () => {
     expect(res.body.errors[0]).toMatchObject({ pointer: "/stock" });
     expect((await api().get("/api/v1/plans?limit=200").set(auth())).body.data.length).toBe(before);
   });
+  it("keeps the full sheets in the plan when there are more small remnants than the planner takes sizes", async () => {
+    const own = await createTestShop("plan-stock-crowd");
+    const ownAuth = { Authorization: `Bearer ${own.key}` };
+    const add = async (body: object) =>
+      (await api().post("/api/v1/stock").set(ownAuth).send(body).expect(201)).body as { id: string };
+    // 12 offcut strips, each its own rack item and each too small for a 450 × 280 bracket, and one full sheet
+    for (let i = 0; i < 12; i++)
+      await add({ kind: "remnant", grade: "A36", thicknessMm: 3, lengthMm: 300 + i, widthMm: 150, quantity: 1 });
+    const full = await add({ kind: "sheet", grade: "A36", thicknessMm: 3, lengthMm: 2500, widthMm: 1250, quantity: 2 });
+    const res = await api()
+      .post("/api/v1/plans")
+      .set(ownAuth)
+      .set("Prefer", "wait=10")
+      .send({ ...order(4), shear: own.shearId });
+    expect(res.status, JSON.stringify(res.body).slice(0, 500)).toBe(201);
+    expect(res.body.result.coverage).toBe("complete");
+    const rows = res.body.result.stock as { item: string; remnant: boolean; used: number }[];
+    expect(rows.length).toBeLessThanOrEqual(10); // the planner's limit on stock sizes
+    expect(rows.find((r) => r.item === full.id)).toMatchObject({ remnant: false, used: 1 });
+  });
 });

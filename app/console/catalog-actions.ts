@@ -5,8 +5,8 @@ import { zfd } from "zod-form-data";
 import { invalidRequest } from "@/lib/errors";
 import { zodErrors } from "@/lib/api/route-input";
 import { memberAction } from "@/lib/auth/action";
-import { GradeInput, GradePatch } from "@/lib/schemas/grade";
-import { ShearInput, ShearPatch } from "@/lib/schemas/shear";
+import { GradeInputSchema, GradePatchSchema } from "@/lib/schemas/grade";
+import { ShearInputSchema, ShearPatchSchema } from "@/lib/schemas/shear";
 import { z } from "@/lib/schemas/zod";
 import * as catalog from "@/lib/services/catalog";
 
@@ -23,8 +23,8 @@ const save = z.object({ id: z.string().max(64).nullable(), data: z.record(z.stri
 export const saveShear = memberAction("catalog:manage")
   .inputSchema(save)
   .action(async ({ parsedInput: { id, data }, ctx: { member, em } }) => {
-    if (id) await catalog.updateShear(em, member.shopId, id, parsed(ShearPatch, data));
-    else await catalog.createShear(em, member.shopId, parsed(ShearInput, data));
+    if (id) await catalog.updateShear(em, member.shopId, id, parsed(ShearPatchSchema, data));
+    else await catalog.createShear(em, member.shopId, parsed(ShearInputSchema, data));
     revalidatePath("/console/shears");
     return { message: "Saved." };
   });
@@ -32,8 +32,8 @@ export const saveShear = memberAction("catalog:manage")
 export const saveGrade = memberAction("catalog:manage")
   .inputSchema(save)
   .action(async ({ parsedInput: { id, data }, ctx: { member, em } }) => {
-    if (id) await catalog.updateGrade(em, member.shopId, id, parsed(GradePatch, data));
-    else await catalog.createGrade(em, member.shopId, parsed(GradeInput, data));
+    if (id) await catalog.updateGrade(em, member.shopId, id, parsed(GradePatchSchema, data));
+    else await catalog.createGrade(em, member.shopId, parsed(GradeInputSchema, data));
     revalidatePath("/console/grades");
     return { message: "Saved." };
   });

@@ -7,8 +7,8 @@ import { useForm, type FieldValues, type Resolver } from "react-hook-form";
 import { saveGrade, saveShear } from "@/app/console/catalog-actions";
 import { GAUGE_FAMILIES, GRADE_FAMILIES } from "@/lib/schemas/enums";
 import { GAUGE_SYSTEM_WORDS } from "./words";
-import { GradeInput, GradePatch } from "@/lib/schemas/grade";
-import { ShearInput, ShearPatch } from "@/lib/schemas/shear";
+import { GradeInputSchema, GradePatchSchema } from "@/lib/schemas/grade";
+import { ShearInputSchema, ShearPatchSchema } from "@/lib/schemas/shear";
 
 type Field = {
   name: string;
@@ -99,7 +99,7 @@ function CatalogForm({
   editing,
 }: {
   fields: Field[];
-  schema: typeof ShearInput | typeof ShearPatch | typeof GradeInput | typeof GradePatch;
+  schema: typeof ShearInputSchema | typeof ShearPatchSchema | typeof GradeInputSchema | typeof GradePatchSchema;
   initial: Record<string, unknown>;
   save: (data: Record<string, unknown>) => Promise<Parameters<typeof stateOf>[0]>;
   editing: boolean;
@@ -181,7 +181,7 @@ export function ShearForm({ id, initial = {} }: { id?: string; initial?: Record<
   return (
     <CatalogForm
       fields={SHEAR_FIELDS}
-      schema={id ? ShearPatch : ShearInput}
+      schema={id ? ShearPatchSchema : ShearInputSchema}
       initial={initial}
       editing={Boolean(id)}
       save={(data) => saveShear({ id: id ?? null, data })}
@@ -193,7 +193,7 @@ export function GradeForm({ id, initial = {} }: { id?: string; initial?: Record<
   return (
     <CatalogForm
       fields={GRADE_FIELDS}
-      schema={id ? GradePatch : GradeInput}
+      schema={id ? GradePatchSchema : GradeInputSchema}
       initial={initial}
       editing={Boolean(id)}
       save={(data) => saveGrade({ id: id ?? null, data })}

@@ -1,6 +1,6 @@
 import { buildOpenApi } from "./openapi";
 import { operations } from "./operations";
-import { ProgramInput } from "../schemas/program";
+import { ProgramInputSchema } from "../schemas/program";
 import { z } from "../schemas/zod";
 
 let cached: ReturnType<typeof buildOpenApi> | undefined;
@@ -16,6 +16,6 @@ export function cutProgramJsonSchema() {
   return {
     $id: "/api/v1/schemas/cut-program.json",
     title: "Shearwire cut program",
-    ...z.toJSONSchema(ProgramInput, { target: "draft-2020-12", io: "input" }),
+    ...z.toJSONSchema(ProgramInputSchema, { target: "draft-2020-12", io: "input" }),
   };
 }

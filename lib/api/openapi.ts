@@ -3,7 +3,7 @@
  */
 import { OpenAPIRegistry, OpenApiGeneratorV31 } from "@asteasolutions/zod-to-openapi";
 import type { RouteConfig } from "@asteasolutions/zod-to-openapi";
-import { Problem } from "../schemas/common";
+import { ProblemSchema } from "../schemas/common";
 import { EVENT_TYPES, EVENT_TYPE_WORDS } from "../schemas/enums";
 import { WEBHOOK_ENVELOPES } from "../schemas/events";
 import { exampleProgram, exampleShear, exampleWebhook } from "./examples";
@@ -114,7 +114,7 @@ export function buildOpenApi(operations: Operation[], extra?: (registry: OpenAPI
     description:
       "An API key of your shop: `Authorization: Bearer swk_…`. Create one in the console or with `npm run key:create`.",
   });
-  registry.register("Problem", Problem);
+  registry.register("Problem", ProblemSchema);
   const headerRefs: Record<string, { $ref: string }> = {};
   for (const [name, spec] of Object.entries({
     ...COMMON_HEADERS,

@@ -1,8 +1,8 @@
 /** Gauges and the stand-alone setup recommendation. */
 import { z } from "./zod";
-import { Thickness } from "./program";
+import { ThicknessSchema } from "./program";
 
-export const GaugeTable = z
+export const GaugeTableSchema = z
   .object({
     family: z.enum(["msg", "galvanized", "ussg", "awg"]),
     name: z.string(),
@@ -11,15 +11,15 @@ export const GaugeTable = z
   })
   .openapi("GaugeTable");
 
-export const GaugeQuery = z.object({
+export const GaugeQuerySchema = z.object({
   family: z.enum(["msg", "galvanized", "ussg", "awg"]).optional().openapi({ description: "Only this gauge system" }),
 });
 
-export const SetupRequest = z
+export const SetupRequestSchema = z
   .object({
     shear: z.string().min(1).max(64),
     grade: z.string().trim().min(1).max(50),
-    thickness: Thickness,
+    thickness: ThicknessSchema,
     units: z.enum(["in", "mm"]),
     length: z
       .number()

@@ -9,7 +9,7 @@ const SetupValue = z
   .object({ ...Quantity, source: z.enum(["computed", "given"]), why: z.string() })
   .openapi("SetupValue");
 
-export const Finding = z
+export const FindingSchema = z
   .object({
     code: z
       .string()
@@ -38,11 +38,11 @@ const Totals = z.object({
   stockArea: z.number(),
 });
 
-export const Check = z
+export const CheckSchema = z
   .object({
     validation: z.enum(["pass", "warn", "fail"]),
     units: z.enum(["in", "mm"]).nullable(),
-    findings: z.array(Finding),
+    findings: z.array(FindingSchema),
     thickness: z
       .object({
         value: z.number(),
@@ -170,4 +170,4 @@ export const Check = z
       "What the shear core made of a program: findings, setup, force, yield and cycle estimate, in the program's units.",
   });
 
-export type CheckT = z.infer<typeof Check>;
+export type CheckT = z.infer<typeof CheckSchema>;

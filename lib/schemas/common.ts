@@ -1,6 +1,6 @@
 import { z } from "./zod";
 
-export const Problem = z
+export const ProblemSchema = z
   .object({
     type: z.string().openapi({ example: "/problems/not-found" }),
     title: z.string(),
@@ -33,7 +33,7 @@ export const idParam = (prefix: string, what: string) =>
       }),
   });
 
-export const Pagination = z.object({
+export const PaginationSchema = z.object({
   limit: z.coerce.number().int().min(1).max(200).default(50).openapi({ description: "Page size, 1 to 200." }),
   cursor: z.string().max(200).optional().openapi({ description: "The `next_cursor` of the previous page." }),
 });

@@ -7,9 +7,9 @@
 import { EVENT_TYPES, type EventType } from "./enums";
 import { PROGRAM_STATUSES } from "./enums";
 import { FAILURE_REASONS } from "./gateway";
-import { PlanSummary } from "./plan";
-import { Program } from "./program";
-import { StockItem, StockReservation } from "./stock";
+import { PlanSummarySchema } from "./plan";
+import { ProgramSchema } from "./program";
+import { StockItemSchema, StockReservationSchema } from "./stock";
 import { z } from "./zod";
 
 const from = z.enum(PROGRAM_STATUSES).openapi({ description: "The state the program was in before" });
@@ -25,16 +25,16 @@ const Outcome = z.object({
 });
 
 export const EVENT_DATA = {
-  "program.created": z.object({ program: Program }),
+  "program.created": z.object({ program: ProgramSchema }),
   "program.updated": z.object({
-    program: Program,
+    program: ProgramSchema,
     changed: z.array(z.string()).openapi({ description: "The fields the change sent" }),
   }),
-  "program.released": z.object({ program: Program, from }),
-  "program.claimed": z.object({ program: Program, from, gateway }),
-  "program.started": z.object({ program: Program, from }),
+  "program.released": z.object({ program: ProgramSchema, from }),
+  "program.claimed": z.object({ program: ProgramSchema, from, gateway }),
+  "program.started": z.object({ program: ProgramSchema, from }),
   "program.progressed": z.object({
-    program: Program,
+    program: ProgramSchema,
     from,
     progress: z.object({
       groupsDone: z.number().int(),
@@ -42,9 +42,9 @@ export const EVENT_DATA = {
       piecesDone: z.number().int().optional(),
     }),
   }),
-  "program.completed": z.object({ program: Program, from, outcome: Outcome }),
+  "program.completed": z.object({ program: ProgramSchema, from, outcome: Outcome }),
   "program.failed": z.object({
-    program: Program,
+    program: ProgramSchema,
     from,
     outcome: z.object({
       reason: z.enum(FAILURE_REASONS),
@@ -54,32 +54,32 @@ export const EVENT_DATA = {
       sheetsUsed: z.number().int().optional(),
     }),
   }),
-  "program.cancelled": z.object({ program: Program, from, reason: z.string().nullable() }),
-  "program.lease_expired": z.object({ program: Program, from, gateway, reason: z.string() }),
-  "plan.completed": z.object({ plan: PlanSummary }),
-  "plan.failed": z.object({ plan: PlanSummary }),
-  "plan.cancelled": z.object({ plan: PlanSummary }),
-  "stock.created": z.object({ item: StockItem }),
+  "program.cancelled": z.object({ program: ProgramSchema, from, reason: z.string().nullable() }),
+  "program.lease_expired": z.object({ program: ProgramSchema, from, gateway, reason: z.string() }),
+  "plan.completed": z.object({ plan: PlanSummarySchema }),
+  "plan.failed": z.object({ plan: PlanSummarySchema }),
+  "plan.cancelled": z.object({ plan: PlanSummarySchema }),
+  "stock.created": z.object({ item: StockItemSchema }),
   "stock.adjusted": z.object({
-    item: StockItem,
+    item: StockItemSchema,
     delta: z.number().int().openapi({ description: "Sheets added (positive) or taken away (negative)" }),
     reason: z.string(),
   }),
-  "stock.archived": z.object({ item: StockItem }),
-  "stock.reserved": z.object({ item: StockItem, reservation: StockReservation }),
+  "stock.archived": z.object({ item: StockItemSchema }),
+  "stock.reserved": z.object({ item: StockItemSchema, reservation: StockReservationSchema }),
   "stock.released": z.object({
-    item: StockItem,
-    reservation: StockReservation,
+    item: StockItemSchema,
+    reservation: StockReservationSchema,
     reason: z.string().openapi({ description: "Why the sheets went back" }),
   }),
   "stock.consumed": z.object({
-    item: StockItem,
-    reservation: StockReservation,
+    item: StockItemSchema,
+    reservation: StockReservationSchema,
     program: z.string().openapi({ description: "The program whose run used the sheets" }),
     sheets: z.number().int().openapi({ description: "Sheets booked out of stock" }),
   }),
   "stock.remnant_added": z.object({
-    item: StockItem,
+    item: StockItemSchema,
     program: z.string().openapi({ description: "The program whose run left the offcut" }),
   }),
   "endpoint.test": z.object({ endpoint: z.object({ id: z.string(), url: z.string() }), message: z.string() }),

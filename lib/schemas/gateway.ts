@@ -1,5 +1,5 @@
 /** What machine-side gateways send and receive. */
-import { Program } from "./program";
+import { ProgramSchema } from "./program";
 import { z } from "./zod";
 
 export const FAILURE_REASONS = [
@@ -26,7 +26,7 @@ const leaseSeconds = z
   .optional()
   .openapi({ description: "Lease length in seconds (default 60)" });
 
-export const ClaimRequest = z
+export const ClaimRequestSchema = z
   .object({
     waitSeconds: z
       .number()
@@ -39,12 +39,12 @@ export const ClaimRequest = z
   .strict()
   .openapi("ClaimRequest");
 
-export const Lease = z.object({ expiresAt: z.string(), seconds: z.number().int() }).openapi("Lease");
-export const Claim = z.object({ program: Program, lease: Lease }).openapi("Claim");
+export const LeaseSchema = z.object({ expiresAt: z.string(), seconds: z.number().int() }).openapi("Lease");
+export const ClaimSchema = z.object({ program: ProgramSchema, lease: LeaseSchema }).openapi("Claim");
 
-export const HeartbeatRequest = z.object({ leaseSeconds }).strict().openapi("HeartbeatRequest");
+export const HeartbeatRequestSchema = z.object({ leaseSeconds }).strict().openapi("HeartbeatRequest");
 
-export const ProgressReport = z
+export const ProgressReportSchema = z
   .object({
     groupsDone: count().openapi({
       description: "Cut groups finished, over all sheets so far (at most the program's groups × sheets)",
@@ -56,7 +56,7 @@ export const ProgressReport = z
   .strict()
   .openapi("ProgressReport");
 
-export const CompletionReport = z
+export const CompletionReportSchema = z
   .object({
     goodPieces: count().openapi({
       description: "Good blanks made; with `scrappedPieces`, at most the program's blanks",
@@ -71,7 +71,7 @@ export const CompletionReport = z
   .strict()
   .openapi("CompletionReport");
 
-export const FailureReport = z
+export const FailureReportSchema = z
   .object({
     reason: z.enum(FAILURE_REASONS).openapi({ description: "Why the run stopped" }),
     message: z.string().max(2000).optional(),

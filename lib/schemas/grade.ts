@@ -58,10 +58,10 @@ const needsTensile = <T extends z.ZodType<Partial<z.infer<typeof GradeFields>>>>
     }
   });
 
-export const GradeInput = needsTensile(GradeFields.strict()).openapi("GradeInput");
-export const GradePatch = GradeFields.omit({ code: true }).partial().strict().openapi("GradePatch");
+export const GradeInputSchema = needsTensile(GradeFields.strict()).openapi("GradeInput");
+export const GradePatchSchema = GradeFields.omit({ code: true }).partial().strict().openapi("GradePatch");
 
-export const Grade = GradeFields.extend({
+export const GradeSchema = GradeFields.extend({
   id: z.string().openapi({ example: "grd_01JEXAMPLE0000000000000000" }),
   tensileTypicalMpa: z.number().nullable(),
   tensileMaxMpa: z.number().nullable(),
@@ -75,6 +75,6 @@ export const Grade = GradeFields.extend({
   updatedAt: z.string(),
 }).openapi("Grade");
 
-export type GradeInputT = z.infer<typeof GradeInput>;
-export type GradePatchT = z.infer<typeof GradePatch>;
-export type GradeT = z.infer<typeof Grade>;
+export type GradeInputT = z.infer<typeof GradeInputSchema>;
+export type GradePatchT = z.infer<typeof GradePatchSchema>;
+export type GradeT = z.infer<typeof GradeSchema>;

@@ -2,7 +2,7 @@
 import { SCOPES } from "../../lib/schemas/enums";
 import { z } from "./zod";
 
-export const KeyInput = z
+export const KeyInputSchema = z
   .object({
     name: z.string().trim().min(1, "Give the key a name, e.g. the system that will use it.").max(100),
     scopes: z.array(z.enum(SCOPES)).min(1, "Choose at least one scope.").max(SCOPES.length),

@@ -2,9 +2,9 @@
  * A plan's answer as the API shows it: its sheet patterns (strips and pieces, stored once per
  * repeated pattern), its findings, and its summary with the bound it proves.
  */
-import { Check, Finding } from "./check";
+import { CheckSchema, FindingSchema } from "./check";
 import { PLAN_OBJECTIVES } from "./enums";
-import { CutGroupInput } from "./program";
+import { CutGroupInputSchema } from "./program";
 import { z } from "./zod";
 const Piece = z
   .object({
@@ -27,7 +27,7 @@ const Piece = z
   })
   .openapi("PlanPieceRun");
 
-export const PlanPattern = z
+export const PlanPatternSchema = z
   .object({
     key: z.string().openapi({ description: "A, B, C …; the program written for it ends in this", example: "A" }),
     stock: z.number().int().openapi({ description: "Index into `stock`" }),
@@ -68,16 +68,20 @@ export const PlanPattern = z
     ),
     strokes: z.number().int().openapi({ description: "Per sheet" }),
     turns: z.number().int().openapi({ description: "Pieces turned, per sheet" }),
-    cuts: z.array(CutGroupInput).openapi({ description: "The cut groups of the program this pattern becomes" }),
+    cuts: z.array(CutGroupInputSchema).openapi({ description: "The cut groups of the program this pattern becomes" }),
     check: z
-      .object({ validation: Check.shape.validation, findings: z.array(Finding), estimate: Check.shape.estimate })
+      .object({
+        validation: CheckSchema.shape.validation,
+        findings: z.array(FindingSchema),
+        estimate: CheckSchema.shape.estimate,
+      })
       .openapi({
         description: "The shear core's check of that program: findings and the cycle estimate for all its sheets",
       }),
   })
   .openapi("PlanPattern");
 
-export const PlanFinding = z
+export const PlanFindingSchema = z
   .object({
     code: z.enum([
       "blank_unplaceable",
@@ -97,7 +101,7 @@ export const PlanFinding = z
 export const PLAN_STATUSES = ["queued", "running", "complete", "failed", "cancelled"] as const;
 export const PLAN_FAILURES = ["time_limit", "worker_lost", "out_of_memory", "error"] as const;
 
-export const PlanSummaryFigures = z
+export const PlanSummaryFiguresSchema = z
   .object({
     sheets: z.number().int(),
     patterns: z.number().int(),
@@ -142,7 +146,7 @@ export const PlanSummaryFigures = z
   })
   .openapi("PlanFigures");
 
-export const PlanResult = z
+export const PlanResultSchema = z
   .object({
     coverage: z
       .enum(["complete", "partial"])
@@ -181,11 +185,11 @@ export const PlanResult = z
       reusableOffcut: z.object({ length: z.number(), width: z.number() }).nullable(),
       offcutsAsStock: z.boolean(),
     }),
-    summary: PlanSummaryFigures,
-    patterns: z.array(PlanPattern),
+    summary: PlanSummaryFiguresSchema,
+    patterns: z.array(PlanPatternSchema),
     reusableOffcuts: z.array(z.object({ length: z.number(), width: z.number(), count: z.number().int() })),
-    findings: z.array(PlanFinding),
+    findings: z.array(PlanFindingSchema),
   })
   .openapi("PlanResult", { description: "What the planner made of the order, in its units" });
 
-export type PlanResultT = z.infer<typeof PlanResult>;
+export type PlanResultT = z.infer<typeof PlanResultSchema>;

@@ -3,9 +3,9 @@
  * demand they meet, and the cut programs they become, out. One schema validates requests,
  * types the service and documents the API.
  */
-import { jobFields, Program, Thickness } from "./program";
-import { Routing } from "./settings";
-import { PLAN_FAILURES, PLAN_STATUSES, PlanResult, PlanSummaryFigures } from "./plan-result";
+import { jobFields, ProgramSchema, ThicknessSchema } from "./program";
+import { RoutingSchema } from "./settings";
+import { PLAN_FAILURES, PLAN_STATUSES, PlanResultSchema, PlanSummaryFiguresSchema } from "./plan-result";
 import { PLAN_OBJECTIVES } from "./enums";
 import { z } from "./zod";
 
@@ -18,7 +18,7 @@ const length = (d: string) =>
 
 export { PLAN_OBJECTIVES };
 
-export const StockInput = z
+export const StockInputSchema = z
   .object({
     length: length(
       "The sheet's length (its rolling direction; presented to the blade unless it is longer than the blade)",
@@ -44,7 +44,7 @@ export const StockInput = z
   .strict()
   .openapi("PlanStock");
 
-export const BlankInput = z
+export const BlankInputSchema = z
   .object({
     label: z.string().trim().min(1).max(100).openapi({
       description: "Your name for the blank: an order line, a part number",
@@ -61,7 +61,7 @@ export const BlankInput = z
   .strict()
   .openapi("PlanBlank");
 
-export const PlanOptionsInput = z
+export const PlanOptionsInputSchema = z
   .object({
     objective: z.enum(PLAN_OBJECTIVES).optional().openapi({
       description:
@@ -103,7 +103,7 @@ const PlanShape = z
       .union([
         z.literal("on_hand"),
         z
-          .array(StockInput)
+          .array(StockInputSchema)
           .min(1)
           .max(1_000)
           .openapi({ description: "Stock sizes on hand (a plan takes at most 10: limit `stockSizes`)" }),
@@ -112,11 +112,11 @@ const PlanShape = z
         description:
           "The sheets to plan on: explicit rows, or `\"on_hand\"` for the shop's stock of the plan's grade and thickness (remnants first; at most 10 items). The stored plan lists the rows drawn, each naming its stock item.",
       }),
-    blanks: z.array(BlankInput).min(1).max(10_000).openapi({
+    blanks: z.array(BlankInputSchema).min(1).max(10_000).openapi({
       description:
         "Order lines (a plan takes at most 200 blank types: limit `blankTypes`, and 20,000 pieces in all: limit `totalPieces`)",
     }),
-    options: PlanOptionsInput.optional(),
+    options: PlanOptionsInputSchema.optional(),
   })
   .strict();
 
@@ -139,7 +139,7 @@ export const EXAMPLE_PLAN: z.infer<typeof PlanShape> = {
   options: { objective: "fewest_sheets", trim: 0.25, reusableOffcut: { length: 24, width: 12 } },
 };
 
-export const PlanInput = PlanShape.openapi("PlanInput", { example: EXAMPLE_PLAN });
+export const PlanInputSchema = PlanShape.openapi("PlanInput", { example: EXAMPLE_PLAN });
 
 const PlanCommon = {
   id: z.string().openapi({ example: "pln_01JEXAMPLE0000000000000000" }),
@@ -150,9 +150,9 @@ const PlanCommon = {
   reference: z.string().nullable(),
   title: z.string().nullable(),
   shear: z.string(),
-  routing: Routing.nullable(),
+  routing: RoutingSchema.nullable(),
   grade: z.string(),
-  thickness: Thickness,
+  thickness: ThicknessSchema,
   units: z.enum(["in", "mm"]),
   progress: z
     .object({
@@ -181,37 +181,37 @@ const PlanCommon = {
   finishedAt: z.string().nullable(),
 };
 
-export const Plan = z
+export const PlanSchema = z
   .object({
     ...PlanCommon,
-    result: PlanResult.nullable().openapi({ description: "The plan itself, once `complete`; null before" }),
+    result: PlanResultSchema.nullable().openapi({ description: "The plan itself, once `complete`; null before" }),
   })
   .openapi("Plan");
 
-export const PlanSummary = z
+export const PlanSummarySchema = z
   .object({
     ...PlanCommon,
     coverage: z
       .enum(["complete", "partial"])
       .nullable()
       .openapi({ description: "Once complete: were all blanks placed?" }),
-    summary: PlanSummaryFigures.nullable().openapi({
+    summary: PlanSummaryFiguresSchema.nullable().openapi({
       description: "Once complete: the plan's figures (read the plan for its patterns)",
     }),
   })
   .openapi("PlanSummary");
 
-export const PlanPreview = PlanResult.extend({
+export const PlanPreviewSchema = PlanResultSchema.extend({
   reference: z.string().nullable(),
   title: z.string().nullable(),
   shear: z.string(),
-  routing: Routing.nullable(),
+  routing: RoutingSchema.nullable(),
   grade: z.string(),
-  thickness: Thickness,
+  thickness: ThicknessSchema,
   units: z.enum(["in", "mm"]),
 }).openapi("PlanPreview", { description: "A plan computed and answered, not stored" });
 
-export const WriteProgramsInput = z
+export const WriteProgramsInputSchema = z
   .object({
     referencePrefix: z
       .string()
@@ -230,12 +230,14 @@ export const WriteProgramsInput = z
   .strict()
   .openapi("WriteProgramsInput");
 
-export const WrittenPrograms = z.object({ plan: z.string(), data: z.array(Program) }).openapi("WrittenPrograms");
+export const WrittenProgramsSchema = z
+  .object({ plan: z.string(), data: z.array(ProgramSchema) })
+  .openapi("WrittenPrograms");
 
-export type PlanInputT = z.infer<typeof PlanInput>;
+export type PlanInputT = z.infer<typeof PlanInputSchema>;
 /** A plan's order once its stock is drawn: explicit rows (what is stored and planned). */
-export type PlanOrderT = Omit<PlanInputT, "stock"> & { stock: z.infer<typeof StockInput>[] };
-export type PlanT = z.infer<typeof Plan>;
-export type PlanSummaryT = z.infer<typeof PlanSummary>;
-export type PlanPreviewT = z.infer<typeof PlanPreview>;
-export type WriteProgramsInputT = z.infer<typeof WriteProgramsInput>;
+export type PlanOrderT = Omit<PlanInputT, "stock"> & { stock: z.infer<typeof StockInputSchema>[] };
+export type PlanT = z.infer<typeof PlanSchema>;
+export type PlanSummaryT = z.infer<typeof PlanSummarySchema>;
+export type PlanPreviewT = z.infer<typeof PlanPreviewSchema>;
+export type WriteProgramsInputT = z.infer<typeof WriteProgramsInputSchema>;

@@ -3,9 +3,9 @@
  * with the shear core's check. This one schema validates requests, types the services,
  * and is the JSON Schema served at /api/v1/schemas/cut-program.json.
  */
-import { Check } from "./check";
-import { Problem } from "./common";
-import { Routing } from "./settings";
+import { CheckSchema } from "./check";
+import { ProblemSchema } from "./common";
+import { RoutingSchema } from "./settings";
 import { PROGRAM_STATUSES } from "./enums";
 import { z } from "./zod";
 
@@ -16,7 +16,7 @@ const length = (d: string) =>
     .max(100_000)
     .openapi({ description: `${d}, in the program's units` });
 
-export const CutGroupInput = z
+export const CutGroupInputSchema = z
   .object({
     backgauge: length("Backgauge distance: the width of each piece this group cuts off"),
     count: z
@@ -40,7 +40,7 @@ export const CutGroupInput = z
   .strict()
   .openapi("CutGroup");
 
-export const SetupOverridesInput = z
+export const SetupOverridesInputSchema = z
   .object({
     rakeDeg: z.number().min(0).max(45).optional().openapi({ description: "Rake angle (degrees)" }),
     bladeGapMm: z.number().min(0).max(50).optional(),
@@ -61,7 +61,7 @@ export const SetupOverridesInput = z
     description: "Setup values the program fixes itself; each overrides the computed one and is still checked.",
   });
 
-export const Thickness = z
+export const ThicknessSchema = z
   .union([
     z.object({ value: length("Thickness") }).strict(),
     z
@@ -82,7 +82,7 @@ export const jobFields = () => ({
     example: "Bay 1 sheet shear",
   }),
   grade: z.string().trim().min(1).max(50).openapi({ description: "The grade's code in your catalog", example: "A36" }),
-  thickness: Thickness,
+  thickness: ThicknessSchema,
 });
 
 const programFields = {
@@ -103,8 +103,8 @@ const programFields = {
     })
     .strict()
     .openapi("StockSheet"),
-  cuts: z.array(CutGroupInput).min(1).max(500),
-  setup: SetupOverridesInput.optional(),
+  cuts: z.array(CutGroupInputSchema).min(1).max(500),
+  setup: SetupOverridesInputSchema.optional(),
   priority: z.number().int().min(0).max(9).optional().openapi({ description: "0 (lowest) to 9 (highest); default 5" }),
   dueAt: z.iso.datetime({ offset: true }).optional().openapi({ example: "2026-12-08T14:00:00Z" }),
   metadata: z
@@ -135,8 +135,8 @@ export const EXAMPLE_PROGRAM: z.infer<typeof ProgramShape> = {
   metadata: { erpLine: "4" },
 };
 
-export const ProgramInput = ProgramShape.openapi("ProgramInput", { example: EXAMPLE_PROGRAM });
-export const ProgramPatch = z
+export const ProgramInputSchema = ProgramShape.openapi("ProgramInput", { example: EXAMPLE_PROGRAM });
+export const ProgramPatchSchema = z
   .object(programFields)
   .partial()
   .strict()
@@ -147,20 +147,20 @@ export const ProgramPatch = z
 
 // ---------------------------------------------------------------- the check (the shear core's answer)
 
-export const Program = z
+export const ProgramSchema = z
   .object({
     id: z.string().openapi({ example: "prg_01JEXAMPLE0000000000000000" }),
     status: z.enum(PROGRAM_STATUSES),
     revision: z.number().int().openapi({ description: "Bumped by every change; the ETag is its quoted form" }),
     ...programFields,
     shear: z.string().openapi({ description: "The shear's id" }),
-    routing: Routing.nullable(),
+    routing: RoutingSchema.nullable(),
     title: z.string().nullable(),
     priority: z.number().int(),
     dueAt: z.string().nullable(),
     metadata: z.record(z.string(), z.string()),
     validation: z.enum(["pass", "warn", "fail"]),
-    check: Check,
+    check: CheckSchema,
     acknowledged: z.array(z.string()).openapi({ description: "Warning codes acknowledged at release" }),
     releasedAt: z.string().nullable(),
     cancelledAt: z.string().nullable(),
@@ -196,7 +196,7 @@ export const Program = z
 /** At most this many programs in one batch. */
 export const BATCH_LIMIT = 100;
 
-export const ProgramBatchInput = z
+export const ProgramBatchInputSchema = z
   .object({
     programs: z
       .array(z.unknown())
@@ -214,26 +214,28 @@ export const ProgramBatchInput = z
   .strict()
   .openapi("ProgramBatchInput");
 
-export const ProgramBatch = z
-  .object({ data: z.array(Program).openapi({ description: "The created programs, in the order sent" }) })
+export const ProgramBatchSchema = z
+  .object({ data: z.array(ProgramSchema).openapi({ description: "The created programs, in the order sent" }) })
   .openapi("ProgramBatch");
 
-export const ProgramBatchResult = z
+export const ProgramBatchResultSchema = z
   .union([
-    z.object({ index: z.number().int(), status: z.literal(201), program: Program }),
+    z.object({ index: z.number().int(), status: z.literal(201), program: ProgramSchema }),
     z.object({
       index: z.number().int(),
       status: z.number().int().openapi({ description: "What creating this program alone would have answered" }),
-      problem: Problem,
+      problem: ProblemSchema,
     }),
   ])
   .openapi("ProgramBatchResult", { description: "One program's result: the program, or its problem." });
 
-export const ProgramBatchResults = z
-  .object({ data: z.array(ProgramBatchResult).openapi({ description: "One result per program, in the order sent" }) })
+export const ProgramBatchResultsSchema = z
+  .object({
+    data: z.array(ProgramBatchResultSchema).openapi({ description: "One result per program, in the order sent" }),
+  })
   .openapi("ProgramBatchResults");
 
-export const ReleaseInput = z
+export const ReleaseInputSchema = z
   .object({
     acknowledge: z
       .array(z.string().max(64))
@@ -244,12 +246,12 @@ export const ReleaseInput = z
   .strict()
   .openapi("ReleaseInput");
 
-export const CancelInput = z
+export const CancelInputSchema = z
   .object({ reason: z.string().max(500).optional() })
   .strict()
   .openapi("CancelInput");
 
-export const ProgramListQuery = z.object({
+export const ProgramListQuerySchema = z.object({
   status: z.enum(PROGRAM_STATUSES).optional(),
   shear: z.string().max(64).optional().openapi({ description: "Only programs for this shear id" }),
   reference: z.string().max(100).optional().openapi({ description: "Only the program with this reference" }),
@@ -269,8 +271,8 @@ export const ProgramListQuery = z.object({
     .openapi({ description: "The earlier spelling of `updatedSince`, still accepted", deprecated: true }),
 });
 
-export const ProgramValidation = Check.extend({
-  routing: Routing.nullable().openapi({
+export const ProgramValidationSchema = CheckSchema.extend({
+  routing: RoutingSchema.nullable().openapi({
     description: "When the program names no shear: which of the shop's active shears can cut it, and the one chosen",
   }),
 }).openapi("ProgramValidation", {
@@ -278,8 +280,8 @@ export const ProgramValidation = Check.extend({
     "The check of the program on its shear (or, when it names none, on the shear chosen; when none can cut it, on the first by name).",
 });
 
-export type ProgramInputT = z.infer<typeof ProgramInput>;
-export type ProgramPatchT = z.infer<typeof ProgramPatch>;
-export type ProgramT = z.infer<typeof Program>;
-export type ProgramBatchResultT = z.infer<typeof ProgramBatchResult>;
-export type ProgramValidationT = z.infer<typeof ProgramValidation>;
+export type ProgramInputT = z.infer<typeof ProgramInputSchema>;
+export type ProgramPatchT = z.infer<typeof ProgramPatchSchema>;
+export type ProgramT = z.infer<typeof ProgramSchema>;
+export type ProgramBatchResultT = z.infer<typeof ProgramBatchResultSchema>;
+export type ProgramValidationT = z.infer<typeof ProgramValidationSchema>;

@@ -15,15 +15,15 @@ const remnantMinMm = z.number().positive().max(100_000).nullable().openapi({
     "The shortest side, in mm, of an offcut worth keeping: when a run completes, its offcuts at least this long both ways are booked in as remnants. Null (default): none are booked.",
 });
 
-export const Settings = z.object({ routingRule, remnantMinMm }).openapi("Settings");
+export const SettingsSchema = z.object({ routingRule, remnantMinMm }).openapi("Settings");
 
-export const SettingsPatch = z
+export const SettingsPatchSchema = z
   .object({ routingRule: routingRule.optional(), remnantMinMm: remnantMinMm.optional() })
   .strict()
   .refine((p) => Object.keys(p).length > 0, { message: "send at least one setting to change" })
   .openapi("SettingsPatch");
 
-export const RoutedShear = z
+export const RoutedShearSchema = z
   .object({
     shear: z.string().openapi({ description: "The shear's id" }),
     name: z.string(),
@@ -37,16 +37,16 @@ export const RoutedShear = z
   })
   .openapi("RoutedShear");
 
-export const Routing = z
+export const RoutingSchema = z
   .object({
     rule: z.enum(ROUTING_RULES),
     chosen: z.string().nullable().openapi({ description: "The shear chosen; null when none can cut it" }),
-    shears: z.array(RoutedShear).openapi({ description: "Every active shear of the shop, the chosen one first" }),
+    shears: z.array(RoutedShearSchema).openapi({ description: "Every active shear of the shop, the chosen one first" }),
   })
   .openapi("Routing", {
     description: "How the shear was chosen when the request named none; null when it named one.",
   });
 
-export type SettingsT = z.infer<typeof Settings>;
-export type SettingsPatchT = z.infer<typeof SettingsPatch>;
-export type RoutingT = z.infer<typeof Routing>;
+export type SettingsT = z.infer<typeof SettingsSchema>;
+export type SettingsPatchT = z.infer<typeof SettingsPatchSchema>;
+export type RoutingT = z.infer<typeof RoutingSchema>;

@@ -76,10 +76,10 @@ function ranges<T extends z.ZodType<Partial<z.infer<typeof ShearFields>>>>(schem
   });
 }
 
-export const ShearInput = ranges(ShearFields.strict()).openapi("ShearInput");
-export const ShearPatch = ranges(ShearFields.partial().strict()).openapi("ShearPatch");
+export const ShearInputSchema = ranges(ShearFields.strict()).openapi("ShearInput");
+export const ShearPatchSchema = ranges(ShearFields.partial().strict()).openapi("ShearPatch");
 
-export const Shear = ShearFields.extend({
+export const ShearSchema = ShearFields.extend({
   id: z.string().openapi({ example: "shr_01JEXAMPLE0000000000000000" }),
   description: z.string().nullable(),
   maxBladeHardnessHb: z.number().nullable(),
@@ -92,9 +92,9 @@ export const Shear = ShearFields.extend({
   updatedAt: z.string(),
 }).openapi("Shear");
 
-export type ShearInputT = z.infer<typeof ShearInput>;
-export type ShearPatchT = z.infer<typeof ShearPatch>;
-export type ShearT = z.infer<typeof Shear>;
+export type ShearInputT = z.infer<typeof ShearInputSchema>;
+export type ShearPatchT = z.infer<typeof ShearPatchSchema>;
+export type ShearT = z.infer<typeof ShearSchema>;
 
 /**
  * The demo shop's two machines (invented figures, a scenario of our own): the seed creates
@@ -145,4 +145,4 @@ export const DEMO_SHEARS = [
     crownBaselineMm: 0.08,
     backgaugeRepeatabilityMm: 0.1,
   },
-] satisfies z.infer<typeof ShearInput>[];
+] satisfies z.infer<typeof ShearInputSchema>[];

@@ -14,7 +14,7 @@ const mm = (d: string) =>
     .openapi({ description: `${d}, mm` });
 const text = (max: number) => z.string().trim().min(1).max(max);
 
-export const StockItemInput = z
+export const StockItemInputSchema = z
   .object({
     kind: z.enum(STOCK_KINDS).openapi({ description: "`sheet`: full sheets as bought; `remnant`: kept from a cut" }),
     grade: text(50).openapi({ description: "The grade's code in your catalog", example: "A36" }),
@@ -44,7 +44,7 @@ export const StockItemInput = z
     },
   });
 
-export const StockItem = z
+export const StockItemSchema = z
   .object({
     id: z.string().openapi({ example: "stk_01JEXAMPLE0000000000000000" }),
     kind: z.enum(STOCK_KINDS),
@@ -65,14 +65,14 @@ export const StockItem = z
   })
   .openapi("StockItem");
 
-export const StockListQuery = z.object({
+export const StockListQuerySchema = z.object({
   grade: z.string().max(50).optional().openapi({ description: "Only this grade code" }),
   thicknessMm: z.coerce.number().positive().max(1_000).optional().openapi({ description: "Only this thickness, mm" }),
   kind: z.enum(STOCK_KINDS).optional(),
   includeArchived: z.enum(["true", "false"]).optional().openapi({ description: "`true` includes archived items" }),
 });
 
-export const StockAdjustInput = z
+export const StockAdjustInputSchema = z
   .object({
     delta: z
       .number()
@@ -86,7 +86,7 @@ export const StockAdjustInput = z
   .strict()
   .openapi("StockAdjustInput");
 
-export const ReserveInput = z
+export const ReserveInputSchema = z
   .object({
     quantity: z.number().int().min(1).max(100_000),
     program: z.string().max(64).optional().openapi({
@@ -97,7 +97,7 @@ export const ReserveInput = z
   .strict()
   .openapi("ReserveInput");
 
-export const StockReservation = z
+export const StockReservationSchema = z
   .object({
     id: z.string().openapi({ example: "srv_01JEXAMPLE0000000000000000" }),
     item: z.string().openapi({ description: "The stock item's id" }),
@@ -110,8 +110,8 @@ export const StockReservation = z
   })
   .openapi("StockReservation");
 
-export type StockItemInputT = z.infer<typeof StockItemInput>;
-export type StockItemT = z.infer<typeof StockItem>;
-export type StockAdjustInputT = z.infer<typeof StockAdjustInput>;
-export type ReserveInputT = z.infer<typeof ReserveInput>;
-export type StockReservationT = z.infer<typeof StockReservation>;
+export type StockItemInputT = z.infer<typeof StockItemInputSchema>;
+export type StockItemT = z.infer<typeof StockItemSchema>;
+export type StockAdjustInputT = z.infer<typeof StockAdjustInputSchema>;
+export type ReserveInputT = z.infer<typeof ReserveInputSchema>;
+export type StockReservationT = z.infer<typeof StockReservationSchema>;

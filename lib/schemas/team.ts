@@ -4,14 +4,14 @@ import { z } from "./zod";
 
 export const MIN_PASSWORD = 10;
 
-export const InviteInput = z
+export const InviteInputSchema = z
   .object({
     email: z.string().trim().toLowerCase().max(254).pipe(z.email("That is not an e-mail address.")),
     role: z.enum(ROLES),
   })
   .strict();
 
-export const AcceptInput = z
+export const AcceptInputSchema = z
   .object({
     token: z.string().min(1).max(200),
     name: z.string().trim().min(1, "Tell us your name.").max(100),

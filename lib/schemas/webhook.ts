@@ -2,7 +2,7 @@
 import { EVENT_TYPES } from "./enums";
 import { z } from "./zod";
 
-export const EventType = z.enum(EVENT_TYPES).openapi("EventType");
+export const EventTypeSchema = z.enum(EVENT_TYPES).openapi("EventType");
 
 const url = z
   .url({ protocol: /^https?$/ })
@@ -13,12 +13,12 @@ const url = z
     example: "https://erp.example/hooks/shearwire",
   });
 
-export const EndpointInput = z
+export const EndpointInputSchema = z
   .object({
     url,
     description: z.string().max(200).optional(),
     eventTypes: z
-      .array(EventType)
+      .array(EventTypeSchema)
       .max(EVENT_TYPES.length)
       .optional()
       .openapi({ description: "Event types to receive; empty or absent = all" }),
@@ -27,14 +27,14 @@ export const EndpointInput = z
   .strict()
   .openapi("WebhookEndpointInput");
 
-export const EndpointPatch = EndpointInput.partial().strict().openapi("WebhookEndpointPatch");
+export const EndpointPatchSchema = EndpointInputSchema.partial().strict().openapi("WebhookEndpointPatch");
 
-export const Endpoint = z
+export const EndpointSchema = z
   .object({
     id: z.string().openapi({ example: "whe_01JEXAMPLE0000000000000000" }),
     url: z.string(),
     description: z.string().nullable(),
-    eventTypes: z.array(EventType),
+    eventTypes: z.array(EventTypeSchema),
     enabled: z.boolean(),
     disabledReason: z.string().nullable(),
     secretRotation: z
@@ -47,9 +47,9 @@ export const Endpoint = z
   })
   .openapi("WebhookEndpoint");
 
-export const EndpointWithSecret = z
+export const EndpointWithSecretSchema = z
   .object({
-    endpoint: Endpoint,
+    endpoint: EndpointSchema,
     secret: z.string().openapi({
       description: "The signing secret, shown this once",
       example: "whsec_MfKQ9r8GKYqrTwjUPD8ILPZIo2LaLaSw",
@@ -57,7 +57,7 @@ export const EndpointWithSecret = z
   })
   .openapi("WebhookEndpointWithSecret");
 
-export const RotateInput = z
+export const RotateInputSchema = z
   .object({
     overlapHours: z
       .number()
@@ -69,19 +69,19 @@ export const RotateInput = z
   .strict()
   .openapi("RotateSecretInput");
 
-export const Event = z
+export const EventSchema = z
   .object({
     id: z
       .string()
       .openapi({ description: "Also the `webhook-id` of its deliveries", example: "evt_01JEXAMPLE0000000000000000" }),
-    type: EventType,
+    type: EventTypeSchema,
     subjectId: z.string(),
     data: z.record(z.string(), z.unknown()),
     createdAt: z.string(),
   })
   .openapi("Event");
 
-export const Attempt = z
+export const AttemptSchema = z
   .object({
     id: z.string(),
     attemptedAt: z.string(),
@@ -103,11 +103,11 @@ export const Attempt = z
   })
   .openapi("DeliveryAttempt");
 
-export const Delivery = z
+export const DeliverySchema = z
   .object({
     id: z.string(),
     eventId: z.string(),
-    eventType: EventType,
+    eventType: EventTypeSchema,
     endpointId: z.string(),
     status: z.enum(["pending", "succeeded", "failed", "skipped"]),
     attempts: z.number().int(),
@@ -115,24 +115,24 @@ export const Delivery = z
     lastStatusCode: z.number().int().nullable(),
     lastError: z.string().nullable(),
     manual: z.boolean(),
-    attemptLog: z.array(Attempt),
+    attemptLog: z.array(AttemptSchema),
     createdAt: z.string(),
     updatedAt: z.string(),
   })
   .openapi("Delivery");
 
-export const EventQuery = z.object({
-  type: EventType.optional(),
+export const EventQuerySchema = z.object({
+  type: EventTypeSchema.optional(),
   subject: z.string().max(64).optional().openapi({ description: "Only events about this object id" }),
 });
 
-export const ResendInput = z
+export const ResendInputSchema = z
   .object({ endpoint: z.string().min(1).max(64).openapi({ description: "The endpoint to send to" }) })
   .strict()
   .openapi("ResendInput");
 
-export type EndpointT = z.infer<typeof Endpoint>;
-export type DeliveryT = z.infer<typeof Delivery>;
+export type EndpointT = z.infer<typeof EndpointSchema>;
+export type DeliveryT = z.infer<typeof DeliverySchema>;
 
 /** The body of every delivery of an event: the same bytes on every attempt, and what the signature signs. */
 export function webhookPayload(event: { type: string; createdAt: Date | string; data: unknown }): string {

@@ -8,7 +8,7 @@ import type { z } from "zod";
 import { Program, Shear, type ProgramEntity } from "../../entities";
 import type { ProgramStatus } from "../../entities/Program";
 import { conflict, forbidden, notFound } from "../errors";
-import type { CompletionReport, FailureReport, ProgressReport } from "../schemas/gateway";
+import type { CompletionReportSchema, FailureReportSchema, ProgressReportSchema } from "../schemas/gateway";
 import type { ProgramT } from "../schemas/program";
 import { waitForNotification } from "../db/notify";
 import { announceRelease, RELEASED_CHANNEL, recordEvent } from "./events";
@@ -177,7 +177,7 @@ export async function progress(
   em: EntityManager,
   principal: Principal,
   id: string,
-  report: z.infer<typeof ProgressReport>,
+  report: z.infer<typeof ProgressReportSchema>,
 ) {
   const program = await held(em, principal, id, ["running"], "reported on");
   const { leaseSeconds, ...counts } = report;
@@ -206,7 +206,7 @@ export async function complete(
   em: EntityManager,
   principal: Principal,
   id: string,
-  report: z.infer<typeof CompletionReport>,
+  report: z.infer<typeof CompletionReportSchema>,
 ) {
   const program = await held(em, principal, id, ["running"], "completed");
   const totals = programTotals(program);
@@ -235,7 +235,12 @@ export async function complete(
   );
 }
 
-export async function fail(em: EntityManager, principal: Principal, id: string, report: z.infer<typeof FailureReport>) {
+export async function fail(
+  em: EntityManager,
+  principal: Principal,
+  id: string,
+  report: z.infer<typeof FailureReportSchema>,
+) {
   const program = await held(em, principal, id, ["claimed", "running"], "failed");
   const totals = programTotals(program);
   withinProgram([

@@ -7,7 +7,7 @@ import type { EntityManager } from "@mikro-orm/postgresql";
 import { parse } from "csv-parse/sync";
 import { ApiError, type ProblemBody } from "../errors";
 import { Shear } from "../../entities";
-import { ProgramInput, type ProgramInputT } from "../schemas/program";
+import { ProgramInputSchema, type ProgramInputT } from "../schemas/program";
 import { createBatch } from "./program-batch";
 
 export const CSV_COLUMNS = [
@@ -207,7 +207,7 @@ export function validate(parsed: Parsed): { inputs: ProgramInputT[]; errors: Row
   const inputs: ProgramInputT[] = [];
   const seen = new Set<string>();
   for (const p of parsed.programs) {
-    const result = ProgramInput.safeParse(p.input);
+    const result = ProgramInputSchema.safeParse(p.input);
     if (!result.success) {
       for (const issue of result.error.issues) {
         const cut = issue.path[0] === "cuts" && typeof issue.path[1] === "number" ? issue.path[1] : null;

@@ -5,7 +5,7 @@ import { OrderRefused } from "../planner/order-limits";
 import type { PlannedOrder } from "../planner/planned";
 import type { PlanOrderT, PlanSummaryT, PlanT } from "../schemas/plan";
 import type { PlanResultT } from "../schemas/plan-result";
-import { ProgramInput } from "../schemas/program";
+import { ProgramInputSchema } from "../schemas/program";
 
 const iso = (d: Date | null | undefined) => d?.toISOString() ?? null;
 
@@ -22,7 +22,7 @@ export function refusal(err: OrderRefused) {
 function releasabilityFindings(order: PlanOrderT, planned: PlannedOrder): PlanResultT["findings"] {
   const findings: PlanResultT["findings"] = [];
   planned.patterns.forEach((p, i) => {
-    const valid = ProgramInput.safeParse({
+    const valid = ProgramInputSchema.safeParse({
       reference: `plan/${p.key}`,
       shear: order.shear,
       grade: order.grade,

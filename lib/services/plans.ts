@@ -16,7 +16,7 @@ import type { PlanContext, PlannedOrder } from "../planner/planned";
 import { dequeuePlan, enqueuePlan, previewOnWorker, PreviewTimeout } from "../queue/plan-queue";
 import type { PlanInputT, PlanOrderT, PlanPreviewT, PlanT, WriteProgramsInputT } from "../schemas/plan";
 
-import { ProgramInput, type ProgramInputT, type ProgramT } from "../schemas/program";
+import { ProgramInputSchema, type ProgramInputT, type ProgramT } from "../schemas/program";
 import { checkPrograms, storePrograms, type Checked } from "./program-create";
 import { gradeByCode, gradeProfile, shearProfile } from "./catalog";
 import { recordEvent } from "./events";
@@ -227,7 +227,7 @@ export async function writePrograms(
         ...(opts.dueAt ? { dueAt: opts.dueAt } : {}),
         metadata: { ...(opts.metadata ?? {}), plan: plan.id, pattern: p.key },
       };
-      const valid = ProgramInput.safeParse(input);
+      const valid = ProgramInputSchema.safeParse(input);
       if (!valid.success)
         throw conflict(
           `Pattern ${p.key} cannot be written as a cut program: ${valid.error.issues[0].path.join(".")}: ${valid.error.issues[0].message}.`,

@@ -6,7 +6,7 @@
  */
 import { UniqueConstraintViolationException, type EntityManager } from "@mikro-orm/postgresql";
 import { ApiError, conflict, invalidRequest } from "../errors";
-import { ProgramInput, type ProgramBatchResultT, type ProgramInputT, type ProgramT } from "../schemas/program";
+import { ProgramInputSchema, type ProgramBatchResultT, type ProgramInputT, type ProgramT } from "../schemas/program";
 import { existingReferences } from "./lookups";
 import { checkPrograms, duplicateReference, storePrograms, type Checked } from "./program-create";
 
@@ -37,7 +37,7 @@ function within(index: number, err: ApiError): ApiError {
 function readItems(items: unknown[]): (ProgramInputT | ApiError)[] {
   const seen = new Map<string, number>();
   return items.map((item, index) => {
-    const parsed = ProgramInput.safeParse(item);
+    const parsed = ProgramInputSchema.safeParse(item);
     if (!parsed.success) {
       const errors = parsed.error.issues.map((i) => ({
         location: "body",

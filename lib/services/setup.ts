@@ -13,7 +13,7 @@ import {
   type LengthUnit,
 } from "../shear";
 import type { z } from "zod";
-import type { SetupRequest } from "../schemas/catalog";
+import type { SetupRequestSchema } from "../schemas/catalog";
 import { gradeByCode, gradeProfile, shearProfile } from "./catalog";
 import { Shear } from "../../entities";
 
@@ -43,7 +43,7 @@ export function gaugeTables(family?: GaugeFamily) {
 const fail = (pointer: string, message: string) =>
   invalidRequest(`Cannot recommend a setup: ${message}.`, [{ location: "body", pointer, message }]);
 
-export async function setupFor(em: EntityManager, shopId: string, req: z.infer<typeof SetupRequest>) {
+export async function setupFor(em: EntityManager, shopId: string, req: z.infer<typeof SetupRequestSchema>) {
   const shear = await em.findOne(Shear, { id: req.shear, shop: shopId, archivedAt: null });
   if (!shear) throw fail("/shear", "no active shear with that id in this shop");
   const grade = await gradeByCode(em, shopId, req.grade);

@@ -37,19 +37,19 @@ afterAll(closeTestOrm);
 describe("meta", () => {
   it("health", async () => {
     const res = await api().get("/api/v1/health");
-    expectDocumented(metaOps.getHealth, res);
+    expectDocumented(metaOps.getHealthOperation, res);
     expect(res.status).toBe(200);
   });
 
   it("serves the OpenAPI document it is tested against", async () => {
     const res = await api().get("/api/v1/openapi.json");
-    expectDocumented(metaOps.getOpenApi, res);
+    expectDocumented(metaOps.getOpenApiOperation, res);
     expect(res.body).toEqual(doc);
   });
 
   it("serves the cut program JSON Schema", async () => {
     const res = await api().get("/api/v1/schemas/cut-program.json");
-    expectDocumented(metaOps.getCutProgramSchema, res);
+    expectDocumented(metaOps.getCutProgramSchemaOperation, res);
     expect(res.body.$schema).toBe("https://json-schema.org/draft/2020-12/schema");
     expect(res.body.required).toEqual(
       expect.arrayContaining(["reference", "grade", "thickness", "units", "sheet", "cuts"]),
@@ -64,32 +64,32 @@ describe("catalog", () => {
 
   it("lists, creates, reads, changes and archives shears", async () => {
     const list = await api().get("/api/v1/shears?limit=1").set(auth());
-    expectDocumented(catalogOps.listShears, list);
+    expectDocumented(catalogOps.listShearsOperation, list);
     expect(list.body.data).toHaveLength(1);
 
     const created = await api()
       .post("/api/v1/shears")
       .set(auth())
       .send({ ...TEST_SHEAR, name: "Contract shear", backgaugeRepeatabilityMm: 0.05, crownBaselineMm: 0.03 });
-    expectDocumented(catalogOps.createShear, created);
+    expectDocumented(catalogOps.createShearOperation, created);
     expect(created.status).toBe(201);
     expect(created.body).toMatchObject({ backgaugeRepeatabilityMm: 0.05, crownBaselineMm: 0.03, crownAtRatedMm: null }); // the machine's figures as given
     shearId = created.body.id;
     expect(shearId).toMatch(/^shr_[0-9A-Z]{26}$/);
 
     const read = await api().get(`/api/v1/shears/${shearId}`).set(auth());
-    expectDocumented(catalogOps.getShear, read);
+    expectDocumented(catalogOps.getShearOperation, read);
     expect(read.body).toEqual(created.body);
 
     const changed = await api()
       .patch(`/api/v1/shears/${shearId}`)
       .set(auth())
       .send({ strokesPerMin: 25, gradeThicknessLimitsMm: { "304": 3 } });
-    expectDocumented(catalogOps.updateShear, changed);
+    expectDocumented(catalogOps.updateShearOperation, changed);
     expect(changed.body).toMatchObject({ strokesPerMin: 25, gradeThicknessLimitsMm: { "304": 3 } });
 
     const archived = await api().post(`/api/v1/shears/${shearId}/archive`).set(auth());
-    expectDocumented(catalogOps.archiveShear, archived);
+    expectDocumented(catalogOps.archiveShearOperation, archived);
     expect(archived.body.archivedAt).not.toBeNull();
     const active = await api().get("/api/v1/shears").set(auth());
     expect(active.body.data.map((s: { id: string }) => s.id)).not.toContain(shearId);
@@ -99,7 +99,7 @@ describe("catalog", () => {
 
   it("lists, creates, reads, changes and archives grades", async () => {
     const list = await api().get("/api/v1/grades?family=stainless").set(auth());
-    expectDocumented(catalogOps.listGrades, list);
+    expectDocumented(catalogOps.listGradesOperation, list);
     expect(list.body.data.every((g: { family: string }) => g.family === "stainless")).toBe(true);
 
     const created = await api().post("/api/v1/grades").set(auth()).send({
@@ -111,26 +111,26 @@ describe("catalog", () => {
       tensileMinMpa: 470,
       gaugeFamily: null,
     });
-    expectDocumented(catalogOps.createGrade, created);
+    expectDocumented(catalogOps.createGradeOperation, created);
     expect(created.status).toBe(201);
     expect(created.body.shearTensileRatio).toBeGreaterThan(0);
     gradeId = created.body.id;
 
     const read = await api().get(`/api/v1/grades/${gradeId}`).set(auth());
-    expectDocumented(catalogOps.getGrade, read);
+    expectDocumented(catalogOps.getGradeOperation, read);
 
     const changed = await api().patch(`/api/v1/grades/${gradeId}`).set(auth()).send({ hardnessHb: 160 });
-    expectDocumented(catalogOps.updateGrade, changed);
+    expectDocumented(catalogOps.updateGradeOperation, changed);
     expect(changed.body.hardnessHb).toBe(160);
 
     const archived = await api().post(`/api/v1/grades/${gradeId}/archive`).set(auth());
-    expectDocumented(catalogOps.archiveGrade, archived);
+    expectDocumented(catalogOps.archiveGradeOperation, archived);
     expect(archived.body.archivedAt).not.toBeNull();
   });
 
   it("reads the gauge tables", async () => {
     const res = await api().get("/api/v1/gauges").set(auth());
-    expectDocumented(catalogOps.listGauges, res);
+    expectDocumented(catalogOps.listGaugesOperation, res);
     expect(res.body.data.map((t: { family: string }) => t.family)).toEqual(["msg", "galvanized", "ussg", "awg"]);
     const msg = res.body.data[0].rows.find((r: { gauge: number }) => r.gauge === 10);
     expect(msg.in).toBeCloseTo(0.1345, 4); // Manufacturers' Standard Gauge chart: 10 ga = 0.1345 in
@@ -141,7 +141,7 @@ describe("catalog", () => {
       .post("/api/v1/setup")
       .set(auth())
       .send({ shear: shop.shearId, grade: "A36", thickness: { gauge: 10 }, units: "in" });
-    expectDocumented(catalogOps.recommendSetup, res);
+    expectDocumented(catalogOps.recommendSetupOperation, res);
     expect(res.body.thickness.value).toBeCloseTo(0.1345, 4);
     expect(res.body.setup.bladeGap.why).toMatch(/thickness/);
     expect(res.body.setup.bladeGap.value).toBeGreaterThanOrEqual(0.005); // a shear-blade maker's mild-steel chart: 10 ga, 0.005–0.009 in
@@ -167,7 +167,7 @@ describe("programs", () => {
 
   it("checks a program without storing it", async () => {
     const res = await api().post("/api/v1/programs/validate").set(auth()).send(exampleProgram(shop.shearId));
-    expectDocumented(programOps.validateProgram, res);
+    expectDocumented(programOps.validateProgramOperation, res);
     expect(res.body).toMatchObject({ validation: "pass", findings: [] });
     const none = await api().get("/api/v1/programs").set(auth());
     expect(none.body.data).toEqual([]);
@@ -175,7 +175,7 @@ describe("programs", () => {
 
   it("creates a program with its check", async () => {
     const res = await api().post("/api/v1/programs").set(auth()).send(exampleProgram(shop.shearId, "SO-2291/4"));
-    expectDocumented(programOps.createProgram, res);
+    expectDocumented(programOps.createProgramOperation, res);
     expect(res.status).toBe(201);
     id = res.body.id;
     etag = res.headers.etag;
@@ -197,24 +197,24 @@ describe("programs", () => {
       .post("/api/v1/programs/batch")
       .set(auth())
       .send({ programs: [exampleProgram(shop.shearId), exampleProgram(shop.shearId)] });
-    expectDocumented(programOps.createProgramBatch, all);
+    expectDocumented(programOps.createProgramBatchOperation, all);
     expect(all.status).toBe(201);
     expect(all.body.data).toHaveLength(2);
     const each = await api()
       .post("/api/v1/programs/batch")
       .set(auth())
       .send({ atomic: false, programs: [exampleProgram(shop.shearId), { reference: "half a program" }] });
-    expectDocumented(programOps.createProgramBatch, each);
+    expectDocumented(programOps.createProgramBatchOperation, each);
     expect(each.status).toBe(207);
     expect(each.body.data.map((d: { status: number }) => d.status)).toEqual([201, 422]);
   });
 
   it("reads and lists programs", async () => {
     const read = await api().get(`/api/v1/programs/${id}`).set(auth());
-    expectDocumented(programOps.getProgram, read);
+    expectDocumented(programOps.getProgramOperation, read);
     expect(read.headers.etag).toBe(etag);
     const list = await api().get("/api/v1/programs?status=draft&reference=SO-2291%2F4").set(auth());
-    expectDocumented(programOps.listPrograms, list);
+    expectDocumented(programOps.listProgramsOperation, list);
     expect(list.body.data.map((p: { id: string }) => p.id)).toEqual([id]);
   });
 
@@ -224,17 +224,17 @@ describe("programs", () => {
       .set(auth())
       .set("If-Match", etag)
       .send({ title: "Side panels, lot 4 (rev B)" });
-    expectDocumented(programOps.updateProgram, res);
+    expectDocumented(programOps.updateProgramOperation, res);
     expect(res.body.revision).toBe(2);
     etag = res.headers.etag;
   });
 
   it("releases and cancels", async () => {
     const released = await api().post(`/api/v1/programs/${id}/release`).set(auth()).send({});
-    expectDocumented(programOps.releaseProgram, released);
+    expectDocumented(programOps.releaseProgramOperation, released);
     expect(released.body.status).toBe("released");
     const cancelled = await api().post(`/api/v1/programs/${id}/cancel`).set(auth()).send({ reason: "order withdrawn" });
-    expectDocumented(programOps.cancelProgram, cancelled);
+    expectDocumented(programOps.cancelProgramOperation, cancelled);
     expect(cancelled.body.status).toBe("cancelled");
   });
 });
@@ -248,38 +248,38 @@ describe("plans", () => {
       .set(auth())
       .set("Prefer", "wait=10")
       .send(examplePlan(shop.shearId));
-    expectDocumented(planOps.createPlan, created);
+    expectDocumented(planOps.createPlanOperation, created);
     expect(created.status).toBe(201);
     expect(created.body.status).toBe("complete");
     planId = created.body.id;
     expect(created.headers.location).toBe(`/api/v1/plans/${planId}`);
 
     const list = await api().get("/api/v1/plans?limit=5").set(auth());
-    expectDocumented(planOps.listPlans, list);
+    expectDocumented(planOps.listPlansOperation, list);
     expect(list.body.data[0].id).toBe(planId);
 
     const read = await api().get(`/api/v1/plans/${planId}`).set(auth());
-    expectDocumented(planOps.getPlan, read);
+    expectDocumented(planOps.getPlanOperation, read);
     expect(read.body).toEqual(created.body);
 
     const preview = await api().post("/api/v1/plans/preview").set(auth()).send(examplePlan(shop.shearId));
-    expectDocumented(planOps.previewPlan, preview);
+    expectDocumented(planOps.previewPlanOperation, preview);
     expect(preview.body.patterns).toEqual(created.body.result.patterns); // the same order plans the same, stored or not
 
     const written = await api().post(`/api/v1/plans/${planId}/programs`).set(auth()).send({ priority: 7 });
-    expectDocumented(planOps.writePlanPrograms, written);
+    expectDocumented(planOps.writePlanProgramsOperation, written);
     expect(written.status).toBe(201);
     expect(written.body.data).toHaveLength(created.body.result.patterns.length);
 
     const again = await api().post(`/api/v1/plans/${planId}/programs`).set(auth()).send({});
-    expectDocumented(planOps.writePlanPrograms, again);
+    expectDocumented(planOps.writePlanProgramsOperation, again);
     expect(again.status).toBe(409);
 
     const queued = await api().post("/api/v1/plans").set(auth()).send(examplePlan(shop.shearId));
-    expectDocumented(planOps.createPlan, queued);
+    expectDocumented(planOps.createPlanOperation, queued);
     expect(queued.status).toBe(202);
     const cancelled = await api().post(`/api/v1/plans/${queued.body.id}/cancel`).set(auth()).send({});
-    expectDocumented(planOps.cancelPlan, cancelled);
+    expectDocumented(planOps.cancelPlanOperation, cancelled);
     expect([200, 409]).toContain(cancelled.status); // 409 if the worker finished it first
   });
 });
@@ -294,24 +294,24 @@ describe("gateway", () => {
   it("claims, keeps, starts, reports and completes", async () => {
     const id = await released();
     const claim = await api().post(`/api/v1/shears/${shop.shearId}/claims`).set(auth()).send({ waitSeconds: 0 });
-    expectDocumented(gatewayOps.claimProgram, claim);
+    expectDocumented(gatewayOps.claimProgramOperation, claim);
     expect(claim.body.program).toMatchObject({ id, status: "claimed" });
     const hb = await api().post(`/api/v1/programs/${id}/heartbeat`).set(auth()).send({ leaseSeconds: 120 });
-    expectDocumented(gatewayOps.heartbeatProgram, hb);
+    expectDocumented(gatewayOps.heartbeatProgramOperation, hb);
     expect(hb.body.lease.seconds).toBe(120);
     const started = await api().post(`/api/v1/programs/${id}/start`).set(auth());
-    expectDocumented(gatewayOps.startProgram, started);
+    expectDocumented(gatewayOps.startProgramOperation, started);
     const progressed = await api()
       .post(`/api/v1/programs/${id}/progress`)
       .set(auth())
       .send({ groupsDone: 2, strokesDone: 10 });
-    expectDocumented(gatewayOps.reportProgress, progressed);
+    expectDocumented(gatewayOps.reportProgressOperation, progressed);
     expect(progressed.body.run.progress).toEqual({ groupsDone: 2, strokesDone: 10 });
     const done = await api()
       .post(`/api/v1/programs/${id}/complete`)
       .set(auth())
       .send({ goodPieces: 56, scrappedPieces: 0 });
-    expectDocumented(gatewayOps.completeProgram, done);
+    expectDocumented(gatewayOps.completeProgramOperation, done);
     expect(done.body).toMatchObject({ status: "completed", run: { outcome: { result: "completed", goodPieces: 56 } } });
   });
 
@@ -322,10 +322,10 @@ describe("gateway", () => {
       .post(`/api/v1/programs/${id}/fail`)
       .set(auth())
       .send({ reason: "guard_tripped", message: "rear guard opened" });
-    expectDocumented(gatewayOps.failProgram, failed);
+    expectDocumented(gatewayOps.failProgramOperation, failed);
     expect(failed.body.status).toBe("failed");
     const none = await api().post(`/api/v1/shears/${shop.shearId}/claims`).set(auth()).send({ waitSeconds: 0 });
-    expectDocumented(gatewayOps.claimProgram, none);
+    expectDocumented(gatewayOps.claimProgramOperation, none);
     expect(none.status).toBe(204);
   });
 });
@@ -343,49 +343,49 @@ describe("webhooks", () => {
       .post("/api/v1/webhook-endpoints")
       .set(auth())
       .send({ url: receiver.url, description: "contract", eventTypes: ["program.created"] });
-    expectDocumented(webhookOps.createEndpoint, created);
+    expectDocumented(webhookOps.createEndpointOperation, created);
     expect(created.body.secret).toMatch(/^whsec_/);
     endpointId = created.body.endpoint.id;
     const list = await api().get("/api/v1/webhook-endpoints").set(auth());
-    expectDocumented(webhookOps.listEndpoints, list);
+    expectDocumented(webhookOps.listEndpointsOperation, list);
     const read = await api().get(`/api/v1/webhook-endpoints/${endpointId}`).set(auth());
-    expectDocumented(webhookOps.getEndpoint, read);
+    expectDocumented(webhookOps.getEndpointOperation, read);
     expect(JSON.stringify(read.body)).not.toContain(created.body.secret);
     const changed = await api().patch(`/api/v1/webhook-endpoints/${endpointId}`).set(auth()).send({ eventTypes: [] });
-    expectDocumented(webhookOps.updateEndpoint, changed);
+    expectDocumented(webhookOps.updateEndpointOperation, changed);
   });
 
   it("sends a test event, rotates the secret, and shows deliveries", async () => {
     const test = await api().post(`/api/v1/webhook-endpoints/${endpointId}/test`).set(auth());
-    expectDocumented(webhookOps.testEndpoint, test);
+    expectDocumented(webhookOps.testEndpointOperation, test);
     expect(test.status).toBe(202);
     await receiver.waitFor(1);
     const rotated = await api()
       .post(`/api/v1/webhook-endpoints/${endpointId}/rotate-secret`)
       .set(auth())
       .send({ overlapHours: 1 });
-    expectDocumented(webhookOps.rotateSecret, rotated);
+    expectDocumented(webhookOps.rotateSecretOperation, rotated);
     expect(rotated.body.endpoint.secretRotation).not.toBeNull();
     const deliveries = await api().get(`/api/v1/webhook-endpoints/${endpointId}/deliveries`).set(auth());
-    expectDocumented(webhookOps.listEndpointDeliveries, deliveries);
+    expectDocumented(webhookOps.listEndpointDeliveriesOperation, deliveries);
   });
 
   it("lists events, reads one with its deliveries, and resends it", async () => {
     const events = await api().get("/api/v1/events?type=endpoint.test").set(auth());
-    expectDocumented(webhookOps.listEvents, events);
+    expectDocumented(webhookOps.listEventsOperation, events);
     const eventId = events.body.data[0].id;
     const event = await api().get(`/api/v1/events/${eventId}`).set(auth());
-    expectDocumented(webhookOps.getEvent, event);
+    expectDocumented(webhookOps.getEventOperation, event);
     const deliveries = await api().get(`/api/v1/events/${eventId}/deliveries`).set(auth());
-    expectDocumented(webhookOps.listEventDeliveries, deliveries);
+    expectDocumented(webhookOps.listEventDeliveriesOperation, deliveries);
     const resent = await api().post(`/api/v1/events/${eventId}/resend`).set(auth()).send({ endpoint: endpointId });
-    expectDocumented(webhookOps.resendEvent, resent);
+    expectDocumented(webhookOps.resendEventOperation, resent);
     expect(resent.status).toBe(202);
   });
 
   it("removes an endpoint", async () => {
     const res = await api().delete(`/api/v1/webhook-endpoints/${endpointId}`).set(auth());
-    expectDocumented(webhookOps.deleteEndpoint, res);
+    expectDocumented(webhookOps.deleteEndpointOperation, res);
     expect(res.status).toBe(204);
   });
 });
@@ -401,25 +401,25 @@ describe("stock", () => {
       quantity: 2,
       location: "R9",
     });
-    expectDocumented(stockOps.createStockItem, created);
+    expectDocumented(stockOps.createStockItemOperation, created);
     expect(created.status).toBe(201);
     const id = created.body.id;
     const list = await api().get("/api/v1/stock?grade=A36&thicknessMm=3&kind=remnant&limit=5").set(auth());
-    expectDocumented(stockOps.listStock, list);
+    expectDocumented(stockOps.listStockOperation, list);
     expect(list.body.data.map((s: { id: string }) => s.id)).toContain(id);
     const read = await api().get(`/api/v1/stock/${id}`).set(auth());
-    expectDocumented(stockOps.getStockItem, read);
+    expectDocumented(stockOps.getStockItemOperation, read);
     const adjusted = await api().post(`/api/v1/stock/${id}/adjust`).set(auth()).send({ delta: 1, reason: "found" });
-    expectDocumented(stockOps.adjustStock, adjusted);
+    expectDocumented(stockOps.adjustStockOperation, adjusted);
     expect(adjusted.body.quantity).toBe(3);
     const reserved = await api().post(`/api/v1/stock/${id}/reservations`).set(auth()).send({ quantity: 2 });
-    expectDocumented(stockOps.reserveStock, reserved);
+    expectDocumented(stockOps.reserveStockOperation, reserved);
     expect(reserved.status).toBe(201);
     const released = await api().post(`/api/v1/stock-reservations/${reserved.body.id}/release`).set(auth());
-    expectDocumented(stockOps.releaseReservation, released);
+    expectDocumented(stockOps.releaseReservationOperation, released);
     expect(released.body.status).toBe("released");
     const archived = await api().post(`/api/v1/stock/${id}/archive`).set(auth());
-    expectDocumented(stockOps.archiveStockItem, archived);
+    expectDocumented(stockOps.archiveStockItemOperation, archived);
     expect(archived.body.archivedAt).not.toBeNull();
   });
 });
@@ -427,10 +427,10 @@ describe("stock", () => {
 describe("settings", () => {
   it("reads and changes the shop's settings", async () => {
     const read = await api().get("/api/v1/settings").set(auth());
-    expectDocumented(settingsOps.getSettings, read);
+    expectDocumented(settingsOps.getSettingsOperation, read);
     expect(read.body).toEqual({ routingRule: "least_capacity", remnantMinMm: null });
     const changed = await api().patch("/api/v1/settings").set(auth()).send({ routingRule: "least_capacity" });
-    expectDocumented(settingsOps.updateSettings, changed);
+    expectDocumented(settingsOps.updateSettingsOperation, changed);
     expect(changed.status).toBe(200);
   });
 });

@@ -56,7 +56,7 @@ describe("the worked example of our cut-program docs, as order lines", () => {
       blanks: [{ label: "panel", length: 16, width: 12, quantity: 56, canTurn: false }],
     });
     expect(res.status).toBe(201);
-    expectDocumented(ops.createPlan, { ...res, body: (res as { raw?: unknown }).raw });
+    expectDocumented(ops.createPlanOperation, { ...res, body: (res as { raw?: unknown }).raw });
     expect(res.body.planStatus).toBe("complete");
     expect(res.body.coverage).toBe("complete");
     expect(res.body.summary).toMatchObject({
@@ -354,7 +354,7 @@ describe("bad input", () => {
       blanks: [{ label: "a", length: 100, width: 100, quantity: 1 }],
     };
     const offGrid = await plan({ ...base, blanks: [{ label: "a", length: 100.005, width: 100, quantity: 1 }] });
-    expectDocumented(ops.createPlan, offGrid);
+    expectDocumented(ops.createPlanOperation, offGrid);
     expect(offGrid.status).toBe(422);
     expect(offGrid.headers["content-type"]).toMatch(/application\/problem\+json/);
     expect(offGrid.body.errors[0]).toMatchObject({ pointer: "/blanks/0/length" });
@@ -399,7 +399,7 @@ describe("writing the programs", () => {
       ).status,
     ).toBe(201);
     const refused = await write(res.body.id);
-    expectDocumented(ops.writePlanPrograms, refused);
+    expectDocumented(ops.writePlanProgramsOperation, refused);
     expect(refused.status).toBe(409);
     const em = (await testOrm()).em.fork();
     expect(await em.count(Program, { shop: shop.shopId, reference: `${ref}/A` })).toBe(0);
@@ -445,13 +445,13 @@ describe("plans are jobs", () => {
 
   it("answers 202 with the plan's URL at once; a worker computes it and sends plan.completed", async () => {
     const res = await api().post("/api/v1/plans").set(auth()).send(examplePlan(shop.shearId));
-    expectDocumented(ops.createPlan, res);
+    expectDocumented(ops.createPlanOperation, res);
     expect(res.status).toBe(202);
     expect(res.headers.location).toBe(`/api/v1/plans/${res.body.id}`);
     expect(["queued", "running", "complete"]).toContain(res.body.status);
     expect(res.body.result === null || res.body.status === "complete").toBe(true);
     const done = await untilEnded(res.body.id);
-    expectDocumented(ops.getPlan, done);
+    expectDocumented(ops.getPlanOperation, done);
     expect(done.body).toMatchObject({
       status: "complete",
       attempts: 1,
@@ -466,7 +466,7 @@ describe("plans are jobs", () => {
 
   it("holds the answer for a small plan when asked (Prefer: wait), and says so", async () => {
     const res = await api().post("/api/v1/plans").set(auth()).set("Prefer", "wait=10").send(examplePlan(shop.shearId));
-    expectDocumented(ops.createPlan, res);
+    expectDocumented(ops.createPlanOperation, res);
     expect(res.status).toBe(201);
     expect(res.headers["preference-applied"]).toBe("wait=10");
     expect(res.body.status).toBe("complete");
@@ -474,7 +474,7 @@ describe("plans are jobs", () => {
 
   it("lists summaries, not layouts", async () => {
     const list = await api().get("/api/v1/plans?limit=5").set(auth());
-    expectDocumented(ops.listPlans, list);
+    expectDocumented(ops.listPlansOperation, list);
     for (const p of list.body.data) {
       expect(p).not.toHaveProperty("result");
       expect(p).toHaveProperty("summary");
@@ -485,7 +485,7 @@ describe("plans are jobs", () => {
     const em = (await testOrm()).em.fork();
     const before = await em.count("Plan", { shop: shop.shopId });
     const res = await api().post("/api/v1/plans/preview").set(auth()).send(examplePlan(shop.shearId));
-    expectDocumented(ops.previewPlan, res);
+    expectDocumented(ops.previewPlanOperation, res);
     expect(res.status).toBe(200);
     expect(res.body).toMatchObject({ coverage: "complete", shear: shop.shearId });
     expect(res.body.patterns.length).toBeGreaterThan(0);
@@ -496,7 +496,7 @@ describe("plans are jobs", () => {
     const res = await api().post("/api/v1/plans").set(auth()).send(largestOrder(shop.shearId, 7));
     expect(res.status).toBe(202);
     const cancelled = await api().post(`/api/v1/plans/${res.body.id}/cancel`).set(auth()).send({});
-    expectDocumented(ops.cancelPlan, cancelled);
+    expectDocumented(ops.cancelPlanOperation, cancelled);
     expect(cancelled.status).toBe(200);
     expect(cancelled.body.status).toBe("cancelled");
     const again = await api().post(`/api/v1/plans/${res.body.id}/cancel`).set(auth()).send({});

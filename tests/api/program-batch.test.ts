@@ -29,7 +29,7 @@ describe("all or nothing (the default)", () => {
   it("creates every program in order, each checked, each with its program.created event", async () => {
     const programs = Array.from({ length: 5 }, (_, i) => exampleProgram(shop.shearId, `BA-${i}`));
     const res = await batch({ programs });
-    expectDocumented(ops.createProgramBatch, res);
+    expectDocumented(ops.createProgramBatchOperation, res);
     expect(res.status).toBe(201);
     expect(res.body.data.map((p: { reference: string }) => p.reference)).toEqual(programs.map((p) => p.reference));
     // by hand: each 120 × 48 in sheet ripped at 12 in (3 strokes, 4 strips), each strip crosscut at 16 in
@@ -59,7 +59,7 @@ describe("all or nothing (the default)", () => {
         exampleProgram(shop.shearId, "BB-3"),
       ],
     });
-    expectDocumented(ops.createProgramBatch, res);
+    expectDocumented(ops.createProgramBatchOperation, res);
     expect(res.status).toBe(422);
     expect(res.headers["content-type"]).toMatch(/application\/problem\+json/);
     expect(res.body.errors).toEqual([
@@ -83,7 +83,7 @@ describe("all or nothing (the default)", () => {
         exampleProgram(shop.shearId, "BC-1"),
       ],
     });
-    expectDocumented(ops.createProgramBatch, res);
+    expectDocumented(ops.createProgramBatchOperation, res);
     expect(res.status).toBe(409);
     expect(res.body.failures).toEqual([
       expect.objectContaining({ index: 1, status: 409, existingId: first.body.data[0].id }),
@@ -95,7 +95,7 @@ describe("all or nothing (the default)", () => {
   it("takes at most 100 programs and at least one", async () => {
     const many = Array.from({ length: 101 }, (_, i) => exampleProgram(shop.shearId, `BD-${i}`));
     const res = await batch({ programs: many });
-    expectDocumented(ops.createProgramBatch, res);
+    expectDocumented(ops.createProgramBatchOperation, res);
     expect(res.status).toBe(422);
     expect(res.body.errors[0].pointer).toBe("/programs");
     expect((await batch({ programs: [] })).status).toBe(422);
@@ -125,7 +125,7 @@ describe("program by program (atomic: false)", () => {
         exampleProgram("test SHEAR", "BE-3"),
       ],
     });
-    expectDocumented(ops.createProgramBatch, res);
+    expectDocumented(ops.createProgramBatchOperation, res);
     expect(res.status).toBe(207);
     const data = res.body.data as { index: number; status: number; program?: { reference: string; shear: string } }[];
     expect(data.map((d) => [d.index, d.status])).toEqual([

@@ -25,7 +25,7 @@ describe("create", () => {
     const first = await create(exampleProgram(shop.shearId, "DUP-1"));
     expect(first.status).toBe(201);
     const second = await create({ ...exampleProgram(shop.shearId, "DUP-1"), title: "another" });
-    expectDocumented(ops.createProgram, second);
+    expectDocumented(ops.createProgramOperation, second);
     expect(second.status).toBe(409);
     expect(second.body.existingId).toBe(first.body.id);
   });
@@ -75,7 +75,7 @@ describe("update", () => {
   it("needs If-Match (428), refuses a stale one (412), and bumps the revision", async () => {
     const { body: p } = await create(exampleProgram(shop.shearId));
     const missing = await api().patch(`/api/v1/programs/${p.id}`).set(auth()).send({ title: "x" });
-    expectDocumented(ops.updateProgram, missing);
+    expectDocumented(ops.updateProgramOperation, missing);
     expect(missing.status).toBe(428);
 
     const ok = await api().patch(`/api/v1/programs/${p.id}`).set(auth()).set("If-Match", '"1"').send({ title: "x" });
@@ -83,7 +83,7 @@ describe("update", () => {
     expect(ok.headers.etag).toBe('"2"');
 
     const stale = await api().patch(`/api/v1/programs/${p.id}`).set(auth()).set("If-Match", '"1"').send({ title: "y" });
-    expectDocumented(ops.updateProgram, stale);
+    expectDocumented(ops.updateProgramOperation, stale);
     expect(stale.status).toBe(412);
     expect(stale.body.currentRevision).toBe(2);
 
@@ -132,7 +132,7 @@ describe("release", () => {
     body.cuts[0].backgauge = 60;
     const { body: p } = await create(body);
     const res = await api().post(`/api/v1/programs/${p.id}/release`).set(auth()).send({});
-    expectDocumented(ops.releaseProgram, res);
+    expectDocumented(ops.releaseProgramOperation, res);
     expect(res.status).toBe(409);
     expect(res.body.type).toBe("/problems/program-not-releasable");
     expect(res.body.findings.some((f: { pointer: string }) => f.pointer === "/cuts/0/backgauge")).toBe(true);
@@ -171,7 +171,7 @@ describe("cancel", () => {
     const res = await api().post(`/api/v1/programs/${p.id}/cancel`).set(auth()).send({});
     expect(res.body.status).toBe("cancelled");
     const again = await api().post(`/api/v1/programs/${p.id}/cancel`).set(auth()).send({});
-    expectDocumented(ops.cancelProgram, again);
+    expectDocumented(ops.cancelProgramOperation, again);
     expect(again.status).toBe(409);
     expect(again.body.currentStatus).toBe("cancelled");
   });
@@ -212,7 +212,7 @@ describe("list", () => {
     const bad = await api().get("/api/v1/programs?cursor=not-a-cursor").set(auth());
     expect(bad.status).toBe(400);
     const badLimit = await api().get("/api/v1/programs?limit=5000").set(auth());
-    expectDocumented(ops.listPrograms, badLimit);
+    expectDocumented(ops.listProgramsOperation, badLimit);
     expect(badLimit.status).toBe(422);
     expect(badLimit.body.errors[0]).toMatchObject({ location: "query", pointer: "/limit" });
   });

@@ -43,7 +43,7 @@ afterAll(closeTestOrm);
 describe("a program without a shear", () => {
   it("goes to the shear with the least capacity used, with each other shear's reason", async () => {
     const res = await api().post("/api/v1/programs").set(auth()).send(unrouted());
-    expectDocumented(ops.createProgram, res);
+    expectDocumented(ops.createProgramOperation, res);
     expect(res.status).toBe(201);
     expect(res.body.shear).toBe(big);
     const { routing } = res.body;
@@ -80,10 +80,10 @@ describe("a program without a shear", () => {
 
   it("goes to the shortest queue of released programs when the shop says so", async () => {
     const patched = await api().patch("/api/v1/settings").set(auth()).send({ routingRule: "shortest_queue" });
-    expectDocumented(settingsOps.updateSettings, patched);
+    expectDocumented(settingsOps.updateSettingsOperation, patched);
     expect(patched.body).toEqual({ routingRule: "shortest_queue", remnantMinMm: null });
     const read = await api().get("/api/v1/settings").set(auth());
-    expectDocumented(settingsOps.getSettings, read);
+    expectDocumented(settingsOps.getSettingsOperation, read);
     expect(read.body).toEqual({ routingRule: "shortest_queue", remnantMinMm: null });
     try {
       // one released program waits for the heavy shear
@@ -111,7 +111,7 @@ describe("a program without a shear", () => {
   it("is refused with every shear's reason when none can cut it, and nothing is stored", async () => {
     const body = { ...unrouted(), thickness: { value: 1 } }; // 1 in plate: beyond all three ratings
     const res = await api().post("/api/v1/programs").set(auth()).send(body);
-    expectDocumented(ops.createProgram, res);
+    expectDocumented(ops.createProgramOperation, res);
     expect(res.status).toBe(422);
     expect(res.body.type).toBe("/problems/no-shear-can-cut");
     expect(res.body.shears).toHaveLength(3);
@@ -132,7 +132,7 @@ describe("a program without a shear", () => {
 describe("the dry run without a shear", () => {
   it("says which shears can cut it and which would be chosen", async () => {
     const res = await api().post("/api/v1/programs/validate").set(auth()).send(unrouted());
-    expectDocumented(ops.validateProgram, res);
+    expectDocumented(ops.validateProgramOperation, res);
     expect(res.status).toBe(200);
     expect(res.body.routing.chosen).toBe(big);
     const can = (res.body.routing.shears as Routed[]).filter((s) => s.canCut).map((s) => s.shear);

@@ -41,12 +41,12 @@ describe("stock items", () => {
     expect(a).toMatchObject({ kind: "sheet", quantity: 10, reserved: 0, available: 10, location: "B2" });
     expect(b).toMatchObject({ kind: "remnant", sourceRun: "run 7", sourceProgram: null });
     const read = await api().get(`/api/v1/stock/${a.id}`).set(auth());
-    expectDocumented(ops.getStockItem, read);
+    expectDocumented(ops.getStockItemOperation, read);
     expect(read.body).toEqual(a);
 
     const ids = async (query: string) => {
       const res = await api().get(`/api/v1/stock?${query}`).set(auth());
-      expectDocumented(ops.listStock, res);
+      expectDocumented(ops.listStockOperation, res);
       expect(res.status).toBe(200);
       return res.body.data.map((s: { id: string }) => s.id);
     };
@@ -79,11 +79,11 @@ describe("stock items", () => {
   it("are adjusted with a reason, never below what is reserved", async () => {
     const item = await add({ ...sheet, quantity: 5 });
     const down = await api().post(`/api/v1/stock/${item.id}/adjust`).set(auth()).send({ delta: -2, reason: "dented" });
-    expectDocumented(ops.adjustStock, down);
+    expectDocumented(ops.adjustStockOperation, down);
     expect(down.body).toMatchObject({ quantity: 3, available: 3 });
     await api().post(`/api/v1/stock/${item.id}/reservations`).set(auth()).send({ quantity: 2 }).expect(201);
     const tooFar = await api().post(`/api/v1/stock/${item.id}/adjust`).set(auth()).send({ delta: -2, reason: "count" });
-    expectDocumented(ops.adjustStock, tooFar);
+    expectDocumented(ops.adjustStockOperation, tooFar);
     expect(tooFar.status).toBe(409);
     expect(tooFar.body).toMatchObject({ quantity: 3, reserved: 2 });
     expect(
@@ -107,7 +107,7 @@ describe("stock items", () => {
     expect(released.body).toMatchObject({ status: "released", quantity: 1 });
     expect((await api().post(`/api/v1/stock-reservations/${r.body.id}/release`).set(auth())).status).toBe(409);
     const archived = await api().post(`/api/v1/stock/${item.id}/archive`).set(auth());
-    expectDocumented(ops.archiveStockItem, archived);
+    expectDocumented(ops.archiveStockItemOperation, archived);
     expect(archived.status).toBe(200);
     const listed = (await api().get("/api/v1/stock?limit=200").set(auth())).body.data.map((s: { id: string }) => s.id);
     expect(listed).not.toContain(item.id);
@@ -129,7 +129,7 @@ describe("reservations", () => {
         api().post(`/api/v1/stock/${item.id}/reservations`).set(auth()).send({ quantity, note: "race" }),
       ),
     );
-    for (const res of answers) expectDocumented(ops.reserveStock, res);
+    for (const res of answers) expectDocumented(ops.reserveStockOperation, res);
     const granted = answers.filter((r) => r.status === 201);
     const refused = answers.filter((r) => r.status === 409);
     expect(granted.length + refused.length).toBe(asks.length);

@@ -5,8 +5,8 @@ import { ApiKey, Event, Grade, Membership, Plan, Program, Shear, User } from "..
 import { ormConfig } from "../../lib/db/config";
 import { migrateUp } from "../../lib/db/migrate";
 import { isId } from "../../lib/ids";
-import { EXAMPLE_PLAN, PlanInput } from "../../lib/schemas/plan";
-import { EXAMPLE_PROGRAM, ProgramInput } from "../../lib/schemas/program";
+import { EXAMPLE_PLAN, PlanInputSchema } from "../../lib/schemas/plan";
+import { EXAMPLE_PROGRAM, ProgramInputSchema } from "../../lib/schemas/program";
 import { createPlan } from "../../lib/services/plans";
 import { validateProgram } from "../../lib/services/programs";
 import { DEMO_PASSWORD, seedDemo } from "../../scripts/lib/seed";
@@ -56,11 +56,11 @@ describe("demo seed", () => {
 
   it("runs the reference's examples as written: the program and the plan name the demo shop's first shear", async () => {
     const demo = await seedDemo(orm.em.fork());
-    const check = await validateProgram(orm.em.fork(), demo.shop.id, ProgramInput.parse(EXAMPLE_PROGRAM));
+    const check = await validateProgram(orm.em.fork(), demo.shop.id, ProgramInputSchema.parse(EXAMPLE_PROGRAM));
     expect(check.validation).not.toBe("fail");
     expect(check.yield?.total).toMatchObject({ blanks: 56, strokes: 62 }); // the worked example the quickstart describes
     const em = orm.em.fork();
-    const plan = await createPlan(em, demo.shop.id, PlanInput.parse(EXAMPLE_PLAN), { queue: false });
+    const plan = await createPlan(em, demo.shop.id, PlanInputSchema.parse(EXAMPLE_PLAN), { queue: false });
     expect(plan.shear).toBe(demo.shears.find((s) => s.name === "Bay 1 sheet shear")!.id);
     await em.nativeDelete(Plan, { id: plan.id });
   });

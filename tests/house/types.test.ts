@@ -8,7 +8,7 @@ import path from "node:path";
 import { describe, expect, expectTypeOf, it } from "vitest";
 import { defineOperation, type ReplyOf } from "../../lib/api/operation";
 import type { CheckT } from "../../lib/schemas/check";
-import { Shear } from "../../lib/schemas/shear";
+import { ShearSchema } from "../../lib/schemas/shear";
 import type { CheckResult } from "../../lib/shear";
 
 const ROOT = path.resolve(__dirname, "../..");
@@ -20,7 +20,7 @@ const readShear = defineOperation({
   summary: "A probe for the type test",
   tags: ["probe"],
   scope: null,
-  responses: { 200: { description: "a shear", schema: Shear } },
+  responses: { 200: { description: "a shear", schema: ShearSchema } },
 });
 type ProbeReply = ReplyOf<typeof readShear.responses>;
 

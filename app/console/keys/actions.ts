@@ -5,11 +5,11 @@ import { zfd } from "zod-form-data";
 import { memberAction } from "@/lib/auth/action";
 import { can } from "@/lib/auth/roles";
 import { NotAllowedError } from "@/lib/auth/session";
-import { KeyInput, READ_ONLY_SCOPES } from "@/lib/schemas/key";
+import { KeyInputSchema, READ_ONLY_SCOPES } from "@/lib/schemas/key";
 import { z } from "@/lib/schemas/zod";
 import { createKey, revokeKey } from "@/lib/services/keys";
 
-const fields = KeyInput.shape;
+const fields = KeyInputSchema.shape;
 
 /**
  * Create a key; its secret goes back to this one response and is never stored. Admins and

@@ -5,7 +5,7 @@ import { redirect } from "next/navigation";
 import { ApiError } from "@/lib/errors";
 import { zfd } from "zod-form-data";
 import { memberAction } from "@/lib/auth/action";
-import { PlanInput } from "@/lib/schemas/plan";
+import { PlanInputSchema } from "@/lib/schemas/plan";
 import { z } from "@/lib/schemas/zod";
 import { type RowError } from "@/lib/services/import";
 import { parseBlanksCsv } from "@/lib/services/import-blanks";
@@ -77,7 +77,7 @@ export const planAction = memberAction("programs:write")
         }),
       ),
     };
-    const result = PlanInput.safeParse(input);
+    const result = PlanInputSchema.safeParse(input);
     if (!result.success) {
       return refused({
         fields: result.error.issues.map((i) => {

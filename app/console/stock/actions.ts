@@ -5,14 +5,14 @@ import { zfd } from "zod-form-data";
 import { zodErrors } from "@/lib/api/route-input";
 import { memberAction } from "@/lib/auth/action";
 import { invalidRequest } from "@/lib/errors";
-import { SettingsPatch } from "@/lib/schemas/settings";
-import { StockAdjustInput, StockItemInput } from "@/lib/schemas/stock";
+import { SettingsPatchSchema } from "@/lib/schemas/settings";
+import { StockAdjustInputSchema, StockItemInputSchema } from "@/lib/schemas/stock";
 import { z } from "@/lib/schemas/zod";
 import * as settings from "@/lib/services/settings";
 import * as stock from "@/lib/services/stock";
 
 // The API's own schemas, fed from form fields (numbers arrive as text).
-const fields = StockItemInput.shape;
+const fields = StockItemInputSchema.shape;
 const done = <T extends object>(value: T) => {
   revalidatePath("/console/stock");
   return value;
@@ -39,8 +39,8 @@ export const adjustStockAction = memberAction("stock:manage")
   .inputSchema(
     zfd.formData({
       id: zfd.text(z.string().max(64)),
-      delta: zfd.numeric(StockAdjustInput.shape.delta),
-      reason: zfd.text(StockAdjustInput.shape.reason),
+      delta: zfd.numeric(StockAdjustInputSchema.shape.delta),
+      reason: zfd.text(StockAdjustInputSchema.shape.reason),
     }),
   )
   .action(async ({ parsedInput: { id, ...input }, ctx: { member, em } }) => {
@@ -59,13 +59,13 @@ export const archiveStockAction = memberAction("stock:manage")
 export const settingsAction = memberAction("settings:manage")
   .inputSchema(
     zfd.formData({
-      routingRule: zfd.text(SettingsPatch.shape.routingRule),
+      routingRule: zfd.text(SettingsPatchSchema.shape.routingRule),
       remnantMinMm: zfd.text(z.string().max(20).optional()),
     }),
   )
   .action(async ({ parsedInput, ctx: { member, em } }) => {
     const size = parsedInput.remnantMinMm === undefined ? null : Number(parsedInput.remnantMinMm);
-    const patch = SettingsPatch.safeParse({ routingRule: parsedInput.routingRule, remnantMinMm: size });
+    const patch = SettingsPatchSchema.safeParse({ routingRule: parsedInput.routingRule, remnantMinMm: size });
     if (!patch.success) throw invalidRequest("Some fields need attention.", zodErrors("body", patch.error));
     await settings.updateSettings(em, member.shopId, patch.data);
     revalidatePath("/console/shears");

@@ -4,7 +4,7 @@ import { revalidatePath } from "next/cache";
 import { zfd } from "zod-form-data";
 import { memberAction } from "@/lib/auth/action";
 import { ROLES } from "@/lib/schemas/enums";
-import { InviteInput } from "@/lib/schemas/team";
+import { InviteInputSchema } from "@/lib/schemas/team";
 import { z } from "@/lib/schemas/zod";
 import * as team from "@/lib/services/team";
 
@@ -15,7 +15,9 @@ const done = <T extends object>(value: T) => {
 };
 
 export const inviteAction = memberAction("team:manage")
-  .inputSchema(zfd.formData({ email: zfd.text(InviteInput.shape.email), role: zfd.text(InviteInput.shape.role) }))
+  .inputSchema(
+    zfd.formData({ email: zfd.text(InviteInputSchema.shape.email), role: zfd.text(InviteInputSchema.shape.role) }),
+  )
   .action(async ({ parsedInput, ctx: { member, em } }) => {
     await team.invite(em, member.shopId, member, parsedInput.email, parsedInput.role);
     return done({ message: `Invitation sent to ${parsedInput.email}.` });

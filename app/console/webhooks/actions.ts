@@ -4,12 +4,12 @@ import { revalidatePath } from "next/cache";
 import { redirect } from "next/navigation";
 import { zfd } from "zod-form-data";
 import { memberAction } from "@/lib/auth/action";
-import { EndpointInput, EventType } from "@/lib/schemas/webhook";
+import { EndpointInputSchema, EventTypeSchema } from "@/lib/schemas/webhook";
 import { z } from "@/lib/schemas/zod";
 import * as webhooks from "@/lib/services/webhooks";
 
 // The API's own schema: the same address rules (http or https, length) and the same event types.
-const fields = EndpointInput.shape;
+const fields = EndpointInputSchema.shape;
 const id = zfd.text(z.string().max(64));
 const done = <T extends object>(value: T) => {
   revalidatePath("/console/webhooks");
@@ -21,7 +21,7 @@ export const createEndpointAction = memberAction("webhooks:manage")
     zfd.formData({
       url: zfd.text(fields.url),
       description: zfd.text(fields.description),
-      eventTypes: zfd.repeatable(z.array(EventType).max(50)),
+      eventTypes: zfd.repeatable(z.array(EventTypeSchema).max(50)),
     }),
   )
   .action(async ({ parsedInput, ctx: { member, em } }) => {
@@ -64,7 +64,7 @@ export const updateEndpointAction = memberAction("webhooks:manage")
       id,
       url: zfd.text(fields.url),
       description: zfd.text(fields.description),
-      eventTypes: zfd.repeatable(z.array(EventType).max(50)),
+      eventTypes: zfd.repeatable(z.array(EventTypeSchema).max(50)),
     }),
   )
   .action(async ({ parsedInput: { id: endpointId, url, description, eventTypes }, ctx: { member, em } }) => {

@@ -3,10 +3,10 @@
 import { redirect } from "next/navigation";
 import { zfd } from "zod-form-data";
 import { publicAction } from "@/lib/auth/action";
-import { AcceptInput } from "@/lib/schemas/team";
+import { AcceptInputSchema } from "@/lib/schemas/team";
 import { acceptInvitation } from "@/lib/services/team";
 
-const fields = AcceptInput.shape;
+const fields = AcceptInputSchema.shape;
 
 export const acceptAction = publicAction
   .inputSchema(

@@ -1,42 +1,42 @@
 import { GRADE_FAMILIES } from "../../../entities/Grade";
 import { defineOperation } from "../operation";
-import { GaugeQuery, GaugeTable, SetupRequest } from "../../schemas/catalog";
-import { idParam, listOf, Pagination } from "../../schemas/common";
-import { Grade, GradeInput, GradePatch } from "../../schemas/grade";
-import { Check } from "../../schemas/check";
-import { Shear, ShearInput, ShearPatch } from "../../schemas/shear";
+import { GaugeQuerySchema, GaugeTableSchema, SetupRequestSchema } from "../../schemas/catalog";
+import { idParam, listOf, PaginationSchema } from "../../schemas/common";
+import { GradeSchema, GradeInputSchema, GradePatchSchema } from "../../schemas/grade";
+import { CheckSchema } from "../../schemas/check";
+import { ShearSchema, ShearInputSchema, ShearPatchSchema } from "../../schemas/shear";
 import { z } from "../../schemas/zod";
 
 const tags = ["Catalog"];
 const archivedFlag = z.enum(["true", "false"]).optional().openapi({ description: "`true` includes archived entries" });
 
-export const listShears = defineOperation({
+export const listShearsOperation = defineOperation({
   operationId: "listShears",
   method: "get",
   path: "/shears",
   tags,
   scope: "catalog:read",
   summary: "List shears",
-  query: Pagination.extend({
+  query: PaginationSchema.extend({
     includeArchived: archivedFlag,
     include_archived: archivedFlag.openapi({
       description: "The earlier spelling of `includeArchived`, still accepted",
       deprecated: true,
     }),
   }),
-  responses: { 200: { description: "A page of shears.", schema: listOf(Shear, "ShearList") } },
+  responses: { 200: { description: "A page of shears.", schema: listOf(ShearSchema, "ShearList") } },
 });
-export const createShear = defineOperation({
+export const createShearOperation = defineOperation({
   operationId: "createShear",
   method: "post",
   path: "/shears",
   tags,
   scope: "catalog:write",
   summary: "Add a shear",
-  body: ShearInput,
-  responses: { 201: { description: "Created.", schema: Shear } },
+  body: ShearInputSchema,
+  responses: { 201: { description: "Created.", schema: ShearSchema } },
 });
-export const getShear = defineOperation({
+export const getShearOperation = defineOperation({
   operationId: "getShear",
   method: "get",
   path: "/shears/{id}",
@@ -44,9 +44,9 @@ export const getShear = defineOperation({
   scope: "catalog:read",
   summary: "Read a shear",
   params: idParam("shr", "shear"),
-  responses: { 200: { description: "The shear.", schema: Shear } },
+  responses: { 200: { description: "The shear.", schema: ShearSchema } },
 });
-export const updateShear = defineOperation({
+export const updateShearOperation = defineOperation({
   operationId: "updateShear",
   method: "patch",
   path: "/shears/{id}",
@@ -56,11 +56,11 @@ export const updateShear = defineOperation({
   description:
     "Programs already released keep the check they were released with; drafts are checked against the new profile when next changed or released.",
   params: idParam("shr", "shear"),
-  body: ShearPatch,
+  body: ShearPatchSchema,
   errors: [409],
-  responses: { 200: { description: "The changed shear.", schema: Shear } },
+  responses: { 200: { description: "The changed shear.", schema: ShearSchema } },
 });
-export const archiveShear = defineOperation({
+export const archiveShearOperation = defineOperation({
   operationId: "archiveShear",
   method: "post",
   path: "/shears/{id}/archive",
@@ -69,17 +69,17 @@ export const archiveShear = defineOperation({
   summary: "Archive a shear",
   description: "Archived shears take no new programs and are left out of lists unless asked for.",
   params: idParam("shr", "shear"),
-  responses: { 200: { description: "The archived shear.", schema: Shear } },
+  responses: { 200: { description: "The archived shear.", schema: ShearSchema } },
 });
 
-export const listGrades = defineOperation({
+export const listGradesOperation = defineOperation({
   operationId: "listGrades",
   method: "get",
   path: "/grades",
   tags,
   scope: "catalog:read",
   summary: "List grades",
-  query: Pagination.extend({
+  query: PaginationSchema.extend({
     includeArchived: archivedFlag,
     include_archived: archivedFlag.openapi({
       description: "The earlier spelling of `includeArchived`, still accepted",
@@ -87,20 +87,20 @@ export const listGrades = defineOperation({
     }),
     family: z.enum(GRADE_FAMILIES).optional(),
   }),
-  responses: { 200: { description: "A page of grades.", schema: listOf(Grade, "GradeList") } },
+  responses: { 200: { description: "A page of grades.", schema: listOf(GradeSchema, "GradeList") } },
 });
-export const createGrade = defineOperation({
+export const createGradeOperation = defineOperation({
   operationId: "createGrade",
   method: "post",
   path: "/grades",
   tags,
   scope: "catalog:write",
   summary: "Add a grade",
-  body: GradeInput,
+  body: GradeInputSchema,
   errors: [409],
-  responses: { 201: { description: "Created.", schema: Grade } },
+  responses: { 201: { description: "Created.", schema: GradeSchema } },
 });
-export const getGrade = defineOperation({
+export const getGradeOperation = defineOperation({
   operationId: "getGrade",
   method: "get",
   path: "/grades/{id}",
@@ -108,9 +108,9 @@ export const getGrade = defineOperation({
   scope: "catalog:read",
   summary: "Read a grade",
   params: idParam("grd", "grade"),
-  responses: { 200: { description: "The grade.", schema: Grade } },
+  responses: { 200: { description: "The grade.", schema: GradeSchema } },
 });
-export const updateGrade = defineOperation({
+export const updateGradeOperation = defineOperation({
   operationId: "updateGrade",
   method: "patch",
   path: "/grades/{id}",
@@ -118,10 +118,10 @@ export const updateGrade = defineOperation({
   scope: "catalog:write",
   summary: "Change a grade",
   params: idParam("grd", "grade"),
-  body: GradePatch,
-  responses: { 200: { description: "The changed grade.", schema: Grade } },
+  body: GradePatchSchema,
+  responses: { 200: { description: "The changed grade.", schema: GradeSchema } },
 });
-export const archiveGrade = defineOperation({
+export const archiveGradeOperation = defineOperation({
   operationId: "archiveGrade",
   method: "post",
   path: "/grades/{id}/archive",
@@ -130,10 +130,10 @@ export const archiveGrade = defineOperation({
   summary: "Archive a grade",
   description: "Programs naming an archived grade get a `grade_unknown` finding.",
   params: idParam("grd", "grade"),
-  responses: { 200: { description: "The archived grade.", schema: Grade } },
+  responses: { 200: { description: "The archived grade.", schema: GradeSchema } },
 });
 
-export const listGauges = defineOperation({
+export const listGaugesOperation = defineOperation({
   operationId: "listGauges",
   method: "get",
   path: "/gauges",
@@ -141,12 +141,15 @@ export const listGauges = defineOperation({
   scope: "catalog:read",
   summary: "Gauge tables",
   description: "Gauge number to thickness for each gauge system, derived from each system's published definition.",
-  query: GaugeQuery,
+  query: GaugeQuerySchema,
   responses: {
-    200: { description: "The gauge tables.", schema: z.object({ data: z.array(GaugeTable) }).openapi("GaugeTables") },
+    200: {
+      description: "The gauge tables.",
+      schema: z.object({ data: z.array(GaugeTableSchema) }).openapi("GaugeTables"),
+    },
   },
 });
-export const recommendSetup = defineOperation({
+export const recommendSetupOperation = defineOperation({
   operationId: "recommendSetup",
   method: "post",
   path: "/setup",
@@ -155,16 +158,16 @@ export const recommendSetup = defineOperation({
   summary: "Setup for a grade, thickness and shear",
   description:
     "Blade gap (by material and thickness, with the gap at the ends and at the centre), rake, crown, hold-down and force for a full-length cut (or `length`), without a program. Each value says why. Recommendations for a qualified operator, never a guarantee: the machine's manual, its guarding, lockout and local codes come first.",
-  body: SetupRequest,
+  body: SetupRequestSchema,
   responses: {
     200: {
       description: "The recommendation.",
       schema: z
         .object({
-          thickness: Check.shape.thickness.unwrap(),
-          setup: Check.shape.setup.unwrap(),
-          force: Check.shape.force.unwrap(),
-          findings: Check.shape.findings,
+          thickness: CheckSchema.shape.thickness.unwrap(),
+          setup: CheckSchema.shape.setup.unwrap(),
+          force: CheckSchema.shape.force.unwrap(),
+          findings: CheckSchema.shape.findings,
         })
         .openapi("SetupRecommendation"),
     },
@@ -172,16 +175,16 @@ export const recommendSetup = defineOperation({
 });
 
 export const catalogOperations = [
-  listShears,
-  createShear,
-  getShear,
-  updateShear,
-  archiveShear,
-  listGrades,
-  createGrade,
-  getGrade,
-  updateGrade,
-  archiveGrade,
-  listGauges,
-  recommendSetup,
+  listShearsOperation,
+  createShearOperation,
+  getShearOperation,
+  updateShearOperation,
+  archiveShearOperation,
+  listGradesOperation,
+  createGradeOperation,
+  getGradeOperation,
+  updateGradeOperation,
+  archiveGradeOperation,
+  listGaugesOperation,
+  recommendSetupOperation,
 ];

@@ -1,21 +1,21 @@
 import { defineOperation } from "../operation";
 import { idParam } from "../../schemas/common";
 import {
-  Claim,
-  ClaimRequest,
-  CompletionReport,
-  FailureReport,
-  HeartbeatRequest,
-  Lease,
-  ProgressReport,
+  ClaimSchema,
+  ClaimRequestSchema,
+  CompletionReportSchema,
+  FailureReportSchema,
+  HeartbeatRequestSchema,
+  LeaseSchema,
+  ProgressReportSchema,
 } from "../../schemas/gateway";
-import { Program } from "../../schemas/program";
+import { ProgramSchema } from "../../schemas/program";
 import { z } from "../../schemas/zod";
 
 const tags = ["Gateway"];
 const params = idParam("prg", "program");
 
-export const claimProgram = defineOperation({
+export const claimProgramOperation = defineOperation({
   operationId: "claimProgram",
   method: "post",
   path: "/shears/{id}/claims",
@@ -25,13 +25,13 @@ export const claimProgram = defineOperation({
   description:
     "For the gateway beside a shear: takes the released program with the highest priority, then the earliest due date, then the oldest, under a lease. With `waitSeconds` the call waits (long poll) up to 30 s and answers 204 if nothing comes. Two gateways never get the same program. Keep the lease with heartbeats or progress reports; when it runs out the program goes back to `released`.",
   params: idParam("shr", "shear"),
-  body: ClaimRequest,
+  body: ClaimRequestSchema,
   responses: {
-    200: { description: "A program, now `claimed` by this key.", schema: Claim },
+    200: { description: "A program, now `claimed` by this key.", schema: ClaimSchema },
     204: { description: "Nothing to claim." },
   },
 });
-export const heartbeatProgram = defineOperation({
+export const heartbeatProgramOperation = defineOperation({
   operationId: "heartbeatProgram",
   method: "post",
   path: "/programs/{id}/heartbeat",
@@ -39,16 +39,16 @@ export const heartbeatProgram = defineOperation({
   scope: "gateway",
   summary: "Keep the lease",
   params,
-  body: HeartbeatRequest,
+  body: HeartbeatRequestSchema,
   errors: [409],
   responses: {
     200: {
       description: "The lease, extended.",
-      schema: z.object({ program: Program, lease: Lease }).openapi("Heartbeat"),
+      schema: z.object({ program: ProgramSchema, lease: LeaseSchema }).openapi("Heartbeat"),
     },
   },
 });
-export const startProgram = defineOperation({
+export const startProgramOperation = defineOperation({
   operationId: "startProgram",
   method: "post",
   path: "/programs/{id}/start",
@@ -58,9 +58,9 @@ export const startProgram = defineOperation({
   description: "From `claimed` to `running`.",
   params,
   errors: [409],
-  responses: { 200: { description: "The running program.", schema: Program } },
+  responses: { 200: { description: "The running program.", schema: ProgramSchema } },
 });
-export const reportProgress = defineOperation({
+export const reportProgressOperation = defineOperation({
   operationId: "reportProgress",
   method: "post",
   path: "/programs/{id}/progress",
@@ -69,11 +69,11 @@ export const reportProgress = defineOperation({
   summary: "Report progress",
   description: "Groups and strokes done so far; also keeps the lease.",
   params,
-  body: ProgressReport,
+  body: ProgressReportSchema,
   errors: [409],
-  responses: { 200: { description: "The program with its progress.", schema: Program } },
+  responses: { 200: { description: "The program with its progress.", schema: ProgramSchema } },
 });
-export const completeProgram = defineOperation({
+export const completeProgramOperation = defineOperation({
   operationId: "completeProgram",
   method: "post",
   path: "/programs/{id}/complete",
@@ -82,11 +82,11 @@ export const completeProgram = defineOperation({
   summary: "Report completion",
   description: "From `running` to `completed`, with good and scrapped pieces.",
   params,
-  body: CompletionReport,
+  body: CompletionReportSchema,
   errors: [409],
-  responses: { 200: { description: "The completed program.", schema: Program } },
+  responses: { 200: { description: "The completed program.", schema: ProgramSchema } },
 });
-export const failProgram = defineOperation({
+export const failProgramOperation = defineOperation({
   operationId: "failProgram",
   method: "post",
   path: "/programs/{id}/fail",
@@ -96,16 +96,16 @@ export const failProgram = defineOperation({
   description:
     "From `claimed` or `running` to `failed`, with a reason code (for example `guard_tripped`, `overload`, `operator_abort`).",
   params,
-  body: FailureReport,
+  body: FailureReportSchema,
   errors: [409],
-  responses: { 200: { description: "The failed program.", schema: Program } },
+  responses: { 200: { description: "The failed program.", schema: ProgramSchema } },
 });
 
 export const gatewayOperations = [
-  claimProgram,
-  heartbeatProgram,
-  startProgram,
-  reportProgress,
-  completeProgram,
-  failProgram,
+  claimProgramOperation,
+  heartbeatProgramOperation,
+  startProgramOperation,
+  reportProgressOperation,
+  completeProgramOperation,
+  failProgramOperation,
 ];

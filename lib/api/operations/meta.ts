@@ -13,7 +13,7 @@ export const Health = z
   })
   .openapi("Health");
 
-export const getHealth = defineOperation({
+export const getHealthOperation = defineOperation({
   operationId: "getHealth",
   method: "get",
   path: "/health",
@@ -26,7 +26,7 @@ export const getHealth = defineOperation({
     503: { description: "Something is down.", schema: Health },
   },
 });
-export const getOpenApi = defineOperation({
+export const getOpenApiOperation = defineOperation({
   operationId: "getOpenApi",
   method: "get",
   path: "/openapi.json",
@@ -35,7 +35,7 @@ export const getOpenApi = defineOperation({
   summary: "This OpenAPI document",
   responses: { 200: { description: "The OpenAPI 3.1 document.", schema: z.record(z.string(), z.unknown()) } },
 });
-export const getCutProgramSchema = defineOperation({
+export const getCutProgramSchemaOperation = defineOperation({
   operationId: "getCutProgramSchema",
   method: "get",
   path: "/schemas/cut-program.json",
@@ -46,4 +46,4 @@ export const getCutProgramSchema = defineOperation({
   responses: { 200: { description: "The JSON Schema.", schema: z.record(z.string(), z.unknown()) } },
 });
 
-export const metaOperations = [getHealth, getOpenApi, getCutProgramSchema];
+export const metaOperations = [getHealthOperation, getOpenApiOperation, getCutProgramSchemaOperation];

@@ -1,6 +1,13 @@
 import { defineOperation } from "../operation";
-import { idParam, listOf, Pagination } from "../../schemas/common";
-import { Plan, PlanInput, PlanPreview, PlanSummary, WriteProgramsInput, WrittenPrograms } from "../../schemas/plan";
+import { idParam, listOf, PaginationSchema } from "../../schemas/common";
+import {
+  PlanSchema,
+  PlanInputSchema,
+  PlanPreviewSchema,
+  PlanSummarySchema,
+  WriteProgramsInputSchema,
+  WrittenProgramsSchema,
+} from "../../schemas/plan";
 
 const tags = ["Plans"];
 const params = idParam("pln", "plan");
@@ -8,7 +15,7 @@ const location = { Location: { description: "The plan's URL.", schema: { type: "
 const LIMITS =
   "Limits, checked before anything is stored (each refusal is a 422 naming the limit, the value and the most allowed): at most 200 blank types, 20,000 pieces and 10 stock sizes; a sheet side of at most 60,000 steps of the grid the order's sizes lie on, and at most 10 times the shear's blade; and an estimated amount of work for one round of strip filling. A worker stops a plan after 60 s (`failed`, reason `time_limit`).";
 
-export const createPlan = defineOperation({
+export const createPlanOperation = defineOperation({
   operationId: "createPlan",
   method: "post",
   path: "/plans",
@@ -18,7 +25,7 @@ export const createPlan = defineOperation({
   description:
     "Stores the order as a `queued` plan and answers 202 at once with its URL; a planning worker lays the blanks out on the stock in two-stage patterns the shear can cut (strips ripped across the sheet, each turned and crosscut; a piece narrower than its strip trimmed by one more cut), within the shear's blade and backgauge travel, never making more than asked plus the over-production allowance, and checks each pattern's program with the shear core. Read the plan (`GET /plans/{id}`: `queued` → `running`, with progress → `complete` | `failed` | `cancelled`) or subscribe to `plan.completed` and `plan.failed`. Send `Prefer: wait=N` (RFC 7240, N up to 10 seconds) to hold the answer until the plan ends: a plan that ends in time answers 201 with `Preference-Applied`. " +
     LIMITS,
-  body: PlanInput,
+  body: PlanInputSchema,
   requestHeaders: [
     {
       name: "Prefer",
@@ -27,10 +34,14 @@ export const createPlan = defineOperation({
     },
   ],
   responses: {
-    202: { description: "Queued (or still running when `Prefer: wait` ran out).", schema: Plan, headers: location },
+    202: {
+      description: "Queued (or still running when `Prefer: wait` ran out).",
+      schema: PlanSchema,
+      headers: location,
+    },
     201: {
       description: "Planned within `Prefer: wait`.",
-      schema: Plan,
+      schema: PlanSchema,
       headers: {
         ...location,
         "Preference-Applied": { description: "`wait=N`, when the wait was honoured.", schema: { type: "string" } },
@@ -39,7 +50,7 @@ export const createPlan = defineOperation({
   },
 });
 
-export const previewPlan = defineOperation({
+export const previewPlanOperation = defineOperation({
   operationId: "previewPlan",
   method: "post",
   path: "/plans/preview",
@@ -49,12 +60,12 @@ export const previewPlan = defineOperation({
   description:
     "Computes the plan on a planning worker while you wait and answers it, storing nothing: try an order before committing to it. The same limits as `POST /plans`; a preview must end within 20 s (else 422 `plan-failed`), and answers 503 when no worker is free to compute it. " +
     LIMITS,
-  body: PlanInput,
+  body: PlanInputSchema,
   errors: [503],
-  responses: { 200: { description: "The plan, not stored.", schema: PlanPreview } },
+  responses: { 200: { description: "The plan, not stored.", schema: PlanPreviewSchema } },
 });
 
-export const listPlans = defineOperation({
+export const listPlansOperation = defineOperation({
   operationId: "listPlans",
   method: "get",
   path: "/plans",
@@ -62,11 +73,11 @@ export const listPlans = defineOperation({
   scope: "programs:read",
   summary: "List plans",
   description: "Newest first, as summaries: read a plan for its patterns.",
-  query: Pagination,
-  responses: { 200: { description: "A page of plans.", schema: listOf(PlanSummary, "PlanList") } },
+  query: PaginationSchema,
+  responses: { 200: { description: "A page of plans.", schema: listOf(PlanSummarySchema, "PlanList") } },
 });
 
-export const getPlan = defineOperation({
+export const getPlanOperation = defineOperation({
   operationId: "getPlan",
   method: "get",
   path: "/plans/{id}",
@@ -75,10 +86,10 @@ export const getPlan = defineOperation({
   summary: "Read a plan",
   description: "Its state and progress, and once `complete`, its patterns, demand, stock, offcuts and findings.",
   params,
-  responses: { 200: { description: "The plan.", schema: Plan } },
+  responses: { 200: { description: "The plan.", schema: PlanSchema } },
 });
 
-export const cancelPlan = defineOperation({
+export const cancelPlanOperation = defineOperation({
   operationId: "cancelPlan",
   method: "post",
   path: "/plans/{id}/cancel",
@@ -89,10 +100,10 @@ export const cancelPlan = defineOperation({
     "Stops a `queued` or `running` plan (a worker computing it stops at once) and sends `plan.cancelled`. A plan that has ended answers 409 with its state.",
   params,
   errors: [409],
-  responses: { 200: { description: "The cancelled plan.", schema: Plan } },
+  responses: { 200: { description: "The cancelled plan.", schema: PlanSchema } },
 });
 
-export const writePlanPrograms = defineOperation({
+export const writePlanProgramsOperation = defineOperation({
   operationId: "writePlanPrograms",
   method: "post",
   path: "/plans/{id}/programs",
@@ -102,9 +113,16 @@ export const writePlanPrograms = defineOperation({
   description:
     "Creates one draft program per sheet pattern of a `complete` plan (`sheet.count` = the pattern's repeats) exactly as `POST /programs` would: checked, stored, with a `program.created` event each. All or nothing; once per plan (409 with the program ids after that; 409 too while the plan is not complete). References are `<prefix>/A`, `/B`, …; a reference already in use answers 409 and nothing is written.",
   params,
-  body: WriteProgramsInput,
+  body: WriteProgramsInputSchema,
   errors: [409],
-  responses: { 201: { description: "The programs written.", schema: WrittenPrograms } },
+  responses: { 201: { description: "The programs written.", schema: WrittenProgramsSchema } },
 });
 
-export const planOperations = [createPlan, previewPlan, listPlans, getPlan, cancelPlan, writePlanPrograms];
+export const planOperations = [
+  createPlanOperation,
+  previewPlanOperation,
+  listPlansOperation,
+  getPlanOperation,
+  cancelPlanOperation,
+  writePlanProgramsOperation,
+];

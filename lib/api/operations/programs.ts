@@ -1,23 +1,23 @@
 import { defineOperation } from "../operation";
-import { idParam, listOf, Pagination } from "../../schemas/common";
+import { idParam, listOf, PaginationSchema } from "../../schemas/common";
 import {
-  CancelInput,
-  Program,
-  ProgramBatch,
-  ProgramBatchInput,
-  ProgramBatchResults,
-  ProgramInput,
-  ProgramListQuery,
-  ProgramPatch,
-  ProgramValidation,
-  ReleaseInput,
+  CancelInputSchema,
+  ProgramSchema,
+  ProgramBatchSchema,
+  ProgramBatchInputSchema,
+  ProgramBatchResultsSchema,
+  ProgramInputSchema,
+  ProgramListQuerySchema,
+  ProgramPatchSchema,
+  ProgramValidationSchema,
+  ReleaseInputSchema,
 } from "../../schemas/program";
 
 const tags = ["Programs"];
 const params = idParam("prg", "program");
 const etag = { ETag: { description: "The program's revision, for If-Match.", schema: { type: "string" as const } } };
 
-export const createProgram = defineOperation({
+export const createProgramOperation = defineOperation({
   operationId: "createProgram",
   method: "post",
   path: "/programs",
@@ -26,17 +26,17 @@ export const createProgram = defineOperation({
   summary: "Create a cut program",
   description:
     "Checks the program against its shear and grade and stores it as a `draft` with the findings, setup, yield and estimate. A program with findings of severity `error` is stored too, and cannot be released until fixed. A second program with the same `reference` answers 409 with the existing id. Without `shear`, the shop's active shears are checked and one chosen (`routing`); when none can cut it, 422 `no-shear-can-cut` with each shear's reason.",
-  body: ProgramInput,
+  body: ProgramInputSchema,
   responses: {
     201: {
       description: "Created.",
-      schema: Program,
+      schema: ProgramSchema,
       headers: { ...etag, Location: { description: "The program's URL.", schema: { type: "string" } } },
     },
   },
 });
 
-export const createProgramBatch = defineOperation({
+export const createProgramBatchOperation = defineOperation({
   operationId: "createProgramBatch",
   method: "post",
   path: "/programs/batch",
@@ -45,17 +45,17 @@ export const createProgramBatch = defineOperation({
   summary: "Create up to 100 cut programs at once",
   description:
     'Each program is read and checked exactly as `POST /programs` would, and every program the batch creates is written in one transaction with its `program.created` event. By default the batch is all or nothing: if any program cannot be created, nothing is stored and the answer is one problem (422 when a program is invalid, else 409) whose `errors` point into `/programs/{index}/…` and whose `failures` hold each program\'s own problem with its `index`. With `"atomic": false` every program that can be created is, and the answer is 207 with one result per program in order: the program, or the problem creating it alone would have answered. One `Idempotency-Key` covers the whole batch.',
-  body: ProgramBatchInput,
+  body: ProgramBatchInputSchema,
   responses: {
-    201: { description: "Every program created (all or nothing).", schema: ProgramBatch },
+    201: { description: "Every program created (all or nothing).", schema: ProgramBatchSchema },
     207: {
       description: "With `atomic: false`: each program's result or problem, in order.",
-      schema: ProgramBatchResults,
+      schema: ProgramBatchResultsSchema,
     },
   },
 });
 
-export const listPrograms = defineOperation({
+export const listProgramsOperation = defineOperation({
   operationId: "listPrograms",
   method: "get",
   path: "/programs",
@@ -63,11 +63,11 @@ export const listPrograms = defineOperation({
   scope: "programs:read",
   summary: "List cut programs",
   description: "Newest first.",
-  query: Pagination.extend(ProgramListQuery.shape),
-  responses: { 200: { description: "A page of programs.", schema: listOf(Program, "ProgramList") } },
+  query: PaginationSchema.extend(ProgramListQuerySchema.shape),
+  responses: { 200: { description: "A page of programs.", schema: listOf(ProgramSchema, "ProgramList") } },
 });
 
-export const getProgram = defineOperation({
+export const getProgramOperation = defineOperation({
   operationId: "getProgram",
   method: "get",
   path: "/programs/{id}",
@@ -75,10 +75,10 @@ export const getProgram = defineOperation({
   scope: "programs:read",
   summary: "Read a cut program",
   params,
-  responses: { 200: { description: "The program.", schema: Program, headers: etag } },
+  responses: { 200: { description: "The program.", schema: ProgramSchema, headers: etag } },
 });
 
-export const updateProgram = defineOperation({
+export const updateProgramOperation = defineOperation({
   operationId: "updateProgram",
   method: "patch",
   path: "/programs/{id}",
@@ -87,13 +87,13 @@ export const updateProgram = defineOperation({
   summary: "Change a draft",
   description: "Only `draft` programs change. Send `If-Match` with the ETag you read; the program is checked again.",
   params,
-  body: ProgramPatch,
+  body: ProgramPatchSchema,
   ifMatch: true,
   errors: [409],
-  responses: { 200: { description: "The changed program.", schema: Program, headers: etag } },
+  responses: { 200: { description: "The changed program.", schema: ProgramSchema, headers: etag } },
 });
 
-export const validateProgram = defineOperation({
+export const validateProgramOperation = defineOperation({
   operationId: "validateProgram",
   method: "post",
   path: "/programs/validate",
@@ -102,11 +102,11 @@ export const validateProgram = defineOperation({
   summary: "Check a program without storing it",
   description:
     "A dry run: the same check as create, nothing stored, no events. Without `shear`, every active shear of the shop is checked and `routing` says which can cut it, which would be chosen and why the others were not.",
-  body: ProgramInput,
-  responses: { 200: { description: "The check.", schema: ProgramValidation } },
+  body: ProgramInputSchema,
+  responses: { 200: { description: "The check.", schema: ProgramValidationSchema } },
 });
 
-export const releaseProgram = defineOperation({
+export const releaseProgramOperation = defineOperation({
   operationId: "releaseProgram",
   method: "post",
   path: "/programs/{id}/release",
@@ -116,12 +116,12 @@ export const releaseProgram = defineOperation({
   description:
     "Checks the program again against the current catalog. Needs a `pass`, or a `warn` whose warning codes are all in `acknowledge`. Answers 409 with the findings otherwise.",
   params,
-  body: ReleaseInput,
+  body: ReleaseInputSchema,
   errors: [409],
-  responses: { 200: { description: "The released program.", schema: Program, headers: etag } },
+  responses: { 200: { description: "The released program.", schema: ProgramSchema, headers: etag } },
 });
 
-export const cancelProgram = defineOperation({
+export const cancelProgramOperation = defineOperation({
   operationId: "cancelProgram",
   method: "post",
   path: "/programs/{id}/cancel",
@@ -130,18 +130,18 @@ export const cancelProgram = defineOperation({
   summary: "Cancel a program",
   description: "From `draft`, `released`, `claimed` or `running`.",
   params,
-  body: CancelInput,
+  body: CancelInputSchema,
   errors: [409],
-  responses: { 200: { description: "The cancelled program.", schema: Program, headers: etag } },
+  responses: { 200: { description: "The cancelled program.", schema: ProgramSchema, headers: etag } },
 });
 
 export const programOperations = [
-  createProgram,
-  createProgramBatch,
-  listPrograms,
-  getProgram,
-  updateProgram,
-  validateProgram,
-  releaseProgram,
-  cancelProgram,
+  createProgramOperation,
+  createProgramBatchOperation,
+  listProgramsOperation,
+  getProgramOperation,
+  updateProgramOperation,
+  validateProgramOperation,
+  releaseProgramOperation,
+  cancelProgramOperation,
 ];

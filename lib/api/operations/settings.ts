@@ -1,19 +1,19 @@
 import { defineOperation } from "../operation";
-import { Settings, SettingsPatch } from "../../schemas/settings";
+import { SettingsSchema, SettingsPatchSchema } from "../../schemas/settings";
 
 const tags = ["Settings"];
 
-export const getSettings = defineOperation({
+export const getSettingsOperation = defineOperation({
   operationId: "getSettings",
   method: "get",
   path: "/settings",
   tags,
   scope: "catalog:read",
   summary: "Read the shop's settings",
-  responses: { 200: { description: "The settings.", schema: Settings } },
+  responses: { 200: { description: "The settings.", schema: SettingsSchema } },
 });
 
-export const updateSettings = defineOperation({
+export const updateSettingsOperation = defineOperation({
   operationId: "updateSettings",
   method: "patch",
   path: "/settings",
@@ -21,8 +21,8 @@ export const updateSettings = defineOperation({
   scope: "settings:write",
   summary: "Change the shop's settings",
   description: "Only the settings sent change. Programs and plans already routed keep their shear.",
-  body: SettingsPatch,
-  responses: { 200: { description: "The settings as they are now.", schema: Settings } },
+  body: SettingsPatchSchema,
+  responses: { 200: { description: "The settings as they are now.", schema: SettingsSchema } },
 });
 
-export const settingsOperations = [getSettings, updateSettings];
+export const settingsOperations = [getSettingsOperation, updateSettingsOperation];

@@ -1,18 +1,18 @@
 import { defineOperation } from "../operation";
-import { idParam, listOf, Pagination } from "../../schemas/common";
+import { idParam, listOf, PaginationSchema } from "../../schemas/common";
 import {
-  ReserveInput,
-  StockAdjustInput,
-  StockItem,
-  StockItemInput,
-  StockListQuery,
-  StockReservation,
+  ReserveInputSchema,
+  StockAdjustInputSchema,
+  StockItemSchema,
+  StockItemInputSchema,
+  StockListQuerySchema,
+  StockReservationSchema,
 } from "../../schemas/stock";
 
 const tags = ["Stock"];
 const params = idParam("stk", "stock item");
 
-export const listStock = defineOperation({
+export const listStockOperation = defineOperation({
   operationId: "listStock",
   method: "get",
   path: "/stock",
@@ -20,11 +20,11 @@ export const listStock = defineOperation({
   scope: "stock:read",
   summary: "List stock on hand",
   description: "Newest first; filter by grade, thickness and kind. Archived items only with `includeArchived=true`.",
-  query: Pagination.extend(StockListQuery.shape),
-  responses: { 200: { description: "A page of stock items.", schema: listOf(StockItem, "StockItemList") } },
+  query: PaginationSchema.extend(StockListQuerySchema.shape),
+  responses: { 200: { description: "A page of stock items.", schema: listOf(StockItemSchema, "StockItemList") } },
 });
 
-export const createStockItem = defineOperation({
+export const createStockItemOperation = defineOperation({
   operationId: "createStockItem",
   method: "post",
   path: "/stock",
@@ -32,11 +32,11 @@ export const createStockItem = defineOperation({
   scope: "stock:write",
   summary: "Add stock",
   description: "Full sheets as bought, or a remnant (which may name the program and run it came from).",
-  body: StockItemInput,
-  responses: { 201: { description: "Added.", schema: StockItem } },
+  body: StockItemInputSchema,
+  responses: { 201: { description: "Added.", schema: StockItemSchema } },
 });
 
-export const getStockItem = defineOperation({
+export const getStockItemOperation = defineOperation({
   operationId: "getStockItem",
   method: "get",
   path: "/stock/{id}",
@@ -44,10 +44,10 @@ export const getStockItem = defineOperation({
   scope: "stock:read",
   summary: "Read a stock item",
   params,
-  responses: { 200: { description: "The stock item.", schema: StockItem } },
+  responses: { 200: { description: "The stock item.", schema: StockItemSchema } },
 });
 
-export const adjustStock = defineOperation({
+export const adjustStockOperation = defineOperation({
   operationId: "adjustStock",
   method: "post",
   path: "/stock/{id}/adjust",
@@ -57,12 +57,12 @@ export const adjustStock = defineOperation({
   description:
     "Adds or takes away sheets, with the reason (sent on the `stock.adjusted` event). Never below the sheets reserved: 409.",
   params,
-  body: StockAdjustInput,
+  body: StockAdjustInputSchema,
   errors: [409],
-  responses: { 200: { description: "The item as it is now.", schema: StockItem } },
+  responses: { 200: { description: "The item as it is now.", schema: StockItemSchema } },
 });
 
-export const archiveStockItem = defineOperation({
+export const archiveStockItemOperation = defineOperation({
   operationId: "archiveStockItem",
   method: "post",
   path: "/stock/{id}/archive",
@@ -72,10 +72,10 @@ export const archiveStockItem = defineOperation({
   description: "No longer offered to plans or reservations. Refused (409) while any of its sheets are reserved.",
   params,
   errors: [409],
-  responses: { 200: { description: "The archived item.", schema: StockItem } },
+  responses: { 200: { description: "The archived item.", schema: StockItemSchema } },
 });
 
-export const reserveStock = defineOperation({
+export const reserveStockOperation = defineOperation({
   operationId: "reserveStock",
   method: "post",
   path: "/stock/{id}/reservations",
@@ -85,12 +85,12 @@ export const reserveStock = defineOperation({
   description:
     "Holds sheets for a program (cancelling it gives them back) or by hand. Only what is available can be reserved; concurrent requests never take the same sheet: the one that finds too few gets 409 `stock-not-available`.",
   params,
-  body: ReserveInput,
+  body: ReserveInputSchema,
   errors: [409],
-  responses: { 201: { description: "Reserved.", schema: StockReservation } },
+  responses: { 201: { description: "Reserved.", schema: StockReservationSchema } },
 });
 
-export const releaseReservation = defineOperation({
+export const releaseReservationOperation = defineOperation({
   operationId: "releaseReservation",
   method: "post",
   path: "/stock-reservations/{id}/release",
@@ -99,15 +99,15 @@ export const releaseReservation = defineOperation({
   summary: "Give reserved sheets back",
   params: idParam("srv", "reservation"),
   errors: [409],
-  responses: { 200: { description: "The released reservation.", schema: StockReservation } },
+  responses: { 200: { description: "The released reservation.", schema: StockReservationSchema } },
 });
 
 export const stockOperations = [
-  listStock,
-  createStockItem,
-  getStockItem,
-  adjustStock,
-  archiveStockItem,
-  reserveStock,
-  releaseReservation,
+  listStockOperation,
+  createStockItemOperation,
+  getStockItemOperation,
+  adjustStockOperation,
+  archiveStockItemOperation,
+  reserveStockOperation,
+  releaseReservationOperation,
 ];

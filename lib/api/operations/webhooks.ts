@@ -1,33 +1,33 @@
 import { defineOperation } from "../operation";
-import { idParam, listOf, Pagination } from "../../schemas/common";
+import { idParam, listOf, PaginationSchema } from "../../schemas/common";
 import {
-  Delivery,
-  Endpoint,
-  EndpointInput,
-  EndpointPatch,
-  EndpointWithSecret,
-  Event,
-  EventQuery,
-  ResendInput,
-  RotateInput,
+  DeliverySchema,
+  EndpointSchema,
+  EndpointInputSchema,
+  EndpointPatchSchema,
+  EndpointWithSecretSchema,
+  EventSchema,
+  EventQuerySchema,
+  ResendInputSchema,
+  RotateInputSchema,
 } from "../../schemas/webhook";
 
 const tags = ["Webhooks"];
 const endpointParams = idParam("whe", "webhook endpoint");
 const eventParams = idParam("evt", "event");
-const DeliveryList = listOf(Delivery, "DeliveryList");
+const DeliveryList = listOf(DeliverySchema, "DeliveryList");
 
-export const listEndpoints = defineOperation({
+export const listEndpointsOperation = defineOperation({
   operationId: "listWebhookEndpoints",
   method: "get",
   path: "/webhook-endpoints",
   tags,
   scope: "webhooks:write",
   summary: "List webhook endpoints",
-  query: Pagination,
-  responses: { 200: { description: "A page of endpoints.", schema: listOf(Endpoint, "WebhookEndpointList") } },
+  query: PaginationSchema,
+  responses: { 200: { description: "A page of endpoints.", schema: listOf(EndpointSchema, "WebhookEndpointList") } },
 });
-export const createEndpoint = defineOperation({
+export const createEndpointOperation = defineOperation({
   operationId: "createWebhookEndpoint",
   method: "post",
   path: "/webhook-endpoints",
@@ -36,10 +36,10 @@ export const createEndpoint = defineOperation({
   summary: "Add a webhook endpoint",
   description:
     "Answers the signing secret (`whsec_…`) this once. Deliveries follow Standard Webhooks: verify `webhook-signature` over `webhook-id.webhook-timestamp.body`, and de-duplicate on `webhook-id` (delivery is at least once).",
-  body: EndpointInput,
-  responses: { 201: { description: "Created, with its secret.", schema: EndpointWithSecret } },
+  body: EndpointInputSchema,
+  responses: { 201: { description: "Created, with its secret.", schema: EndpointWithSecretSchema } },
 });
-export const getEndpoint = defineOperation({
+export const getEndpointOperation = defineOperation({
   operationId: "getWebhookEndpoint",
   method: "get",
   path: "/webhook-endpoints/{id}",
@@ -47,9 +47,9 @@ export const getEndpoint = defineOperation({
   scope: "webhooks:write",
   summary: "Read a webhook endpoint",
   params: endpointParams,
-  responses: { 200: { description: "The endpoint.", schema: Endpoint } },
+  responses: { 200: { description: "The endpoint.", schema: EndpointSchema } },
 });
-export const updateEndpoint = defineOperation({
+export const updateEndpointOperation = defineOperation({
   operationId: "updateWebhookEndpoint",
   method: "patch",
   path: "/webhook-endpoints/{id}",
@@ -59,10 +59,10 @@ export const updateEndpoint = defineOperation({
   description:
     "Change the URL, description or event types, or enable and disable it. Enabling resets the failure count.",
   params: endpointParams,
-  body: EndpointPatch,
-  responses: { 200: { description: "The changed endpoint.", schema: Endpoint } },
+  body: EndpointPatchSchema,
+  responses: { 200: { description: "The changed endpoint.", schema: EndpointSchema } },
 });
-export const deleteEndpoint = defineOperation({
+export const deleteEndpointOperation = defineOperation({
   operationId: "deleteWebhookEndpoint",
   method: "delete",
   path: "/webhook-endpoints/{id}",
@@ -72,7 +72,7 @@ export const deleteEndpoint = defineOperation({
   params: endpointParams,
   responses: { 204: { description: "Removed, with its deliveries." } },
 });
-export const rotateSecret = defineOperation({
+export const rotateSecretOperation = defineOperation({
   operationId: "rotateWebhookSecret",
   method: "post",
   path: "/webhook-endpoints/{id}/rotate-secret",
@@ -82,10 +82,10 @@ export const rotateSecret = defineOperation({
   description:
     "Answers the new secret this once. For `overlapHours` (default 24) deliveries carry two signatures, one per secret, so receivers can switch without missing an event.",
   params: endpointParams,
-  body: RotateInput,
-  responses: { 200: { description: "The endpoint and its new secret.", schema: EndpointWithSecret } },
+  body: RotateInputSchema,
+  responses: { 200: { description: "The endpoint and its new secret.", schema: EndpointWithSecretSchema } },
 });
-export const testEndpoint = defineOperation({
+export const testEndpointOperation = defineOperation({
   operationId: "testWebhookEndpoint",
   method: "post",
   path: "/webhook-endpoints/{id}/test",
@@ -95,9 +95,9 @@ export const testEndpoint = defineOperation({
   description: "Sends an `endpoint.test` event to this endpoint only.",
   params: endpointParams,
   errors: [409],
-  responses: { 202: { description: "Queued; follow the delivery.", schema: Delivery } },
+  responses: { 202: { description: "Queued; follow the delivery.", schema: DeliverySchema } },
 });
-export const listEndpointDeliveries = defineOperation({
+export const listEndpointDeliveriesOperation = defineOperation({
   operationId: "listEndpointDeliveries",
   method: "get",
   path: "/webhook-endpoints/{id}/deliveries",
@@ -106,11 +106,11 @@ export const listEndpointDeliveries = defineOperation({
   summary: "Deliveries to an endpoint",
   description: "Newest first, each with its attempts.",
   params: endpointParams,
-  query: Pagination,
+  query: PaginationSchema,
   responses: { 200: { description: "A page of deliveries.", schema: DeliveryList } },
 });
 
-export const listEvents = defineOperation({
+export const listEventsOperation = defineOperation({
   operationId: "listEvents",
   method: "get",
   path: "/events",
@@ -118,10 +118,10 @@ export const listEvents = defineOperation({
   scope: "events:read",
   summary: "List events",
   description: "Everything that happened in the shop, newest first.",
-  query: Pagination.extend(EventQuery.shape),
-  responses: { 200: { description: "A page of events.", schema: listOf(Event, "EventList") } },
+  query: PaginationSchema.extend(EventQuerySchema.shape),
+  responses: { 200: { description: "A page of events.", schema: listOf(EventSchema, "EventList") } },
 });
-export const getEvent = defineOperation({
+export const getEventOperation = defineOperation({
   operationId: "getEvent",
   method: "get",
   path: "/events/{id}",
@@ -129,9 +129,9 @@ export const getEvent = defineOperation({
   scope: "events:read",
   summary: "Read an event",
   params: eventParams,
-  responses: { 200: { description: "The event.", schema: Event } },
+  responses: { 200: { description: "The event.", schema: EventSchema } },
 });
-export const listEventDeliveries = defineOperation({
+export const listEventDeliveriesOperation = defineOperation({
   operationId: "listEventDeliveries",
   method: "get",
   path: "/events/{id}/deliveries",
@@ -139,10 +139,10 @@ export const listEventDeliveries = defineOperation({
   scope: "events:read",
   summary: "Deliveries of an event",
   params: eventParams,
-  query: Pagination,
+  query: PaginationSchema,
   responses: { 200: { description: "A page of deliveries.", schema: DeliveryList } },
 });
-export const resendEvent = defineOperation({
+export const resendEventOperation = defineOperation({
   operationId: "resendEvent",
   method: "post",
   path: "/events/{id}/resend",
@@ -151,22 +151,22 @@ export const resendEvent = defineOperation({
   summary: "Resend an event to an endpoint",
   description: "A new delivery of the same event (same `webhook-id`) to one endpoint.",
   params: eventParams,
-  body: ResendInput,
+  body: ResendInputSchema,
   errors: [409],
-  responses: { 202: { description: "Queued; follow the delivery.", schema: Delivery } },
+  responses: { 202: { description: "Queued; follow the delivery.", schema: DeliverySchema } },
 });
 
 export const webhookOperations = [
-  listEndpoints,
-  createEndpoint,
-  getEndpoint,
-  updateEndpoint,
-  deleteEndpoint,
-  rotateSecret,
-  testEndpoint,
-  listEndpointDeliveries,
-  listEvents,
-  getEvent,
-  listEventDeliveries,
-  resendEvent,
+  listEndpointsOperation,
+  createEndpointOperation,
+  getEndpointOperation,
+  updateEndpointOperation,
+  deleteEndpointOperation,
+  rotateSecretOperation,
+  testEndpointOperation,
+  listEndpointDeliveriesOperation,
+  listEventsOperation,
+  getEventOperation,
+  listEventDeliveriesOperation,
+  resendEventOperation,
 ];

@@ -1,5 +1,5 @@
-import { listGauges } from "@/lib/api/operations/catalog";
+import { listGaugesOperation } from "@/lib/api/operations/catalog";
 import { route } from "@/lib/api/route";
 import { gaugeTables } from "@/lib/services/setup";
 
-export const GET = route(listGauges, async ({ query }) => ({ body: gaugeTables(query.family) }));
+export const GET = route(listGaugesOperation, async ({ query }) => ({ body: gaugeTables(query.family) }));

@@ -1,12 +1,12 @@
 import { requestEm } from "@/lib/db/orm";
-import { getHealth } from "@/lib/api/operations/meta";
+import { getHealthOperation } from "@/lib/api/operations/meta";
 import { route } from "@/lib/api/route";
 import { getRedis } from "@/lib/redis";
 import { checkHealth } from "@/lib/services/health";
 
 export const dynamic = "force-dynamic";
 
-export const GET = route(getHealth, async () => {
+export const GET = route(getHealthOperation, async () => {
   const health = await checkHealth(requestEm, getRedis());
   return { status: health.status === "ok" ? 200 : 503, body: health };
 });

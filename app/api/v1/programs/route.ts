@@ -1,13 +1,13 @@
-import { createProgram, listPrograms } from "@/lib/api/operations/programs";
+import { createProgramOperation, listProgramsOperation } from "@/lib/api/operations/programs";
 import { route } from "@/lib/api/route";
 import * as programList from "@/lib/services/program-list";
 import * as programs from "@/lib/services/programs";
 
-export const GET = route(listPrograms, async ({ em, principal, query }) => ({
+export const GET = route(listProgramsOperation, async ({ em, principal, query }) => ({
   body: await programList.listPrograms(em, principal.shopId, query),
 }));
 
-export const POST = route(createProgram, async ({ em, principal, body }) => {
+export const POST = route(createProgramOperation, async ({ em, principal, body }) => {
   const program = await programs.createProgram(em, principal.shopId, body);
   return {
     status: 201,

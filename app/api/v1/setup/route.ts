@@ -1,7 +1,7 @@
-import { recommendSetup } from "@/lib/api/operations/catalog";
+import { recommendSetupOperation } from "@/lib/api/operations/catalog";
 import { route } from "@/lib/api/route";
 import { setupFor } from "@/lib/services/setup";
 
-export const POST = route(recommendSetup, async ({ em, principal, body }) => ({
+export const POST = route(recommendSetupOperation, async ({ em, principal, body }) => ({
   body: await setupFor(em, principal.shopId, body),
 }));

@@ -1,7 +1,7 @@
-import { getEvent } from "@/lib/api/operations/webhooks";
+import { getEventOperation } from "@/lib/api/operations/webhooks";
 import { route } from "@/lib/api/route";
 import * as webhooks from "@/lib/services/webhooks";
 
-export const GET = route(getEvent, async ({ em, principal, params }) => ({
+export const GET = route(getEventOperation, async ({ em, principal, params }) => ({
   body: await webhooks.getEvent(em, principal.shopId, params.id),
 }));

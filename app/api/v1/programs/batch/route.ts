@@ -1,8 +1,8 @@
-import { createProgramBatch } from "@/lib/api/operations/programs";
+import { createProgramBatchOperation } from "@/lib/api/operations/programs";
 import { route } from "@/lib/api/route";
 import * as batch from "@/lib/services/program-batch";
 
-export const POST = route(createProgramBatch, async ({ em, principal, body }) =>
+export const POST = route(createProgramBatchOperation, async ({ em, principal, body }) =>
   body.atomic
     ? { status: 201, body: { data: await batch.createBatch(em, principal.shopId, body.programs) } }
     : { status: 207, body: { data: await batch.createEach(em, principal.shopId, body.programs) } },

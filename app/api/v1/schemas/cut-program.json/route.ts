@@ -1,5 +1,5 @@
 import { cutProgramJsonSchema } from "@/lib/api/document";
-import { getCutProgramSchema } from "@/lib/api/operations/meta";
+import { getCutProgramSchemaOperation } from "@/lib/api/operations/meta";
 import { route } from "@/lib/api/route";
 
-export const GET = route(getCutProgramSchema, async () => ({ body: cutProgramJsonSchema() }));
+export const GET = route(getCutProgramSchemaOperation, async () => ({ body: cutProgramJsonSchema() }));

@@ -1,7 +1,7 @@
-import { listEventDeliveries } from "@/lib/api/operations/webhooks";
+import { listEventDeliveriesOperation } from "@/lib/api/operations/webhooks";
 import { route } from "@/lib/api/route";
 import * as webhooks from "@/lib/services/webhooks";
 
-export const GET = route(listEventDeliveries, async ({ em, principal, params, query }) => ({
+export const GET = route(listEventDeliveriesOperation, async ({ em, principal, params, query }) => ({
   body: await webhooks.listDeliveries(em, principal.shopId, { event: params.id }, query),
 }));

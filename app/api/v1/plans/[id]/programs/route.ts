@@ -1,8 +1,8 @@
-import { writePlanPrograms } from "@/lib/api/operations/plans";
+import { writePlanProgramsOperation } from "@/lib/api/operations/plans";
 import { route } from "@/lib/api/route";
 import * as plans from "@/lib/services/plans";
 
-export const POST = route(writePlanPrograms, async ({ em, principal, params, body }) => ({
+export const POST = route(writePlanProgramsOperation, async ({ em, principal, params, body }) => ({
   status: 201,
   body: await plans.writePrograms(em, principal.shopId, params.id, body ?? {}),
 }));

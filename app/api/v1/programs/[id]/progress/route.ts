@@ -1,7 +1,7 @@
-import { reportProgress } from "@/lib/api/operations/gateway";
+import { reportProgressOperation } from "@/lib/api/operations/gateway";
 import { route } from "@/lib/api/route";
 import * as gateway from "@/lib/services/gateway";
 
-export const POST = route(reportProgress, async ({ em, principal, params, body }) => ({
+export const POST = route(reportProgressOperation, async ({ em, principal, params, body }) => ({
   body: await gateway.progress(em, principal, params.id, body),
 }));

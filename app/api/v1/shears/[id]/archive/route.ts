@@ -1,7 +1,7 @@
-import { archiveShear } from "@/lib/api/operations/catalog";
+import { archiveShearOperation } from "@/lib/api/operations/catalog";
 import { route } from "@/lib/api/route";
 import * as catalog from "@/lib/services/catalog";
 
-export const POST = route(archiveShear, async ({ em, principal, params }) => ({
+export const POST = route(archiveShearOperation, async ({ em, principal, params }) => ({
   body: await catalog.archiveShear(em, principal.shopId, params.id),
 }));

@@ -1,7 +1,7 @@
-import { releaseReservation } from "@/lib/api/operations/stock";
+import { releaseReservationOperation } from "@/lib/api/operations/stock";
 import { route } from "@/lib/api/route";
 import * as stock from "@/lib/services/stock";
 
-export const POST = route(releaseReservation, async ({ em, principal, params }) => ({
+export const POST = route(releaseReservationOperation, async ({ em, principal, params }) => ({
   body: await stock.releaseReservation(em, principal.shopId, params.id),
 }));

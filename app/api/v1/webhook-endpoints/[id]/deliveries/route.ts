@@ -1,7 +1,7 @@
-import { listEndpointDeliveries } from "@/lib/api/operations/webhooks";
+import { listEndpointDeliveriesOperation } from "@/lib/api/operations/webhooks";
 import { route } from "@/lib/api/route";
 import * as webhooks from "@/lib/services/webhooks";
 
-export const GET = route(listEndpointDeliveries, async ({ em, principal, params, query }) => ({
+export const GET = route(listEndpointDeliveriesOperation, async ({ em, principal, params, query }) => ({
   body: await webhooks.listDeliveries(em, principal.shopId, { endpoint: params.id }, query),
 }));

@@ -1,3 +1,4 @@
+import { randomFillSync } from "node:crypto";
 import { monotonicFactory } from "ulidx";
 
 /**
@@ -27,7 +28,22 @@ export const ID_PREFIXES = {
 
 export type IdKind = keyof typeof ID_PREFIXES;
 
-const ulid = monotonicFactory();
+/**
+ * The ULID's random characters come from the system's cryptographic generator, drawn a few
+ * kilobytes at a time rather than one call per character (ulidx's default makes sixteen calls
+ * per id, a measurable share of a request). Each byte is used once, as ulidx's default uses it.
+ */
+const pool = new Uint8Array(4096);
+let next = pool.length;
+function randomByte(): number {
+  if (next === pool.length) {
+    randomFillSync(pool);
+    next = 0;
+  }
+  return pool[next++];
+}
+
+const ulid = monotonicFactory(() => randomByte() / 0xff);
 
 export function newId(kind: IdKind): string {
   return `${ID_PREFIXES[kind]}_${ulid()}`;

@@ -9,25 +9,37 @@ import { Delivery, Event, WebhookEndpoint } from "../../entities";
 const BATCH = 200;
 const OVERDUE_MS = 10_000;
 
-/** Fan out undispatched events; returns the new deliveries' ids. */
+/**
+ * Fan out undispatched events; returns the new deliveries' ids. The events are taken and marked in one
+ * statement that reads only their id, shop and type: their bodies are read when a delivery is attempted.
+ */
 export async function dispatchPending(em: EntityManager): Promise<string[]> {
   return em.transactional(async (tx) => {
-    const rows = await tx.execute<{ id: string }[]>(
-      `select id from events where dispatched_at is null order by id limit ${BATCH} for update skip locked`,
+    const now = new Date();
+    const rows = await tx.execute<{ id: string; shop_id: string; type: string }[]>(
+      `with taken as (select id from events where dispatched_at is null order by id limit ${BATCH} for update skip locked)
+       update events e set dispatched_at = ? from taken where e.id = taken.id returning e.id, e.shop_id, e.type`,
+      [now],
     );
     if (!rows.length) return [];
-    const events = await tx.find(Event, { id: { $in: rows.map((r) => r.id) } }, { orderBy: { id: "asc" } });
-    const shopIds = [...new Set(events.map((e) => e.shop.id))];
+    rows.sort((a, b) => (a.id < b.id ? -1 : a.id > b.id ? 1 : 0));
+    const shopIds = [...new Set(rows.map((e) => e.shop_id))];
     const endpoints = await tx.find(WebhookEndpoint, { shop: { $in: shopIds }, enabled: true });
+    if (!endpoints.length) return [];
     const created: { id: string }[] = [];
-    const now = new Date();
-    for (const event of events) {
-      event.dispatchedAt = now;
+    for (const event of rows) {
       if (event.type === "endpoint.test") continue; // test events go only to the endpoint that asked
       for (const ep of endpoints) {
-        if (ep.shop.id !== event.shop.id) continue;
+        if (ep.shop.id !== event.shop_id) continue;
         if (ep.eventTypes.length && !ep.eventTypes.includes(event.type)) continue;
-        created.push(tx.create(Delivery, { shop: event.shop, event, endpoint: ep, nextAttemptAt: now }));
+        created.push(
+          tx.create(Delivery, {
+            shop: ep.shop,
+            event: tx.getReference(Event, event.id),
+            endpoint: ep,
+            nextAttemptAt: now,
+          }),
+        );
       }
     }
     await tx.flush();

@@ -20,31 +20,41 @@ interface Lookups {
 }
 const shared = new WeakMap<object, Lookups>();
 
-/** The shared lookups of this database connection (each query in a fork of its own). */
+/** `(shop_id, <column>) in ((?, ?), …)` over the keys, with their bindings. */
+function byShopAnd(column: string, keys: string[]): [string, string[]] {
+  const ps = pairs(keys);
+  return [`(shop_id, ${column}) in (${ps.map(() => "(?, ?)").join(", ")})`, ps.flat()];
+}
+
+/**
+ * The shared lookups of this database connection. Each is one indexed query with bound parameters
+ * (no query building per call); shears and grades become entities of a fork of their own.
+ */
 function lookups(em: EntityManager): Lookups {
   const connection = em.getConnection();
   let l = shared.get(connection);
   if (l) return l;
+  const rows = async (sql: string, bindings: string[]) =>
+    (await connection.getKnex().raw<{ rows: Record<string, unknown>[] }>(sql, bindings)).rows;
   l = {
     shear: batchedLookup(async (keys) => {
-      const found = await em.fork().find(Shear, { $or: pairs(keys).map(([shop, id]) => ({ shop, id })) });
+      const [where, bindings] = byShopAnd("id", keys);
+      const fork = em.fork();
+      const found = (await rows(`select * from shears where ${where}`, bindings)).map((r) => fork.map(Shear, r));
       return new Map(found.map((s) => [`${s.shop.id}${SEP}${s.id}`, s]));
     }),
     grade: batchedLookup(async (keys) => {
-      const found = await em
-        .fork()
-        .find(Grade, { $or: pairs(keys).map(([shop, code]) => ({ shop, code, archivedAt: null })) });
+      const [where, bindings] = byShopAnd("code", keys);
+      const fork = em.fork();
+      const found = (await rows(`select * from grades where archived_at is null and ${where}`, bindings)).map((r) =>
+        fork.map(Grade, r),
+      );
       return new Map(found.map((g) => [`${g.shop.id}${SEP}${g.code}`, g]));
     }),
     reference: batchedLookup(async (keys) => {
-      const found = await em
-        .fork()
-        .find(
-          Program,
-          { $or: pairs(keys).map(([shop, reference]) => ({ shop, reference })) },
-          { fields: ["id", "reference", "shop"], disableIdentityMap: true },
-        );
-      return new Map(found.map((p) => [`${p.shop.id}${SEP}${p.reference}`, p.id]));
+      const [where, bindings] = byShopAnd("reference", keys);
+      const found = await rows(`select id, shop_id, reference from programs where ${where}`, bindings);
+      return new Map(found.map((p) => [`${p.shop_id as string}${SEP}${p.reference as string}`, p.id as string]));
     }),
   };
   shared.set(connection, l);

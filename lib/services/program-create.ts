@@ -58,11 +58,14 @@ export function applyInput(program: ProgramEntity, input: ProgramInputT, check: 
  * Check each program against its shear and grade as the catalog has them now, and against
  * the shop's references. Each answer is the checked program or the refusal for it, in order.
  * A program that names no shear is routed to the one the shop's rule chooses (lib/services/routing.ts).
+ * `references: false` leaves the references to the caller (a single create learns a taken one
+ * from the unique index when it writes, and asks only when it refuses the program anyway).
  */
 export async function checkPrograms(
   em: EntityManager,
   shopId: string,
   inputs: ProgramInputT[],
+  { references = true }: { references?: boolean } = {},
 ): Promise<(Checked | ApiError)[]> {
   const [shearOf, gradeOf, existing] = await Promise.all([
     shearsNamed(
@@ -75,11 +78,13 @@ export async function checkPrograms(
       shopId,
       inputs.map((i) => i.grade),
     ),
-    existingReferences(
-      em,
-      shopId,
-      inputs.map((i) => i.reference),
-    ),
+    references
+      ? existingReferences(
+          em,
+          shopId,
+          inputs.map((i) => i.reference),
+        )
+      : new Map<string, string>(),
   ]);
   const checked: (Checked | ApiError)[] = [];
   for (const input of inputs) {
@@ -215,15 +220,25 @@ export async function storePrograms(em: EntityManager, shopId: string, checked: 
   return checked.length ? insert(em, shopId, checked) : [];
 }
 
-/** Create one program (a draft, with its check and its `program.created` event). */
+/**
+ * Create one program (a draft, with its check and its `program.created` event). A reference
+ * already taken is refused with 409 before any other refusal, as a batch does; it is read only
+ * when the program is refused or its write meets the unique index, not before every create
+ * (inside a caller's transaction it is read first, so a failed write never aborts that transaction).
+ */
 export async function createProgram(em: EntityManager, shopId: string, input: ProgramInputT): Promise<ProgramT> {
-  const [checked] = await checkPrograms(em, shopId, [input]);
-  if (checked instanceof ApiError) throw checked;
+  const first = em.isInTransaction();
+  const [checked] = await checkPrograms(em, shopId, [input], { references: first });
+  const taken = async (lookup: EntityManager) =>
+    (await existingReferences(lookup, shopId, [input.reference])).get(input.reference) ?? null;
+  if (checked instanceof ApiError) {
+    const existingId = first ? null : await taken(em);
+    throw existingId ? duplicateReference(input.reference, existingId) : checked;
+  }
   try {
     return (await storePrograms(em, shopId, [checked]))[0];
   } catch (err) {
     if (!(err instanceof UniqueConstraintViolationException)) throw err;
-    const existing = await existingReferences(em.fork(), shopId, [input.reference]).catch(() => new Map());
-    throw duplicateReference(input.reference, existing.get(input.reference) ?? null);
+    throw duplicateReference(input.reference, await taken(em.fork()).catch(() => null));
   }
 }

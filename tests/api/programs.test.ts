@@ -30,6 +30,16 @@ describe("create", () => {
     expect(second.body.existingId).toBe(first.body.id);
   });
 
+  it("answers 409 for a taken reference before refusing its shear, and writes no second event", async () => {
+    const first = await create(exampleProgram(shop.shearId, "DUP-2"));
+    expect(first.status).toBe(201);
+    const second = await create({ ...exampleProgram(shop.shearId, "DUP-2"), shear: "no such shear" });
+    expect(second.status).toBe(409);
+    expect(second.body.existingId).toBe(first.body.id);
+    const em = (await testOrm()).em.fork();
+    expect(await em.count(Event, { subjectId: first.body.id })).toBe(1);
+  });
+
   it("stores a program with errors as a draft with its findings, pointing at the cut", async () => {
     const body = exampleProgram(shop.shearId);
     body.cuts[0].backgauge = 60; // wider than the 48 in sheet

@@ -10,6 +10,7 @@ import type { EntityManager } from "@mikro-orm/postgresql";
 import type { z } from "zod";
 import { requestEm } from "../db/orm";
 import { newId } from "../ids";
+import { stringify } from "../json-text";
 import { authenticate, type Principal } from "../services/keys";
 import { SECURITY_HEADERS } from "../security-headers";
 
@@ -18,7 +19,7 @@ import * as idempotency from "../services/idempotency";
 import type { Infer, Operation, ReplyOf, ResponseSpec } from "./operation";
 import { consume } from "./rate-limit";
 import { logRequest } from "./request-log";
-import { parse, queryObject, readBody } from "./route-input";
+import { parse, plainJsonText, queryObject, readBody } from "./route-input";
 
 export const API_PREFIX = "/api/v1";
 
@@ -42,10 +43,16 @@ export interface Reply {
 
 type RouteContext = { params: Promise<Record<string, string | string[]>> };
 
+/**
+ * The response. The body is JSON serialised once (reusing the text a created program was written
+ * with, lib/json-text.ts) and handed over as bytes: JSON text is always well-formed Unicode, so the
+ * string-to-USV pass a string body would get is not needed.
+ */
 function json(status: number, body: unknown, headers: Record<string, string>, problem = false): Response {
   const h = new Headers(headers);
   if (body !== undefined) h.set("Content-Type", problem ? "application/problem+json" : "application/json");
-  return new Response(body === undefined || status === 204 ? null : JSON.stringify(body), { status, headers: h });
+  const text = body === undefined || status === 204 ? undefined : stringify(body);
+  return new Response(text === undefined ? null : Buffer.from(text, "utf8"), { status, headers: h });
 }
 
 /** One request's state as it goes through the steps. */
@@ -109,7 +116,7 @@ async function readInput<P, Q, B>(op: Operation, request: Request, context: Rout
     } catch (err) {
       throw badRequest(`The body is not valid JSON: ${(err as Error).message}`);
     }
-    body = parse(op.body, value, "body") as B;
+    body = parse(op.body, value, "body", { textChecked: plainJsonText(rawBody) }) as B;
   }
   return { params, query, body, rawBody };
 }

@@ -12,6 +12,7 @@ import type { RoutingT } from "../schemas/settings";
 import { checkProgram, type CheckResult } from "../shear";
 import { gradeProfile, shearProfile } from "./catalog";
 import { newId } from "../ids";
+import { rememberJsonText } from "../json-text";
 import { wakeAfterCommit } from "../db/wake";
 import { OUTBOX_CHANNEL } from "./events";
 import { existingReferences, gradesByCode, shearsNamed } from "./lookups";
@@ -170,8 +171,11 @@ async function insert(em: EntityManager, shopId: string, checked: Checked[]): Pr
     updatedAt: now,
   }));
   const views = programs.map(viewProgram);
+  // Each view is serialised once: the same text is the statement's `view` and, remembered, the answer's program.
+  const viewTexts = views.map((view) => JSON.stringify(view));
+  views.forEach((view, i) => rememberJsonText(view, viewTexts[i]));
   // the event's body is `{ program }` (EventData<"program.created">), built in the statement from `view`
-  const rows = programs.map((p, i) => ({
+  const rows = programs.map((p) => ({
     id: p.id,
     shop_id: shopId,
     shear_id: p.shear.id,
@@ -189,15 +193,16 @@ async function insert(em: EntityManager, shopId: string, checked: Checked[]): Pr
     created_at: now,
     updated_at: now,
     event_id: newId("event"),
-    view: views[i],
   }));
+  // JSON.stringify of the rows with `view` as their last field, spliced in as text
+  const json = `[${rows.map((row, i) => `${JSON.stringify(row).slice(0, -1)},"view":${viewTexts[i]}}`).join(",")}]`;
   const inTransaction = em.isInTransaction();
   try {
     // Bound parameters, not MikroORM's `execute`, which writes every value into the SQL text: a batch's JSON runs to megabytes.
     const query = em
       .getConnection()
       .getKnex()
-      .raw(inTransaction ? `${INSERT}, pg_notify('${OUTBOX_CHANNEL}', '')` : INSERT, [JSON.stringify(rows)]);
+      .raw(inTransaction ? `${INSERT}, pg_notify('${OUTBOX_CHANNEL}', '')` : INSERT, [json]);
     const transaction = em.getTransactionContext();
     if (transaction) query.transacting(transaction);
     await query;

@@ -1,6 +1,7 @@
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import { findUnsafeText, textProblem } from "../../lib/text";
+import { plainJsonText } from "../../lib/api/route-input";
 
 describe("text that cannot be stored", () => {
   it("agrees with the language's own check of well-formed UTF-16 (String.prototype.isWellFormed) on any string", () => {
@@ -29,5 +30,19 @@ describe("text that cannot be stored", () => {
     let deep: unknown = "\u0000";
     for (let i = 0; i < 200_000; i++) deep = [deep];
     expect(findUnsafeText(deep)?.pointer.split("/").length).toBe(200_001);
+  });
+
+  it("needs no walk over a JSON body whose text has no \\u escape (the route wrapper's shortcut)", () => {
+    fc.assert(
+      fc.property(fc.jsonValue(), fc.string({ unit: "binary", maxLength: 8 }), (value, extra) => {
+        const body = { value, extra, [extra]: 1 };
+        const text = JSON.stringify(body);
+        if (plainJsonText(text)) expect(findUnsafeText(JSON.parse(text))).toBeNull();
+        if (findUnsafeText(body) !== null) expect(plainJsonText(text)).toBe(false);
+      }),
+      { numRuns: 3000, seed: 5 },
+    );
+    expect(plainJsonText('{"a":"\\u0000"}')).toBe(false);
+    expect(plainJsonText('{"a":"plain ünïcödé 🙂"}')).toBe(true);
   });
 });

@@ -1,0 +1,44 @@
+/**
+ * JSON text serialised once. A value that is written to the database as JSON and then sent as
+ * the answer (a created program and its check: kilobytes each, hundreds in a batch) can carry
+ * the text it was written as, and `stringify` reuses that text wherever the value appears in an
+ * answer. The result is exactly `JSON.stringify(value)`; only the work differs. The value must
+ * not change after its text is remembered.
+ */
+
+const texts = new WeakMap<object, string>();
+
+/** Remember `text` (which must be `JSON.stringify(value)`) as the JSON of `value`; returns `value`. */
+export function rememberJsonText<T extends object>(value: T, text: string): T {
+  texts.set(value, text);
+  return value;
+}
+
+/** How deep `stringify` looks for remembered values (an answer's `{ data: [{ program }] }` is three levels). */
+const DEPTH = 3;
+
+const plain = (value: object) => {
+  const proto = Object.getPrototypeOf(value);
+  return (proto === Object.prototype || proto === null) && typeof (value as { toJSON?: unknown }).toJSON !== "function";
+};
+
+/** `JSON.stringify(value)`, reusing the remembered text of values within the first few levels. */
+export function stringify(value: unknown, depth = DEPTH): string | undefined {
+  if (value === null || typeof value !== "object") return JSON.stringify(value);
+  const known = texts.get(value);
+  if (known !== undefined) return known;
+  if (depth === 0) return JSON.stringify(value);
+  if (Array.isArray(value)) {
+    // as JSON.stringify: items that serialise to nothing (undefined, functions, symbols) become null
+    const items: string[] = [];
+    for (let i = 0; i < value.length; i++) items.push(stringify(value[i], depth - 1) ?? "null");
+    return `[${items.join(",")}]`;
+  }
+  if (!plain(value)) return JSON.stringify(value);
+  const parts: string[] = [];
+  for (const key of Object.keys(value)) {
+    const text = stringify((value as Record<string, unknown>)[key], depth - 1);
+    if (text !== undefined) parts.push(`${JSON.stringify(key)}:${text}`);
+  }
+  return `{${parts.join(",")}}`;
+}

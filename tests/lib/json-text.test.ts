@@ -1,0 +1,57 @@
+import fc from "fast-check";
+import { describe, expect, it } from "vitest";
+import { rememberJsonText, stringify } from "../../lib/json-text";
+
+describe("stringify", () => {
+  it("is JSON.stringify for values with nothing remembered", () => {
+    const values: unknown[] = [
+      null,
+      0,
+      -1.5e-7,
+      'text with "quotes" and \\ and \u2028',
+      "\uD800 lone",
+      true,
+      [1, undefined, () => 1, Symbol("s"), null],
+      Object.assign(new Array(3), { 0: 1, 2: 3 }), // a hole serialises as null
+
+      { a: undefined, b: () => 1, c: Symbol("s"), d: 1, 'key "q"': [{ deep: { deeper: { deepest: [1, 2] } } }] },
+      { when: new Date("2026-12-03T08:00:00Z"), nested: { toJSON: () => "custom" } },
+      Object.assign(Object.create(null), { bare: 1 }),
+      { data: [{ index: 0, program: { id: "prg_1", n: 1.1 } }] },
+    ];
+    for (const value of values) expect(stringify(value)).toBe(JSON.stringify(value));
+    expect(stringify(undefined)).toBe(JSON.stringify(undefined));
+  });
+
+  it("reuses remembered text wherever the value appears in the first levels", () => {
+    const program = { id: "prg_1", check: { layout: { rectangles: [{ x: 1.25 }] } } };
+    const text = JSON.stringify(program);
+    rememberJsonText(program, text);
+    const bodies = [program, { data: [program, program] }, { data: [{ index: 0, status: 201, program }] }];
+    for (const body of bodies) expect(stringify(body)).toBe(JSON.stringify(body));
+    // the remembered text is what is sent: a different text shows it was used
+    const marked = rememberJsonText({ id: "prg_2" }, '{"id":"prg_2","from":"text"}');
+    expect(stringify({ data: [marked] })).toBe('{"data":[{"id":"prg_2","from":"text"}]}');
+  });
+
+  it("gives JSON.stringify's text for any JSON value, with any of its objects remembered", () => {
+    fc.assert(
+      fc.property(fc.jsonValue(), fc.nat(), (value, pick) => {
+        const objects: object[] = [];
+        const collect = (v: unknown) => {
+          if (v !== null && typeof v === "object") {
+            objects.push(v);
+            Object.values(v).forEach(collect);
+          }
+        };
+        collect(value);
+        if (objects.length) {
+          const chosen = objects[pick % objects.length];
+          rememberJsonText(chosen, JSON.stringify(chosen));
+        }
+        expect(stringify(value)).toBe(JSON.stringify(value));
+      }),
+      { numRuns: 2000, seed: 11 },
+    );
+  });
+});

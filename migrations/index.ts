@@ -18,6 +18,7 @@ import { Migration20261202180135_attempt_headers } from "./Migration202612021801
 import { Migration20261203060000_routing } from "./Migration20261203060000_routing";
 import { Migration20261203063000_stock } from "./Migration20261203063000_stock";
 import { Migration20261203070000_remnant_size } from "./Migration20261203070000_remnant_size";
+import { Migration20261203080000_axis_names } from "./Migration20261203080000_axis_names";
 
 export const migrationsList: MigrationObject[] = [
   { name: "Migration20261201234604_initial", class: Migration20261201234604_initial },
@@ -34,4 +35,5 @@ export const migrationsList: MigrationObject[] = [
   { name: "Migration20261203060000_routing", class: Migration20261203060000_routing },
   { name: "Migration20261203063000_stock", class: Migration20261203063000_stock },
   { name: "Migration20261203070000_remnant_size", class: Migration20261203070000_remnant_size },
+  { name: "Migration20261203080000_axis_names", class: Migration20261203080000_axis_names },
 ];

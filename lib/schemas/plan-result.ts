@@ -44,10 +44,10 @@ export const PlanPatternSchema = z
       .array(
         z.object({
           y: z.number(),
-          height: z.number(),
+          width: z.number().openapi({ description: "The strip's width, toward the backgauge" }),
           repeat: z.number().int().min(1).openapi({
             description:
-              "Identical strips one after another (each `height` further on); a plan's size follows its patterns, not its pieces",
+              "Identical strips one after another (each `width` further on); a plan's size follows its patterns, not its pieces",
           }),
           pieces: z.array(Piece),
         }),

@@ -142,44 +142,45 @@ export default async function PlanPage({ params }: { params: Promise<{ id: strin
 
           <SafetyNote />
 
-          {plan.patterns.map((p) => {
+          {plan.patterns.map((pattern) => {
             const faulty = [
               ...new Set(
-                p.check.findings
+                pattern.check.findings
                   .map((f) => /^\/cuts\/(\d+)/.exec(f.pointer)?.[1])
                   .filter(Boolean)
                   .map(Number),
               ),
             ];
-            // Strips and pieces come as runs (repeat, count): each copy is one height or one length further on.
-            const marks = p.strips.flatMap((st) =>
-              Array.from({ length: st.repeat }, (_, k) =>
-                st.pieces.flatMap((pc) =>
-                  Array.from({ length: pc.count }, (_, i) => ({
-                    x: pc.x + i * pc.length,
-                    y: pc.y + k * st.height,
-                    w: pc.length,
-                    h: pc.width,
-                    text: pc.label,
+            // Strips and pieces come as runs (repeat, count): each copy is one width or one length further on.
+            const marks = pattern.strips.flatMap((strip) =>
+              Array.from({ length: strip.repeat }, (_, stripCopy) =>
+                strip.pieces.flatMap((piece) =>
+                  Array.from({ length: piece.count }, (_, pieceCopy) => ({
+                    x: piece.x + pieceCopy * piece.length,
+                    y: piece.y + stripCopy * strip.width,
+                    length: piece.length,
+                    width: piece.width,
+                    text: piece.label,
                   })),
                 ),
               ).flat(),
             );
-            const reusable = p.offcuts
-              .filter((o) => o.reusable)
-              .map((o) => ({ x: o.x, y: o.y, w: o.length, h: o.width }));
-            const programId = written.get(p.key);
+            const reusable = pattern.offcuts
+              .filter((offcut) => offcut.reusable)
+              .map((offcut) => ({ x: offcut.x, y: offcut.y, length: offcut.length, width: offcut.width }));
+            const programId = written.get(pattern.key);
             return (
-              <section key={p.key} data-testid={`pattern-${p.key}`}>
+              <section key={pattern.key} data-testid={`pattern-${pattern.key}`}>
                 <h2 className="mb-2 flex flex-wrap items-baseline gap-2 text-sm font-semibold">
-                  Pattern {p.key} · {p.repeats} sheet{p.repeats === 1 ? "" : "s"} of {plan.stock[p.stock].length} ×{" "}
-                  {plan.stock[p.stock].width} {u}
+                  Pattern {pattern.key} · {pattern.repeats} sheet{pattern.repeats === 1 ? "" : "s"} of{" "}
+                  {plan.stock[pattern.stock].length} × {plan.stock[pattern.stock].width} {u}
                   <span className="font-normal text-ink-muted">
-                    {p.rotated ? "width to the blade · " : ""}
-                    {p.utilisationPct} % used · {p.strokes} stroke{p.strokes === 1 ? "" : "s"}, {p.turns} turn
-                    {p.turns === 1 ? "" : "s"} per sheet
+                    {pattern.rotated ? "width to the blade · " : ""}
+                    {pattern.utilisationPct} % used · {pattern.strokes} stroke{pattern.strokes === 1 ? "" : "s"},{" "}
+                    {pattern.turns} turn
+                    {pattern.turns === 1 ? "" : "s"} per sheet
                   </span>
-                  <Badge value={p.check.validation} label={`check: ${p.check.validation}`} />
+                  <Badge value={pattern.check.validation} label={`check: ${pattern.check.validation}`} />
                   {programId && (
                     <Link href={`/console/programs/${programId}`} className="font-normal text-edge hover:underline">
                       program →
@@ -187,8 +188,8 @@ export default async function PlanPage({ params }: { params: Promise<{ id: strin
                   )}
                 </h2>
                 <CutDrawing
-                  sheet={p.sheet}
-                  layout={programLayout({ units: u, sheet: { ...p.sheet, count: 1 }, cuts: p.cuts })}
+                  sheet={pattern.sheet}
+                  layout={programLayout({ units: u, sheet: { ...pattern.sheet, count: 1 }, cuts: pattern.cuts })}
                   units={u}
                   faultyGroups={faulty}
                   marks={marks}
@@ -196,13 +197,13 @@ export default async function PlanPage({ params }: { params: Promise<{ id: strin
                 />
                 <details className="mt-2 text-xs text-ink-muted">
                   <summary className="cursor-pointer">
-                    The program: {p.cuts.length} groups
-                    {p.check.findings.length
-                      ? ` · ${p.check.findings.length} finding${p.check.findings.length === 1 ? "" : "s"}`
+                    The program: {pattern.cuts.length} groups
+                    {pattern.check.findings.length
+                      ? ` · ${pattern.check.findings.length} finding${pattern.check.findings.length === 1 ? "" : "s"}`
                       : ""}
                   </summary>
                   <ol className="mt-1 space-y-0.5">
-                    {p.cuts.map((c, i) => (
+                    {pattern.cuts.map((c, i) => (
                       <li key={i} className={faulty.includes(i) ? "text-fault" : ""}>
                         <span className="font-medium">{groupName(i)}</span>: {c.count} stroke{c.count === 1 ? "" : "s"}{" "}
                         at {c.backgauge} {u}
@@ -210,7 +211,7 @@ export default async function PlanPage({ params }: { params: Promise<{ id: strin
                       </li>
                     ))}
                   </ol>
-                  {p.check.findings.map((f, i) => (
+                  {pattern.check.findings.map((f, i) => (
                     <p key={i} className={f.severity === "error" ? "text-fault" : "text-caution-dark"}>
                       {f.code}: {f.message}
                     </p>

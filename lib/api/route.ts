@@ -43,9 +43,13 @@ export interface Reply {
 type RouteContext = { params: Promise<Record<string, string | string[]>> };
 
 function json(status: number, body: unknown, headers: Record<string, string>, problem = false): Response {
-  const h = new Headers(headers);
-  if (body !== undefined) h.set("Content-Type", problem ? "application/problem+json" : "application/json");
-  return new Response(body === undefined || status === 204 ? null : JSON.stringify(body), { status, headers: h });
+  const responseHeaders = new Headers(headers);
+  if (body !== undefined)
+    responseHeaders.set("Content-Type", problem ? "application/problem+json" : "application/json");
+  return new Response(body === undefined || status === 204 ? null : JSON.stringify(body), {
+    status,
+    headers: responseHeaders,
+  });
 }
 
 /** One request's state as it goes through the steps. */
@@ -136,8 +140,13 @@ async function reserveIdempotency(
     idempotency.fingerprint(call.method, path, rawBody),
   );
   if (claim.kind === "replay") {
-    const r = claim.response;
-    return json(r.status, r.body, { ...r.headers, ...call.headers, "Idempotent-Replayed": "true" }, r.status >= 400);
+    const storedResponse = claim.response;
+    return json(
+      storedResponse.status,
+      storedResponse.body,
+      { ...storedResponse.headers, ...call.headers, "Idempotent-Replayed": "true" },
+      storedResponse.status >= 400,
+    );
   }
   call.reserved = true;
   return null;

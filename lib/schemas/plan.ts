@@ -9,12 +9,12 @@ import { PLAN_FAILURES, PLAN_STATUSES, PlanResultSchema, PlanSummaryFiguresSchem
 import { PLAN_OBJECTIVES } from "./enums";
 import { z } from "./zod";
 
-const length = (d: string) =>
+const length = (description: string) =>
   z
     .number()
     .positive()
     .max(100_000)
-    .openapi({ description: `${d}, in the plan's units` });
+    .openapi({ description: `${description}, in the plan's units` });
 
 export { PLAN_OBJECTIVES };
 

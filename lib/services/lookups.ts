@@ -23,9 +23,9 @@ const shared = new WeakMap<object, Lookups>();
 /** The shared lookups of this database connection (each query in a fork of its own). */
 function lookups(em: EntityManager): Lookups {
   const connection = em.getConnection();
-  let l = shared.get(connection);
-  if (l) return l;
-  l = {
+  let readers = shared.get(connection);
+  if (readers) return readers;
+  readers = {
     shear: batchedLookup(async (keys) => {
       const found = await em.fork().find(Shear, { $or: pairs(keys).map(([shop, id]) => ({ shop, id })) });
       return new Map(found.map((s) => [`${s.shop.id}${SEP}${s.id}`, s]));
@@ -47,8 +47,8 @@ function lookups(em: EntityManager): Lookups {
       return new Map(found.map((p) => [`${p.shop.id}${SEP}${p.reference}`, p.id]));
     }),
   };
-  shared.set(connection, l);
-  return l;
+  shared.set(connection, readers);
+  return readers;
 }
 
 async function each<V>(lookup: Lookup<V>, shopId: string, keys: string[]): Promise<Map<string, V>> {

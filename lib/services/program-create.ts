@@ -166,25 +166,25 @@ async function insert(em: EntityManager, shopId: string, checked: Checked[]): Pr
   }));
   const views = programs.map(viewProgram);
   // the event's body is `{ program }` (EventData<"program.created">), built in the statement from `view`
-  const rows = programs.map((p, i) => ({
-    id: p.id,
+  const rows = programs.map((program, index) => ({
+    id: program.id,
     shop_id: shopId,
-    shear_id: p.shear.id,
-    reference: p.reference,
-    title: p.title,
-    revision: p.revision,
-    input: p.input,
-    grade_code: p.gradeCode,
-    units: p.units,
-    priority: p.priority,
-    due_at: p.dueAt,
-    validation: p.validation,
-    metadata: p.metadata,
-    routing: p.routing,
+    shear_id: program.shear.id,
+    reference: program.reference,
+    title: program.title,
+    revision: program.revision,
+    input: program.input,
+    grade_code: program.gradeCode,
+    units: program.units,
+    priority: program.priority,
+    due_at: program.dueAt,
+    validation: program.validation,
+    metadata: program.metadata,
+    routing: program.routing,
     created_at: now,
     updated_at: now,
     event_id: newId("event"),
-    view: views[i],
+    view: views[index],
   }));
   const inTransaction = em.isInTransaction();
   try {

@@ -12,9 +12,9 @@ export default async function Programs({
   searchParams: Promise<{ status?: string; search?: string }>;
 }) {
   await currentMember();
-  const q = await searchParams;
-  const status = PROGRAM_STATUSES.includes(q.status as ProgramStatus) ? (q.status as ProgramStatus) : undefined;
-  const search = q.search?.trim().slice(0, 100) || undefined;
+  const query = await searchParams;
+  const status = PROGRAM_STATUSES.includes(query.status as ProgramStatus) ? (query.status as ProgramStatus) : undefined;
+  const search = query.search?.trim().slice(0, 100) || undefined;
   return (
     <>
       <PageHeader title="Programs" lead="Cut programs your systems sent, newest first.">

@@ -121,22 +121,24 @@ export default async function EndpointPage({
               head={["Event", "State", "Attempts and what was sent and received"]}
               empty="No deliveries match. Send a test event to see one."
             >
-              {page.data.map((d) => (
-                <tr key={d.id} data-testid="delivery">
+              {page.data.map((delivery) => (
+                <tr key={delivery.id} data-testid="delivery">
                   <Td>
-                    <span className="font-mono text-xs">{d.eventType}</span>
+                    <span className="font-mono text-xs">{delivery.eventType}</span>
                     <br />
-                    <Link className="text-xs text-edge hover:underline" href={`/console/events/${d.eventId}`}>
-                      {d.eventId}
+                    <Link className="text-xs text-edge hover:underline" href={`/console/events/${delivery.eventId}`}>
+                      {delivery.eventId}
                     </Link>
-                    {d.manual ? <span className="text-xs text-ink-muted"> · sent by hand</span> : null}
+                    {delivery.manual ? <span className="text-xs text-ink-muted"> · sent by hand</span> : null}
                   </Td>
                   <Td>
-                    <Badge value={d.status} />
-                    {d.nextAttemptAt && <div className="text-xs text-ink-muted">next try {when(d.nextAttemptAt)}</div>}
+                    <Badge value={delivery.status} />
+                    {delivery.nextAttemptAt && (
+                      <div className="text-xs text-ink-muted">next try {when(delivery.nextAttemptAt)}</div>
+                    )}
                   </Td>
                   <Td>
-                    <DeliveryDetails delivery={d} payload={payloads.get(d.eventId) ?? ""} />
+                    <DeliveryDetails delivery={delivery} payload={payloads.get(delivery.eventId) ?? ""} />
                   </Td>
                 </tr>
               ))}

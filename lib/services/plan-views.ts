@@ -59,9 +59,8 @@ const NO_BOUNDS = {
 };
 
 /** Results stored before strips and pieces were kept as runs read as runs of one; before bounds, as proving nothing. */
-function normalised(result: Record<string, unknown> | null | undefined): PlanResultT | null {
-  if (!result) return null;
-  const stored = result as unknown as PlanResultT;
+function normalised(stored: PlanResultT | null | undefined): PlanResultT | null {
+  if (!stored) return null;
   return {
     ...stored,
     summary: { ...NO_BOUNDS, ...stored.summary },

@@ -4,47 +4,19 @@
  */
 import { randomBytes } from "node:crypto";
 import type { EntityManager } from "@mikro-orm/postgresql";
-import {
-  Delivery,
-  DeliveryAttempt,
-  Event,
-  Shop,
-  WebhookEndpoint,
-  type DeliveryEntity,
-  type EventEntity,
-  type WebhookEndpointEntity,
-} from "../../entities";
+import { Delivery, DeliveryAttempt, Event, Shop, WebhookEndpoint, type DeliveryEntity } from "../../entities";
 import { conflict, invalidRequest, notFound } from "../errors";
 import { findPage } from "../db/paging";
 import { enqueueAttempt } from "../queue/queue";
 import { literalRefusal } from "../network";
-import type { DeliveryT, EndpointT } from "../schemas/webhook";
-import type { EventType } from "../schemas/enums";
+import type { EndpointT } from "../schemas/webhook";
 import { recordEvent } from "./events";
+import { viewDelivery, viewEndpoint, viewEvent } from "./webhook-views";
 
 export const DEFAULT_OVERLAP_HOURS = 24;
 
 const newSecret = () => `whsec_${randomBytes(24).toString("base64")}`;
-const iso = (d: Date | null | undefined) => d?.toISOString() ?? null;
 
-export function viewEndpoint(endpoint: WebhookEndpointEntity, now = new Date()): EndpointT {
-  const rotating =
-    endpoint.previousSecret && endpoint.previousSecretExpiresAt && endpoint.previousSecretExpiresAt > now;
-  return {
-    id: endpoint.id,
-    url: endpoint.url,
-    description: endpoint.description ?? null,
-    eventTypes: endpoint.eventTypes as EventType[],
-    enabled: endpoint.enabled,
-    disabledReason: endpoint.disabledReason ?? null,
-    secretRotation: rotating ? { previousSecretExpiresAt: endpoint.previousSecretExpiresAt!.toISOString() } : null,
-    consecutiveFailures: endpoint.consecutiveFailures,
-    createdAt: endpoint.createdAt.toISOString(),
-    updatedAt: endpoint.updatedAt.toISOString(),
-  };
-}
-
-/** Refuse, at once, a literal address this install will never send to (names are checked at send time). */
 export function checkUrl(url: string) {
   const why = literalRefusal(new URL(url));
   if (why)
@@ -55,6 +27,10 @@ export async function findEndpoint(em: EntityManager, shopId: string, id: string
   const endpoint = await em.findOne(WebhookEndpoint, { id, shop: shopId });
   if (!endpoint) throw notFound("webhook endpoint");
   return endpoint;
+}
+
+export async function getEndpoint(em: EntityManager, shopId: string, id: string): Promise<EndpointT> {
+  return viewEndpoint(await findEndpoint(em, shopId, id));
 }
 
 export async function listEndpoints(em: EntityManager, shopId: string, options: { limit: number; cursor?: string }) {
@@ -198,16 +174,6 @@ export async function resendFailed(em: EntityManager, shopId: string, endpointId
 
 // ---------------------------------------------------------------- events and deliveries
 
-export function viewEvent(stored: EventEntity) {
-  return {
-    id: stored.id,
-    type: stored.type as EventType,
-    subjectId: stored.subjectId,
-    data: stored.data,
-    createdAt: stored.createdAt.toISOString(),
-  };
-}
-
 export async function listEvents(
   em: EntityManager,
   shopId: string,
@@ -240,44 +206,6 @@ async function attemptsOf(em: EntityManager, ids: string[]) {
   const by = new Map<string, typeof attempts>();
   for (const a of attempts) by.set(a.delivery.id, [...(by.get(a.delivery.id) ?? []), a]);
   return by;
-}
-
-type AttemptRow = {
-  id: string;
-  attemptedAt: Date;
-  statusCode?: number | null;
-  latencyMs: number;
-  responseExcerpt?: string | null;
-  error?: string | null;
-  requestHeaders?: Record<string, string> | null;
-  responseHeaders?: Record<string, string> | null;
-};
-
-export function viewDelivery(delivery: DeliveryEntity, attempts: AttemptRow[] = []): DeliveryT {
-  return {
-    id: delivery.id,
-    eventId: delivery.event.id,
-    eventType: delivery.event.type as EventType,
-    endpointId: delivery.endpoint.id,
-    status: delivery.status,
-    attempts: delivery.attempts,
-    nextAttemptAt: iso(delivery.nextAttemptAt),
-    lastStatusCode: delivery.lastStatusCode ?? null,
-    lastError: delivery.lastError ?? null,
-    manual: delivery.manual,
-    attemptLog: attempts.map((attempt) => ({
-      id: attempt.id,
-      attemptedAt: attempt.attemptedAt.toISOString(),
-      requestHeaders: attempt.requestHeaders ?? null,
-      statusCode: attempt.statusCode ?? null,
-      responseHeaders: attempt.responseHeaders ?? null,
-      latencyMs: attempt.latencyMs,
-      responseExcerpt: attempt.responseExcerpt ?? null,
-      error: attempt.error ?? null,
-    })),
-    createdAt: delivery.createdAt.toISOString(),
-    updatedAt: delivery.updatedAt.toISOString(),
-  };
 }
 
 export async function listDeliveries(

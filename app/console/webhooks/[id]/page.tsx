@@ -11,7 +11,8 @@ import { currentMember } from "@/lib/auth/session";
 import { requestEm } from "@/lib/db/orm";
 import { webhookPayload } from "@/lib/schemas/webhook";
 import { EVENT_TYPES, EVENT_TYPE_WORDS } from "@/lib/schemas/enums";
-import { findEndpoint, listDeliveries, viewEndpoint } from "@/lib/services/webhooks";
+import { findEndpoint, listDeliveries } from "@/lib/services/webhooks";
+import { viewEndpoint } from "@/lib/services/webhook-views";
 import { deleteEndpointAction, resendFailedAction } from "../actions";
 
 export const metadata = { title: "Webhook endpoint" };

@@ -19,6 +19,7 @@ import { Migration20261203060000_routing } from "./Migration20261203060000_routi
 import { Migration20261203063000_stock } from "./Migration20261203063000_stock";
 import { Migration20261203070000_remnant_size } from "./Migration20261203070000_remnant_size";
 import { Migration20261203080000_axis_names } from "./Migration20261203080000_axis_names";
+import { Migration20261203081306_typed_columns } from "./Migration20261203081306_typed_columns";
 
 export const migrationsList: MigrationObject[] = [
   { name: "Migration20261201234604_initial", class: Migration20261201234604_initial },
@@ -36,4 +37,5 @@ export const migrationsList: MigrationObject[] = [
   { name: "Migration20261203063000_stock", class: Migration20261203063000_stock },
   { name: "Migration20261203070000_remnant_size", class: Migration20261203070000_remnant_size },
   { name: "Migration20261203080000_axis_names", class: Migration20261203080000_axis_names },
+  { name: "Migration20261203081306_typed_columns", class: Migration20261203081306_typed_columns },
 ];

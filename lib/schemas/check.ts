@@ -3,6 +3,7 @@
  * pointer into the request), the recommended setup with the reason for each value, the force
  * against the shear's rating, the yield and the cycle estimate.
  */
+import { VALIDATIONS } from "./enums";
 import { z } from "./zod";
 const Quantity = { value: z.number(), unit: z.string() };
 const SetupValue = z
@@ -40,7 +41,7 @@ const Totals = z.object({
 
 export const CheckSchema = z
   .object({
-    validation: z.enum(["pass", "warn", "fail"]),
+    validation: z.enum(VALIDATIONS),
     units: z.enum(["in", "mm"]).nullable(),
     findings: z.array(FindingSchema),
     thickness: z

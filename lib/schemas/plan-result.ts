@@ -98,7 +98,6 @@ export const PlanFindingSchema = z
   })
   .openapi("PlanFinding");
 
-export const PLAN_STATUSES = ["queued", "running", "complete", "failed", "cancelled"] as const;
 export const PLAN_FAILURES = ["time_limit", "worker_lost", "out_of_memory", "error"] as const;
 
 export const PlanSummaryFiguresSchema = z

@@ -5,7 +5,8 @@
  */
 import { jobFields, ProgramSchema, ThicknessSchema } from "./program";
 import { RoutingSchema } from "./settings";
-import { PLAN_FAILURES, PLAN_STATUSES, PlanResultSchema, PlanSummaryFiguresSchema } from "./plan-result";
+import { PLAN_FAILURES, PlanResultSchema, PlanSummaryFiguresSchema } from "./plan-result";
+import { PLAN_STATUSES } from "./enums";
 import { PLAN_OBJECTIVES } from "./enums";
 import { z } from "./zod";
 

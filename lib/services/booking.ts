@@ -84,7 +84,7 @@ export async function bookRun(
 ) {
   await consume(tx, shopId, program, sheetsUsed);
   const shop = await tx.findOneOrFail(Shop, { id: shopId }, { fields: ["remnantMinMm"] });
-  const check = program.check as CheckT;
+  const check = program.check;
   if (!remnants || !shop.remnantMinMm || !check.thickness) return;
   const thicknessMm = roundTo(lengthToMm(check.thickness.value, check.thickness.unit), 3);
   const run = `${program.id} run ended ${(program.finishedAt ?? new Date()).toISOString()}`;

@@ -79,7 +79,7 @@ function common(plan: PlanEntity) {
   const input = plan.input;
   return {
     id: plan.id,
-    status: plan.status as PlanT["status"],
+    status: plan.status,
     reference: plan.reference ?? null,
     title: plan.title ?? null,
     shear: plan.shear.id,
@@ -88,7 +88,7 @@ function common(plan: PlanEntity) {
     thickness: input.thickness,
     units: input.units,
     progress: plan.progress ?? null,
-    failure: (plan.failure as PlanT["failure"]) ?? null,
+    failure: plan.failure ?? null,
     attempts: plan.attempts,
     programs: plan.programs ?? [],
     createdAt: plan.createdAt.toISOString(),

@@ -1,7 +1,6 @@
 /** How a stored program reads in the API, in events and in the console. */
 import { type ProgramEntity } from "../../entities";
-import type { ProgramInputT, ProgramT } from "../schemas/program";
-import type { CheckT } from "../schemas/check";
+import type { ProgramT } from "../schemas/program";
 
 /** What the view reads of a program: a stored one, or one about to be written. */
 export type ProgramRecord = Pick<
@@ -35,7 +34,7 @@ export type ProgramRecord = Pick<
 > & { shear: { id: string } };
 
 export function viewProgram(program: ProgramRecord): ProgramT {
-  const input = program.input as ProgramInputT;
+  const input = program.input;
   return {
     id: program.id,
     status: program.status,
@@ -53,8 +52,8 @@ export function viewProgram(program: ProgramRecord): ProgramT {
     priority: program.priority,
     dueAt: program.dueAt?.toISOString() ?? null,
     metadata: program.metadata ?? {},
-    validation: program.validation as ProgramT["validation"],
-    check: program.check as CheckT,
+    validation: program.validation,
+    check: program.check,
     acknowledged: program.acknowledged ?? [],
     releasedAt: program.releasedAt?.toISOString() ?? null,
     cancelledAt: program.cancelledAt?.toISOString() ?? null,

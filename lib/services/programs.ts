@@ -116,7 +116,7 @@ export async function updateProgram(
   const program = await findProgram(em, shopId, id);
   checkIfMatch(program, ifMatch);
   mustBe(program, ["draft"], "edited");
-  const input = { ...(program.input as ProgramInputT), ...patch } as ProgramInputT;
+  const input = { ...program.input, ...patch };
   if (patch.reference && patch.reference !== program.reference) {
     const existingId = await byReference(em, shopId, patch.reference);
     if (existingId) throw duplicateReference(patch.reference, existingId);
@@ -157,7 +157,7 @@ export async function releaseProgram(
   const program = await findProgram(em, shopId, id);
   mustBe(program, ["draft"], "released");
   // Check again: the shear or grade may have changed since the program was stored.
-  const { check } = await runCheck(em, shopId, program.input as ProgramInputT);
+  const { check } = await runCheck(em, shopId, program.input);
   if (check.validation === "fail") {
     throw new ApiError(
       409,

@@ -1,6 +1,5 @@
 /** How the API shows webhook endpoints, events and deliveries (with each delivery's attempts). */
 import type { DeliveryEntity, EventEntity, WebhookEndpointEntity } from "../../entities";
-import type { EventType } from "../schemas/enums";
 import type { DeliveryT, EndpointT } from "../schemas/webhook";
 
 const iso = (d: Date | null | undefined) => d?.toISOString() ?? null;
@@ -12,7 +11,7 @@ export function viewEndpoint(endpoint: WebhookEndpointEntity, now = new Date()):
     id: endpoint.id,
     url: endpoint.url,
     description: endpoint.description ?? null,
-    eventTypes: endpoint.eventTypes as EventType[],
+    eventTypes: endpoint.eventTypes,
     enabled: endpoint.enabled,
     disabledReason: endpoint.disabledReason ?? null,
     secretRotation: rotating ? { previousSecretExpiresAt: endpoint.previousSecretExpiresAt!.toISOString() } : null,
@@ -26,7 +25,7 @@ export function viewEndpoint(endpoint: WebhookEndpointEntity, now = new Date()):
 export function viewEvent(stored: EventEntity) {
   return {
     id: stored.id,
-    type: stored.type as EventType,
+    type: stored.type,
     subjectId: stored.subjectId,
     data: stored.data,
     createdAt: stored.createdAt.toISOString(),
@@ -48,7 +47,7 @@ export function viewDelivery(delivery: DeliveryEntity, attempts: AttemptRow[] = 
   return {
     id: delivery.id,
     eventId: delivery.event.id,
-    eventType: delivery.event.type as EventType,
+    eventType: delivery.event.type,
     endpointId: delivery.endpoint.id,
     status: delivery.status,
     attempts: delivery.attempts,

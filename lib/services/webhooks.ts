@@ -10,6 +10,7 @@ import { findPage } from "../db/paging";
 import { enqueueAttempt } from "../queue/queue";
 import { literalRefusal } from "../network";
 import type { EndpointT } from "../schemas/webhook";
+import type { EventType } from "../schemas/enums";
 import { recordEvent } from "./events";
 import { viewDelivery, viewEndpoint, viewEvent } from "./webhook-views";
 
@@ -40,7 +41,7 @@ export async function listEndpoints(em: EntityManager, shopId: string, options: 
 export async function createEndpoint(
   em: EntityManager,
   shopId: string,
-  input: { url: string; description?: string; eventTypes?: string[]; enabled?: boolean },
+  input: { url: string; description?: string; eventTypes?: EventType[]; enabled?: boolean },
 ) {
   checkUrl(input.url);
   const secret = newSecret();
@@ -62,7 +63,7 @@ export async function updateEndpoint(
   em: EntityManager,
   shopId: string,
   id: string,
-  patch: { url?: string; description?: string; eventTypes?: string[]; enabled?: boolean },
+  patch: { url?: string; description?: string; eventTypes?: EventType[]; enabled?: boolean },
 ) {
   const endpoint = await findEndpoint(em, shopId, id);
   if (patch.url !== undefined) {
@@ -177,7 +178,7 @@ export async function resendFailed(em: EntityManager, shopId: string, endpointId
 export async function listEvents(
   em: EntityManager,
   shopId: string,
-  options: { limit: number; cursor?: string; type?: string; subject?: string },
+  options: { limit: number; cursor?: string; type?: EventType; subject?: string },
 ) {
   const where = {
     shop: shopId,
@@ -212,7 +213,7 @@ export async function listDeliveries(
   em: EntityManager,
   shopId: string,
   by: { event?: string; endpoint?: string },
-  options: { limit: number; cursor?: string; status?: DeliveryEntity["status"]; eventType?: string },
+  options: { limit: number; cursor?: string; status?: DeliveryEntity["status"]; eventType?: EventType },
 ) {
   if (by.event) await getEvent(em, shopId, by.event);
   if (by.endpoint) await findEndpoint(em, shopId, by.endpoint);

@@ -2,14 +2,14 @@ import Link from "next/link";
 import { EventsTable } from "@/components/console/EventsTable";
 import { PageHeader } from "@/components/ui";
 import { currentMember } from "@/lib/auth/session";
-import { EVENT_TYPES } from "@/lib/schemas/enums";
+import { EVENT_TYPES, isEventType } from "@/lib/schemas/enums";
 
 export const metadata = { title: "Events" };
 
 export default async function Events({ searchParams }: { searchParams: Promise<{ type?: string }> }) {
   await currentMember();
   const query = await searchParams;
-  const type = (EVENT_TYPES as readonly string[]).includes(query.type ?? "") ? query.type : undefined;
+  const type = isEventType(query.type) ? query.type : undefined;
   return (
     <>
       <PageHeader

@@ -1,7 +1,7 @@
 import Link from "next/link";
 import { ProgramsTable } from "@/components/console/ProgramsTable";
 import { PageHeader } from "@/components/ui";
-import { PROGRAM_STATUSES, type ProgramStatus } from "@/lib/schemas/enums";
+import { PROGRAM_STATUSES, isProgramStatus } from "@/lib/schemas/enums";
 import { currentMember } from "@/lib/auth/session";
 
 export const metadata = { title: "Programs" };
@@ -13,7 +13,7 @@ export default async function Programs({
 }) {
   await currentMember();
   const query = await searchParams;
-  const status = PROGRAM_STATUSES.includes(query.status as ProgramStatus) ? (query.status as ProgramStatus) : undefined;
+  const status = isProgramStatus(query.status) ? query.status : undefined;
   const search = query.search?.trim().slice(0, 100) || undefined;
   return (
     <>

@@ -1,7 +1,7 @@
 import { NextResponse } from "next/server";
 import { currentMember } from "@/lib/auth/session";
 import { requestEm } from "@/lib/db/orm";
-import { EVENT_TYPES } from "@/lib/schemas/enums";
+import { isEventType } from "@/lib/schemas/enums";
 import { listEvents } from "@/lib/services/webhooks";
 import { textProblem } from "@/lib/text";
 
@@ -25,7 +25,8 @@ function about(subjectId: string, data: Record<string, unknown>): { label: strin
 export async function GET(request: Request) {
   const member = await currentMember();
   const query = new URL(request.url).searchParams;
-  const type = (EVENT_TYPES as readonly string[]).includes(query.get("type") ?? "") ? query.get("type")! : undefined;
+  const asked = query.get("type");
+  const type = isEventType(asked) ? asked : undefined;
   const cursor = query.get("cursor") ?? undefined;
   if (cursor && textProblem(cursor)) return NextResponse.json({ error: "That page cannot be read." }, { status: 400 });
   try {

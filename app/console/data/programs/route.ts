@@ -1,5 +1,5 @@
 import { NextResponse } from "next/server";
-import { PROGRAM_STATUSES, type ProgramStatus } from "@/lib/schemas/enums";
+import { isProgramStatus } from "@/lib/schemas/enums";
 import { currentMember } from "@/lib/auth/session";
 import { requestEm } from "@/lib/db/orm";
 import { listPrograms } from "@/lib/services/program-list";
@@ -11,9 +11,8 @@ export const dynamic = "force-dynamic";
 export async function GET(request: Request) {
   const member = await currentMember();
   const query = new URL(request.url).searchParams;
-  const status = PROGRAM_STATUSES.includes(query.get("status") as ProgramStatus)
-    ? (query.get("status") as ProgramStatus)
-    : undefined;
+  const asked = query.get("status");
+  const status = isProgramStatus(asked) ? asked : undefined;
   const search = query.get("search")?.trim().slice(0, 100) || undefined;
   const cursor = query.get("cursor") ?? undefined;
   if ((search && textProblem(search)) || (cursor && textProblem(cursor)))

@@ -61,11 +61,11 @@ export default function Home() {
         </div>
 
         <ol className="mt-14 grid gap-4 sm:grid-cols-2">
-          {steps.map((s, i) => (
-            <li key={s.title} className="rounded-lg border border-scale-200 bg-white p-5">
-              <span className="font-mono text-xs text-edge">0{i + 1}</span>
-              <h2 className="mt-1 font-semibold">{s.title}</h2>
-              <p className="mt-1 text-sm text-ink-muted">{s.body}</p>
+          {steps.map((step, index) => (
+            <li key={step.title} className="rounded-lg border border-scale-200 bg-white p-5">
+              <span className="font-mono text-xs text-edge">0{index + 1}</span>
+              <h2 className="mt-1 font-semibold">{step.title}</h2>
+              <p className="mt-1 text-sm text-ink-muted">{step.body}</p>
             </li>
           ))}
         </ol>

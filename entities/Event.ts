@@ -1,5 +1,6 @@
 import { defineEntity, p } from "@mikro-orm/core";
 import { newId } from "../lib/ids";
+import { EVENT_TYPES } from "../lib/schemas/enums";
 import { Shop } from "./Shop";
 
 /**
@@ -17,7 +18,7 @@ export const Event = defineEntity({
       .onCreate(() => newId("event")),
     shop: () => p.manyToOne(Shop).deleteRule("cascade"),
     /** e.g. program.created, program.released */
-    type: p.string(),
+    type: p.enum([...EVENT_TYPES]),
     /** the id of the object the event is about */
     subjectId: p.string(),
     data: p.json<Record<string, unknown>>(),

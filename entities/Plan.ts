@@ -1,7 +1,8 @@
 import { defineEntity, p } from "@mikro-orm/core";
 import type { PlanOrderT } from "../lib/schemas/plan";
-import type { PlanResultT } from "../lib/schemas/plan-result";
+import type { PLAN_FAILURES, PlanResultT } from "../lib/schemas/plan-result";
 import { newId } from "../lib/ids";
+import { PLAN_STATUSES } from "../lib/schemas/enums";
 import type { RoutingT } from "../lib/schemas/settings";
 import { Shear } from "./Shear";
 import { Shop } from "./Shop";
@@ -26,14 +27,13 @@ export const Plan = defineEntity({
     shear: () => p.manyToOne(Shear).deleteRule("restrict"),
     reference: p.text().nullable(),
     title: p.text().nullable(),
-    /** queued | running | complete | failed | cancelled */
-    status: p.string(),
+    status: p.enum([...PLAN_STATUSES]),
     input: p.json<PlanOrderT>(),
     /** the planner's answer, once complete */
     // Plans stored before the planner stated bounds lack them: read through viewPlan (plan-views.ts).
     result: p.json<PlanResultT>().nullable(),
     progress: p.json<{ patterns: number; piecesPlaced: number; piecesWanted: number }>().nullable(),
-    failure: p.json<{ reason: string; message: string }>().nullable(),
+    failure: p.json<{ reason: (typeof PLAN_FAILURES)[number]; message: string }>().nullable(),
     attempts: p.integer().default(0),
     programs: p.json<{ pattern: string; id: string }[]>().default("[]"),
     /** how the shear was chosen when the request named none; null when it named one */

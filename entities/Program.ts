@@ -6,7 +6,7 @@ import type { RoutingT } from "../lib/schemas/settings";
 import { Shear } from "./Shear";
 import { Shop } from "./Shop";
 
-import { PROGRAM_STATUSES, type ProgramStatus } from "../lib/schemas/enums";
+import { PROGRAM_STATUSES, VALIDATIONS, type ProgramStatus } from "../lib/schemas/enums";
 
 export { PROGRAM_STATUSES, type ProgramStatus };
 
@@ -43,7 +43,7 @@ export const Program = defineEntity({
     priority: p.integer().default(0),
     dueAt: p.datetime().nullable(),
     /** pass | warn | fail, and the full check: findings, setup, force, yield, estimate */
-    validation: p.string(),
+    validation: p.enum([...VALIDATIONS]),
     check: p.json<CheckT>(),
     /** warning codes the caller acknowledged when releasing */
     acknowledged: p.json<string[]>().default("[]"),

@@ -1,5 +1,6 @@
 import { defineEntity, p } from "@mikro-orm/core";
 import { newId } from "../lib/ids";
+import type { EventType } from "../lib/schemas/enums";
 import { Shop } from "./Shop";
 
 /**
@@ -18,7 +19,7 @@ export const WebhookEndpoint = defineEntity({
     url: p.text(),
     description: p.text().nullable(),
     /** event types this endpoint receives; empty = every type */
-    eventTypes: p.json<string[]>().default("[]"),
+    eventTypes: p.json<EventType[]>().default("[]"),
     enabled: p.boolean().default(true),
     /** why it was disabled: by a person, after repeated failures, or because the receiver answered 410 */
     disabledReason: p.text().nullable(),

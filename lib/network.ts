@@ -110,8 +110,8 @@ export async function resolveReceiver(url: URL, list = allowList()): Promise<Che
         family: a.family as 4 | 6,
       }));
   if (!addresses.length) throw new BlockedAddressError(`${host} has no address`);
-  for (const a of addresses) {
-    const why = refusal(host, a.address, list);
+  for (const address of addresses) {
+    const why = refusal(host, address.address, list);
     if (why) throw new BlockedAddressError(why);
   }
   return addresses;

@@ -18,7 +18,9 @@ import { Migration20261202180135_attempt_headers } from "./Migration202612021801
 import { Migration20261203060000_routing } from "./Migration20261203060000_routing";
 import { Migration20261203063000_stock } from "./Migration20261203063000_stock";
 import { Migration20261203070000_remnant_size } from "./Migration20261203070000_remnant_size";
-import { Migration20261203080000_lz4_json } from "./Migration20261203080000_lz4_json";
+import { Migration20261203080000_axis_names } from "./Migration20261203080000_axis_names";
+import { Migration20261203081306_typed_columns } from "./Migration20261203081306_typed_columns";
+import { Migration20261203090000_lz4_json } from "./Migration20261203090000_lz4_json";
 
 export const migrationsList: MigrationObject[] = [
   { name: "Migration20261201234604_initial", class: Migration20261201234604_initial },
@@ -35,5 +37,7 @@ export const migrationsList: MigrationObject[] = [
   { name: "Migration20261203060000_routing", class: Migration20261203060000_routing },
   { name: "Migration20261203063000_stock", class: Migration20261203063000_stock },
   { name: "Migration20261203070000_remnant_size", class: Migration20261203070000_remnant_size },
-  { name: "Migration20261203080000_lz4_json", class: Migration20261203080000_lz4_json },
+  { name: "Migration20261203080000_axis_names", class: Migration20261203080000_axis_names },
+  { name: "Migration20261203081306_typed_columns", class: Migration20261203081306_typed_columns },
+  { name: "Migration20261203090000_lz4_json", class: Migration20261203090000_lz4_json },
 ];

@@ -33,7 +33,7 @@ async function submit(order: object) {
   if (res.status !== 202) throw new Error(`plan refused: ${res.status} ${await res.text()}`);
   return (await res.json()).id as string;
 }
-async function until(id: string, done: (p: { status: string }) => boolean, seconds = 180) {
+async function until(id: string, done: (plan: { status: string }) => boolean, seconds = 180) {
   const deadline = Date.now() + seconds * 1000;
   for (;;) {
     const plan = await (await fetch(`${base}/api/v1/plans/${id}`, { headers })).json();
@@ -42,8 +42,8 @@ async function until(id: string, done: (p: { status: string }) => boolean, secon
   }
 }
 const ended = (p: { status: string }) => !["queued", "running"].includes(p.status);
-const seconds = (p: { startedAt: string; finishedAt: string }) =>
-  (Date.parse(p.finishedAt) - Date.parse(p.startedAt)) / 1000;
+const seconds = (plan: { startedAt: string; finishedAt: string }) =>
+  (Date.parse(plan.finishedAt) - Date.parse(plan.startedAt)) / 1000;
 
 /** 500 pieces of 30 blank types on three sheet sizes (invented, seeded). */
 function fiveHundredPieces() {
@@ -62,8 +62,8 @@ function fiveHundredPieces() {
       { length: 3000, width: 1500 },
       { length: 2000, width: 1000 },
     ],
-    blanks: scaled.map((quantity, i) => ({
-      label: `part ${i + 1}`,
+    blanks: scaled.map((quantity, index) => ({
+      label: `part ${index + 1}`,
       length: 80 + Math.floor(random() * 900),
       width: 50 + Math.floor(random() * 500),
       quantity,
@@ -88,14 +88,14 @@ const largest = await until(largestId, ended, 240);
 const largestWall = (performance.now() - tLargest) / 1000;
 
 for (const d of [web, worker]) await stopDaemon(d);
-const describe = (p: {
+const describe = (plan: {
   status: string;
   failure?: { reason: string } | null;
   result?: { summary: { sheets: number; patterns: number } } | null;
 }) =>
-  p.status === "complete"
-    ? `${p.result!.summary.sheets} sheets, ${p.result!.summary.patterns} patterns`
-    : `${p.status}${p.failure ? ` (${p.failure.reason})` : ""}`;
+  plan.status === "complete"
+    ? `${plan.result!.summary.sheets} sheets, ${plan.result!.summary.patterns} patterns`
+    : `${plan.status}${plan.failure ? ` (${plan.failure.reason})` : ""}`;
 console.log(`
 Plans through the API and a worker (${describe(medium)})
   500 pieces, 30 blank types, 3 sheet sizes   ${seconds(medium).toFixed(2)} s planning, ${mediumWall.toFixed(2)} s from request to answer   (target < 2 s)

@@ -43,9 +43,9 @@ const servers = await Promise.all(
       }),
   ),
 );
-for (const s of servers) {
+for (const listener of servers) {
   await createEndpoint(orm.em.fork(), shopId, {
-    url: `http://localhost:${(s.address() as AddressInfo).port}/`,
+    url: `http://localhost:${(listener.address() as AddressInfo).port}/`,
     eventTypes: ["program.created"],
   });
 }

@@ -114,12 +114,12 @@ async function run(program: SimProgram, state: State) {
     if (stopping) return;
     state.strokesDone += groups.length ? groups[state.step % groups.length].strokes : 1;
     state.step += 1;
-    const p = await call("POST", `/programs/${program.id}/progress`, {
+    const progress = await call("POST", `/programs/${program.id}/progress`, {
       groupsDone: state.step,
       strokesDone: state.strokesDone,
       leaseSeconds,
     });
-    if (p.status !== 200) throw new Error(`progress refused: ${p.json?.detail ?? p.status}`);
+    if (progress.status !== 200) throw new Error(`progress refused: ${progress.json?.detail ?? progress.status}`);
     save(state);
   }
   if (stopping) return;

@@ -62,7 +62,8 @@ const messages = (): Stored[] =>
     .sort()
     .reverse()
     .map((f) => JSON.parse(readFileSync(path.join(dir, f), "utf8")));
-const esc = (s: string) => s.replace(/[&<>"]/g, (c) => ({ "&": "&amp;", "<": "&lt;", ">": "&gt;", '"': "&quot;" })[c]!);
+const esc = (text: string) =>
+  text.replace(/[&<>"]/g, (c) => ({ "&": "&amp;", "<": "&lt;", ">": "&gt;", '"': "&quot;" })[c]!);
 
 http
   .createServer((req, res) => {
@@ -72,8 +73,8 @@ http
     }
     const list = messages()
       .map(
-        (m) =>
-          `<article><h2>${esc(m.subject)}</h2><p class="meta">${esc(m.receivedAt)} · from ${esc(m.from)} · to ${esc(m.to.join(", "))}</p><pre>${esc(m.text)}</pre></article>`,
+        (stored) =>
+          `<article><h2>${esc(stored.subject)}</h2><p class="meta">${esc(stored.receivedAt)} · from ${esc(stored.from)} · to ${esc(stored.to.join(", "))}</p><pre>${esc(stored.text)}</pre></article>`,
       )
       .join("");
     res.writeHead(200, { "content-type": "text/html; charset=utf-8" }).end(

@@ -19,7 +19,8 @@ function countResults(): { passed: number; failed: number } {
   const json = JSON.parse(readFileSync(report, "utf8"));
   // A file that failed to load has no test results but is a failure all the same.
   const brokenFiles = (json.testResults ?? []).filter(
-    (f: { status: string; assertionResults: unknown[] }) => f.status === "failed" && f.assertionResults.length === 0,
+    (file: { status: string; assertionResults: unknown[] }) =>
+      file.status === "failed" && file.assertionResults.length === 0,
   ).length;
   return { passed: json.numPassedTests ?? 0, failed: (json.numFailedTests ?? 0) + brokenFiles };
 }

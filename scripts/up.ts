@@ -40,8 +40,8 @@ async function main() {
   const web = daemon(profile.dataRoot, "web");
   const worker = daemon(profile.dataRoot, "worker");
   const mail = daemon(profile.dataRoot, "mail");
-  for (const d of [web, worker, mail]) {
-    if ((await stopDaemon(d)) === "stopped") console.log(`[up] stopped the previous ${d.name} process`);
+  for (const running of [web, worker, mail]) {
+    if ((await stopDaemon(running)) === "stopped") console.log(`[up] stopped the previous ${running.name} process`);
   }
   if (process.env.SHEARWIRE_SKIP_BUILD !== "1") {
     console.log("[up] building the app (next build)");

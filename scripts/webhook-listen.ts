@@ -39,9 +39,9 @@ http
           console.log(`${new Date().toISOString()} duplicate ${id} (already handled)`);
         } else {
           seen.add(id);
-          const p = event.data.program;
+          const program = event.data.program;
           console.log(
-            `${new Date().toISOString()} ${event.type.padEnd(22)} ${id}${p ? `  ${p.id} ${p.reference} → ${p.status}` : ""}`,
+            `${new Date().toISOString()} ${event.type.padEnd(22)} ${id}${program ? `  ${program.id} ${program.reference} → ${program.status}` : ""}`,
           );
         }
         res.writeHead(204).end();

@@ -35,9 +35,9 @@ export default async function ConsoleLayout({ children }: { children: ReactNode 
                 defaultValue={member.shopId}
                 className="w-full rounded border border-scale-300 bg-white px-1 py-1 text-sm"
               >
-                {member.shops.map((s) => (
-                  <option key={s.id} value={s.id}>
-                    {s.name}
+                {member.shops.map((shop) => (
+                  <option key={shop.id} value={shop.id}>
+                    {shop.name}
                   </option>
                 ))}
               </select>

@@ -49,14 +49,14 @@ const SETUP_STEPS = [
 
 export default async function Overview() {
   const member = await currentMember();
-  const o = await overview(await requestEm(), member.shopId);
+  const summary = await overview(await requestEm(), member.shopId);
   return (
     <>
       <PageHeader
         title="Overview"
         lead={`${member.shopName}: the last hour of API traffic, the last day of webhook deliveries, and every program by state.`}
       />
-      {!Object.values(o.setup).every(Boolean) && (
+      {!Object.values(summary.setup).every(Boolean) && (
         <section className="mb-6 rounded-md border border-edge/40 bg-white p-4" data-testid="setup-checklist">
           <h2 className="text-sm font-semibold">Getting this shop going</h2>
           <ol className="mt-2 space-y-1 text-sm">
@@ -64,15 +64,15 @@ export default async function Overview() {
               <li key={step.key} className="flex items-start gap-2">
                 <span
                   aria-hidden="true"
-                  className={`mt-0.5 inline-flex h-4 w-4 shrink-0 items-center justify-center rounded-full text-[10px] ${o.setup[step.key] ? "bg-ok text-white" : "border border-scale-400"}`}
+                  className={`mt-0.5 inline-flex h-4 w-4 shrink-0 items-center justify-center rounded-full text-[10px] ${summary.setup[step.key] ? "bg-ok text-white" : "border border-scale-400"}`}
                 >
-                  {o.setup[step.key] ? "✓" : ""}
+                  {summary.setup[step.key] ? "✓" : ""}
                 </span>
-                <span className={o.setup[step.key] ? "text-ink-muted line-through decoration-scale-400" : ""}>
+                <span className={summary.setup[step.key] ? "text-ink-muted line-through decoration-scale-400" : ""}>
                   <Link href={step.href} className="text-edge hover:underline">
                     {step.label}
                   </Link>
-                  <span className="sr-only">{o.setup[step.key] ? " (done)" : " (to do)"}</span>: {step.why}
+                  <span className="sr-only">{summary.setup[step.key] ? " (done)" : " (to do)"}</span>: {step.why}
                 </span>
               </li>
             ))}
@@ -80,35 +80,36 @@ export default async function Overview() {
         </section>
       )}
       <section className="grid grid-cols-2 gap-3 lg:grid-cols-4">
-        <Stat label="API requests, last hour" value={o.requestsLastHour} />
-        <Stat label="Error rate" value={`${o.errorRatePct} %`} hint="5xx and 429 answers" />
+        <Stat label="API requests, last hour" value={summary.requestsLastHour} />
+        <Stat label="Error rate" value={`${summary.errorRatePct} %`} hint="5xx and 429 answers" />
         <Stat
           label="Deliveries succeeded, 24 h"
-          value={o.deliverySuccessPct === null ? "—" : `${o.deliverySuccessPct} %`}
-          hint={`${o.failedDeliveries} gave up`}
+          value={summary.deliverySuccessPct === null ? "—" : `${summary.deliverySuccessPct} %`}
+          hint={`${summary.failedDeliveries} gave up`}
         />
         <Stat
           label="Endpoints disabled"
-          value={o.disabledEndpoints}
-          hint={o.disabledEndpoints ? "see Webhooks" : "all receiving"}
+          value={summary.disabledEndpoints}
+          hint={summary.disabledEndpoints ? "see Webhooks" : "all receiving"}
         />
       </section>
       <section className="mt-6 rounded-md border border-scale-200 bg-white p-4">
         <h2 className="text-sm font-semibold">Requests per minute (UTC)</h2>
         <div className="mt-3">
-          <RequestsChart data={o.requestsPerMinute} />
+          <RequestsChart data={summary.requestsPerMinute} />
         </div>
       </section>
       <section className="mt-6">
         <h2 className="mb-2 text-sm font-semibold">Programs by state</h2>
         <div className="flex flex-wrap gap-2">
-          {PROGRAM_STATUSES.map((s) => (
+          {PROGRAM_STATUSES.map((programStatus) => (
             <Link
-              key={s}
-              href={`/console/programs?status=${s}`}
+              key={programStatus}
+              href={`/console/programs?status=${programStatus}`}
               className="flex items-center gap-2 rounded-md border border-scale-200 bg-white px-3 py-2 hover:border-ink"
             >
-              <Badge value={s} /> <span className="font-mono">{o.programsByStatus[s] ?? 0}</span>
+              <Badge value={programStatus} />{" "}
+              <span className="font-mono">{summary.programsByStatus[programStatus] ?? 0}</span>
             </Link>
           ))}
         </div>

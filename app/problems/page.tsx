@@ -16,12 +16,12 @@ export default function Problems() {
       </p>
       <table className="mt-6 w-full text-sm">
         <tbody>
-          {Object.entries(PROBLEM_TYPES).map(([slug, p]) => (
+          {Object.entries(PROBLEM_TYPES).map(([slug, problem]) => (
             <tr key={slug} className="border-t border-scale-200">
-              <td className="py-2 pr-4 font-mono text-ink-muted">{p.status}</td>
+              <td className="py-2 pr-4 font-mono text-ink-muted">{problem.status}</td>
               <td className="py-2">
                 <Link className="text-edge hover:underline" href={`/problems/${slug}`}>
-                  {p.title}
+                  {problem.title}
                 </Link>
               </td>
             </tr>

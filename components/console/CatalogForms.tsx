@@ -60,15 +60,16 @@ const GRADE_FIELDS: Field[] = [
 /** Empty inputs become null (optional) or undefined, numbers become numbers, before the schema sees them. */
 function clean(fields: Field[], values: Record<string, unknown>, editing: boolean) {
   const out: Record<string, unknown> = {};
-  for (const f of fields) {
-    const v = values[f.name];
-    if (v === "" || v === undefined || v === null) {
-      if (f.optional)
-        out[f.name] = f.kind === "text" && f.name !== "note" && f.name !== "description" ? undefined : null;
-      else if (!editing) out[f.name] = undefined;
+  for (const field of fields) {
+    const value = values[field.name];
+    if (value === "" || value === undefined || value === null) {
+      if (field.optional)
+        out[field.name] =
+          field.kind === "text" && field.name !== "note" && field.name !== "description" ? undefined : null;
+      else if (!editing) out[field.name] = undefined;
       continue;
     }
-    out[f.name] = f.kind === "text" || f.kind === "select" ? v : Number(v);
+    out[field.name] = field.kind === "text" || field.kind === "select" ? value : Number(value);
   }
   if (editing && "code" in out) delete out.code; // a grade's code does not change
   return JSON.parse(JSON.stringify(out)) as Record<string, unknown>;
@@ -121,28 +122,35 @@ function CatalogForm({
   });
   return (
     <form onSubmit={onSubmit} className="grid grid-cols-2 gap-x-3 gap-y-2 text-sm" noValidate>
-      {fields.map((f) => {
-        const message = (errors[f.name]?.message as string | undefined) ?? result?.fieldErrors?.[f.name];
+      {fields.map((field) => {
+        const message = (errors[field.name]?.message as string | undefined) ?? result?.fieldErrors?.[field.name];
         return (
-          <label key={f.name} className={`grid gap-0.5 ${f.kind === "text" && f.name !== "code" ? "col-span-2" : ""}`}>
+          <label
+            key={field.name}
+            className={`grid gap-0.5 ${field.kind === "text" && field.name !== "code" ? "col-span-2" : ""}`}
+          >
             <span className="text-xs">
-              {f.label}
-              {f.unit ? ` (${f.unit})` : ""}
-              {f.optional ? "" : " *"}
+              {field.label}
+              {field.unit ? ` (${field.unit})` : ""}
+              {field.optional ? "" : " *"}
             </span>
-            {f.kind === "select" ? (
-              <select {...form.register(f.name)} className="rounded border border-scale-300 px-2 py-1">
-                {f.options!.map((o) => (
-                  <option key={o} value={o}>
-                    {o ? (f.name === "gaugeFamily" ? `${o}: ${GAUGE_SYSTEM_WORDS[o]}` : o) : "none"}
+            {field.kind === "select" ? (
+              <select {...form.register(field.name)} className="rounded border border-scale-300 px-2 py-1">
+                {field.options!.map((choice) => (
+                  <option key={choice} value={choice}>
+                    {choice
+                      ? field.name === "gaugeFamily"
+                        ? `${choice}: ${GAUGE_SYSTEM_WORDS[choice]}`
+                        : choice
+                      : "none"}
                   </option>
                 ))}
               </select>
             ) : (
               <input
-                {...form.register(f.name)}
-                inputMode={f.kind === "text" ? undefined : "decimal"}
-                disabled={editing && f.name === "code"}
+                {...form.register(field.name)}
+                inputMode={field.kind === "text" ? undefined : "decimal"}
+                disabled={editing && field.name === "code"}
                 aria-invalid={message ? true : undefined}
                 className="rounded border border-scale-300 px-2 py-1 aria-[invalid]:border-fault disabled:bg-scale-100"
               />

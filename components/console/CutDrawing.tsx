@@ -3,7 +3,8 @@
  * each stroke's cut line, as the shear core's piece flow placed them (`layout` of the check, or
  * `programLayout` for a check stored without one). The drawing computes no geometry of its own,
  * so it always shows what the yield beside it counts. Groups named by a finding are drawn in the
- * fault colour; partial strokes are dashed.
+ * fault colour; partial strokes are dashed. SVG's x is the sheet's length (along the blade) and its y
+ * the sheet's width, so a rectangle's SVG `width` is its `length` and its SVG `height` its `width`.
  */
 import type { LayoutReport } from "@/lib/shear";
 
@@ -22,9 +23,9 @@ export function CutDrawing({
   units: string;
   faultyGroups?: number[];
   /** labels written on the sheet (a plan's blanks), in the drawing's coordinates */
-  marks?: { x: number; y: number; w: number; h: number; text: string }[];
+  marks?: { x: number; y: number; length: number; width: number; text: string }[];
   /** leftovers worth keeping, outlined */
-  reusable?: { x: number; y: number; w: number; h: number }[];
+  reusable?: { x: number; y: number; length: number; width: number }[];
 }) {
   const rectangles = layout?.rectangles ?? [];
   const lines = layout?.cuts ?? [];
@@ -65,8 +66,8 @@ export function CutDrawing({
             data-stroke={piece.stroke ?? ""}
             x={piece.x}
             y={piece.y}
-            width={piece.width}
-            height={piece.height}
+            width={piece.length}
+            height={piece.width}
             fill={FILL[piece.kind]}
             stroke="#8d97a4"
             strokeWidth={pad / 20}
@@ -96,8 +97,8 @@ export function CutDrawing({
             key={`r${index}`}
             x={spare.x}
             y={spare.y}
-            width={spare.w}
-            height={spare.h}
+            width={spare.length}
+            height={spare.width}
             fill="none"
             stroke="#7a5b00"
             strokeDasharray={`${pad / 4} ${pad / 6}`}
@@ -105,12 +106,12 @@ export function CutDrawing({
           />
         ))}
         {marks.map((mark, index) => {
-          const size = Math.min(mark.h * 0.35, mark.w / Math.max(4, mark.text.length * 0.62), pad * 0.7);
+          const size = Math.min(mark.width * 0.35, mark.length / Math.max(4, mark.text.length * 0.62), pad * 0.7);
           return size >= pad * 0.22 ? (
             <text
               key={`m${index}`}
-              x={mark.x + mark.w / 2}
-              y={mark.y + mark.h / 2}
+              x={mark.x + mark.length / 2}
+              y={mark.y + mark.width / 2}
               fontSize={size}
               textAnchor="middle"
               dominantBaseline="middle"

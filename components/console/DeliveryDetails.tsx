@@ -20,24 +20,25 @@ export function DeliveryDetails({ delivery, payload }: { delivery: DeliveryT; pa
   }
   return (
     <div className="space-y-1">
-      {delivery.attemptLog.map((a, i) => (
-        <details key={a.id} className="rounded border border-scale-200 bg-scale-50 text-xs" data-testid="attempt">
+      {delivery.attemptLog.map((attempt, index) => (
+        <details key={attempt.id} className="rounded border border-scale-200 bg-scale-50 text-xs" data-testid="attempt">
           <summary className="cursor-pointer px-2 py-1">
-            Attempt {i + 1} · {when(a.attemptedAt)} ·{" "}
-            {a.statusCode !== null ? `HTTP ${a.statusCode}` : (a.error ?? "no answer")} · {a.latencyMs} ms
+            Attempt {index + 1} · {when(attempt.attemptedAt)} ·{" "}
+            {attempt.statusCode !== null ? `HTTP ${attempt.statusCode}` : (attempt.error ?? "no answer")} ·{" "}
+            {attempt.latencyMs} ms
           </summary>
           <div className="grid gap-2 px-2 pb-2 lg:grid-cols-2">
             <section>
               <h4 className="font-semibold">Request</h4>
               <p className="font-mono">POST</p>
               <dl className="font-mono">
-                {Object.entries(a.requestHeaders ?? {}).map(([name, value]) => (
+                {Object.entries(attempt.requestHeaders ?? {}).map(([name, value]) => (
                   <div key={name} className="break-all">
                     <dt className="inline text-ink-muted">{name}: </dt>
                     <dd className="inline">{value}</dd>
                   </div>
                 ))}
-                {!a.requestHeaders && (
+                {!attempt.requestHeaders && (
                   <div className="text-ink-muted">(headers not recorded for attempts made before they were kept)</div>
                 )}
               </dl>
@@ -48,22 +49,24 @@ export function DeliveryDetails({ delivery, payload }: { delivery: DeliveryT; pa
             <section>
               <h4 className="font-semibold">Response</h4>
               <p className="font-mono">
-                {a.statusCode !== null ? `HTTP ${a.statusCode}` : `no response: ${a.error ?? "unknown error"}`}
+                {attempt.statusCode !== null
+                  ? `HTTP ${attempt.statusCode}`
+                  : `no response: ${attempt.error ?? "unknown error"}`}
               </p>
               <dl className="font-mono">
-                {Object.entries(a.responseHeaders ?? {}).map(([name, value]) => (
+                {Object.entries(attempt.responseHeaders ?? {}).map(([name, value]) => (
                   <div key={name} className="break-all">
                     <dt className="inline text-ink-muted">{name}: </dt>
                     <dd className="inline">{value}</dd>
                   </div>
                 ))}
               </dl>
-              {a.responseExcerpt !== null && (
+              {attempt.responseExcerpt !== null && (
                 <pre
                   tabIndex={0}
                   className="mt-1 max-h-64 overflow-auto whitespace-pre-wrap break-all rounded bg-white p-2"
                 >
-                  {a.responseExcerpt}
+                  {attempt.responseExcerpt}
                 </pre>
               )}
             </section>

@@ -22,8 +22,8 @@ const columns = [
   col.accessor((row) => row.about.label, {
     id: "about",
     header: "About",
-    cell: (c) => {
-      const { about, subjectId } = c.row.original;
+    cell: (cell) => {
+      const { about, subjectId } = cell.row.original;
       return (
         <span>
           {about.href ? (
@@ -41,9 +41,9 @@ const columns = [
   }),
   col.accessor("id", {
     header: "Event id",
-    cell: (c) => (
-      <Link className="font-mono text-xs text-edge hover:underline" href={`/console/events/${c.getValue()}`}>
-        {c.getValue()}
+    cell: (cell) => (
+      <Link className="font-mono text-xs text-edge hover:underline" href={`/console/events/${cell.getValue()}`}>
+        {cell.getValue()}
       </Link>
     ),
   }),

@@ -72,26 +72,26 @@ export function KeyForm({
           <div className="grid gap-1">
             <span>Start from</span>
             <div className="flex flex-wrap gap-1">
-              {presets.map((p) => (
+              {presets.map((preset) => (
                 <button
-                  key={p.name}
+                  key={preset.name}
                   type="button"
-                  onClick={() => choose(p)}
-                  title={p.note}
+                  onClick={() => choose(preset)}
+                  title={preset.note}
                   className="rounded border border-scale-300 px-2 py-1 text-xs hover:border-ink"
                 >
-                  {p.label}
+                  {preset.label}
                 </button>
               ))}
             </div>
           </div>
           <fieldset ref={scopeBoxes} className="grid gap-1">
             <legend className="mb-1">Scopes</legend>
-            {scopes.map((s) => (
-              <label key={s} className="flex items-start gap-1.5 text-xs">
-                <input type="checkbox" name="scopes" value={s} className="mt-0.5" />{" "}
+            {scopes.map((scope) => (
+              <label key={scope} className="flex items-start gap-1.5 text-xs">
+                <input type="checkbox" name="scopes" value={scope} className="mt-0.5" />{" "}
                 <span>
-                  <span className="font-mono">{s}</span> <span className="text-ink-muted">· {words[s]}</span>
+                  <span className="font-mono">{scope}</span> <span className="text-ink-muted">· {words[scope]}</span>
                 </span>
               </label>
             ))}
@@ -101,9 +101,9 @@ export function KeyForm({
             <label className="grid gap-1">
               Only for these shears (gateway keys; none = all)
               <select name="shears" multiple className="rounded border border-scale-300 px-2 py-1">
-                {shears.map((s) => (
-                  <option key={s.id} value={s.id}>
-                    {s.name}
+                {shears.map((shear) => (
+                  <option key={shear.id} value={shear.id}>
+                    {shear.name}
                   </option>
                 ))}
               </select>

@@ -76,23 +76,23 @@ export function LiveTable<T extends { id: string }>({
     <div className="overflow-x-auto rounded-md border border-scale-200 bg-white">
       <table className="w-full text-left text-sm">
         <thead className="border-b border-scale-200 bg-scale-50 text-[11px] uppercase tracking-wide text-ink-muted">
-          {table.getHeaderGroups().map((g) => (
-            <tr key={g.id}>
-              {g.headers.map((h) => (
+          {table.getHeaderGroups().map((headerGroup) => (
+            <tr key={headerGroup.id}>
+              {headerGroup.headers.map((header) => (
                 <th
-                  key={h.id}
+                  key={header.id}
                   className="px-3 py-2 font-medium"
                   aria-sort={
-                    h.column.getIsSorted() === "asc"
+                    header.column.getIsSorted() === "asc"
                       ? "ascending"
-                      : h.column.getIsSorted() === "desc"
+                      : header.column.getIsSorted() === "desc"
                         ? "descending"
                         : "none"
                   }
                 >
-                  <button type="button" onClick={h.column.getToggleSortingHandler()} className="uppercase">
-                    {flexRender(h.column.columnDef.header, h.getContext())}
-                    {{ asc: " ▲", desc: " ▼" }[h.column.getIsSorted() as string] ?? ""}
+                  <button type="button" onClick={header.column.getToggleSortingHandler()} className="uppercase">
+                    {flexRender(header.column.columnDef.header, header.getContext())}
+                    {{ asc: " ▲", desc: " ▼" }[header.column.getIsSorted() as string] ?? ""}
                   </button>
                 </th>
               ))}
@@ -100,11 +100,11 @@ export function LiveTable<T extends { id: string }>({
           ))}
         </thead>
         <tbody className="divide-y divide-scale-100">
-          {table.getRowModel().rows.map((r) => (
-            <tr key={r.id} data-testid={testId} className="hover:bg-scale-50">
-              {r.getVisibleCells().map((c) => (
-                <td key={c.id} className="px-3 py-2 align-top">
-                  {flexRender(c.column.columnDef.cell, c.getContext())}
+          {table.getRowModel().rows.map((row) => (
+            <tr key={row.id} data-testid={testId} className="hover:bg-scale-50">
+              {row.getVisibleCells().map((visibleCell) => (
+                <td key={visibleCell.id} className="px-3 py-2 align-top">
+                  {flexRender(visibleCell.column.columnDef.cell, visibleCell.getContext())}
                 </td>
               ))}
             </tr>

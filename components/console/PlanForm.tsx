@@ -42,9 +42,9 @@ export function PlanForm({
         <label className="grid min-w-0 gap-1">
           Shear
           <select name="shear" className={`${input} w-full min-w-0`}>
-            {shears.map((s) => (
-              <option key={s.id} value={s.id}>
-                {s.name}
+            {shears.map((shear) => (
+              <option key={shear.id} value={shear.id}>
+                {shear.name}
               </option>
             ))}
             <option value="">Any shear: the shop&apos;s rule chooses</option>
@@ -53,9 +53,9 @@ export function PlanForm({
         <label className="grid min-w-0 gap-1">
           Grade
           <select name="grade" required className={`${input} w-full min-w-0`}>
-            {grades.map((g) => (
-              <option key={g.code} value={g.code}>
-                {g.code} · {g.name}
+            {grades.map((grade) => (
+              <option key={grade.code} value={grade.code}>
+                {grade.code} · {grade.name}
               </option>
             ))}
           </select>
@@ -123,9 +123,9 @@ export function PlanForm({
         <label className="grid gap-1">
           Objective
           <select name="objective" defaultValue={"fewest_sheets"} className={input}>
-            {Object.entries(PLAN_OBJECTIVE_LABELS).map(([v, l]) => (
-              <option key={v} value={v}>
-                {l}
+            {Object.entries(PLAN_OBJECTIVE_LABELS).map(([value, label]) => (
+              <option key={value} value={value}>
+                {label}
               </option>
             ))}
           </select>
@@ -182,14 +182,14 @@ export function PlanForm({
           {state.message && <p className="font-semibold text-fault">{state.message}</p>}
           {!state.message && <p className="font-semibold text-fault">Nothing was planned: fix these and try again.</p>}
           <ul className="mt-1 space-y-0.5 font-mono text-xs">
-            {state.errors?.map((e, i) => (
-              <li key={`r${i}`}>
-                row {e.row} · {e.field}: {e.message}
+            {state.errors?.map((message, index) => (
+              <li key={`r${index}`}>
+                row {message.row} · {message.field}: {message.message}
               </li>
             ))}
-            {state.fields?.map((e, i) => (
-              <li key={`f${i}`}>
-                {e.field}: {e.message}
+            {state.fields?.map((field, index) => (
+              <li key={`f${index}`}>
+                {field.field}: {field.message}
               </li>
             ))}
           </ul>

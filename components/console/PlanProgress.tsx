@@ -61,8 +61,11 @@ export function PlanProgress({ id, initial, canCancel }: { id: string; initial: 
       </section>
     );
   }
-  const p = state.progress;
-  const share = p && p.piecesWanted > 0 ? Math.min(100, Math.round((100 * p.piecesPlaced) / p.piecesWanted)) : 0;
+  const progress = state.progress;
+  const share =
+    progress && progress.piecesWanted > 0
+      ? Math.min(100, Math.round((100 * progress.piecesPlaced) / progress.piecesWanted))
+      : 0;
   return (
     <section
       data-testid="plan-progress"
@@ -80,8 +83,8 @@ export function PlanProgress({ id, initial, canCancel }: { id: string; initial: 
         <div className="h-full bg-edge transition-all" style={{ width: `${share}%` }} />
       </div>
       <p className="text-ink-muted">
-        {p
-          ? `${p.patterns} sheet pattern${p.patterns === 1 ? "" : "s"} found · ${p.piecesPlaced} of ${p.piecesWanted} pieces placed`
+        {progress
+          ? `${progress.patterns} sheet pattern${progress.patterns === 1 ? "" : "s"} found · ${progress.piecesPlaced} of ${progress.piecesWanted} pieces placed`
           : "No pattern yet."}
         {state.attempts > 1 ? ` · attempt ${state.attempts} (a worker was lost and another took the plan over)` : ""}
       </p>

@@ -62,10 +62,10 @@ export function ProgramActions({
           className="space-y-2"
         >
           <input type="hidden" name="id" value={id} />
-          {warnings.map((w) => (
-            <label key={w.code} className="flex items-start gap-2 text-sm">
-              <input type="checkbox" name="acknowledge" value={w.code} required className="mt-1" />{" "}
-              <span>I have read this warning: {w.message}</span>
+          {warnings.map((warning) => (
+            <label key={warning.code} className="flex items-start gap-2 text-sm">
+              <input type="checkbox" name="acknowledge" value={warning.code} required className="mt-1" />{" "}
+              <span>I have read this warning: {warning.message}</span>
             </label>
           ))}
           <button

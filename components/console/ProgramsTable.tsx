@@ -19,9 +19,9 @@ const col = createColumnHelper<Row>();
 const columns = [
   col.accessor("reference", {
     header: "Reference",
-    cell: (c) => (
-      <Link className="font-mono text-edge hover:underline" href={`/console/programs/${c.row.original.id}`}>
-        {c.getValue()}
+    cell: (cell) => (
+      <Link className="font-mono text-edge hover:underline" href={`/console/programs/${cell.row.original.id}`}>
+        {cell.getValue()}
       </Link>
     ),
   }),

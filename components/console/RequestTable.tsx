@@ -25,10 +25,10 @@ export function RequestTable({ query, keyNames }: { query: string; keyNames: Rec
     col.accessor("path", { header: "Path", cell: (c) => mono(c.getValue()) }),
     col.accessor("status", {
       header: "Status",
-      cell: (c) => (
+      cell: (cell) => (
         <Badge
-          value={c.getValue() < 300 ? "succeeded" : c.getValue() < 500 ? "warning" : "error"}
-          label={String(c.getValue())}
+          value={cell.getValue() < 300 ? "succeeded" : cell.getValue() < 500 ? "warning" : "error"}
+          label={String(cell.getValue())}
         />
       ),
     }),
@@ -39,9 +39,9 @@ export function RequestTable({ query, keyNames }: { query: string; keyNames: Rec
     }),
     col.accessor("id", {
       header: "Request id",
-      cell: (c) => (
-        <Link className="font-mono text-xs text-edge hover:underline" href={`/console/logs/${c.getValue()}`}>
-          {c.getValue()}
+      cell: (cell) => (
+        <Link className="font-mono text-xs text-edge hover:underline" href={`/console/logs/${cell.getValue()}`}>
+          {cell.getValue()}
         </Link>
       ),
     }),

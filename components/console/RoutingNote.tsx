@@ -15,16 +15,16 @@ export function RoutingNote({ routing }: { routing: RoutingT }) {
         No shear was named, so every active shear was checked and the shop&apos;s rule chose {RULE_WORDS[routing.rule]}.
       </p>
       <Table head={["Shear", "Can cut", "Capacity used", "Released waiting", "Not chosen because"]}>
-        {routing.shears.map((s) => (
-          <tr key={s.shear}>
+        {routing.shears.map((shear) => (
+          <tr key={shear.shear}>
             <Td>
-              {s.name}
-              {s.shear === routing.chosen ? " (chosen)" : ""}
+              {shear.name}
+              {shear.shear === routing.chosen ? " (chosen)" : ""}
             </Td>
-            <Td>{s.canCut ? "yes" : "no"}</Td>
-            <Td mono>{s.capacityUsedPct === null ? "—" : `${s.capacityUsedPct} %`}</Td>
-            <Td mono>{s.releasedPrograms}</Td>
-            <Td className="text-xs">{s.reason ?? "—"}</Td>
+            <Td>{shear.canCut ? "yes" : "no"}</Td>
+            <Td mono>{shear.capacityUsedPct === null ? "—" : `${shear.capacityUsedPct} %`}</Td>
+            <Td mono>{shear.releasedPrograms}</Td>
+            <Td className="text-xs">{shear.reason ?? "—"}</Td>
           </tr>
         ))}
       </Table>

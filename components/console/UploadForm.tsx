@@ -39,9 +39,9 @@ export function UploadForm() {
         >
           <p className="font-semibold text-fault">Nothing was imported: fix these rows and upload the file again.</p>
           <ul className="mt-2 space-y-0.5 font-mono text-xs">
-            {state.errors.map((e, i) => (
-              <li key={i}>
-                row {e.row} · {e.field}: {e.message}
+            {state.errors.map((message, index) => (
+              <li key={index}>
+                row {message.row} · {message.field}: {message.message}
               </li>
             ))}
           </ul>
@@ -53,12 +53,12 @@ export function UploadForm() {
             {state.created.length} draft program{state.created.length === 1 ? "" : "s"} created.
           </p>
           <ul className="mt-1">
-            {state.created.map((p) => (
-              <li key={p.id}>
-                <Link className="underline" href={`/console/programs/${p.id}`}>
-                  {p.reference}
+            {state.created.map((program) => (
+              <li key={program.id}>
+                <Link className="underline" href={`/console/programs/${program.id}`}>
+                  {program.reference}
                 </Link>{" "}
-                · check {p.validation}
+                · check {program.validation}
               </li>
             ))}
           </ul>

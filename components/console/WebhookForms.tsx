@@ -50,11 +50,17 @@ function EventTypeBoxes({
   return (
     <fieldset className="grid gap-1">
       <legend className="mb-1">Events (none ticked = every event)</legend>
-      {types.map((t) => (
-        <label key={t} className="flex items-start gap-1.5 text-xs">
-          <input type="checkbox" name="eventTypes" value={t} defaultChecked={chosen.includes(t)} className="mt-0.5" />
+      {types.map((eventType) => (
+        <label key={eventType} className="flex items-start gap-1.5 text-xs">
+          <input
+            type="checkbox"
+            name="eventTypes"
+            value={eventType}
+            defaultChecked={chosen.includes(eventType)}
+            className="mt-0.5"
+          />
           <span>
-            <span className="font-mono">{t}</span> <span className="text-ink-muted">· {words[t]}</span>
+            <span className="font-mono">{eventType}</span> <span className="text-ink-muted">· {words[eventType]}</span>
           </span>
         </label>
       ))}
@@ -169,8 +175,8 @@ function EndpointButton({
     <div>
       <form onSubmit={form.onSubmit}>
         <input type="hidden" name="id" value={id} />
-        {Object.entries(extra).map(([k, v]) => (
-          <input key={k} type="hidden" name={k} value={v} />
+        {Object.entries(extra).map(([field, value]) => (
+          <input key={field} type="hidden" name={field} value={value} />
         ))}
         <button disabled={form.pending} className="rounded border border-scale-300 px-2 py-1 text-xs hover:border-ink">
           {children}

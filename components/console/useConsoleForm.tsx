@@ -61,7 +61,10 @@ export function ActionMessage({
   const formErrors = result.validationErrors?.formErrors ?? [];
   const fieldErrors = {
     ...Object.fromEntries(
-      Object.entries(result.validationErrors?.fieldErrors ?? {}).map(([k, v]) => [k, v?.[0] ?? ""]),
+      Object.entries(result.validationErrors?.fieldErrors ?? {}).map(([field, messages]) => [
+        field,
+        messages?.[0] ?? "",
+      ]),
     ),
     ...(problem?.fieldErrors ?? {}),
   };

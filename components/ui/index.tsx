@@ -50,9 +50,9 @@ export function Table({ head, children, empty }: { head: string[]; children: Rea
       <table className="w-full text-left text-sm">
         <thead className="border-b border-scale-200 bg-scale-50 text-[11px] uppercase tracking-wide text-ink-muted">
           <tr>
-            {head.map((h) => (
-              <th key={h} className="px-3 py-2 font-medium">
-                {h}
+            {head.map((heading) => (
+              <th key={heading} className="px-3 py-2 font-medium">
+                {heading}
               </th>
             ))}
           </tr>
@@ -78,5 +78,5 @@ export function Stat({ label, value, hint }: { label: string; value: ReactNode; 
   );
 }
 
-export const when = (d: Date | string | null | undefined) =>
-  d ? new Date(d).toISOString().replace("T", " ").slice(0, 19) + " UTC" : "—";
+export const when = (moment: Date | string | null | undefined) =>
+  moment ? new Date(moment).toISOString().replace("T", " ").slice(0, 19) + " UTC" : "—";

@@ -46,15 +46,15 @@ const COMMON_HEADERS = {
 
 /** The error statuses an operation can answer, from what it declares. */
 export function errorStatuses(op: Operation): number[] {
-  const s = new Set<number>(op.errors ?? []);
-  s.add(500);
-  if (op.scope) [401, 403, 429].forEach((c) => s.add(c));
-  if (op.params || op.query || op.body) s.add(422);
-  if (op.params && "id" in op.params.shape) s.add(404);
-  if (op.body) [400, 413, 415].forEach((c) => s.add(c));
-  if (op.method === "post" && op.scope) [409, 422].forEach((c) => s.add(c));
-  if (op.ifMatch) [412, 428].forEach((c) => s.add(c));
-  return [...s].sort((a, b) => a - b);
+  const codes = new Set<number>(op.errors ?? []);
+  codes.add(500);
+  if (op.scope) [401, 403, 429].forEach((c) => codes.add(c));
+  if (op.params || op.query || op.body) codes.add(422);
+  if (op.params && "id" in op.params.shape) codes.add(404);
+  if (op.body) [400, 413, 415].forEach((c) => codes.add(c));
+  if (op.method === "post" && op.scope) [409, 422].forEach((c) => codes.add(c));
+  if (op.ifMatch) [412, 428].forEach((c) => codes.add(c));
+  return [...codes].sort((a, b) => a - b);
 }
 
 const ERROR_NAMES: Record<number, string> = {

@@ -17,12 +17,17 @@ export function defaultLimitPerMinute(): number {
 /** One limiter per budget size (keys share Redis counters by key id). */
 function limiter(points: number): RateLimiterRedis {
   const limiters = (holder.__shearwireLimiters ??= new Map());
-  let l = limiters.get(points);
-  if (!l) {
-    l = new RateLimiterRedis({ storeClient: getRedis(), keyPrefix: `shearwire:rl:${points}`, points, duration: 60 });
-    limiters.set(points, l);
+  let cached = limiters.get(points);
+  if (!cached) {
+    cached = new RateLimiterRedis({
+      storeClient: getRedis(),
+      keyPrefix: `shearwire:rl:${points}`,
+      points,
+      duration: 60,
+    });
+    limiters.set(points, cached);
   }
-  return l;
+  return cached;
 }
 
 function headers(res: RateLimiterRes, points: number): Record<string, string> {
@@ -40,9 +45,9 @@ export async function consume(keyId: string, perMinute: number | null = null): P
     return headers(await limiter(points).consume(keyId, 1), points);
   } catch (err) {
     if (err instanceof RateLimiterRes) {
-      const e = tooManyRequests(Math.max(1, Math.ceil(err.msBeforeNext / 1000)));
-      Object.assign(e.headers, headers(err, points));
-      throw e;
+      const apiError = tooManyRequests(Math.max(1, Math.ceil(err.msBeforeNext / 1000)));
+      Object.assign(apiError.headers, headers(err, points));
+      throw apiError;
     }
     throw err;
   }

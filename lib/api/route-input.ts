@@ -10,10 +10,10 @@ export type Location = "body" | "query" | "path" | "header";
 const escapePointer = (s: string | number | symbol) => String(s).replace(/~/g, "~0").replace(/\//g, "~1");
 
 export function zodErrors(location: Location, error: z.ZodError) {
-  return error.issues.map((i) => ({
+  return error.issues.map((issue) => ({
     location,
-    pointer: i.path.length ? `/${i.path.map(escapePointer).join("/")}` : "",
-    message: i.message,
+    pointer: issue.path.length ? `/${issue.path.map(escapePointer).join("/")}` : "",
+    message: issue.message,
   }));
 }
 
@@ -83,9 +83,9 @@ export async function readBody(request: Request, limit = MAX_BODY_BYTES): Promis
 
 export function queryObject(url: URL): Record<string, string | string[]> {
   const out: Record<string, string | string[]> = {};
-  for (const [k, v] of url.searchParams) {
-    const prev = out[k];
-    out[k] = prev === undefined ? v : Array.isArray(prev) ? [...prev, v] : [prev, v];
+  for (const [key, value] of url.searchParams) {
+    const prev = out[key];
+    out[key] = prev === undefined ? value : Array.isArray(prev) ? [...prev, value] : [prev, value];
   }
   return out;
 }

@@ -49,10 +49,11 @@ type RouteContext = { params: Promise<Record<string, string | string[]>> };
  * string-to-USV pass a string body would get is not needed.
  */
 function json(status: number, body: unknown, headers: Record<string, string>, problem = false): Response {
-  const h = new Headers(headers);
-  if (body !== undefined) h.set("Content-Type", problem ? "application/problem+json" : "application/json");
+  const responseHeaders = new Headers(headers);
+  if (body !== undefined)
+    responseHeaders.set("Content-Type", problem ? "application/problem+json" : "application/json");
   const text = body === undefined || status === 204 ? undefined : stringify(body);
-  return new Response(text === undefined ? null : Buffer.from(text, "utf8"), { status, headers: h });
+  return new Response(text === undefined ? null : Buffer.from(text, "utf8"), { status, headers: responseHeaders });
 }
 
 /** One request's state as it goes through the steps. */
@@ -143,8 +144,13 @@ async function reserveIdempotency(
     idempotency.fingerprint(call.method, path, rawBody),
   );
   if (claim.kind === "replay") {
-    const r = claim.response;
-    return json(r.status, r.body, { ...r.headers, ...call.headers, "Idempotent-Replayed": "true" }, r.status >= 400);
+    const storedResponse = claim.response;
+    return json(
+      storedResponse.status,
+      storedResponse.body,
+      { ...storedResponse.headers, ...call.headers, "Idempotent-Replayed": "true" },
+      storedResponse.status >= 400,
+    );
   }
   call.reserved = true;
   return null;

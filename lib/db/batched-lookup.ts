@@ -9,7 +9,7 @@ export function batchedLookup<K, V>(
   load: (keys: K[]) => Promise<Map<K, V>>,
   { inFlight = 2, maxKeys = 500 } = {},
 ): (key: K) => Promise<V | undefined> {
-  type Waiter = { resolve: (v: V | undefined) => void; reject: (e: unknown) => void };
+  type Waiter = { resolve: (value: V | undefined) => void; reject: (reason: unknown) => void };
   let waiting = new Map<K, Waiter[]>();
   let running = 0;
 

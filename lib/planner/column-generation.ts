@@ -197,7 +197,8 @@ interface Prices {
 
 /** Prices a share `weight` of the way from `current` to `center` (dual smoothing, after Wentges). */
 function mix(center: Prices, current: Prices, weight: number): Prices {
-  const blend = (a: Float64Array, b: Float64Array) => a.map((value, index) => weight * value + (1 - weight) * b[index]);
+  const blend = (towards: Float64Array, from: Float64Array) =>
+    towards.map((value, index) => weight * value + (1 - weight) * from[index]);
   return {
     blankPrice: blend(center.blankPrice, current.blankPrice),
     stockPrice: blend(center.stockPrice, current.stockPrice),

@@ -109,7 +109,7 @@ export async function planOrder(
       strips: compressStrips(
         pattern.strips.map((strip) => ({
           y: fromGrid(strip.y),
-          height: fromGrid(strip.width), // the API has called a strip's width across the sheet its height from the start
+          width: fromGrid(strip.width),
           pieces: strip.pieces.map((piece) => ({
             blank: piece.blank,
             label: order.blanks[piece.blank].label,

@@ -51,7 +51,8 @@ export interface PieceRun {
 
 export interface PlannedStrip {
   y: number;
-  height: number;
+  /** toward the backgauge */
+  width: number;
   repeat: number;
   pieces: PieceRun[];
 }
@@ -62,7 +63,7 @@ type PlacedPiece = Omit<PieceRun, "count">;
  * Strips as runs, so a stored plan grows with its patterns, not its pieces: pieces of one blank
  * side by side along the blade become one run, and identical strips one after another one strip.
  */
-export function compressStrips(strips: { y: number; height: number; pieces: PlacedPiece[] }[]): PlannedStrip[] {
+export function compressStrips(strips: { y: number; width: number; pieces: PlacedPiece[] }[]): PlannedStrip[] {
   const runs = (pieces: PlacedPiece[]) => {
     const out: PieceRun[] = [];
     for (const piece of [...pieces].sort((a, b) => a.x - b.x || a.y - b.y)) {
@@ -81,9 +82,9 @@ export function compressStrips(strips: { y: number; height: number; pieces: Plac
     return out;
   };
   // Two strips are alike when their runs are, each relative to the strip's own edge.
-  const shape = (strip: { y: number; height: number; pieces: PieceRun[] }) =>
+  const shape = (strip: { y: number; width: number; pieces: PieceRun[] }) =>
     JSON.stringify([
-      strip.height,
+      strip.width,
       strip.pieces.map((r) => [r.blank, r.turned, r.x, r.y - strip.y, r.length, r.width, r.count]),
     ]);
   const out: (PlannedStrip & { key: string })[] = [];
@@ -91,8 +92,8 @@ export function compressStrips(strips: { y: number; height: number; pieces: Plac
     const pieces = runs(strip.pieces);
     const key = shape({ ...strip, pieces });
     const last = out[out.length - 1];
-    if (last && last.key === key && Math.abs(last.y + last.repeat * last.height - strip.y) < 1e-9) last.repeat += 1;
-    else out.push({ y: strip.y, height: strip.height, repeat: 1, pieces, key });
+    if (last && last.key === key && Math.abs(last.y + last.repeat * last.width - strip.y) < 1e-9) last.repeat += 1;
+    else out.push({ y: strip.y, width: strip.width, repeat: 1, pieces, key });
   }
   return out.map(({ key: _key, ...strip }) => strip);
 }

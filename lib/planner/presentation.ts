@@ -72,10 +72,10 @@ export function present(
       // Grain follows the sheet: on a sheet presented the other way round, every blank is presented the other way round too.
       const these = rotated ? variants.map((v) => ({ ...v, length: v.width, width: v.length })) : variants;
       const fitting = these.filter(
-        (v) =>
-          v.length <= length &&
-          v.width <= maxStripWidth &&
-          (!limits || (v.length >= limits.backgaugeMin && v.width >= limits.backgaugeMin)),
+        (variant) =>
+          variant.length <= length &&
+          variant.width <= maxStripWidth &&
+          (!limits || (variant.length >= limits.backgaugeMin && variant.width >= limits.backgaugeMin)),
       );
       presentations.push({
         stock: index,

@@ -11,12 +11,12 @@ import type { Blank, Plan, PlanOptions, Stock } from "./types";
 const areaOf = (plan: Plan, stock: Stock[]) =>
   plan.patterns.reduce((sum, p) => sum + stock[p.stock].length * stock[p.stock].width * p.repeats, 0);
 
-function mergeReusable(a: Plan["reusable"], b: Plan["reusable"]): Plan["reusable"] {
+function mergeReusable(first: Plan["reusable"], second: Plan["reusable"]): Plan["reusable"] {
   const merged = new Map<string, Plan["reusable"][number]>();
-  for (const r of [...a, ...b]) {
-    const key = `${r.length}x${r.width}`;
+  for (const offcut of [...first, ...second]) {
+    const key = `${offcut.length}x${offcut.width}`;
     const had = merged.get(key);
-    merged.set(key, had ? { ...had, count: had.count + r.count } : { ...r });
+    merged.set(key, had ? { ...had, count: had.count + offcut.count } : { ...offcut });
   }
   return [...merged.values()];
 }

@@ -12,9 +12,9 @@ export interface DeliveryJob {
 
 /** A Redis connection as BullMQ wants it (no per-request retry limit). */
 export function bullConnection(): Redis {
-  const r = new Redis(process.env.REDIS_URL ?? DEFAULT_REDIS_URL, { maxRetriesPerRequest: null });
-  r.on("error", () => undefined);
-  return r;
+  const redis = new Redis(process.env.REDIS_URL ?? DEFAULT_REDIS_URL, { maxRetriesPerRequest: null });
+  redis.on("error", () => undefined);
+  return redis;
 }
 
 const holder = globalThis as unknown as { __shearwireQueue?: Queue<DeliveryJob> };
@@ -58,7 +58,7 @@ export async function within<T>(work: Promise<T>, ms: number): Promise<T> {
 }
 
 export async function closeQueue() {
-  const q = holder.__shearwireQueue;
+  const queue = holder.__shearwireQueue;
   holder.__shearwireQueue = undefined;
-  await q?.close();
+  await queue?.close();
 }

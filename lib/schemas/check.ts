@@ -3,6 +3,7 @@
  * pointer into the request), the recommended setup with the reason for each value, the force
  * against the shear's rating, the yield and the cycle estimate.
  */
+import { VALIDATIONS } from "./enums";
 import { z } from "./zod";
 const Quantity = { value: z.number(), unit: z.string() };
 const SetupValue = z
@@ -40,7 +41,7 @@ const Totals = z.object({
 
 export const CheckSchema = z
   .object({
-    validation: z.enum(["pass", "warn", "fail"]),
+    validation: z.enum(VALIDATIONS),
     units: z.enum(["in", "mm"]).nullable(),
     findings: z.array(FindingSchema),
     thickness: z
@@ -142,8 +143,8 @@ export const CheckSchema = z
             }),
             x: z.number(),
             y: z.number(),
-            width: z.number().openapi({ description: "Extent along x (the sheet's length)" }),
-            height: z.number().openapi({ description: "Extent along y (the sheet's width, toward the backgauge)" }),
+            length: z.number().openapi({ description: "Extent along x (the sheet's length, along the blade)" }),
+            width: z.number().openapi({ description: "Extent along y (the sheet's width, toward the backgauge)" }),
           }),
         ),
         cuts: z.array(
@@ -162,7 +163,7 @@ export const CheckSchema = z
       .optional()
       .openapi("SheetLayout", {
         description:
-          "One sheet as it is cut, from the same piece flow as the yield: x along the sheet's length (the edge first presented to the blade), y along its width toward the backgauge, origin at the corner where the first strip is cut, in the program's units. Null when the program has no usable sheet or too many pieces to place; absent from checks stored before it was reported.",
+          "One sheet as it is cut, from the same piece flow as the yield: x along the sheet's length (the edge first presented to the blade), y along its width toward the backgauge, origin at the corner where the first strip is cut, in the program's units; a rectangle's `length` runs along x and its `width` along y, as the sheet's do. Null when the program has no usable sheet or too many pieces to place; absent from checks stored before it was reported.",
       }),
   })
   .openapi("Check", {

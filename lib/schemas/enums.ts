@@ -7,6 +7,10 @@ export const GRADE_FAMILIES = [
   "copper",
   "abrasion-resistant",
 ] as const;
+/** A plan is a job: queued → running → complete | failed | cancelled. */
+export const PLAN_STATUSES = ["queued", "running", "complete", "failed", "cancelled"] as const;
+/** What the shear core made of a program: no findings that matter, warnings to acknowledge, or errors. */
+export const VALIDATIONS = ["pass", "warn", "fail"] as const;
 export const GAUGE_FAMILIES = ["msg", "galvanized", "ussg", "awg"] as const;
 export const PROGRAM_STATUSES = [
   "draft",
@@ -18,6 +22,8 @@ export const PROGRAM_STATUSES = [
   "cancelled",
 ] as const;
 export type ProgramStatus = (typeof PROGRAM_STATUSES)[number];
+export const isProgramStatus = (value: unknown): value is ProgramStatus =>
+  (PROGRAM_STATUSES as readonly unknown[]).includes(value);
 export const ROLES = ["owner", "admin", "developer", "viewer"] as const;
 export type Role = (typeof ROLES)[number];
 export const PLAN_OBJECTIVES = ["fewest_sheets", "least_waste", "fewest_strokes"] as const;
@@ -65,6 +71,7 @@ export const EVENT_TYPES = [
   "endpoint.test",
 ] as const;
 export type EventType = (typeof EVENT_TYPES)[number];
+export const isEventType = (value: unknown): value is EventType => (EVENT_TYPES as readonly unknown[]).includes(value);
 
 /** What each event says, in a sentence (the console and the reference's webhook descriptions use these). */
 export const EVENT_TYPE_WORDS: Record<EventType, string> = {

@@ -2,13 +2,13 @@
 import { GAUGE_FAMILIES, GRADE_FAMILIES } from "./enums";
 import { z } from "./zod";
 
-const mpa = (d: string) =>
+const mpa = (description: string) =>
   z
     .number()
     .positive()
     .max(3000)
     .nullable()
-    .openapi({ description: `${d} (MPa)` });
+    .openapi({ description: `${description} (MPa)` });
 
 const GradeFields = z.object({
   code: z
@@ -52,8 +52,8 @@ const GradeFields = z.object({
 });
 
 const needsTensile = <T extends z.ZodType<Partial<z.infer<typeof GradeFields>>>>(schema: T) =>
-  schema.superRefine((g, ctx) => {
-    if (g.tensileMinMpa == null && g.tensileTypicalMpa == null && "tensileMinMpa" in g) {
+  schema.superRefine((grade, ctx) => {
+    if (grade.tensileMinMpa == null && grade.tensileTypicalMpa == null && "tensileMinMpa" in grade) {
       ctx.addIssue({ code: "custom", path: ["tensileMinMpa"], message: "give tensileMinMpa or tensileTypicalMpa" });
     }
   });

@@ -44,10 +44,10 @@ export const PlanPatternSchema = z
       .array(
         z.object({
           y: z.number(),
-          height: z.number(),
+          width: z.number().openapi({ description: "The strip's width, toward the backgauge" }),
           repeat: z.number().int().min(1).openapi({
             description:
-              "Identical strips one after another (each `height` further on); a plan's size follows its patterns, not its pieces",
+              "Identical strips one after another (each `width` further on); a plan's size follows its patterns, not its pieces",
           }),
           pieces: z.array(Piece),
         }),
@@ -98,7 +98,6 @@ export const PlanFindingSchema = z
   })
   .openapi("PlanFinding");
 
-export const PLAN_STATUSES = ["queued", "running", "complete", "failed", "cancelled"] as const;
 export const PLAN_FAILURES = ["time_limit", "worker_lost", "out_of_memory", "error"] as const;
 
 export const PlanSummaryFiguresSchema = z

@@ -5,16 +5,17 @@
  */
 import { jobFields, ProgramSchema, ThicknessSchema } from "./program";
 import { RoutingSchema } from "./settings";
-import { PLAN_FAILURES, PLAN_STATUSES, PlanResultSchema, PlanSummaryFiguresSchema } from "./plan-result";
+import { PLAN_FAILURES, PlanResultSchema, PlanSummaryFiguresSchema } from "./plan-result";
+import { PLAN_STATUSES } from "./enums";
 import { PLAN_OBJECTIVES } from "./enums";
 import { z } from "./zod";
 
-const length = (d: string) =>
+const length = (description: string) =>
   z
     .number()
     .positive()
     .max(100_000)
-    .openapi({ description: `${d}, in the plan's units` });
+    .openapi({ description: `${description}, in the plan's units` });
 
 export { PLAN_OBJECTIVES };
 

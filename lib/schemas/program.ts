@@ -9,12 +9,12 @@ import { RoutingSchema } from "./settings";
 import { PROGRAM_STATUSES } from "./enums";
 import { z } from "./zod";
 
-const length = (d: string) =>
+const length = (description: string) =>
   z
     .number()
     .positive()
     .max(100_000)
-    .openapi({ description: `${d}, in the program's units` });
+    .openapi({ description: `${description}, in the program's units` });
 
 export const CutGroupInputSchema = z
   .object({

@@ -1,18 +1,18 @@
 /** The shear resource: a machine's capacity profile. Millimetres, MPa, degrees, seconds. */
 import { z } from "./zod";
 
-const mm = (d: string) =>
+const mm = (description: string) =>
   z
     .number()
     .positive()
     .max(100_000)
-    .openapi({ description: `${d} (mm)` });
-const deg = (d: string) =>
+    .openapi({ description: `${description} (mm)` });
+const deg = (description: string) =>
   z
     .number()
     .min(0)
     .max(45)
-    .openapi({ description: `${d} (degrees)` });
+    .openapi({ description: `${description} (degrees)` });
 
 const ShearFields = z.object({
   name: z.string().trim().min(1).max(100).openapi({ example: "Bay 1 sheet shear" }),
@@ -62,14 +62,18 @@ const ShearFields = z.object({
 });
 
 function ranges<T extends z.ZodType<Partial<z.infer<typeof ShearFields>>>>(schema: T) {
-  return schema.superRefine((s, ctx) => {
-    const pairs: [keyof typeof s, keyof typeof s][] = [
+  return schema.superRefine((shear, ctx) => {
+    const pairs: [keyof typeof shear, keyof typeof shear][] = [
       ["backgaugeMinMm", "backgaugeMaxMm"],
       ["rakeMinDeg", "rakeMaxDeg"],
       ["gapMinMm", "gapMaxMm"],
     ];
     for (const [lo, hi] of pairs) {
-      if (typeof s[lo] === "number" && typeof s[hi] === "number" && (s[lo] as number) > (s[hi] as number)) {
+      if (
+        typeof shear[lo] === "number" &&
+        typeof shear[hi] === "number" &&
+        (shear[lo] as number) > (shear[hi] as number)
+      ) {
         ctx.addIssue({ code: "custom", path: [lo as string], message: `must not exceed ${String(hi)}` });
       }
     }

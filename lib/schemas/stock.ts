@@ -6,12 +6,12 @@
 import { RESERVATION_STATUSES, STOCK_KINDS } from "./enums";
 import { z } from "./zod";
 
-const mm = (d: string) =>
+const mm = (description: string) =>
   z
     .number()
     .positive()
     .max(100_000)
-    .openapi({ description: `${d}, mm` });
+    .openapi({ description: `${description}, mm` });
 const text = (max: number) => z.string().trim().min(1).max(max);
 
 export const StockItemInputSchema = z

@@ -60,8 +60,8 @@ function remnantsOf(check: CheckT, sheetsUsed: number, minMm: number) {
   const y = check.yield;
   if (!y || !y.sheets) return [];
   for (const piece of y.offcuts) {
-    const [a, b] = [lengthToMm(piece.length, y.lengthUnit), lengthToMm(piece.width, y.lengthUnit)];
-    const [lengthMm, widthMm] = [roundTo(Math.max(a, b), 2), roundTo(Math.min(a, b), 2)];
+    const [alongMm, acrossMm] = [lengthToMm(piece.length, y.lengthUnit), lengthToMm(piece.width, y.lengthUnit)];
+    const [lengthMm, widthMm] = [roundTo(Math.max(alongMm, acrossMm), 2), roundTo(Math.min(alongMm, acrossMm), 2)];
     const quantity = Math.floor(piece.count / y.sheets) * sheetsUsed;
     if (widthMm < minMm || quantity <= 0) continue;
     const key = `${lengthMm}x${widthMm}`;
@@ -84,7 +84,7 @@ export async function bookRun(
 ) {
   await consume(tx, shopId, program, sheetsUsed);
   const shop = await tx.findOneOrFail(Shop, { id: shopId }, { fields: ["remnantMinMm"] });
-  const check = program.check as CheckT;
+  const check = program.check;
   if (!remnants || !shop.remnantMinMm || !check.thickness) return;
   const thicknessMm = roundTo(lengthToMm(check.thickness.value, check.thickness.unit), 3);
   const run = `${program.id} run ended ${(program.finishedAt ?? new Date()).toISOString()}`;

@@ -20,43 +20,43 @@ export interface ListOptions {
 
 // ---------------------------------------------------------------- shears
 
-export function viewShear(s: ShearEntity): ShearT {
+export function viewShear(shear: ShearEntity): ShearT {
   return {
-    id: s.id,
-    name: s.name,
-    description: s.description ?? null,
-    ratedThicknessMm: s.ratedThicknessMm,
-    ratedTensileMpa: s.ratedTensileMpa,
-    ratedRakeDeg: s.ratedRakeDeg,
-    bladeLengthMm: s.bladeLengthMm,
-    backgaugeMinMm: s.backgaugeMinMm,
-    backgaugeMaxMm: s.backgaugeMaxMm,
-    rakeMinDeg: s.rakeMinDeg,
-    rakeMaxDeg: s.rakeMaxDeg,
-    gapMinMm: s.gapMinMm,
-    gapMaxMm: s.gapMaxMm,
-    strokesPerMin: s.strokesPerMin,
-    backgaugeSpeedMmPerS: s.backgaugeSpeedMmPerS,
-    handlingSecondsPerTurn: s.handlingSecondsPerTurn,
-    handlingSecondsPerSheet: s.handlingSecondsPerSheet,
-    maxBladeHardnessHb: s.maxBladeHardnessHb ?? null,
-    gradeThicknessLimitsMm: s.gradeThicknessLimitsMm ?? {},
-    crownAtRatedMm: s.crownAtRatedMm ?? null,
-    crownBaselineMm: s.crownBaselineMm ?? null,
-    backgaugeRepeatabilityMm: s.backgaugeRepeatabilityMm ?? null,
-    archivedAt: iso(s.archivedAt),
-    createdAt: s.createdAt.toISOString(),
-    updatedAt: s.updatedAt.toISOString(),
+    id: shear.id,
+    name: shear.name,
+    description: shear.description ?? null,
+    ratedThicknessMm: shear.ratedThicknessMm,
+    ratedTensileMpa: shear.ratedTensileMpa,
+    ratedRakeDeg: shear.ratedRakeDeg,
+    bladeLengthMm: shear.bladeLengthMm,
+    backgaugeMinMm: shear.backgaugeMinMm,
+    backgaugeMaxMm: shear.backgaugeMaxMm,
+    rakeMinDeg: shear.rakeMinDeg,
+    rakeMaxDeg: shear.rakeMaxDeg,
+    gapMinMm: shear.gapMinMm,
+    gapMaxMm: shear.gapMaxMm,
+    strokesPerMin: shear.strokesPerMin,
+    backgaugeSpeedMmPerS: shear.backgaugeSpeedMmPerS,
+    handlingSecondsPerTurn: shear.handlingSecondsPerTurn,
+    handlingSecondsPerSheet: shear.handlingSecondsPerSheet,
+    maxBladeHardnessHb: shear.maxBladeHardnessHb ?? null,
+    gradeThicknessLimitsMm: shear.gradeThicknessLimitsMm ?? {},
+    crownAtRatedMm: shear.crownAtRatedMm ?? null,
+    crownBaselineMm: shear.crownBaselineMm ?? null,
+    backgaugeRepeatabilityMm: shear.backgaugeRepeatabilityMm ?? null,
+    archivedAt: iso(shear.archivedAt),
+    createdAt: shear.createdAt.toISOString(),
+    updatedAt: shear.updatedAt.toISOString(),
   };
 }
 
-export function shearProfile(s: ShearEntity): ShearProfile {
-  const { archivedAt: _a, createdAt: _c, updatedAt: _u, description: _d, ...profile } = viewShear(s);
+export function shearProfile(shear: ShearEntity): ShearProfile {
+  const { archivedAt: _a, createdAt: _c, updatedAt: _u, description: _d, ...profile } = viewShear(shear);
   return {
     ...profile,
-    crownAtRatedMm: s.crownAtRatedMm ?? undefined,
-    crownBaselineMm: s.crownBaselineMm ?? undefined,
-    backgaugeRepeatabilityMm: s.backgaugeRepeatabilityMm ?? undefined,
+    crownAtRatedMm: shear.crownAtRatedMm ?? undefined,
+    crownBaselineMm: shear.crownBaselineMm ?? undefined,
+    backgaugeRepeatabilityMm: shear.backgaugeRepeatabilityMm ?? undefined,
   };
 }
 
@@ -66,9 +66,12 @@ export async function findShear(em: EntityManager, shopId: string, id: string): 
   return shear;
 }
 
-export async function listShears(em: EntityManager, shopId: string, o: ListOptions) {
-  const where: FilterQuery<ShearEntity> = { shop: shopId, ...(o.includeArchived ? {} : { archivedAt: null }) };
-  return findPage(em, Shear, where, o, viewShear, { order: "asc" });
+export async function listShears(em: EntityManager, shopId: string, listOptions: ListOptions) {
+  const where: FilterQuery<ShearEntity> = {
+    shop: shopId,
+    ...(listOptions.includeArchived ? {} : { archivedAt: null }),
+  };
+  return findPage(em, Shear, where, listOptions, viewShear, { order: "asc" });
 }
 
 async function uniqueShearName(em: EntityManager, shopId: string, name: string, exceptId?: string) {
@@ -76,14 +79,14 @@ async function uniqueShearName(em: EntityManager, shopId: string, name: string, 
   if (other) throw conflict(`A shear named "${name}" already exists in this shop.`, { existingId: other.id });
 }
 
-function checkRanges(s: ShearEntity) {
+function checkRanges(shear: ShearEntity) {
   for (const [lo, hi] of [
     ["backgaugeMinMm", "backgaugeMaxMm"],
     ["rakeMinDeg", "rakeMaxDeg"],
     ["gapMinMm", "gapMaxMm"],
   ] as const) {
-    if (s[lo] > s[hi]) {
-      const message = `must not exceed ${hi} (${s[hi]})`;
+    if (shear[lo] > shear[hi]) {
+      const message = `must not exceed ${hi} (${shear[hi]})`;
       throw invalidRequest(`${lo} ${message}.`, [{ location: "body", pointer: `/${lo}`, message }]);
     }
   }
@@ -123,44 +126,44 @@ export async function archiveShear(em: EntityManager, shopId: string, id: string
 
 // ---------------------------------------------------------------- grades
 
-export function viewGrade(g: GradeEntity): GradeT {
+export function viewGrade(grade: GradeEntity): GradeT {
   return {
-    id: g.id,
-    code: g.code,
-    name: g.name,
-    family: g.family,
-    standard: g.standard,
-    yieldMpa: g.yieldMpa ?? null,
-    tensileMinMpa: g.tensileMinMpa ?? null,
-    tensileTypicalMpa: g.tensileTypicalMpa ?? null,
-    tensileMaxMpa: g.tensileMaxMpa ?? null,
-    valuesAreTypical: g.valuesAreTypical,
-    shearTensileRatio: g.shearTensileRatio,
-    gaugeFamily: g.gaugeFamily ?? null,
-    hardnessHb: g.hardnessHb ?? null,
-    note: g.note ?? null,
-    archivedAt: iso(g.archivedAt),
-    createdAt: g.createdAt.toISOString(),
-    updatedAt: g.updatedAt.toISOString(),
+    id: grade.id,
+    code: grade.code,
+    name: grade.name,
+    family: grade.family,
+    standard: grade.standard,
+    yieldMpa: grade.yieldMpa ?? null,
+    tensileMinMpa: grade.tensileMinMpa ?? null,
+    tensileTypicalMpa: grade.tensileTypicalMpa ?? null,
+    tensileMaxMpa: grade.tensileMaxMpa ?? null,
+    valuesAreTypical: grade.valuesAreTypical,
+    shearTensileRatio: grade.shearTensileRatio,
+    gaugeFamily: grade.gaugeFamily ?? null,
+    hardnessHb: grade.hardnessHb ?? null,
+    note: grade.note ?? null,
+    archivedAt: iso(grade.archivedAt),
+    createdAt: grade.createdAt.toISOString(),
+    updatedAt: grade.updatedAt.toISOString(),
   };
 }
 
-export function gradeProfile(g: GradeEntity): GradeProfile {
-  const v = viewGrade(g);
+export function gradeProfile(grade: GradeEntity): GradeProfile {
+  const view = viewGrade(grade);
   return {
-    code: v.code,
-    name: v.name,
-    family: v.family,
-    standard: v.standard,
-    yieldMpa: v.yieldMpa,
-    tensileMinMpa: v.tensileMinMpa,
-    tensileTypicalMpa: v.tensileTypicalMpa,
-    tensileMaxMpa: v.tensileMaxMpa,
-    valuesAreTypical: v.valuesAreTypical,
-    shearTensileRatio: v.shearTensileRatio,
-    gaugeFamily: v.gaugeFamily,
-    hardnessHb: v.hardnessHb,
-    note: v.note ?? undefined,
+    code: view.code,
+    name: view.name,
+    family: view.family,
+    standard: view.standard,
+    yieldMpa: view.yieldMpa,
+    tensileMinMpa: view.tensileMinMpa,
+    tensileTypicalMpa: view.tensileTypicalMpa,
+    tensileMaxMpa: view.tensileMaxMpa,
+    valuesAreTypical: view.valuesAreTypical,
+    shearTensileRatio: view.shearTensileRatio,
+    gaugeFamily: view.gaugeFamily,
+    hardnessHb: view.hardnessHb,
+    note: view.note ?? undefined,
   };
 }
 
@@ -175,13 +178,13 @@ export async function gradeByCode(em: EntityManager, shopId: string, code: strin
   return em.findOne(Grade, { shop: shopId, code, archivedAt: null });
 }
 
-export async function listGrades(em: EntityManager, shopId: string, o: ListOptions & { family?: string }) {
+export async function listGrades(em: EntityManager, shopId: string, options: ListOptions & { family?: string }) {
   const where: FilterQuery<GradeEntity> = {
     shop: shopId,
-    ...(o.includeArchived ? {} : { archivedAt: null }),
-    ...(o.family ? { family: o.family as GradeEntity["family"] } : {}),
+    ...(options.includeArchived ? {} : { archivedAt: null }),
+    ...(options.family ? { family: options.family as GradeEntity["family"] } : {}),
   };
-  return findPage(em, Grade, where, o, viewGrade, { order: "asc" });
+  return findPage(em, Grade, where, options, viewGrade, { order: "asc" });
 }
 
 export async function createGrade(em: EntityManager, shopId: string, input: GradeInputT): Promise<GradeT> {

@@ -46,23 +46,23 @@ export async function sweepExpiredLeases(
     );
     const returned: string[] = [];
     for (const { id } of rows) {
-      const p = await tx.findOneOrFail(Program, { id }, { populate: ["shop"] });
-      const from = p.status;
-      const gateway = p.claimedBy;
-      const expiredAt = p.leaseExpiresAt;
-      p.status = "released";
-      p.claimedBy = null;
-      p.leaseExpiresAt = null;
-      p.leaseExpiries = (p.leaseExpiries ?? 0) + 1;
+      const program = await tx.findOneOrFail(Program, { id }, { populate: ["shop"] });
+      const from = program.status;
+      const gateway = program.claimedBy;
+      const expiredAt = program.leaseExpiresAt;
+      program.status = "released";
+      program.claimedBy = null;
+      program.leaseExpiresAt = null;
+      program.leaseExpiries = (program.leaseExpiries ?? 0) + 1;
       await tx.flush();
-      await announceRelease(tx, p.shear.id);
-      await recordEvent(tx, p.shop.id, "program.lease_expired", p.id, {
-        program: viewProgram(p),
+      await announceRelease(tx, program.shear.id);
+      await recordEvent(tx, program.shop.id, "program.lease_expired", program.id, {
+        program: viewProgram(program),
         from,
         gateway: gateway ?? "unknown",
         reason: `No heartbeat from gateway key ${gateway} before the lease ran out at ${expiredAt?.toISOString()}; the program is released again.`,
       });
-      returned.push(p.id);
+      returned.push(program.id);
     }
     return returned;
   });
@@ -87,9 +87,9 @@ async function claimOnce(
       [principal.keyId, leaseUntil(leaseSeconds), principal.shopId, shearId],
     );
     if (!rows.length) return null;
-    const p = await tx.findOneOrFail(Program, { id: rows[0].id });
-    const view = viewProgram(p);
-    await recordEvent(tx, principal.shopId, "program.claimed", p.id, {
+    const program = await tx.findOneOrFail(Program, { id: rows[0].id });
+    const view = viewProgram(program);
+    await recordEvent(tx, principal.shopId, "program.claimed", program.id, {
       program: view,
       from: "released",
       gateway: principal.keyId,
@@ -194,9 +194,9 @@ export async function progress(
     program,
     "running",
     "program.progressed",
-    (p) => {
-      p.progress = counts;
-      p.leaseExpiresAt = leaseUntil(leaseSeconds ?? DEFAULT_LEASE_SECONDS);
+    (row) => {
+      row.progress = counts;
+      row.leaseExpiresAt = leaseUntil(leaseSeconds ?? DEFAULT_LEASE_SECONDS);
     },
     { progress: counts },
   );
@@ -225,10 +225,10 @@ export async function complete(
     program,
     "completed",
     "program.completed",
-    (p) => {
-      p.finishedAt = new Date();
-      p.leaseExpiresAt = null;
-      p.outcome = { result: "completed", ...report };
+    (row) => {
+      row.finishedAt = new Date();
+      row.leaseExpiresAt = null;
+      row.outcome = { result: "completed", ...report };
     },
     { outcome: report },
     (tx, p) => bookRun(tx, principal.shopId, p, report.sheetsUsed ?? totals.sheets, true),
@@ -258,10 +258,10 @@ export async function fail(
     program,
     "failed",
     "program.failed",
-    (p) => {
-      p.finishedAt = new Date();
-      p.leaseExpiresAt = null;
-      p.outcome = { result: "failed", ...report };
+    (row) => {
+      row.finishedAt = new Date();
+      row.leaseExpiresAt = null;
+      row.outcome = { result: "failed", ...report };
     },
     { outcome: report },
     (tx, p) => bookRun(tx, principal.shopId, p, report.sheetsUsed ?? 0, false),

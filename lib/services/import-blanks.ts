@@ -38,18 +38,18 @@ export function parseBlanksCsv(content: string): { blanks: Record<string, unknow
     };
   }
   const errors: RowError[] = [];
-  const blanks = records.map((r, i) => {
+  const blanks = records.map((row, index) => {
     for (const col of ["length", "width", "quantity"]) {
-      if (!Number.isFinite(Number(r[col])) || text(r[col]) === undefined)
-        errors.push({ row: i + 2, field: col, message: `"${r[col] ?? ""}" is not a number` });
+      if (!Number.isFinite(Number(row[col])) || text(row[col]) === undefined)
+        errors.push({ row: index + 2, field: col, message: `"${row[col] ?? ""}" is not a number` });
     }
     return JSON.parse(
       JSON.stringify({
-        label: text(r.label),
-        length: num(r.length),
-        width: num(r.width),
-        quantity: num(r.quantity),
-        canTurn: bool(r.can_turn),
+        label: text(row.label),
+        length: num(row.length),
+        width: num(row.width),
+        quantity: num(row.quantity),
+        canTurn: bool(row.can_turn),
       }),
     ) as Record<string, unknown>;
   });

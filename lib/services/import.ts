@@ -44,8 +44,8 @@ interface Parsed {
 }
 
 export const num = (v: string | undefined) => (v === undefined || v.trim() === "" ? undefined : Number(v));
-export const bool = (v: string | undefined) =>
-  v === undefined || v.trim() === "" ? undefined : ["1", "true", "yes", "y"].includes(v.trim().toLowerCase());
+export const bool = (raw: string | undefined) =>
+  raw === undefined || raw.trim() === "" ? undefined : ["1", "true", "yes", "y"].includes(raw.trim().toLowerCase());
 export const text = (v: string | undefined) => (v === undefined || v.trim() === "" ? undefined : v.trim());
 
 export function parseCsv(content: string): Parsed {
@@ -82,47 +82,47 @@ export function parseCsv(content: string): Parsed {
     "length",
     "priority",
   ];
-  records.forEach((r, i) => {
-    const line = i + 2;
+  records.forEach((row, index) => {
+    const line = index + 2;
     for (const col of NUMERIC) {
-      if (text(r[col]) !== undefined && !Number.isFinite(Number(r[col])))
-        errors.push({ row: line, field: col, message: `"${r[col]}" is not a number` });
+      if (text(row[col]) !== undefined && !Number.isFinite(Number(row[col])))
+        errors.push({ row: line, field: col, message: `"${row[col]}" is not a number` });
     }
-    const ref = text(r.reference);
+    const ref = text(row.reference);
     if (!ref) {
       errors.push({ row: line, field: "reference", message: "every row needs the program's reference" });
       return;
     }
-    let p = byRef.get(ref);
-    if (!p) {
-      const thickness = num(r.gauge) !== undefined ? { gauge: num(r.gauge) } : { value: num(r.thickness) };
-      p = {
+    let entry = byRef.get(ref);
+    if (!entry) {
+      const thickness = num(row.gauge) !== undefined ? { gauge: num(row.gauge) } : { value: num(row.thickness) };
+      entry = {
         rows: [],
         input: {
           reference: ref,
-          title: text(r.title),
-          shear: text(r.shear),
-          grade: text(r.grade),
+          title: text(row.title),
+          shear: text(row.shear),
+          grade: text(row.grade),
           thickness,
-          units: text(r.units),
-          sheet: { length: num(r.sheet_length), width: num(r.sheet_width), count: num(r.sheet_count) ?? 1 },
+          units: text(row.units),
+          sheet: { length: num(row.sheet_length), width: num(row.sheet_width), count: num(row.sheet_count) ?? 1 },
           cuts: [],
-          priority: num(r.priority),
-          dueAt: text(r.due_at),
+          priority: num(row.priority),
+          dueAt: text(row.due_at),
         },
       };
-      byRef.set(ref, p);
+      byRef.set(ref, entry);
     }
-    p.rows.push(line);
-    (p.input.cuts as unknown[]).push(
+    entry.rows.push(line);
+    (entry.input.cuts as unknown[]).push(
       JSON.parse(
         JSON.stringify({
-          backgauge: num(r.backgauge),
-          count: num(r.count),
-          length: num(r.length),
-          turn: bool(r.turn),
-          scrap: bool(r.scrap),
-          note: text(r.note),
+          backgauge: num(row.backgauge),
+          count: num(row.count),
+          length: num(row.length),
+          turn: bool(row.turn),
+          scrap: bool(row.scrap),
+          note: text(row.note),
         }),
       ),
     );
@@ -152,18 +152,18 @@ export async function resolveShearNames(em: EntityManager, shopId: string, parse
   const shears = await em.find(Shear, { shop: shopId, archivedAt: null }, { fields: ["name"] });
   const byName = new Map(shears.map((s) => [s.name.trim().toLowerCase(), s.id]));
   const errors: RowError[] = [];
-  const programs = parsed.programs.map((p) => {
-    const input = p.input as Record<string, unknown> | null;
+  const programs = parsed.programs.map((program) => {
+    const input = program.input as Record<string, unknown> | null;
     const shear = typeof input?.shear === "string" ? input.shear.trim() : null;
-    if (!input || !shear || /^shr_[0-9A-Z]{26}$/.test(shear)) return p;
+    if (!input || !shear || /^shr_[0-9A-Z]{26}$/.test(shear)) return program;
     const id = byName.get(shear.toLowerCase());
     if (!id)
       errors.push({
-        row: p.rows[0],
+        row: program.rows[0],
         field: "shear",
         message: `no shear in use is named "${shear}" (names: ${shears.map((s) => s.name).join(", ") || "none yet"})`,
       });
-    return { ...p, input: { ...input, shear: id ?? shear } };
+    return { ...program, input: { ...input, shear: id ?? shear } };
   });
   return { programs, errors: [...parsed.errors, ...errors] };
 }
@@ -206,13 +206,13 @@ export function validate(parsed: Parsed): { inputs: ProgramInputT[]; errors: Row
   const errors = [...parsed.errors];
   const inputs: ProgramInputT[] = [];
   const seen = new Set<string>();
-  for (const p of parsed.programs) {
-    const result = ProgramInputSchema.safeParse(p.input);
+  for (const program of parsed.programs) {
+    const result = ProgramInputSchema.safeParse(program.input);
     if (!result.success) {
       for (const issue of result.error.issues) {
         const cut = issue.path[0] === "cuts" && typeof issue.path[1] === "number" ? issue.path[1] : null;
         errors.push({
-          row: cut !== null ? (p.rows[cut] ?? p.rows[0]) : p.rows[0],
+          row: cut !== null ? (program.rows[cut] ?? program.rows[0]) : program.rows[0],
           field: issue.path.join(".") || "program",
           message: issue.message,
         });
@@ -220,7 +220,11 @@ export function validate(parsed: Parsed): { inputs: ProgramInputT[]; errors: Row
       continue;
     }
     if (seen.has(result.data.reference))
-      errors.push({ row: p.rows[0], field: "reference", message: `reference ${result.data.reference} appears twice` });
+      errors.push({
+        row: program.rows[0],
+        field: "reference",
+        message: `reference ${result.data.reference} appears twice`,
+      });
     seen.add(result.data.reference);
     inputs.push(result.data);
   }
@@ -232,7 +236,7 @@ export async function importPrograms(
   em: EntityManager,
   shopId: string,
   inputs: ProgramInputT[],
-  rowsOf: (i: number) => number,
+  rowsOf: (rowIndex: number) => number,
 ) {
   try {
     const created = await createBatch(em, shopId, inputs);
@@ -243,11 +247,12 @@ export async function importPrograms(
   } catch (err) {
     const failures = err instanceof ApiError ? (err.extensions.failures as ProblemBody[] | undefined) : undefined;
     if (!failures) throw err;
-    const errors: RowError[] = failures.map((f) => ({
-      row: rowsOf(f.index as number),
+    const errors: RowError[] = failures.map((failure) => ({
+      row: rowsOf(failure.index as number),
       field:
-        (f.errors as { pointer: string }[] | undefined)?.[0]?.pointer.replace(/^\/programs\/\d+\//, "") ?? "program",
-      message: f.detail.replace(/^Program \d+: /, ""),
+        (failure.errors as { pointer: string }[] | undefined)?.[0]?.pointer.replace(/^\/programs\/\d+\//, "") ??
+        "program",
+      message: failure.detail.replace(/^Program \d+: /, ""),
     }));
     return { created: [], errors };
   }

@@ -41,19 +41,19 @@ export interface NewKey {
 
 const digest = (secret: string) => createHash("sha256").update(secret).digest("hex");
 
-export function viewKey(k: ApiKeyEntity): ApiKeyView {
+export function viewKey(apiKey: ApiKeyEntity): ApiKeyView {
   return {
-    id: k.id,
-    name: k.name,
-    prefix: k.prefix,
-    scopes: k.scopes,
-    shearIds: k.shearIds,
-    expiresAt: k.expiresAt?.toISOString() ?? null,
-    rateLimitPerMin: k.rateLimitPerMin ?? null,
-    revokedAt: k.revokedAt?.toISOString() ?? null,
-    lastUsedAt: k.lastUsedAt?.toISOString() ?? null,
-    createdBy: k.createdBy ?? null,
-    createdAt: k.createdAt.toISOString(),
+    id: apiKey.id,
+    name: apiKey.name,
+    prefix: apiKey.prefix,
+    scopes: apiKey.scopes,
+    shearIds: apiKey.shearIds,
+    expiresAt: apiKey.expiresAt?.toISOString() ?? null,
+    rateLimitPerMin: apiKey.rateLimitPerMin ?? null,
+    revokedAt: apiKey.revokedAt?.toISOString() ?? null,
+    lastUsedAt: apiKey.lastUsedAt?.toISOString() ?? null,
+    createdBy: apiKey.createdBy ?? null,
+    createdAt: apiKey.createdAt.toISOString(),
   };
 }
 

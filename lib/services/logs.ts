@@ -15,17 +15,24 @@ export interface LogFilter {
   cursor?: string;
 }
 
-export async function listRequests(em: EntityManager, shopId: string, f: LogFilter) {
-  const cls = f.statusClass ? Number(f.statusClass[0]) * 100 : null;
+export async function listRequests(em: EntityManager, shopId: string, logFilter: LogFilter) {
+  const cls = logFilter.statusClass ? Number(logFilter.statusClass[0]) * 100 : null;
   const where: FilterQuery<InferEntity<typeof RequestLog>> = {
     shopId,
-    ...(f.id ? { id: f.id } : {}),
-    ...(f.keyId ? { keyId: f.keyId } : {}),
-    ...(f.route ? { route: f.route } : {}),
+    ...(logFilter.id ? { id: logFilter.id } : {}),
+    ...(logFilter.keyId ? { keyId: logFilter.keyId } : {}),
+    ...(logFilter.route ? { route: logFilter.route } : {}),
     ...(cls ? { status: { $gte: cls, $lt: cls + 100 } } : {}),
-    ...(f.from || f.to ? { createdAt: { ...(f.from ? { $gte: f.from } : {}), ...(f.to ? { $lte: f.to } : {}) } } : {}),
+    ...(logFilter.from || logFilter.to
+      ? {
+          createdAt: {
+            ...(logFilter.from ? { $gte: logFilter.from } : {}),
+            ...(logFilter.to ? { $lte: logFilter.to } : {}),
+          },
+        }
+      : {}),
   };
-  return findPage(em, RequestLog, where, f, (row) => row);
+  return findPage(em, RequestLog, where, logFilter, (row) => row);
 }
 
 /** One logged request, with the name of the key that made it. */

@@ -32,11 +32,11 @@ function byShopAnd(column: string, keys: string[]): [string, string[]] {
  */
 function lookups(em: EntityManager): Lookups {
   const connection = em.getConnection();
-  let l = shared.get(connection);
-  if (l) return l;
+  let readers = shared.get(connection);
+  if (readers) return readers;
   const rows = async (sql: string, bindings: string[]) =>
     (await connection.getKnex().raw<{ rows: Record<string, unknown>[] }>(sql, bindings)).rows;
-  l = {
+  readers = {
     shear: batchedLookup(async (keys) => {
       const [where, bindings] = byShopAnd("id", keys);
       const fork = em.fork();
@@ -57,8 +57,8 @@ function lookups(em: EntityManager): Lookups {
       return new Map(found.map((p) => [`${p.shop_id as string}${SEP}${p.reference as string}`, p.id as string]));
     }),
   };
-  shared.set(connection, l);
-  return l;
+  shared.set(connection, readers);
+  return readers;
 }
 
 async function each<V>(lookup: Lookup<V>, shopId: string, keys: string[]): Promise<Map<string, V>> {

@@ -62,8 +62,8 @@ export async function overview(em: EntityManager, shopId: string) {
 function lastHour(counts: { minute: string; n: number }[]) {
   const byMinute = new Map(counts.map((c) => [c.minute, c.n]));
   const now = Math.floor(Date.now() / 60_000) * 60_000;
-  return Array.from({ length: 60 }, (_, i) => {
-    const minute = new Date(now - (59 - i) * 60_000).toISOString();
+  return Array.from({ length: 60 }, (_, index) => {
+    const minute = new Date(now - (59 - index) * 60_000).toISOString();
     return { minute, n: byMinute.get(minute) ?? 0 };
   });
 }

@@ -61,13 +61,13 @@ export async function drawStock(
       (a.id < b.id ? -1 : 1),
   );
   const usable = items
-    .map((s) => ({
-      length: inUnits(s.lengthMm, input.units),
-      width: inUnits(s.widthMm, input.units),
-      count: s.quantity - s.reserved,
-      label: [s.kind === "remnant" ? "remnant" : "sheet", s.location].filter(Boolean).join(" · "),
-      remnant: s.kind === "remnant",
-      item: s.id,
+    .map((item) => ({
+      length: inUnits(item.lengthMm, input.units),
+      width: inUnits(item.widthMm, input.units),
+      count: item.quantity - item.reserved,
+      label: [item.kind === "remnant" ? "remnant" : "sheet", item.location].filter(Boolean).join(" · "),
+      remnant: item.kind === "remnant",
+      item: item.id,
     }))
     .filter((r) => r.length > 0 && r.width > 0);
   const rows = keepWithinLimit(usable);

@@ -21,23 +21,23 @@ export function refusal(err: OrderRefused) {
 /** A pattern whose program a cut program may not hold (too many groups, say) cannot be written: say so. */
 function releasabilityFindings(order: PlanOrderT, planned: PlannedOrder): PlanResultT["findings"] {
   const findings: PlanResultT["findings"] = [];
-  planned.patterns.forEach((p, i) => {
+  planned.patterns.forEach((pattern, index) => {
     const valid = ProgramInputSchema.safeParse({
-      reference: `plan/${p.key}`,
+      reference: `plan/${pattern.key}`,
       shear: order.shear,
       grade: order.grade,
       thickness: order.thickness,
       units: order.units,
-      sheet: { ...p.sheet, count: p.repeats },
-      cuts: p.cuts,
+      sheet: { ...pattern.sheet, count: pattern.repeats },
+      cuts: pattern.cuts,
     });
     if (!valid.success) {
       findings.push({
         code: "pattern_not_releasable",
         severity: "warning",
-        pointer: `/patterns/${i}`,
+        pointer: `/patterns/${index}`,
         actual: null,
-        message: `Pattern ${p.key}'s program is outside what a cut program may hold (${valid.error.issues[0].path.join(".")}: ${valid.error.issues[0].message}); it cannot be written.`,
+        message: `Pattern ${pattern.key}'s program is outside what a cut program may hold (${valid.error.issues[0].path.join(".")}: ${valid.error.issues[0].message}); it cannot be written.`,
       });
     }
   });
@@ -59,51 +59,50 @@ const NO_BOUNDS = {
 };
 
 /** Results stored before strips and pieces were kept as runs read as runs of one; before bounds, as proving nothing. */
-function normalised(result: Record<string, unknown> | null | undefined): PlanResultT | null {
-  if (!result) return null;
-  const r = result as unknown as PlanResultT;
+function normalised(stored: PlanResultT | null | undefined): PlanResultT | null {
+  if (!stored) return null;
   return {
-    ...r,
-    summary: { ...NO_BOUNDS, ...r.summary },
-    patterns: r.patterns.map((p) => ({
-      ...p,
-      strips: p.strips.map((s) => ({
-        ...s,
-        repeat: s.repeat ?? 1,
-        pieces: s.pieces.map((piece) => ({ ...piece, count: piece.count ?? 1 })),
+    ...stored,
+    summary: { ...NO_BOUNDS, ...stored.summary },
+    patterns: stored.patterns.map((pattern) => ({
+      ...pattern,
+      strips: pattern.strips.map((strip) => ({
+        ...strip,
+        repeat: strip.repeat ?? 1,
+        pieces: strip.pieces.map((piece) => ({ ...piece, count: piece.count ?? 1 })),
       })),
     })),
   };
 }
 
-function common(p: PlanEntity) {
-  const input = p.input;
+function common(plan: PlanEntity) {
+  const input = plan.input;
   return {
-    id: p.id,
-    status: p.status as PlanT["status"],
-    reference: p.reference ?? null,
-    title: p.title ?? null,
-    shear: p.shear.id,
-    routing: p.routing ?? null,
+    id: plan.id,
+    status: plan.status,
+    reference: plan.reference ?? null,
+    title: plan.title ?? null,
+    shear: plan.shear.id,
+    routing: plan.routing ?? null,
     grade: input.grade,
     thickness: input.thickness,
     units: input.units,
-    progress: p.progress ?? null,
-    failure: (p.failure as PlanT["failure"]) ?? null,
-    attempts: p.attempts,
-    programs: p.programs ?? [],
-    createdAt: p.createdAt.toISOString(),
-    startedAt: iso(p.startedAt),
-    finishedAt: iso(p.finishedAt),
+    progress: plan.progress ?? null,
+    failure: plan.failure ?? null,
+    attempts: plan.attempts,
+    programs: plan.programs ?? [],
+    createdAt: plan.createdAt.toISOString(),
+    startedAt: iso(plan.startedAt),
+    finishedAt: iso(plan.finishedAt),
   };
 }
 
-export function viewPlan(p: PlanEntity): PlanT {
-  return { ...common(p), result: normalised(p.result) };
+export function viewPlan(plan: PlanEntity): PlanT {
+  return { ...common(plan), result: normalised(plan.result) };
 }
 
 /** A plan without its patterns, for lists and events. */
-export function viewPlanSummary(p: PlanEntity): PlanSummaryT {
-  const result = p.result as { coverage?: PlanResultT["coverage"]; summary?: PlanResultT["summary"] } | null;
-  return { ...common(p), coverage: result?.coverage ?? null, summary: result?.summary ?? null };
+export function viewPlanSummary(plan: PlanEntity): PlanSummaryT {
+  const result = plan.result as { coverage?: PlanResultT["coverage"]; summary?: PlanResultT["summary"] } | null;
+  return { ...common(plan), coverage: result?.coverage ?? null, summary: result?.summary ?? null };
 }

@@ -120,14 +120,14 @@ export async function waitForPlan(em: EntityManager, shopId: string, id: string,
 export async function listPlans(
   em: EntityManager,
   shopId: string,
-  f: { limit: number; cursor?: string; search?: string },
+  filter: { limit: number; cursor?: string; search?: string },
 ) {
-  const like = f.search ? containing(f.search) : null;
+  const like = filter.search ? containing(filter.search) : null;
   const where = {
     shop: shopId,
     ...(like ? { $or: [{ reference: { $ilike: like } }, { title: { $ilike: like } }] } : {}),
   };
-  return findPage(em, Plan, where, f, viewPlanSummary);
+  return findPage(em, Plan, where, filter, viewPlanSummary);
 }
 
 /** Stop a queued or running plan; a worker computing it stops at once. */
@@ -209,11 +209,11 @@ export async function writePrograms(
     // One writer at a time per plan: a second request waits here, then finds the programs written.
     const row = await tx.findOneOrFail(Plan, { id: plan.id }, { lockMode: LockMode.PESSIMISTIC_WRITE, refresh: true });
     if (row.programs?.length) throw conflict("This plan's programs are already written.", { programs: row.programs });
-    const inputs = result.patterns.map((p): ProgramInputT => {
+    const inputs = result.patterns.map((pattern): ProgramInputT => {
       const input: ProgramInputT = {
-        reference: `${prefix}/${p.key}`,
+        reference: `${prefix}/${pattern.key}`,
         title:
-          `${view.title ?? view.reference ?? "Plan"}: pattern ${p.key}, ${p.repeats} sheet${p.repeats > 1 ? "s" : ""}`.slice(
+          `${view.title ?? view.reference ?? "Plan"}: pattern ${pattern.key}, ${pattern.repeats} sheet${pattern.repeats > 1 ? "s" : ""}`.slice(
             0,
             200,
           ),
@@ -221,17 +221,17 @@ export async function writePrograms(
         grade: view.grade,
         thickness: view.thickness,
         units: view.units,
-        sheet: { length: p.sheet.length, width: p.sheet.width, count: p.repeats },
-        cuts: p.cuts,
+        sheet: { length: pattern.sheet.length, width: pattern.sheet.width, count: pattern.repeats },
+        cuts: pattern.cuts,
         ...(opts.priority !== undefined ? { priority: opts.priority } : {}),
         ...(opts.dueAt ? { dueAt: opts.dueAt } : {}),
-        metadata: { ...(opts.metadata ?? {}), plan: plan.id, pattern: p.key },
+        metadata: { ...(opts.metadata ?? {}), plan: plan.id, pattern: pattern.key },
       };
       const valid = ProgramInputSchema.safeParse(input);
       if (!valid.success)
         throw conflict(
-          `Pattern ${p.key} cannot be written as a cut program: ${valid.error.issues[0].path.join(".")}: ${valid.error.issues[0].message}.`,
-          { pattern: p.key },
+          `Pattern ${pattern.key} cannot be written as a cut program: ${valid.error.issues[0].path.join(".")}: ${valid.error.issues[0].message}.`,
+          { pattern: pattern.key },
         );
       return valid.data;
     });
@@ -244,8 +244,8 @@ export async function writePrograms(
       throw err;
     });
     // Each pattern's sheets are held for its program, in the same transaction: all or nothing.
-    for (const [i, program] of written.entries())
-      await reservePattern(tx, shopId, row.input, result.patterns[i], program.id);
+    for (const [index, program] of written.entries())
+      await reservePattern(tx, shopId, row.input, result.patterns[index], program.id);
     row.programs = written.map((w, i) => ({ pattern: result.patterns[i].key, id: w.id }));
     await tx.flush();
     return { plan: plan.id, data: written };

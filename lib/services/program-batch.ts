@@ -39,10 +39,10 @@ function readItems(items: unknown[]): (ProgramInputT | ApiError)[] {
   return items.map((item, index) => {
     const parsed = ProgramInputSchema.safeParse(item);
     if (!parsed.success) {
-      const errors = parsed.error.issues.map((i) => ({
+      const errors = parsed.error.issues.map((issue) => ({
         location: "body",
-        pointer: `/programs/${index}${i.path.map((p) => `/${String(p)}`).join("")}`,
-        message: i.message,
+        pointer: `/programs/${index}${issue.path.map((p) => `/${String(p)}`).join("")}`,
+        message: issue.message,
       }));
       return new ApiError(
         422,
@@ -74,9 +74,9 @@ async function checkItems(em: EntityManager, shopId: string, items: unknown[]): 
     shopId,
     valid.map((v) => v.input),
   );
-  valid.forEach((v, i) => {
-    const c = checked[i];
-    read[v.index] = c instanceof ApiError ? within(v.index, c) : (c as never);
+  valid.forEach((item, index) => {
+    const outcome = checked[index];
+    read[item.index] = outcome instanceof ApiError ? within(item.index, outcome) : (outcome as never);
   });
   return read as (Checked | ApiError)[];
 }
@@ -109,9 +109,9 @@ export async function createBatch(em: EntityManager, shopId: string, items: unkn
       shopId,
       (checked as Checked[]).map((c) => c.input.reference),
     );
-    const taken = (checked as Checked[]).flatMap((c, index) => {
-      const id = existing.get(c.input.reference);
-      return id ? [within(index, duplicateReference(c.input.reference, id))] : [];
+    const taken = (checked as Checked[]).flatMap((one, index) => {
+      const id = existing.get(one.input.reference);
+      return id ? [within(index, duplicateReference(one.input.reference, id))] : [];
     });
     throw batchRefusal(items.length, taken.length ? taken : [conflict("A reference was taken meanwhile; retry.")]);
   }
@@ -129,9 +129,9 @@ export async function createEach(em: EntityManager, shopId: string, items: unkno
         good.map((g) => g.c),
       );
       const programs = new Map(good.map((g, i) => [g.index, written[i]]));
-      return checked.map((c, index) =>
-        c instanceof ApiError
-          ? { index, status: c.status, problem: c.toProblem() as ProblemT }
+      return checked.map((outcome, index) =>
+        outcome instanceof ApiError
+          ? { index, status: outcome.status, problem: outcome.toProblem() as ProblemT }
           : { index, status: 201 as const, program: programs.get(index)! },
       );
     } catch (err) {
@@ -142,9 +142,9 @@ export async function createEach(em: EntityManager, shopId: string, items: unkno
         shopId,
         good.map((g) => g.c.input.reference),
       );
-      for (const g of good) {
-        const id = existing.get(g.c.input.reference);
-        if (id) checked[g.index] = within(g.index, duplicateReference(g.c.input.reference, id));
+      for (const item of good) {
+        const id = existing.get(item.c.input.reference);
+        if (id) checked[item.index] = within(item.index, duplicateReference(item.c.input.reference, id));
       }
     }
   }

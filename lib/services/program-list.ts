@@ -18,18 +18,23 @@ export interface ProgramFilter {
   updated_since?: string;
 }
 
-export async function listPrograms(em: EntityManager, shopId: string, f: ProgramFilter) {
+export async function listPrograms(em: EntityManager, shopId: string, programFilter: ProgramFilter) {
   const where: FilterQuery<ProgramEntity> = {
     shop: shopId,
-    ...(f.status ? { status: f.status } : {}),
-    ...(f.shear ? { shear: f.shear } : {}),
-    ...(f.reference ? { reference: f.reference } : {}),
-    ...(f.search
-      ? { $or: [{ reference: { $ilike: containing(f.search) } }, { title: { $ilike: containing(f.search) } }] }
+    ...(programFilter.status ? { status: programFilter.status } : {}),
+    ...(programFilter.shear ? { shear: programFilter.shear } : {}),
+    ...(programFilter.reference ? { reference: programFilter.reference } : {}),
+    ...(programFilter.search
+      ? {
+          $or: [
+            { reference: { $ilike: containing(programFilter.search) } },
+            { title: { $ilike: containing(programFilter.search) } },
+          ],
+        }
       : {}),
-    ...((f.updatedSince ?? f.updated_since)
-      ? { updatedAt: { $gte: new Date((f.updatedSince ?? f.updated_since)!) } }
+    ...((programFilter.updatedSince ?? programFilter.updated_since)
+      ? { updatedAt: { $gte: new Date((programFilter.updatedSince ?? programFilter.updated_since)!) } }
       : {}),
   };
-  return findPage(em, Program, where, f, viewProgram);
+  return findPage(em, Program, where, programFilter, viewProgram);
 }

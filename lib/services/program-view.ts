@@ -1,7 +1,6 @@
 /** How a stored program reads in the API, in events and in the console. */
 import { type ProgramEntity } from "../../entities";
-import type { ProgramInputT, ProgramT } from "../schemas/program";
-import type { CheckT } from "../schemas/check";
+import type { ProgramT } from "../schemas/program";
 
 /** What the view reads of a program: a stored one, or one about to be written. */
 export type ProgramRecord = Pick<
@@ -34,41 +33,41 @@ export type ProgramRecord = Pick<
   | "updatedAt"
 > & { shear: { id: string } };
 
-export function viewProgram(p: ProgramRecord): ProgramT {
-  const input = p.input as ProgramInputT;
+export function viewProgram(program: ProgramRecord): ProgramT {
+  const input = program.input;
   return {
-    id: p.id,
-    status: p.status,
-    revision: p.revision,
-    reference: p.reference,
-    title: p.title ?? null,
-    shear: p.shear.id,
-    routing: p.routing ?? null,
-    grade: p.gradeCode,
+    id: program.id,
+    status: program.status,
+    revision: program.revision,
+    reference: program.reference,
+    title: program.title ?? null,
+    shear: program.shear.id,
+    routing: program.routing ?? null,
+    grade: program.gradeCode,
     thickness: input.thickness,
     units: input.units,
     sheet: input.sheet,
     cuts: input.cuts,
     ...(input.setup ? { setup: input.setup } : {}),
-    priority: p.priority,
-    dueAt: p.dueAt?.toISOString() ?? null,
-    metadata: p.metadata ?? {},
-    validation: p.validation as ProgramT["validation"],
-    check: p.check as CheckT,
-    acknowledged: p.acknowledged ?? [],
-    releasedAt: p.releasedAt?.toISOString() ?? null,
-    cancelledAt: p.cancelledAt?.toISOString() ?? null,
+    priority: program.priority,
+    dueAt: program.dueAt?.toISOString() ?? null,
+    metadata: program.metadata ?? {},
+    validation: program.validation,
+    check: program.check,
+    acknowledged: program.acknowledged ?? [],
+    releasedAt: program.releasedAt?.toISOString() ?? null,
+    cancelledAt: program.cancelledAt?.toISOString() ?? null,
     run: {
-      claimedBy: p.claimedBy ?? null,
-      claimedAt: p.claimedAt?.toISOString() ?? null,
-      leaseExpiresAt: p.leaseExpiresAt?.toISOString() ?? null,
-      leaseExpiries: p.leaseExpiries ?? 0,
-      startedAt: p.startedAt?.toISOString() ?? null,
-      finishedAt: p.finishedAt?.toISOString() ?? null,
-      progress: p.progress ?? null,
-      outcome: p.outcome ?? null,
+      claimedBy: program.claimedBy ?? null,
+      claimedAt: program.claimedAt?.toISOString() ?? null,
+      leaseExpiresAt: program.leaseExpiresAt?.toISOString() ?? null,
+      leaseExpiries: program.leaseExpiries ?? 0,
+      startedAt: program.startedAt?.toISOString() ?? null,
+      finishedAt: program.finishedAt?.toISOString() ?? null,
+      progress: program.progress ?? null,
+      outcome: program.outcome ?? null,
     },
-    createdAt: p.createdAt.toISOString(),
-    updatedAt: p.updatedAt.toISOString(),
+    createdAt: program.createdAt.toISOString(),
+    updatedAt: program.updatedAt.toISOString(),
   };
 }

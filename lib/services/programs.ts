@@ -116,7 +116,7 @@ export async function updateProgram(
   const program = await findProgram(em, shopId, id);
   checkIfMatch(program, ifMatch);
   mustBe(program, ["draft"], "edited");
-  const input = { ...(program.input as ProgramInputT), ...patch } as ProgramInputT;
+  const input = { ...program.input, ...patch };
   if (patch.reference && patch.reference !== program.reference) {
     const existingId = await byReference(em, shopId, patch.reference);
     if (existingId) throw duplicateReference(patch.reference, existingId);
@@ -124,16 +124,19 @@ export async function updateProgram(
   const { shear, check } = await runCheck(em, shopId, input);
   try {
     return await em.transactional(async (tx) => {
-      const p = await tx.findOneOrFail(Program, { id });
-      if (p.revision !== program.revision)
-        throw preconditionFailed(`The program changed meanwhile (revision ${p.revision}); read it again and retry.`, {
-          currentRevision: p.revision,
-        });
-      p.shear = shear;
-      applyInput(p, input, check);
+      const current = await tx.findOneOrFail(Program, { id });
+      if (current.revision !== program.revision)
+        throw preconditionFailed(
+          `The program changed meanwhile (revision ${current.revision}); read it again and retry.`,
+          {
+            currentRevision: current.revision,
+          },
+        );
+      current.shear = shear;
+      applyInput(current, input, check);
       await tx.flush();
-      const view = viewProgram(p);
-      await recordEvent(tx, shopId, "program.updated", p.id, { program: view, changed: Object.keys(patch) });
+      const view = viewProgram(current);
+      await recordEvent(tx, shopId, "program.updated", current.id, { program: view, changed: Object.keys(patch) });
       return view;
     });
   } catch (err) {
@@ -154,7 +157,7 @@ export async function releaseProgram(
   const program = await findProgram(em, shopId, id);
   mustBe(program, ["draft"], "released");
   // Check again: the shear or grade may have changed since the program was stored.
-  const { check } = await runCheck(em, shopId, program.input as ProgramInputT);
+  const { check } = await runCheck(em, shopId, program.input);
   if (check.validation === "fail") {
     throw new ApiError(
       409,
@@ -182,11 +185,11 @@ export async function releaseProgram(
       },
     );
   }
-  return transition(em, shopId, program, "released", "program.released", (p) => {
-    p.validation = check.validation;
-    p.check = check;
-    p.acknowledged = warnings;
-    p.releasedAt = new Date();
+  return transition(em, shopId, program, "released", "program.released", (row) => {
+    row.validation = check.validation;
+    row.check = check;
+    row.acknowledged = warnings;
+    row.releasedAt = new Date();
   });
 }
 
@@ -219,26 +222,28 @@ export async function transition(
   program: ProgramEntity,
   to: ProgramStatus,
   type: EventType,
-  change: (p: ProgramEntity) => void,
+  change: (row: ProgramEntity) => void,
   extra: Record<string, unknown> = {},
   /** more to do in the same transaction (a cancelled program's stock goes back) */
-  also?: (tx: EntityManager, p: ProgramEntity) => Promise<unknown>,
+  also?: (tx: EntityManager, row: ProgramEntity) => Promise<unknown>,
 ): Promise<ProgramT> {
   const from = program.status;
   try {
     return await em.transactional(async (tx) => {
       // Only move from the state we read; a concurrent transition makes this one fail cleanly.
-      const p = await tx.findOneOrFail(Program, { id: program.id });
-      if (p.status !== from || p.revision !== program.revision) {
-        throw conflict(`The program changed meanwhile and is now ${p.status}.`, { currentStatus: p.status });
+      const current = await tx.findOneOrFail(Program, { id: program.id });
+      if (current.status !== from || current.revision !== program.revision) {
+        throw conflict(`The program changed meanwhile and is now ${current.status}.`, {
+          currentStatus: current.status,
+        });
       }
-      p.status = to;
-      change(p);
+      current.status = to;
+      change(current);
       await tx.flush();
-      if (to === "released") await announceRelease(tx, p.shear.id);
-      const view = viewProgram(p);
-      await recordEvent(tx, shopId, type, p.id, { program: view, from, ...extra });
-      await also?.(tx, p);
+      if (to === "released") await announceRelease(tx, current.shear.id);
+      const view = viewProgram(current);
+      await recordEvent(tx, shopId, type, current.id, { program: view, from, ...extra });
+      await also?.(tx, current);
       return view;
     });
   } catch (err) {

@@ -107,26 +107,26 @@ function rank(candidates: Candidate[], rule: RoutingRule): Candidate[] {
     .sort((x, y) => {
       if ((x.c.refusal === null) !== (y.c.refusal === null)) return x.c.refusal === null ? -1 : 1;
       for (const cmp of order) {
-        const d = cmp(x.c, y.c);
-        if (d !== 0) return d;
+        const difference = cmp(x.c, y.c);
+        if (difference !== 0) return difference;
       }
       return x.i - y.i;
     })
-    .map(({ c }) => c);
+    .map(({ c: candidate }) => candidate);
 }
 
-function reasonNotChosen(c: Candidate, chosen: Candidate | null, rule: RoutingRule): string {
-  if (c.refusal !== null) return c.refusal;
+function reasonNotChosen(candidate: Candidate, chosen: Candidate | null, rule: RoutingRule): string {
+  if (candidate.refusal !== null) return candidate.refusal;
   if (!chosen) return "";
   const pct = (x: number | null) => (x === null ? "an unknown share" : `${x} %`);
-  if (rule === "shortest_queue" && c.released !== chosen.released) {
-    return `${c.released} released programs are waiting for it; ${chosen.shear.name} has ${chosen.released}.`;
+  if (rule === "shortest_queue" && candidate.released !== chosen.released) {
+    return `${candidate.released} released programs are waiting for it; ${chosen.shear.name} has ${chosen.released}.`;
   }
-  if (c.capacity !== chosen.capacity) {
-    return `It would use ${pct(c.capacity)} of its capacity; ${chosen.shear.name} uses ${pct(chosen.capacity)}.`;
+  if (candidate.capacity !== chosen.capacity) {
+    return `It would use ${pct(candidate.capacity)} of its capacity; ${chosen.shear.name} uses ${pct(chosen.capacity)}.`;
   }
-  if (c.released !== chosen.released) {
-    return `Both use ${pct(c.capacity)} of their capacity, and ${c.released} released programs are waiting for it against ${chosen.released}.`;
+  if (candidate.released !== chosen.released) {
+    return `Both use ${pct(candidate.capacity)} of their capacity, and ${candidate.released} released programs are waiting for it against ${chosen.released}.`;
   }
   return `It ties with ${chosen.shear.name}, which comes first by name.`;
 }
@@ -136,13 +136,13 @@ function routingOf(ranked: Candidate[], rule: RoutingRule): RoutingT {
   return {
     rule,
     chosen: chosen?.shear.id ?? null,
-    shears: ranked.map((c) => ({
-      shear: c.shear.id,
-      name: c.shear.name,
-      canCut: c.refusal === null,
-      capacityUsedPct: c.capacity,
-      releasedPrograms: c.released,
-      reason: c === chosen ? null : reasonNotChosen(c, chosen, rule),
+    shears: ranked.map((candidate) => ({
+      shear: candidate.shear.id,
+      name: candidate.shear.name,
+      canCut: candidate.refusal === null,
+      capacityUsedPct: candidate.capacity,
+      releasedPrograms: candidate.released,
+      reason: candidate === chosen ? null : reasonNotChosen(candidate, chosen, rule),
     })),
   };
 }

@@ -21,10 +21,10 @@ type Limit = { field: string; value: number | undefined; max: number; what: stri
 export function withinProgram(limits: Limit[]) {
   const over = limits.filter((l) => l.value !== undefined && l.value > l.max);
   if (!over.length) return;
-  const errors = over.map((l) => ({
+  const errors = over.map((limit) => ({
     location: "body",
-    pointer: `/${l.field}`,
-    message: `is ${l.value}; the program has ${l.max} ${l.what}`,
+    pointer: `/${limit.field}`,
+    message: `is ${limit.value}; the program has ${limit.max} ${limit.what}`,
   }));
   throw invalidRequest(
     `The report claims more than the program makes: ${errors.map((e) => `${e.pointer} ${e.message}`).join("; ")}.`,
@@ -42,10 +42,10 @@ export function notBackwards(
   if (!last) return;
   const errors = (["groupsDone", "strokesDone", "piecesDone"] as const)
     .filter((k) => report[k] !== undefined && last[k] !== undefined && report[k]! < last[k]!)
-    .map((k) => ({
+    .map((field) => ({
       location: "body",
-      pointer: `/${k}`,
-      message: `is ${report[k]}, below the ${last[k]} reported before; progress only moves forward`,
+      pointer: `/${field}`,
+      message: `is ${report[field]}, below the ${last[field]} reported before; progress only moves forward`,
     }));
   if (errors.length)
     throw invalidRequest(

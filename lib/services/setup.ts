@@ -27,14 +27,14 @@ const DEFINITIONS: Record<GaugeFamily, string> = {
 export function gaugeTables(family?: GaugeFamily) {
   const families = family ? [family] : (Object.keys(GAUGE_FAMILY_NAMES) as GaugeFamily[]);
   return {
-    data: families.map((f) => ({
-      family: f,
-      name: GAUGE_FAMILY_NAMES[f],
-      definition: DEFINITIONS[f],
-      rows: gaugeTable(f).map((r) => ({
-        gauge: r.gauge,
-        in: roundTo(r.thicknessIn, 4),
-        mm: roundTo(r.thicknessMm, 3),
+    data: families.map((gaugeFamily) => ({
+      family: gaugeFamily,
+      name: GAUGE_FAMILY_NAMES[gaugeFamily],
+      definition: DEFINITIONS[gaugeFamily],
+      rows: gaugeTable(gaugeFamily).map((gaugeRow) => ({
+        gauge: gaugeRow.gauge,
+        in: roundTo(gaugeRow.thicknessIn, 4),
+        mm: roundTo(gaugeRow.thicknessMm, 3),
       })),
     })),
   };

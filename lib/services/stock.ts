@@ -21,37 +21,37 @@ import { recordEvent } from "./events";
 
 const iso = (d: Date | null | undefined) => d?.toISOString() ?? null;
 
-export function viewStockItem(s: StockItemEntity): StockItemT {
+export function viewStockItem(stockItem: StockItemEntity): StockItemT {
   return {
-    id: s.id,
-    kind: s.kind,
-    grade: s.gradeCode,
-    thicknessMm: s.thicknessMm,
-    lengthMm: s.lengthMm,
-    widthMm: s.widthMm,
-    quantity: s.quantity,
-    reserved: s.reserved,
-    available: s.quantity - s.reserved,
-    location: s.location ?? null,
-    note: s.note ?? null,
-    sourceProgram: s.sourceProgram ?? null,
-    sourceRun: s.sourceRun ?? null,
-    archivedAt: iso(s.archivedAt),
-    createdAt: s.createdAt.toISOString(),
-    updatedAt: s.updatedAt.toISOString(),
+    id: stockItem.id,
+    kind: stockItem.kind,
+    grade: stockItem.gradeCode,
+    thicknessMm: stockItem.thicknessMm,
+    lengthMm: stockItem.lengthMm,
+    widthMm: stockItem.widthMm,
+    quantity: stockItem.quantity,
+    reserved: stockItem.reserved,
+    available: stockItem.quantity - stockItem.reserved,
+    location: stockItem.location ?? null,
+    note: stockItem.note ?? null,
+    sourceProgram: stockItem.sourceProgram ?? null,
+    sourceRun: stockItem.sourceRun ?? null,
+    archivedAt: iso(stockItem.archivedAt),
+    createdAt: stockItem.createdAt.toISOString(),
+    updatedAt: stockItem.updatedAt.toISOString(),
   };
 }
 
-export function viewReservation(r: StockReservationEntity): StockReservationT {
+export function viewReservation(stockReservation: StockReservationEntity): StockReservationT {
   return {
-    id: r.id,
-    item: r.item.id,
-    quantity: r.quantity,
-    status: r.status,
-    program: r.program ?? null,
-    note: r.note ?? null,
-    createdAt: r.createdAt.toISOString(),
-    closedAt: iso(r.closedAt),
+    id: stockReservation.id,
+    item: stockReservation.item.id,
+    quantity: stockReservation.quantity,
+    status: stockReservation.status,
+    program: stockReservation.program ?? null,
+    note: stockReservation.note ?? null,
+    createdAt: stockReservation.createdAt.toISOString(),
+    closedAt: iso(stockReservation.closedAt),
   };
 }
 
@@ -68,7 +68,7 @@ export async function getStockItem(em: EntityManager, shopId: string, id: string
 export async function listStock(
   em: EntityManager,
   shopId: string,
-  q: {
+  query: {
     limit: number;
     cursor?: string;
     grade?: string;
@@ -79,12 +79,12 @@ export async function listStock(
 ) {
   const where: FilterQuery<StockItemEntity> = {
     shop: shopId,
-    ...(q.grade ? { gradeCode: { $ilike: q.grade.replace(/[\\%_]/g, (c) => `\\${c}`) } } : {}),
-    ...(q.thicknessMm !== undefined ? { thicknessMm: q.thicknessMm } : {}),
-    ...(q.kind ? { kind: q.kind } : {}),
-    ...(q.includeArchived === "true" ? {} : { archivedAt: null }),
+    ...(query.grade ? { gradeCode: { $ilike: query.grade.replace(/[\\%_]/g, (c) => `\\${c}`) } } : {}),
+    ...(query.thicknessMm !== undefined ? { thicknessMm: query.thicknessMm } : {}),
+    ...(query.kind ? { kind: query.kind } : {}),
+    ...(query.includeArchived === "true" ? {} : { archivedAt: null }),
   };
-  return findPage(em, StockItem, where, q, viewStockItem);
+  return findPage(em, StockItem, where, query, viewStockItem);
 }
 
 export async function createStockItem(em: EntityManager, shopId: string, input: StockItemInputT): Promise<StockItemT> {

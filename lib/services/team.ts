@@ -23,18 +23,18 @@ export async function listTeam(em: EntityManager, shopId: string) {
     { orderBy: { createdAt: "desc" } },
   );
   return {
-    members: members.map((m) => ({
-      id: m.id,
-      userId: m.user.id,
-      name: m.user.name,
-      email: m.user.email,
-      role: m.role,
+    members: members.map((member) => ({
+      id: member.id,
+      userId: member.user.id,
+      name: member.user.name,
+      email: member.user.email,
+      role: member.role,
     })),
-    invitations: invitations.map((i) => ({
-      id: i.id,
-      email: i.email,
-      role: i.role,
-      expiresAt: i.expiresAt.toISOString(),
+    invitations: invitations.map((invitation) => ({
+      id: invitation.id,
+      email: invitation.email,
+      role: invitation.role,
+      expiresAt: invitation.expiresAt.toISOString(),
     })),
   };
 }
@@ -111,23 +111,24 @@ async function owners(em: EntityManager, shopId: string) {
 }
 
 export async function changeRole(em: EntityManager, shopId: string, membershipId: string, role: Role) {
-  const m = await em.findOne(Membership, { id: membershipId, shop: shopId });
-  if (!m) throw notFound("member");
-  if (m.role === "owner" && role !== "owner" && (await owners(em, shopId)) <= 1)
+  const membership = await em.findOne(Membership, { id: membershipId, shop: shopId });
+  if (!membership) throw notFound("member");
+  if (membership.role === "owner" && role !== "owner" && (await owners(em, shopId)) <= 1)
     throw conflict("A shop keeps at least one owner: make someone else owner first.");
-  const changed = m.role !== role;
-  m.role = role;
+  const changed = membership.role !== role;
+  membership.role = role;
   await em.flush();
   // The person's sessions carried the old role: end them, so the new one applies from their next sign-in.
-  if (changed) await endUserSessions(em, m.user.id, "role-changed");
+  if (changed) await endUserSessions(em, membership.user.id, "role-changed");
 }
 
 export async function removeMember(em: EntityManager, shopId: string, membershipId: string) {
-  const m = await em.findOne(Membership, { id: membershipId, shop: shopId });
-  if (!m) throw notFound("member");
-  if (m.role === "owner" && (await owners(em, shopId)) <= 1) throw conflict("The last owner cannot be removed.");
-  const userId = m.user.id;
-  await em.remove(m).flush();
+  const membership = await em.findOne(Membership, { id: membershipId, shop: shopId });
+  if (!membership) throw notFound("member");
+  if (membership.role === "owner" && (await owners(em, shopId)) <= 1)
+    throw conflict("The last owner cannot be removed.");
+  const userId = membership.user.id;
+  await em.remove(membership).flush();
   await endUserSessions(em, userId, "removed");
 }
 

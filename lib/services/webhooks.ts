@@ -4,46 +4,20 @@
  */
 import { randomBytes } from "node:crypto";
 import type { EntityManager } from "@mikro-orm/postgresql";
-import {
-  Delivery,
-  DeliveryAttempt,
-  Event,
-  Shop,
-  WebhookEndpoint,
-  type DeliveryEntity,
-  type EventEntity,
-  type WebhookEndpointEntity,
-} from "../../entities";
+import { Delivery, DeliveryAttempt, Event, Shop, WebhookEndpoint, type DeliveryEntity } from "../../entities";
 import { conflict, invalidRequest, notFound } from "../errors";
 import { findPage } from "../db/paging";
 import { enqueueAttempt } from "../queue/queue";
 import { literalRefusal } from "../network";
-import type { DeliveryT, EndpointT } from "../schemas/webhook";
+import type { EndpointT } from "../schemas/webhook";
 import type { EventType } from "../schemas/enums";
 import { recordEvent } from "./events";
+import { viewDelivery, viewEndpoint, viewEvent } from "./webhook-views";
 
 export const DEFAULT_OVERLAP_HOURS = 24;
 
 const newSecret = () => `whsec_${randomBytes(24).toString("base64")}`;
-const iso = (d: Date | null | undefined) => d?.toISOString() ?? null;
 
-export function viewEndpoint(e: WebhookEndpointEntity, now = new Date()): EndpointT {
-  const rotating = e.previousSecret && e.previousSecretExpiresAt && e.previousSecretExpiresAt > now;
-  return {
-    id: e.id,
-    url: e.url,
-    description: e.description ?? null,
-    eventTypes: e.eventTypes as EventType[],
-    enabled: e.enabled,
-    disabledReason: e.disabledReason ?? null,
-    secretRotation: rotating ? { previousSecretExpiresAt: e.previousSecretExpiresAt!.toISOString() } : null,
-    consecutiveFailures: e.consecutiveFailures,
-    createdAt: e.createdAt.toISOString(),
-    updatedAt: e.updatedAt.toISOString(),
-  };
-}
-
-/** Refuse, at once, a literal address this install will never send to (names are checked at send time). */
 export function checkUrl(url: string) {
   const why = literalRefusal(new URL(url));
   if (why)
@@ -51,23 +25,27 @@ export function checkUrl(url: string) {
 }
 
 export async function findEndpoint(em: EntityManager, shopId: string, id: string) {
-  const e = await em.findOne(WebhookEndpoint, { id, shop: shopId });
-  if (!e) throw notFound("webhook endpoint");
-  return e;
+  const endpoint = await em.findOne(WebhookEndpoint, { id, shop: shopId });
+  if (!endpoint) throw notFound("webhook endpoint");
+  return endpoint;
 }
 
-export async function listEndpoints(em: EntityManager, shopId: string, o: { limit: number; cursor?: string }) {
-  return findPage(em, WebhookEndpoint, { shop: shopId }, o, (e) => viewEndpoint(e), { order: "asc" });
+export async function getEndpoint(em: EntityManager, shopId: string, id: string): Promise<EndpointT> {
+  return viewEndpoint(await findEndpoint(em, shopId, id));
+}
+
+export async function listEndpoints(em: EntityManager, shopId: string, options: { limit: number; cursor?: string }) {
+  return findPage(em, WebhookEndpoint, { shop: shopId }, options, (e) => viewEndpoint(e), { order: "asc" });
 }
 
 export async function createEndpoint(
   em: EntityManager,
   shopId: string,
-  input: { url: string; description?: string; eventTypes?: string[]; enabled?: boolean },
+  input: { url: string; description?: string; eventTypes?: EventType[]; enabled?: boolean },
 ) {
   checkUrl(input.url);
   const secret = newSecret();
-  const e = em.create(WebhookEndpoint, {
+  const endpoint = em.create(WebhookEndpoint, {
     shop: em.getReference(Shop, shopId),
     url: input.url,
     description: input.description ?? null,
@@ -78,34 +56,34 @@ export async function createEndpoint(
     previousSecret: null,
   });
   await em.flush();
-  return { endpoint: viewEndpoint(e), secret };
+  return { endpoint: viewEndpoint(endpoint), secret };
 }
 
 export async function updateEndpoint(
   em: EntityManager,
   shopId: string,
   id: string,
-  patch: { url?: string; description?: string; eventTypes?: string[]; enabled?: boolean },
+  patch: { url?: string; description?: string; eventTypes?: EventType[]; enabled?: boolean },
 ) {
-  const e = await findEndpoint(em, shopId, id);
+  const endpoint = await findEndpoint(em, shopId, id);
   if (patch.url !== undefined) {
     checkUrl(patch.url);
-    e.url = patch.url;
+    endpoint.url = patch.url;
   }
-  if (patch.description !== undefined) e.description = patch.description;
-  if (patch.eventTypes !== undefined) e.eventTypes = [...new Set(patch.eventTypes)];
-  if (patch.enabled !== undefined && patch.enabled !== e.enabled) {
-    e.enabled = patch.enabled;
-    e.disabledReason = patch.enabled ? null : "disabled by a person";
-    if (patch.enabled) e.consecutiveFailures = 0;
+  if (patch.description !== undefined) endpoint.description = patch.description;
+  if (patch.eventTypes !== undefined) endpoint.eventTypes = [...new Set(patch.eventTypes)];
+  if (patch.enabled !== undefined && patch.enabled !== endpoint.enabled) {
+    endpoint.enabled = patch.enabled;
+    endpoint.disabledReason = patch.enabled ? null : "disabled by a person";
+    if (patch.enabled) endpoint.consecutiveFailures = 0;
   }
   await em.flush();
-  return viewEndpoint(e);
+  return viewEndpoint(endpoint);
 }
 
 export async function deleteEndpoint(em: EntityManager, shopId: string, id: string) {
-  const e = await findEndpoint(em, shopId, id);
-  await em.remove(e).flush();
+  const endpoint = await findEndpoint(em, shopId, id);
+  await em.remove(endpoint).flush();
 }
 
 /** A new secret; the previous one keeps signing too until the overlap ends. */
@@ -115,40 +93,40 @@ export async function rotateSecret(
   id: string,
   overlapHours = DEFAULT_OVERLAP_HOURS,
 ) {
-  const e = await findEndpoint(em, shopId, id);
+  const endpoint = await findEndpoint(em, shopId, id);
   const secret = newSecret();
-  e.previousSecret = overlapHours > 0 ? e.secret : null;
-  e.previousSecretExpiresAt = overlapHours > 0 ? new Date(Date.now() + overlapHours * 3_600_000) : null;
-  e.secret = secret;
+  endpoint.previousSecret = overlapHours > 0 ? endpoint.secret : null;
+  endpoint.previousSecretExpiresAt = overlapHours > 0 ? new Date(Date.now() + overlapHours * 3_600_000) : null;
+  endpoint.secret = secret;
   await em.flush();
-  return { endpoint: viewEndpoint(e), secret };
+  return { endpoint: viewEndpoint(endpoint), secret };
 }
 
 /** Queue a delivery right away (the worker's sweeper would find it too, a little later). */
-async function queueNow(d: DeliveryEntity) {
-  await enqueueAttempt(d.id, 1, 0, 2_000).catch((err) =>
-    console.error(`[webhooks] queueing ${d.id} failed; the sweeper will:`, err.message),
+async function queueNow(delivery: DeliveryEntity) {
+  await enqueueAttempt(delivery.id, 1, 0, 2_000).catch((err) =>
+    console.error(`[webhooks] queueing ${delivery.id} failed; the sweeper will:`, err.message),
   );
 }
 
 export async function sendTestEvent(em: EntityManager, shopId: string, id: string) {
-  const e = await findEndpoint(em, shopId, id);
-  if (!e.enabled) throw conflict("The endpoint is disabled; enable it first.", { enabled: false });
+  const endpoint = await findEndpoint(em, shopId, id);
+  if (!endpoint.enabled) throw conflict("The endpoint is disabled; enable it first.", { enabled: false });
   const delivery = await em.transactional(async (tx) => {
-    const event = await recordEvent(tx, shopId, "endpoint.test", e.id, {
-      endpoint: { id: e.id, url: e.url },
+    const event = await recordEvent(tx, shopId, "endpoint.test", endpoint.id, {
+      endpoint: { id: endpoint.id, url: endpoint.url },
       message: "A test event from Shearwire. If you can read this, your receiver works.",
     });
     event.dispatchedAt = new Date(); // goes to this endpoint only
-    const d = tx.create(Delivery, {
+    const created = tx.create(Delivery, {
       shop: tx.getReference(Shop, shopId),
       event,
-      endpoint: tx.getReference(WebhookEndpoint, e.id),
+      endpoint: tx.getReference(WebhookEndpoint, endpoint.id),
       nextAttemptAt: new Date(),
       manual: true,
     });
     await tx.flush();
-    return d;
+    return created;
   });
   await queueNow(delivery);
   return viewDelivery(await findDelivery(em.fork(), shopId, delivery.id));
@@ -157,35 +135,35 @@ export async function sendTestEvent(em: EntityManager, shopId: string, id: strin
 export async function resend(em: EntityManager, shopId: string, eventId: string, endpointId: string) {
   const event = await em.findOne(Event, { id: eventId, shop: shopId });
   if (!event) throw notFound("event");
-  const e = await findEndpoint(em, shopId, endpointId);
-  if (!e.enabled) throw conflict("The endpoint is disabled; enable it first.", { enabled: false });
-  const d = em.create(Delivery, {
+  const endpoint = await findEndpoint(em, shopId, endpointId);
+  if (!endpoint.enabled) throw conflict("The endpoint is disabled; enable it first.", { enabled: false });
+  const delivery = em.create(Delivery, {
     shop: em.getReference(Shop, shopId),
     event,
-    endpoint: e,
+    endpoint: endpoint,
     nextAttemptAt: new Date(),
     manual: true,
   });
   await em.flush();
-  await queueNow(d);
-  return viewDelivery(await findDelivery(em.fork(), shopId, d.id));
+  await queueNow(delivery);
+  return viewDelivery(await findDelivery(em.fork(), shopId, delivery.id));
 }
 
 /** Send again every event whose delivery to this endpoint failed (once per event, newest 500). */
 export async function resendFailed(em: EntityManager, shopId: string, endpointId: string): Promise<number> {
-  const e = await findEndpoint(em, shopId, endpointId);
-  if (!e.enabled) throw conflict("The endpoint is disabled; enable it first.", { enabled: false });
+  const endpoint = await findEndpoint(em, shopId, endpointId);
+  if (!endpoint.enabled) throw conflict("The endpoint is disabled; enable it first.", { enabled: false });
   const rows = await em.getConnection().execute<{ event_id: string }[]>(
     `select distinct event_id from deliveries d where d.endpoint_id = ? and d.status = 'failed'
        and not exists (select 1 from deliveries n where n.endpoint_id = d.endpoint_id and n.event_id = d.event_id and n.status in ('pending', 'succeeded'))
      order by event_id desc limit 500`,
-    [e.id],
+    [endpoint.id],
   );
-  const created = rows.map((r) =>
+  const created = rows.map((row) =>
     em.create(Delivery, {
       shop: em.getReference(Shop, shopId),
-      event: em.getReference(Event, r.event_id),
-      endpoint: e,
+      event: em.getReference(Event, row.event_id),
+      endpoint: endpoint,
       nextAttemptAt: new Date(),
       manual: true,
     }),
@@ -197,35 +175,29 @@ export async function resendFailed(em: EntityManager, shopId: string, endpointId
 
 // ---------------------------------------------------------------- events and deliveries
 
-export function viewEvent(e: EventEntity) {
-  return {
-    id: e.id,
-    type: e.type as EventType,
-    subjectId: e.subjectId,
-    data: e.data,
-    createdAt: e.createdAt.toISOString(),
-  };
-}
-
 export async function listEvents(
   em: EntityManager,
   shopId: string,
-  o: { limit: number; cursor?: string; type?: string; subject?: string },
+  options: { limit: number; cursor?: string; type?: EventType; subject?: string },
 ) {
-  const where = { shop: shopId, ...(o.type ? { type: o.type } : {}), ...(o.subject ? { subjectId: o.subject } : {}) };
-  return findPage(em, Event, where, o, viewEvent);
+  const where = {
+    shop: shopId,
+    ...(options.type ? { type: options.type } : {}),
+    ...(options.subject ? { subjectId: options.subject } : {}),
+  };
+  return findPage(em, Event, where, options, viewEvent);
 }
 
 export async function getEvent(em: EntityManager, shopId: string, id: string) {
-  const e = await em.findOne(Event, { id, shop: shopId });
-  if (!e) throw notFound("event");
-  return viewEvent(e);
+  const stored = await em.findOne(Event, { id, shop: shopId });
+  if (!stored) throw notFound("event");
+  return viewEvent(stored);
 }
 
 async function findDelivery(em: EntityManager, shopId: string, id: string) {
-  const d = await em.findOne(Delivery, { id, shop: shopId }, { populate: ["event"] });
-  if (!d) throw notFound("delivery");
-  return d;
+  const delivery = await em.findOne(Delivery, { id, shop: shopId }, { populate: ["event"] });
+  if (!delivery) throw notFound("delivery");
+  return delivery;
 }
 
 async function attemptsOf(em: EntityManager, ids: string[]) {
@@ -237,49 +209,11 @@ async function attemptsOf(em: EntityManager, ids: string[]) {
   return by;
 }
 
-type AttemptRow = {
-  id: string;
-  attemptedAt: Date;
-  statusCode?: number | null;
-  latencyMs: number;
-  responseExcerpt?: string | null;
-  error?: string | null;
-  requestHeaders?: Record<string, string> | null;
-  responseHeaders?: Record<string, string> | null;
-};
-
-export function viewDelivery(d: DeliveryEntity, attempts: AttemptRow[] = []): DeliveryT {
-  return {
-    id: d.id,
-    eventId: d.event.id,
-    eventType: d.event.type as EventType,
-    endpointId: d.endpoint.id,
-    status: d.status,
-    attempts: d.attempts,
-    nextAttemptAt: iso(d.nextAttemptAt),
-    lastStatusCode: d.lastStatusCode ?? null,
-    lastError: d.lastError ?? null,
-    manual: d.manual,
-    attemptLog: attempts.map((a) => ({
-      id: a.id,
-      attemptedAt: a.attemptedAt.toISOString(),
-      requestHeaders: a.requestHeaders ?? null,
-      statusCode: a.statusCode ?? null,
-      responseHeaders: a.responseHeaders ?? null,
-      latencyMs: a.latencyMs,
-      responseExcerpt: a.responseExcerpt ?? null,
-      error: a.error ?? null,
-    })),
-    createdAt: d.createdAt.toISOString(),
-    updatedAt: d.updatedAt.toISOString(),
-  };
-}
-
 export async function listDeliveries(
   em: EntityManager,
   shopId: string,
   by: { event?: string; endpoint?: string },
-  o: { limit: number; cursor?: string; status?: DeliveryEntity["status"]; eventType?: string },
+  options: { limit: number; cursor?: string; status?: DeliveryEntity["status"]; eventType?: EventType },
 ) {
   if (by.event) await getEvent(em, shopId, by.event);
   if (by.endpoint) await findEndpoint(em, shopId, by.endpoint);
@@ -287,10 +221,10 @@ export async function listDeliveries(
     shop: shopId,
     ...(by.event ? { event: by.event } : {}),
     ...(by.endpoint ? { endpoint: by.endpoint } : {}),
-    ...(o.status ? { status: o.status } : {}),
-    ...(o.eventType ? { event: { type: o.eventType } } : {}),
+    ...(options.status ? { status: options.status } : {}),
+    ...(options.eventType ? { event: { type: options.eventType } } : {}),
   };
-  const page = await findPage(em, Delivery, where, o, (d) => d, { populate: ["event"] });
+  const page = await findPage(em, Delivery, where, options, (d) => d, { populate: ["event"] });
   const attempts = await attemptsOf(
     em,
     page.data.map((d) => d.id),

@@ -61,17 +61,24 @@ export function usableShear(shear: unknown, out: Finding[]): ShearProfile | null
     );
     return null;
   }
-  const clean: Record<string, unknown> = {};
-  for (const field of [...SHEAR_POSITIVE_FIELDS, ...SHEAR_NON_NEGATIVE_FIELDS]) clean[field] = shear[field];
+  const clean: Partial<ShearProfile> = {};
+  // every one of these was found a usable number just above
+  for (const field of [...SHEAR_POSITIVE_FIELDS, ...SHEAR_NON_NEGATIVE_FIELDS]) clean[field] = shear[field] as number;
   clean.maxBladeHardnessHb = isPositive(shear.maxBladeHardnessHb) ? shear.maxBladeHardnessHb : null;
-  for (const field of SHEAR_OPTIONAL_NON_NEGATIVE_FIELDS) if (isNonNegative(shear[field])) clean[field] = shear[field];
-  for (const field of SHEAR_OPTIONAL_POSITIVE_FIELDS) if (isPositive(shear[field])) clean[field] = shear[field];
+  for (const field of SHEAR_OPTIONAL_NON_NEGATIVE_FIELDS) {
+    const value = shear[field];
+    if (isNonNegative(value)) clean[field] = value;
+  }
+  for (const field of SHEAR_OPTIONAL_POSITIVE_FIELDS) {
+    const value = shear[field];
+    if (isPositive(value)) clean[field] = value;
+  }
   if (isObject(shear.gradeThicknessLimitsMm)) {
     const limits: Record<string, number> = {};
     for (const [code, mm] of Object.entries(shear.gradeThicknessLimitsMm)) if (isPositive(mm)) limits[code] = mm;
     clean.gradeThicknessLimitsMm = limits;
   }
-  return clean as unknown as ShearProfile;
+  return clean as ShearProfile; // every required field was copied above
 }
 
 const GRADE_FAMILIES: ReadonlySet<unknown> = new Set([

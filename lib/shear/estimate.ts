@@ -58,10 +58,10 @@ function backgaugeTravel(flow: FlowResult, cuts: readonly FlowCut[], sheets: num
   let moves = 0;
   let mm = 0;
   for (let i = 1; i < positions.length; i++) {
-    const d = Math.abs(positions[i] - positions[i - 1]);
-    if (d > SAME_POSITION_MM) {
+    const distance = Math.abs(positions[i] - positions[i - 1]);
+    if (distance > SAME_POSITION_MM) {
       moves++;
-      mm += d;
+      mm += distance;
     }
   }
   const back = Math.abs(positions[positions.length - 1] - positions[0]);
@@ -70,39 +70,47 @@ function backgaugeTravel(flow: FlowResult, cuts: readonly FlowCut[], sheets: num
 }
 
 /** Estimate the run time of `sheets` sheets. */
-export function estimateCycle(i: EstimateInput): CycleEstimate {
+export function estimateCycle(estimateInput: EstimateInput): CycleEstimate {
   let strokeSecondsPerSheet = 0;
-  for (const g of i.flow.groups) {
-    if (g.strokes > 0)
-      strokeSecondsPerSheet += g.strokes * strokeSeconds(g.cutLengthMm, i.thicknessMm, i.rakeDeg, i.shear);
+  for (const group of estimateInput.flow.groups) {
+    if (group.strokes > 0)
+      strokeSecondsPerSheet +=
+        group.strokes *
+        strokeSeconds(group.cutLengthMm, estimateInput.thicknessMm, estimateInput.rakeDeg, estimateInput.shear);
   }
-  const gauge = backgaugeTravel(i.flow, i.cuts, i.sheets);
-  const turns = i.flow.turnedPieces * i.sheets;
+  const gauge = backgaugeTravel(estimateInput.flow, estimateInput.cuts, estimateInput.sheets);
+  const turns = estimateInput.flow.turnedPieces * estimateInput.sheets;
   const seconds = {
-    strokes: strokeSecondsPerSheet * i.sheets,
-    backgauge: i.shear.backgaugeSpeedMmPerS > 0 ? gauge.mm / i.shear.backgaugeSpeedMmPerS : 0,
-    turns: turns * i.shear.handlingSecondsPerTurn,
-    sheets: i.sheets * i.shear.handlingSecondsPerSheet,
+    strokes: strokeSecondsPerSheet * estimateInput.sheets,
+    backgauge: estimateInput.shear.backgaugeSpeedMmPerS > 0 ? gauge.mm / estimateInput.shear.backgaugeSpeedMmPerS : 0,
+    turns: turns * estimateInput.shear.handlingSecondsPerTurn,
+    sheets: estimateInput.sheets * estimateInput.shear.handlingSecondsPerSheet,
     total: 0,
   };
   seconds.total = seconds.strokes + seconds.backgauge + seconds.turns + seconds.sheets;
-  return { strokes: i.flow.strokes * i.sheets, backgaugeMoves: gauge.moves, turns, sheets: i.sheets, seconds };
+  return {
+    strokes: estimateInput.flow.strokes * estimateInput.sheets,
+    backgaugeMoves: gauge.moves,
+    turns,
+    sheets: estimateInput.sheets,
+    seconds,
+  };
 }
 
 /** The estimate as reported: seconds rounded to DECIMALS.seconds. */
-export function estimateReport(e: CycleEstimate): EstimateReport {
-  const s = (v: number): number => roundTo(v, DECIMALS.seconds);
+export function estimateReport(cycleEstimate: CycleEstimate): EstimateReport {
+  const seconds = (v: number): number => roundTo(v, DECIMALS.seconds);
   return {
-    strokes: e.strokes,
-    backgaugeMoves: e.backgaugeMoves,
-    turns: e.turns,
-    sheets: e.sheets,
+    strokes: cycleEstimate.strokes,
+    backgaugeMoves: cycleEstimate.backgaugeMoves,
+    turns: cycleEstimate.turns,
+    sheets: cycleEstimate.sheets,
     seconds: {
-      strokes: s(e.seconds.strokes),
-      backgauge: s(e.seconds.backgauge),
-      turns: s(e.seconds.turns),
-      sheets: s(e.seconds.sheets),
-      total: s(e.seconds.total),
+      strokes: seconds(cycleEstimate.seconds.strokes),
+      backgauge: seconds(cycleEstimate.seconds.backgauge),
+      turns: seconds(cycleEstimate.seconds.turns),
+      sheets: seconds(cycleEstimate.seconds.sheets),
+      total: seconds(cycleEstimate.seconds.total),
     },
   };
 }

@@ -68,9 +68,9 @@ export interface CutForce {
 }
 
 /** Force of one cut: the raked model, capped by the straight-blade force over the length of cut. */
-export function cutForce(c: CutForceInput): CutForce {
-  const raked = rakedForceKn(c.tensileMpa, c.thicknessMm, c.rakeDeg);
-  const straight = straightForceKn(c.shearMpa, c.lengthMm, c.thicknessMm);
+export function cutForce(cutForceInput: CutForceInput): CutForce {
+  const raked = rakedForceKn(cutForceInput.tensileMpa, cutForceInput.thicknessMm, cutForceInput.rakeDeg);
+  const straight = straightForceKn(cutForceInput.shearMpa, cutForceInput.lengthMm, cutForceInput.thicknessMm);
   return straight < raked ? { kn: straight, model: "straight" } : { kn: raked, model: "raked" };
 }
 
@@ -123,31 +123,40 @@ export interface ForceReportInput {
 }
 
 /** The force and capacity report in the caller's units. */
-export function forceReport(i: ForceReportInput): ForceReport {
-  const u = i.units;
-  const dull = i.requiredKn * DULL_BLADE_FACTOR;
+export function forceReport(forceReportInput: ForceReportInput): ForceReport {
+  const units = forceReportInput.units;
+  const dull = forceReportInput.requiredKn * DULL_BLADE_FACTOR;
   const why =
-    i.maxThickness.source === "shear-profile"
-      ? `Limit this shear's profile sets for ${i.gradeCode}.`
-      : `${fmtLength(i.shear.ratedThicknessMm, u)} rating × √(${fmtStrength(i.shear.ratedTensileMpa, u)} / ${fmtStrength(i.tensile.mpa, u)}) at the rated ${fmtDeg(i.shear.ratedRakeDeg)} rake.`;
+    forceReportInput.maxThickness.source === "shear-profile"
+      ? `Limit this shear's profile sets for ${forceReportInput.gradeCode}.`
+      : `${fmtLength(forceReportInput.shear.ratedThicknessMm, units)} rating × √(${fmtStrength(forceReportInput.shear.ratedTensileMpa, units)} / ${fmtStrength(forceReportInput.tensile.mpa, units)}) at the rated ${fmtDeg(forceReportInput.shear.ratedRakeDeg)} rake.`;
   return {
-    unit: forceUnitFor(u),
-    required: showForce(i.requiredKn, u),
-    rated: showForce(i.ratedKn, u),
-    capacityUsedPct: showPct(capacityUsedPct(i.requiredKn, i.ratedKn)),
+    unit: forceUnitFor(units),
+    required: showForce(forceReportInput.requiredKn, units),
+    rated: showForce(forceReportInput.ratedKn, units),
+    capacityUsedPct: showPct(capacityUsedPct(forceReportInput.requiredKn, forceReportInput.ratedKn)),
     dullBlade: {
       factor: DULL_BLADE_FACTOR,
-      required: showForce(dull, u),
-      capacityUsedPct: showPct(capacityUsedPct(dull, i.ratedKn)),
+      required: showForce(dull, units),
+      capacityUsedPct: showPct(capacityUsedPct(dull, forceReportInput.ratedKn)),
     },
-    rakeDeg: roundTo(i.rakeDeg, DECIMALS.deg),
-    tensile: { value: showStrength(i.tensile.mpa, u), unit: strengthUnitFor(u), basis: i.tensile.basis },
-    maxThicknessForGrade: { value: showLength(i.maxThickness.mm, u), unit: u, source: i.maxThickness.source, why },
-    byGroup: i.byGroup.map((g) => ({
-      group: g.group,
-      cutLength: showLength(g.cutLengthMm, u),
-      force: showForce(g.force.kn, u),
-      model: g.force.model,
+    rakeDeg: roundTo(forceReportInput.rakeDeg, DECIMALS.deg),
+    tensile: {
+      value: showStrength(forceReportInput.tensile.mpa, units),
+      unit: strengthUnitFor(units),
+      basis: forceReportInput.tensile.basis,
+    },
+    maxThicknessForGrade: {
+      value: showLength(forceReportInput.maxThickness.mm, units),
+      unit: units,
+      source: forceReportInput.maxThickness.source,
+      why,
+    },
+    byGroup: forceReportInput.byGroup.map((group) => ({
+      group: group.group,
+      cutLength: showLength(group.cutLengthMm, units),
+      force: showForce(group.force.kn, units),
+      model: group.force.model,
     })),
   };
 }

@@ -58,64 +58,64 @@ export const GAUGE_RANGES: Readonly<Record<GaugeFamily, { min: number; max: numb
   awg: { min: 0, max: 40 },
 };
 
-const isGaugeNumber = (family: GaugeFamily, n: number): boolean =>
-  Number.isInteger(n) && n >= GAUGE_RANGES[family].min && n <= GAUGE_RANGES[family].max;
+const isGaugeNumber = (family: GaugeFamily, gauge: number): boolean =>
+  Number.isInteger(gauge) && gauge >= GAUGE_RANGES[family].min && gauge <= GAUGE_RANGES[family].max;
 
 /** Weight per square foot of a US Standard Gauge number, oz/ft², from the Act's breakpoints. */
-export function ussgOuncesPerSqFt(n: number): number | null {
-  if (!Number.isInteger(n) || n < -6 || n > 38) return null;
+export function ussgOuncesPerSqFt(gauge: number): number | null {
+  if (!Number.isInteger(gauge) || gauge < -6 || gauge > 38) return null;
   for (let i = 1; i < USSG_WEIGHT_BREAKPOINTS.length; i++) {
     const [g1, w1] = USSG_WEIGHT_BREAKPOINTS[i];
-    if (n <= g1) {
+    if (gauge <= g1) {
       const [g0, w0] = USSG_WEIGHT_BREAKPOINTS[i - 1];
-      return w0 + ((w1 - w0) * (n - g0)) / (g1 - g0);
+      return w0 + ((w1 - w0) * (gauge - g0)) / (g1 - g0);
     }
   }
   return null;
 }
 
 /** US Standard Gauge thickness, in: weight over 640 oz/ft² per inch. */
-export function ussgThicknessIn(n: number): number | null {
-  const oz = ussgOuncesPerSqFt(n);
+export function ussgThicknessIn(gauge: number): number | null {
+  const oz = ussgOuncesPerSqFt(gauge);
   return oz === null ? null : oz / USSG_OZ_PER_SQFT_PER_IN;
 }
 
 /** Manufacturers' Standard Gauge thickness, in: the same weight over 41.82 lb/ft² per inch. */
-export function msgThicknessIn(n: number): number | null {
-  const oz = ussgOuncesPerSqFt(n);
+export function msgThicknessIn(gauge: number): number | null {
+  const oz = ussgOuncesPerSqFt(gauge);
   return oz === null ? null : oz / OZ_PER_LB / MSG_LB_PER_SQFT_PER_IN;
 }
 
 /** Galvanized sheet gauge thickness, in: (MSG weight + 2.5 oz/ft²) over 41.82 lb/ft² per inch. */
-export function galvanizedThicknessIn(n: number): number | null {
-  const oz = ussgOuncesPerSqFt(n);
+export function galvanizedThicknessIn(gauge: number): number | null {
+  const oz = ussgOuncesPerSqFt(gauge);
   return oz === null ? null : (oz + GALVANIZED_COATING_OZ_PER_SQFT) / OZ_PER_LB / MSG_LB_PER_SQFT_PER_IN;
 }
 
 /** American Wire Gauge diameter (= sheet thickness), in: 0.005 · 92^((36 − n)/39). */
-export function awgThicknessIn(n: number): number {
-  return AWG_D36_IN * AWG_RATIO ** ((36 - n) / AWG_STEPS);
+export function awgThicknessIn(gauge: number): number {
+  return AWG_D36_IN * AWG_RATIO ** ((36 - gauge) / AWG_STEPS);
 }
 
 /** Thickness in inches of gauge `n` in `family`, or null if the family does not define it. */
-export function gaugeThicknessIn(family: GaugeFamily, n: number): number | null {
-  if (!isGaugeNumber(family, n)) return null;
+export function gaugeThicknessIn(family: GaugeFamily, gauge: number): number | null {
+  if (!isGaugeNumber(family, gauge)) return null;
   switch (family) {
     case "ussg":
-      return ussgThicknessIn(n);
+      return ussgThicknessIn(gauge);
     case "msg":
-      return msgThicknessIn(n);
+      return msgThicknessIn(gauge);
     case "galvanized":
-      return galvanizedThicknessIn(n);
+      return galvanizedThicknessIn(gauge);
     case "awg":
-      return awgThicknessIn(n);
+      return awgThicknessIn(gauge);
   }
 }
 
 /** Thickness in mm of gauge `n` in `family`, or null if the family does not define it. */
-export function gaugeThicknessMm(family: GaugeFamily, n: number): number | null {
-  const t = gaugeThicknessIn(family, n);
-  return t === null ? null : inToMm(t);
+export function gaugeThicknessMm(family: GaugeFamily, gauge: number): number | null {
+  const thicknessIn = gaugeThicknessIn(family, gauge);
+  return thicknessIn === null ? null : inToMm(thicknessIn);
 }
 
 export interface GaugeRow {
@@ -127,9 +127,9 @@ export interface GaugeRow {
 /** Every gauge of a family, thickest first (for a gauge catalogue endpoint). */
 export function gaugeTable(family: GaugeFamily): GaugeRow[] {
   const rows: GaugeRow[] = [];
-  for (let n = GAUGE_RANGES[family].min; n <= GAUGE_RANGES[family].max; n++) {
-    const t = gaugeThicknessIn(family, n);
-    if (t !== null) rows.push({ gauge: n, thicknessIn: t, thicknessMm: inToMm(t) });
+  for (let gauge = GAUGE_RANGES[family].min; gauge <= GAUGE_RANGES[family].max; gauge++) {
+    const thicknessIn = gaugeThicknessIn(family, gauge);
+    if (thicknessIn !== null) rows.push({ gauge: gauge, thicknessIn: thicknessIn, thicknessMm: inToMm(thicknessIn) });
   }
   return rows;
 }

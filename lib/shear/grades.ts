@@ -23,8 +23,11 @@ export const DEFAULT_SHEAR_TENSILE_RATIO: Readonly<Record<GradeFamily, number>> 
   copper: 0.6,
 };
 
-const grade = (g: Omit<GradeProfile, "shearTensileRatio"> & { shearTensileRatio?: number }): GradeProfile =>
-  Object.freeze({ ...g, shearTensileRatio: g.shearTensileRatio ?? DEFAULT_SHEAR_TENSILE_RATIO[g.family] });
+const grade = (profile: Omit<GradeProfile, "shearTensileRatio"> & { shearTensileRatio?: number }): GradeProfile =>
+  Object.freeze({
+    ...profile,
+    shearTensileRatio: profile.shearTensileRatio ?? DEFAULT_SHEAR_TENSILE_RATIO[profile.family],
+  });
 
 /** Demo/seed grade library. */
 export const GRADE_LIBRARY: readonly GradeProfile[] = Object.freeze([
@@ -178,13 +181,13 @@ export function gradeTensile(grade: GradeProfile): GradeTensile | null {
 
 /** Shear strength for the straight-blade force: tensile × shear/tensile ratio. */
 export function gradeShearStrengthMpa(grade: GradeProfile): number | null {
-  const t = gradeTensile(grade);
+  const tensile = gradeTensile(grade);
   const ratio = isPositive(grade.shearTensileRatio)
     ? grade.shearTensileRatio
     : DEFAULT_SHEAR_TENSILE_RATIO[grade.family];
-  return t === null || ratio === undefined ? null : t.mpa * ratio;
+  return tensile === null || ratio === undefined ? null : tensile.mpa * ratio;
 }
 
-function isPositive(v: number | null | undefined): v is number {
-  return typeof v === "number" && Number.isFinite(v) && v > 0;
+function isPositive(value: number | null | undefined): value is number {
+  return typeof value === "number" && Number.isFinite(value) && value > 0;
 }

@@ -5,8 +5,8 @@
  *
  * Drawing coordinates: x along the sheet's length (the edge first presented
  * to the blade), y along its width toward the backgauge, origin at the corner
- * where the first strip is cut. `width` is a rectangle's extent along x,
- * `height` along y.
+ * where the first strip is cut. A rectangle's `length` is its extent along x
+ * and its `width` along y, the same pair as the sheet's own.
  */
 import type { LengthUnit } from "./types";
 import type { LayoutReport, LaidRectangle } from "./reports";
@@ -24,17 +24,17 @@ interface LaidMm {
   stroke: number | null;
   xMm: number;
   yMm: number;
+  lengthMm: number;
   widthMm: number;
-  heightMm: number;
 }
 
 function laid(rects: readonly Rect[], kind: LaidKind, out: LaidMm[]): boolean {
   for (const rect of rects) {
     if (!rect.at || rect.at.length !== rect.count) return false;
     for (const at of rect.at) {
-      const widthMm = at.widthAlongX ? rect.widthMm : rect.lengthMm;
-      const heightMm = at.widthAlongX ? rect.lengthMm : rect.widthMm;
-      out.push({ kind, group: rect.group, stroke: at.stroke, xMm: at.x, yMm: at.y, widthMm, heightMm });
+      const lengthMm = at.widthAlongX ? rect.widthMm : rect.lengthMm;
+      const widthMm = at.widthAlongX ? rect.lengthMm : rect.widthMm;
+      out.push({ kind, group: rect.group, stroke: at.stroke, xMm: at.x, yMm: at.y, lengthMm, widthMm });
     }
   }
   return true;
@@ -62,8 +62,8 @@ export function layoutReport(flow: FlowResult, units: LengthUnit): LayoutReport 
       stroke: rectangle.stroke,
       x: show(rectangle.xMm),
       y: show(rectangle.yMm),
+      length: show(rectangle.lengthMm),
       width: show(rectangle.widthMm),
-      height: show(rectangle.heightMm),
     })),
     cuts: flow.lines.map((line) => ({
       group: line.group,

@@ -118,10 +118,10 @@ export interface LaidRectangle {
   stroke: number | null;
   x: number;
   y: number;
-  /** Extent along x (the sheet's length). */
-  width: number;
+  /** Extent along x (the sheet's length, along the blade). */
+  length: number;
   /** Extent along y (the sheet's width, toward the backgauge). */
-  height: number;
+  width: number;
 }
 
 export interface LaidCut {

@@ -63,9 +63,9 @@ const POW10 = [1, 10, 100, 1000, 10000, 100000, 1000000];
 /** Round half away from zero to `decimals` places (0–6); non-finite values pass through. */
 export function roundTo(value: number, decimals: number): number {
   if (!Number.isFinite(value)) return value;
-  const f = POW10[decimals] ?? 10 ** decimals;
-  const r = Math.round(Math.abs(value) * f + 1e-9) / f;
-  return value < 0 ? -r : r;
+  const scale = POW10[decimals] ?? 10 ** decimals;
+  const rounded = Math.round(Math.abs(value) * scale + 1e-9) / scale;
+  return value < 0 ? -rounded : rounded;
 }
 
 /** mm → caller's length unit, rounded for reports. */
@@ -79,8 +79,8 @@ export const showPct = (pct: number): number => roundTo(pct, DECIMALS.pct);
 
 /** A number for messages: fixed decimals, trailing zeros dropped ("45", "0.1345", "0.05"). */
 export function fmtNumber(value: number, decimals: number): string {
-  const s = value.toFixed(decimals);
-  return s.includes(".") ? s.replace(/\.?0+$/, "") : s;
+  const text = value.toFixed(decimals);
+  return text.includes(".") ? text.replace(/\.?0+$/, "") : text;
 }
 
 /** Text for messages: "0.1345 in", "3.416 mm", "12 in". */

@@ -127,10 +127,10 @@ export async function attemptDelivery(
   }
 
   return em.transactional(async (tx) => {
-    const d = await tx.findOneOrFail(Delivery, { id: deliveryId }, { populate: ["endpoint"] });
-    const ep = d.endpoint;
+    const delivery = await tx.findOneOrFail(Delivery, { id: deliveryId }, { populate: ["endpoint"] });
+    const ep = delivery.endpoint;
     tx.create(DeliveryAttempt, {
-      delivery: d,
+      delivery: delivery,
       attemptedAt: sentAt,
       statusCode: result.status,
       latencyMs: result.latencyMs,
@@ -139,31 +139,31 @@ export async function attemptDelivery(
       responseExcerpt: result.excerpt,
       error: result.error,
     });
-    d.attempts = attempt;
-    d.lastStatusCode = result.status;
-    d.lastError = result.error ?? `HTTP ${result.status}`;
+    delivery.attempts = attempt;
+    delivery.lastStatusCode = result.status;
+    delivery.lastError = result.error ?? `HTTP ${result.status}`;
     ep.consecutiveFailures += 1;
     if (result.status === 410) {
       // The receiver says it is gone for good: stop sending to it.
-      d.status = "failed";
-      d.nextAttemptAt = null;
+      delivery.status = "failed";
+      delivery.nextAttemptAt = null;
       return disable(ep, "the receiver answered 410 Gone");
     }
     if (ep.consecutiveFailures >= disableAfter()) {
-      d.status = "failed";
-      d.nextAttemptAt = null;
+      delivery.status = "failed";
+      delivery.nextAttemptAt = null;
       return disable(ep, `${ep.consecutiveFailures} failed attempts in a row`);
     }
     const scheduled = delayBefore(attempt + 1);
     if (scheduled === null || attempt >= MAX_ATTEMPTS) {
-      d.status = "failed";
-      d.nextAttemptAt = null;
+      delivery.status = "failed";
+      delivery.nextAttemptAt = null;
       return { kind: "done", status: "failed" } as const;
     }
     const header = result.headers["retry-after"];
     const asked = retryAfterMs(Array.isArray(header) ? header[0] : (header ?? null));
     const delayMs = Math.max(scheduled, asked ?? 0);
-    d.nextAttemptAt = new Date(Date.now() + delayMs);
+    delivery.nextAttemptAt = new Date(Date.now() + delayMs);
     return { kind: "retry", attempt: attempt + 1, delayMs } as const;
   });
 }

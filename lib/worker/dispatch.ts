@@ -5,6 +5,7 @@
  */
 import type { EntityManager } from "@mikro-orm/postgresql";
 import { Delivery, Event, WebhookEndpoint } from "../../entities";
+import type { EventType } from "../schemas/enums";
 
 const BATCH = 200;
 const OVERDUE_MS = 10_000;
@@ -16,7 +17,7 @@ const OVERDUE_MS = 10_000;
 export async function dispatchPending(em: EntityManager): Promise<string[]> {
   return em.transactional(async (tx) => {
     const now = new Date();
-    const rows = await tx.execute<{ id: string; shop_id: string; type: string }[]>(
+    const rows = await tx.execute<{ id: string; shop_id: string; type: EventType }[]>(
       `with taken as (select id from events where dispatched_at is null order by id limit ${BATCH} for update skip locked)
        update events e set dispatched_at = ? from taken where e.id = taken.id returning e.id, e.shop_id, e.type`,
       [now],

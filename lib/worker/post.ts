@@ -37,13 +37,13 @@ export interface HttpResult {
 const signers = new Map<string, Webhook>();
 /** One signer per secret (decoding the secret once). */
 function signer(secret: string): Webhook {
-  let w = signers.get(secret);
-  if (!w) {
+  let webhook = signers.get(secret);
+  if (!webhook) {
     if (signers.size > 1000) signers.clear();
-    w = new Webhook(secret);
-    signers.set(secret, w);
+    webhook = new Webhook(secret);
+    signers.set(secret, webhook);
   }
-  return w;
+  return webhook;
 }
 
 /** Sign a payload with every secret that is currently valid for the endpoint. */
@@ -63,8 +63,8 @@ export function signatures(
 /** POST to the receiver at the address that passed the address check. */
 export async function post(urlText: string, body: string, headers: Record<string, string>): Promise<HttpResult> {
   const started = performance.now();
-  const done = (r: Omit<HttpResult, "latencyMs">): HttpResult => ({
-    ...r,
+  const done = (result: Omit<HttpResult, "latencyMs">): HttpResult => ({
+    ...result,
     latencyMs: Math.round((performance.now() - started) * 10) / 10,
   });
   let url: URL;

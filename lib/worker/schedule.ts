@@ -11,8 +11,8 @@ const MAX_RETRY_AFTER_MS = 86_400_000;
 const JITTER = 0.1;
 
 export function timeScale(): number {
-  const v = Number(process.env.SHEARWIRE_WEBHOOK_TIME_SCALE ?? 1);
-  return Number.isFinite(v) && v > 0 ? v : 1;
+  const scale = Number(process.env.SHEARWIRE_WEBHOOK_TIME_SCALE ?? 1);
+  return Number.isFinite(scale) && scale > 0 ? scale : 1;
 }
 
 /** Delay before attempt number `attempt` (1-based), or null when there is no such attempt. */

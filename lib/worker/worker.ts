@@ -65,8 +65,8 @@ export async function runWorker({
   await listener.connect();
   await listener.query(`listen ${OUTBOX_CHANNEL}`);
 
-  const attempt = async (deliveryId: string, n: number) => {
-    const outcome = await attemptDelivery(fork(), deliveryId, n);
+  const attempt = async (deliveryId: string, attemptNumber: number) => {
+    const outcome = await attemptDelivery(fork(), deliveryId, attemptNumber);
     if (outcome.kind === "retry") await enqueueAttempt(deliveryId, outcome.attempt, outcome.delayMs);
     if (outcome.kind === "endpoint-disabled") {
       log(`disabled ${outcome.endpointId}: ${outcome.reason}`);

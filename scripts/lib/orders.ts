@@ -9,10 +9,10 @@ export function seeded(seed: number) {
   let state = seed >>> 0;
   return () => {
     state = (state + 0x6d2b79f5) >>> 0;
-    let t = state;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
+    let value = state;
+    value = Math.imul(value ^ (value >>> 15), value | 1);
+    value ^= value + Math.imul(value ^ (value >>> 7), value | 61);
+    return ((value ^ (value >>> 14)) >>> 0) / 4294967296;
   };
 }
 
@@ -29,8 +29,8 @@ export function largestOrder(shear: string, seed = 20261202) {
     thickness: { value: 3 },
     units: "mm" as const,
     stock: Array.from({ length: PLAN_LIMITS.stockSizes }, (_, i) => ({ length: 2000 + 50 * i, width: 1000 + 25 * i })),
-    blanks: Array.from({ length: types }, (_, i) => ({
-      label: `part ${i + 1}`,
+    blanks: Array.from({ length: types }, (_, index) => ({
+      label: `part ${index + 1}`,
       length: between(40, 900),
       width: between(40, 600),
       quantity: each,
@@ -54,8 +54,8 @@ export function mediumOrder(shear: string, seed: number, types: number) {
       { length: 3000, width: 1500 },
       { length: 2000, width: 1000, count: 10 },
     ],
-    blanks: Array.from({ length: types }, (_, i) => ({
-      label: `part ${i + 1}`,
+    blanks: Array.from({ length: types }, (_, index) => ({
+      label: `part ${index + 1}`,
       length: between(60, 1100),
       width: between(40, 700),
       quantity: between(5, 60),

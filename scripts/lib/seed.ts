@@ -32,22 +32,22 @@ const SHEARS = DEMO_SHEARS;
 
 /** The published-minimums grade library, as catalog rows of a shop (staged; the caller flushes). */
 export function addGradeLibrary(em: EntityManager, shop: ShopEntity) {
-  for (const g of GRADE_LIBRARY) {
+  for (const gradeProfile of GRADE_LIBRARY) {
     em.create(Grade, {
       shop,
-      code: g.code,
-      name: g.name ?? g.code,
-      family: g.family,
-      standard: g.standard,
-      yieldMpa: g.yieldMpa,
-      tensileMinMpa: g.tensileMinMpa,
-      tensileTypicalMpa: g.tensileTypicalMpa,
-      tensileMaxMpa: g.tensileMaxMpa ?? null,
-      valuesAreTypical: g.valuesAreTypical,
-      shearTensileRatio: g.shearTensileRatio,
-      gaugeFamily: g.gaugeFamily,
-      hardnessHb: g.hardnessHb,
-      note: g.note ?? null,
+      code: gradeProfile.code,
+      name: gradeProfile.name ?? gradeProfile.code,
+      family: gradeProfile.family,
+      standard: gradeProfile.standard,
+      yieldMpa: gradeProfile.yieldMpa,
+      tensileMinMpa: gradeProfile.tensileMinMpa,
+      tensileTypicalMpa: gradeProfile.tensileTypicalMpa,
+      tensileMaxMpa: gradeProfile.tensileMaxMpa ?? null,
+      valuesAreTypical: gradeProfile.valuesAreTypical,
+      shearTensileRatio: gradeProfile.shearTensileRatio,
+      gaugeFamily: gradeProfile.gaugeFamily,
+      hardnessHb: gradeProfile.hardnessHb,
+      note: gradeProfile.note ?? null,
     });
   }
 }
@@ -94,8 +94,8 @@ export async function seedDemo(em: EntityManager): Promise<DemoSummary> {
           tx.create(User, { email: person.email, name: person.name, passwordHash: hash });
         tx.create(Membership, { user, shop, role: person.role });
       }
-      for (const s of SHEARS)
-        tx.create(Shear, { ...(s as Omit<RequiredEntityData<InferEntity<typeof Shear>>, "shop">), shop });
+      for (const shear of SHEARS)
+        tx.create(Shear, { ...(shear as Omit<RequiredEntityData<InferEntity<typeof Shear>>, "shop">), shop });
       addGradeLibrary(tx, shop);
       await tx.flush();
     }

@@ -17,30 +17,30 @@ export function daemon(dataRoot: string, name: string): Daemon {
   return { name, pidFile: path.join(dataRoot, `${name}.pid`), logFile: path.join(dataRoot, "logs", `${name}.log`) };
 }
 
-function readPid(d: Daemon): number | null {
-  if (!existsSync(d.pidFile)) return null;
-  const pid = Number(readFileSync(d.pidFile, "utf8"));
+function readPid(service: Daemon): number | null {
+  if (!existsSync(service.pidFile)) return null;
+  const pid = Number(readFileSync(service.pidFile, "utf8"));
   return Number.isInteger(pid) && pid > 0 ? pid : null;
 }
 
-export function daemonRunning(d: Daemon): boolean {
-  return pidAlive(readPid(d));
+export function daemonRunning(service: Daemon): boolean {
+  return pidAlive(readPid(service));
 }
 
-export function startDaemon(d: Daemon, cmd: string, args: string[], env: NodeJS.ProcessEnv): number {
-  mkdirSync(path.dirname(d.logFile), { recursive: true });
-  const out = openSync(d.logFile, "a");
+export function startDaemon(service: Daemon, cmd: string, args: string[], env: NodeJS.ProcessEnv): number {
+  mkdirSync(path.dirname(service.logFile), { recursive: true });
+  const out = openSync(service.logFile, "a");
   const child = spawn(cmd, args, { cwd: root, env, detached: true, stdio: ["ignore", out, out] });
   child.unref();
-  writeFileSync(d.pidFile, String(child.pid));
+  writeFileSync(service.pidFile, String(child.pid));
   return child.pid!;
 }
 
 /** Stop a daemon and its children (it leads its own process group). */
-export async function stopDaemon(d: Daemon): Promise<"stopped" | "not running"> {
-  const pid = readPid(d);
+export async function stopDaemon(service: Daemon): Promise<"stopped" | "not running"> {
+  const pid = readPid(service);
   if (!pidAlive(pid)) {
-    rmSync(d.pidFile, { force: true });
+    rmSync(service.pidFile, { force: true });
     return "not running";
   }
   const signal = (sig: NodeJS.Signals) => {
@@ -57,30 +57,30 @@ export async function stopDaemon(d: Daemon): Promise<"stopped" | "not running"> 
   signal("SIGTERM");
   for (let i = 0; i < 100 && pidAlive(pid); i++) await new Promise((r) => setTimeout(r, 100));
   if (pidAlive(pid)) signal("SIGKILL");
-  rmSync(d.pidFile, { force: true });
+  rmSync(service.pidFile, { force: true });
   return "stopped";
 }
 
 export function buildApp(env: NodeJS.ProcessEnv) {
-  const r = spawnSync(bin("next"), ["build"], { cwd: root, env, stdio: "inherit" });
-  if (r.status !== 0) throw new ServiceError("next build failed");
+  const build = spawnSync(bin("next"), ["build"], { cwd: root, env, stdio: "inherit" });
+  if (build.status !== 0) throw new ServiceError("next build failed");
 }
 
-export async function startWeb(d: Daemon, port: number, env: NodeJS.ProcessEnv) {
+export async function startWeb(service: Daemon, port: number, env: NodeJS.ProcessEnv) {
   if (await portInUse(port)) {
     throw new ServiceError(`port ${port} on 127.0.0.1 is busy with another program; stop it or set PORT`);
   }
-  startDaemon(d, bin("tsx"), [path.join(root, "scripts", "web-server.ts"), "--port", String(port)], env);
+  startDaemon(service, bin("tsx"), [path.join(root, "scripts", "web-server.ts"), "--port", String(port)], env);
 }
 
 /** The worker process (webhooks, sweepers) in the background. */
-export function startWorker(d: Daemon, env: NodeJS.ProcessEnv) {
-  return startDaemon(d, bin("tsx"), [path.join(root, "scripts", "worker.ts")], env);
+export function startWorker(service: Daemon, env: NodeJS.ProcessEnv) {
+  return startDaemon(service, bin("tsx"), [path.join(root, "scripts", "worker.ts")], env);
 }
 
 /** The fake SMTP server and its inbox page, in the background. */
 export async function startMail(
-  d: Daemon,
+  service: Daemon,
   mail: { smtpPort: number; httpPort: number; dir: string },
   env: NodeJS.ProcessEnv,
 ) {
@@ -91,7 +91,7 @@ export async function startMail(
       );
   }
   startDaemon(
-    d,
+    service,
     bin("tsx"),
     [
       path.join(root, "scripts", "mail-server.ts"),
@@ -104,11 +104,11 @@ export async function startMail(
     ],
     env,
   );
-  await waitForHttp(`http://127.0.0.1:${mail.httpPort}/messages`, d, 30_000);
+  await waitForHttp(`http://127.0.0.1:${mail.httpPort}/messages`, service, 30_000);
 }
 
 /** Wait until GET url answers 2xx, or fail with the daemon's log path. */
-export async function waitForHttp(url: string, d: Daemon | null, timeoutMs = 60_000) {
+export async function waitForHttp(url: string, service: Daemon | null, timeoutMs = 60_000) {
   const deadline = Date.now() + timeoutMs;
   let last = "no answer";
   while (Date.now() < deadline) {
@@ -119,8 +119,8 @@ export async function waitForHttp(url: string, d: Daemon | null, timeoutMs = 60_
     } catch (err) {
       last = (err as Error).message;
     }
-    if (d && !daemonRunning(d)) break;
+    if (service && !daemonRunning(service)) break;
     await new Promise((r) => setTimeout(r, 250));
   }
-  throw new ServiceError(`${url} did not come up (${last})${d ? `; see ${d.logFile}` : ""}`);
+  throw new ServiceError(`${url} did not come up (${last})${service ? `; see ${service.logFile}` : ""}`);
 }

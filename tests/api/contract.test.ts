@@ -185,9 +185,9 @@ describe("programs", () => {
     expect(res.body.check.yield.total).toMatchObject({ blanks: 56, strokes: 62 });
     expect(res.body.check.yield.utilisationPct).toBe(93.3);
     // the sheet as cut, from the same flow: 28 blanks 16 × 12 in and 4 offcuts 8 × 12 in per sheet, 31 cut lines
-    const rectangles = res.body.check.layout.rectangles as Array<{ kind: string; width: number; height: number }>;
+    const rectangles = res.body.check.layout.rectangles as Array<{ kind: string; length: number; width: number }>;
     expect(rectangles.filter((r) => r.kind === "blank")).toHaveLength(28);
-    expect(rectangles.filter((r) => r.kind === "offcut").every((r) => r.width === 8 && r.height === 12)).toBe(true);
+    expect(rectangles.filter((r) => r.kind === "offcut").every((r) => r.length === 8 && r.width === 12)).toBe(true);
     expect(res.body.check.layout.cuts).toHaveLength(31);
     expect(res.body.check.setup.gapCentre.value).toBeLessThan(res.body.check.setup.gapEnds.value);
   });

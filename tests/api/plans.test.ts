@@ -82,7 +82,7 @@ describe("the worked example of our cut-program docs, as order lines", () => {
     expect(p.strips).toEqual([
       expect.objectContaining({
         y: 0,
-        height: 12,
+        width: 12,
         repeat: 4,
         pieces: [expect.objectContaining({ x: 0, length: 16, width: 12, count: 7 })],
       }),

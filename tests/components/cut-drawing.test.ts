@@ -27,8 +27,8 @@ interface Drawn {
   stroke: number | null;
   x: number;
   y: number;
+  length: number;
   width: number;
-  height: number;
 }
 
 /** The rectangles and lines the component actually rendered, read back from its SVG. */
@@ -47,8 +47,8 @@ function drawn(
     stroke: attribute(tag, "data-stroke") === "" ? null : Number(attribute(tag, "data-stroke")),
     x: Number(attribute(tag, "x")),
     y: Number(attribute(tag, "y")),
-    width: Number(attribute(tag, "width")),
-    height: Number(attribute(tag, "height")),
+    length: Number(attribute(tag, "width")), // SVG x runs along the sheet's length
+    width: Number(attribute(tag, "height")),
   }));
   const lines = [...markup.matchAll(/<line [^>]*data-group="[^"]*"[^>]*>/g)].map(([tag]) => ({
     group: Number(attribute(tag, "data-group")),
@@ -111,7 +111,7 @@ describe("the drawing draws the piece flow's rectangles, for every program fixtu
       const drawnSizes = (kinds: string[]) =>
         rects
           .filter((rect) => kinds.includes(rect.kind))
-          .map((rect) => ({ a: rect.width, b: rect.height, count: 1, group: rect.group }));
+          .map((rect) => ({ a: rect.length, b: rect.width, count: 1, group: rect.group }));
 
       // Blanks: same sizes, groups and counts as the flow, and as the yield printed beside the drawing.
       expect(sizeCounts(drawnSizes(["blank"]), decimals)).toEqual(sizeCounts(flowSizes(flow.blanks), decimals));
@@ -142,17 +142,17 @@ describe("the drawing draws the piece flow's rectangles, for every program fixtu
       for (const rect of rects) {
         expect(rect.x).toBeGreaterThanOrEqual(-slack);
         expect(rect.y).toBeGreaterThanOrEqual(-slack);
-        expect(rect.x + rect.width).toBeLessThanOrEqual(program.sheet.length + slack);
-        expect(rect.y + rect.height).toBeLessThanOrEqual(program.sheet.width + slack);
-        area += rect.width * rect.height;
+        expect(rect.x + rect.length).toBeLessThanOrEqual(program.sheet.length + slack);
+        expect(rect.y + rect.width).toBeLessThanOrEqual(program.sheet.width + slack);
+        area += rect.length * rect.width;
       }
       expect(area).toBeCloseTo(program.sheet.length * program.sheet.width, units === "in" ? 0 : -1);
       for (let first = 0; first < rects.length; first++) {
         for (let second = first + 1; second < rects.length; second++) {
           const a = rects[first];
           const b = rects[second];
-          const overlapX = Math.min(a.x + a.width, b.x + b.width) - Math.max(a.x, b.x);
-          const overlapY = Math.min(a.y + a.height, b.y + b.height) - Math.max(a.y, b.y);
+          const overlapX = Math.min(a.x + a.length, b.x + b.length) - Math.max(a.x, b.x);
+          const overlapY = Math.min(a.y + a.width, b.y + b.width) - Math.max(a.y, b.y);
           expect(overlapX <= slack || overlapY <= slack, `${name}: rectangles ${first} and ${second} overlap`).toBe(
             true,
           );
@@ -178,10 +178,10 @@ describe("the cut-program worked example in our API docs", () => {
   it("draws 28 blanks 16 × 12 in, an 8 × 12 in offcut per strip, and 31 cut lines", () => {
     const blanks = rects.filter((rect) => rect.kind === "blank");
     expect(blanks).toHaveLength(28); // worked example: 4 strips × 7
-    expect(blanks.every((blank) => blank.width === 16 && blank.height === 12)).toBe(true); // crosscut along the strip: 16 in along the sheet's length
+    expect(blanks.every((blank) => blank.length === 16 && blank.width === 12)).toBe(true); // crosscut along the strip: 16 in along the sheet's length
     const offcuts = rects.filter((rect) => rect.kind === "offcut");
     expect(offcuts).toHaveLength(4); // worked example: one 8 × 12 in offcut per strip
-    expect(offcuts.every((offcut) => offcut.width === 8 && offcut.height === 12 && offcut.x === 112)).toBe(true); // 120 − 7 × 16 at the strip's far end
+    expect(offcuts.every((offcut) => offcut.length === 8 && offcut.width === 12 && offcut.x === 112)).toBe(true); // 120 − 7 × 16 at the strip's far end
     expect(lines).toHaveLength(3 + 4 * 7); // 3 rips, then 7 crosscuts in each of 4 strips
   });
 
@@ -199,7 +199,7 @@ describe("partial strokes and the remnant rule, which the old drawing got wrong"
   it("a partial stroke severs nothing: the sheet stays one offcut and the stroke is a dashed line", () => {
     const program = PROGRAM_FIXTURES["partial strokes"];
     const { rects, lines } = drawn(program, checkProgram(program, { shear: DEMO_SHEAR, grade: grade("A36") }));
-    expect(rects).toEqual([expect.objectContaining({ kind: "offcut", x: 0, y: 0, width: 1000, height: 500 })]); // our piece-flow rule: partial strokes sever nothing
+    expect(rects).toEqual([expect.objectContaining({ kind: "offcut", x: 0, y: 0, length: 1000, width: 500 })]); // our piece-flow rule: partial strokes sever nothing
     expect(lines).toEqual([
       { group: 0, dashed: true },
       { group: 0, dashed: true },

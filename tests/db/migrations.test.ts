@@ -43,4 +43,61 @@ describe("migrations", () => {
     await migrateUp(orm);
     expect(await migrationNeeded(orm)).toBe(false);
   });
+
+  it("rename stored axes to one pair (a rectangle's length and width, a strip's width) and back", async () => {
+    const connection = orm.em.getConnection();
+    // A program as answered before the rename (its layout, and metadata that only looks like it) and a plan's result.
+    const program = {
+      id: "prg_axes",
+      metadata: { width: "wide", height: "tall" },
+      check: {
+        layout: {
+          unit: "in",
+          rectangles: [{ kind: "blank", group: 1, stroke: 2, x: 0, y: 0, width: 16, height: 12 }],
+          cuts: [{ group: 0, stroke: 1, x1: 0, y1: 12, x2: 120, y2: 12, partial: false }],
+        },
+      },
+    };
+    const piece = { blank: 0, label: "A", x: 0, y: 0, length: 16, width: 12, turned: false, count: 7 };
+    const offcut = { x: 112, y: 0, length: 8, width: 12, kind: "strip-end", reusable: false };
+    const plan = { patterns: [{ strips: [{ y: 0, height: 12, repeat: 4, pieces: [piece] }], offcuts: [offcut] }] };
+    const bodies = async () =>
+      Object.fromEntries(
+        (
+          await connection.execute<{ idempotency_key: string; response_body: unknown }[]>(
+            `select idempotency_key, response_body from idempotency_records where key_id = 'key_axes'`,
+          )
+        ).map((row) => [row.idempotency_key, row.response_body]),
+      );
+
+    await orm.getMigrator().down({ to: "Migration20261203070000_remnant_size" });
+    for (const [key, body] of [
+      ["program", program],
+      ["plan", plan],
+    ] as const) {
+      await connection.execute(
+        `insert into idempotency_records (key_id, idempotency_key, method, path, fingerprint, response_body, created_at, expires_at)
+         values ('key_axes', ?, 'POST', '/api/v1/x', 'f', ?::jsonb, now(), now() + interval '1 day')`,
+        [key, JSON.stringify(body)],
+      );
+    }
+    await migrateUp(orm);
+    expect(await bodies()).toEqual({
+      program: {
+        ...program,
+        check: {
+          layout: {
+            ...program.check.layout,
+            rectangles: [{ kind: "blank", group: 1, stroke: 2, x: 0, y: 0, length: 16, width: 12 }],
+          },
+        },
+      },
+      plan: { patterns: [{ strips: [{ y: 0, width: 12, repeat: 4, pieces: [piece] }], offcuts: [offcut] }] },
+    });
+
+    await orm.getMigrator().down({ to: "Migration20261203070000_remnant_size" });
+    expect(await bodies()).toEqual({ program, plan });
+    await migrateUp(orm);
+    await connection.execute(`delete from idempotency_records where key_id = 'key_axes'`);
+  });
 });

@@ -2,14 +2,14 @@ import Link from "next/link";
 import { EventsTable } from "@/components/console/EventsTable";
 import { PageHeader } from "@/components/ui";
 import { currentMember } from "@/lib/auth/session";
-import { EVENT_TYPES } from "@/lib/schemas/enums";
+import { EVENT_TYPES, isEventType } from "@/lib/schemas/enums";
 
 export const metadata = { title: "Events" };
 
 export default async function Events({ searchParams }: { searchParams: Promise<{ type?: string }> }) {
   await currentMember();
-  const q = await searchParams;
-  const type = (EVENT_TYPES as readonly string[]).includes(q.type ?? "") ? q.type : undefined;
+  const query = await searchParams;
+  const type = isEventType(query.type) ? query.type : undefined;
   return (
     <>
       <PageHeader
@@ -20,13 +20,13 @@ export default async function Events({ searchParams }: { searchParams: Promise<{
         <Link href="/console/events" className={`rounded px-2 py-1 ${!type ? "bg-ink text-scale-50" : "bg-scale-200"}`}>
           all
         </Link>
-        {EVENT_TYPES.map((t) => (
+        {EVENT_TYPES.map((eventType) => (
           <Link
-            key={t}
-            href={`/console/events?type=${t}`}
-            className={`rounded px-2 py-1 font-mono ${type === t ? "bg-ink text-scale-50" : "bg-scale-200"}`}
+            key={eventType}
+            href={`/console/events?type=${eventType}`}
+            className={`rounded px-2 py-1 font-mono ${type === eventType ? "bg-ink text-scale-50" : "bg-scale-200"}`}
           >
-            {t}
+            {eventType}
           </Link>
         ))}
       </nav>

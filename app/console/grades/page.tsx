@@ -20,36 +20,36 @@ export default async function Grades() {
           head={["Code", "Name", "Family", "Yield", "Tensile", "Shear / tensile", "Gauges", "Hardness", "Standard"]}
           empty="No grades yet."
         >
-          {grades.data.map((g) => (
-            <tr key={g.id}>
+          {grades.data.map((grade) => (
+            <tr key={grade.id}>
               <Td mono>
-                <Link className="text-edge hover:underline" href={`/console/grades/${g.id}`}>
-                  {g.code}
+                <Link className="text-edge hover:underline" href={`/console/grades/${grade.id}`}>
+                  {grade.code}
                 </Link>
               </Td>
-              <Td>{g.name}</Td>
-              <Td>{g.family}</Td>
-              <Td mono>{g.yieldMpa ? mpa(g.yieldMpa) : "—"}</Td>
+              <Td>{grade.name}</Td>
+              <Td>{grade.family}</Td>
+              <Td mono>{grade.yieldMpa ? mpa(grade.yieldMpa) : "—"}</Td>
               <Td mono>
-                {g.tensileMinMpa
-                  ? `at least ${mpa(g.tensileMinMpa)}`
-                  : g.tensileTypicalMpa
-                    ? `about ${mpa(g.tensileTypicalMpa)}`
+                {grade.tensileMinMpa
+                  ? `at least ${mpa(grade.tensileMinMpa)}`
+                  : grade.tensileTypicalMpa
+                    ? `about ${mpa(grade.tensileTypicalMpa)}`
                     : "—"}
-                {g.valuesAreTypical ? " (typical)" : ""}
+                {grade.valuesAreTypical ? " (typical)" : ""}
               </Td>
-              <Td mono>{g.shearTensileRatio}</Td>
+              <Td mono>{grade.shearTensileRatio}</Td>
               <Td>
-                {g.gaugeFamily ? (
-                  <abbr title={GAUGE_SYSTEM_WORDS[g.gaugeFamily]} className="font-mono text-xs">
-                    {g.gaugeFamily}
+                {grade.gaugeFamily ? (
+                  <abbr title={GAUGE_SYSTEM_WORDS[grade.gaugeFamily]} className="font-mono text-xs">
+                    {grade.gaugeFamily}
                   </abbr>
                 ) : (
                   "—"
                 )}
               </Td>
-              <Td mono>{g.hardnessHb ? `${g.hardnessHb} HB` : "—"}</Td>
-              <Td className="text-xs text-ink-muted">{g.standard}</Td>
+              <Td mono>{grade.hardnessHb ? `${grade.hardnessHb} HB` : "—"}</Td>
+              <Td className="text-xs text-ink-muted">{grade.standard}</Td>
             </tr>
           ))}
         </Table>

@@ -33,8 +33,12 @@ export default async function Keys({ searchParams }: { searchParams: Promise<{ s
   );
   const manage = can(member.role, "keys:manage");
   const readOnly = !manage && can(member.role, "keys:create-read-only");
-  const state = (k: (typeof keys)[number]) =>
-    k.revokedAt ? "revoked" : k.expiresAt && new Date(k.expiresAt) <= new Date() ? "expired" : "active";
+  const state = (apiKeyView: (typeof keys)[number]) =>
+    apiKeyView.revokedAt
+      ? "revoked"
+      : apiKeyView.expiresAt && new Date(apiKeyView.expiresAt) <= new Date()
+        ? "expired"
+        : "active";
   return (
     <>
       <PageHeader
@@ -51,36 +55,36 @@ export default async function Keys({ searchParams }: { searchParams: Promise<{ s
                 : "No keys in use. Create one with the form: pick “ERP integration” for the system that sends orders."
             }
           >
-            {keys.map((k) => (
-              <tr key={k.id}>
-                <Td>{k.name}</Td>
-                <Td mono>{k.prefix}…</Td>
-                <Td mono>{k.scopes.join(" ")}</Td>
-                <Td>{k.shearIds.length ? k.shearIds.map((id) => shearNames.get(id) ?? id).join(", ") : "all"}</Td>
+            {keys.map((key) => (
+              <tr key={key.id}>
+                <Td>{key.name}</Td>
+                <Td mono>{key.prefix}…</Td>
+                <Td mono>{key.scopes.join(" ")}</Td>
+                <Td>{key.shearIds.length ? key.shearIds.map((id) => shearNames.get(id) ?? id).join(", ") : "all"}</Td>
                 <Td>
-                  <span className="font-mono text-xs">{when(k.createdAt)}</span>
-                  {k.createdBy ? (
+                  <span className="font-mono text-xs">{when(key.createdAt)}</span>
+                  {key.createdBy ? (
                     <>
                       <br />
                       <span className="text-xs text-ink-muted">
-                        by {creators.get(k.createdBy) ?? "a former member"}
+                        by {creators.get(key.createdBy) ?? "a former member"}
                       </span>
                     </>
                   ) : null}
                 </Td>
-                <Td mono>{when(k.lastUsedAt)}</Td>
-                <Td mono>{when(k.expiresAt)}</Td>
+                <Td mono>{when(key.lastUsedAt)}</Td>
+                <Td mono>{when(key.expiresAt)}</Td>
                 <Td>
-                  <Badge value={state(k)} />
+                  <Badge value={state(key)} />
                 </Td>
                 <Td>
-                  {manage && !k.revokedAt && (
+                  {manage && !key.revokedAt && (
                     <ActionForm
                       action={revokeKeyAction}
-                      fields={{ id: k.id }}
-                      label={`Revoke key ${k.name}`}
+                      fields={{ id: key.id }}
+                      label={`Revoke key ${key.name}`}
                       buttonClassName="text-xs text-fault hover:underline"
-                      confirm={`Revoke ${k.name} (${k.prefix}…)? Requests with it fail from the next one on.`}
+                      confirm={`Revoke ${key.name} (${key.prefix}…)? Requests with it fail from the next one on.`}
                     >
                       Revoke
                     </ActionForm>
@@ -99,10 +103,10 @@ export default async function Keys({ searchParams }: { searchParams: Promise<{ s
           <details className="rounded-md border border-scale-200 bg-white p-4 text-sm">
             <summary className="cursor-pointer font-semibold">What each scope allows</summary>
             <dl className="mt-2 grid gap-x-4 gap-y-1 sm:grid-cols-[10rem_1fr]">
-              {SCOPES.map((s) => (
-                <div key={s} className="contents">
-                  <dt className="font-mono text-xs">{s}</dt>
-                  <dd className="text-ink-muted">{SCOPE_WORDS[s]}</dd>
+              {SCOPES.map((scope) => (
+                <div key={scope} className="contents">
+                  <dt className="font-mono text-xs">{scope}</dt>
+                  <dd className="text-ink-muted">{SCOPE_WORDS[scope]}</dd>
                 </div>
               ))}
             </dl>

@@ -11,12 +11,12 @@ const HOURS = { "1": "last hour", "24": "last day", "168": "last week" } as cons
 
 export default async function Logs({ searchParams }: { searchParams: Promise<Record<string, string | undefined>> }) {
   const member = await currentMember();
-  const q = await searchParams;
+  const query = await searchParams;
   const em = await requestEm();
-  const hours = q.hours && q.hours in HOURS ? Number(q.hours) : 24;
+  const hours = query.hours && query.hours in HOURS ? Number(query.hours) : 24;
   const filter: Pick<LogFilter, "statusClass"> = {
-    statusClass: ["2xx", "3xx", "4xx", "5xx"].includes(q.status ?? "")
-      ? (q.status as LogFilter["statusClass"])
+    statusClass: ["2xx", "3xx", "4xx", "5xx"].includes(query.status ?? "")
+      ? (query.status as LogFilter["statusClass"])
       : undefined,
   };
   const [keys, routes] = await Promise.all([listKeys(em, member.shopId), routesSeen(em, member.shopId)]);
@@ -32,7 +32,7 @@ export default async function Logs({ searchParams }: { searchParams: Promise<Rec
           Request id
           <input
             name="id"
-            defaultValue={q.id ?? ""}
+            defaultValue={query.id ?? ""}
             maxLength={64}
             placeholder="req_…"
             className="rounded border border-scale-300 bg-white px-2 py-1 font-mono text-sm"
@@ -40,11 +40,15 @@ export default async function Logs({ searchParams }: { searchParams: Promise<Rec
         </label>
         <label className="grid gap-0.5 text-xs">
           Key
-          <select name="key" defaultValue={q.key ?? ""} className="rounded border border-scale-300 px-2 py-1 text-sm">
+          <select
+            name="key"
+            defaultValue={query.key ?? ""}
+            className="rounded border border-scale-300 px-2 py-1 text-sm"
+          >
             <option value="">any</option>
-            {keys.map((k) => (
-              <option key={k.id} value={k.id}>
-                {keyName.get(k.id)}
+            {keys.map((key) => (
+              <option key={key.id} value={key.id}>
+                {keyName.get(key.id)}
               </option>
             ))}
           </select>
@@ -53,7 +57,7 @@ export default async function Logs({ searchParams }: { searchParams: Promise<Rec
           Route
           <select
             name="route"
-            defaultValue={q.route ?? ""}
+            defaultValue={query.route ?? ""}
             className="rounded border border-scale-300 px-2 py-1 text-sm"
           >
             <option value="">any</option>
@@ -66,7 +70,7 @@ export default async function Logs({ searchParams }: { searchParams: Promise<Rec
           Status
           <select
             name="status"
-            defaultValue={q.status ?? ""}
+            defaultValue={query.status ?? ""}
             className="rounded border border-scale-300 px-2 py-1 text-sm"
           >
             <option value="">any</option>
@@ -82,9 +86,9 @@ export default async function Logs({ searchParams }: { searchParams: Promise<Rec
             defaultValue={String(hours)}
             className="rounded border border-scale-300 px-2 py-1 text-sm"
           >
-            {Object.entries(HOURS).map(([h, l]) => (
-              <option key={h} value={h}>
-                {l}
+            {Object.entries(HOURS).map(([span, label]) => (
+              <option key={span} value={span}>
+                {label}
               </option>
             ))}
           </select>
@@ -94,9 +98,9 @@ export default async function Logs({ searchParams }: { searchParams: Promise<Rec
       <RequestTable
         query={new URLSearchParams({
           hours: String(hours),
-          ...(q.id ? { id: q.id.trim().slice(0, 64) } : {}),
-          ...(q.key ? { key: q.key } : {}),
-          ...(q.route ? { route: q.route } : {}),
+          ...(query.id ? { id: query.id.trim().slice(0, 64) } : {}),
+          ...(query.key ? { key: query.key } : {}),
+          ...(query.route ? { route: query.route } : {}),
           ...(filter.statusClass ? { status: filter.statusClass } : {}),
         }).toString()}
         keyNames={Object.fromEntries(keyName)}

@@ -16,8 +16,8 @@ const text = (v: FormDataEntryValue | null) => (typeof v === "string" && v.trim(
 const num = (v: FormDataEntryValue | null) => (text(v) === undefined ? undefined : Number(text(v)));
 
 /** Stock lines: "length, width[, count]" one per line; an empty count is as many as needed. */
-function parseStock(v: string | undefined) {
-  return (v ?? "")
+function parseStock(raw: string | undefined) {
+  return (raw ?? "")
     .split(/\r?\n/)
     .map((l) => l.trim())
     .filter(Boolean)
@@ -80,13 +80,13 @@ export const planAction = memberAction("programs:write")
     const result = PlanInputSchema.safeParse(input);
     if (!result.success) {
       return refused({
-        fields: result.error.issues.map((i) => {
-          const [head, row, ...rest] = i.path;
+        fields: result.error.issues.map((issue) => {
+          const [head, row, ...rest] = issue.path;
           const field =
             head === "blanks" && typeof row === "number"
               ? `row ${row + 2}${rest.length ? ` · ${rest.join(".")}` : ""}`
-              : i.path.join(".") || "form";
-          return { field, message: i.message };
+              : issue.path.join(".") || "form";
+          return { field, message: issue.message };
         }),
       });
     }

@@ -10,12 +10,12 @@ export const metadata = { title: "Plans" };
 
 export default async function Plans({ searchParams }: { searchParams: Promise<{ search?: string; cursor?: string }> }) {
   const member = await currentMember();
-  const q = await searchParams;
-  const search = q.search?.trim().slice(0, 100) || undefined;
-  const unsafe = [search, q.cursor].some((v) => v && textProblem(v));
+  const query = await searchParams;
+  const search = query.search?.trim().slice(0, 100) || undefined;
+  const unsafe = [search, query.cursor].some((v) => v && textProblem(v));
   const { data, next_cursor } = unsafe
     ? { data: [], next_cursor: null }
-    : await listPlans(await requestEm(), member.shopId, { limit: 50, search, cursor: q.cursor }).catch(() => ({
+    : await listPlans(await requestEm(), member.shopId, { limit: 50, search, cursor: query.cursor }).catch(() => ({
         data: [],
         next_cursor: null,
       }));
@@ -56,52 +56,56 @@ export default async function Plans({ searchParams }: { searchParams: Promise<{ 
             : "No plans yet. Send one to POST /api/v1/plans, or start one here with a cut list."
         }
       >
-        {data.map((p) => (
-          <tr key={p.id}>
+        {data.map((plan) => (
+          <tr key={plan.id}>
             <Td>
-              <Link href={`/console/plans/${p.id}`} className="text-edge hover:underline">
-                {p.reference ?? p.id}
+              <Link href={`/console/plans/${plan.id}`} className="text-edge hover:underline">
+                {plan.reference ?? plan.id}
               </Link>
-              {p.title ? <span className="text-ink-muted"> · {p.title}</span> : null}
+              {plan.title ? <span className="text-ink-muted"> · {plan.title}</span> : null}
             </Td>
-            <Td className="text-ink-muted">{when(p.createdAt)}</Td>
+            <Td className="text-ink-muted">{when(plan.createdAt)}</Td>
             <Td>
-              {p.status === "complete" ? (
+              {plan.status === "complete" ? (
                 <Badge
-                  value={p.coverage === "complete" ? "pass" : "warn"}
-                  label={p.coverage === "complete" ? "complete" : "partial"}
+                  value={plan.coverage === "complete" ? "pass" : "warn"}
+                  label={plan.coverage === "complete" ? "complete" : "partial"}
                 />
               ) : (
                 <Badge
                   value={
-                    p.status === "running" || p.status === "queued"
+                    plan.status === "running" || plan.status === "queued"
                       ? "running"
-                      : p.status === "failed"
+                      : plan.status === "failed"
                         ? "fail"
                         : "cancelled"
                   }
-                  label={p.status}
+                  label={plan.status}
                 />
               )}
             </Td>
-            <Td mono>{p.summary?.sheets ?? "—"}</Td>
-            <Td mono>{p.summary?.patterns ?? (p.progress ? `${p.progress.patterns}…` : "—")}</Td>
+            <Td mono>{plan.summary?.sheets ?? "—"}</Td>
+            <Td mono>{plan.summary?.patterns ?? (plan.progress ? `${plan.progress.patterns}…` : "—")}</Td>
             <Td mono>
-              {p.summary
-                ? `${p.summary.blanksPlanned} / ${p.summary.blanksAsked}`
-                : p.progress
-                  ? `${p.progress.piecesPlaced} / ${p.progress.piecesWanted}…`
+              {plan.summary
+                ? `${plan.summary.blanksPlanned} / ${plan.summary.blanksAsked}`
+                : plan.progress
+                  ? `${plan.progress.piecesPlaced} / ${plan.progress.piecesWanted}…`
                   : "—"}
             </Td>
-            <Td mono>{p.summary ? `${p.summary.utilisationPct} %` : "—"}</Td>
+            <Td mono>{plan.summary ? `${plan.summary.utilisationPct} %` : "—"}</Td>
             <Td>
-              {p.programs.length ? `${p.programs.length} written` : <span className="text-ink-muted">not yet</span>}
+              {plan.programs.length ? (
+                `${plan.programs.length} written`
+              ) : (
+                <span className="text-ink-muted">not yet</span>
+              )}
             </Td>
           </tr>
         ))}
       </Table>
       <p className="mt-2 flex gap-3 text-xs">
-        {q.cursor && (
+        {query.cursor && (
           <Link className="text-edge" href={`/console/plans${search ? `?search=${encodeURIComponent(search)}` : ""}`}>
             Newest
           </Link>

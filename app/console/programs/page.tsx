@@ -1,7 +1,7 @@
 import Link from "next/link";
 import { ProgramsTable } from "@/components/console/ProgramsTable";
 import { PageHeader } from "@/components/ui";
-import { PROGRAM_STATUSES, type ProgramStatus } from "@/lib/schemas/enums";
+import { PROGRAM_STATUSES, isProgramStatus } from "@/lib/schemas/enums";
 import { currentMember } from "@/lib/auth/session";
 
 export const metadata = { title: "Programs" };
@@ -12,9 +12,9 @@ export default async function Programs({
   searchParams: Promise<{ status?: string; search?: string }>;
 }) {
   await currentMember();
-  const q = await searchParams;
-  const status = PROGRAM_STATUSES.includes(q.status as ProgramStatus) ? (q.status as ProgramStatus) : undefined;
-  const search = q.search?.trim().slice(0, 100) || undefined;
+  const query = await searchParams;
+  const status = isProgramStatus(query.status) ? query.status : undefined;
+  const search = query.search?.trim().slice(0, 100) || undefined;
   return (
     <>
       <PageHeader title="Programs" lead="Cut programs your systems sent, newest first.">

@@ -28,29 +28,29 @@ export default async function Shears() {
           head={["Name", "Rating", "Blade", "Backgauge", "Rake", "Blade gap", "Strokes", "Blades to", "Id"]}
           empty="No shears yet."
         >
-          {shears.data.map((s) => (
-            <tr key={s.id}>
+          {shears.data.map((shear) => (
+            <tr key={shear.id}>
               <Td>
-                <Link className="text-edge hover:underline" href={`/console/shears/${s.id}`}>
-                  {s.name}
+                <Link className="text-edge hover:underline" href={`/console/shears/${shear.id}`}>
+                  {shear.name}
                 </Link>
               </Td>
               <Td mono>
-                {s.ratedThicknessMm} mm at {s.ratedTensileMpa} MPa, {s.ratedRakeDeg}°
+                {shear.ratedThicknessMm} mm at {shear.ratedTensileMpa} MPa, {shear.ratedRakeDeg}°
               </Td>
-              <Td mono>{s.bladeLengthMm} mm</Td>
+              <Td mono>{shear.bladeLengthMm} mm</Td>
               <Td mono>
-                {s.backgaugeMinMm}–{s.backgaugeMaxMm} mm
-              </Td>
-              <Td mono>
-                {s.rakeMinDeg}–{s.rakeMaxDeg}°
+                {shear.backgaugeMinMm}–{shear.backgaugeMaxMm} mm
               </Td>
               <Td mono>
-                {s.gapMinMm}–{s.gapMaxMm} mm
+                {shear.rakeMinDeg}–{shear.rakeMaxDeg}°
               </Td>
-              <Td mono>{s.strokesPerMin}/min</Td>
-              <Td mono>{s.maxBladeHardnessHb ? `${s.maxBladeHardnessHb} HB` : "—"}</Td>
-              <Td mono>{s.id}</Td>
+              <Td mono>
+                {shear.gapMinMm}–{shear.gapMaxMm} mm
+              </Td>
+              <Td mono>{shear.strokesPerMin}/min</Td>
+              <Td mono>{shear.maxBladeHardnessHb ? `${shear.maxBladeHardnessHb} HB` : "—"}</Td>
+              <Td mono>{shear.id}</Td>
             </tr>
           ))}
         </Table>

@@ -21,15 +21,15 @@ export default async function Stock({
 }) {
   const member = await currentMember();
   const em = await requestEm();
-  const q = await searchParams;
-  const thickness = Number(q.thickness);
-  const kind = STOCK_KINDS.find((k) => k === q.kind);
-  const grade = q.grade?.slice(0, 50) || undefined;
+  const query = await searchParams;
+  const thickness = Number(query.thickness);
+  const kind = STOCK_KINDS.find((k) => k === query.kind);
+  const grade = query.grade?.slice(0, 50) || undefined;
   const [stock, grades] = await Promise.all([
     listStock(em, member.shopId, {
       limit: 200,
       grade,
-      thicknessMm: q.thickness && thickness > 0 ? thickness : undefined,
+      thicknessMm: query.thickness && thickness > 0 ? thickness : undefined,
       kind,
     }),
     listGrades(em, member.shopId, { limit: 200 }),
@@ -54,15 +54,20 @@ export default async function Stock({
         </label>
         <label className="grid gap-1">
           Thickness (mm)
-          <input name="thickness" defaultValue={q.thickness ?? ""} inputMode="decimal" className={`${control} w-28`} />
+          <input
+            name="thickness"
+            defaultValue={query.thickness ?? ""}
+            inputMode="decimal"
+            className={`${control} w-28`}
+          />
         </label>
         <label className="grid gap-1">
           Kind
           <select name="kind" defaultValue={kind ?? ""} className={control}>
             <option value="">Sheets and remnants</option>
-            {STOCK_KINDS.map((k) => (
-              <option key={k} value={k}>
-                {KIND_WORDS[k]}
+            {STOCK_KINDS.map((stockKind) => (
+              <option key={stockKind} value={stockKind}>
+                {KIND_WORDS[stockKind]}
               </option>
             ))}
           </select>
@@ -85,30 +90,30 @@ export default async function Stock({
           ]}
           empty="No stock matches."
         >
-          {stock.data.map((s) => {
-            const label = `${s.grade} ${s.thicknessMm} mm ${s.lengthMm} × ${s.widthMm}`;
+          {stock.data.map((item) => {
+            const label = `${item.grade} ${item.thicknessMm} mm ${item.lengthMm} × ${item.widthMm}`;
             return (
-              <tr key={s.id} data-testid="stock-row">
-                <Td>{KIND_WORDS[s.kind]}</Td>
-                <Td mono>{s.grade}</Td>
-                <Td mono>{s.thicknessMm} mm</Td>
+              <tr key={item.id} data-testid="stock-row">
+                <Td>{KIND_WORDS[item.kind]}</Td>
+                <Td mono>{item.grade}</Td>
+                <Td mono>{item.thicknessMm} mm</Td>
                 <Td mono>
-                  {s.lengthMm} × {s.widthMm}
+                  {item.lengthMm} × {item.widthMm}
                 </Td>
-                <Td mono>{s.quantity}</Td>
-                <Td mono>{s.reserved}</Td>
-                <Td mono>{s.available}</Td>
-                <Td>{s.location ?? "—"}</Td>
+                <Td mono>{item.quantity}</Td>
+                <Td mono>{item.reserved}</Td>
+                <Td mono>{item.available}</Td>
+                <Td>{item.location ?? "—"}</Td>
                 <Td mono className="text-xs">
-                  {s.sourceProgram ?? "—"}
+                  {item.sourceProgram ?? "—"}
                 </Td>
                 {manage && (
                   <Td>
-                    <AdjustStockForm id={s.id} label={label} />
-                    {s.reserved === 0 && (
+                    <AdjustStockForm id={item.id} label={label} />
+                    {item.reserved === 0 && (
                       <ActionForm
                         action={archiveStockAction}
-                        fields={{ id: s.id }}
+                        fields={{ id: item.id }}
                         confirm={`Archive ${label}? It will no longer be offered to plans.`}
                         label={`Archive ${label}`}
                         buttonClassName="mt-1 text-xs text-ink-muted underline"

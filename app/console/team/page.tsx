@@ -25,19 +25,24 @@ export default async function Team() {
       <div className="grid gap-6 xl:grid-cols-[1fr_22rem]">
         <div className="space-y-6">
           <Table head={["Name", "E-mail", "Role", ...(manage ? [""] : [])]}>
-            {members.map((m) => (
-              <tr key={m.id} data-testid="member">
+            {members.map((person) => (
+              <tr key={person.id} data-testid="member">
                 <Td>
-                  {m.name}
-                  {m.userId === member.userId ? " (you)" : ""}
+                  {person.name}
+                  {person.userId === member.userId ? " (you)" : ""}
                 </Td>
-                <Td mono>{m.email}</Td>
+                <Td mono>{person.email}</Td>
                 <Td>
-                  <Badge value="draft" label={m.role} />
+                  <Badge value="draft" label={person.role} />
                 </Td>
                 {manage && (
                   <Td>
-                    <MemberControls id={m.id} name={m.name} role={m.role} self={m.userId === member.userId} />
+                    <MemberControls
+                      id={person.id}
+                      name={person.name}
+                      role={person.role}
+                      self={person.userId === member.userId}
+                    />
                   </Td>
                 )}
               </tr>
@@ -45,21 +50,21 @@ export default async function Team() {
           </Table>
           {invitations.length > 0 && (
             <Table head={["Invited", "Role", "Link expires", ""]}>
-              {invitations.map((i) => (
-                <tr key={i.id}>
-                  <Td mono>{i.email}</Td>
-                  <Td>{i.role}</Td>
-                  <Td mono>{when(i.expiresAt)}</Td>
-                  <Td>{manage && <RevokeInvite id={i.id} email={i.email} />}</Td>
+              {invitations.map((invitation) => (
+                <tr key={invitation.id}>
+                  <Td mono>{invitation.email}</Td>
+                  <Td>{invitation.role}</Td>
+                  <Td mono>{when(invitation.expiresAt)}</Td>
+                  <Td>{manage && <RevokeInvite id={invitation.id} email={invitation.email} />}</Td>
                 </tr>
               ))}
             </Table>
           )}
           <dl className="grid grid-cols-[6rem_1fr] gap-y-1 text-xs text-ink-muted">
-            {Object.entries(ROLE_TEXT).map(([r, t]) => (
-              <Fragment key={r}>
-                <dt className="font-mono">{r}</dt>
-                <dd>{t}</dd>
+            {Object.entries(ROLE_TEXT).map(([role, text]) => (
+              <Fragment key={role}>
+                <dt className="font-mono">{role}</dt>
+                <dd>{text}</dd>
               </Fragment>
             ))}
           </dl>

@@ -35,45 +35,54 @@ export default async function Webhooks() {
               </p>
             </div>
           )}
-          {endpoints.data.map((e, i) => (
-            <section key={e.id} className="rounded-md border border-scale-200 bg-white p-4" data-testid="endpoint">
+          {endpoints.data.map((endpoint, index) => (
+            <section
+              key={endpoint.id}
+              className="rounded-md border border-scale-200 bg-white p-4"
+              data-testid="endpoint"
+            >
               <div className="flex flex-wrap items-start justify-between gap-2">
                 <div className="min-w-0">
-                  <p className="break-all font-mono text-sm">{e.url}</p>
+                  <p className="break-all font-mono text-sm">{endpoint.url}</p>
                   <p className="text-xs text-ink-muted">
-                    {e.description || "—"} · {e.eventTypes.length ? e.eventTypes.join(", ") : "every event"}
+                    {endpoint.description || "—"} ·{" "}
+                    {endpoint.eventTypes.length ? endpoint.eventTypes.join(", ") : "every event"}
                   </p>
-                  {e.disabledReason && <p className="text-xs text-fault">Disabled: {e.disabledReason}</p>}
-                  {e.secretRotation && (
+                  {endpoint.disabledReason && <p className="text-xs text-fault">Disabled: {endpoint.disabledReason}</p>}
+                  {endpoint.secretRotation && (
                     <p className="text-xs text-caution-dark">
-                      The previous secret signs too until {when(e.secretRotation.previousSecretExpiresAt)}
+                      The previous secret signs too until {when(endpoint.secretRotation.previousSecretExpiresAt)}
                     </p>
                   )}
                 </div>
-                <Badge value={e.enabled ? "enabled" : "disabled"} />
+                <Badge value={endpoint.enabled ? "enabled" : "disabled"} />
               </div>
               <div className="mt-2">
-                <EndpointButtons id={e.id} enabled={e.enabled} manage={manage} test={test} />
+                <EndpointButtons id={endpoint.id} enabled={endpoint.enabled} manage={manage} test={test} />
               </div>
               <h3 className="mb-1 mt-3 text-xs font-semibold uppercase tracking-wide text-ink-muted">
                 Latest deliveries
               </h3>
               <ul className="space-y-0.5 text-xs">
-                {recent[i].data.length === 0 && <li className="text-ink-muted">Nothing sent yet.</li>}
-                {recent[i].data.map((d) => (
-                  <li key={d.id} data-testid="delivery" className="flex flex-wrap items-center gap-2">
-                    <Badge value={d.status} /> <span className="font-mono">{d.eventType}</span>
+                {recent[index].data.length === 0 && <li className="text-ink-muted">Nothing sent yet.</li>}
+                {recent[index].data.map((delivery) => (
+                  <li key={delivery.id} data-testid="delivery" className="flex flex-wrap items-center gap-2">
+                    <Badge value={delivery.status} /> <span className="font-mono">{delivery.eventType}</span>
                     <span className="text-ink-muted">
-                      {d.attempts} attempt{d.attempts === 1 ? "" : "s"}
-                      {d.lastStatusCode ? ` · HTTP ${d.lastStatusCode}` : d.lastError ? ` · ${d.lastError}` : ""} ·{" "}
-                      {when(d.updatedAt)}
+                      {delivery.attempts} attempt{delivery.attempts === 1 ? "" : "s"}
+                      {delivery.lastStatusCode
+                        ? ` · HTTP ${delivery.lastStatusCode}`
+                        : delivery.lastError
+                          ? ` · ${delivery.lastError}`
+                          : ""}{" "}
+                      · {when(delivery.updatedAt)}
                     </span>
                   </li>
                 ))}
               </ul>
               <p className="mt-2 text-xs">
-                <Link className="text-edge" href={`/console/webhooks/${e.id}`}>
-                  Deliveries and settings of {e.description || e.url} →
+                <Link className="text-edge" href={`/console/webhooks/${endpoint.id}`}>
+                  Deliveries and settings of {endpoint.description || endpoint.url} →
                 </Link>
               </p>
             </section>

@@ -1,7 +1,7 @@
 import { NextResponse } from "next/server";
 import { currentMember } from "@/lib/auth/session";
 import { requestEm } from "@/lib/db/orm";
-import { EVENT_TYPES } from "@/lib/schemas/enums";
+import { isEventType } from "@/lib/schemas/enums";
 import { listEvents } from "@/lib/services/webhooks";
 import { textProblem } from "@/lib/text";
 
@@ -24,15 +24,16 @@ function about(subjectId: string, data: Record<string, unknown>): { label: strin
 /** The console's events feed (session, any role of the shop): a page at a time, newest first. */
 export async function GET(request: Request) {
   const member = await currentMember();
-  const q = new URL(request.url).searchParams;
-  const type = (EVENT_TYPES as readonly string[]).includes(q.get("type") ?? "") ? q.get("type")! : undefined;
-  const cursor = q.get("cursor") ?? undefined;
+  const query = new URL(request.url).searchParams;
+  const asked = query.get("type");
+  const type = isEventType(asked) ? asked : undefined;
+  const cursor = query.get("cursor") ?? undefined;
   if (cursor && textProblem(cursor)) return NextResponse.json({ error: "That page cannot be read." }, { status: 400 });
   try {
     const page = await listEvents(await requestEm(), member.shopId, { limit: 50, type, cursor });
     return NextResponse.json(
       {
-        data: page.data.map(({ data, ...e }) => ({ ...e, about: about(e.subjectId, data) })),
+        data: page.data.map(({ data, ...fields }) => ({ ...fields, about: about(fields.subjectId, data) })),
         next_cursor: page.next_cursor,
       },
       { headers: { "Cache-Control": "no-store" } },

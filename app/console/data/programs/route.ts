@@ -1,5 +1,5 @@
 import { NextResponse } from "next/server";
-import { PROGRAM_STATUSES, type ProgramStatus } from "@/lib/schemas/enums";
+import { isProgramStatus } from "@/lib/schemas/enums";
 import { currentMember } from "@/lib/auth/session";
 import { requestEm } from "@/lib/db/orm";
 import { listPrograms } from "@/lib/services/program-list";
@@ -10,27 +10,26 @@ export const dynamic = "force-dynamic";
 /** The console's programs feed (session, any role of the shop): a page at a time, newest first, by state and search. */
 export async function GET(request: Request) {
   const member = await currentMember();
-  const q = new URL(request.url).searchParams;
-  const status = PROGRAM_STATUSES.includes(q.get("status") as ProgramStatus)
-    ? (q.get("status") as ProgramStatus)
-    : undefined;
-  const search = q.get("search")?.trim().slice(0, 100) || undefined;
-  const cursor = q.get("cursor") ?? undefined;
+  const query = new URL(request.url).searchParams;
+  const asked = query.get("status");
+  const status = isProgramStatus(asked) ? asked : undefined;
+  const search = query.get("search")?.trim().slice(0, 100) || undefined;
+  const cursor = query.get("cursor") ?? undefined;
   if ((search && textProblem(search)) || (cursor && textProblem(cursor)))
     return NextResponse.json({ error: "The search holds characters that cannot be searched for." }, { status: 400 });
   try {
     const page = await listPrograms(await requestEm(), member.shopId, { limit: 50, status, search, cursor });
     return NextResponse.json(
       {
-        data: page.data.map((p) => ({
-          id: p.id,
-          reference: p.reference,
-          title: p.title,
-          status: p.status,
-          validation: p.validation,
-          findings: p.check.findings.length,
-          dueAt: p.dueAt,
-          updatedAt: p.updatedAt,
+        data: page.data.map((program) => ({
+          id: program.id,
+          reference: program.reference,
+          title: program.title,
+          status: program.status,
+          validation: program.validation,
+          findings: program.check.findings.length,
+          dueAt: program.dueAt,
+          updatedAt: program.updatedAt,
         })),
         next_cursor: page.next_cursor,
       },

@@ -9,20 +9,20 @@ export const dynamic = "force-dynamic";
 /** The console's request log feed (session, any role of the shop): newest first, filtered. */
 export async function GET(request: Request) {
   const member = await currentMember();
-  const q = new URL(request.url).searchParams;
-  const hours = [1, 24, 168].includes(Number(q.get("hours"))) ? Number(q.get("hours")) : 24;
-  const status = q.get("status");
-  const id = q.get("id")?.trim();
-  for (const value of [id, q.get("cursor"), q.get("key"), q.get("route")]) {
+  const query = new URL(request.url).searchParams;
+  const hours = [1, 24, 168].includes(Number(query.get("hours"))) ? Number(query.get("hours")) : 24;
+  const status = query.get("status");
+  const id = query.get("id")?.trim();
+  for (const value of [id, query.get("cursor"), query.get("key"), query.get("route")]) {
     if (value && textProblem(value))
       return NextResponse.json({ error: "The filter holds characters that cannot be searched for." }, { status: 400 });
   }
   const filter: LogFilter = {
     limit: 50,
-    cursor: q.get("cursor") ?? undefined,
+    cursor: query.get("cursor") ?? undefined,
     id: id || undefined,
-    keyId: q.get("key") || undefined,
-    route: q.get("route") || undefined,
+    keyId: query.get("key") || undefined,
+    route: query.get("route") || undefined,
     statusClass:
       status && ["2xx", "3xx", "4xx", "5xx"].includes(status) ? (status as LogFilter["statusClass"]) : undefined,
     from: id ? undefined : new Date(Date.now() - hours * 3_600_000),

@@ -44,25 +44,26 @@ export default async function EventPage({ params }: { params: Promise<{ id: stri
         head={["Endpoint", "State", "Attempts (time · answer · latency)", ""]}
         empty="This event went to no endpoint."
       >
-        {deliveries.data.map((d) => (
-          <tr key={d.id}>
+        {deliveries.data.map((delivery) => (
+          <tr key={delivery.id}>
             <Td mono>
-              {url.get(d.endpointId) ?? d.endpointId}
-              {d.manual ? " (resent or test)" : ""}
+              {url.get(delivery.endpointId) ?? delivery.endpointId}
+              {delivery.manual ? " (resent or test)" : ""}
             </Td>
             <Td>
-              <Badge value={d.status} />
+              <Badge value={delivery.status} />
             </Td>
             <Td mono>
-              {d.attemptLog.map((a) => (
-                <div key={a.id}>
-                  {when(a.attemptedAt)} · {a.statusCode ?? a.error ?? "no answer"} · {a.latencyMs} ms
-                  {a.responseExcerpt ? ` · “${a.responseExcerpt.slice(0, 60)}”` : ""}
+              {delivery.attemptLog.map((attempt) => (
+                <div key={attempt.id}>
+                  {when(attempt.attemptedAt)} · {attempt.statusCode ?? attempt.error ?? "no answer"} ·{" "}
+                  {attempt.latencyMs} ms
+                  {attempt.responseExcerpt ? ` · “${attempt.responseExcerpt.slice(0, 60)}”` : ""}
                 </div>
               ))}
-              {d.nextAttemptAt && <div className="text-ink-muted">next try {when(d.nextAttemptAt)}</div>}
+              {delivery.nextAttemptAt && <div className="text-ink-muted">next try {when(delivery.nextAttemptAt)}</div>}
             </Td>
-            <Td>{manage && <ResendButton endpoint={d.endpointId} event={event.id} />}</Td>
+            <Td>{manage && <ResendButton endpoint={delivery.endpointId} event={event.id} />}</Td>
           </tr>
         ))}
       </Table>

@@ -11,19 +11,22 @@ export const metadata = { title: "Request" };
 export default async function RequestDetail({ params }: { params: Promise<{ id: string }> }) {
   const { id } = await params;
   const member = await currentMember();
-  const r = await getRequest(await requestEm(), member.shopId, id);
-  if (!r) notFound();
+  const request = await getRequest(await requestEm(), member.shopId, id);
+  if (!request) notFound();
   const rows: [string, string][] = [
-    ["Request id", r.id],
-    ["When", when(r.createdAt)],
-    ["Method", r.method],
-    ["Route", r.route],
-    ["Path", r.path],
-    ["Status", String(r.status)],
-    ["Problem type", r.errorType ? `/problems/${r.errorType}` : "—"],
-    ["Latency", `${r.latencyMs} ms`],
-    ["API key", r.key ? `${r.key.name} (${r.key.prefix}…, ${r.key.id})` : (r.keyId ?? "—")],
-    ["Idempotency-Key", r.idempotencyKey ?? "—"],
+    ["Request id", request.id],
+    ["When", when(request.createdAt)],
+    ["Method", request.method],
+    ["Route", request.route],
+    ["Path", request.path],
+    ["Status", String(request.status)],
+    ["Problem type", request.errorType ? `/problems/${request.errorType}` : "—"],
+    ["Latency", `${request.latencyMs} ms`],
+    [
+      "API key",
+      request.key ? `${request.key.name} (${request.key.prefix}…, ${request.key.id})` : (request.keyId ?? "—"),
+    ],
+    ["Idempotency-Key", request.idempotencyKey ?? "—"],
   ];
   return (
     <>
@@ -32,12 +35,12 @@ export default async function RequestDetail({ params }: { params: Promise<{ id: 
           ← Request log
         </Link>
       </p>
-      <PageHeader title={`${r.method} ${r.path}`} lead="Bodies and secrets are never logged." />
+      <PageHeader title={`${request.method} ${request.path}`} lead="Bodies and secrets are never logged." />
       <dl className="grid max-w-2xl grid-cols-[minmax(0,9rem)_minmax(0,1fr)] gap-x-3 gap-y-1 rounded-md border border-scale-200 bg-white p-4 text-sm">
-        {rows.map(([k, v]) => (
-          <Fragment key={k}>
-            <dt className="text-ink-muted">{k}</dt>
-            <dd className="break-all font-mono">{v}</dd>
+        {rows.map(([field, value]) => (
+          <Fragment key={field}>
+            <dt className="text-ink-muted">{field}</dt>
+            <dd className="break-all font-mono">{value}</dd>
           </Fragment>
         ))}
       </dl>

@@ -19,8 +19,10 @@ import { programLayout } from "@/lib/shear";
 
 export const metadata = { title: "Plan" };
 
-const fmtTime = (s: number) =>
-  s >= 3600 ? `${Math.floor(s / 3600)} h ${Math.round((s % 3600) / 60)} min` : `${Math.round(s / 60)} min`;
+const fmtTime = (seconds: number) =>
+  seconds >= 3600
+    ? `${Math.floor(seconds / 3600)} h ${Math.round((seconds % 3600) / 60)} min`
+    : `${Math.round(seconds / 60)} min`;
 
 export default async function PlanPage({ params }: { params: Promise<{ id: string }> }) {
   const { id } = await params;
@@ -30,7 +32,7 @@ export default async function PlanPage({ params }: { params: Promise<{ id: strin
     if (err instanceof ApiError && err.status === 404) notFound();
     throw err;
   });
-  const u = view.units;
+  const units = view.units;
   const header = (badge: { value: string; label: string }, objective?: string) => (
     <>
       <p className="mb-1 text-xs">
@@ -43,7 +45,7 @@ export default async function PlanPage({ params }: { params: Promise<{ id: strin
         lead={
           <span className="font-mono text-xs">
             {view.id} · {view.grade} ·{" "}
-            {"gauge" in view.thickness ? `${view.thickness.gauge} ga` : `${view.thickness.value} ${u}`}
+            {"gauge" in view.thickness ? `${view.thickness.gauge} ga` : `${view.thickness.value} ${units}`}
             {objective ? ` · ${objective}` : ""}
           </span>
         }
@@ -79,7 +81,7 @@ export default async function PlanPage({ params }: { params: Promise<{ id: strin
     reference: view.reference,
     programs: view.programs,
   };
-  const s = plan.summary;
+  const totals = plan.summary;
   const written = new Map(plan.programs.map((p) => [p.pattern, p.id]));
   const programs = new Map(
     (plan.programs.length
@@ -99,24 +101,30 @@ export default async function PlanPage({ params }: { params: Promise<{ id: strin
           value: plan.coverage === "complete" ? "pass" : "warn",
           label: plan.coverage === "complete" ? "complete" : "partial",
         },
-        `${PLAN_OBJECTIVE_LABELS[plan.options.objective]}${plan.options.trim ? ` · trim ${plan.options.trim} ${u}` : ""}`,
+        `${PLAN_OBJECTIVE_LABELS[plan.options.objective]}${plan.options.trim ? ` · trim ${plan.options.trim} ${units}` : ""}`,
       )}
 
       <div className="mb-6 grid gap-3 sm:grid-cols-3 lg:grid-cols-6">
-        <Stat label="Sheets" value={s.sheets} hint={`${s.patterns} pattern${s.patterns === 1 ? "" : "s"}`} />
+        <Stat
+          label="Sheets"
+          value={totals.sheets}
+          hint={`${totals.patterns} pattern${totals.patterns === 1 ? "" : "s"}`}
+        />
         <Stat
           label="Blanks"
-          value={`${s.blanksPlanned} / ${s.blanksAsked}`}
-          hint={s.short ? `${s.short} not planned` : s.extra ? `${s.extra} extra` : "as asked"}
+          value={`${totals.blanksPlanned} / ${totals.blanksAsked}`}
+          hint={totals.short ? `${totals.short} not planned` : totals.extra ? `${totals.extra} extra` : "as asked"}
         />
         <Stat
           label="Stock used"
-          value={`${s.utilisationPct} %`}
-          hint={plan.options.reusableOffcut ? `${s.netUtilisationPct} % less kept offcuts` : "blank area ÷ sheet area"}
+          value={`${totals.utilisationPct} %`}
+          hint={
+            plan.options.reusableOffcut ? `${totals.netUtilisationPct} % less kept offcuts` : "blank area ÷ sheet area"
+          }
         />
-        <Stat label="Strokes" value={s.strokes} />
-        <Stat label="Turns" value={s.turns} />
-        <Stat label="Estimate" value={fmtTime(s.estimateSeconds)} hint="at the shear, all sheets" />
+        <Stat label="Strokes" value={totals.strokes} />
+        <Stat label="Turns" value={totals.turns} />
+        <Stat label="Estimate" value={fmtTime(totals.estimateSeconds)} hint="at the shear, all sheets" />
       </div>
 
       <div className="grid gap-6 xl:grid-cols-[1fr_22rem]">
@@ -126,14 +134,14 @@ export default async function PlanPage({ params }: { params: Promise<{ id: strin
             <section>
               <h2 className="mb-2 text-sm font-semibold">Findings</h2>
               <Table head={["Severity", "Code", "Where", "Message"]}>
-                {plan.findings.map((f, i) => (
-                  <tr key={i}>
+                {plan.findings.map((finding, index) => (
+                  <tr key={index}>
                     <Td>
-                      <Badge value={f.severity} />
+                      <Badge value={finding.severity} />
                     </Td>
-                    <Td mono>{f.code}</Td>
-                    <Td mono>{f.pointer}</Td>
-                    <Td>{f.message}</Td>
+                    <Td mono>{finding.code}</Td>
+                    <Td mono>{finding.pointer}</Td>
+                    <Td>{finding.message}</Td>
                   </tr>
                 ))}
               </Table>
@@ -142,44 +150,45 @@ export default async function PlanPage({ params }: { params: Promise<{ id: strin
 
           <SafetyNote />
 
-          {plan.patterns.map((p) => {
+          {plan.patterns.map((pattern) => {
             const faulty = [
               ...new Set(
-                p.check.findings
+                pattern.check.findings
                   .map((f) => /^\/cuts\/(\d+)/.exec(f.pointer)?.[1])
                   .filter(Boolean)
                   .map(Number),
               ),
             ];
-            // Strips and pieces come as runs (repeat, count): each copy is one height or one length further on.
-            const marks = p.strips.flatMap((st) =>
-              Array.from({ length: st.repeat }, (_, k) =>
-                st.pieces.flatMap((pc) =>
-                  Array.from({ length: pc.count }, (_, i) => ({
-                    x: pc.x + i * pc.length,
-                    y: pc.y + k * st.height,
-                    w: pc.length,
-                    h: pc.width,
-                    text: pc.label,
+            // Strips and pieces come as runs (repeat, count): each copy is one width or one length further on.
+            const marks = pattern.strips.flatMap((strip) =>
+              Array.from({ length: strip.repeat }, (_, stripCopy) =>
+                strip.pieces.flatMap((piece) =>
+                  Array.from({ length: piece.count }, (_, pieceCopy) => ({
+                    x: piece.x + pieceCopy * piece.length,
+                    y: piece.y + stripCopy * strip.width,
+                    length: piece.length,
+                    width: piece.width,
+                    text: piece.label,
                   })),
                 ),
               ).flat(),
             );
-            const reusable = p.offcuts
-              .filter((o) => o.reusable)
-              .map((o) => ({ x: o.x, y: o.y, w: o.length, h: o.width }));
-            const programId = written.get(p.key);
+            const reusable = pattern.offcuts
+              .filter((offcut) => offcut.reusable)
+              .map((offcut) => ({ x: offcut.x, y: offcut.y, length: offcut.length, width: offcut.width }));
+            const programId = written.get(pattern.key);
             return (
-              <section key={p.key} data-testid={`pattern-${p.key}`}>
+              <section key={pattern.key} data-testid={`pattern-${pattern.key}`}>
                 <h2 className="mb-2 flex flex-wrap items-baseline gap-2 text-sm font-semibold">
-                  Pattern {p.key} · {p.repeats} sheet{p.repeats === 1 ? "" : "s"} of {plan.stock[p.stock].length} ×{" "}
-                  {plan.stock[p.stock].width} {u}
+                  Pattern {pattern.key} · {pattern.repeats} sheet{pattern.repeats === 1 ? "" : "s"} of{" "}
+                  {plan.stock[pattern.stock].length} × {plan.stock[pattern.stock].width} {units}
                   <span className="font-normal text-ink-muted">
-                    {p.rotated ? "width to the blade · " : ""}
-                    {p.utilisationPct} % used · {p.strokes} stroke{p.strokes === 1 ? "" : "s"}, {p.turns} turn
-                    {p.turns === 1 ? "" : "s"} per sheet
+                    {pattern.rotated ? "width to the blade · " : ""}
+                    {pattern.utilisationPct} % used · {pattern.strokes} stroke{pattern.strokes === 1 ? "" : "s"},{" "}
+                    {pattern.turns} turn
+                    {pattern.turns === 1 ? "" : "s"} per sheet
                   </span>
-                  <Badge value={p.check.validation} label={`check: ${p.check.validation}`} />
+                  <Badge value={pattern.check.validation} label={`check: ${pattern.check.validation}`} />
                   {programId && (
                     <Link href={`/console/programs/${programId}`} className="font-normal text-edge hover:underline">
                       program →
@@ -187,32 +196,32 @@ export default async function PlanPage({ params }: { params: Promise<{ id: strin
                   )}
                 </h2>
                 <CutDrawing
-                  sheet={p.sheet}
-                  layout={programLayout({ units: u, sheet: { ...p.sheet, count: 1 }, cuts: p.cuts })}
-                  units={u}
+                  sheet={pattern.sheet}
+                  layout={programLayout({ units: units, sheet: { ...pattern.sheet, count: 1 }, cuts: pattern.cuts })}
+                  units={units}
                   faultyGroups={faulty}
                   marks={marks}
                   reusable={reusable}
                 />
                 <details className="mt-2 text-xs text-ink-muted">
                   <summary className="cursor-pointer">
-                    The program: {p.cuts.length} groups
-                    {p.check.findings.length
-                      ? ` · ${p.check.findings.length} finding${p.check.findings.length === 1 ? "" : "s"}`
+                    The program: {pattern.cuts.length} groups
+                    {pattern.check.findings.length
+                      ? ` · ${pattern.check.findings.length} finding${pattern.check.findings.length === 1 ? "" : "s"}`
                       : ""}
                   </summary>
                   <ol className="mt-1 space-y-0.5">
-                    {p.cuts.map((c, i) => (
-                      <li key={i} className={faulty.includes(i) ? "text-fault" : ""}>
-                        <span className="font-medium">{groupName(i)}</span>: {c.count} stroke{c.count === 1 ? "" : "s"}{" "}
-                        at {c.backgauge} {u}
-                        {c.note ? ` · ${c.note}` : ""}
+                    {pattern.cuts.map((cut, index) => (
+                      <li key={index} className={faulty.includes(index) ? "text-fault" : ""}>
+                        <span className="font-medium">{groupName(index)}</span>: {cut.count} stroke
+                        {cut.count === 1 ? "" : "s"} at {cut.backgauge} {units}
+                        {cut.note ? ` · ${cut.note}` : ""}
                       </li>
                     ))}
                   </ol>
-                  {p.check.findings.map((f, i) => (
-                    <p key={i} className={f.severity === "error" ? "text-fault" : "text-caution-dark"}>
-                      {f.code}: {f.message}
+                  {pattern.check.findings.map((finding, index) => (
+                    <p key={index} className={finding.severity === "error" ? "text-fault" : "text-caution-dark"}>
+                      {finding.code}: {finding.message}
                     </p>
                   ))}
                 </details>
@@ -226,15 +235,15 @@ export default async function PlanPage({ params }: { params: Promise<{ id: strin
             <section className="rounded-md border border-scale-200 bg-white p-4 text-sm" data-testid="plan-programs">
               <h2 className="mb-2 font-semibold">Programs written</h2>
               <ul className="space-y-1">
-                {plan.programs.map((p) => {
-                  const program = programs.get(p.id);
+                {plan.programs.map((entry) => {
+                  const program = programs.get(entry.id);
                   return (
-                    <li key={p.id} className="flex flex-wrap items-center gap-2">
-                      <Link href={`/console/programs/${p.id}`} className="text-edge hover:underline">
-                        {program?.reference ?? p.id}
+                    <li key={entry.id} className="flex flex-wrap items-center gap-2">
+                      <Link href={`/console/programs/${entry.id}`} className="text-edge hover:underline">
+                        {program?.reference ?? entry.id}
                       </Link>
                       {program && <Badge value={program.status} />}
-                      <span className="text-xs text-ink-muted">pattern {p.pattern}</span>
+                      <span className="text-xs text-ink-muted">pattern {entry.pattern}</span>
                     </li>
                   );
                 })}
@@ -247,11 +256,11 @@ export default async function PlanPage({ params }: { params: Promise<{ id: strin
           <section className="rounded-md border border-scale-200 bg-white p-4 text-sm">
             <h2 className="mb-2 font-semibold">Demand</h2>
             <Table head={["Blank", "Size", "Asked", "Planned"]}>
-              {plan.blanks.map((b, i) => (
-                <tr key={i}>
+              {plan.blanks.map((blank, index) => (
+                <tr key={index}>
                   <Td>
-                    {b.label}
-                    {b.canTurn ? (
+                    {blank.label}
+                    {blank.canTurn ? (
                       ""
                     ) : (
                       <span className="text-ink-muted" title="keeps the sheet's direction: grain or finish">
@@ -261,12 +270,12 @@ export default async function PlanPage({ params }: { params: Promise<{ id: strin
                     )}
                   </Td>
                   <Td mono>
-                    {b.length} × {b.width}
+                    {blank.length} × {blank.width}
                   </Td>
-                  <Td mono>{b.quantity}</Td>
-                  <Td mono className={b.short ? "text-fault" : b.extra ? "text-caution-dark" : ""}>
-                    {b.planned}
-                    {b.short ? ` (−${b.short})` : b.extra ? ` (+${b.extra})` : ""}
+                  <Td mono>{blank.quantity}</Td>
+                  <Td mono className={blank.short ? "text-fault" : blank.extra ? "text-caution-dark" : ""}>
+                    {blank.planned}
+                    {blank.short ? ` (−${blank.short})` : blank.extra ? ` (+${blank.extra})` : ""}
                   </Td>
                 </tr>
               ))}
@@ -276,9 +285,9 @@ export default async function PlanPage({ params }: { params: Promise<{ id: strin
           <section className="rounded-md border border-scale-200 bg-white p-4 text-sm">
             <h2 className="mb-2 font-semibold">Stock</h2>
             <ul className="space-y-0.5 font-mono text-xs">
-              {plan.stock.map((st, i) => (
-                <li key={i}>
-                  {st.length} × {st.width} {u}: {st.used} used{st.count !== null ? ` of ${st.count}` : ""}
+              {plan.stock.map((st, index) => (
+                <li key={index}>
+                  {st.length} × {st.width} {units}: {st.used} used{st.count !== null ? ` of ${st.count}` : ""}
                 </li>
               ))}
             </ul>
@@ -286,9 +295,9 @@ export default async function PlanPage({ params }: { params: Promise<{ id: strin
               <>
                 <h3 className="mb-1 mt-3 font-semibold">Offcuts to keep</h3>
                 <ul className="space-y-0.5 font-mono text-xs">
-                  {plan.reusableOffcuts.map((o, i) => (
-                    <li key={i}>
-                      {o.count} × {o.length} × {o.width} {u}
+                  {plan.reusableOffcuts.map((reusableOffcut, index) => (
+                    <li key={index}>
+                      {reusableOffcut.count} × {reusableOffcut.length} × {reusableOffcut.width} {units}
                     </li>
                   ))}
                 </ul>

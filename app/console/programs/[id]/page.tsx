@@ -36,21 +36,21 @@ export default async function ProgramPage({ params }: { params: Promise<{ id: st
     if (err instanceof ApiError && err.status === 404) notFound();
     throw err;
   });
-  const p = viewProgram(entity);
-  const c = p.check;
-  const shear = await em.findOne(Shear, { id: p.shear }, { fields: ["name"] });
-  const shearName = shear?.name ?? p.shear;
-  const errors = c.findings.filter((f) => f.severity === "error");
-  const history = await listEvents(em, member.shopId, { limit: 100, subject: p.id });
+  const program = viewProgram(entity);
+  const check = program.check;
+  const shear = await em.findOne(Shear, { id: program.shear }, { fields: ["name"] });
+  const shearName = shear?.name ?? program.shear;
+  const errors = check.findings.filter((f) => f.severity === "error");
+  const history = await listEvents(em, member.shopId, { limit: 100, subject: program.id });
   const faultyGroups = [
     ...new Set(
-      c.findings
+      check.findings
         .map((f) => /^\/cuts\/(\d+)/.exec(f.pointer)?.[1])
         .filter(Boolean)
         .map(Number),
     ),
   ];
-  const warnings = [...new Set(c.findings.filter((f) => f.severity === "warning").map((f) => f.code))];
+  const warnings = [...new Set(check.findings.filter((f) => f.severity === "warning").map((f) => f.code))];
   const mayRelease = can(member.role, "programs:release");
 
   return (
@@ -61,27 +61,28 @@ export default async function ProgramPage({ params }: { params: Promise<{ id: st
         </Link>
       </p>
       <PageHeader
-        title={`${p.reference}${p.title ? ` · ${p.title}` : ""}`}
+        title={`${program.reference}${program.title ? ` · ${program.title}` : ""}`}
         lead={
           <>
             <span className="block text-sm text-ink" data-testid="program-where">
               On{" "}
-              <Link href={`/console/shears/${p.shear}`} className="text-edge hover:underline">
+              <Link href={`/console/shears/${program.shear}`} className="text-edge hover:underline">
                 {shearName}
               </Link>
               {" · "}
-              {thicknessInWords(p.thickness, p.units, c.thickness)} {p.grade}
+              {thicknessInWords(program.thickness, program.units, check.thickness)} {program.grade}
               {" · "}
-              {p.sheet.count} sheet{p.sheet.count === 1 ? "" : "s"} of {p.sheet.length} × {p.sheet.width} {p.units}
+              {program.sheet.count} sheet{program.sheet.count === 1 ? "" : "s"} of {program.sheet.length} ×{" "}
+              {program.sheet.width} {program.units}
             </span>
             <span className="font-mono text-xs">
-              {p.id} · revision {p.revision}
-              {p.metadata.plan?.startsWith("pln_") && (
+              {program.id} · revision {program.revision}
+              {program.metadata.plan?.startsWith("pln_") && (
                 <>
                   {" "}
                   ·{" "}
-                  <Link href={`/console/plans/${p.metadata.plan}`} className="text-edge hover:underline">
-                    pattern {p.metadata.pattern ?? "?"} of plan {p.metadata.plan}
+                  <Link href={`/console/plans/${program.metadata.plan}`} className="text-edge hover:underline">
+                    pattern {program.metadata.pattern ?? "?"} of plan {program.metadata.plan}
                   </Link>
                 </>
               )}
@@ -89,36 +90,36 @@ export default async function ProgramPage({ params }: { params: Promise<{ id: st
           </>
         }
       >
-        <Badge value={p.status} /> <Badge value={p.validation} label={`check: ${p.validation}`} />
+        <Badge value={program.status} /> <Badge value={program.validation} label={`check: ${program.validation}`} />
       </PageHeader>
 
       <div className="grid gap-6 xl:grid-cols-[1fr_22rem]">
         <div className="space-y-6">
-          {p.routing && <RoutingNote routing={p.routing} />}
+          {program.routing && <RoutingNote routing={program.routing} />}
           <section>
             <h2 className="mb-2 text-sm font-semibold">Findings</h2>
-            {c.findings.length === 0 ? (
+            {check.findings.length === 0 ? (
               <p className="text-sm text-ok">No findings: the program fits this shear and grade.</p>
             ) : (
               <Table head={["Severity", "Where", "Message", "Limit", "Actual", "Code"]}>
-                {c.findings.map((f, i) => (
-                  <tr key={i}>
+                {check.findings.map((finding, index) => (
+                  <tr key={index}>
                     <Td>
-                      <Badge value={f.severity} />
+                      <Badge value={finding.severity} />
                     </Td>
                     <Td>
-                      {pointerInWords(f.pointer)}
+                      {pointerInWords(finding.pointer)}
                       <br />
-                      <span className="font-mono text-xs text-ink-muted">{f.pointer || "/"}</span>
+                      <span className="font-mono text-xs text-ink-muted">{finding.pointer || "/"}</span>
                     </Td>
-                    <Td>{f.message}</Td>
+                    <Td>{finding.message}</Td>
                     <Td mono>
-                      {f.limit ?? "—"} {f.limit !== null ? f.unit : ""}
+                      {finding.limit ?? "—"} {finding.limit !== null ? finding.unit : ""}
                     </Td>
                     <Td mono>
-                      {f.actual ?? "—"} {f.actual !== null ? f.unit : ""}
+                      {finding.actual ?? "—"} {finding.actual !== null ? finding.unit : ""}
                     </Td>
-                    <Td mono>{f.code}</Td>
+                    <Td mono>{finding.code}</Td>
                   </tr>
                 ))}
               </Table>
@@ -128,24 +129,26 @@ export default async function ProgramPage({ params }: { params: Promise<{ id: st
           <section>
             <h2 className="mb-2 text-sm font-semibold">One sheet, as it is cut</h2>
             <CutDrawing
-              sheet={p.sheet}
+              sheet={program.sheet}
               layout={
-                c.layout !== undefined ? c.layout : programLayout({ units: p.units, sheet: p.sheet, cuts: p.cuts })
+                check.layout !== undefined
+                  ? check.layout
+                  : programLayout({ units: program.units, sheet: program.sheet, cuts: program.cuts })
               }
-              units={p.units}
+              units={program.units}
               faultyGroups={faultyGroups}
             />
             <ol className="mt-2 space-y-0.5 text-xs text-ink-muted">
-              {p.cuts.map((cut, i) => (
-                <li key={i} className={faultyGroups.includes(i) ? "text-fault" : ""}>
-                  <span className="font-medium">{groupName(i)}</span>:{" "}
+              {program.cuts.map((cut, index) => (
+                <li key={index} className={faultyGroups.includes(index) ? "text-fault" : ""}>
+                  <span className="font-medium">{groupName(index)}</span>:{" "}
                   {cut.turn
                     ? cut.from !== undefined
                       ? `turn each piece of ${groupName(cut.from)}, then `
                       : "turn each piece, then "
                     : ""}
-                  {cut.count} stroke{cut.count === 1 ? "" : "s"} at {cut.backgauge} {p.units}
-                  {cut.length ? `, ${cut.length} ${p.units} long` : ""}
+                  {cut.count} stroke{cut.count === 1 ? "" : "s"} at {cut.backgauge} {program.units}
+                  {cut.length ? `, ${cut.length} ${program.units} long` : ""}
                   {cut.scrap ? " (trim)" : ""}
                   {cut.note ? ` · ${cut.note}` : ""}
                 </li>
@@ -153,7 +156,7 @@ export default async function ProgramPage({ params }: { params: Promise<{ id: st
             </ol>
           </section>
 
-          {c.setup && (
+          {check.setup && (
             <section>
               <h2 className="mb-2 text-sm font-semibold">Setup</h2>
               <div className="mb-3">
@@ -161,7 +164,7 @@ export default async function ProgramPage({ params }: { params: Promise<{ id: st
               </div>
               <Table head={["Setting", "Value", "From", "Why"]}>
                 {Object.keys(SETUP_LABELS)
-                  .map((key) => [key, c.setup![key as keyof typeof c.setup]] as const)
+                  .map((key) => [key, check.setup![key as keyof typeof check.setup]] as const)
                   .map(
                     ([key, setting]) =>
                       setting && (
@@ -178,23 +181,23 @@ export default async function ProgramPage({ params }: { params: Promise<{ id: st
                       ),
                   )}
               </Table>
-              {c.force && (
+              {check.force && (
                 <p className="mt-2 text-sm text-ink-muted">
                   Force:{" "}
                   <span className="font-mono text-ink">
-                    {c.force.required} {c.force.unit}
+                    {check.force.required} {check.force.unit}
                   </span>{" "}
                   of{" "}
                   <span className="font-mono text-ink">
-                    {c.force.rated} {c.force.unit}
+                    {check.force.rated} {check.force.unit}
                   </span>{" "}
-                  rated ({c.force.capacityUsedPct} %); with dull blades about{" "}
+                  rated ({check.force.capacityUsedPct} %); with dull blades about{" "}
                   <span className="font-mono text-ink">
-                    {c.force.dullBlade.required} {c.force.unit}
+                    {check.force.dullBlade.required} {check.force.unit}
                   </span>{" "}
-                  ({c.force.dullBlade.capacityUsedPct} %). Thickest {p.grade} this shear takes:{" "}
-                  {c.force.maxThicknessForGrade.value} {c.force.maxThicknessForGrade.unit} (
-                  {c.force.maxThicknessForGrade.why})
+                  ({check.force.dullBlade.capacityUsedPct} %). Thickest {program.grade} this shear takes:{" "}
+                  {check.force.maxThicknessForGrade.value} {check.force.maxThicknessForGrade.unit} (
+                  {check.force.maxThicknessForGrade.why})
                 </p>
               )}
             </section>
@@ -204,61 +207,61 @@ export default async function ProgramPage({ params }: { params: Promise<{ id: st
         <aside className="space-y-6">
           <section className="rounded-md border border-scale-200 bg-white p-4 text-sm">
             <h2 className="mb-2 font-semibold">Yield</h2>
-            {c.yield ? (
+            {check.yield ? (
               <dl className="grid grid-cols-2 gap-y-1">
                 <dt className="text-ink-muted">Sheets</dt>
-                <dd className="font-mono">{c.yield.sheets}</dd>
+                <dd className="font-mono">{check.yield.sheets}</dd>
                 <dt className="text-ink-muted">Blanks</dt>
-                <dd className="font-mono">{c.yield.total.blanks}</dd>
+                <dd className="font-mono">{check.yield.total.blanks}</dd>
                 <dt className="text-ink-muted">Strokes</dt>
-                <dd className="font-mono">{c.yield.total.strokes}</dd>
+                <dd className="font-mono">{check.yield.total.strokes}</dd>
                 <dt className="text-ink-muted">Offcut pieces</dt>
-                <dd className="font-mono">{c.yield.total.offcutPieces}</dd>
+                <dd className="font-mono">{check.yield.total.offcutPieces}</dd>
                 <dt className="text-ink-muted">Stock used</dt>
-                <dd className="font-mono">{c.yield.utilisationPct} %</dd>
+                <dd className="font-mono">{check.yield.utilisationPct} %</dd>
               </dl>
             ) : (
               <p className="text-ink-muted">Not worked out (see findings).</p>
             )}
-            {c.yield?.blanks.map((b, i) => (
-              <p key={i} className="mt-1 font-mono text-xs text-ink-muted">
-                {b.count} × {b.width} × {b.length} {c.yield!.lengthUnit}
+            {check.yield?.blanks.map((blank, index) => (
+              <p key={index} className="mt-1 font-mono text-xs text-ink-muted">
+                {blank.count} × {blank.width} × {blank.length} {check.yield!.lengthUnit}
               </p>
             ))}
           </section>
           <section className="rounded-md border border-scale-200 bg-white p-4 text-sm">
             <h2 className="mb-2 font-semibold">Estimate</h2>
-            {c.estimate ? (
+            {check.estimate ? (
               <dl className="grid grid-cols-2 gap-y-1">
                 <dt className="text-ink-muted">Strokes</dt>
-                <dd className="font-mono">{c.estimate.seconds.strokes} s</dd>
+                <dd className="font-mono">{check.estimate.seconds.strokes} s</dd>
                 <dt className="text-ink-muted">Backgauge moves</dt>
-                <dd className="font-mono">{c.estimate.seconds.backgauge} s</dd>
+                <dd className="font-mono">{check.estimate.seconds.backgauge} s</dd>
                 <dt className="text-ink-muted">Turning pieces</dt>
-                <dd className="font-mono">{c.estimate.seconds.turns} s</dd>
+                <dd className="font-mono">{check.estimate.seconds.turns} s</dd>
                 <dt className="text-ink-muted">Loading sheets</dt>
-                <dd className="font-mono">{c.estimate.seconds.sheets} s</dd>
+                <dd className="font-mono">{check.estimate.seconds.sheets} s</dd>
                 <dt className="font-medium">Total</dt>
-                <dd className="font-mono font-medium">{(c.estimate.seconds.total / 60).toFixed(1)} min</dd>
+                <dd className="font-mono font-medium">{(check.estimate.seconds.total / 60).toFixed(1)} min</dd>
               </dl>
             ) : (
               <p className="text-ink-muted">Not worked out.</p>
             )}
           </section>
-          {(p.status === "draft" || ["released", "claimed", "running"].includes(p.status)) && (
+          {(program.status === "draft" || ["released", "claimed", "running"].includes(program.status)) && (
             <section className="rounded-md border border-scale-200 bg-white p-4">
               <h2 className="mb-2 text-sm font-semibold">Actions</h2>
               {mayRelease ? (
                 <ProgramActions
-                  id={p.id}
-                  reference={p.reference}
+                  id={program.id}
+                  reference={program.reference}
                   shearName={shearName}
-                  status={p.status}
+                  status={program.status}
                   errors={errors.length}
                   canCancel
                   warnings={warnings.map((code) => ({
                     code,
-                    message: c.findings.find((f) => f.code === code)?.message ?? code,
+                    message: check.findings.find((f) => f.code === code)?.message ?? code,
                   }))}
                 />
               ) : (
@@ -274,10 +277,10 @@ export default async function ProgramPage({ params }: { params: Promise<{ id: st
               {history.data
                 .slice()
                 .reverse()
-                .map((e) => (
-                  <li key={e.id} className="flex justify-between gap-2">
-                    <span className="font-mono">{e.type}</span>
-                    <span className="text-ink-muted">{when(e.createdAt)}</span>
+                .map((item) => (
+                  <li key={item.id} className="flex justify-between gap-2">
+                    <span className="font-mono">{item.type}</span>
+                    <span className="text-ink-muted">{when(item.createdAt)}</span>
                   </li>
                 ))}
             </ol>

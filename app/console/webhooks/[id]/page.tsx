@@ -11,7 +11,8 @@ import { currentMember } from "@/lib/auth/session";
 import { requestEm } from "@/lib/db/orm";
 import { webhookPayload } from "@/lib/schemas/webhook";
 import { EVENT_TYPES, EVENT_TYPE_WORDS } from "@/lib/schemas/enums";
-import { findEndpoint, listDeliveries, viewEndpoint } from "@/lib/services/webhooks";
+import { findEndpoint, listDeliveries } from "@/lib/services/webhooks";
+import { viewEndpoint } from "@/lib/services/webhook-views";
 import { deleteEndpointAction, resendFailedAction } from "../actions";
 
 export const metadata = { title: "Webhook endpoint" };
@@ -121,22 +122,24 @@ export default async function EndpointPage({
               head={["Event", "State", "Attempts and what was sent and received"]}
               empty="No deliveries match. Send a test event to see one."
             >
-              {page.data.map((d) => (
-                <tr key={d.id} data-testid="delivery">
+              {page.data.map((delivery) => (
+                <tr key={delivery.id} data-testid="delivery">
                   <Td>
-                    <span className="font-mono text-xs">{d.eventType}</span>
+                    <span className="font-mono text-xs">{delivery.eventType}</span>
                     <br />
-                    <Link className="text-xs text-edge hover:underline" href={`/console/events/${d.eventId}`}>
-                      {d.eventId}
+                    <Link className="text-xs text-edge hover:underline" href={`/console/events/${delivery.eventId}`}>
+                      {delivery.eventId}
                     </Link>
-                    {d.manual ? <span className="text-xs text-ink-muted"> · sent by hand</span> : null}
+                    {delivery.manual ? <span className="text-xs text-ink-muted"> · sent by hand</span> : null}
                   </Td>
                   <Td>
-                    <Badge value={d.status} />
-                    {d.nextAttemptAt && <div className="text-xs text-ink-muted">next try {when(d.nextAttemptAt)}</div>}
+                    <Badge value={delivery.status} />
+                    {delivery.nextAttemptAt && (
+                      <div className="text-xs text-ink-muted">next try {when(delivery.nextAttemptAt)}</div>
+                    )}
                   </Td>
                   <Td>
-                    <DeliveryDetails delivery={d} payload={payloads.get(d.eventId) ?? ""} />
+                    <DeliveryDetails delivery={delivery} payload={payloads.get(delivery.eventId) ?? ""} />
                   </Td>
                 </tr>
               ))}

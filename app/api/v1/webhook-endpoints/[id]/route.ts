@@ -3,7 +3,7 @@ import { route } from "@/lib/api/route";
 import * as webhooks from "@/lib/services/webhooks";
 
 export const GET = route(getEndpointOperation, async ({ em, principal, params }) => ({
-  body: webhooks.viewEndpoint(await webhooks.findEndpoint(em, principal.shopId, params.id)),
+  body: await webhooks.getEndpoint(em, principal.shopId, params.id),
 }));
 
 export const PATCH = route(updateEndpointOperation, async ({ em, principal, params, body }) => ({

@@ -232,12 +232,12 @@ export async function storePrograms(em: EntityManager, shopId: string, checked: 
  * (inside a caller's transaction it is read first, so a failed write never aborts that transaction).
  */
 export async function createProgram(em: EntityManager, shopId: string, input: ProgramInputT): Promise<ProgramT> {
-  const first = em.isInTransaction();
-  const [checked] = await checkPrograms(em, shopId, [input], { references: first });
+  const readReferencesFirst = em.isInTransaction();
+  const [checked] = await checkPrograms(em, shopId, [input], { references: readReferencesFirst });
   const taken = async (lookup: EntityManager) =>
     (await existingReferences(lookup, shopId, [input.reference])).get(input.reference) ?? null;
   if (checked instanceof ApiError) {
-    const existingId = first ? null : await taken(em);
+    const existingId = readReferencesFirst ? null : await taken(em);
     throw existingId ? duplicateReference(input.reference, existingId) : checked;
   }
   try {

@@ -15,7 +15,7 @@ import { OUTBOX_CHANNEL } from "../services/events";
 import { sweepExpiredLeases } from "../services/gateway";
 import { mailEndpointDisabled } from "../services/mail";
 import { attemptDelivery } from "./deliver";
-import { dispatchPending, overdueDeliveries } from "./dispatch";
+import { dispatchAll, overdueDeliveries } from "./dispatch";
 import { bullConnection, closeQueue, enqueueAttempt, QUEUE_NAME, type DeliveryJob } from "../queue/queue";
 import { failLostPlan, planInThread, processStoredPlan, requeueOrphanPlans } from "./plan-jobs";
 import { PLAN_QUEUE, planTimeLimitMs, previewTimeLimitMs, type PlanJob } from "../queue/plan-queue";
@@ -43,12 +43,10 @@ export async function runWorker({
       do {
         again = false;
         try {
-          for (;;) {
-            const ids = await dispatchPending(fork());
+          await dispatchAll(fork, (ids) => {
             backlog.push(...ids);
             pump();
-            if (ids.length < 200) break;
-          }
+          });
         } catch (err) {
           log(`dispatch failed: ${(err as Error).message}`);
         }

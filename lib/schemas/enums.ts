@@ -1,4 +1,9 @@
 /** Enumerations shared by entities, schemas and the browser (no imports: safe in any bundle). */
+
+/** A type guard for one of `list`'s values (a query string, a stored text). */
+function isOneOf<T extends string>(list: readonly T[]) {
+  return (value: unknown): value is T => (list as readonly unknown[]).includes(value);
+}
 export const GRADE_FAMILIES = [
   "carbon-steel",
   "hsla-steel",
@@ -22,8 +27,7 @@ export const PROGRAM_STATUSES = [
   "cancelled",
 ] as const;
 export type ProgramStatus = (typeof PROGRAM_STATUSES)[number];
-export const isProgramStatus = (value: unknown): value is ProgramStatus =>
-  (PROGRAM_STATUSES as readonly unknown[]).includes(value);
+export const isProgramStatus = isOneOf(PROGRAM_STATUSES);
 export const ROLES = ["owner", "admin", "developer", "viewer"] as const;
 export type Role = (typeof ROLES)[number];
 export const PLAN_OBJECTIVES = ["fewest_sheets", "least_waste", "fewest_strokes"] as const;
@@ -71,7 +75,7 @@ export const EVENT_TYPES = [
   "endpoint.test",
 ] as const;
 export type EventType = (typeof EVENT_TYPES)[number];
-export const isEventType = (value: unknown): value is EventType => (EVENT_TYPES as readonly unknown[]).includes(value);
+export const isEventType = isOneOf(EVENT_TYPES);
 
 /** What each event says, in a sentence (the console and the reference's webhook descriptions use these). */
 export const EVENT_TYPE_WORDS: Record<EventType, string> = {

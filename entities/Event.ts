@@ -21,7 +21,8 @@ export const Event = defineEntity({
     type: p.enum([...EVENT_TYPES]),
     /** the id of the object the event is about */
     subjectId: p.string(),
-    data: p.json<Record<string, unknown>>(),
+    /** `json`, not `jsonb`: written once, read whole (a webhook's body), never queried inside */
+    data: p.json<Record<string, unknown>>().columnType("json"),
     /** when the event was fanned out into deliveries, one per subscribed endpoint */
     dispatchedAt: p.datetime().nullable(),
     createdAt: p.datetime().onCreate(() => new Date()),

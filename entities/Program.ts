@@ -44,7 +44,8 @@ export const Program = defineEntity({
     dueAt: p.datetime().nullable(),
     /** pass | warn | fail, and the full check: findings, setup, force, yield, estimate */
     validation: p.enum([...VALIDATIONS]),
-    check: p.json<CheckT>(),
+    /** `json`, not `jsonb`: written once, read whole, never queried inside (kilobytes of numbers parse slowly as jsonb) */
+    check: p.json<CheckT>().columnType("json"),
     /** warning codes the caller acknowledged when releasing */
     acknowledged: p.json<string[]>().default("[]"),
     metadata: p.json<Record<string, string>>().default("{}"),

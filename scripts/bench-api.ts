@@ -14,7 +14,8 @@ import autocannon from "autocannon";
 import pg from "pg";
 import { benchDatabase } from "./lib/bench-setup";
 import { appEnv } from "./lib/env";
-import { buildApp, daemon, startDaemon, startWeb, startWorker, stopDaemon, waitForHttp } from "./lib/web";
+import { commandCpuMs, groupCpuMs, machineCpuMs } from "./lib/cpu";
+import { buildApp, daemon, daemonPid, startDaemon, startWeb, startWorker, stopDaemon, waitForHttp } from "./lib/web";
 
 const CONNECTIONS = 32;
 const SECONDS = Number(process.env.BENCH_SECONDS ?? 10);
@@ -42,6 +43,13 @@ const program = () => ({
 
 interface Result {
   rps: number;
+  /** CPU microseconds per request: the web server's, and the whole machine's (every process, this one too) */
+  webCpuUs: number;
+  machineCpuUs: number;
+  /** the same for the worker, PostgreSQL (all its processes) and Redis */
+  workerCpuUs: number;
+  postgresCpuUs: number;
+  redisCpuUs: number;
   p50: number;
   p99: number;
   non2xx: number;
@@ -55,6 +63,13 @@ async function run(
   base = `http://127.0.0.1:${PORT}`,
   seconds = SECONDS,
 ) {
+  const pid = base.endsWith(`:${PORT}`) ? daemonPid(web) : daemonPid(bareServer);
+  const workerPid = daemonPid(worker);
+  const webBefore = pid ? groupCpuMs(pid) : 0;
+  const workerBefore = workerPid ? groupCpuMs(workerPid) : 0;
+  const postgresBefore = commandCpuMs("postgres");
+  const redisBefore = commandCpuMs("redis-server");
+  const machineBefore = machineCpuMs();
   const result = await autocannon({
     url: `${base}${path}`,
     connections: CONNECTIONS,
@@ -63,8 +78,14 @@ async function run(
     headers: { "content-type": "application/json", authorization: `Bearer ${secret}` },
     requests: body ? [{ setupRequest: (req) => ({ ...req, body: JSON.stringify(body()) }) }] : undefined,
   });
+  const requests = Math.max(1, result.requests.total);
   return {
     rps: result.requests.average,
+    webCpuUs: pid ? ((groupCpuMs(pid) - webBefore) * 1000) / requests : 0,
+    machineCpuUs: ((machineCpuMs() - machineBefore) * 1000) / requests,
+    workerCpuUs: workerPid ? ((groupCpuMs(workerPid) - workerBefore) * 1000) / requests : 0,
+    postgresCpuUs: ((commandCpuMs("postgres") - postgresBefore) * 1000) / requests,
+    redisCpuUs: ((commandCpuMs("redis-server") - redisBefore) * 1000) / requests,
     p50: result.latency.p50,
     p99: result.latency.p99,
     non2xx: result.non2xx,
@@ -139,9 +160,10 @@ try {
 }
 
 const healthRps = results.health!.rps;
+const ms = (us: number) => (us / 1000).toFixed(2);
 const line = (name: string, result: Result | undefined, extra = "") =>
   result
-    ? `  ${name.padEnd(34)} ${result.rps.toFixed(0).padStart(6)} req/s   p50 ${String(result.p50).padStart(5)} ms   p99 ${String(result.p99).padStart(5)} ms   ×health ${(result.rps / healthRps).toFixed(2).padStart(5)}   non-2xx ${result.non2xx}  errors ${result.errors}${extra}`
+    ? `  ${name.padEnd(34)} ${result.rps.toFixed(0).padStart(6)} req/s   p50 ${String(result.p50).padStart(5)} ms   p99 ${String(result.p99).padStart(5)} ms   ×health ${(result.rps / healthRps).toFixed(2).padStart(5)}   CPU/req ms: server ${ms(result.webCpuUs)}, worker ${ms(result.workerCpuUs)}, postgres ${ms(result.postgresCpuUs)}, redis ${ms(result.redisCpuUs)}, machine ${ms(result.machineCpuUs)}   non-2xx ${result.non2xx}  errors ${result.errors}${extra}`
     : `  ${name.padEnd(34)} (not run)`;
 const { create, validate, batch } = results;
 const batchPrograms = batch ? batch.rps * BATCH : 0;

@@ -118,20 +118,20 @@ export async function checkPrograms(
 }
 
 /**
- * What a new program sets (the other columns keep their defaults), as `jsonb_to_recordset`
+ * What a new program sets (the other columns keep their defaults), as `json_to_recordset`
  * reads it: the row, its event's id and the program as the API shows it, which is also the
  * event's body and holds the check, so the largest part is sent once.
  */
 const ROW =
-  "id text, shop_id text, shear_id text, reference text, title text, revision int, input jsonb, grade_code text, units text, priority int, due_at timestamptz, validation text, metadata jsonb, routing jsonb, created_at timestamptz, updated_at timestamptz, event_id text, view jsonb";
+  "id text, shop_id text, shear_id text, reference text, title text, revision int, input jsonb, grade_code text, units text, priority int, due_at timestamptz, validation text, metadata jsonb, routing jsonb, created_at timestamptz, updated_at timestamptz, event_id text, view json";
 const COLUMNS = ROW.split(", ")
   .map((c) => c.split(" ")[0])
   .slice(0, -2)
   .join(", ");
-const INSERT = `with x as materialized (select * from jsonb_to_recordset(?::jsonb) as x(${ROW})),
+const INSERT = `with x as materialized (select * from json_to_recordset(?::json) as x(${ROW})),
   p as (insert into programs (${COLUMNS}, "check") select ${COLUMNS}, view->'check' from x returning 1),
   e as (insert into events (id, shop_id, type, subject_id, data, created_at)
-        select event_id, shop_id, 'program.created', id, jsonb_build_object('program', view), created_at from x returning 1)
+        select event_id, shop_id, 'program.created', id, json_build_object('program', view), created_at from x returning 1)
   select (select count(*) from p) as programs, (select count(*) from e) as events`;
 
 /**

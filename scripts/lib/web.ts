@@ -17,14 +17,15 @@ export function daemon(dataRoot: string, name: string): Daemon {
   return { name, pidFile: path.join(dataRoot, `${name}.pid`), logFile: path.join(dataRoot, "logs", `${name}.log`) };
 }
 
-function readPid(service: Daemon): number | null {
+/** The daemon's process id (it leads its own process group), or null when it has none. */
+export function daemonPid(service: Daemon): number | null {
   if (!existsSync(service.pidFile)) return null;
   const pid = Number(readFileSync(service.pidFile, "utf8"));
   return Number.isInteger(pid) && pid > 0 ? pid : null;
 }
 
 export function daemonRunning(service: Daemon): boolean {
-  return pidAlive(readPid(service));
+  return pidAlive(daemonPid(service));
 }
 
 export function startDaemon(service: Daemon, cmd: string, args: string[], env: NodeJS.ProcessEnv): number {
@@ -38,7 +39,7 @@ export function startDaemon(service: Daemon, cmd: string, args: string[], env: N
 
 /** Stop a daemon and its children (it leads its own process group). */
 export async function stopDaemon(service: Daemon): Promise<"stopped" | "not running"> {
-  const pid = readPid(service);
+  const pid = daemonPid(service);
   if (!pidAlive(pid)) {
     rmSync(service.pidFile, { force: true });
     return "not running";

@@ -4,49 +4,47 @@
  * pending deliveries whose attempt is overdue (a lost job, a crashed worker) to queue again.
  */
 import type { EntityManager } from "@mikro-orm/postgresql";
-import { Delivery, Event, WebhookEndpoint } from "../../entities";
-import type { EventType } from "../schemas/enums";
+import { newId } from "../ids";
 
 /** Events taken in one round; a full round means more may be waiting. */
 export const DISPATCH_BATCH = 200;
 const OVERDUE_MS = 10_000;
 
 /**
- * Fan out one round of undispatched events: how many were taken, and the new deliveries' ids. The
- * events are taken and marked in one statement that reads only their id, shop and type: their
- * bodies are read when a delivery is attempted.
+ * Fan out one round of undispatched events: how many were taken, and the new deliveries' ids. One
+ * statement takes and marks the events (reading only their id, shop and type: their bodies are read
+ * when a delivery is attempted) and pairs them with their shops' subscribed, enabled endpoints; one
+ * more writes the deliveries, in the same transaction, so an event is marked only with its deliveries.
  */
 export async function dispatchPending(em: EntityManager): Promise<{ taken: number; deliveries: string[] }> {
   return em.transactional(async (tx) => {
     const now = new Date();
-    const rows = await tx.execute<{ id: string; shop_id: string; type: EventType }[]>(
-      `with taken as (select id from events where dispatched_at is null order by id limit ${DISPATCH_BATCH} for update skip locked)
-       update events e set dispatched_at = ? from taken where e.id = taken.id returning e.id, e.shop_id, e.type`,
+    const pairs = await tx.execute<{ id: string; shop_id: string; endpoint_id: string | null }[]>(
+      `with taken as (select id from events where dispatched_at is null order by id limit ${DISPATCH_BATCH} for update skip locked),
+       marked as (update events e set dispatched_at = ? from taken where e.id = taken.id returning e.id, e.shop_id, e.type)
+       select m.id, m.shop_id, w.id as endpoint_id
+       from marked m left join webhook_endpoints w on w.shop_id = m.shop_id and w.enabled
+         and m.type <> 'endpoint.test' -- test events go only to the endpoint that asked
+         and (jsonb_array_length(w.event_types) = 0 or w.event_types @> jsonb_build_array(m.type))
+       order by m.id, w.id`,
       [now],
     );
-    if (!rows.length) return { taken: 0, deliveries: [] };
-    rows.sort((a, b) => (a.id < b.id ? -1 : a.id > b.id ? 1 : 0));
-    const shopIds = [...new Set(rows.map((e) => e.shop_id))];
-    const endpoints = await tx.find(WebhookEndpoint, { shop: { $in: shopIds }, enabled: true });
-    if (!endpoints.length) return { taken: rows.length, deliveries: [] };
-    const created: { id: string }[] = [];
-    for (const event of rows) {
-      if (event.type === "endpoint.test") continue; // test events go only to the endpoint that asked
-      for (const ep of endpoints) {
-        if (ep.shop.id !== event.shop_id) continue;
-        if (ep.eventTypes.length && !ep.eventTypes.includes(event.type)) continue;
-        created.push(
-          tx.create(Delivery, {
-            shop: ep.shop,
-            event: tx.getReference(Event, event.id),
-            endpoint: ep,
-            nextAttemptAt: now,
-          }),
-        );
-      }
-    }
-    await tx.flush();
-    return { taken: rows.length, deliveries: created.map((d) => d.id) }; // ids are assigned at flush
+    const taken = new Set(pairs.map((pair) => pair.id)).size;
+    const made = pairs.filter((pair) => pair.endpoint_id !== null);
+    if (!made.length) return { taken, deliveries: [] };
+    const rows = made.map((pair) => ({
+      id: newId("delivery"),
+      shop_id: pair.shop_id,
+      event_id: pair.id,
+      endpoint_id: pair.endpoint_id,
+    }));
+    await tx.execute(
+      `insert into deliveries (id, shop_id, event_id, endpoint_id, status, attempts, next_attempt_at, manual, created_at, updated_at)
+       select id, shop_id, event_id, endpoint_id, 'pending', 0, ?, false, ?, ?
+       from json_to_recordset(?::json) as d(id text, shop_id text, event_id text, endpoint_id text)`,
+      [now, now, now, JSON.stringify(rows)],
+    );
+    return { taken, deliveries: rows.map((row) => row.id) };
   });
 }
 

@@ -23,6 +23,9 @@ import { PLAN_QUEUE, planTimeLimitMs, previewTimeLimitMs, type PlanJob } from ".
 /** A plan job's lock: a worker that dies loses it within this, and another worker takes the plan over. */
 const PLAN_LOCK_MS = Number(process.env.SHEARWIRE_PLAN_LOCK_MS ?? 15_000);
 
+/** the shortest time between the starts of two fan-out rounds, in milliseconds */
+const DISPATCH_INTERVAL_MS = Number(process.env.SHEARWIRE_DISPATCH_INTERVAL_MS ?? 10);
+
 const log = (msg: string) => console.log(`[worker] ${new Date().toISOString()} ${msg}`);
 
 export async function runWorker({
@@ -34,6 +37,7 @@ export async function runWorker({
 
   let dispatching: Promise<void> | null = null;
   let again = false;
+  let lastRound = -Infinity;
   const dispatch = () => {
     if (dispatching) {
       again = true;
@@ -41,6 +45,11 @@ export async function runWorker({
     }
     dispatching = (async () => {
       do {
+        // Rounds start at most every DISPATCH_INTERVAL_MS: a lone change goes out at once, while
+        // under a stream of changes each round takes several events instead of one.
+        const wait = lastRound + DISPATCH_INTERVAL_MS - performance.now();
+        if (wait > 0) await new Promise((resolve) => setTimeout(resolve, wait));
+        lastRound = performance.now();
         again = false;
         try {
           await dispatchAll(fork, (ids) => {

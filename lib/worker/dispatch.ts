@@ -4,6 +4,7 @@
  * pending deliveries whose attempt is overdue (a lost job, a crashed worker) to queue again.
  */
 import type { EntityManager } from "@mikro-orm/postgresql";
+import { runPrepared } from "../db/prepared";
 import { newId } from "../ids";
 
 /** Events taken in one round; a full round means more may be waiting. */
@@ -19,7 +20,9 @@ const OVERDUE_MS = 10_000;
 export async function dispatchPending(em: EntityManager): Promise<{ taken: number; deliveries: string[] }> {
   return em.transactional(async (tx) => {
     const now = new Date();
-    const pairs = await tx.execute<{ id: string; shop_id: string; endpoint_id: string | null }[]>(
+    const pairs = await runPrepared<{ id: string; shop_id: string; endpoint_id: string | null }>(
+      tx,
+      "dispatch-take",
       `with taken as (select id from events where dispatched_at is null order by id limit ${DISPATCH_BATCH} for update skip locked),
        marked as (update events e set dispatched_at = ? from taken where e.id = taken.id returning e.id, e.shop_id, e.type)
        select m.id, m.shop_id, w.id as endpoint_id
@@ -38,7 +41,9 @@ export async function dispatchPending(em: EntityManager): Promise<{ taken: numbe
       event_id: pair.id,
       endpoint_id: pair.endpoint_id,
     }));
-    await tx.execute(
+    await runPrepared(
+      tx,
+      "dispatch-deliveries",
       `insert into deliveries (id, shop_id, event_id, endpoint_id, status, attempts, next_attempt_at, manual, created_at, updated_at)
        select id, shop_id, event_id, endpoint_id, 'pending', 0, ?, false, ?, ?
        from json_to_recordset(?::json) as d(id text, shop_id text, event_id text, endpoint_id text)`,

@@ -8,7 +8,7 @@
  * validate ≥ 0.8 × health, batches of 100 ≥ 10 × single create in programs per second.
  * Not a test: it reports, it does not fail. `BENCH_ONLY=create,batch` runs those routes (health
  * always runs, as the yardstick); `BENCH_CPU_PROF=<folder>` writes the web server's CPU profile
- * there when it stops.
+ * there when it stops, and the worker's in its `worker` folder.
  */
 import autocannon from "autocannon";
 import pg from "pg";
@@ -110,7 +110,14 @@ if (cpuProf)
     env,
   );
 else await startWeb(web, PORT, env);
-startWorker(worker, env);
+if (cpuProf)
+  startDaemon(
+    worker,
+    "node_modules/.bin/tsx",
+    ["--cpu-prof", `--cpu-prof-dir=${cpuProf}/worker`, "scripts/worker.ts"],
+    env,
+  );
+else startWorker(worker, env);
 startDaemon(bareServer, "node_modules/.bin/tsx", ["scripts/bench-bare-server.ts", String(BARE_PORT), url], env);
 await waitForHttp(`http://127.0.0.1:${PORT}/api/v1/health`, web);
 await waitForHttp(`http://127.0.0.1:${BARE_PORT}/`, bareServer);

@@ -20,7 +20,12 @@ export interface ListOptions {
 
 // ---------------------------------------------------------------- shears
 
-export function viewShear(shear: ShearEntity): ShearT {
+/** A shear's own fields: an entity, or a row read without one (lib/services/lookups.ts). */
+export type ShearRecord = Omit<ShearEntity, "shop">;
+/** A grade's own fields: an entity, or a row read without one. */
+export type GradeRecord = Omit<GradeEntity, "shop">;
+
+export function viewShear(shear: ShearRecord): ShearT {
   return {
     id: shear.id,
     name: shear.name,
@@ -50,7 +55,7 @@ export function viewShear(shear: ShearEntity): ShearT {
   };
 }
 
-export function shearProfile(shear: ShearEntity): ShearProfile {
+export function shearProfile(shear: ShearRecord): ShearProfile {
   const { archivedAt: _a, createdAt: _c, updatedAt: _u, description: _d, ...profile } = viewShear(shear);
   return {
     ...profile,
@@ -126,7 +131,7 @@ export async function archiveShear(em: EntityManager, shopId: string, id: string
 
 // ---------------------------------------------------------------- grades
 
-export function viewGrade(grade: GradeEntity): GradeT {
+export function viewGrade(grade: GradeRecord): GradeT {
   return {
     id: grade.id,
     code: grade.code,
@@ -148,7 +153,7 @@ export function viewGrade(grade: GradeEntity): GradeT {
   };
 }
 
-export function gradeProfile(grade: GradeEntity): GradeProfile {
+export function gradeProfile(grade: GradeRecord): GradeProfile {
   const view = viewGrade(grade);
   return {
     code: view.code,

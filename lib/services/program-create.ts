@@ -5,12 +5,12 @@
  * `program.created` events are written in one transaction, one insert for each table.
  */
 import { UniqueConstraintViolationException, type EntityManager } from "@mikro-orm/postgresql";
-import { type ProgramEntity, type ShearEntity } from "../../entities";
+import type { ProgramEntity } from "../../entities";
 import { ApiError, conflict, invalidRequest } from "../errors";
 import type { ProgramInputT, ProgramT } from "../schemas/program";
 import type { RoutingT } from "../schemas/settings";
 import { checkProgram, type CheckResult } from "../shear";
-import { gradeProfile, shearProfile } from "./catalog";
+import { gradeProfile, shearProfile, type ShearRecord } from "./catalog";
 import { newId } from "../ids";
 import { runPrepared } from "../db/prepared";
 import { rememberJsonText } from "../json-text";
@@ -25,7 +25,7 @@ export const DEFAULT_PRIORITY = 5;
 /** A program that passed its checks and can be written. */
 export interface Checked {
   input: ProgramInputT;
-  shear: ShearEntity;
+  shear: ShearRecord;
   check: CheckResult;
   /** how the shear was chosen, when the program named none */
   routing: RoutingT | null;

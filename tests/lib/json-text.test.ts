@@ -1,6 +1,6 @@
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
-import { rememberJsonText, stringify } from "../../lib/json-text";
+import { holdsJsonText, rememberJsonText, stringify } from "../../lib/json-text";
 
 describe("stringify", () => {
   it("is JSON.stringify for values with nothing remembered", () => {
@@ -19,19 +19,30 @@ describe("stringify", () => {
       Object.assign(Object.create(null), { bare: 1 }),
       { data: [{ index: 0, program: { id: "prg_1", n: 1.1 } }] },
     ];
-    for (const value of values) expect(stringify(value)).toBe(JSON.stringify(value));
+    for (const value of values) {
+      expect(stringify(value)).toBe(JSON.stringify(value));
+      if (value !== null && typeof value === "object")
+        expect(stringify(holdsJsonText(value))).toBe(JSON.stringify(value));
+    }
     expect(stringify(undefined)).toBe(JSON.stringify(undefined));
   });
 
-  it("reuses remembered text wherever the value appears in the first levels", () => {
+  it("reuses remembered text for the value itself, and within the first levels of a value marked as holding some", () => {
     const program = { id: "prg_1", check: { layout: { rectangles: [{ x: 1.25 }] } } };
     const text = JSON.stringify(program);
     rememberJsonText(program, text);
-    const bodies = [program, { data: [program, program] }, { data: [{ index: 0, status: 201, program }] }];
+    const bodies = [
+      program,
+      holdsJsonText({ data: [program, program] }),
+      holdsJsonText({ data: [{ index: 0, status: 201, program }] }),
+    ];
     for (const body of bodies) expect(stringify(body)).toBe(JSON.stringify(body));
     // the remembered text is what is sent: a different text shows it was used
     const marked = rememberJsonText({ id: "prg_2" }, '{"id":"prg_2","from":"text"}');
-    expect(stringify({ data: [marked] })).toBe('{"data":[{"id":"prg_2","from":"text"}]}');
+    expect(stringify(marked)).toBe('{"id":"prg_2","from":"text"}');
+    expect(stringify(holdsJsonText({ data: [marked] }))).toBe('{"data":[{"id":"prg_2","from":"text"}]}');
+    // an answer not marked is serialised as it is, in one JSON.stringify
+    expect(stringify({ data: [marked] })).toBe('{"data":[{"id":"prg_2"}]}');
   });
 
   it("gives JSON.stringify's text for any JSON value, with any of its objects remembered", () => {
@@ -50,6 +61,8 @@ describe("stringify", () => {
           rememberJsonText(chosen, JSON.stringify(chosen));
         }
         expect(stringify(value)).toBe(JSON.stringify(value));
+        if (value !== null && typeof value === "object")
+          expect(stringify(holdsJsonText(value))).toBe(JSON.stringify(value));
       }),
       { numRuns: 2000, seed: 11 },
     );

@@ -1,13 +1,11 @@
 /**
  * The outbox's other half: events not yet fanned out become one delivery per subscribed,
- * enabled endpoint, in one statement that also marks them dispatched. A sweeper finds
+ * enabled endpoint, in one transaction that also marks them dispatched. A sweeper finds
  * pending deliveries whose attempt is overdue (a lost job, a crashed worker) to queue again.
  */
 import type { EntityManager } from "@mikro-orm/postgresql";
 import { runPrepared } from "../db/prepared";
-import { ID_PREFIXES } from "../ids";
-
-const DELIVERY_PREFIX = ID_PREFIXES.delivery;
+import { newId } from "../ids";
 
 /** Events taken in one round; a full round means more may be waiting. */
 export const DISPATCH_BATCH = 200;
@@ -15,32 +13,44 @@ const OVERDUE_MS = 10_000;
 
 /**
  * Fan out one round of undispatched events: how many were taken, and the new deliveries' ids. One
- * statement (so one transaction, with no round trips to open and close it) takes and marks the
- * events, reading only their id, shop and type (bodies are read when a delivery is attempted), and
- * writes a delivery for each subscribed, enabled endpoint of their shops: an event is marked only
- * with its deliveries. A fanned-out delivery's id is a ULID made in the statement: the event's time,
- * then 64 bits of the MD5 of the event and endpoint ids (hex digits are base-32 digits too), so it
- * sorts with its event and differs for every pair.
+ * statement takes and marks the events (reading only their id, shop and type: their bodies are read
+ * when a delivery is attempted) and pairs them with their shops' subscribed, enabled endpoints; one
+ * more writes the deliveries, in the same transaction, so an event is marked only with its deliveries.
  */
 export async function dispatchPending(em: EntityManager): Promise<{ taken: number; deliveries: string[] }> {
-  const now = new Date();
-  const [round] = await runPrepared<{ taken: number; deliveries: string[] }>(
-    em,
-    "dispatch-round",
-    `with taken as (select id from events where dispatched_at is null order by id limit ${DISPATCH_BATCH} for update skip locked),
-     marked as (update events e set dispatched_at = ? from taken where e.id = taken.id returning e.id, e.shop_id, e.type),
-     made as (
-       insert into deliveries (id, shop_id, event_id, endpoint_id, status, attempts, next_attempt_at, manual, created_at, updated_at)
-       select '${DELIVERY_PREFIX}_' || substr(split_part(m.id, '_', 2), 1, 10) || upper(substr(md5(m.id || ' ' || w.id), 1, 16)),
-              m.shop_id, m.id, w.id, 'pending', 0, ?, false, ?, ?
-       from marked m join webhook_endpoints w on w.shop_id = m.shop_id and w.enabled
+  return em.transactional(async (tx) => {
+    const now = new Date();
+    const pairs = await runPrepared<{ id: string; shop_id: string; endpoint_id: string | null }>(
+      tx,
+      "dispatch-take",
+      `with taken as (select id from events where dispatched_at is null order by id limit ${DISPATCH_BATCH} for update skip locked),
+       marked as (update events e set dispatched_at = ? from taken where e.id = taken.id returning e.id, e.shop_id, e.type)
+       select m.id, m.shop_id, w.id as endpoint_id
+       from marked m left join webhook_endpoints w on w.shop_id = m.shop_id and w.enabled
          and m.type <> 'endpoint.test' -- test events go only to the endpoint that asked
          and (jsonb_array_length(w.event_types) = 0 or w.event_types @> jsonb_build_array(m.type))
-       returning id)
-     select (select count(*) from marked)::int as taken, coalesce((select json_agg(id order by id) from made), '[]') as deliveries`,
-    [now, now, now, now],
-  );
-  return round;
+       order by m.id, w.id`,
+      [now],
+    );
+    const taken = new Set(pairs.map((pair) => pair.id)).size;
+    const made = pairs.filter((pair) => pair.endpoint_id !== null);
+    if (!made.length) return { taken, deliveries: [] };
+    const rows = made.map((pair) => ({
+      id: newId("delivery"),
+      shop_id: pair.shop_id,
+      event_id: pair.id,
+      endpoint_id: pair.endpoint_id,
+    }));
+    await runPrepared(
+      tx,
+      "dispatch-deliveries",
+      `insert into deliveries (id, shop_id, event_id, endpoint_id, status, attempts, next_attempt_at, manual, created_at, updated_at)
+       select id, shop_id, event_id, endpoint_id, 'pending', 0, ?, false, ?, ?
+       from json_to_recordset(?::json) as d(id text, shop_id text, event_id text, endpoint_id text)`,
+      [now, now, now, JSON.stringify(rows)],
+    );
+    return { taken, deliveries: rows.map((row) => row.id) };
+  });
 }
 
 /**

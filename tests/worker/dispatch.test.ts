@@ -76,4 +76,62 @@ describe("fanning out events", () => {
     expect(rounds).toEqual([DISPATCH_BATCH, 10]); // the second endpoint takes only released programs
     expect(Number(await waiting())).toBe(0);
   });
+
+  it("makes one pending delivery with a valid id per event and endpoint; test events make none", async () => {
+    const shop = await burst("ids", 3);
+    const em = orm.em.fork();
+    for (const url of ["https://erp.example/a", "https://erp.example/b"])
+      em.create(WebhookEndpoint, { shop: em.getReference(Shop, shop.id), url, secret: "whsec_dGVzdA==" });
+    em.create(Event, { shop, type: "endpoint.test", subjectId: "whe_test", data: {} });
+    await em.flush();
+    const written: string[] = [];
+    await dispatchAll(
+      () => orm.em.fork(),
+      (ids) => written.push(...ids),
+    );
+    expect(written).toHaveLength(6); // three events × two endpoints; the test event goes to no one here
+    expect(new Set(written).size).toBe(6);
+    for (const id of written) expect(id).toMatch(/^dlv_[0-9A-Z]{26}$/);
+    const rows = await orm.em
+      .fork()
+      .getConnection()
+      .execute<{ id: string; event_id: string; status: string; attempts: number; next_attempt_at: unknown }[]>(
+        `select id, event_id, status, attempts, next_attempt_at from deliveries where shop_id = ?`,
+        [shop.id],
+      );
+    expect(rows.map((r) => r.id).sort()).toEqual([...written].sort());
+    for (const row of rows) {
+      expect(row).toMatchObject({ status: "pending", attempts: 0 });
+      expect(row.next_attempt_at).not.toBeNull();
+    }
+  });
+
+  it("fans each event out exactly once when two workers dispatch the same burst at once", async () => {
+    const shop = await burst("twice", DISPATCH_BATCH * 2 + 30);
+    const em = orm.em.fork();
+    em.create(WebhookEndpoint, {
+      shop: em.getReference(Shop, shop.id),
+      url: "https://erp.example/hooks",
+      secret: "whsec_dGVzdA==",
+    });
+    await em.flush();
+    const written: string[] = [];
+    const [first, second] = await Promise.all(
+      [0, 1].map(() =>
+        dispatchAll(
+          () => orm.em.fork(),
+          (ids) => written.push(...ids),
+        ),
+      ),
+    );
+    expect(first + second).toBe(DISPATCH_BATCH * 2 + 30);
+    expect(written).toHaveLength(DISPATCH_BATCH * 2 + 30);
+    const [{ events }] = await orm.em
+      .fork()
+      .getConnection()
+      .execute<{ events: string }[]>(`select count(distinct event_id) as events from deliveries where shop_id = ?`, [
+        shop.id,
+      ]);
+    expect(Number(events)).toBe(DISPATCH_BATCH * 2 + 30);
+  });
 });

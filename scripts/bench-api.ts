@@ -14,7 +14,7 @@ import autocannon from "autocannon";
 import pg from "pg";
 import { benchDatabase } from "./lib/bench-setup";
 import { appEnv } from "./lib/env";
-import { commandCpuMs, groupCpuMs, machineCpuMs } from "./lib/cpu";
+import { cpuSnapshot } from "./lib/cpu";
 import { buildApp, daemon, daemonPid, startDaemon, startWeb, startWorker, stopDaemon, waitForHttp } from "./lib/web";
 
 const CONNECTIONS = 32;
@@ -65,11 +65,7 @@ async function run(
 ) {
   const pid = base.endsWith(`:${PORT}`) ? daemonPid(web) : daemonPid(bareServer);
   const workerPid = daemonPid(worker);
-  const webBefore = pid ? groupCpuMs(pid) : 0;
-  const workerBefore = workerPid ? groupCpuMs(workerPid) : 0;
-  const postgresBefore = commandCpuMs("postgres");
-  const redisBefore = commandCpuMs("redis-server");
-  const machineBefore = machineCpuMs();
+  const before = cpuSnapshot();
   const result = await autocannon({
     url: `${base}${path}`,
     connections: CONNECTIONS,
@@ -78,14 +74,17 @@ async function run(
     headers: { "content-type": "application/json", authorization: `Bearer ${secret}` },
     requests: body ? [{ setupRequest: (req) => ({ ...req, body: JSON.stringify(body()) }) }] : undefined,
   });
+  const after = cpuSnapshot();
   const requests = Math.max(1, result.requests.total);
+  const perRequest = (ms: (snapshot: typeof before) => number) => ((ms(after) - ms(before)) * 1000) / requests;
+  const group = (leader: number | null) => (snapshot: typeof before) => (leader && snapshot.groups.get(leader)) || 0;
   return {
     rps: result.requests.average,
-    webCpuUs: pid ? ((groupCpuMs(pid) - webBefore) * 1000) / requests : 0,
-    machineCpuUs: ((machineCpuMs() - machineBefore) * 1000) / requests,
-    workerCpuUs: workerPid ? ((groupCpuMs(workerPid) - workerBefore) * 1000) / requests : 0,
-    postgresCpuUs: ((commandCpuMs("postgres") - postgresBefore) * 1000) / requests,
-    redisCpuUs: ((commandCpuMs("redis-server") - redisBefore) * 1000) / requests,
+    webCpuUs: perRequest(group(pid)),
+    machineCpuUs: perRequest((snapshot) => snapshot.machine),
+    workerCpuUs: perRequest(group(workerPid)),
+    postgresCpuUs: perRequest((snapshot) => snapshot.postgres),
+    redisCpuUs: perRequest((snapshot) => snapshot.redis),
     p50: result.latency.p50,
     p99: result.latency.p99,
     non2xx: result.non2xx,

@@ -10,7 +10,7 @@
  */
 import type { EntityManager } from "@mikro-orm/postgresql";
 
-export const WAKE_INTERVAL_MS = 10;
+const WAKE_INTERVAL_MS = 10;
 
 interface Channel {
   pending: boolean;

@@ -29,10 +29,11 @@ function byShopAnd(column: string, keys: string[]): [string, string[]] {
 }
 
 /**
- * A row of `entity`'s table as a plain record of its own (scalar) fields, named as the entity
- * names them. node-postgres has already typed the values (numbers, parsed JSON) but timestamps,
- * which become dates here, so this is little more than renaming: turning each row into a managed entity (MikroORM's `map`, which merges it into an
- * identity map) cost ~60 µs a row, more than the rest of a validation's lookups.
+ * A row of an entity's table as a plain record of its own (scalar) fields, named as the entity
+ * names them. node-postgres has already typed the values (numbers, parsed JSON) except
+ * timestamps, which become dates here, so this is little more than renaming: turning each row
+ * into a managed entity (MikroORM's `map`, which merges it into an identity map) cost ~60 µs a
+ * row, more than the rest of a validation's lookups.
  */
 function recordReader<T>(em: EntityManager, entityName: string): (row: Record<string, unknown>) => T {
   const platform = em.getPlatform();

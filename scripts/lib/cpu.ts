@@ -38,22 +38,29 @@ function processes(): ProcessCpu[] {
   return found;
 }
 
-/** user + system CPU milliseconds of every live process in the group `pgid`. */
-export function groupCpuMs(pgid: number): number {
-  return processes()
-    .filter((p) => p.pgid === pgid)
-    .reduce((sum, p) => sum + p.cpuMs, 0);
+/** CPU milliseconds so far, read from /proc once: the machine's, and the processes' the benchmarks watch. */
+export interface CpuSnapshot {
+  machine: number;
+  /** by process group leader (a daemon leads its own group, so its children count too) */
+  groups: Map<number, number>;
+  postgres: number;
+  redis: number;
 }
 
-/** user + system CPU milliseconds of the live processes whose command name starts with `prefix` (e.g. "postgres"). */
-export function commandCpuMs(prefix: string): number {
-  return processes()
-    .filter((p) => p.command.startsWith(prefix))
-    .reduce((sum, p) => sum + p.cpuMs, 0);
+export function cpuSnapshot(): CpuSnapshot {
+  const groups = new Map<number, number>();
+  let postgres = 0;
+  let redis = 0;
+  for (const { command, pgid, cpuMs } of processes()) {
+    groups.set(pgid, (groups.get(pgid) ?? 0) + cpuMs);
+    if (command.startsWith("postgres")) postgres += cpuMs;
+    if (command.startsWith("redis-server")) redis += cpuMs;
+  }
+  return { machine: machineCpuMs(), groups, postgres, redis };
 }
 
 /** CPU milliseconds the machine spent busy (user, nice, system, irq, softirq; not idle, iowait or steal). */
-export function machineCpuMs(): number {
+function machineCpuMs(): number {
   const line = readFileSync("/proc/stat", "utf8").split("\n")[0];
   const [user, nice, system, , , irq, softirq] = line.trim().split(/\s+/).slice(1).map(Number);
   return ((user + nice + system + irq + softirq) * 1000) / TICKS_PER_SECOND;

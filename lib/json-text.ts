@@ -61,3 +61,35 @@ function walk(value: unknown, depth: number): string | undefined {
   }
   return `{${parts.join(",")}}`;
 }
+
+/** `JSON.stringify(value)` in three parts around the value of one of its keys: `head + inner + tail` is the whole. */
+export interface JsonTextAround {
+  head: string;
+  inner: string;
+  tail: string;
+}
+
+/**
+ * Serialise a plain object around one of its keys, so that the key's value (a program's check,
+ * most of its size) can be written and stored on its own while the whole is built from the same
+ * text: `head + inner + tail === JSON.stringify(value)`. The key must hold a value JSON can write.
+ */
+export function jsonTextAround(value: Record<string, unknown>, key: string): JsonTextAround {
+  const inner = JSON.stringify(value[key]);
+  if (inner === undefined || !Object.hasOwn(value, key)) throw new TypeError(`no JSON value under "${key}"`);
+  // own objects without a prototype, so that any key (even "__proto__") is copied as a plain property
+  const before: Record<string, unknown> = Object.create(null);
+  const after: Record<string, unknown> = Object.create(null);
+  let seen = false;
+  for (const k of Object.keys(value)) {
+    if (k === key) seen = true;
+    else (seen ? after : before)[k] = value[k];
+  }
+  const first = JSON.stringify(before).slice(1, -1);
+  const rest = JSON.stringify(after).slice(1, -1);
+  return {
+    head: `{${first}${first ? "," : ""}${JSON.stringify(key)}:`,
+    inner,
+    tail: `${rest ? "," : ""}${rest}}`,
+  };
+}

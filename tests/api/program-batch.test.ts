@@ -48,6 +48,38 @@ describe("all or nothing (the default)", () => {
     expect(events.every((e) => (e.data as { program: { id: string } }).program.id === e.subjectId)).toBe(true);
   });
 
+  it("stores each program's check and event body as the very text of its answer, each with its own program", async () => {
+    // different cuts give different checks, so a program paired with another's check would show; the titles and
+    // metadata hold what the statement splits its parameters at (as JSON escapes), quotes, and text beyond ASCII
+    const programs = Array.from({ length: 4 }, (_, i) => ({
+      ...exampleProgram(shop.shearId, `BT-${i}`),
+      title: `Blank \u001e${i}\u001f "quoted" \\ ü 東 😀`,
+      metadata: { line: `\u001f${i}\u001e`, "key \u001e": "é" },
+      cuts: [{ backgauge: 10 + i, count: 1 + i }],
+    }));
+    const res = await batch({ programs });
+    expect(res.status).toBe(201);
+    const db = (await testOrm()).em.fork().getConnection();
+    for (const [i, program] of res.body.data.entries()) {
+      expect(program.title).toBe(programs[i].title);
+      expect(program.metadata).toEqual(programs[i].metadata);
+      const [row] = await db.execute<{ check: string; data: string }[]>(
+        `select p."check"::text as "check", e.data::text as data
+         from programs p join events e on e.subject_id = p.id and e.type = 'program.created' where p.id = ?`,
+        [program.id],
+      );
+      expect(row.check).toBe(JSON.stringify(program.check));
+      expect(row.data).toBe(JSON.stringify({ program }));
+      // the answer holds the same text, byte for byte
+      expect(res.text).toContain(row.data.slice('{"program":'.length, -1));
+    }
+    // and as the API reads them back
+    const one = await request(BASE_URL)
+      .get(`/api/v1/programs/${res.body.data[3].id}`)
+      .set({ Authorization: `Bearer ${shop.key}` });
+    expect(one.body.check).toEqual(res.body.data[3].check);
+  });
+
   it("refuses the whole batch with one problem naming each failing program, and writes nothing", async () => {
     const bad = exampleProgram(shop.shearId, "BB-1") as Record<string, unknown>;
     (bad.cuts as { count: number }[])[0].count = -1;

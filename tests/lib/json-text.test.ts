@@ -1,6 +1,6 @@
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
-import { holdsJsonText, rememberJsonText, stringify } from "../../lib/json-text";
+import { holdsJsonText, jsonTextAround, rememberJsonText, stringify } from "../../lib/json-text";
 
 describe("stringify", () => {
   it("is JSON.stringify for values with nothing remembered", () => {
@@ -66,5 +66,46 @@ describe("stringify", () => {
       }),
       { numRuns: 2000, seed: 11 },
     );
+  });
+});
+
+describe("jsonTextAround", () => {
+  it("splits JSON.stringify(value) around one key's value, wherever the key is (property: fast-check)", () => {
+    fc.assert(
+      fc.property(
+        fc.dictionary(
+          fc.string().filter((key) => key !== "check"),
+          fc.jsonValue(),
+        ),
+        fc.jsonValue(),
+        fc.nat(),
+        (rest, inner, at) => {
+          // the key's place among the others: first, in between or last (Object.fromEntries keeps "__proto__" as a key)
+          const entries = Object.entries(rest);
+          entries.splice(at % (entries.length + 1), 0, ["check", inner]);
+          const value = Object.fromEntries(entries);
+          const parts = jsonTextAround(value, "check");
+          expect(parts.inner).toBe(JSON.stringify(value.check));
+          expect(parts.head + parts.inner + parts.tail).toBe(JSON.stringify(value));
+        },
+      ),
+      { numRuns: 2000, seed: 17 },
+    );
+  });
+
+  it("keeps keys JSON orders first (integer-like ones), odd keys and values JSON leaves out", () => {
+    const value = { id: "prg_1", check: { n: 1 }, 7: "seven", gone: undefined, when: new Date(0) };
+    const parts = jsonTextAround(value, "check");
+    expect(parts.head + parts.inner + parts.tail).toBe(JSON.stringify(value));
+    const only = { check: [1, 2] };
+    expect(jsonTextAround(only, "check")).toEqual({ head: '{"check":', inner: "[1,2]", tail: "}" });
+    const proto = JSON.parse('{"__proto__": {"a": 1}, "check": 2}') as Record<string, unknown>;
+    const split = jsonTextAround(proto, "check");
+    expect(split.head + split.inner + split.tail).toBe(JSON.stringify(proto));
+  });
+
+  it("refuses a key with nothing JSON can write", () => {
+    expect(() => jsonTextAround({ id: 1 }, "check")).toThrow(TypeError);
+    expect(() => jsonTextAround({ check: undefined }, "check")).toThrow(TypeError);
   });
 });

@@ -4,7 +4,7 @@
  * pending deliveries whose attempt is overdue (a lost job, a crashed worker) to queue again.
  */
 import type { EntityManager } from "@mikro-orm/postgresql";
-import { runPrepared } from "../db/prepared";
+import { rawTransaction } from "../db/prepared";
 import { newId } from "../ids";
 
 /** Events taken in one round; a full round means more may be waiting. */
@@ -16,15 +16,16 @@ const OVERDUE_MS = 10_000;
  * statement takes and marks the events (reading only their id, shop and type: their bodies are read
  * when a delivery is attempted) and pairs them with their shops' subscribed, enabled endpoints; one
  * more writes the deliveries, in the same transaction, so an event is marked only with its deliveries.
+ * Rounds run many times a second under a stream of changes, so the transaction is a raw one on a
+ * pooled connection (`rawTransaction`), not MikroORM's.
  */
 export async function dispatchPending(em: EntityManager): Promise<{ taken: number; deliveries: string[] }> {
-  return em.transactional(async (tx) => {
+  return rawTransaction(em, async (query) => {
     const now = new Date();
-    const pairs = await runPrepared<{ id: string; shop_id: string; endpoint_id: string | null }>(
-      tx,
+    const pairs = await query<{ id: string; shop_id: string; endpoint_id: string | null }>(
       "dispatch-take",
       `with taken as (select id from events where dispatched_at is null order by id limit ${DISPATCH_BATCH} for update skip locked),
-       marked as (update events e set dispatched_at = ? from taken where e.id = taken.id returning e.id, e.shop_id, e.type)
+       marked as (update events e set dispatched_at = $1 from taken where e.id = taken.id returning e.id, e.shop_id, e.type)
        select m.id, m.shop_id, w.id as endpoint_id
        from marked m left join webhook_endpoints w on w.shop_id = m.shop_id and w.enabled
          and m.type <> 'endpoint.test' -- test events go only to the endpoint that asked
@@ -41,13 +42,12 @@ export async function dispatchPending(em: EntityManager): Promise<{ taken: numbe
       event_id: pair.id,
       endpoint_id: pair.endpoint_id,
     }));
-    await runPrepared(
-      tx,
+    await query(
       "dispatch-deliveries",
       `insert into deliveries (id, shop_id, event_id, endpoint_id, status, attempts, next_attempt_at, manual, created_at, updated_at)
-       select id, shop_id, event_id, endpoint_id, 'pending', 0, ?, false, ?, ?
-       from json_to_recordset(?::json) as d(id text, shop_id text, event_id text, endpoint_id text)`,
-      [now, now, now, JSON.stringify(rows)],
+       select id, shop_id, event_id, endpoint_id, 'pending', 0, $1, false, $1, $1
+       from json_to_recordset($2::json) as d(id text, shop_id text, event_id text, endpoint_id text)`,
+      [now, JSON.stringify(rows)],
     );
     return { taken, deliveries: rows.map((row) => row.id) };
   });

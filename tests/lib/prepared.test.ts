@@ -1,11 +1,12 @@
 /**
  * Named prepared statements: PostgreSQL keeps one plan per name on each connection, and a
- * statement run in a transaction belongs to it (rolled back with it).
+ * statement run in a transaction belongs to it (rolled back with it). A raw transaction on a
+ * pooled connection commits, rolls back, and leaves the pool a usable connection either way.
  */
 import { MikroORM } from "@mikro-orm/postgresql";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { ormConfig } from "../../lib/db/config";
-import { runPrepared } from "../../lib/db/prepared";
+import { rawTransaction, runPrepared } from "../../lib/db/prepared";
 import { recreateDatabase } from "../support/db";
 
 let orm: MikroORM;
@@ -51,5 +52,48 @@ describe("runPrepared", () => {
     expect(await count()).toBe(0);
     await orm.em.fork().transactional((tx) => runPrepared(tx, "test-tally", insert, [2]));
     expect(await count()).toBe(1);
+  });
+});
+
+describe("rawTransaction", () => {
+  const pid = async () =>
+    (await orm.em.fork().getConnection().execute<{ pid: number }[]>("select pg_backend_pid() as pid"))[0].pid;
+
+  it("commits what its statements did, and answers what the work returned", async () => {
+    const before = await count();
+    const rows = await rawTransaction(orm.em.fork(), async (query) => {
+      await query("raw-tally", "insert into tally (n) values ($1)", [7]);
+      return query<{ n: number }>("raw-sum", "select sum(n)::int as n from tally where n = $1", [7]);
+    });
+    expect(rows).toEqual([{ n: 7 }]);
+    expect(await count()).toBe(before + 1);
+  });
+
+  it("rolls back when the work throws, and the connection serves the next transaction", async () => {
+    const before = await count();
+    const first = await pid();
+    await expect(
+      rawTransaction(orm.em.fork(), async (query) => {
+        await query("raw-tally", "insert into tally (n) values ($1)", [8]);
+        await query("raw-fail", "select 1 / $1::int", [0]);
+      }),
+    ).rejects.toThrow(/division by zero/);
+    expect(await count()).toBe(before);
+    // the pool holds one connection: the same session, out of its failed transaction
+    expect(await pid()).toBe(first);
+    await rawTransaction(orm.em.fork(), (query) => query("raw-tally", "insert into tally (n) values ($1)", [9]));
+    expect(await count()).toBe(before + 1);
+  });
+
+  it("drops a connection that cannot roll back, and the pool opens another", async () => {
+    const first = await pid();
+    await expect(
+      rawTransaction(orm.em.fork(), (query) => query("raw-end", "select pg_terminate_backend(pg_backend_pid())", [])),
+    ).rejects.toThrow();
+    const next = await pid();
+    expect(next).not.toBe(first);
+    const before = await count();
+    await rawTransaction(orm.em.fork(), (query) => query("raw-tally", "insert into tally (n) values ($1)", [10]));
+    expect(await count()).toBe(before + 1);
   });
 });

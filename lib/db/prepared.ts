@@ -1,34 +1,15 @@
 /**
- * A statement run as a named prepared statement: PostgreSQL parses and plans it once per
- * connection instead of on every call (node-postgres keeps the name per connection). For the
- * few fixed, hot statements whose planning is a real share of their cost; the text under one
- * name must never change. Runs in the entity manager's transaction when it has one.
+ * Statements run as named prepared statements straight on node-postgres: PostgreSQL parses and
+ * plans each once per connection instead of on every call (node-postgres keeps the name per
+ * connection), and nothing of knex's query building or MikroORM's runs per call. For the few
+ * fixed, hot statements (a create's insert, the shared lookups, the worker's fan-out); the text
+ * under one name must never change. Placeholders are PostgreSQL's own: `$1`, `$2`, …. Measured
+ * here for one indexed select: ~105–180 µs of Node's CPU against ~205–320 µs through `knex.raw`.
  */
 import type { EntityManager } from "@mikro-orm/postgresql";
 
-export async function runPrepared<Row = Record<string, unknown>>(
-  em: EntityManager,
-  name: string,
-  sql: string,
-  bindings: readonly (string | number | boolean | Date | null)[],
-): Promise<Row[]> {
-  const query = em
-    .getConnection()
-    .getKnex()
-    .raw(sql, bindings)
-    // knex hands these options to node-postgres's query config
-    .options({ name: `shearwire.${name}` });
-  const transaction = em.getTransactionContext();
-  if (transaction) query.transacting(transaction);
-  return ((await query) as unknown as { rows: Row[] }).rows;
-}
-
-/** One named prepared statement on the connection a `rawTransaction` holds (placeholders are `$1`, `$2`, …). */
-export type RawQuery = <Row = Record<string, unknown>>(
-  name: string,
-  sql: string,
-  values: readonly (string | number | boolean | Date | null)[],
-) => Promise<Row[]>;
+/** A value node-postgres can bind: arrays become PostgreSQL arrays. */
+type Value = string | number | boolean | Date | null | readonly (string | number)[];
 
 interface PooledClient {
   query(config: { name: string; text: string; values: readonly unknown[] }): Promise<{ rows: unknown[] }>;
@@ -36,6 +17,48 @@ interface PooledClient {
   /** how knex marks a connection its pool must not hand out again */
   __knex__disposed?: unknown;
 }
+
+/** knex's client, or a knex transaction's, which hands out the transaction's connection and releases nothing. */
+interface ConnectionSource {
+  client: { acquireConnection(): Promise<PooledClient>; releaseConnection(connection: PooledClient): Promise<void> };
+}
+
+/** The knex (or knex transaction) an entity manager's statements go through. */
+export function connectionSource(em: EntityManager): ConnectionSource {
+  return (em.getTransactionContext() ?? em.getConnection().getKnex()) as unknown as ConnectionSource;
+}
+
+/** Run one named statement on a connection of `source`: its pool's, or its transaction's. */
+export async function queryPrepared<Row = Record<string, unknown>>(
+  source: ConnectionSource,
+  name: string,
+  sql: string,
+  values: readonly Value[],
+): Promise<Row[]> {
+  const connection = await source.client.acquireConnection();
+  try {
+    return (await connection.query({ name: `shearwire.${name}`, text: sql, values })).rows as Row[];
+  } finally {
+    await source.client.releaseConnection(connection);
+  }
+}
+
+/** Run one named statement in the entity manager's transaction when it has one, else on a pooled connection. */
+export async function runPrepared<Row = Record<string, unknown>>(
+  em: EntityManager,
+  name: string,
+  sql: string,
+  values: readonly Value[],
+): Promise<Row[]> {
+  return queryPrepared<Row>(connectionSource(em), name, sql, values);
+}
+
+/** One named prepared statement on the connection a `rawTransaction` holds (placeholders are `$1`, `$2`, …). */
+export type RawQuery = <Row = Record<string, unknown>>(
+  name: string,
+  sql: string,
+  values: readonly Value[],
+) => Promise<Row[]>;
 
 /**
  * Run `work` in a transaction of its own on one connection of the ORM's pool, with nothing of
@@ -46,10 +69,7 @@ interface PooledClient {
  * cannot even roll back is dropped from the pool rather than handed out mid-transaction.
  */
 export async function rawTransaction<T>(em: EntityManager, work: (query: RawQuery) => Promise<T>): Promise<T> {
-  const client = em.getConnection().getKnex().client as {
-    acquireConnection(): Promise<PooledClient>;
-    releaseConnection(connection: PooledClient): Promise<void>;
-  };
+  const { client } = em.getConnection().getKnex() as unknown as ConnectionSource;
   const connection = await client.acquireConnection();
   try {
     await connection.query("begin");

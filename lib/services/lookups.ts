@@ -8,6 +8,7 @@ import { ReferenceKind } from "@mikro-orm/core";
 import type { EntityManager } from "@mikro-orm/postgresql";
 import { Grade, Program, Shear } from "../../entities";
 import { batchedLookup } from "../db/batched-lookup";
+import { queryPrepared } from "../db/prepared";
 import type { GradeRecord, ShearRecord } from "./catalog";
 
 const SHEAR_ID = /^shr_[0-9A-Z]{26}$/;
@@ -22,11 +23,12 @@ interface Lookups {
 }
 const shared = new WeakMap<object, Lookups>();
 
-/** `(shop_id, <column>) in ((?, ?), …)` over the keys, with their bindings. */
-function byShopAnd(column: string, keys: string[]): [string, string[]] {
+/** `(shop_id, <column>)` among the keys' pairs, as two parallel arrays (one statement text for any number of keys). */
+const byShopAnd = (column: string) => `(shop_id, ${column}) in (select * from unnest($1::text[], $2::text[]))`;
+const columns = (keys: string[]) => {
   const ps = pairs(keys);
-  return [`(shop_id, ${column}) in (${ps.map(() => "(?, ?)").join(", ")})`, ps.flat()];
-}
+  return [ps.map((p) => p[0]), ps.map((p) => p[1])];
+};
 
 /**
  * A row of an entity's table as a plain record of its own (scalar) fields, named as the entity
@@ -35,14 +37,19 @@ function byShopAnd(column: string, keys: string[]): [string, string[]] {
  * into a managed entity (MikroORM's `map`, which merges it into an identity map) cost ~60 µs a
  * row, more than the rest of a validation's lookups.
  */
-function recordReader<T>(em: EntityManager, entityName: string): (row: Record<string, unknown>) => T {
+function recordReader<T>(
+  em: EntityManager,
+  entityName: string,
+): { columns: string; read: (row: Record<string, unknown>) => T } {
   const platform = em.getPlatform();
   const fields = em
     .getMetadata()
     .get(entityName)
     .props.filter((prop) => prop.kind === ReferenceKind.SCALAR && prop.persist !== false)
     .map((prop) => ({ name: prop.name, column: prop.fieldNames[0], date: prop.runtimeType === "Date" }));
-  return (row) => {
+  // named columns, not `*`: a prepared statement's result may not change shape when a column is added meanwhile
+  const columns = [...new Set(["shop_id", ...fields.map((field) => field.column)])].map((c) => `"${c}"`).join(", ");
+  const read = (row: Record<string, unknown>) => {
     const record: Record<string, unknown> = {};
     for (const { name, column, date } of fields) {
       const value = row[column];
@@ -51,34 +58,35 @@ function recordReader<T>(em: EntityManager, entityName: string): (row: Record<st
     }
     return record as T;
   };
+  return { columns, read };
 }
 
 /**
- * The shared lookups of this database connection. Each is one indexed query with bound parameters
- * (no query building per call); shears and grades are read as plain records, not entities.
+ * The shared lookups of this database connection. Each is one indexed query, a named prepared
+ * statement with the keys as bound arrays (no query building per call); shears and grades are
+ * read as plain records, not entities.
  */
 function lookups(em: EntityManager): Lookups {
   const connection = em.getConnection();
   let readers = shared.get(connection);
   if (readers) return readers;
-  const rows = async (sql: string, bindings: string[]) =>
-    (await connection.getKnex().raw<{ rows: Record<string, unknown>[] }>(sql, bindings)).rows;
+  const knex = connection.getKnex();
+  const rows = (name: string, sql: string, keys: string[]) => queryPrepared(knex, name, sql, columns(keys));
   const shearOf = recordReader<ShearRecord>(em, Shear.meta.className);
   const gradeOf = recordReader<GradeRecord>(em, Grade.meta.className);
   readers = {
     shear: batchedLookup(async (keys) => {
-      const [where, bindings] = byShopAnd("id", keys);
-      const found = await rows(`select * from shears where ${where}`, bindings);
-      return new Map(found.map((row) => [`${row.shop_id as string}${SEP}${row.id as string}`, shearOf(row)]));
+      const found = await rows("lookup-shears", `select ${shearOf.columns} from shears where ${byShopAnd("id")}`, keys);
+      return new Map(found.map((row) => [`${row.shop_id as string}${SEP}${row.id as string}`, shearOf.read(row)]));
     }),
     grade: batchedLookup(async (keys) => {
-      const [where, bindings] = byShopAnd("code", keys);
-      const found = await rows(`select * from grades where archived_at is null and ${where}`, bindings);
-      return new Map(found.map((row) => [`${row.shop_id as string}${SEP}${row.code as string}`, gradeOf(row)]));
+      const sql = `select ${gradeOf.columns} from grades where archived_at is null and ${byShopAnd("code")}`;
+      const found = await rows("lookup-grades", sql, keys);
+      return new Map(found.map((row) => [`${row.shop_id as string}${SEP}${row.code as string}`, gradeOf.read(row)]));
     }),
     reference: batchedLookup(async (keys) => {
-      const [where, bindings] = byShopAnd("reference", keys);
-      const found = await rows(`select id, shop_id, reference from programs where ${where}`, bindings);
+      const sql = `select id, shop_id, reference from programs where ${byShopAnd("reference")}`;
+      const found = await rows("lookup-references", sql, keys);
       return new Map(found.map((p) => [`${p.shop_id as string}${SEP}${p.reference as string}`, p.id as string]));
     }),
   };

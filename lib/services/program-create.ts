@@ -136,10 +136,10 @@ const COLUMNS = ROW.split(", ")
   .join(", ");
 const RECORD = "\u001e";
 const UNIT = "\u001f";
-const INSERT = `with x as materialized (select * from json_to_recordset(?::json) as x(${ROW})),
-  c as (select * from string_to_table(?, E'\\x1e') with ordinality as c("check", n)),
+const INSERT = `with x as materialized (select * from json_to_recordset($1::json) as x(${ROW})),
+  c as (select * from string_to_table($2, E'\\x1e') with ordinality as c("check", n)),
   v as (select split_part(around, E'\\x1f', 1) as head, split_part(around, E'\\x1f', 2) as tail, n
-        from string_to_table(?, E'\\x1e') with ordinality as v(around, n)),
+        from string_to_table($3, E'\\x1e') with ordinality as v(around, n)),
   p as (insert into programs (${COLUMNS}, "check") select ${COLUMNS}, c."check"::json from x join c using (n) returning 1),
   e as (insert into events (id, shop_id, type, subject_id, data, created_at)
         select event_id, shop_id, 'program.created', id, ('{"program":' || v.head || c."check" || v.tail || '}')::json,

@@ -24,8 +24,8 @@ const count = async () =>
 describe("runPrepared", () => {
   it("answers with the rows, and the session keeps the statement under its name", async () => {
     const em = orm.em.fork();
-    expect(await runPrepared<{ n: number }>(em, "test-add", "select ?::int + 1 as n", [1])).toEqual([{ n: 2 }]);
-    expect(await runPrepared<{ n: number }>(em, "test-add", "select ?::int + 1 as n", [41])).toEqual([{ n: 42 }]);
+    expect(await runPrepared<{ n: number }>(em, "test-add", "select $1::int + 1 as n", [1])).toEqual([{ n: 2 }]);
+    expect(await runPrepared<{ n: number }>(em, "test-add", "select $1::int + 1 as n", [41])).toEqual([{ n: 42 }]);
     const kept = await em
       .getConnection()
       .execute<{ name: string; statement: string }[]>("select name, statement from pg_prepared_statements");
@@ -33,7 +33,7 @@ describe("runPrepared", () => {
   });
 
   it("runs inside the entity manager's transaction: rolled back with it, committed with it", async () => {
-    const insert = "insert into tally (n) values (?)";
+    const insert = "insert into tally (n) values ($1)";
     await expect(
       orm.em.fork().transactional(async (tx) => {
         await runPrepared(tx, "test-tally", insert, [1]);

@@ -9,6 +9,7 @@
  * to a crash costs a short delay, never the work.
  */
 import type { EntityManager } from "@mikro-orm/postgresql";
+import { queryPrepared } from "./prepared";
 
 const WAKE_INTERVAL_MS = 10;
 
@@ -32,9 +33,9 @@ export function wakeAfterCommit(em: EntityManager, channel: string, intervalMs =
   const send = () => {
     wake.pending = false;
     wake.lastSent = performance.now();
-    connection
-      .execute(`select pg_notify(?, '')`, [channel])
-      .catch((err) => console.error(`[wake] could not notify ${channel}:`, err));
+    queryPrepared(connection.getKnex(), "wake", "select pg_notify($1, '')", [channel]).catch((err) =>
+      console.error(`[wake] could not notify ${channel}:`, err),
+    );
   };
   const wait = wake.lastSent + intervalMs - performance.now();
   if (wait > 0) setTimeout(send, Math.ceil(wait));

@@ -10,12 +10,15 @@ import { wakeAfterCommit } from "../../lib/db/wake";
 
 function recorder() {
   const sent: { at: number; params: unknown[] }[] = [];
-  const connection = {
-    execute: async (_sql: string, params: unknown[]) => {
-      sent.push({ at: performance.now(), params });
-      return [];
+  // a pooled node-postgres connection, as knex's client hands it out
+  const pooled = {
+    query: async ({ values }: { values: unknown[] }) => {
+      sent.push({ at: performance.now(), params: values });
+      return { rows: [] };
     },
   };
+  const knex = { client: { acquireConnection: async () => pooled, releaseConnection: async () => undefined } };
+  const connection = { getKnex: () => knex };
   return { sent, em: { getConnection: () => connection } as unknown as EntityManager };
 }
 

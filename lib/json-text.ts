@@ -75,6 +75,7 @@ export interface JsonTextAround {
  * text: `head + inner + tail === JSON.stringify(value)`. The key must hold a value JSON can write.
  */
 export function jsonTextAround(value: Record<string, unknown>, key: string): JsonTextAround {
+  if (!plain(value)) throw new TypeError("only a plain object can be split around a key");
   const inner = JSON.stringify(value[key]);
   if (inner === undefined || !Object.hasOwn(value, key)) throw new TypeError(`no JSON value under "${key}"`);
   // own objects without a prototype, so that any key (even "__proto__") is copied as a plain property

@@ -21,6 +21,8 @@ interface PooledClient {
 /** knex's client, or a knex transaction's, which hands out the transaction's connection and releases nothing. */
 interface ConnectionSource {
   client: { acquireConnection(): Promise<PooledClient>; releaseConnection(connection: PooledClient): Promise<void> };
+  /** on a knex transaction: whether it has committed or rolled back (its connection is back in the pool then) */
+  isCompleted?: () => boolean;
 }
 
 /** The knex (or knex transaction) an entity manager's statements go through. */
@@ -35,6 +37,8 @@ export async function queryPrepared<Row = Record<string, unknown>>(
   sql: string,
   values: readonly Value[],
 ): Promise<Row[]> {
+  // knex refuses a statement on a finished transaction; going around it, so must this
+  if (source.isCompleted?.()) throw new Error(`${name}: the transaction has already ended`);
   const connection = await source.client.acquireConnection();
   try {
     return (await connection.query({ name: `shearwire.${name}`, text: sql, values })).rows as Row[];

@@ -125,7 +125,7 @@ export async function checkPrograms(
  * PostgreSQL's `json_to_recordset` reads kilobytes of nested JSON at a fraction of the speed at
  * which it checks JSON text, so the checks and the rest of each view go as two more text
  * parameters, one entry per program split at ASCII record separators (which JSON text never holds
- * raw: `JSON.stringify` escapes every control character), the view's text around its check split
+ * raw: `JSON.stringify` escapes every character below U+0020), the view's text around its check split
  * at a unit separator. Each stored text is checked as JSON once, as the column's type requires.
  */
 const ROW =
@@ -208,6 +208,10 @@ async function insert(em: EntityManager, shopId: string, checked: Checked[]): Pr
     event_id: newId("event"),
     n: i + 1,
   }));
+  // the statement pairs the n-th piece of each text with the n-th row: a separator inside a piece would shift them
+  const unsplittable = (text: string) => text.includes(RECORD) || text.includes(UNIT);
+  if (texts.some((text) => unsplittable(text.head) || unsplittable(text.inner) || unsplittable(text.tail)))
+    throw new Error("a program's JSON text holds a raw separator; it cannot be written");
   const checks = texts.map((text) => text.inner).join(RECORD);
   const around = texts.map((text) => `${text.head}${UNIT}${text.tail}`).join(RECORD);
   const inTransaction = em.isInTransaction();

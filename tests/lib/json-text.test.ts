@@ -104,6 +104,18 @@ describe("jsonTextAround", () => {
     expect(split.head + split.inner + split.tail).toBe(JSON.stringify(proto));
   });
 
+  it("refuses what JSON.stringify would not write as its own keys: an object with toJSON, a class instance", () => {
+    expect(() => jsonTextAround({ check: 1, toJSON: () => "other" }, "check")).toThrow(TypeError);
+    expect(() =>
+      jsonTextAround(
+        new (class Held {
+          check = 1;
+        })() as unknown as Record<string, unknown>,
+        "check",
+      ),
+    ).toThrow(TypeError);
+  });
+
   it("refuses a key with nothing JSON can write", () => {
     expect(() => jsonTextAround({ id: 1 }, "check")).toThrow(TypeError);
     expect(() => jsonTextAround({ check: undefined }, "check")).toThrow(TypeError);

@@ -6,7 +6,7 @@
 import { MikroORM } from "@mikro-orm/postgresql";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { ormConfig } from "../../lib/db/config";
-import { rawTransaction, runPrepared } from "../../lib/db/prepared";
+import { queryPrepared, rawTransaction, runPrepared } from "../../lib/db/prepared";
 import { recreateDatabase } from "../support/db";
 
 let orm: MikroORM;
@@ -55,6 +55,14 @@ describe("runPrepared", () => {
   });
 });
 
+describe("queryPrepared", () => {
+  it("refuses to run on a knex transaction that has already committed (its connection is back in the pool)", async () => {
+    const trx = await orm.em.getConnection().getKnex().transaction();
+    await trx.commit();
+    await expect(queryPrepared(trx, "test-add", "select $1::int + 1 as n", [1])).rejects.toThrow(/already ended/);
+  });
+});
+
 describe("rawTransaction", () => {
   const pid = async () =>
     (await orm.em.fork().getConnection().execute<{ pid: number }[]>("select pg_backend_pid() as pid"))[0].pid;
@@ -95,5 +103,35 @@ describe("rawTransaction", () => {
     const before = await count();
     await rawTransaction(orm.em.fork(), (query) => query("raw-tally", "insert into tally (n) values ($1)", [10]));
     expect(await count()).toBe(before + 1);
+  });
+
+  it("marks a connection whose rollback fails so the pool never hands it out again, and releases it", async () => {
+    // a connection that begins and runs statements but cannot roll back (as a half-broken socket might)
+    const connection: { statements: string[]; __knex__disposed?: unknown; query: (q: unknown) => Promise<unknown> } = {
+      statements: [],
+      query: async (q) => {
+        const text = typeof q === "string" ? q : (q as { text: string }).text;
+        connection.statements.push(text);
+        if (text === "rollback") throw new Error("connection lost");
+        return { rows: [] };
+      },
+    };
+    const released: unknown[] = [];
+    const client = {
+      acquireConnection: async () => connection,
+      releaseConnection: async (c: unknown) => void released.push(c),
+    };
+    const em = { getConnection: () => ({ getKnex: () => ({ client }) }) } as unknown as Parameters<
+      typeof rawTransaction
+    >[0];
+    await expect(
+      rawTransaction(em, async (query) => {
+        await query("stub", "select 1", []);
+        throw new Error("work failed");
+      }),
+    ).rejects.toThrow("work failed");
+    expect(connection.statements).toEqual(["begin", "select 1", "rollback"]);
+    expect(connection.__knex__disposed).toBeInstanceOf(Error);
+    expect(released).toEqual([connection]);
   });
 });

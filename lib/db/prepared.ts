@@ -25,36 +25,32 @@ interface ConnectionSource {
   isCompleted?: () => boolean;
 }
 
-/** The knex (or knex transaction) an entity manager's statements go through. */
-export function connectionSource(em: EntityManager): ConnectionSource {
-  return (em.getTransactionContext() ?? em.getConnection().getKnex()) as unknown as ConnectionSource;
+/** One named statement on a connection already in hand. */
+async function named<Row>(connection: PooledClient, name: string, sql: string, values: readonly Value[]) {
+  return (await connection.query({ name: `shearwire.${name}`, text: sql, values })).rows as Row[];
 }
 
-/** Run one named statement on a connection of `source`: its pool's, or its transaction's. */
-export async function queryPrepared<Row = Record<string, unknown>>(
-  source: ConnectionSource,
+/**
+ * Run one named statement: with an entity manager, in its transaction when it has one, else on a
+ * pooled connection; with a knex instance (or knex transaction), on its connection.
+ */
+export async function runPrepared<Row = Record<string, unknown>>(
+  on: EntityManager | ConnectionSource,
   name: string,
   sql: string,
   values: readonly Value[],
 ): Promise<Row[]> {
+  const source = (
+    "getTransactionContext" in on ? (on.getTransactionContext() ?? on.getConnection().getKnex()) : on
+  ) as ConnectionSource;
   // knex refuses a statement on a finished transaction; going around it, so must this
   if (source.isCompleted?.()) throw new Error(`${name}: the transaction has already ended`);
   const connection = await source.client.acquireConnection();
   try {
-    return (await connection.query({ name: `shearwire.${name}`, text: sql, values })).rows as Row[];
+    return await named<Row>(connection, name, sql, values);
   } finally {
     await source.client.releaseConnection(connection);
   }
-}
-
-/** Run one named statement in the entity manager's transaction when it has one, else on a pooled connection. */
-export async function runPrepared<Row = Record<string, unknown>>(
-  em: EntityManager,
-  name: string,
-  sql: string,
-  values: readonly Value[],
-): Promise<Row[]> {
-  return queryPrepared<Row>(connectionSource(em), name, sql, values);
 }
 
 /** One named prepared statement on the connection a `rawTransaction` holds (placeholders are `$1`, `$2`, …). */
@@ -78,9 +74,7 @@ export async function rawTransaction<T>(em: EntityManager, work: (query: RawQuer
   try {
     await connection.query("begin");
     try {
-      const query: RawQuery = async (name, sql, values) =>
-        (await connection.query({ name: `shearwire.${name}`, text: sql, values })).rows as never;
-      const result = await work(query);
+      const result = await work((name, sql, values) => named(connection, name, sql, values));
       await connection.query("commit");
       return result;
     } catch (err) {

@@ -9,7 +9,7 @@
  * to a crash costs a short delay, never the work.
  */
 import type { EntityManager } from "@mikro-orm/postgresql";
-import { queryPrepared } from "./prepared";
+import { runPrepared } from "./prepared";
 
 const WAKE_INTERVAL_MS = 10;
 
@@ -33,7 +33,7 @@ export function wakeAfterCommit(em: EntityManager, channel: string, intervalMs =
   const send = () => {
     wake.pending = false;
     wake.lastSent = performance.now();
-    queryPrepared(connection.getKnex(), "wake", "select pg_notify($1, '')", [channel]).catch((err) =>
+    runPrepared(connection.getKnex(), "wake", "select pg_notify($1, '')", [channel]).catch((err) =>
       console.error(`[wake] could not notify ${channel}:`, err),
     );
   };

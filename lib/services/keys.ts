@@ -7,7 +7,7 @@ import type { EntityManager } from "@mikro-orm/postgresql";
 import { ApiKey, Shear, Shop, type ApiKeyEntity } from "../../entities";
 import type { Scope } from "../../lib/schemas/enums";
 import { batchedLookup } from "../db/batched-lookup";
-import { queryPrepared } from "../db/prepared";
+import { runPrepared } from "../db/prepared";
 import { invalidRequest, notFound, unauthorized } from "../errors";
 
 /** Every key starts with this; keys made earlier start `swk_live_` and keep working. */
@@ -136,7 +136,7 @@ function keysByDigest(em: EntityManager) {
   if (lookup) return lookup;
   const knex = connection.getKnex();
   lookup = batchedLookup(async (digests: string[]) => {
-    const rows = await queryPrepared<KeyRow & { hash: string }>(
+    const rows = await runPrepared<KeyRow & { hash: string }>(
       knex,
       "lookup-keys",
       "select id, hash, shop_id, scopes, shear_ids, rate_limit_per_min, expires_at, revoked_at, last_used_at from api_keys where hash = any($1::text[])",

@@ -8,7 +8,7 @@ import { ReferenceKind } from "@mikro-orm/core";
 import type { EntityManager } from "@mikro-orm/postgresql";
 import { Grade, Program, Shear } from "../../entities";
 import { batchedLookup } from "../db/batched-lookup";
-import { queryPrepared } from "../db/prepared";
+import { runPrepared } from "../db/prepared";
 import type { GradeRecord, ShearRecord } from "./catalog";
 
 const SHEAR_ID = /^shr_[0-9A-Z]{26}$/;
@@ -25,7 +25,7 @@ const shared = new WeakMap<object, Lookups>();
 
 /** `(shop_id, <column>)` among the keys' pairs, as two parallel arrays (one statement text for any number of keys). */
 const byShopAnd = (column: string) => `(shop_id, ${column}) in (select * from unnest($1::text[], $2::text[]))`;
-const columns = (keys: string[]) => {
+const keyArrays = (keys: string[]) => {
   const ps = pairs(keys);
   return [ps.map((p) => p[0]), ps.map((p) => p[1])];
 };
@@ -71,7 +71,7 @@ function lookups(em: EntityManager): Lookups {
   let readers = shared.get(connection);
   if (readers) return readers;
   const knex = connection.getKnex();
-  const rows = (name: string, sql: string, keys: string[]) => queryPrepared(knex, name, sql, columns(keys));
+  const rows = (name: string, sql: string, keys: string[]) => runPrepared(knex, name, sql, keyArrays(keys));
   const shearOf = recordReader<ShearRecord>(em, Shear.meta.className);
   const gradeOf = recordReader<GradeRecord>(em, Grade.meta.className);
   readers = {

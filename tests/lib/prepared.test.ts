@@ -6,7 +6,7 @@
 import { MikroORM } from "@mikro-orm/postgresql";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { ormConfig } from "../../lib/db/config";
-import { queryPrepared, rawTransaction, runPrepared } from "../../lib/db/prepared";
+import { rawTransaction, runPrepared } from "../../lib/db/prepared";
 import { recreateDatabase } from "../support/db";
 
 let orm: MikroORM;
@@ -55,11 +55,11 @@ describe("runPrepared", () => {
   });
 });
 
-describe("queryPrepared", () => {
+describe("runPrepared on a knex transaction", () => {
   it("refuses to run on a knex transaction that has already committed (its connection is back in the pool)", async () => {
     const trx = await orm.em.getConnection().getKnex().transaction();
     await trx.commit();
-    await expect(queryPrepared(trx, "test-add", "select $1::int + 1 as n", [1])).rejects.toThrow(/already ended/);
+    await expect(runPrepared(trx, "test-add", "select $1::int + 1 as n", [1])).rejects.toThrow(/already ended/);
   });
 });
 

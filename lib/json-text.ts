@@ -1,29 +1,39 @@
 /**
- * JSON text serialised once. A value that is written to the database as JSON and then sent as
- * the answer (a created program and its check: kilobytes each, hundreds in a batch) can carry
- * the text it was written as, and `stringify` reuses that text where the value is the answer or
- * appears within the first levels of an answer marked with `holdsJsonText` (other answers are
- * one `JSON.stringify`: looking through every answer for remembered values cost more than it
- * saved). The result is exactly `JSON.stringify(value)`; only the work differs. A value must not
- * change after its text is remembered.
+ * JSON serialised once, kept as UTF-8 bytes. A value that is written to the database as JSON and
+ * then sent as the answer (a created program and its check: kilobytes each, hundreds in a batch)
+ * can carry the bytes it was written as, and `jsonBytes` reuses them where the value is the answer
+ * or appears within the first levels of an answer marked with `holdsRememberedJson` (other answers
+ * are one `JSON.stringify`: looking through every answer for remembered values cost more than it
+ * saved). The result is exactly the UTF-8 of `JSON.stringify(value)`; only the work differs. A
+ * value must not change after its bytes are remembered.
+ *
+ * Bytes, not strings: a batch's answer and its statement's parameters are ~1 MB each, and on this
+ * runtime joining a hundred remembered strings into one and then encoding it cost ~7–10 ms a batch
+ * (large strings are allocated afresh each time, and a check's `–` or `√` makes every string
+ * holding it two bytes a character), against ~1 ms to encode each program's pieces once and copy
+ * the bytes together (`Buffer.concat`).
  */
 
-const texts = new WeakMap<object, string>();
+/** Pieces of UTF-8 whose concatenation is a value's JSON text. */
+export type JsonPieces = readonly Bytes[];
+type Bytes = Buffer<ArrayBuffer>;
+
+const remembered = new WeakMap<object, JsonPieces>();
 const holders = new WeakSet<object>();
 
-/** Remember `text` (which must be `JSON.stringify(value)`) as the JSON of `value`; returns `value`. */
-export function rememberJsonText<T extends object>(value: T, text: string): T {
-  texts.set(value, text);
+/** Remember `pieces` (whose concatenation must be the UTF-8 of `JSON.stringify(value)`) as the JSON of `value`; returns `value`. */
+export function rememberJsonBytes<T extends object>(value: T, pieces: JsonPieces): T {
+  remembered.set(value, pieces);
   return value;
 }
 
-/** Mark `value` as holding remembered values within its first levels, for `stringify` to look for; returns `value`. */
-export function holdsJsonText<T extends object>(value: T): T {
+/** Mark `value` as holding remembered values within its first levels, for `jsonBytes` to look for; returns `value`. */
+export function holdsRememberedJson<T extends object>(value: T): T {
   holders.add(value);
   return value;
 }
 
-/** How deep `stringify` looks for remembered values (an answer's `{ data: [{ program }] }` is three levels). */
+/** How deep `jsonBytes` looks for remembered values (an answer's `{ data: [{ program }] }` is three levels). */
 const DEPTH = 3;
 
 const plain = (value: object) => {
@@ -31,35 +41,86 @@ const plain = (value: object) => {
   return (proto === Object.prototype || proto === null) && typeof (value as { toJSON?: unknown }).toJSON !== "function";
 };
 
-/**
- * `JSON.stringify(value)`, reusing the remembered text of the value itself or, when it was marked
- * with `holdsJsonText`, of values within its first few levels.
- */
-export function stringify(value: unknown): string | undefined {
-  if (value === null || typeof value !== "object") return JSON.stringify(value);
-  const known = texts.get(value);
-  if (known !== undefined) return known;
-  return holders.has(value) ? walk(value, DEPTH) : JSON.stringify(value);
+/** Text and byte pieces in order; text is encoded in runs, between the pieces of bytes. */
+class Output {
+  private readonly parts: Bytes[] = [];
+  private text = "";
+  add(text: string) {
+    this.text += text;
+  }
+  addBytes(pieces: JsonPieces) {
+    if (this.text) this.parts.push(Buffer.from(this.text, "utf8"));
+    this.text = "";
+    for (const piece of pieces) this.parts.push(piece);
+  }
+  /** where the output is now, to go back to when a value turns out to write nothing */
+  mark(): [number, string] {
+    return [this.parts.length, this.text];
+  }
+  reset([length, text]: [number, string]) {
+    this.parts.length = length;
+    this.text = text;
+  }
+  bytes(): Bytes {
+    if (this.text) this.parts.push(Buffer.from(this.text, "utf8"));
+    this.text = "";
+    return this.parts.length === 1 ? this.parts[0] : Buffer.concat(this.parts);
+  }
 }
 
-function walk(value: unknown, depth: number): string | undefined {
-  if (value === null || typeof value !== "object") return JSON.stringify(value);
-  const known = texts.get(value);
-  if (known !== undefined) return known;
-  if (depth === 0) return JSON.stringify(value);
-  if (Array.isArray(value)) {
-    // as JSON.stringify: items that serialise to nothing (undefined, functions, symbols) become null
-    const items: string[] = [];
-    for (let i = 0; i < value.length; i++) items.push(walk(value[i], depth - 1) ?? "null");
-    return `[${items.join(",")}]`;
+/**
+ * The UTF-8 bytes of `JSON.stringify(value)` (undefined where that is undefined), reusing the
+ * remembered bytes of the value itself or, when it was marked with `holdsRememberedJson`, of values
+ * within its first few levels.
+ */
+export function jsonBytes(value: unknown): Bytes | undefined {
+  if (value !== null && typeof value === "object") {
+    const known = remembered.get(value);
+    if (known !== undefined) return known.length === 1 ? known[0] : Buffer.concat(known);
+    if (holders.has(value)) {
+      const out = new Output();
+      return write(value, DEPTH, out) ? out.bytes() : undefined;
+    }
   }
-  if (!plain(value)) return JSON.stringify(value);
-  const parts: string[] = [];
-  for (const key of Object.keys(value)) {
-    const text = walk((value as Record<string, unknown>)[key], depth - 1);
-    if (text !== undefined) parts.push(`${JSON.stringify(key)}:${text}`);
+  const text = JSON.stringify(value);
+  return text === undefined ? undefined : Buffer.from(text, "utf8");
+}
+
+/** Write `value`'s JSON to `out`; false (and nothing written) where JSON.stringify gives undefined. */
+function write(value: unknown, depth: number, out: Output): boolean {
+  if (value !== null && typeof value === "object") {
+    const known = remembered.get(value);
+    if (known !== undefined) {
+      out.addBytes(known);
+      return true;
+    }
+    if (depth > 0 && Array.isArray(value)) {
+      // as JSON.stringify: items that serialise to nothing (undefined, functions, symbols) become null
+      out.add("[");
+      for (let i = 0; i < value.length; i++) {
+        if (i) out.add(",");
+        if (!write(value[i], depth - 1, out)) out.add("null");
+      }
+      out.add("]");
+      return true;
+    }
+    if (depth > 0 && plain(value)) {
+      out.add("{");
+      let first = true;
+      for (const key of Object.keys(value)) {
+        const before = out.mark();
+        out.add(`${first ? "" : ","}${JSON.stringify(key)}:`);
+        if (write((value as Record<string, unknown>)[key], depth - 1, out)) first = false;
+        else out.reset(before);
+      }
+      out.add("}");
+      return true;
+    }
   }
-  return `{${parts.join(",")}}`;
+  const text = JSON.stringify(value);
+  if (text === undefined) return false;
+  out.add(text);
+  return true;
 }
 
 /** `JSON.stringify(value)` in three parts around the value of one of its keys: `head + inner + tail` is the whole. */

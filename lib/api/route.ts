@@ -10,7 +10,7 @@ import type { EntityManager } from "@mikro-orm/postgresql";
 import type { z } from "zod";
 import { requestEm } from "../db/orm";
 import { newId } from "../ids";
-import { stringify } from "../json-text";
+import { jsonBytes } from "../json-text";
 import { authenticate, type Principal } from "../services/keys";
 import { SECURITY_HEADERS } from "../security-headers";
 
@@ -44,7 +44,7 @@ export interface Reply {
 type RouteContext = { params: Promise<Record<string, string | string[]>> };
 
 /**
- * The response. The body is JSON serialised once (reusing the text a created program was written
+ * The response. The body is JSON serialised once (reusing the bytes a created program was written
  * with, lib/json-text.ts) and handed over as bytes: JSON text is always well-formed Unicode, so the
  * string-to-USV pass a string body would get is not needed.
  */
@@ -52,8 +52,8 @@ function json(status: number, body: unknown, headers: Record<string, string>, pr
   const responseHeaders = new Headers(headers);
   if (body !== undefined)
     responseHeaders.set("Content-Type", problem ? "application/problem+json" : "application/json");
-  const text = body === undefined || status === 204 ? undefined : stringify(body);
-  return new Response(text === undefined ? null : Buffer.from(text, "utf8"), { status, headers: responseHeaders });
+  const bytes = body === undefined || status === 204 ? undefined : jsonBytes(body);
+  return new Response(bytes ?? null, { status, headers: responseHeaders });
 }
 
 /** One request's state as it goes through the steps. */

@@ -8,8 +8,11 @@
  */
 import type { EntityManager } from "@mikro-orm/postgresql";
 
-/** A value node-postgres can bind: arrays become PostgreSQL arrays. */
-type Value = string | number | boolean | Date | null | readonly (string | number)[];
+/**
+ * A value node-postgres can bind: arrays become PostgreSQL arrays; a Buffer is sent in binary format,
+ * which for a `text` parameter is its UTF-8 bytes as they are (no string to encode).
+ */
+type Value = string | number | boolean | Date | null | Buffer | readonly (string | number)[];
 
 interface PooledClient {
   query(config: { name: string; text: string; values: readonly unknown[] }): Promise<{ rows: unknown[] }>;

@@ -13,7 +13,7 @@ import { checkProgram, type CheckResult } from "../shear";
 import { gradeProfile, shearProfile, type ShearRecord } from "./catalog";
 import { newId } from "../ids";
 import { runPrepared } from "../db/prepared";
-import { jsonTextAround, rememberJsonText } from "../json-text";
+import { jsonTextAround, rememberJsonBytes } from "../json-text";
 import { wakeAfterCommit } from "../db/wake";
 import { OUTBOX_CHANNEL } from "./events";
 import { existingReferences, gradesByCode, shearsNamed } from "./lookups";
@@ -126,7 +126,9 @@ export async function checkPrograms(
  * which it checks JSON text, so the checks and the rest of each view go as two more text
  * parameters, one entry per program split at ASCII record separators (which JSON text never holds
  * raw: `JSON.stringify` escapes every character below U+0020), the view's text around its check split
- * at a unit separator. Each stored text is checked as JSON once, as the column's type requires.
+ * at a unit separator. Those two are sent as their UTF-8 bytes (node-postgres binds a Buffer in
+ * binary format, which for text is the text's bytes, checked as UTF-8 by PostgreSQL). Each stored
+ * text is checked as JSON once, as the column's type requires.
  */
 const ROW =
   "id text, shop_id text, shear_id text, reference text, title text, revision int, input jsonb, grade_code text, units text, priority int, due_at timestamptz, validation text, metadata jsonb, routing jsonb, created_at timestamptz, updated_at timestamptz, event_id text, n int";
@@ -134,8 +136,11 @@ const COLUMNS = ROW.split(", ")
   .map((c) => c.split(" ")[0])
   .slice(0, -2)
   .join(", ");
-const RECORD = "\u001e";
-const UNIT = "\u001f";
+const RECORD_BYTE = 0x1e;
+const UNIT_BYTE = 0x1f;
+const RECORD_BYTES = Buffer.from([RECORD_BYTE]);
+const UNIT_BYTES = Buffer.from([UNIT_BYTE]);
+const utf8 = (text: string) => Buffer.from(text, "utf8");
 const INSERT = `with x as materialized (select * from json_to_recordset($1::json) as x(${ROW})),
   c as (select * from string_to_table($2, E'\\x1e') with ordinality as c("check", n)),
   v as (select split_part(around, E'\\x1f', 1) as head, split_part(around, E'\\x1f', 2) as tail, n
@@ -184,9 +189,13 @@ async function insert(em: EntityManager, shopId: string, checked: Checked[]): Pr
     updatedAt: now,
   }));
   const views = programs.map(viewProgram);
-  // Each view is serialised once, around its check: the same text goes into the statement and, remembered, the answer.
-  const texts = views.map((view) => jsonTextAround(view, "check"));
-  views.forEach((view, i) => rememberJsonText(view, texts[i].head + texts[i].inner + texts[i].tail));
+  // Each view is serialised once, around its check, and encoded once: the same bytes go into the statement and,
+  // remembered, the answer.
+  const pieces = views.map((view) => {
+    const text = jsonTextAround(view, "check");
+    return { head: utf8(text.head), inner: utf8(text.inner), tail: utf8(text.tail) };
+  });
+  views.forEach((view, i) => rememberJsonBytes(view, [pieces[i].head, pieces[i].inner, pieces[i].tail]));
   // the event's body is `{ program }` (EventData<"program.created">), built in the statement from the view's text
   const rows = programs.map((program, i) => ({
     id: program.id,
@@ -208,12 +217,15 @@ async function insert(em: EntityManager, shopId: string, checked: Checked[]): Pr
     event_id: newId("event"),
     n: i + 1,
   }));
-  // the statement pairs the n-th piece of each text with the n-th row: a separator inside a piece would shift them
-  const unsplittable = (text: string) => text.includes(RECORD) || text.includes(UNIT);
-  if (texts.some((text) => unsplittable(text.head) || unsplittable(text.inner) || unsplittable(text.tail)))
+  // The statement pairs the n-th piece of each text with the n-th row: a separator inside a piece would shift them.
+  // UTF-8 writes every character above U+007F with bytes above 0x7F, so a separator byte is a separator character.
+  const unsplittable = (bytes: Buffer) => bytes.includes(RECORD_BYTE) || bytes.includes(UNIT_BYTE);
+  if (pieces.some((piece) => unsplittable(piece.head) || unsplittable(piece.inner) || unsplittable(piece.tail)))
     throw new Error("a program's JSON text holds a raw separator; it cannot be written");
-  const checks = texts.map((text) => text.inner).join(RECORD);
-  const around = texts.map((text) => `${text.head}${UNIT}${text.tail}`).join(RECORD);
+  const checks = Buffer.concat(pieces.flatMap((piece, i) => (i ? [RECORD_BYTES, piece.inner] : [piece.inner])));
+  const around = Buffer.concat(
+    pieces.flatMap((piece, i) => [...(i ? [RECORD_BYTES] : []), piece.head, UNIT_BYTES, piece.tail]),
+  );
   const inTransaction = em.isInTransaction();
   try {
     // Bound parameters, not MikroORM's `execute`, which writes every value into the SQL text: a batch's JSON runs to

@@ -1,14 +1,21 @@
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
-import { holdsJsonText, jsonTextAround, rememberJsonText, stringify } from "../../lib/json-text";
+import { holdsRememberedJson, jsonBytes, jsonTextAround, rememberJsonBytes } from "../../lib/json-text";
 
-describe("stringify", () => {
-  it("is JSON.stringify for values with nothing remembered", () => {
+/** What the answer must be: the UTF-8 of JSON.stringify(value). */
+const expected = (value: unknown) => {
+  const text = JSON.stringify(value);
+  return text === undefined ? undefined : Buffer.from(text, "utf8");
+};
+const remember = <T extends object>(value: T, text: string) => rememberJsonBytes(value, [Buffer.from(text, "utf8")]);
+
+describe("jsonBytes", () => {
+  it("is the UTF-8 of JSON.stringify for values with nothing remembered", () => {
     const values: unknown[] = [
       null,
       0,
       -1.5e-7,
-      'text with "quotes" and \\ and \u2028',
+      'text with "quotes" and \\ and \u2028, é, √ and 🔧',
       "\uD800 lone",
       true,
       [1, undefined, () => 1, Symbol("s"), null],
@@ -16,36 +23,44 @@ describe("stringify", () => {
 
       { a: undefined, b: () => 1, c: Symbol("s"), d: 1, 'key "q"': [{ deep: { deeper: { deepest: [1, 2] } } }] },
       { when: new Date("2026-12-03T08:00:00Z"), nested: { toJSON: () => "custom" } },
+      { gone: { toJSON: () => undefined }, kept: 1 },
       Object.assign(Object.create(null), { bare: 1 }),
       { data: [{ index: 0, program: { id: "prg_1", n: 1.1 } }] },
     ];
     for (const value of values) {
-      expect(stringify(value)).toBe(JSON.stringify(value));
+      expect(jsonBytes(value)).toEqual(expected(value));
       if (value !== null && typeof value === "object")
-        expect(stringify(holdsJsonText(value))).toBe(JSON.stringify(value));
+        expect(jsonBytes(holdsRememberedJson(value))).toEqual(expected(value));
     }
-    expect(stringify(undefined)).toBe(JSON.stringify(undefined));
+    expect(jsonBytes(undefined)).toBeUndefined();
+    expect(jsonBytes(() => 1)).toBeUndefined();
   });
 
-  it("reuses remembered text for the value itself, and within the first levels of a value marked as holding some", () => {
-    const program = { id: "prg_1", check: { layout: { rectangles: [{ x: 1.25 }] } } };
+  it("reuses remembered bytes for the value itself, and within the first levels of a value marked as holding some", () => {
+    const program = { id: "prg_1", title: "Längsschnitt – 3 mm", check: { layout: { rectangles: [{ x: 1.25 }] } } };
     const text = JSON.stringify(program);
-    rememberJsonText(program, text);
+    // remembered in pieces, split inside a character's bytes: only the whole must be the text's UTF-8
+    const whole = Buffer.from(text, "utf8");
+    const cut = whole.indexOf(Buffer.from("–")) + 1;
+    rememberJsonBytes(program, [whole.subarray(0, cut), whole.subarray(cut)]);
     const bodies = [
       program,
-      holdsJsonText({ data: [program, program] }),
-      holdsJsonText({ data: [{ index: 0, status: 201, program }] }),
+      holdsRememberedJson({ data: [program, program] }),
+      holdsRememberedJson({ data: [{ index: 0, status: 201, program }] }),
+      holdsRememberedJson({ data: [{ index: 0, status: 422, problem: { detail: "ü" }, skipped: undefined }] }),
     ];
-    for (const body of bodies) expect(stringify(body)).toBe(JSON.stringify(body));
-    // the remembered text is what is sent: a different text shows it was used
-    const marked = rememberJsonText({ id: "prg_2" }, '{"id":"prg_2","from":"text"}');
-    expect(stringify(marked)).toBe('{"id":"prg_2","from":"text"}');
-    expect(stringify(holdsJsonText({ data: [marked] }))).toBe('{"data":[{"id":"prg_2","from":"text"}]}');
+    for (const body of bodies) expect(jsonBytes(body)).toEqual(expected(body));
+    // the remembered bytes are what is sent: different bytes show they were used
+    const marked = remember({ id: "prg_2" }, '{"id":"prg_2","from":"bytes"}');
+    expect(jsonBytes(marked)?.toString()).toBe('{"id":"prg_2","from":"bytes"}');
+    expect(jsonBytes(holdsRememberedJson({ data: [marked] }))?.toString()).toBe(
+      '{"data":[{"id":"prg_2","from":"bytes"}]}',
+    );
     // an answer not marked is serialised as it is, in one JSON.stringify
-    expect(stringify({ data: [marked] })).toBe('{"data":[{"id":"prg_2"}]}');
+    expect(jsonBytes({ data: [marked] })?.toString()).toBe('{"data":[{"id":"prg_2"}]}');
   });
 
-  it("gives JSON.stringify's text for any JSON value, with any of its objects remembered", () => {
+  it("gives the UTF-8 of JSON.stringify for any JSON value, with any of its objects remembered (property: fast-check)", () => {
     fc.assert(
       fc.property(fc.jsonValue(), fc.nat(), (value, pick) => {
         const objects: object[] = [];
@@ -58,11 +73,11 @@ describe("stringify", () => {
         collect(value);
         if (objects.length) {
           const chosen = objects[pick % objects.length];
-          rememberJsonText(chosen, JSON.stringify(chosen));
+          remember(chosen, JSON.stringify(chosen));
         }
-        expect(stringify(value)).toBe(JSON.stringify(value));
+        expect(jsonBytes(value)).toEqual(expected(value));
         if (value !== null && typeof value === "object")
-          expect(stringify(holdsJsonText(value))).toBe(JSON.stringify(value));
+          expect(jsonBytes(holdsRememberedJson(value))).toEqual(expected(value));
       }),
       { numRuns: 2000, seed: 11 },
     );

@@ -10,7 +10,15 @@ import { Shop } from "./Shop";
 export const Event = defineEntity({
   name: "Event",
   tableName: "events",
-  indexes: [{ properties: ["shop", "id"] }, { properties: ["subjectId", "id"] }, { properties: ["dispatchedAt"] }],
+  indexes: [
+    { properties: ["shop", "id"] },
+    { properties: ["subjectId", "id"] },
+    // the events waiting to be fanned out, oldest first: the worker's query, whatever the statistics say
+    {
+      name: "events_pending_index",
+      expression: 'create index "events_pending_index" on "events" ("id") where "dispatched_at" is null',
+    },
+  ],
   properties: {
     id: p
       .string()

@@ -22,6 +22,7 @@ import { Migration20261203080000_axis_names } from "./Migration20261203080000_ax
 import { Migration20261203081306_typed_columns } from "./Migration20261203081306_typed_columns";
 import { Migration20261203090000_lz4_json } from "./Migration20261203090000_lz4_json";
 import { Migration20261203110000_json_bodies } from "./Migration20261203110000_json_bodies";
+import { Migration20261203170000_pending_events } from "./Migration20261203170000_pending_events";
 
 export const migrationsList: MigrationObject[] = [
   { name: "Migration20261201234604_initial", class: Migration20261201234604_initial },
@@ -42,4 +43,5 @@ export const migrationsList: MigrationObject[] = [
   { name: "Migration20261203081306_typed_columns", class: Migration20261203081306_typed_columns },
   { name: "Migration20261203090000_lz4_json", class: Migration20261203090000_lz4_json },
   { name: "Migration20261203110000_json_bodies", class: Migration20261203110000_json_bodies },
+  { name: "Migration20261203170000_pending_events", class: Migration20261203170000_pending_events },
 ];

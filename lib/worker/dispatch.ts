@@ -12,6 +12,19 @@ export const DISPATCH_BATCH = 200;
 const OVERDUE_MS = 10_000;
 
 /**
+ * Take and mark a round of waiting events (`$1`: when), each paired with its shop's subscribed,
+ * enabled endpoints. The waiting events are read through their own partial index
+ * (`events_pending_index`), so a round never walks the events already fanned out.
+ */
+export const TAKE = `with taken as (select id from events where dispatched_at is null order by id limit ${DISPATCH_BATCH} for update skip locked),
+  marked as (update events e set dispatched_at = $1 from taken where e.id = taken.id returning e.id, e.shop_id, e.type)
+  select m.id, m.shop_id, w.id as endpoint_id
+  from marked m left join webhook_endpoints w on w.shop_id = m.shop_id and w.enabled
+    and m.type <> 'endpoint.test' -- test events go only to the endpoint that asked
+    and (jsonb_array_length(w.event_types) = 0 or w.event_types @> jsonb_build_array(m.type))
+  order by m.id, w.id`;
+
+/**
  * Fan out one round of undispatched events: how many were taken, and the new deliveries' ids. One
  * statement takes and marks the events (reading only their id, shop and type: their bodies are read
  * when a delivery is attempted) and pairs them with their shops' subscribed, enabled endpoints; one
@@ -22,17 +35,9 @@ const OVERDUE_MS = 10_000;
 export async function dispatchPending(em: EntityManager): Promise<{ taken: number; deliveries: string[] }> {
   return rawTransaction(em, async (query) => {
     const now = new Date();
-    const pairs = await query<{ id: string; shop_id: string; endpoint_id: string | null }>(
-      "dispatch-take",
-      `with taken as (select id from events where dispatched_at is null order by id limit ${DISPATCH_BATCH} for update skip locked),
-       marked as (update events e set dispatched_at = $1 from taken where e.id = taken.id returning e.id, e.shop_id, e.type)
-       select m.id, m.shop_id, w.id as endpoint_id
-       from marked m left join webhook_endpoints w on w.shop_id = m.shop_id and w.enabled
-         and m.type <> 'endpoint.test' -- test events go only to the endpoint that asked
-         and (jsonb_array_length(w.event_types) = 0 or w.event_types @> jsonb_build_array(m.type))
-       order by m.id, w.id`,
-      [now],
-    );
+    const pairs = await query<{ id: string; shop_id: string; endpoint_id: string | null }>("dispatch-take", TAKE, [
+      now,
+    ]);
     const taken = new Set(pairs.map((pair) => pair.id)).size;
     const made = pairs.filter((pair) => pair.endpoint_id !== null);
     if (!made.length) return { taken, deliveries: [] };

@@ -88,9 +88,17 @@ const server = http.createServer((req, res) => {
 });
 server.listen(port, hostname, () => console.log(`▲ Shearwire web server on http://${hostname}:${port}`));
 
+/** The request log's buffered rows, written (lib/api/request-log.ts keeps its buffer on globalThis for this). */
+const flushRequestLog = () =>
+  (globalThis as { __shearwireRequestLog?: { flush?: () => Promise<void> } }).__shearwireRequestLog?.flush?.() ??
+  Promise.resolve();
+const exit = () => void flushRequestLog().finally(() => process.exit(0));
+
+// Stopping: take no new connections, let the requests in flight finish (a long-polling claim included, up to 5 s),
+// write the request log, then exit.
 for (const signal of ["SIGTERM", "SIGINT"] as const) {
   process.once(signal, () => {
-    server.close(() => process.exit(0));
-    setTimeout(() => process.exit(0), 5_000).unref();
+    server.close(exit);
+    setTimeout(exit, 5_000).unref();
   });
 }

@@ -1,7 +1,8 @@
 /**
  * Request-log rows are buffered and written in batches (one multi-row INSERT every 250 ms or
  * 200 rows) so logging costs no database round trip on the request's own path. The buffer
- * is flushed when the process stops; rows are lost only if the process is killed outright.
+ * is flushed when the process stops (by its host, when the host handles the stop signal itself);
+ * rows are lost only if the process is killed outright.
  * Caller-chosen text (the path, the Idempotency-Key) is cut to a bounded length first, and a
  * batch the database refuses is written again row by row, so one bad row never costs the others.
  */
@@ -25,9 +26,20 @@ export interface RequestLogRow {
 const FLUSH_MS = 250;
 const MAX_ROWS = 200;
 
-type State = { rows: RequestLogRow[]; timer?: NodeJS.Timeout; writing: Promise<void>; hooked?: boolean };
+/**
+ * Kept on `globalThis`: the app's bundle and a script hosting it (`scripts/web-server.ts`) load
+ * this module apart, and both must reach the same buffer; `flush` is how the host flushes it.
+ */
+type State = {
+  rows: RequestLogRow[];
+  timer?: NodeJS.Timeout;
+  writing: Promise<void>;
+  hooked?: boolean;
+  flush?: () => Promise<void>;
+};
 const holder = globalThis as unknown as { __shearwireRequestLog?: State };
 const state: State = (holder.__shearwireRequestLog ??= { rows: [], writing: Promise.resolve() });
+state.flush ??= flushRequestLog;
 
 /** Longest path and Idempotency-Key kept in the log (a longer one is cut, marked with an ellipsis). */
 export const LOGGED_TEXT_MAX = 1000;
@@ -43,6 +55,9 @@ export function logRequest(row: RequestLogRow) {
     state.hooked = true;
     process.once("beforeExit", () => void flushRequestLog());
     for (const sig of ["SIGTERM", "SIGINT"] as const) {
+      // A host that handles the signal itself owns the shutdown (the web server stops taking requests, lets those in
+      // flight finish, then flushes this log and exits); stopping the process here would cut those requests off.
+      if (process.listenerCount(sig) > 0) continue;
       process.once(sig, () => void flushRequestLog().finally(() => process.kill(process.pid, sig)));
     }
   }

@@ -23,6 +23,7 @@ const holders = new WeakSet<object>();
 
 /** Remember `pieces` (whose concatenation must be the UTF-8 of `JSON.stringify(value)`) as the JSON of `value`; returns `value`. */
 export function rememberJsonBytes<T extends object>(value: T, pieces: JsonPieces): T {
+  if (!pieces.length) throw new TypeError("JSON text is never empty");
   remembered.set(value, pieces);
   return value;
 }
@@ -94,7 +95,7 @@ function write(value: unknown, depth: number, out: Output): boolean {
       out.addBytes(known);
       return true;
     }
-    if (depth > 0 && Array.isArray(value)) {
+    if (depth > 0 && Array.isArray(value) && typeof (value as { toJSON?: unknown }).toJSON !== "function") {
       // as JSON.stringify: items that serialise to nothing (undefined, functions, symbols) become null
       out.add("[");
       for (let i = 0; i < value.length; i++) {

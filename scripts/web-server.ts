@@ -13,6 +13,7 @@ import path from "node:path";
 import { parseArgs } from "node:util";
 import next from "next";
 import { SECURITY_HEADERS } from "../lib/security-headers";
+import { beginStopping, hostOwnsShutdown, runStopHooks } from "../lib/shutdown";
 
 const { values } = parseArgs({
   options: {
@@ -57,6 +58,8 @@ function decodable(path: string): boolean {
   }
 }
 
+/** Set once the process begins to stop (below): answers from then on close their connection. */
+let stopping = false;
 const server = http.createServer((req, res) => {
   const path = (req.url ?? "/").split("?")[0];
   if (!SERVED.includes(req.method ?? "")) {
@@ -84,21 +87,29 @@ const server = http.createServer((req, res) => {
   }
   // The client address the sign-in throttle counts by: the socket's, unless a proxy in front is trusted to say.
   if (process.env.SHEARWIRE_TRUST_PROXY !== "1") req.headers["x-forwarded-for"] = req.socket.remoteAddress ?? "unknown";
+  if (stopping) res.setHeader("Connection", "close");
   void handle(req, res);
 });
 server.listen(port, hostname, () => console.log(`▲ Shearwire web server on http://${hostname}:${port}`));
 
-/** The request log's buffered rows, written (lib/api/request-log.ts keeps its buffer on globalThis for this). */
-const flushRequestLog = () =>
-  (globalThis as { __shearwireRequestLog?: { flush?: () => Promise<void> } }).__shearwireRequestLog?.flush?.() ??
-  Promise.resolve();
-const exit = () => void flushRequestLog().finally(() => process.exit(0));
-
-// Stopping: take no new connections, let the requests in flight finish (a long-polling claim included, up to 5 s),
-// write the request log, then exit.
+// Stopping (SIGTERM or SIGINT; a second one changes nothing): take no new connections, end long waits (a gateway's
+// claim answers 204 at once), let the requests in flight finish, closing each connection once its answer is sent, run
+// the stop hooks (the request log's last rows), then exit. After 5 s every connection is closed; after 8 s the process
+// exits whatever is still running.
+hostOwnsShutdown();
+const exit = () => void runStopHooks(2_000).finally(() => process.exit(0));
 for (const signal of ["SIGTERM", "SIGINT"] as const) {
-  process.once(signal, () => {
+  process.on(signal, () => {
+    if (stopping) return;
+    stopping = true;
+    beginStopping();
     server.close(exit);
-    setTimeout(exit, 5_000).unref();
+    const idle = setInterval(() => server.closeIdleConnections(), 50);
+    idle.unref();
+    setTimeout(() => {
+      clearInterval(idle);
+      server.closeAllConnections();
+    }, 5_000).unref();
+    setTimeout(() => process.exit(0), 8_000).unref();
   });
 }

@@ -8,6 +8,7 @@
  */
 import { RequestLog } from "../../entities";
 import { getOrm } from "../db/orm";
+import { onStop, shutdownOwnedByHost } from "../shutdown";
 
 export interface RequestLogRow {
   id: string;
@@ -26,20 +27,9 @@ export interface RequestLogRow {
 const FLUSH_MS = 250;
 const MAX_ROWS = 200;
 
-/**
- * Kept on `globalThis`: the app's bundle and a script hosting it (`scripts/web-server.ts`) load
- * this module apart, and both must reach the same buffer; `flush` is how the host flushes it.
- */
-type State = {
-  rows: RequestLogRow[];
-  timer?: NodeJS.Timeout;
-  writing: Promise<void>;
-  hooked?: boolean;
-  flush?: () => Promise<void>;
-};
+type State = { rows: RequestLogRow[]; timer?: NodeJS.Timeout; writing: Promise<void>; hooked?: boolean };
 const holder = globalThis as unknown as { __shearwireRequestLog?: State };
 const state: State = (holder.__shearwireRequestLog ??= { rows: [], writing: Promise.resolve() });
-state.flush ??= flushRequestLog;
 
 /** Longest path and Idempotency-Key kept in the log (a longer one is cut, marked with an ellipsis). */
 export const LOGGED_TEXT_MAX = 1000;
@@ -54,11 +44,13 @@ export function logRequest(row: RequestLogRow) {
   if (!state.hooked) {
     state.hooked = true;
     process.once("beforeExit", () => void flushRequestLog());
+    // A host that owns the shutdown (the web server: it stops taking requests, lets those in flight finish, then runs
+    // the stop hooks and exits) flushes the log last; stopping the process here would cut those requests off.
+    onStop(flushRequestLog);
     for (const sig of ["SIGTERM", "SIGINT"] as const) {
-      // A host that handles the signal itself owns the shutdown (the web server stops taking requests, lets those in
-      // flight finish, then flushes this log and exits); stopping the process here would cut those requests off.
-      if (process.listenerCount(sig) > 0) continue;
-      process.once(sig, () => void flushRequestLog().finally(() => process.kill(process.pid, sig)));
+      process.once(sig, () => {
+        if (!shutdownOwnedByHost()) void flushRequestLog().finally(() => process.kill(process.pid, sig));
+      });
     }
   }
   if (state.rows.length >= MAX_ROWS) void flushRequestLog();

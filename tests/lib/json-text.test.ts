@@ -34,6 +34,7 @@ describe("jsonBytes", () => {
     }
     expect(jsonBytes(undefined)).toBeUndefined();
     expect(jsonBytes(() => 1)).toBeUndefined();
+    expect(() => rememberJsonBytes({}, [])).toThrow(TypeError);
   });
 
   it("reuses remembered bytes for the value itself, and within the first levels of a value marked as holding some", () => {
@@ -48,6 +49,9 @@ describe("jsonBytes", () => {
       holdsRememberedJson({ data: [program, program] }),
       holdsRememberedJson({ data: [{ index: 0, status: 201, program }] }),
       holdsRememberedJson({ data: [{ index: 0, status: 422, problem: { detail: "ü" }, skipped: undefined }] }),
+      // a remembered value, then keys that write nothing, then one that does
+      holdsRememberedJson({ data: [{ program, skipped: undefined, fn: () => 1, last: "é" }], gone: undefined }),
+      holdsRememberedJson({ data: Object.assign([program], { toJSON: () => ["own toJSON"] }) }),
     ];
     for (const body of bodies) expect(jsonBytes(body)).toEqual(expected(body));
     // the remembered bytes are what is sent: different bytes show they were used

@@ -148,9 +148,9 @@ describe("fanning out events", () => {
     await burst("fresh", 5);
     type PlanNode = {
       "Node Type": string;
+      "Relation Name"?: string;
       "Index Name"?: string;
       "Rows Removed by Filter"?: number;
-      "Actual Rows"?: number;
       Plans?: PlanNode[];
     };
     // EXPLAIN ANALYZE runs the statement: in a transaction rolled back, so the events still wait afterwards
@@ -166,7 +166,8 @@ describe("fanning out events", () => {
     collect(plan[0].Plan);
     // the waiting events come from the partial index, and no row is read only to be filtered out
     expect(nodes.some((node) => node["Index Name"] === "events_pending_index")).toBe(true);
-    expect(nodes.reduce((sum, node) => sum + (node["Rows Removed by Filter"] ?? 0), 0)).toBe(0);
+    const onEvents = nodes.filter((node) => node["Relation Name"] === "events");
+    expect(onEvents.reduce((sum, node) => sum + (node["Rows Removed by Filter"] ?? 0), 0)).toBe(0);
     expect(Number(await waiting())).toBe(5);
   });
 });

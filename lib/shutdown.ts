@@ -44,3 +44,17 @@ export async function runStopHooks(ms: number): Promise<void> {
   const limit = new Promise<void>((resolve) => setTimeout(resolve, ms).unref());
   await Promise.race([Promise.allSettled([...shared.hooks].map((hook) => hook())), limit]);
 }
+
+/**
+ * Run `stop` on the first SIGTERM or SIGINT; later ones change nothing (tsx, which runs the scripts,
+ * may pass a signal on again a moment later, and with no listener left the process would end at once).
+ */
+export function onStopSignal(stop: (signal: NodeJS.Signals) => void): void {
+  let stopping = false;
+  for (const signal of ["SIGTERM", "SIGINT"] as const)
+    process.on(signal, () => {
+      if (stopping) return;
+      stopping = true;
+      stop(signal);
+    });
+}

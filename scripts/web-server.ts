@@ -13,7 +13,7 @@ import path from "node:path";
 import { parseArgs } from "node:util";
 import next from "next";
 import { SECURITY_HEADERS } from "../lib/security-headers";
-import { beginStopping, hostOwnsShutdown, runStopHooks } from "../lib/shutdown";
+import { beginStopping, hostOwnsShutdown, onStopSignal, runStopHooks } from "../lib/shutdown";
 
 const { values } = parseArgs({
   options: {
@@ -98,18 +98,15 @@ server.listen(port, hostname, () => console.log(`▲ Shearwire web server on htt
 // exits whatever is still running.
 hostOwnsShutdown();
 const exit = () => void runStopHooks(2_000).finally(() => process.exit(0));
-for (const signal of ["SIGTERM", "SIGINT"] as const) {
-  process.on(signal, () => {
-    if (stopping) return;
-    stopping = true;
-    beginStopping();
-    server.close(exit);
-    const idle = setInterval(() => server.closeIdleConnections(), 50);
-    idle.unref();
-    setTimeout(() => {
-      clearInterval(idle);
-      server.closeAllConnections();
-    }, 5_000).unref();
-    setTimeout(() => process.exit(0), 8_000).unref();
-  });
-}
+onStopSignal(() => {
+  stopping = true;
+  beginStopping();
+  server.close(exit);
+  const idle = setInterval(() => server.closeIdleConnections(), 50);
+  idle.unref();
+  setTimeout(() => {
+    clearInterval(idle);
+    server.closeAllConnections();
+  }, 5_000).unref();
+  setTimeout(() => process.exit(0), 8_000).unref();
+});

@@ -192,10 +192,10 @@ async function insert(em: EntityManager, shopId: string, checked: Checked[]): Pr
   // Each view is serialised once, around its check, and encoded once: the same bytes go into the statement and,
   // remembered, the answer.
   const pieces = views.map((view) => {
-    const text = jsonTextAround(view, "check");
-    return { head: utf8(text.head), inner: utf8(text.inner), tail: utf8(text.tail) };
+    const { head, inner, tail } = jsonTextAround(view, "check");
+    return [utf8(head), utf8(inner), utf8(tail)] as const;
   });
-  views.forEach((view, i) => rememberJsonBytes(view, [pieces[i].head, pieces[i].inner, pieces[i].tail]));
+  views.forEach((view, i) => rememberJsonBytes(view, pieces[i]));
   // the event's body is `{ program }` (EventData<"program.created">), built in the statement from the view's text
   const rows = programs.map((program, i) => ({
     id: program.id,
@@ -220,11 +220,11 @@ async function insert(em: EntityManager, shopId: string, checked: Checked[]): Pr
   // The statement pairs the n-th piece of each text with the n-th row: a separator inside a piece would shift them.
   // UTF-8 writes every character above U+007F with bytes above 0x7F, so a separator byte is a separator character.
   const unsplittable = (bytes: Buffer) => bytes.includes(RECORD_BYTE) || bytes.includes(UNIT_BYTE);
-  if (pieces.some((piece) => unsplittable(piece.head) || unsplittable(piece.inner) || unsplittable(piece.tail)))
+  if (pieces.some((piece) => piece.some(unsplittable)))
     throw new Error("a program's JSON text holds a raw separator; it cannot be written");
-  const checks = Buffer.concat(pieces.flatMap((piece, i) => (i ? [RECORD_BYTES, piece.inner] : [piece.inner])));
+  const checks = Buffer.concat(pieces.flatMap(([, inner], i) => (i ? [RECORD_BYTES, inner] : [inner])));
   const around = Buffer.concat(
-    pieces.flatMap((piece, i) => [...(i ? [RECORD_BYTES] : []), piece.head, UNIT_BYTES, piece.tail]),
+    pieces.flatMap(([head, , tail], i) => [...(i ? [RECORD_BYTES] : []), head, UNIT_BYTES, tail]),
   );
   const inTransaction = em.isInTransaction();
   try {

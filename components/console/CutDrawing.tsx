@@ -1,7 +1,7 @@
 /**
  * A drawing of one sheet of a cut program: the sheet, the blanks, trim (scrap) and offcut, and
- * each stroke's cut line, as the shear core's piece flow placed them (`layout` of the check, or
- * `programLayout` for a check stored without one). The drawing computes no geometry of its own,
+ * each stroke's cut line, as the shear core's piece flow placed them (`programLayout`, the same flow as
+ * the check's yield). The drawing computes no geometry of its own,
  * so it always shows what the yield beside it counts. Groups named by a finding are drawn in the
  * fault colour; partial strokes are dashed. SVG's x is the sheet's length (along the blade) and its y
  * the sheet's width, so a rectangle's SVG `width` is its `length` and its SVG `height` its `width`.

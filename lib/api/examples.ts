@@ -8,11 +8,11 @@ import { DEMO_SHEARS } from "../schemas/shear";
 import type { EventType } from "../schemas/enums";
 import type { EventData } from "../schemas/events";
 import type { PlanSummaryT } from "../schemas/plan";
-import { EXAMPLE_PROGRAM, type ProgramT } from "../schemas/program";
+import { EXAMPLE_PROGRAM, type ProgramLayoutT, type ProgramT } from "../schemas/program";
 import { type CheckT } from "../schemas/check";
 import type { ShearT } from "../schemas/shear";
 import type { StockItemT, StockReservationT } from "../schemas/stock";
-import { checkProgram, findGrade } from "../shear";
+import { checkProgram, findGrade, programLayout, remnantToleranceMm } from "../shear";
 
 const AT = "2026-12-08T09:30:00.000Z";
 export const EXAMPLE_IDS = {
@@ -97,6 +97,15 @@ export function exampleShear(): ShearT {
     archivedAt: null,
     createdAt: AT,
     updatedAt: AT,
+  };
+}
+
+/** One sheet of the worked example as it is cut, placed by the shear core on the demo shear. */
+export function exampleProgramLayout(): ProgramLayoutT {
+  return {
+    id: EXAMPLE_IDS.program,
+    revision: 1,
+    layout: programLayout(EXAMPLE_PROGRAM, remnantToleranceMm(exampleShear())),
   };
 }
 

@@ -6,7 +6,7 @@ import type { RouteConfig } from "@asteasolutions/zod-to-openapi";
 import { ProblemSchema } from "../schemas/common";
 import { EVENT_TYPES, EVENT_TYPE_WORDS } from "../schemas/enums";
 import { WEBHOOK_ENVELOPES } from "../schemas/events";
-import { exampleProgram, exampleShear, exampleWebhook } from "./examples";
+import { exampleProgram, exampleProgramLayout, exampleShear, exampleWebhook } from "./examples";
 import { VERSION } from "../version";
 import type { Operation } from "./operation";
 import { API_PREFIX } from "./route";
@@ -84,7 +84,7 @@ Every call carries an API key of your shop: \`Authorization: Bearer swk_…\` (t
 
 1. **See your shears.** \`GET /api/v1/shears\` lists them with their capacity, blade, backgauge and gap range. A program names its shear by id or by name.
 2. **Check a program without storing it.** \`POST /api/v1/programs/validate\` with the example body (10 ga A36, two 120 × 48 in sheets ripped into strips and crosscut): the answer has 56 blanks from 62 strokes, the blade gap, rake, crown and hold-down with the reason for each, the force against the shear's rating and the cycle estimate. Findings carry a JSON \`pointer\` into your body.
-3. **Store it.** \`POST /api/v1/programs\` with the same body and an \`Idempotency-Key\` (a retry with the same key answers the same). It is a \`draft\`.
+3. **Store it.** \`POST /api/v1/programs\` with the same body and an \`Idempotency-Key\` (a retry with the same key answers the same). It is a \`draft\`. \`GET /api/v1/programs/{id}/layout\` places one sheet as it is cut, for drawing it.
 4. **Release it.** \`POST /api/v1/programs/{id}/release\` with \`{}\` (or \`{"acknowledge": [codes]}\` when its check has warnings). The gateway beside the shear can now claim it.
 5. **Hear back.** Add an endpoint with \`POST /api/v1/webhook-endpoints\` (\`{"url": "https://erp.example/hooks/shearwire"}\`); the answer holds its \`whsec_\` secret, once. Every change arrives as a signed POST: \`program.released\`, \`program.claimed\`, \`program.started\`, \`program.progressed\`, \`program.completed\` … (the **Webhooks** section lists every type with its body). \`POST /api/v1/webhook-endpoints/{id}/test\` sends a test event.
 6. **Verify the signature** before trusting a delivery, with any Standard Webhooks library, for example in Node.js:
@@ -246,5 +246,6 @@ export function buildOpenApi(operations: Operation[], extra?: (registry: OpenAPI
   const schemas = (document.components?.schemas ?? {}) as Record<string, { example?: unknown }>;
   if (schemas.Shear) schemas.Shear.example = exampleShear();
   if (schemas.Program) schemas.Program.example = exampleProgram();
+  if (schemas.ProgramLayout) schemas.ProgramLayout.example = exampleProgramLayout();
   return document;
 }

@@ -130,41 +130,6 @@ export const CheckSchema = z
         }),
       })
       .nullable(),
-    layout: z
-      .object({
-        unit: z.enum(["in", "mm"]),
-        rectangles: z.array(
-          z.object({
-            kind: z.enum(["blank", "scrap", "offcut"]),
-            group: z.number().int().openapi({ description: "Group that made it (−1: the stock sheet, never cut)" }),
-            stroke: z.number().int().nullable().openapi({
-              description:
-                "1-based stroke on the sheet, in cutting order, that cut it off; null for a remnant taken as a piece and for offcut left over",
-            }),
-            x: z.number(),
-            y: z.number(),
-            length: z.number().openapi({ description: "Extent along x (the sheet's length, along the blade)" }),
-            width: z.number().openapi({ description: "Extent along y (the sheet's width, toward the backgauge)" }),
-          }),
-        ),
-        cuts: z.array(
-          z.object({
-            group: z.number().int(),
-            stroke: z.number().int(),
-            x1: z.number(),
-            y1: z.number(),
-            x2: z.number(),
-            y2: z.number(),
-            partial: z.boolean().openapi({ description: "A partial stroke: cuts part of the edge, severs nothing" }),
-          }),
-        ),
-      })
-      .nullable()
-      .optional()
-      .openapi("SheetLayout", {
-        description:
-          "One sheet as it is cut, from the same piece flow as the yield: x along the sheet's length (the edge first presented to the blade), y along its width toward the backgauge, origin at the corner where the first strip is cut, in the program's units; a rectangle's `length` runs along x and its `width` along y, as the sheet's do. Null when the program has no usable sheet or too many pieces to place; absent from checks stored before it was reported.",
-      }),
   })
   .openapi("Check", {
     description:
@@ -172,3 +137,37 @@ export const CheckSchema = z
   });
 
 export type CheckT = z.infer<typeof CheckSchema>;
+
+export const SheetLayoutSchema = z
+  .object({
+    unit: z.enum(["in", "mm"]),
+    rectangles: z.array(
+      z.object({
+        kind: z.enum(["blank", "scrap", "offcut"]),
+        group: z.number().int().openapi({ description: "Group that made it (−1: the stock sheet, never cut)" }),
+        stroke: z.number().int().nullable().openapi({
+          description:
+            "1-based stroke on the sheet, in cutting order, that cut it off; null for a remnant taken as a piece and for offcut left over",
+        }),
+        x: z.number(),
+        y: z.number(),
+        length: z.number().openapi({ description: "Extent along x (the sheet's length, along the blade)" }),
+        width: z.number().openapi({ description: "Extent along y (the sheet's width, toward the backgauge)" }),
+      }),
+    ),
+    cuts: z.array(
+      z.object({
+        group: z.number().int(),
+        stroke: z.number().int(),
+        x1: z.number(),
+        y1: z.number(),
+        x2: z.number(),
+        y2: z.number(),
+        partial: z.boolean().openapi({ description: "A partial stroke: cuts part of the edge, severs nothing" }),
+      }),
+    ),
+  })
+  .openapi("SheetLayout", {
+    description:
+      "One sheet as it is cut, from the same piece flow as the yield: x along the sheet's length (the edge first presented to the blade), y along its width toward the backgauge, origin at the corner where the first strip is cut, in the program's units; a rectangle's `length` runs along x and its `width` along y, as the sheet's do.",
+  });

@@ -3,7 +3,7 @@
  * with the shear core's check. This one schema validates requests, types the services,
  * and is the JSON Schema served at /api/v1/schemas/cut-program.json.
  */
-import { CheckSchema } from "./check";
+import { CheckSchema, SheetLayoutSchema } from "./check";
 import { ProblemSchema } from "./common";
 import { RoutingSchema } from "./settings";
 import { PROGRAM_STATUSES } from "./enums";
@@ -280,7 +280,22 @@ export const ProgramValidationSchema = CheckSchema.extend({
     "The check of the program on its shear (or, when it names none, on the shear chosen; when none can cut it, on the first by name).",
 });
 
+export const ProgramLayoutSchema = z
+  .object({
+    id: z.string().openapi({ description: "The program's id", example: "prg_01JEXAMPLE0000000000000000" }),
+    revision: z.number().int().openapi({ description: "The revision the layout is of (the program's ETag)" }),
+    layout: SheetLayoutSchema.nullable().openapi({
+      description:
+        "Null when the sheet has too many pieces and strokes to place (more than 20 000), or when the program's sheet or cuts cannot be read.",
+    }),
+  })
+  .openapi("ProgramLayout", {
+    description:
+      "One sheet of the program as it is cut, placed from the same piece flow as its check's yield, with its shear's remnant tolerance: for drawing it. Not part of the check, so creates, lists and webhooks stay small.",
+  });
+
 export type ProgramInputT = z.infer<typeof ProgramInputSchema>;
+export type ProgramLayoutT = z.infer<typeof ProgramLayoutSchema>;
 export type ProgramPatchT = z.infer<typeof ProgramPatchSchema>;
 export type ProgramT = z.infer<typeof ProgramSchema>;
 export type ProgramBatchResultT = z.infer<typeof ProgramBatchResultSchema>;

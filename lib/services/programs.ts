@@ -8,10 +8,10 @@ import { Program, type ProgramEntity, type ShearEntity } from "../../entities";
 import type { ProgramStatus } from "../../entities/Program";
 import { ApiError, conflict, notFound, preconditionFailed, preconditionRequired } from "../errors";
 
-import type { ProgramInputT, ProgramPatchT, ProgramT, ProgramValidationT } from "../schemas/program";
+import type { ProgramInputT, ProgramLayoutT, ProgramPatchT, ProgramT, ProgramValidationT } from "../schemas/program";
 import type { RoutingT } from "../schemas/settings";
 import type { CheckT } from "../schemas/check";
-import { checkProgram, type CheckResult } from "../shear";
+import { checkProgram, programLayout, remnantToleranceMm, type CheckResult } from "../shear";
 import { gradeByCode, gradeProfile, shearProfile } from "./catalog";
 import { announceRelease, recordEvent, type EventType } from "./events";
 import { existingReferences, gradesByCode, shearsNamed } from "./lookups";
@@ -84,6 +84,21 @@ export async function findProgram(em: EntityManager, shopId: string, id: string)
   const program = await em.findOne(Program, { id, shop: shopId });
   if (!program) throw notFound("program");
   return program;
+}
+
+/**
+ * One sheet of the program as it is cut (its current revision), placed with its shear's remnant
+ * tolerance as its check was: not stored, so a check stays small; placed when it is read.
+ */
+export async function readProgramLayout(
+  em: EntityManager,
+  shopId: string,
+  id: string,
+): Promise<{ layout: ProgramLayoutT; revision: number }> {
+  const program = await em.findOne(Program, { id, shop: shopId }, { populate: ["shear"] });
+  if (!program) throw notFound("program");
+  const layout = programLayout(program.input, remnantToleranceMm(program.shear));
+  return { layout: { id: program.id, revision: program.revision, layout }, revision: program.revision };
 }
 
 /** Check If-Match against the program's revision: 428 when missing, 412 when stale. */

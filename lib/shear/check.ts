@@ -13,7 +13,6 @@ import { validationOf, checkThickness, checkForce, checkHardness, checkGivenSetu
 import { checkGroups } from "./groups";
 import { remnantToleranceMm, simulateFlow, type FlowResult } from "./flow";
 import { yieldReport } from "./yields";
-import { layoutReport } from "./layout";
 import {
   cutForce,
   forceReport,
@@ -132,27 +131,18 @@ const emptyResult = (findings: Finding[], units: LengthUnit | null): CheckResult
   force: null,
   yield: null,
   estimate: null,
-  layout: null,
 });
-
-export interface CheckOptions {
-  /** Place the sheet for `layout` (default true); false skips the placing and reports `layout: null`. */
-  layout?: boolean;
-}
 
 /**
  * Check a cut program against its shear and grade.
  *
  * @param input the cut program as submitted (any value is accepted; problems become findings)
  * @param context the shear profile and the grade's catalogue entry (null when the catalogue has none)
- * @param options `layout: false` when the sheet's layout is not wanted (it is the costliest part for many pieces)
+ *
+ * The sheet as cut (where each piece lies) is not part of the check: `programLayout` places it, for
+ * the callers that draw it (placing is the costliest part for many pieces).
  */
-export function checkProgram(
-  input: CutProgram | unknown,
-  context: CheckContext,
-  options: CheckOptions = {},
-): CheckResult {
-  const place = !(isObject(options) && options.layout === false);
+export function checkProgram(input: CutProgram | unknown, context: CheckContext): CheckResult {
   const findings: Finding[] = [];
   const program = readProgram(input, findings);
   if (program === null) return emptyResult(findings, null);
@@ -165,7 +155,7 @@ export function checkProgram(
   if (shear !== null) findings.push(...checkUnitsSuspect(program, shear));
   const flow =
     program.sheet !== null
-      ? simulateFlow(program.sheet, program.cuts, { toleranceMm: remnantToleranceMm(shear), place })
+      ? simulateFlow(program.sheet, program.cuts, { toleranceMm: remnantToleranceMm(shear) })
       : null;
 
   let forced: ForceAndSetup | null = null;
@@ -206,7 +196,6 @@ export function checkProgram(
     force: forced?.report ?? null,
     yield: flow !== null && program.sheet !== null ? yieldReport(flow, program.sheet.count, units) : null,
     estimate,
-    layout: place && flow !== null && program.cutsIsArray ? layoutReport(flow, units) : null,
   };
 }
 

@@ -89,8 +89,10 @@ export function sheetLayout(
 
 /**
  * The layout of a program as given (any value; null when its units, sheet or
- * cuts cannot be read), with the default remnant tolerance or `toleranceMm`.
- * For drawing programs whose stored check has no layout.
+ * cuts cannot be read, or when it has too many pieces to place), with the
+ * default remnant tolerance or `toleranceMm` (the check's is
+ * `remnantToleranceMm(shear)`). The check does not carry it: this is for the
+ * callers that draw the sheet.
  */
 export function programLayout(input: unknown, toleranceMm?: number): LayoutReport | null {
   const program = readProgram(input, []);

@@ -109,7 +109,7 @@ export interface EstimateReport {
   seconds: { strokes: number; backgauge: number; turns: number; sheets: number; total: number };
 }
 
-/** One rectangle of the sheet as cut, in drawing coordinates (see `layout` in CheckResult). */
+/** One rectangle of the sheet as cut, in drawing coordinates (see `LayoutReport`). */
 export interface LaidRectangle {
   kind: "blank" | "scrap" | "offcut";
   /** Group that made it (−1: the stock sheet, never cut). */
@@ -155,6 +155,4 @@ export interface CheckResult {
   force: ForceReport | null;
   yield: YieldReport | null;
   estimate: EstimateReport | null;
-  /** One sheet as cut; null when there is no sheet or it has too many pieces to place. */
-  layout: LayoutReport | null;
 }

@@ -184,11 +184,7 @@ describe("programs", () => {
     // the cut-program worked example of our API docs: 56 blanks, 62 strokes, 93.3 % of the stock used
     expect(res.body.check.yield.total).toMatchObject({ blanks: 56, strokes: 62 });
     expect(res.body.check.yield.utilisationPct).toBe(93.3);
-    // the sheet as cut, from the same flow: 28 blanks 16 × 12 in and 4 offcuts 8 × 12 in per sheet, 31 cut lines
-    const rectangles = res.body.check.layout.rectangles as Array<{ kind: string; length: number; width: number }>;
-    expect(rectangles.filter((r) => r.kind === "blank")).toHaveLength(28);
-    expect(rectangles.filter((r) => r.kind === "offcut").every((r) => r.length === 8 && r.width === 12)).toBe(true);
-    expect(res.body.check.layout.cuts).toHaveLength(31);
+    expect(res.body.check).not.toHaveProperty("layout"); // read apart: GET /programs/{id}/layout
     expect(res.body.check.setup.gapCentre.value).toBeLessThan(res.body.check.setup.gapEnds.value);
   });
 
@@ -216,6 +212,23 @@ describe("programs", () => {
     const list = await api().get("/api/v1/programs?status=draft&reference=SO-2291%2F4").set(auth());
     expectDocumented(programOps.listProgramsOperation, list);
     expect(list.body.data.map((p: { id: string }) => p.id)).toEqual([id]);
+  });
+
+  it("reads one sheet of a program as it is cut", async () => {
+    const res = await api().get(`/api/v1/programs/${id}/layout`).set(auth());
+    expectDocumented(programOps.getProgramLayoutOperation, res);
+    expect(res.headers.etag).toBe(etag);
+    expect(res.body).toMatchObject({ id, revision: 1, layout: { unit: "in" } });
+    // the cut-program worked example of our API docs, one sheet: 28 blanks 16 × 12 in and 4 offcuts 8 × 12 in,
+    // 31 cut lines (3 rips, then 7 crosscuts on each of the 4 strips)
+    const rectangles = res.body.layout.rectangles as Array<{ kind: string; length: number; width: number }>;
+    expect(rectangles.filter((r) => r.kind === "blank")).toHaveLength(28);
+    expect(rectangles.filter((r) => r.kind === "blank").every((r) => r.length === 16 && r.width === 12)).toBe(true);
+    expect(rectangles.filter((r) => r.kind === "offcut").every((r) => r.length === 8 && r.width === 12)).toBe(true);
+    expect(res.body.layout.cuts).toHaveLength(31);
+    const missing = await api().get("/api/v1/programs/prg_01JEXAMPLE0000000000000000/layout").set(auth());
+    expectDocumented(programOps.getProgramLayoutOperation, missing);
+    expect(missing.status).toBe(404);
   });
 
   it("changes a draft with If-Match", async () => {

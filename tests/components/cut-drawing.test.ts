@@ -12,12 +12,13 @@ import {
   findGrade,
   lengthFromMm,
   programLayout,
+  remnantToleranceMm,
   simulateFlow,
-  type CheckResult,
   type CutProgram,
   type FlowCut,
   type GradeProfile,
   type Rect,
+  type ShearProfile,
 } from "@/lib/shear";
 import { DEMO_SHEAR, PROGRAM_FIXTURES, WORKED_EXAMPLE } from "../shear/fixtures";
 
@@ -31,13 +32,17 @@ interface Drawn {
   width: number;
 }
 
+/** The sheet as placed for the drawing, with the shear's remnant tolerance (as the check's flow). */
+const placed = (program: CutProgram, shear: ShearProfile = DEMO_SHEAR) =>
+  programLayout(program, remnantToleranceMm(shear));
+
 /** The rectangles and lines the component actually rendered, read back from its SVG. */
 function drawn(
   program: CutProgram,
-  check: CheckResult,
+  shear: ShearProfile = DEMO_SHEAR,
 ): { rects: Drawn[]; lines: Array<{ group: number; dashed: boolean }> } {
   const markup = renderToStaticMarkup(
-    createElement(CutDrawing, { sheet: program.sheet, layout: check.layout, units: program.units }),
+    createElement(CutDrawing, { sheet: program.sheet, layout: placed(program, shear), units: program.units }),
   );
   const attribute = (tag: string, name: string): string | null =>
     new RegExp(`${name}="([^"]*)"`).exec(tag)?.[1] ?? null;
@@ -87,9 +92,9 @@ describe("the drawing draws the piece flow's rectangles, for every program fixtu
   for (const [name, program] of Object.entries(PROGRAM_FIXTURES)) {
     it(name, () => {
       const check = checkProgram(program, { shear: DEMO_SHEAR, grade: grade(program.grade) });
-      expect(check.layout).not.toBeNull();
-      expect(check.layout?.rectangles.length).toBeGreaterThan(0);
-      const { rects, lines } = drawn(program, check);
+      expect(placed(program)).not.toBeNull();
+      expect(placed(program)?.rectangles.length).toBeGreaterThan(0);
+      const { rects, lines } = drawn(program);
       const units = program.units;
       const decimals = units === "in" ? 3 : 2;
       const toMm = (value: number): number => (units === "in" ? value * 25.4 : value);
@@ -172,8 +177,7 @@ describe("the drawing draws the piece flow's rectangles, for every program fixtu
 });
 
 describe("the cut-program worked example in our API docs", () => {
-  const check = checkProgram(WORKED_EXAMPLE, { shear: DEMO_SHEAR, grade: grade("A36") });
-  const { rects, lines } = drawn(WORKED_EXAMPLE, check);
+  const { rects, lines } = drawn(WORKED_EXAMPLE);
 
   it("draws 28 blanks 16 × 12 in, an 8 × 12 in offcut per strip, and 31 cut lines", () => {
     const blanks = rects.filter((rect) => rect.kind === "blank");
@@ -198,7 +202,7 @@ describe("the cut-program worked example in our API docs", () => {
 describe("partial strokes and the remnant rule, which the old drawing got wrong", () => {
   it("a partial stroke severs nothing: the sheet stays one offcut and the stroke is a dashed line", () => {
     const program = PROGRAM_FIXTURES["partial strokes"];
-    const { rects, lines } = drawn(program, checkProgram(program, { shear: DEMO_SHEAR, grade: grade("A36") }));
+    const { rects, lines } = drawn(program);
     expect(rects).toEqual([expect.objectContaining({ kind: "offcut", x: 0, y: 0, length: 1000, width: 500 })]); // our piece-flow rule: partial strokes sever nothing
     expect(lines).toEqual([
       { group: 0, dashed: true },
@@ -208,22 +212,23 @@ describe("partial strokes and the remnant rule, which the old drawing got wrong"
 
   it("a remnant within the machine's repeatability is a blank, outside it offcut", () => {
     const program = PROGRAM_FIXTURES["remnant within the tolerance"];
-    const loose = checkProgram(program, { shear: DEMO_SHEAR, grade: grade("A36") });
-    const tight = checkProgram(program, {
-      shear: { ...DEMO_SHEAR, backgaugeRepeatabilityMm: 0.02 },
-      grade: grade("A36"),
-    });
-    expect(drawn(program, loose).rects.filter((rect) => rect.kind === "blank")).toHaveLength(3); // 100.05 within ±0.1 mm of 100
-    expect(drawn(program, tight).rects.filter((rect) => rect.kind === "blank")).toHaveLength(2); // not within ±0.02 mm
-    expect(drawn(program, tight).rects.filter((rect) => rect.kind === "blank")).toHaveLength(
+    const tightShear = { ...DEMO_SHEAR, backgaugeRepeatabilityMm: 0.02 };
+    const tight = checkProgram(program, { shear: tightShear, grade: grade("A36") });
+    expect(drawn(program).rects.filter((rect) => rect.kind === "blank")).toHaveLength(3); // 100.05 within ±0.1 mm of 100
+    expect(drawn(program, tightShear).rects.filter((rect) => rect.kind === "blank")).toHaveLength(2); // not within ±0.02 mm
+    expect(drawn(program, tightShear).rects.filter((rect) => rect.kind === "blank")).toHaveLength(
       tight.yield?.perSheet.blanks ?? -1,
     );
   });
 
-  it("a check stored without a layout is drawn from the program by the same flow", () => {
+  it("the check carries no layout; the program's is placed on demand by the same flow", () => {
     const program = PROGRAM_FIXTURES["two strip kinds, each crosscut (from)"];
     const check = checkProgram(program, { shear: DEMO_SHEAR, grade: grade("A36") });
-    expect(programLayout(program)).toEqual(check.layout);
+    expect(check).not.toHaveProperty("layout");
+    const blanks = placed(program)?.rectangles.filter((rect) => rect.kind === "blank");
+    expect(blanks).toHaveLength(check.yield?.perSheet.blanks ?? -1);
+    // the default tolerance is the one a shear that states no repeatability gets
+    expect(programLayout(program)).toEqual(placed(program, { ...DEMO_SHEAR, backgaugeRepeatabilityMm: undefined }));
     expect(programLayout({ units: "cm" })).toBeNull();
   });
 });

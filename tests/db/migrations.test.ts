@@ -100,4 +100,69 @@ describe("migrations", () => {
     await migrateUp(orm);
     await connection.execute(`delete from idempotency_records where key_id = 'key_axes'`);
   });
+
+  it("take the layout out of stored checks, keeping every other key in its order", async () => {
+    const connection = orm.em.getConnection();
+    const layout = {
+      unit: "in",
+      rectangles: [{ kind: "blank", group: 1, stroke: 2, x: 0, y: 0, length: 16, width: 12 }],
+      cuts: [],
+    };
+    const check = {
+      validation: "pass",
+      units: "in",
+      findings: [],
+      yield: { total: { blanks: 56 } },
+      layout,
+      estimate: null,
+    };
+    const withoutLayout = {
+      validation: "pass",
+      units: "in",
+      findings: [],
+      yield: { total: { blanks: 56 } },
+      estimate: null,
+    };
+    // metadata is strings only: a key named layout there is the client's and stays
+    const program = { id: "prg_layout", metadata: { layout: "nested", zeta: "z", alpha: "a" }, check };
+    await orm.getMigrator().down({ to: "Migration20261203170000_pending_events" });
+    await connection.execute(
+      `insert into shops (id, name, slug, created_at, updated_at) values ('shp_layout', 'Layout', 'layout-test', now(), now())`,
+    );
+    await connection.execute(
+      `insert into events (id, shop_id, type, subject_id, data, created_at) values ('evt_layout', 'shp_layout', 'program.created', 'prg_layout', ?::json, now())`,
+      [JSON.stringify({ program })],
+    );
+    await connection.execute(
+      `insert into idempotency_records (key_id, idempotency_key, method, path, fingerprint, response_body, created_at, expires_at)
+       values ('key_layout', 'batch', 'POST', '/api/v1/programs/batch', 'f', ?::jsonb, now(), now() + interval '1 day')`,
+      [
+        JSON.stringify({
+          programs: [program, { ...program, id: "prg_layout_2", check: { ...check, layout: null } }],
+          // not a check (no validation and findings): its layout stays
+          other: { layout },
+        }),
+      ],
+    );
+    await migrateUp(orm);
+
+    const [event] = await connection.execute<{ data: string }[]>(
+      `select data::text from events where id = 'evt_layout'`,
+    );
+    const data = JSON.parse(event.data);
+    expect(data).toEqual({ program: { ...program, check: withoutLayout } });
+    // json keeps the order keys were written in: the rewrite keeps it too
+    expect(Object.keys(data.program.check)).toEqual(["validation", "units", "findings", "yield", "estimate"]);
+    expect(Object.keys(data.program.metadata)).toEqual(["layout", "zeta", "alpha"]);
+    const [record] = await connection.execute<{ response_body: { programs: unknown[]; other: unknown } }[]>(
+      `select response_body from idempotency_records where key_id = 'key_layout'`,
+    );
+    expect(record.response_body.programs).toEqual([
+      { ...program, check: withoutLayout },
+      { ...program, id: "prg_layout_2", check: withoutLayout },
+    ]);
+    expect(record.response_body.other).toEqual({ layout });
+    await connection.execute(`delete from idempotency_records where key_id = 'key_layout'`);
+    await connection.execute(`delete from shops where id = 'shp_layout'`);
+  });
 });

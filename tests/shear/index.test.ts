@@ -8,7 +8,9 @@ import {
   findGrade,
   FINDING_CATALOGUE,
   GRADE_LIBRARY,
+  programLayout,
   recommendSetup,
+  remnantToleranceMm,
   type CheckResult,
   type CutProgram,
   type FindingCode,
@@ -54,11 +56,11 @@ describe("the cut-program worked example in our API docs", () => {
     expect(r.setup?.bladeGap).toMatchObject({ unit: "in", source: "computed" });
   });
 
-  it("places the sheet unless asked not to", () => {
-    expect(r.layout?.rectangles.filter((rect) => rect.kind === "blank")).toHaveLength(28); // worked example: 28 blanks per sheet
-    const unplaced = checkProgram(WORKED_EXAMPLE, { shear: DEMO_SHEAR, grade: grade("A36") }, { layout: false });
-    expect(unplaced.layout).toBeNull();
-    expect({ ...unplaced, layout: r.layout }).toEqual(r); // everything else the same
+  it("places the sheet apart from the check", () => {
+    expect(r).not.toHaveProperty("layout");
+    const layout = programLayout(WORKED_EXAMPLE, remnantToleranceMm(DEMO_SHEAR));
+    expect(layout?.rectangles.filter((rect) => rect.kind === "blank")).toHaveLength(28); // worked example: 28 blanks per sheet
+    expect(layout?.cuts).toHaveLength(31); // worked example: 3 rips + 4 × 7 crosscuts per sheet
   });
 
   it("does not change the program", () => {

@@ -7,6 +7,7 @@ import {
   ProgramBatchInputSchema,
   ProgramBatchResultsSchema,
   ProgramInputSchema,
+  ProgramLayoutSchema,
   ProgramListQuerySchema,
   ProgramPatchSchema,
   ProgramValidationSchema,
@@ -78,6 +79,19 @@ export const getProgramOperation = defineOperation({
   responses: { 200: { description: "The program.", schema: ProgramSchema, headers: etag } },
 });
 
+export const getProgramLayoutOperation = defineOperation({
+  operationId: "getProgramLayout",
+  method: "get",
+  path: "/programs/{id}/layout",
+  tags,
+  scope: "programs:read",
+  summary: "Read one sheet of a program as it is cut",
+  description:
+    "Where every blank, scrap strip and offcut of one sheet lies and where each stroke cuts, placed from the same piece flow as the program's check, in the program's units: for drawing the sheet. Computed from the program's current revision when it is read; not part of the check.",
+  params,
+  responses: { 200: { description: "The sheet as cut.", schema: ProgramLayoutSchema, headers: etag } },
+});
+
 export const updateProgramOperation = defineOperation({
   operationId: "updateProgram",
   method: "patch",
@@ -140,6 +154,7 @@ export const programOperations = [
   createProgramBatchOperation,
   listProgramsOperation,
   getProgramOperation,
+  getProgramLayoutOperation,
   updateProgramOperation,
   validateProgramOperation,
   releaseProgramOperation,

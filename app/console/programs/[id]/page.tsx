@@ -11,10 +11,9 @@ import { can } from "@/lib/auth/roles";
 import { currentMember } from "@/lib/auth/session";
 import { requestEm } from "@/lib/db/orm";
 import { Shear } from "@/entities";
-import { findProgram } from "@/lib/services/programs";
+import { findProgram, readProgramLayout } from "@/lib/services/programs";
 import { viewProgram } from "@/lib/services/program-view";
 import { listEvents } from "@/lib/services/webhooks";
-import { programLayout } from "@/lib/shear";
 
 export const metadata = { title: "Program" };
 
@@ -40,6 +39,7 @@ export default async function ProgramPage({ params }: { params: Promise<{ id: st
   const check = program.check;
   const shear = await em.findOne(Shear, { id: program.shear }, { fields: ["name"] });
   const shearName = shear?.name ?? program.shear;
+  const { layout } = await readProgramLayout(em, member.shopId, program.id);
   const errors = check.findings.filter((f) => f.severity === "error");
   const history = await listEvents(em, member.shopId, { limit: 100, subject: program.id });
   const faultyGroups = [
@@ -130,11 +130,7 @@ export default async function ProgramPage({ params }: { params: Promise<{ id: st
             <h2 className="mb-2 text-sm font-semibold">One sheet, as it is cut</h2>
             <CutDrawing
               sheet={program.sheet}
-              layout={
-                check.layout !== undefined
-                  ? check.layout
-                  : programLayout({ units: program.units, sheet: program.sheet, cuts: program.cuts })
-              }
+              layout={layout.layout}
               units={program.units}
               faultyGroups={faultyGroups}
             />

@@ -124,9 +124,17 @@ export async function authenticate(em: EntityManager, header: string | null): Pr
   if (now.getTime() - lastUse > LAST_USED_RESOLUTION_MS) {
     lastUseWritten.set(key.id, now.getTime());
     // Not awaited: recording the time must not slow the request down.
+    // Never backwards: another process may have written a later time meanwhile.
     em.getConnection()
-      .execute("update api_keys set last_used_at = ? where id = ?", [now, key.id])
-      .catch((err) => console.error("[keys] could not record last use:", err));
+      .execute("update api_keys set last_used_at = ? where id = ? and (last_used_at is null or last_used_at < ?)", [
+        now,
+        key.id,
+        now,
+      ])
+      .catch((err) => {
+        if (lastUseWritten.get(key.id) === now.getTime()) lastUseWritten.delete(key.id); // the next request tries again
+        console.error("[keys] could not record last use:", err);
+      });
   }
   return {
     keyId: key.id,

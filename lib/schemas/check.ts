@@ -102,6 +102,10 @@ export const CheckSchema = z
         perSheet: Totals,
         total: Totals,
         utilisationPct: z.number(),
+        remnantToleranceMm: z.number().optional().openapi({
+          description:
+            "A remnant within this many mm of a piece's size was counted as that piece: the shear's backgauge repeatability, or 0.1 mm when it states none. The program's layout is placed with the same tolerance. Absent from checks stored before it was reported.",
+        }),
         groups: z.array(
           z.object({
             group: z.number().int(),

@@ -284,14 +284,11 @@ export const ProgramLayoutSchema = z
   .object({
     id: z.string().openapi({ description: "The program's id", example: "prg_01JEXAMPLE0000000000000000" }),
     revision: z.number().int().openapi({ description: "The revision the layout is of (the program's ETag)" }),
-    layout: SheetLayoutSchema.nullable().openapi({
-      description:
-        "Null when the sheet has too many pieces and strokes to place (more than 20 000), or when the program's sheet or cuts cannot be read.",
-    }),
+    layout: SheetLayoutSchema.nullable(),
   })
   .openapi("ProgramLayout", {
     description:
-      "One sheet of the program as it is cut, placed from the same piece flow as its check's yield, with its shear's remnant tolerance: for drawing it. Not part of the check, so creates, lists and webhooks stay small.",
+      "One sheet of the program as it is cut, placed from the same piece flow as its check's yield, with the remnant tolerance the check counted with (`check.yield.remnantToleranceMm`): for drawing it. Not part of the check, so creates, lists and webhooks stay small. `layout` is null when the sheet has too many pieces and strokes to place (more than 20 000), or when the program's sheet or cuts cannot be read.",
   });
 
 export type ProgramInputT = z.infer<typeof ProgramInputSchema>;

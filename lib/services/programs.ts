@@ -87,18 +87,32 @@ export async function findProgram(em: EntityManager, shopId: string, id: string)
 }
 
 /**
- * One sheet of the program as it is cut (its current revision), placed with its shear's remnant
- * tolerance as its check was: not stored, so a check stays small; placed when it is read.
+ * One sheet of the program as it is cut (its current revision), placed with the remnant tolerance its
+ * check counted with, so it shows what the check's yield counts even after the shear's repeatability
+ * changed; a check stored before it reported its tolerance gets the shear's as it is now. Not stored, so a
+ * check stays small: placed when it is read.
  */
 export async function readProgramLayout(
   em: EntityManager,
   shopId: string,
   id: string,
 ): Promise<{ layout: ProgramLayoutT; revision: number }> {
-  const program = await em.findOne(Program, { id, shop: shopId }, { populate: ["shear"] });
-  if (!program) throw notFound("program");
-  const layout = programLayout(program.input, remnantToleranceMm(program.shear));
-  return { layout: { id: program.id, revision: program.revision, layout }, revision: program.revision };
+  const program = await findProgram(em, shopId, id);
+  const counted = program.check?.yield?.remnantToleranceMm;
+  let toleranceMm = counted;
+  if (typeof toleranceMm !== "number") {
+    const [shear] = await em
+      .getConnection()
+      .execute<{ repeatability: number | null }[]>(
+        "select backgauge_repeatability_mm as repeatability from shears where id = ?",
+        [program.shear.id],
+      );
+    toleranceMm = remnantToleranceMm({ backgaugeRepeatabilityMm: shear?.repeatability ?? null });
+  }
+  return {
+    layout: { id: program.id, revision: program.revision, layout: programLayout(program.input, toleranceMm) },
+    revision: program.revision,
+  };
 }
 
 /** Check If-Match against the program's revision: 428 when missing, 412 when stale. */

@@ -153,10 +153,8 @@ export function checkProgram(input: CutProgram | unknown, context: CheckContext)
   const tensile = resolveTensile(grade, findings);
   const thicknessMm = resolveThickness(program.thickness, grade, program.gradeCode, findings);
   if (shear !== null) findings.push(...checkUnitsSuspect(program, shear));
-  const flow =
-    program.sheet !== null
-      ? simulateFlow(program.sheet, program.cuts, { toleranceMm: remnantToleranceMm(shear) })
-      : null;
+  const toleranceMm = remnantToleranceMm(shear);
+  const flow = program.sheet !== null ? simulateFlow(program.sheet, program.cuts, { toleranceMm }) : null;
 
   let forced: ForceAndSetup | null = null;
   if (shear !== null && grade !== null && tensile !== null && thicknessMm !== null && program.thickness !== null) {
@@ -194,7 +192,7 @@ export function checkProgram(input: CutProgram | unknown, context: CheckContext)
         : null,
     setup: forced?.setup.report ?? null,
     force: forced?.report ?? null,
-    yield: flow !== null && program.sheet !== null ? yieldReport(flow, program.sheet.count, units) : null,
+    yield: flow !== null && program.sheet !== null ? yieldReport(flow, program.sheet.count, units, toleranceMm) : null,
     estimate,
   };
 }

@@ -94,6 +94,8 @@ export interface YieldReport {
   perSheet: YieldTotals;
   total: YieldTotals;
   utilisationPct: number;
+  /** A remnant within this of a piece's size was counted as that piece (the shear's backgauge repeatability, or the default). */
+  remnantToleranceMm: number;
   groups: GroupYield[];
   /** Blank sizes, totals over all sheets. */
   blanks: PieceReport[];

@@ -29,7 +29,12 @@ function totals(flow: FlowResult, times: number, units: LengthUnit): YieldTotals
 }
 
 /** Yield in the caller's units: per sheet, in total, and utilisation of the stock area by blanks. */
-export function yieldReport(flow: FlowResult, sheets: number, units: LengthUnit): YieldReport {
+export function yieldReport(
+  flow: FlowResult,
+  sheets: number,
+  units: LengthUnit,
+  remnantToleranceMm: number,
+): YieldReport {
   return {
     lengthUnit: units,
     areaUnit: areaUnitFor(units),
@@ -37,6 +42,7 @@ export function yieldReport(flow: FlowResult, sheets: number, units: LengthUnit)
     perSheet: totals(flow, 1, units),
     total: totals(flow, sheets, units),
     utilisationPct: showPct(flow.stockAreaMm2 > 0 ? (100 * flow.blankAreaMm2) / flow.stockAreaMm2 : 0),
+    remnantToleranceMm,
     groups: flow.groups.map((group): GroupYield => ({
       group: group.index,
       workpieces: group.workpieces,

@@ -81,6 +81,64 @@ describe("create", () => {
   });
 });
 
+describe("layout", () => {
+  // 1000 × 300.05 mm, two strokes at 100 mm: the 100.05 mm remnant is a third blank within a ±0.1 mm backgauge
+  // repeatability (the default), offcut within ±0.02 mm (`tests/components/cut-drawing.test.ts` draws the same).
+  const remnantProgram = (reference: string) => ({
+    reference,
+    shear: layoutShop.shearId,
+    grade: "A36",
+    thickness: { value: 3 },
+    units: "mm",
+    sheet: { length: 1000, width: 300.05, count: 1 },
+    cuts: [{ backgauge: 100, count: 2 }],
+  });
+  const blanks = (layout: { rectangles: { kind: string }[] }) => layout.rectangles.filter((r) => r.kind === "blank");
+  let layoutShop: TestShop;
+  beforeAll(async () => {
+    layoutShop = await createTestShop("programs-layout");
+  });
+  const as = () => ({ Authorization: `Bearer ${layoutShop.key}` });
+
+  it("is placed with the tolerance its check counted with, even after the shear's repeatability changes", async () => {
+    const first = await api().post("/api/v1/programs").set(as()).send(remnantProgram("LAYOUT-1"));
+    expect(first.status).toBe(201);
+    expect(first.body.check.yield).toMatchObject({ remnantToleranceMm: 0.1, perSheet: { blanks: 3 } });
+    const tighter = await api()
+      .patch(`/api/v1/shears/${layoutShop.shearId}`)
+      .set(as())
+      .send({ backgaugeRepeatabilityMm: 0.02 });
+    expect(tighter.status).toBe(200);
+
+    const read = await api().get(`/api/v1/programs/${first.body.id}/layout`).set(as());
+    expectDocumented(ops.getProgramLayoutOperation, read);
+    expect(blanks(read.body.layout)).toHaveLength(3); // as the stored check counted, not as the shear is now
+
+    const second = await api().post("/api/v1/programs").set(as()).send(remnantProgram("LAYOUT-2"));
+    expect(second.body.check.yield).toMatchObject({ remnantToleranceMm: 0.02, perSheet: { blanks: 2 } });
+    const tight = await api().get(`/api/v1/programs/${second.body.id}/layout`).set(as());
+    expect(blanks(tight.body.layout)).toHaveLength(2);
+    expect(tight.body.layout.rectangles.filter((r: { kind: string }) => r.kind === "offcut")).toHaveLength(1);
+  });
+
+  it("places a check stored before it reported its tolerance with the shear's", async () => {
+    await api().patch(`/api/v1/shears/${layoutShop.shearId}`).set(as()).send({ backgaugeRepeatabilityMm: null });
+    const stored = await api().post("/api/v1/programs").set(as()).send(remnantProgram("LAYOUT-OLD"));
+    expect(stored.body.check.yield.perSheet.blanks).toBe(3); // counted at the default 0.1 mm
+    await api().patch(`/api/v1/shears/${layoutShop.shearId}`).set(as()).send({ backgaugeRepeatabilityMm: 0.02 });
+    const em = (await testOrm()).em.fork();
+    await em
+      .getConnection()
+      .execute(
+        `update programs set "check" = json_build_object('validation', 'pass', 'findings', '[]'::json, 'yield', null) where id = ?`,
+        [stored.body.id],
+      );
+    const read = await api().get(`/api/v1/programs/${stored.body.id}/layout`).set(as());
+    expect(read.status).toBe(200);
+    expect(blanks(read.body.layout)).toHaveLength(2); // the shear's 0.02 mm as it is now
+  });
+});
+
 describe("update", () => {
   it("needs If-Match (428), refuses a stale one (412), and bumps the revision", async () => {
     const { body: p } = await create(exampleProgram(shop.shearId));

@@ -28,7 +28,7 @@ describe("the cut-program worked example in our API docs", () => {
     cut(inToMm(12), 3),
     cut(inToMm(16), 7, { turn: true, lengthMm: inToMm(12) }),
   ]);
-  const report = yieldReport(flow, 2, "in");
+  const report = yieldReport(flow, 2, "in", REMNANT_TOLERANCE_MM);
 
   it("per sheet: 4 strips, 28 blanks, 4 offcuts, 31 strokes", () => {
     expect(flow.groups[0].pieces).toEqual([expect.objectContaining({ count: 4 })]); // worked example: 4 strips

@@ -87,7 +87,7 @@ export const getProgramLayoutOperation = defineOperation({
   scope: "programs:read",
   summary: "Read one sheet of a program as it is cut",
   description:
-    "Where every blank, scrap strip and offcut of one sheet lies and where each stroke cuts, placed from the same piece flow as the program's check, in the program's units: for drawing the sheet. Computed from the program's current revision when it is read; not part of the check.",
+    "Where every blank, scrap strip and offcut of one sheet lies and where each stroke cuts, placed from the same piece flow as the program's check and with the remnant tolerance it counted with, in the program's units: for drawing the sheet. Computed from the program's current revision when it is read; not part of the check.",
   params,
   responses: { 200: { description: "The sheet as cut.", schema: ProgramLayoutSchema, headers: etag } },
 });

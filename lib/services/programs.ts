@@ -92,27 +92,20 @@ export async function findProgram(em: EntityManager, shopId: string, id: string)
  * changed; a check stored before it reported its tolerance gets the shear's as it is now. Not stored, so a
  * check stays small: placed when it is read.
  */
-export async function readProgramLayout(
-  em: EntityManager,
-  shopId: string,
-  id: string,
-): Promise<{ layout: ProgramLayoutT; revision: number }> {
-  const program = await findProgram(em, shopId, id);
-  const counted = program.check?.yield?.remnantToleranceMm;
-  let toleranceMm = counted;
-  if (typeof toleranceMm !== "number") {
-    const [shear] = await em
-      .getConnection()
-      .execute<{ repeatability: number | null }[]>(
-        "select backgauge_repeatability_mm as repeatability from shears where id = ?",
-        [program.shear.id],
-      );
-    toleranceMm = remnantToleranceMm({ backgaugeRepeatabilityMm: shear?.repeatability ?? null });
-  }
-  return {
-    layout: { id: program.id, revision: program.revision, layout: programLayout(program.input, toleranceMm) },
-    revision: program.revision,
-  };
+export async function readProgramLayout(em: EntityManager, program: ProgramEntity): Promise<ProgramLayoutT> {
+  const toleranceMm = program.check?.yield?.remnantToleranceMm ?? (await shearToleranceMm(em, program.shear.id));
+  return { id: program.id, revision: program.revision, layout: programLayout(program.input, toleranceMm) };
+}
+
+/** The shear's remnant tolerance as it is now (its stated repeatability, or the core's default). */
+async function shearToleranceMm(em: EntityManager, shearId: string): Promise<number> {
+  const [shear] = await em
+    .getConnection()
+    .execute<{ repeatability: number | null }[]>(
+      "select backgauge_repeatability_mm as repeatability from shears where id = ?",
+      [shearId],
+    );
+  return remnantToleranceMm({ backgaugeRepeatabilityMm: shear?.repeatability ?? null });
 }
 
 /** Check If-Match against the program's revision: 428 when missing, 412 when stale. */

@@ -39,7 +39,7 @@ export default async function ProgramPage({ params }: { params: Promise<{ id: st
   const check = program.check;
   const shear = await em.findOne(Shear, { id: program.shear }, { fields: ["name"] });
   const shearName = shear?.name ?? program.shear;
-  const { layout } = await readProgramLayout(em, member.shopId, program.id);
+  const { layout } = await readProgramLayout(em, entity);
   const errors = check.findings.filter((f) => f.severity === "error");
   const history = await listEvents(em, member.shopId, { limit: 100, subject: program.id });
   const faultyGroups = [
@@ -130,7 +130,7 @@ export default async function ProgramPage({ params }: { params: Promise<{ id: st
             <h2 className="mb-2 text-sm font-semibold">One sheet, as it is cut</h2>
             <CutDrawing
               sheet={program.sheet}
-              layout={layout.layout}
+              layout={layout}
               units={program.units}
               faultyGroups={faultyGroups}
             />

@@ -128,12 +128,7 @@ export default async function ProgramPage({ params }: { params: Promise<{ id: st
 
           <section>
             <h2 className="mb-2 text-sm font-semibold">One sheet, as it is cut</h2>
-            <CutDrawing
-              sheet={program.sheet}
-              layout={layout}
-              units={program.units}
-              faultyGroups={faultyGroups}
-            />
+            <CutDrawing sheet={program.sheet} layout={layout} units={program.units} faultyGroups={faultyGroups} />
             <ol className="mt-2 space-y-0.5 text-xs text-ink-muted">
               {program.cuts.map((cut, index) => (
                 <li key={index} className={faultyGroups.includes(index) ? "text-fault" : ""}>

@@ -66,19 +66,36 @@ function readItems(items: unknown[]): (ProgramInputT | ApiError)[] {
   });
 }
 
+/**
+ * Each item checked, or its refusal, in order. The shop's references are not read before the
+ * write: most batches bring new ones, and the unique index refuses a taken one when the batch is
+ * written (`createBatch` and `createEach` then read which). They are read here only when some
+ * program is refused anyway, or inside a caller's transaction (where a refused write would abort
+ * it), so that a refusal names a taken reference first, as a single create does.
+ */
 async function checkItems(em: EntityManager, shopId: string, items: unknown[]): Promise<(Checked | ApiError)[]> {
   const read = readItems(items);
   const valid = read.flatMap((r, index) => (r instanceof ApiError ? [] : [{ index, input: r }]));
-  const checked = await checkPrograms(
-    em,
-    shopId,
-    valid.map((v) => v.input),
-  );
+  const inputs = valid.map((v) => v.input);
+  const checked = await checkPrograms(em, shopId, inputs, { references: em.isInTransaction() });
+  const refused = read.length !== valid.length || checked.some((c) => c instanceof ApiError);
+  const taken =
+    refused && !em.isInTransaction() ? await takenReferences(em, shopId, inputs) : new Map<string, string>();
   valid.forEach((item, index) => {
-    const outcome = checked[index];
+    const existingId = taken.get(item.input.reference);
+    const outcome = existingId ? duplicateReference(item.input.reference, existingId) : checked[index];
     read[item.index] = outcome instanceof ApiError ? within(item.index, outcome) : (outcome as never);
   });
   return read as (Checked | ApiError)[];
+}
+
+/** The ids of the programs that already hold any of these references. */
+function takenReferences(em: EntityManager, shopId: string, inputs: ProgramInputT[]) {
+  return existingReferences(
+    em,
+    shopId,
+    inputs.map((input) => input.reference),
+  );
 }
 
 /** One problem for an all-or-nothing batch that cannot be written: 422 if any program is invalid, else 409. */
@@ -103,11 +120,11 @@ export async function createBatch(em: EntityManager, shopId: string, items: unkn
     return await storePrograms(em, shopId, checked as Checked[]);
   } catch (err) {
     if (!(err instanceof UniqueConstraintViolationException)) throw err;
-    // A concurrent writer took a reference between the check and the write: say which.
-    const existing = await existingReferences(
+    // A reference is taken (by an earlier program, or by a concurrent writer since the check): say which.
+    const existing = await takenReferences(
       em.fork(),
       shopId,
-      (checked as Checked[]).map((c) => c.input.reference),
+      (checked as Checked[]).map((c) => c.input),
     );
     const taken = (checked as Checked[]).flatMap((one, index) => {
       const id = existing.get(one.input.reference);
@@ -135,12 +152,12 @@ export async function createEach(em: EntityManager, shopId: string, items: unkno
           : { index, status: 201 as const, program: programs.get(index)! },
       );
     } catch (err) {
-      if (!(err instanceof UniqueConstraintViolationException) || attempt >= 2) throw err;
-      // A concurrent writer took some references: refuse those programs and write the rest.
-      const existing = await existingReferences(
+      if (!(err instanceof UniqueConstraintViolationException) || attempt >= 3) throw err;
+      // Some references are taken (by an earlier program, or a concurrent writer): refuse those programs, write the rest.
+      const existing = await takenReferences(
         em.fork(),
         shopId,
-        good.map((g) => g.c.input.reference),
+        good.map((g) => g.c.input),
       );
       for (const item of good) {
         const id = existing.get(item.c.input.reference);

@@ -124,6 +124,21 @@ describe("all or nothing (the default)", () => {
     expect(await stored("BC-")).toBe(1);
   });
 
+  it("names a taken reference when it is the batch's only refusal (the write meets the unique index)", async () => {
+    const first = await batch({ programs: [exampleProgram(shop.shearId, "BK-0")] });
+    expect(first.status).toBe(201);
+    const res = await batch({
+      programs: [exampleProgram(shop.shearId, "BK-1"), exampleProgram(shop.shearId, "BK-0")],
+    });
+    expectDocumented(ops.createProgramBatchOperation, res);
+    expect(res.status).toBe(409);
+    expect(res.body.failures).toEqual([
+      expect.objectContaining({ index: 1, status: 409, existingId: first.body.data[0].id }),
+    ]);
+    expect(res.body.detail).toMatch(/^1 of the 2 programs cannot be created, so none was: Program 1: /);
+    expect(await stored("BK-")).toBe(1);
+  });
+
   it("takes at most 100 programs and at least one", async () => {
     const many = Array.from({ length: 101 }, (_, i) => exampleProgram(shop.shearId, `BD-${i}`));
     const res = await batch({ programs: many });
@@ -171,6 +186,29 @@ describe("program by program (atomic: false)", () => {
     expect(res.body.data[2].problem.errors[0].pointer).toBe("/programs/2/units");
     expect(res.body.data[1].problem.existingId).toEqual(expect.stringMatching(/^prg_/));
     expect(await stored("BE-")).toBe(3);
+  });
+
+  it("refuses a taken reference and writes the rest when nothing else is refused", async () => {
+    const first = await batch({ programs: [exampleProgram(shop.shearId, "BL-taken")] });
+    expect(first.status).toBe(201);
+    const res = await batch({
+      atomic: false,
+      programs: [
+        exampleProgram(shop.shearId, "BL-0"),
+        exampleProgram(shop.shearId, "BL-taken"),
+        exampleProgram(shop.shearId, "BL-2"),
+      ],
+    });
+    expectDocumented(ops.createProgramBatchOperation, res);
+    expect(res.status).toBe(207);
+    const data = res.body.data as { index: number; status: number; problem?: { existingId: string } }[];
+    expect(data.map((d) => [d.index, d.status])).toEqual([
+      [0, 201],
+      [1, 409],
+      [2, 201],
+    ]);
+    expect(data[1].problem!.existingId).toBe(first.body.data[0].id);
+    expect(await stored("BL-")).toBe(3);
   });
 
   it("shares each reference out exactly once between concurrent batches", async () => {

@@ -4,9 +4,10 @@ import { poolSize } from "../../lib/db/config";
 // The default follows the common sizing rule for database pools, cores × 2 + effective spindles with one
 // spindle (common practice); what it does to throughput is measured by `npm run bench`, not here.
 describe("poolSize", () => {
-  it("is twice the cores plus one when SHEARWIRE_DB_POOL is not set", () => {
+  it("is twice the cores plus one, at most 20, when SHEARWIRE_DB_POOL is not set", () => {
     expect(poolSize({}, 2)).toBe(5);
     expect(poolSize({}, 8)).toBe(17);
+    expect(poolSize({}, 64)).toBe(20);
     expect(poolSize({ SHEARWIRE_DB_POOL: " " }, 1)).toBe(3);
   });
 

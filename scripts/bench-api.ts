@@ -101,21 +101,14 @@ const web = daemon(profile.dataRoot, "web-bench");
 const worker = daemon(profile.dataRoot, "worker-bench");
 const bareServer = daemon(profile.dataRoot, "bare-bench");
 for (const d of [web, worker, bareServer]) await stopDaemon(d);
+// Profiled processes run as node itself with tsx as a loader: under the tsx command, a wrapper process between them and
+// the stop signal, the web server's profile was not written.
+const profiled = (dir: string, script: string, ...args: string[]) =>
+  ["--cpu-prof", `--cpu-prof-dir=${dir}`, "--import", "tsx", script, ...args] as string[];
 if (cpuProf)
-  startDaemon(
-    web,
-    "node_modules/.bin/tsx",
-    ["--cpu-prof", `--cpu-prof-dir=${cpuProf}`, "scripts/web-server.ts", "--port", String(PORT)],
-    env,
-  );
+  startDaemon(web, process.execPath, profiled(cpuProf, "scripts/web-server.ts", "--port", String(PORT)), env);
 else await startWeb(web, PORT, env);
-if (cpuProf)
-  startDaemon(
-    worker,
-    "node_modules/.bin/tsx",
-    ["--cpu-prof", `--cpu-prof-dir=${cpuProf}/worker`, "scripts/worker.ts"],
-    env,
-  );
+if (cpuProf) startDaemon(worker, process.execPath, profiled(`${cpuProf}/worker`, "scripts/worker.ts"), env);
 else startWorker(worker, env);
 startDaemon(bareServer, "node_modules/.bin/tsx", ["scripts/bench-bare-server.ts", String(BARE_PORT), url], env);
 await waitForHttp(`http://127.0.0.1:${PORT}/api/v1/health`, web);

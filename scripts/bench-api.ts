@@ -50,6 +50,8 @@ interface Result {
   workerCpuUs: number;
   postgresCpuUs: number;
   redisCpuUs: number;
+  /** the load generator's own (this process: building bodies, reading answers), part of the machine's */
+  loadCpuUs: number;
   p50: number;
   p99: number;
   non2xx: number;
@@ -66,6 +68,7 @@ async function run(
   const pid = base.endsWith(`:${PORT}`) ? daemonPid(web) : daemonPid(bareServer);
   const workerPid = daemonPid(worker);
   const before = cpuSnapshot();
+  const ownBefore = process.cpuUsage();
   const result = await autocannon({
     url: `${base}${path}`,
     connections: CONNECTIONS,
@@ -75,6 +78,7 @@ async function run(
     requests: body ? [{ setupRequest: (req) => ({ ...req, body: JSON.stringify(body()) }) }] : undefined,
   });
   const after = cpuSnapshot();
+  const own = process.cpuUsage(ownBefore);
   const requests = Math.max(1, result.requests.total);
   const perRequest = (ms: (snapshot: typeof before) => number) => ((ms(after) - ms(before)) * 1000) / requests;
   const group = (leader: number | null) => (snapshot: typeof before) => (leader && snapshot.groups.get(leader)) || 0;
@@ -85,6 +89,7 @@ async function run(
     workerCpuUs: perRequest(group(workerPid)),
     postgresCpuUs: perRequest((snapshot) => snapshot.postgres),
     redisCpuUs: perRequest((snapshot) => snapshot.redis),
+    loadCpuUs: (own.user + own.system) / requests,
     p50: result.latency.p50,
     p99: result.latency.p99,
     non2xx: result.non2xx,
@@ -162,7 +167,7 @@ const healthRps = results.health!.rps;
 const ms = (us: number) => (us / 1000).toFixed(2);
 const line = (name: string, result: Result | undefined, extra = "") =>
   result
-    ? `  ${name.padEnd(34)} ${result.rps.toFixed(0).padStart(6)} req/s   p50 ${String(result.p50).padStart(5)} ms   p99 ${String(result.p99).padStart(5)} ms   ×health ${(result.rps / healthRps).toFixed(2).padStart(5)}   CPU/req ms: server ${ms(result.webCpuUs)}, worker ${ms(result.workerCpuUs)}, postgres ${ms(result.postgresCpuUs)}, redis ${ms(result.redisCpuUs)}, machine ${ms(result.machineCpuUs)}   non-2xx ${result.non2xx}  errors ${result.errors}${extra}`
+    ? `  ${name.padEnd(34)} ${result.rps.toFixed(0).padStart(6)} req/s   p50 ${String(result.p50).padStart(5)} ms   p99 ${String(result.p99).padStart(5)} ms   ×health ${(result.rps / healthRps).toFixed(2).padStart(5)}   CPU/req ms: server ${ms(result.webCpuUs)}, worker ${ms(result.workerCpuUs)}, postgres ${ms(result.postgresCpuUs)}, redis ${ms(result.redisCpuUs)}, load generator ${ms(result.loadCpuUs)}, machine ${ms(result.machineCpuUs)}   non-2xx ${result.non2xx}  errors ${result.errors}${extra}`
     : `  ${name.padEnd(34)} (not run)`;
 const { create, validate, batch } = results;
 const batchPrograms = batch ? batch.rps * BATCH : 0;

@@ -77,25 +77,23 @@ async function checkItems(em: EntityManager, shopId: string, items: unknown[]): 
   const read = readItems(items);
   const valid = read.flatMap((r, index) => (r instanceof ApiError ? [] : [{ index, input: r }]));
   const inputs = valid.map((v) => v.input);
-  const checked = await checkPrograms(em, shopId, inputs, { references: em.isInTransaction() });
+  const inTransaction = em.isInTransaction();
+  const checked = await checkPrograms(em, shopId, inputs, { references: inTransaction });
   const refused = read.length !== valid.length || checked.some((c) => c instanceof ApiError);
   const taken =
-    refused && !em.isInTransaction() ? await takenReferences(em, shopId, inputs) : new Map<string, string>();
+    refused && !inTransaction
+      ? await existingReferences(
+          em,
+          shopId,
+          inputs.map((input) => input.reference),
+        )
+      : new Map<string, string>();
   valid.forEach((item, index) => {
     const existingId = taken.get(item.input.reference);
     const outcome = existingId ? duplicateReference(item.input.reference, existingId) : checked[index];
     read[item.index] = outcome instanceof ApiError ? within(item.index, outcome) : (outcome as never);
   });
   return read as (Checked | ApiError)[];
-}
-
-/** The ids of the programs that already hold any of these references. */
-function takenReferences(em: EntityManager, shopId: string, inputs: ProgramInputT[]) {
-  return existingReferences(
-    em,
-    shopId,
-    inputs.map((input) => input.reference),
-  );
 }
 
 /** One problem for an all-or-nothing batch that cannot be written: 422 if any program is invalid, else 409. */
@@ -121,10 +119,10 @@ export async function createBatch(em: EntityManager, shopId: string, items: unkn
   } catch (err) {
     if (!(err instanceof UniqueConstraintViolationException)) throw err;
     // A reference is taken (by an earlier program, or by a concurrent writer since the check): say which.
-    const existing = await takenReferences(
+    const existing = await existingReferences(
       em.fork(),
       shopId,
-      (checked as Checked[]).map((c) => c.input),
+      (checked as Checked[]).map((c) => c.input.reference),
     );
     const taken = (checked as Checked[]).flatMap((one, index) => {
       const id = existing.get(one.input.reference);
@@ -154,10 +152,10 @@ export async function createEach(em: EntityManager, shopId: string, items: unkno
     } catch (err) {
       if (!(err instanceof UniqueConstraintViolationException) || attempt >= 3) throw err;
       // Some references are taken (by an earlier program, or a concurrent writer): refuse those programs, write the rest.
-      const existing = await takenReferences(
+      const existing = await existingReferences(
         em.fork(),
         shopId,
-        good.map((g) => g.c.input),
+        good.map((g) => g.c.input.reference),
       );
       for (const item of good) {
         const id = existing.get(item.c.input.reference);

@@ -15,7 +15,7 @@ import pg from "pg";
 import { benchDatabase } from "./lib/bench-setup";
 import { appEnv } from "./lib/env";
 import { cpuSnapshot } from "./lib/cpu";
-import { buildApp, daemon, daemonPid, startDaemon, startWeb, startWorker, stopDaemon, waitForHttp } from "./lib/web";
+import { ensureBuild, daemon, daemonPid, startDaemon, startWeb, startWorker, stopDaemon, waitForHttp } from "./lib/web";
 
 const CONNECTIONS = 32;
 const SECONDS = Number(process.env.BENCH_SECONDS ?? 10);
@@ -101,7 +101,7 @@ const env = { ...appEnv(profile, PORT), SHEARWIRE_DIST_DIR: DIST, DATABASE_URL: 
 const only = process.env.BENCH_ONLY ? process.env.BENCH_ONLY.split(",") : undefined;
 const wanted = (name: string) => !only || name === "health" || only.includes(name);
 const cpuProf = process.env.BENCH_CPU_PROF;
-if (process.env.BENCH_REBUILD === "1") buildApp(env);
+ensureBuild(env, DIST);
 const web = daemon(profile.dataRoot, "web-bench");
 const worker = daemon(profile.dataRoot, "worker-bench");
 const bareServer = daemon(profile.dataRoot, "bare-bench");

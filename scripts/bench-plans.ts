@@ -10,7 +10,7 @@ import autocannon from "autocannon";
 import { largestOrder, seeded } from "./lib/orders";
 import { benchDatabase } from "./lib/bench-setup";
 import { appEnv } from "./lib/env";
-import { buildApp, daemon, startWeb, startWorker, stopDaemon, waitForHttp } from "./lib/web";
+import { ensureBuild, daemon, startWeb, startWorker, stopDaemon, waitForHttp } from "./lib/web";
 
 const PORT = 3213;
 const DIST = ".next-test";
@@ -19,7 +19,7 @@ const base = `http://127.0.0.1:${PORT}`;
 const { profile, url, orm, shearId, key } = await benchDatabase("shearwire_bench_plans");
 await orm.close(true);
 const env = { ...appEnv(profile, PORT), SHEARWIRE_DIST_DIR: DIST, DATABASE_URL: url };
-if (process.env.BENCH_REBUILD === "1") buildApp(env);
+ensureBuild(env, DIST);
 const web = daemon(profile.dataRoot, "web-bench-plans");
 const worker = daemon(profile.dataRoot, "worker-bench-plans");
 for (const d of [web, worker]) await stopDaemon(d);

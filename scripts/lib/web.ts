@@ -67,6 +67,14 @@ export function buildApp(env: NodeJS.ProcessEnv) {
   if (build.status !== 0) throw new ServiceError("next build failed");
 }
 
+/**
+ * The benchmarks' build: the last one in `distDir` (the tests' build), made when there is none (a fresh clone) or
+ * when `BENCH_REBUILD=1` asks for a new one.
+ */
+export function ensureBuild(env: NodeJS.ProcessEnv, distDir: string) {
+  if (process.env.BENCH_REBUILD === "1" || !existsSync(path.join(root, distDir, "BUILD_ID"))) buildApp(env);
+}
+
 export async function startWeb(service: Daemon, port: number, env: NodeJS.ProcessEnv) {
   if (await portInUse(port)) {
     throw new ServiceError(`port ${port} on 127.0.0.1 is busy with another program; stop it or set PORT`);

@@ -29,8 +29,11 @@ export const Event = defineEntity({
     type: p.enum([...EVENT_TYPES]),
     /** the id of the object the event is about */
     subjectId: p.string(),
-    /** `json`, not `jsonb`: written once, read whole (a webhook's body), never queried inside */
-    data: p.json<Record<string, unknown>>().columnType("json"),
+    /**
+     * JSON kept as `text`: written once (by `JSON.stringify`), read whole (a webhook's body is built around the
+     * stored text), never queried inside; `json` would only check it again on every insert (migration 20261204070000).
+     */
+    data: p.json<Record<string, unknown>>().columnType("text"),
     /** when the event was fanned out into deliveries, one per subscribed endpoint */
     dispatchedAt: p.datetime().nullable(),
     createdAt: p.datetime().onCreate(() => new Date()),

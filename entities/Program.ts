@@ -44,8 +44,11 @@ export const Program = defineEntity({
     dueAt: p.datetime().nullable(),
     /** pass | warn | fail, and the full check: findings, setup, force, yield, estimate */
     validation: p.enum([...VALIDATIONS]),
-    /** `json`, not `jsonb`: written once, read whole, never queried inside (kilobytes of numbers parse slowly as jsonb) */
-    check: p.json<CheckT>().columnType("json"),
+    /**
+     * JSON kept as `text`: written once (by `JSON.stringify`), read whole, never queried inside. `jsonb` parses
+     * kilobytes of numbers slowly, and `json` only checks the text again on every insert (migration 20261204070000).
+     */
+    check: p.json<CheckT>().columnType("text"),
     /** warning codes the caller acknowledged when releasing */
     acknowledged: p.json<string[]>().default("[]"),
     metadata: p.json<Record<string, string>>().default("{}"),

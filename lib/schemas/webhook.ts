@@ -134,7 +134,12 @@ export const ResendInputSchema = z
 export type EndpointT = z.infer<typeof EndpointSchema>;
 export type DeliveryT = z.infer<typeof DeliverySchema>;
 
-/** The body of every delivery of an event: the same bytes on every attempt, and what the signature signs. */
-export function webhookPayload(event: { type: string; createdAt: Date | string; data: unknown }): string {
-  return JSON.stringify({ type: event.type, timestamp: new Date(event.createdAt).toISOString(), data: event.data });
+/**
+ * The body of every delivery of an event, `{ type, timestamp, data }`: the same bytes on every attempt, and what the
+ * signature signs. `dataJson` is the event's body as stored (JSON text), placed as it is rather than parsed and
+ * written out again.
+ */
+export function webhookPayload(event: { type: string; createdAt: Date | string; dataJson: string }): string {
+  const timestamp = new Date(event.createdAt).toISOString();
+  return `{"type":${JSON.stringify(event.type)},"timestamp":"${timestamp}","data":${event.dataJson}}`;
 }

@@ -6,6 +6,7 @@ import type { EntityManager } from "@mikro-orm/postgresql";
 import { Event, Shop } from "../../entities";
 
 import type { EventData } from "../schemas/events";
+import { webhookPayload } from "../schemas/webhook";
 import type { EventType } from "../schemas/enums";
 
 export type { EventType } from "../schemas/enums";
@@ -44,4 +45,17 @@ export async function recordEvents<T extends EventType>(
   const staged = events.map((e) => em.create(Event, { shop, type: e.type, subjectId: e.subjectId, data: e.data }));
   if (staged.length) await em.execute(`select pg_notify('${OUTBOX_CHANNEL}', '')`);
   return staged;
+}
+
+/** Each event's webhook body (`webhookPayload`), by id, built around its stored JSON text; unknown ids are left out. */
+export async function eventPayloads(em: EntityManager, ids: readonly string[]): Promise<Map<string, string>> {
+  const unique = [...new Set(ids)];
+  if (!unique.length) return new Map();
+  const rows = await em
+    .getConnection()
+    .execute<{ id: string; type: string; data: string; created_at: Date }[]>(
+      `select id, type, data, created_at from events where id in (${unique.map(() => "?").join(", ")})`,
+      unique,
+    );
+  return new Map(rows.map((e) => [e.id, webhookPayload({ type: e.type, createdAt: e.created_at, dataJson: e.data })]));
 }

@@ -127,8 +127,9 @@ export async function checkPrograms(
  * parameters, one entry per program split at ASCII record separators (which JSON text never holds
  * raw: `JSON.stringify` escapes every character below U+0020), the view's text around its check split
  * at a unit separator. Those two are sent as their UTF-8 bytes (node-postgres binds a Buffer in
- * binary format, which for text is the text's bytes, checked as UTF-8 by PostgreSQL). Each stored
- * text is checked as JSON once, as the column's type requires.
+ * binary format, which for text is the text's bytes, checked as UTF-8 by PostgreSQL). The check and
+ * the event's body are stored as that text (`text` columns: `JSON.stringify` wrote it, so it is not
+ * checked as JSON again).
  */
 const ROW =
   "id text, shop_id text, shear_id text, reference text, title text, revision int, input jsonb, grade_code text, units text, priority int, due_at timestamptz, validation text, metadata jsonb, routing jsonb, created_at timestamptz, updated_at timestamptz, event_id text, n int";
@@ -145,9 +146,9 @@ const INSERT = `with x as materialized (select * from json_to_recordset($1::json
   c as (select * from string_to_table($2, E'\\x1e') with ordinality as c("check", n)),
   v as (select split_part(around, E'\\x1f', 1) as head, split_part(around, E'\\x1f', 2) as tail, n
         from string_to_table($3, E'\\x1e') with ordinality as v(around, n)),
-  p as (insert into programs (${COLUMNS}, "check") select ${COLUMNS}, c."check"::json from x join c using (n) returning 1),
+  p as (insert into programs (${COLUMNS}, "check") select ${COLUMNS}, c."check" from x join c using (n) returning 1),
   e as (insert into events (id, shop_id, type, subject_id, data, created_at)
-        select event_id, shop_id, 'program.created', id, ('{"program":' || v.head || c."check" || v.tail || '}')::json,
+        select event_id, shop_id, 'program.created', id, ('{"program":' || v.head || c."check" || v.tail || '}'),
           created_at
         from x join c using (n) join v using (n) returning 1)
   select (select count(*) from p) as programs, (select count(*) from e) as events`;

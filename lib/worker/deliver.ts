@@ -9,7 +9,7 @@ import type { EntityManager } from "@mikro-orm/postgresql";
 
 import { Delivery, DeliveryAttempt, type DeliveryEntity, type WebhookEndpointEntity } from "../../entities";
 import { newId } from "../ids";
-import { webhookPayload } from "../schemas/webhook";
+import { eventPayloads } from "../services/events";
 
 import { delayBefore, disableAfter, MAX_ATTEMPTS, retryAfterMs } from "./schedule";
 import { signatures, post, keptHeaders, USER_AGENT } from "./post";
@@ -44,13 +44,8 @@ const BODIES_KEPT = 2000;
 async function bodyOf(em: EntityManager, eventId: string): Promise<string> {
   const kept = bodies.get(eventId);
   if (kept !== undefined) return kept;
-  const [ev] = await em
-    .getConnection()
-    .execute<{ type: string; data: unknown; created_at: Date }[]>(
-      "select type, data, created_at from events where id = ?",
-      [eventId],
-    );
-  const body = webhookPayload({ type: ev.type, createdAt: ev.created_at, data: ev.data });
+  const body = (await eventPayloads(em, [eventId])).get(eventId);
+  if (body === undefined) throw new Error(`event ${eventId} is gone`);
   bodies.set(eventId, body);
   if (bodies.size > BODIES_KEPT) bodies.delete(bodies.keys().next().value as string);
   return body;

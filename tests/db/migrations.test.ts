@@ -165,4 +165,30 @@ describe("migrations", () => {
     await connection.execute(`delete from idempotency_records where key_id = 'key_layout'`);
     await connection.execute(`delete from shops where id = 'shp_layout'`);
   });
+  it("keep a program's check and an event's body as the text written, in text columns compressed with lz4", async () => {
+    const connection = orm.em.getConnection();
+    await orm.getMigrator().down({ to: "Migration20261203220000_check_without_layout" });
+    await connection.execute(
+      `insert into shops (id, name, slug, created_at, updated_at) values ('shp_text', 'Text', 'text-test', now(), now())`,
+    );
+    // as json stored it: the text as written, spaces and key order included
+    const written = '{"program": {"id":"prg_text", "title":"Blank \\u00e9 ü 東", "check":{"z":1,"a":[0.1,2e-7]}}}';
+    await connection.execute(
+      `insert into events (id, shop_id, type, subject_id, data, created_at) values ('evt_text', 'shp_text', 'program.created', 'prg_text', ?::json, now())`,
+      [written],
+    );
+    await migrateUp(orm);
+    const [event] = await connection.execute<{ data: unknown }[]>(`select data from events where id = 'evt_text'`);
+    expect(event.data).toBe(written);
+    const columns = await connection.execute<{ name: string; type: string; compression: string }[]>(
+      `select attrelid::regclass || '.' || attname as name, atttypid::regtype::text as type, attcompression as compression
+       from pg_attribute where (attrelid, attname) in (('programs'::regclass, 'check'), ('events'::regclass, 'data'))
+       order by 1`,
+    );
+    expect(columns).toEqual([
+      { name: "events.data", type: "text", compression: "l" },
+      { name: "programs.check", type: "text", compression: "l" },
+    ]);
+    await connection.execute(`delete from shops where id = 'shp_text'`);
+  });
 });

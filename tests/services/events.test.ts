@@ -3,7 +3,7 @@ import { afterAll, describe, expect, it } from "vitest";
 import { Event, Program } from "../../entities";
 import { createProgram } from "../../lib/services/programs";
 import { viewProgram } from "../../lib/services/program-view";
-import { OUTBOX_CHANNEL, recordEvent } from "../../lib/services/events";
+import { eventPayloads, OUTBOX_CHANNEL, recordEvent } from "../../lib/services/events";
 import { createBatch } from "../../lib/services/program-batch";
 import { DATABASE_URL } from "../support/env";
 import { closeTestOrm, createTestShop, exampleProgram, testOrm } from "../support/fixtures";
@@ -49,5 +49,28 @@ describe("the outbox", () => {
     } finally {
       await listener.end();
     }
+  });
+  it("builds each event's webhook body around its stored text, the bytes JSON.stringify writes for it", async () => {
+    const shop = await createTestShop("payloads");
+    const em = (await testOrm()).em.fork();
+    const input = {
+      ...exampleProgram(shop.shearId, "PAY-1"),
+      title: 'Blank "é" 東 😀 \\ \u0001',
+      metadata: { a: "\u2028" },
+    };
+    const [created] = await createBatch(em, shop.shopId, [input]);
+    await recordEvent(em, shop.shopId, "program.updated", created.id, { program: created, changed: ["title"] });
+    await em.flush();
+    const events = await em.fork().find(Event, { subjectId: created.id }, { orderBy: { id: "asc" } });
+    expect(events.map((e) => e.type)).toEqual(["program.created", "program.updated"]);
+    const payloads = await eventPayloads(em.fork(), [...events.map((e) => e.id), events[0].id, "evt_unknown"]);
+    expect([...payloads.keys()]).toEqual(expect.arrayContaining(events.map((e) => e.id)));
+    expect(payloads.size).toBe(2);
+    for (const event of events) {
+      const expected = JSON.stringify({ type: event.type, timestamp: event.createdAt.toISOString(), data: event.data });
+      expect(payloads.get(event.id)).toBe(expected);
+    }
+    expect(JSON.parse(payloads.get(events[0].id)!).data.program.title).toBe(input.title);
+    expect(await eventPayloads(em, [])).toEqual(new Map());
   });
 });

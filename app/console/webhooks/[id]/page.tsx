@@ -4,13 +4,12 @@ import { ActionForm } from "@/components/console/ActionForm";
 import { DeliveryDetails } from "@/components/console/DeliveryDetails";
 import { EditEndpointForm, EndpointButtons } from "@/components/console/WebhookForms";
 import { Badge, PageHeader, Table, Td, when } from "@/components/ui";
-import { Event } from "@/entities";
 import { ApiError } from "@/lib/errors";
 import { can } from "@/lib/auth/roles";
 import { currentMember } from "@/lib/auth/session";
 import { requestEm } from "@/lib/db/orm";
-import { webhookPayload } from "@/lib/schemas/webhook";
 import { EVENT_TYPES, EVENT_TYPE_WORDS } from "@/lib/schemas/enums";
+import { eventPayloads } from "@/lib/services/events";
 import { findEndpoint, listDeliveries } from "@/lib/services/webhooks";
 import { viewEndpoint } from "@/lib/services/webhook-views";
 import { deleteEndpointAction, resendFailedAction } from "../actions";
@@ -43,10 +42,10 @@ export default async function EndpointPage({
     { endpoint: id },
     { limit: 25, cursor: query.cursor, status, eventType: type },
   ).catch(() => ({ data: [], next_cursor: null }));
-  const events = page.data.length
-    ? await em.find(Event, { id: { $in: [...new Set(page.data.map((d) => d.eventId))] } })
-    : [];
-  const payloads = new Map(events.map((e) => [e.id, webhookPayload(e)]));
+  const payloads = await eventPayloads(
+    em,
+    page.data.map((d) => d.eventId),
+  );
   const manage = can(member.role, "webhooks:manage");
   const test = can(member.role, "webhooks:test");
   const filterQuery = (extra: Record<string, string | undefined>) => {

@@ -5,13 +5,17 @@
  * methods get a bare 400. Every method outside the HTTP methods this product serves is
  * answered here with 405, `Allow` and the same security headers as every other response.
  * Likewise a path whose percent-encoding is not UTF-8 (`/programs/%FF`) makes Next fail with
- * a 500; it is answered here with 400.
+ * a 500; it is answered here with 400. Under /api/v1 a path no operation has is answered with 404,
+ * and a method the path does not take with 405 and its `Allow`, both as problem+json (Next
+ * would answer an HTML page and an empty body), from the operations list (lib/api/paths.ts).
  * Usage: tsx scripts/web-server.ts --port 3000 (always on 127.0.0.1).
  */
 import http from "node:http";
 import path from "node:path";
 import { parseArgs } from "node:util";
 import next from "next";
+import { operations } from "../lib/api/operations";
+import { apiPaths } from "../lib/api/paths";
 import { SECURITY_HEADERS } from "../lib/security-headers";
 import { beginStopping, hostOwnsShutdown, onStopSignal, runStopHooks } from "../lib/shutdown";
 
@@ -25,6 +29,7 @@ const port = Number(values.port);
 const hostname = values.host!;
 const SERVED = ["GET", "HEAD", "POST", "PUT", "PATCH", "DELETE", "OPTIONS"];
 const ALLOW = SERVED.join(", ");
+const apiPath = apiPaths(operations);
 
 const app = next({ dev: false, dir: path.resolve(import.meta.dirname, ".."), hostname, port });
 await app.prepare();
@@ -82,6 +87,30 @@ const server = http.createServer((req, res) => {
       "The request is malformed",
       "The path has a percent-escape that is not UTF-8.",
       "/",
+    );
+    return;
+  }
+  const reached = apiPath(req.method!, path);
+  if (reached.kind === "unknown") {
+    problem(
+      res,
+      404,
+      "unknown-path",
+      "No such path in the API",
+      "No operation of API v1 has this path; /api/v1/openapi.json lists them all.",
+      path,
+    );
+    return;
+  }
+  if (reached.kind === "method-not-allowed") {
+    problem(
+      res,
+      405,
+      "method-not-allowed",
+      "Method not allowed",
+      `This path takes ${reached.allow}, not ${req.method}.`,
+      path,
+      { Allow: reached.allow },
     );
     return;
   }

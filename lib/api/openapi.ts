@@ -8,8 +8,7 @@ import { EVENT_TYPES, EVENT_TYPE_WORDS } from "../schemas/enums";
 import { WEBHOOK_ENVELOPES } from "../schemas/events";
 import { exampleProgram, exampleProgramLayout, exampleShear, exampleWebhook } from "./examples";
 import { VERSION } from "../version";
-import type { Operation } from "./operation";
-import { API_PREFIX } from "./route";
+import { API_PREFIX, type Operation } from "./operation";
 
 const ERROR_TEXT: Record<number, string> = {
   400: "The request is malformed (for example, the body is not JSON).",

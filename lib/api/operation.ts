@@ -6,6 +6,9 @@
 import type { z } from "zod";
 import type { Scope } from "../../lib/schemas/enums";
 
+/** Where API v1 is served; operations' paths are under it. */
+export const API_PREFIX = "/api/v1";
+
 export type Method = "get" | "post" | "patch" | "put" | "delete";
 
 type ZObject = z.ZodObject<z.ZodRawShape>;

@@ -60,6 +60,12 @@ export const PROBLEM_TYPES: Record<string, { status: number; title: string; expl
     title: "The resource changed since you read it",
     explanation: "Your If-Match names an older revision. Read the program again and retry.",
   },
+  "unknown-path": {
+    status: 404,
+    title: "No such path in the API",
+    explanation:
+      "No operation of API v1 has that path (check its spelling and letter case); the OpenAPI document at `/api/v1/openapi.json` lists every path and its methods.",
+  },
   "method-not-allowed": {
     status: 405,
     title: "Method not allowed",

@@ -16,12 +16,10 @@ import { SECURITY_HEADERS } from "../security-headers";
 
 import { ApiError, badRequest, forbidden, internalError, unsupportedMediaType } from "../errors";
 import * as idempotency from "../services/idempotency";
-import type { Infer, Operation, ReplyOf, ResponseSpec } from "./operation";
+import { API_PREFIX, type Infer, type Operation, type ReplyOf, type ResponseSpec } from "./operation";
 import { consume } from "./rate-limit";
 import { logRequest } from "./request-log";
 import { parse, plainJsonText, queryObject, readBody } from "./route-input";
-
-export const API_PREFIX = "/api/v1";
 
 export interface HandlerContext<P, Q, B> {
   em: EntityManager;

@@ -281,8 +281,45 @@ describe("what callers choose cannot break the request or the log", () => {
       expect(res.headers["content-type"]).toMatch(/problem\+json/);
       expect(res.headers["x-content-type-options"]).toBe("nosniff");
     }
-    // A method the API serves, on a route that does not take it: 405 too (from the framework).
-    expect((await raw("DELETE", "/api/v1/health")).statusCode).toBe(405);
+  });
+
+  it("answers a method a path does not take with 405 problem+json naming the methods it does", async () => {
+    for (const [method, path, allow] of [
+      ["DELETE", "/api/v1/health", "GET, HEAD, OPTIONS"],
+      ["GET", "/api/v1/programs/batch", "OPTIONS, POST"],
+      ["PUT", `/api/v1/programs/prg_${"x".repeat(26)}`, "GET, HEAD, OPTIONS, PATCH"],
+    ]) {
+      const res = await api()[method.toLowerCase() as "get" | "delete" | "put"](path).set(auth());
+      expect(res.status, `${method} ${path}`).toBe(405);
+      expect(res.headers.allow).toBe(allow);
+      expect(res.headers["content-type"]).toMatch(/^application\/problem\+json/);
+      expect(res.body).toMatchObject({ type: "/problems/method-not-allowed", status: 405, instance: path });
+    }
+    // and the framework's own answer to OPTIONS agrees
+    const options = await api().options("/api/v1/programs/batch");
+    expect(options.status).toBe(204);
+    expect(options.headers.allow).toBe("OPTIONS, POST");
+  });
+
+  it("answers a path the API does not have with 404 problem+json, hostile paths included", async () => {
+    for (const path of [
+      "/api/v1/webhooks",
+      "/api/v1/programs/prg_1/nothing",
+      "/api/v1/Programs",
+      "/api/v1/%00%01",
+      `/api/v1/${"deep/".repeat(1500)}end`,
+    ]) {
+      const res = await api().post(path).set(auth()).send({ a: 1 });
+      expect(res.status, path.slice(0, 60)).toBe(404);
+      expect(res.headers["content-type"]).toMatch(/^application\/problem\+json/);
+      expect(res.headers["x-content-type-options"]).toBe("nosniff");
+      expect(res.body).toMatchObject({ type: "/problems/unknown-path", status: 404 });
+      expect(res.body.instance.length).toBeLessThanOrEqual(2000);
+    }
+    // the page the problem type points at exists
+    const page = await api().get("/problems/unknown-path");
+    expect(page.status).toBe(200);
+    expect(page.text).toContain("No such path in the API");
   });
 
   it("stops reading a chunked body at the limit: the 413 comes while the client is still sending", async () => {

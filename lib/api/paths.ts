@@ -12,7 +12,7 @@ export type PathMatch =
   | { kind: "method-not-allowed"; allow: string }
   /** a path under API v1 that no operation has */
   | { kind: "unknown" }
-  /** not under API v1, or a form the framework settles itself (a trailing slash it redirects) */
+  /** not under API v1, or a form the framework settles itself (a trailing or doubled slash, dot segments) */
   | { kind: "other" };
 
 interface Template {
@@ -61,6 +61,8 @@ export function apiPaths(operations: Pick<Operation, "method" | "path">[]) {
     if (rest === "" || rest === "/" || rest.endsWith("/")) return { kind: "other" };
     // raw, as the framework routes: an escaped slash (%2F) stays inside its segment, and `%62atch` is not `batch`
     const segments = rest.split("/").slice(1);
+    // `//`, `/./` and `/../` are the framework's to settle (it redirects to the normalised path)
+    if (segments.some((segment) => segment === "" || segment === "." || segment === "..")) return { kind: "other" };
     const template = templates.find(
       (t) =>
         t.segments.length === segments.length &&

@@ -51,6 +51,7 @@ export function KeyForm({
               {copied ? "Copied" : "Copy"}
             </button>
           </div>
+          {/* eslint-disable-next-line @next/next/no-html-link-for-pages -- a full load, so the secret leaves the page's memory */}
           <a href="/console/keys" className="text-sm text-edge hover:underline">
             Done
           </a>

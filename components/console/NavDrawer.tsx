@@ -1,5 +1,6 @@
 "use client";
 
+import Link from "next/link";
 import { usePathname } from "next/navigation";
 import { useState, type ReactNode } from "react";
 import { LogoMark } from "@/components/Logo";
@@ -16,9 +17,9 @@ export function NavDrawer({ children }: { children: ReactNode }) {
   return (
     <>
       <div className="sticky top-0 z-20 flex items-center justify-between border-b border-scale-200 bg-scale-100 px-4 py-2 lg:hidden">
-        <a href="/console" className="flex items-center gap-2 font-semibold">
+        <Link href="/console" className="flex items-center gap-2 font-semibold">
           <LogoMark size={20} /> Shearwire
-        </a>
+        </Link>
         <button
           type="button"
           aria-expanded={open}

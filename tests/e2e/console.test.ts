@@ -199,7 +199,21 @@ describe("the console", () => {
     await page.getByRole("button", { name: "Save changes" }).waitFor();
     await shot(page, "shear");
     await page.goto(`${BASE_URL}/console/programs/prg_01J00000000000000000000000`);
-    await page.getByText("Nothing with that id exists in this shop.").waitFor();
+    await page.getByText("nothing with that id exists in this shop.").waitFor();
+    // An address the console has no page for: its own not-found page, inside the console. (Its status is 200: the
+    // console streams its pages behind a loading state, so the status is sent before the page knows; the framework
+    // marks such pages noindex.)
+    await page.goto(`${BASE_URL}/console/request-log/nothing`);
+    expect(await page.locator('meta[name="robots"][content*="noindex"]').count()).toBeGreaterThan(0);
+    await page.getByText("The console has no page at this address").waitFor();
+    await page.getByRole("link", { name: "Back to the overview" }).waitFor();
+    await page.getByRole("link", { name: "Request log" }).waitFor(); // the console's navigation is still there
+    await shot(page, "not-found");
+    // and outside the console and the API, the site's own page
+    const outside = await page.goto(`${BASE_URL}/no-such-page`);
+    expect(outside?.status()).toBe(404);
+    await page.getByRole("heading", { name: "No page at this address" }).waitFor();
+    await page.getByRole("link", { name: "API reference" }).waitFor();
     await page.goto(`${BASE_URL}/console`);
     await shot(page, "overview-traffic");
     await page.close();

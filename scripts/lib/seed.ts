@@ -11,6 +11,8 @@ import { planTimeLimitMs } from "../../lib/queue/plan-queue";
 import { claimNext, complete, start } from "../../lib/services/gateway";
 import { createKey, type Principal } from "../../lib/services/keys";
 import { createPlan, writePrograms } from "../../lib/services/plans";
+import { createStockItem } from "../../lib/services/stock";
+import type { StockItemInputT } from "../../lib/schemas/stock";
 import { releaseProgram } from "../../lib/services/programs";
 import { viewPlan } from "../../lib/services/plan-views";
 import { DEMO_SHEARS } from "../../lib/schemas/shear";
@@ -60,17 +62,35 @@ export interface DemoSummary {
   plan: { id: string; reference: string | null };
 }
 
-/** A week's order of our own invention for the demo shop: 3 mm A36 cabinet parts, planned on Bay 1. */
+/**
+ * What is on the demo shop's racks (invented): full sheets of the demo order's 3 mm A36 in two sizes, a remnant
+ * kept from an earlier cut, and sheets of other grades and thicknesses the order does not draw on.
+ */
+const DEMO_STOCK: StockItemInputT[] = [
+  { kind: "sheet", grade: "A36", thicknessMm: 3, lengthMm: 2500, widthMm: 1250, quantity: 12, location: "Rack A" },
+  { kind: "sheet", grade: "A36", thicknessMm: 3, lengthMm: 3000, widthMm: 1500, quantity: 4, location: "Rack B" },
+  {
+    kind: "remnant",
+    grade: "A36",
+    thicknessMm: 3,
+    lengthMm: 1250,
+    widthMm: 900,
+    quantity: 1,
+    location: "Remnant rack",
+    note: "Kept from last week's bracket run (demo).",
+  },
+  { kind: "sheet", grade: "A36", thicknessMm: 6, lengthMm: 2500, widthMm: 1250, quantity: 6, location: "Rack C" },
+  { kind: "sheet", grade: "304", thicknessMm: 1.5, lengthMm: 2500, widthMm: 1250, quantity: 8, location: "Rack D" },
+];
+
+/** A week's order of our own invention for the demo shop: 3 mm A36 cabinet parts, planned on Bay 1 from the racks. */
 const DEMO_PLAN = {
   reference: "RB-W49-A36-3",
   title: "Week 49 cabinet parts, 3 mm A36 (demo order)",
   grade: "A36",
   thickness: { value: 3 },
   units: "mm" as const,
-  stock: [
-    { length: 2500, width: 1250, count: 12, label: "rack A" },
-    { length: 3000, width: 1500, count: 4, label: "rack B" },
-  ],
+  stock: "on_hand" as const,
   blanks: [
     { label: "cabinet side", length: 900, width: 450, quantity: 16, canTurn: false },
     { label: "shelf", length: 860, width: 380, quantity: 24 },
@@ -98,6 +118,7 @@ export async function seedDemo(em: EntityManager): Promise<DemoSummary> {
         tx.create(Shear, { ...(shear as Omit<RequiredEntityData<InferEntity<typeof Shear>>, "shop">), shop });
       addGradeLibrary(tx, shop);
       await tx.flush();
+      for (const item of DEMO_STOCK) await createStockItem(tx, shop.id, item);
     }
     const shears = await tx.find(Shear, { shop }, { orderBy: { name: "asc" } });
     return {

@@ -1,7 +1,18 @@
 import { MikroORM } from "@mikro-orm/postgresql";
 import bcrypt from "bcryptjs";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { ApiKey, Event, Grade, Membership, Plan, Program, Shear, User } from "../../entities";
+import {
+  ApiKey,
+  Event,
+  Grade,
+  Membership,
+  Plan,
+  Program,
+  Shear,
+  StockItem,
+  StockReservation,
+  User,
+} from "../../entities";
 import { ormConfig } from "../../lib/db/config";
 import { migrateUp } from "../../lib/db/migrate";
 import { isId } from "../../lib/ids";
@@ -93,6 +104,31 @@ describe("demo seed", () => {
       "program.started",
       "program.completed",
     ]);
+  });
+
+  it("puts sheets on the racks and plans the demo order from them: the run books its sheets, the released one holds its own", async () => {
+    const demo = await seedDemo(orm.em.fork());
+    const em = orm.em.fork();
+    const items = await em.find(StockItem, { shop: demo.shop.id }, { orderBy: { id: "asc" } });
+    expect(items.length).toBeGreaterThanOrEqual(3);
+    expect(items.some((item) => item.kind === "remnant")).toBe(true);
+    const plan = await em.findOneOrFail(Plan, { id: demo.plan.id });
+    const drawn = (plan.result as { stock: { item?: string | null; used: number }[] }).stock;
+    expect(drawn.length).toBeGreaterThan(0);
+    for (const row of drawn) expect(items.map((item) => item.id)).toContain(row.item);
+    const programs = await em.find(Program, { shop: demo.shop.id });
+    const reservations = await em.find(StockReservation, { shop: demo.shop.id });
+    const [done] = programs.filter((program) => program.status === "completed");
+    const [waiting] = programs.filter((program) => program.status === "released");
+    // the run's sheets were booked out of stock; the released program's are still held for it
+    const sheetsOf = (program: typeof done, status: string) =>
+      reservations
+        .filter((r) => r.program === program.id && r.status === status)
+        .reduce((sum, r) => sum + r.quantity, 0);
+    expect(sheetsOf(done, "consumed")).toBe((done.input as { sheet: { count: number } }).sheet.count);
+    if (waiting) expect(sheetsOf(waiting, "open")).toBe((waiting.input as { sheet: { count: number } }).sheet.count);
+    const onHand = items.reduce((sum, item) => sum + item.quantity, 0);
+    expect(onHand).toBe(12 + 4 + 1 + 6 + 8 - sheetsOf(done, "consumed"));
   });
 
   it("is idempotent", async () => {

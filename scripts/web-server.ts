@@ -16,6 +16,7 @@ import { parseArgs } from "node:util";
 import next from "next";
 import { operations } from "../lib/api/operations";
 import { apiPaths } from "../lib/api/paths";
+import { PROBLEM_TYPES } from "../lib/api/problem-types";
 import { SECURITY_HEADERS } from "../lib/security-headers";
 import { beginStopping, hostOwnsShutdown, onStopSignal, runStopHooks } from "../lib/shutdown";
 
@@ -35,15 +36,15 @@ const app = next({ dev: false, dir: path.resolve(import.meta.dirname, ".."), hos
 await app.prepare();
 const handle = app.getRequestHandler();
 
+/** A problem+json answer of one of the API's problem types (status and title from lib/api/problem-types.ts). */
 function problem(
   res: http.ServerResponse,
-  status: number,
-  slug: string,
-  title: string,
+  slug: keyof typeof PROBLEM_TYPES,
   detail: string,
   instance: string,
   headers: Record<string, string> = {},
 ) {
+  const { status, title } = PROBLEM_TYPES[slug];
   res.writeHead(status, {
     ...SECURITY_HEADERS,
     ...headers,
@@ -68,50 +69,24 @@ let stopping = false;
 const server = http.createServer((req, res) => {
   const path = (req.url ?? "/").split("?")[0];
   if (!SERVED.includes(req.method ?? "")) {
-    problem(
-      res,
-      405,
-      "method-not-allowed",
-      "Method not allowed",
-      `${req.method} is not served here; use one of ${ALLOW}.`,
-      path,
-      { Allow: ALLOW },
-    );
+    problem(res, "method-not-allowed", `${req.method} is not served here; use one of ${ALLOW}.`, path, {
+      Allow: ALLOW,
+    });
     return;
   }
   if (!decodable(path)) {
-    problem(
-      res,
-      400,
-      "bad-request",
-      "The request is malformed",
-      "The path has a percent-escape that is not UTF-8.",
-      "/",
-    );
+    problem(res, "bad-request", "The path has a percent-escape that is not UTF-8.", "/");
     return;
   }
   const reached = apiPath(req.method!, path);
   if (reached.kind === "unknown") {
-    problem(
-      res,
-      404,
-      "unknown-path",
-      "No such path in the API",
-      "No operation of API v1 has this path; /api/v1/openapi.json lists them all.",
-      path,
-    );
+    problem(res, "unknown-path", "No operation of API v1 has this path; /api/v1/openapi.json lists them all.", path);
     return;
   }
   if (reached.kind === "method-not-allowed") {
-    problem(
-      res,
-      405,
-      "method-not-allowed",
-      "Method not allowed",
-      `This path takes ${reached.allow}, not ${req.method}.`,
-      path,
-      { Allow: reached.allow },
-    );
+    problem(res, "method-not-allowed", `This path takes ${reached.allow}, not ${req.method}.`, path, {
+      Allow: reached.allow,
+    });
     return;
   }
   // The client address the sign-in throttle counts by: the socket's, unless a proxy in front is trusted to say.

@@ -33,7 +33,7 @@ function moreSpecific(a: Template, b: Template): number {
 
 /** The methods a path answers, as the framework lists them in `Allow` (HEAD with GET; OPTIONS always). */
 function allowOf(methods: Set<string>): string {
-  const all = new Set([...methods].map((m) => m.toUpperCase()));
+  const all = new Set(methods);
   if (all.has("GET")) all.add("HEAD");
   all.add("OPTIONS");
   return [...all].sort().join(", ");
@@ -58,15 +58,13 @@ export function apiPaths(operations: Pick<Operation, "method" | "path">[]) {
   return function match(method: string, path: string): PathMatch {
     if (path !== API_PREFIX && !path.startsWith(`${API_PREFIX}/`)) return { kind: "other" };
     const rest = path.slice(API_PREFIX.length);
-    if (rest === "" || rest === "/" || rest.endsWith("/")) return { kind: "other" };
+    if (rest === "") return { kind: "other" };
     // raw, as the framework routes: an escaped slash (%2F) stays inside its segment, and `%62atch` is not `batch`
     const segments = rest.split("/").slice(1);
-    // `//`, `/./` and `/../` are the framework's to settle (it redirects to the normalised path)
+    // a trailing or doubled slash, `/./` and `/../` are the framework's to settle (it redirects or normalises them)
     if (segments.some((segment) => segment === "" || segment === "." || segment === "..")) return { kind: "other" };
     const template = templates.find(
-      (t) =>
-        t.segments.length === segments.length &&
-        t.segments.every((s, i) => (s === null ? segments[i] !== "" : s === segments[i])),
+      (t) => t.segments.length === segments.length && t.segments.every((s, i) => s === null || s === segments[i]),
     );
     if (!template) return { kind: "unknown" };
     const served =

@@ -210,6 +210,9 @@ describe("sign-in throttling", () => {
       const context = await browser.newContext();
       const page = await context.newPage();
       await page.goto(`${BASE_URL}/signin`);
+      // The form posts from the browser once the page's scripts have run: a click before that sends nothing (seen
+      // once under a loaded machine, the wait below then timing out).
+      await page.waitForLoadState("networkidle");
       const wrong = () => testOrm().then((o) => o.em.fork().count(SignInAttempt, { email, outcome: "wrong-password" }));
       for (let i = 0; i < SIGN_IN_LIMITS.perAccount; i++) {
         await page.getByLabel("E-mail").fill(email);

@@ -3,6 +3,7 @@
 import { signIn } from "next-auth/react";
 import { useRouter, useSearchParams } from "next/navigation";
 import { useState } from "react";
+import { useHydrated } from "@/components/ui/useHydrated";
 import { safeCallbackPath } from "@/lib/auth/redirect";
 
 const NOTICES: Record<string, string> = {
@@ -15,6 +16,8 @@ export function SignInForm() {
   const params = useSearchParams();
   const [error, setError] = useState<string | null>(NOTICES[params.get("error") ?? ""] ?? null);
   const [busy, setBusy] = useState(false);
+  // Until the page's scripts run, the form cannot post (its action runs in the browser): the button says so by being disabled.
+  const hydrated = useHydrated();
 
   async function submit(form: FormData) {
     setBusy(true);
@@ -67,7 +70,7 @@ export function SignInForm() {
         </p>
       )}
       <button
-        disabled={busy}
+        disabled={busy || !hydrated}
         className="w-full rounded-md bg-ink px-4 py-2 font-medium text-scale-50 hover:bg-ink-soft disabled:opacity-60"
       >
         {busy ? "Signing in…" : "Sign in"}

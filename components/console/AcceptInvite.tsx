@@ -30,7 +30,7 @@ export function AcceptInvite({ token, email }: { token: string; email: string })
       </label>
       <ActionMessage result={form.result} shownFields={["name", "password"]} />
       <button
-        disabled={form.pending}
+        disabled={form.disabled}
         className="rounded-md bg-ink px-3 py-2 font-medium text-scale-50 disabled:opacity-60"
       >
         Join and sign in

@@ -43,7 +43,7 @@ export function ActionForm({
       {Object.entries(fields).map(([name, value]) => (
         <input key={name} type="hidden" name={name} value={value} />
       ))}
-      <button disabled={form.pending} aria-label={label} className={buttonClassName}>
+      <button disabled={form.disabled} aria-label={label} className={buttonClassName}>
         {children}
       </button>
       <ActionMessage result={form.result} />

@@ -6,6 +6,7 @@ import { useState } from "react";
 import { useForm, type FieldValues, type Resolver } from "react-hook-form";
 import { saveGrade, saveShear } from "@/app/console/catalog-actions";
 import { GAUGE_FAMILIES, GRADE_FAMILIES } from "@/lib/schemas/enums";
+import { useHydrated } from "../ui/useHydrated";
 import { GAUGE_SYSTEM_WORDS } from "./words";
 import { GradeInputSchema, GradePatchSchema } from "@/lib/schemas/grade";
 import { ShearInputSchema, ShearPatchSchema } from "@/lib/schemas/shear";
@@ -106,6 +107,7 @@ function CatalogForm({
   editing: boolean;
 }) {
   const router = useRouter();
+  const hydrated = useHydrated();
   const [result, setResult] = useState<CatalogState>(null);
   const resolver: Resolver<FieldValues> = async (values, ctx, opts) =>
     (zodResolver(schema as never) as Resolver<FieldValues>)(clean(fields, values, editing), ctx, opts);
@@ -165,7 +167,7 @@ function CatalogForm({
       })}
       <div className="col-span-2 flex items-center gap-3">
         <button
-          disabled={form.formState.isSubmitting}
+          disabled={form.formState.isSubmitting || !hydrated}
           className="rounded-md bg-ink px-3 py-1.5 font-medium text-scale-50 disabled:opacity-60"
         >
           {editing ? "Save changes" : "Add"}

@@ -118,7 +118,7 @@ export function KeyForm({
           </label>
           <ActionMessage result={form.result} shownFields={["name", "scopes", "shears", "shears.0", "expires"]} />
           <button
-            disabled={form.pending}
+            disabled={form.disabled}
             className="justify-self-start rounded-md bg-ink px-3 py-1.5 font-medium text-scale-50 hover:bg-ink-soft disabled:opacity-60"
           >
             Create key

@@ -28,7 +28,7 @@ export function WritePrograms({
         />
       </label>
       <button
-        disabled={form.pending}
+        disabled={form.disabled}
         className="rounded-md bg-ink px-3 py-1.5 font-medium text-scale-50 disabled:opacity-60"
       >
         {form.pending ? "Writing…" : `Write ${patterns} draft program${patterns === 1 ? "" : "s"}`}

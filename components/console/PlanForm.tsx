@@ -163,7 +163,7 @@ export function PlanForm({
       </fieldset>
       <div className="flex items-center gap-3">
         <button
-          disabled={pending}
+          disabled={form.disabled}
           className="rounded-md bg-ink px-3 py-1.5 font-medium text-scale-50 disabled:opacity-60"
         >
           {pending ? "Planning…" : "Plan"}

@@ -69,7 +69,7 @@ export function ProgramActions({
             </label>
           ))}
           <button
-            disabled={release.pending}
+            disabled={release.disabled}
             className="rounded-md bg-edge px-3 py-1.5 text-sm font-medium text-white hover:bg-edge-dark disabled:opacity-60"
           >
             Release to {shearName}

@@ -28,7 +28,7 @@ export function SettingsForm({ settings }: { settings: SettingsT }) {
           <FieldError message={form.error("remnantMinMm")} />
         </label>
         <button
-          disabled={form.pending}
+          disabled={form.disabled}
           className="justify-self-start rounded-md bg-ink px-3 py-1.5 font-medium text-scale-50 hover:bg-ink-soft disabled:opacity-60"
         >
           Save settings

@@ -52,7 +52,7 @@ export function AddStockForm({ grades }: { grades: string[] }) {
         <Field name="widthMm" label="Width (mm)" inputMode="decimal" error={form.error("widthMm")} />
         <Field name="location" label="Location" placeholder="Rack B2" error={form.error("location")} />
         <button
-          disabled={form.pending}
+          disabled={form.disabled}
           className="col-span-2 justify-self-start rounded-md bg-ink px-3 py-1.5 font-medium text-scale-50 hover:bg-ink-soft disabled:opacity-60"
         >
           Add stock
@@ -74,7 +74,7 @@ export function AdjustStockForm({ id, label }: { id: string; label: string }) {
       <input type="hidden" name="id" value={id} />
       <input name="delta" aria-label={`Change for ${label}`} placeholder="±n" className={`${input} w-14 py-0.5`} />
       <input name="reason" aria-label={`Reason for ${label}`} placeholder="reason" className={`${input} w-28 py-0.5`} />
-      <button disabled={form.pending} className="rounded border border-scale-300 px-2 py-0.5">
+      <button disabled={form.disabled} className="rounded border border-scale-300 px-2 py-0.5">
         Adjust
       </button>
       <ActionMessage result={form.result} />

@@ -37,7 +37,7 @@ export function InviteForm() {
         </select>
       </label>
       <button
-        disabled={form.pending}
+        disabled={form.disabled}
         className="justify-self-start rounded-md bg-ink px-3 py-1.5 font-medium text-scale-50 disabled:opacity-60"
       >
         Send invitation
@@ -65,7 +65,7 @@ export function MemberControls({ id, name, role, self }: { id: string; name: str
           ))}
         </select>
         <button
-          disabled={form.pending}
+          disabled={form.disabled}
           aria-label={`Change the role of ${name}`}
           className="rounded border border-scale-300 px-2 py-0.5 text-xs"
         >

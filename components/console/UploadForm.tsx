@@ -19,7 +19,7 @@ export function UploadForm() {
           <input type="file" name="file" accept=".csv,.json,text/csv,application/json" required />
         </label>
         <button
-          disabled={pending}
+          disabled={form.disabled}
           className="rounded-md bg-ink px-3 py-1.5 font-medium text-scale-50 disabled:opacity-60"
         >
           {pending ? "Checking…" : "Check and import"}

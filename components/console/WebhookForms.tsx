@@ -93,7 +93,7 @@ export function NewEndpointForm({ types, words }: { types: readonly string[]; wo
         </label>
         <EventTypeBoxes types={types} words={words} />
         <button
-          disabled={form.pending}
+          disabled={form.disabled}
           className="justify-self-start rounded-md bg-ink px-3 py-1.5 font-medium text-scale-50 hover:bg-ink-soft disabled:opacity-60"
         >
           Add endpoint
@@ -147,7 +147,7 @@ export function EditEndpointForm({
         </label>
         <EventTypeBoxes types={types} words={words} chosen={endpoint.eventTypes} />
         <button
-          disabled={form.pending}
+          disabled={form.disabled}
           className="justify-self-start rounded-md bg-ink px-3 py-1.5 font-medium text-scale-50 hover:bg-ink-soft disabled:opacity-60"
         >
           Save
@@ -178,7 +178,7 @@ function EndpointButton({
         {Object.entries(extra).map(([field, value]) => (
           <input key={field} type="hidden" name={field} value={value} />
         ))}
-        <button disabled={form.pending} className="rounded border border-scale-300 px-2 py-1 text-xs hover:border-ink">
+        <button disabled={form.disabled} className="rounded border border-scale-300 px-2 py-1 text-xs hover:border-ink">
           {children}
         </button>
       </form>
@@ -227,7 +227,7 @@ export function ResendButton({ endpoint, event }: { endpoint: string; event: str
     <form onSubmit={form.onSubmit}>
       <input type="hidden" name="id" value={endpoint} />
       <input type="hidden" name="event" value={event} />
-      <button disabled={form.pending} className="text-xs text-edge hover:underline">
+      <button disabled={form.disabled} className="text-xs text-edge hover:underline">
         Resend
       </button>
       <ActionMessage result={form.result} />

@@ -8,6 +8,7 @@
 import { useAction } from "next-safe-action/hooks";
 import type { FormEvent } from "react";
 import type { ActionProblem } from "@/lib/auth/action";
+import { useHydrated } from "../ui/useHydrated";
 
 type Flattened = { formErrors?: string[]; fieldErrors?: Record<string, string[] | undefined> };
 
@@ -34,6 +35,7 @@ export function useConsoleForm<Data>(
     result: ConsoleResult<Data>;
     isPending: boolean;
   };
+  const hydrated = useHydrated();
   const onSubmit = async (event: FormEvent<HTMLFormElement>) => {
     event.preventDefault();
     const form = event.currentTarget;
@@ -44,7 +46,8 @@ export function useConsoleForm<Data>(
   /** The first error for a field, from the schema or from the service. */
   const error = (field: string): string | undefined =>
     result.validationErrors?.fieldErrors?.[field]?.[0] ?? result.serverError?.fieldErrors?.[field];
-  return { onSubmit, result, pending: isPending, error };
+  // `disabled` for the form's button: while the action runs, and until the page's scripts run (useHydrated)
+  return { onSubmit, result, pending: isPending, disabled: isPending || !hydrated, error };
 }
 
 /** The form's outcome: a problem (with every field error not shown beside its field), or a success message. */

@@ -1,11 +1,13 @@
 /**
  * The console as an attacker would try it, in headless Chromium: a session token after
  * sign-out, an off-site callbackUrl, hostile values in forms, headers that keep the pages
- * out of frames and scripts to our own, and sign-in throttling.
+ * out of frames and scripts to our own, sign-in throttling, and forms used before the page's
+ * scripts have run.
  */
 import type { Browser, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { SignInAttempt, WebhookEndpoint, ApiKey } from "../../entities";
+import { createHash, randomBytes } from "node:crypto";
+import { Invitation, SignInAttempt, WebhookEndpoint, ApiKey } from "../../entities";
 import { SIGN_IN_LIMITS } from "../../lib/services/sign-in";
 import { launch } from "../support/browser";
 import { Redis } from "ioredis";
@@ -209,10 +211,8 @@ describe("sign-in throttling", () => {
       const email = target.admins[0];
       const context = await browser.newContext();
       const page = await context.newPage();
+      // The button is disabled until the page's scripts have run (see below): each click waits for it.
       await page.goto(`${BASE_URL}/signin`);
-      // The form posts from the browser once the page's scripts have run: a click before that sends nothing (seen
-      // once under a loaded machine, the wait below then timing out).
-      await page.waitForLoadState("networkidle");
       const wrong = () => testOrm().then((o) => o.em.fork().count(SignInAttempt, { email, outcome: "wrong-password" }));
       for (let i = 0; i < SIGN_IN_LIMITS.perAccount; i++) {
         await page.getByLabel("E-mail").fill(email);
@@ -247,4 +247,94 @@ describe("sign-in throttling", () => {
       await context.close();
     },
   );
+});
+
+describe("before the page's scripts have run", () => {
+  /** Holds back the page's scripts (routing also turns the browser's cache off) until `release` is called. */
+  async function holdScripts(page: Page): Promise<{ release: () => void; requests: string[] }> {
+    let release!: () => void;
+    const held = new Promise<void>((resolve) => (release = resolve));
+    const requests: string[] = [];
+    // what a form's submission would send: a navigation, or anything but a GET
+    page.on("request", (request) => {
+      if (request.isNavigationRequest() || request.method() !== "GET")
+        requests.push(`${request.method()} ${request.url()}`);
+    });
+    // only scripts: the stylesheets (chunks too) must load, or the inline scripts after them would stop the page's parsing
+    await page.route(/\/_next\/static\/chunks\/[^?]*\.js(\?|$)/, async (route) => {
+      await held;
+      await route.continue();
+    });
+    return { release, requests };
+  }
+
+  /** Enter in a field, then a click: neither may send the form the browser's way (a GET with every field in the address). */
+  async function tryToSubmit(page: Page, field: string, button: string, requests: string[]) {
+    const address = page.url();
+    const before = requests.length;
+    await page.getByLabel(field).press("Enter");
+    await page.getByRole("button", { name: button }).click({ force: true, timeout: 2_000 });
+    await new Promise((resolve) => setTimeout(resolve, 500));
+    expect(page.url()).toBe(address);
+    expect(requests.slice(before)).toEqual([]);
+  }
+
+  it("the sign-in form waits for them: its button is disabled, then works", { timeout: 60_000 }, async () => {
+    const context = await browser.newContext();
+    const page = await context.newPage();
+    const { release, requests } = await holdScripts(page);
+    await page.goto(`${BASE_URL}/signin`, { waitUntil: "domcontentloaded" });
+    await page.getByLabel("E-mail").fill(shop.admins[0]);
+    await page.getByLabel("Password").fill(TEST_PASSWORD);
+    expect(await page.getByRole("button", { name: "Sign in" }).isDisabled()).toBe(true);
+    await tryToSubmit(page, "Password", "Sign in", requests);
+    expect(page.url()).not.toContain("password");
+    release();
+    await page.getByRole("button", { name: "Sign in" }).and(page.locator(":enabled")).waitFor();
+    await page.getByRole("button", { name: "Sign in" }).click();
+    await page.waitForURL(`${BASE_URL}/console`);
+    await context.close();
+  });
+
+  it("the invitation's password never goes into the address", { timeout: 60_000 }, async () => {
+    const em = (await testOrm()).em.fork();
+    const token = randomBytes(24).toString("base64url");
+    em.create(Invitation, {
+      shop: shop.shopId,
+      email: `early-${Date.now()}@test.example`,
+      role: "viewer",
+      tokenHash: createHash("sha256").update(token).digest("hex"),
+      invitedBy: "test",
+      expiresAt: new Date(Date.now() + 86_400_000),
+    });
+    await em.flush();
+    const context = await browser.newContext();
+    const page = await context.newPage();
+    const { release, requests } = await holdScripts(page);
+    await page.goto(`${BASE_URL}/invite/${token}`, { waitUntil: "domcontentloaded" });
+    await page.getByLabel("Your name").fill("Early Bird");
+    await page.getByLabel(/Choose a password/).fill("a-long-enough-password");
+    expect(await page.getByRole("button", { name: "Join and sign in" }).isDisabled()).toBe(true);
+    await tryToSubmit(page, "Your name", "Join and sign in", requests);
+    expect(page.url()).not.toContain("password");
+    release();
+    await page.getByRole("button", { name: "Join and sign in" }).and(page.locator(":enabled")).waitFor();
+    await context.close();
+  });
+
+  it("a console form's button is disabled until they have, and enabled after", { timeout: 60_000 }, async () => {
+    const context = await browser.newContext();
+    const page = await context.newPage();
+    await signIn(page, shop.admins[0]);
+    await page.waitForURL(`${BASE_URL}/console`);
+    const { release, requests } = await holdScripts(page);
+    await page.goto(`${BASE_URL}/console/stock`, { waitUntil: "domcontentloaded" });
+    await page.getByLabel("Location").fill("Rack Z9");
+    expect(await page.getByRole("button", { name: "Add stock" }).isDisabled()).toBe(true);
+    await tryToSubmit(page, "Location", "Add stock", requests);
+    expect(page.url()).not.toContain("Rack");
+    release();
+    await page.getByRole("button", { name: "Add stock" }).and(page.locator(":enabled")).waitFor();
+    await context.close();
+  });
 });

@@ -20,22 +20,29 @@ const columns = [
   col.accessor("reference", {
     header: "Reference",
     cell: (cell) => (
-      <Link className="font-mono text-edge hover:underline" href={`/console/programs/${cell.row.original.id}`}>
+      <Link
+        className="whitespace-nowrap font-mono text-edge hover:underline"
+        href={`/console/programs/${cell.row.original.id}`}
+      >
         {cell.getValue()}
       </Link>
     ),
   }),
-  col.accessor("title", { header: "Title", cell: (c) => c.getValue() ?? "—" }),
+  // at least 12rem wide: on a phone the table scrolls sideways rather than a title wrapping word by word
+  col.accessor("title", {
+    header: "Title",
+    cell: (c) => <span className="block min-w-48">{c.getValue() ?? "—"}</span>,
+  }),
   col.accessor("status", { header: "State", cell: (c) => <Badge value={c.getValue()} /> }),
   col.accessor("validation", { header: "Check", cell: (c) => <Badge value={c.getValue()} /> }),
   col.accessor("findings", { header: "Findings", cell: (c) => <span className="font-mono">{c.getValue()}</span> }),
   col.accessor("dueAt", {
     header: "Due",
-    cell: (c) => <span className="font-mono text-xs">{when(c.getValue())}</span>,
+    cell: (c) => <span className="whitespace-nowrap font-mono text-xs">{when(c.getValue())}</span>,
   }),
   col.accessor("updatedAt", {
     header: "Updated",
-    cell: (c) => <span className="font-mono text-xs">{when(c.getValue())}</span>,
+    cell: (c) => <span className="whitespace-nowrap font-mono text-xs">{when(c.getValue())}</span>,
   }),
 ];
 

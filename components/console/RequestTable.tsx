@@ -20,7 +20,10 @@ const col = createColumnHelper<Row>();
 export function RequestTable({ query, keyNames }: { query: string; keyNames: Record<string, string> }) {
   const mono = (v: string) => <span className="font-mono text-xs">{v}</span>;
   const columns = [
-    col.accessor("createdAt", { header: "When", cell: (c) => mono(when(c.getValue())) }),
+    col.accessor("createdAt", {
+      header: "When",
+      cell: (c) => <span className="whitespace-nowrap font-mono text-xs">{when(c.getValue())}</span>,
+    }),
     col.accessor("method", { header: "Method", cell: (c) => mono(c.getValue()) }),
     col.accessor("path", { header: "Path", cell: (c) => mono(c.getValue()) }),
     col.accessor("status", {

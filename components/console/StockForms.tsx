@@ -70,7 +70,7 @@ export function AdjustStockForm({ id, label }: { id: string; label: string }) {
   const router = useRouter();
   const form = useConsoleForm(adjustStockAction, { onSuccess: () => router.refresh(), resetOnSuccess: true });
   return (
-    <form onSubmit={form.onSubmit} className="flex flex-wrap items-start gap-1 text-xs" noValidate>
+    <form onSubmit={form.onSubmit} className="flex min-w-56 flex-wrap items-start gap-1 text-xs" noValidate>
       <input type="hidden" name="id" value={id} />
       <input name="delta" aria-label={`Change for ${label}`} placeholder="±n" className={`${input} w-14 py-0.5`} />
       <input name="reason" aria-label={`Reason for ${label}`} placeholder="reason" className={`${input} w-28 py-0.5`} />

@@ -131,7 +131,7 @@ export const PlanSummaryFiguresSchema = z
         }),
         lpSheets: z.number().int().nullable().openapi({
           description:
-            "The linear-programming bound over every two-stage pattern the shear can cut (all sheets planned together), rounded up; null when it was not computed (the area bound already proves the plan, the work budget was not given, or the plan is `partial`)",
+            "A bound from the linear program over every two-stage pattern the shear can cut (all sheets planned together), rounded up: the best the planner proved within its work budget. It reaches the linear program's optimum only when pricing can show that no pattern is left to improve it, so it can be weaker than `areaSheets` (with many small blanks, most of all); `lowerBoundSheets` takes the larger. Null when it was not computed (the area bound already proves the plan, the work budget was not given, or the plan is `partial`)",
         }),
       })
       .openapi({ description: "The lower bounds behind `lowerBoundSheets`" }),

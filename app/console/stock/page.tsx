@@ -94,10 +94,12 @@ export default async function Stock({
             const label = `${item.grade} ${item.thicknessMm} mm ${item.lengthMm} × ${item.widthMm}`;
             return (
               <tr key={item.id} data-testid="stock-row">
-                <Td>{KIND_WORDS[item.kind]}</Td>
+                <Td className="whitespace-nowrap">{KIND_WORDS[item.kind]}</Td>
                 <Td mono>{item.grade}</Td>
-                <Td mono>{item.thicknessMm} mm</Td>
-                <Td mono>
+                <Td mono className="whitespace-nowrap">
+                  {item.thicknessMm} mm
+                </Td>
+                <Td mono className="whitespace-nowrap">
                   {item.lengthMm} × {item.widthMm}
                 </Td>
                 <Td mono>{item.quantity}</Td>

@@ -204,7 +204,7 @@ function examplePlanSummary(status: "complete" | "failed" | "cancelled"): PlanSu
             estimateSeconds: 402.5,
             lowerBoundSheets: 2,
             provenFewest: true,
-            bounds: { areaSheets: 2, lpSheets: null },
+            bounds: { areaSheets: 2, apartSheets: 1, lpSheets: null },
             method: "greedy",
             methodNote: null,
           }

@@ -3,6 +3,7 @@
  * can state about itself. Every plan first places as much of what was asked as it can.
  */
 import type { PlanSetup } from "./candidates";
+import type { Variant } from "./presentation";
 import { quantities } from "./summary";
 import type { PlanBody } from "./summary";
 import { STROKES_UTILISATION_SLACK, type SheetPattern } from "./types";
@@ -84,4 +85,71 @@ export function areaBound(setup: PlanSetup, area: number): number {
       .map((way) => way.length * way.usableWidth),
   );
   return largest > 0 ? Math.ceil(area / largest) : 0;
+}
+
+/**
+ * Sheets any plan needs because some pieces cannot share a sheet. Two pieces share one only side by side,
+ * along it or across it (two rectangles that fit on a sheet can always be parted by one straight cut), so
+ * pieces no two of which fit side by side on any sheet on hand, either way round they may lie, each take a
+ * sheet of their own: a set of them, gathered greedily (any such set bounds the sheets), counts a sheet
+ * each. Gathered from the blanks whose own copies cannot share a sheet, the pieces that can share one with
+ * none of them need further sheets, at least their area's worth. The same reasoning about pieces larger
+ * than half the sheet underlies the classic lower bounds for two-dimensional bin packing (Martello and
+ * Vigo, 1998). `counts` are pieces per blank.
+ */
+export function apartBound(setup: PlanSetup, counts: number[]): number {
+  const ways = setup.presentations.filter((way) => setup.stock[way.stock].count !== 0);
+  const largest = Math.max(0, ...ways.map((way) => way.length * way.usableWidth));
+  if (largest === 0) return 0;
+  const variants = ways.map((way) => {
+    const of = new Map<number, Variant[]>();
+    for (const variant of way.variants) of.set(variant.blank, [...(of.get(variant.blank) ?? []), variant]);
+    return of;
+  });
+  const memo = new Map<number, boolean>();
+  const share = (a: number, b: number): boolean => {
+    const key = Math.min(a, b) * counts.length + Math.max(a, b);
+    let shared = memo.get(key);
+    if (shared === undefined) {
+      shared = ways.some((way, index) => {
+        const [first, second] = [variants[index].get(a), variants[index].get(b)];
+        return Boolean(
+          first?.some((one) =>
+            second?.some(
+              (other) =>
+                (one.length + other.length <= way.length && Math.max(one.width, other.width) <= way.usableWidth) ||
+                (one.width + other.width <= way.usableWidth && Math.max(one.length, other.length) <= way.length),
+            ),
+          ),
+        );
+      });
+      memo.set(key, shared);
+    }
+    return shared;
+  };
+  const present = counts.flatMap((count, blank) => (count > 0 ? [blank] : []));
+  const size = setup.blanks.map((blank) => [blank.length * blank.width, blank.length, blank.width]);
+  let best = 0;
+  for (const measure of [0, 1, 2]) {
+    const order = [...present].sort((a, b) => size[b][measure] - size[a][measure] || a - b);
+    // every blank that can share a sheet with none gathered so far: a sheet for each piece that cannot share with its own
+    const all: number[] = [];
+    let sheets = 0;
+    for (const blank of order)
+      if (all.every((other) => !share(blank, other))) {
+        all.push(blank);
+        sheets += share(blank, blank) ? 1 : counts[blank];
+      }
+    best = Math.max(best, sheets);
+    // only blanks whose copies cannot share, then the area of what can share a sheet with none of them
+    const alone = order.filter((blank) => !share(blank, blank));
+    const gathered: number[] = [];
+    for (const blank of alone) if (gathered.every((other) => !share(blank, other))) gathered.push(blank);
+    const apart = gathered.reduce((sum, blank) => sum + counts[blank], 0);
+    const rest = present
+      .filter((blank) => !gathered.includes(blank) && gathered.every((other) => !share(blank, other)))
+      .reduce((sum, blank) => sum + counts[blank] * size[blank][0], 0);
+    best = Math.max(best, apart + Math.ceil(rest / largest));
+  }
+  return best;
 }

@@ -224,7 +224,7 @@ export async function planOrder(
       estimateSeconds: round(estimateSeconds, 1),
       lowerBoundSheets: planned.lowerBound,
       provenFewest: planned.provenFewest,
-      bounds: { areaSheets: planned.bounds.area, lpSheets: planned.bounds.lp },
+      bounds: { areaSheets: planned.bounds.area, apartSheets: planned.bounds.apart, lpSheets: planned.bounds.lp },
       method: planned.method,
       methodNote: planned.methodNote,
     },

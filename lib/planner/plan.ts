@@ -20,7 +20,7 @@
  * together), `choice.ts` (which plan, and its bounds), `summary.ts` (the answer).
  */
 import { planSetup } from "./candidates";
-import { areaBound, placedArea, prefers } from "./choice";
+import { apartBound, areaBound, placedArea, prefers } from "./choice";
 import { LP_EPSILON } from "./column-generation";
 import { planGreedy } from "./greedy";
 import { loadLpSolver } from "./lp-solver";
@@ -63,7 +63,8 @@ export async function planBlanks(stock: Stock[], blanks: Blank[], options: PlanO
   let lpBound: number | null = null;
   const greedyComplete = placesAll(greedy.produced);
   const budget = options.columnGenerationBudget ?? PLAN_COLUMN_GENERATION_BUDGET;
-  const proven = greedyComplete && greedyPlan.sheetsUsed <= areaBound(setup, wantedArea);
+  const proven =
+    greedyComplete && greedyPlan.sheetsUsed <= Math.max(areaBound(setup, wantedArea), apartBound(setup, wanted));
   // Fewest strokes trades sheets for handling pattern by pattern; planning all sheets together serves the other objectives.
   const together = piecesWanted > 0 && !proven && setup.options.objective !== "fewest_strokes";
   if (together && budget <= 0)
@@ -101,12 +102,16 @@ export async function planBlanks(stock: Stock[], blanks: Blank[], options: PlanO
     report(chosen.patterns.length, produced);
   const complete = placesAll(chosen.produced);
   const area = areaBound(setup, placedArea(setup, chosen.produced));
-  const lowerBound = complete ? Math.max(area, lpBound ?? 0) : area;
+  const apart = apartBound(
+    setup,
+    chosen.produced.map((count, index) => Math.min(count, wanted[index])),
+  );
+  const lowerBound = Math.max(area, apart, complete ? (lpBound ?? 0) : 0);
   return {
     ...chosen,
     method,
     methodNote,
-    bounds: { area, lp: complete ? lpBound : null },
+    bounds: { area, apart, lp: complete ? lpBound : null },
     lowerBound,
     provenFewest: chosen.sheetsUsed <= lowerBound,
   };

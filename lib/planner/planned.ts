@@ -142,8 +142,8 @@ export interface PlannedOrder {
     lowerBoundSheets: number;
     /** the plan uses `lowerBoundSheets` sheets: provably the fewest */
     provenFewest: boolean;
-    /** the bounds behind `lowerBoundSheets`: blank area over the largest usable sheet, and the LP over all two-stage patterns (null when not computed, or the plan is partial) */
-    bounds: { areaSheets: number; lpSheets: number | null };
+    /** the bounds behind `lowerBoundSheets`: blank area over the largest usable sheet, pieces that cannot share a sheet, and the LP over all two-stage patterns (null when not computed, or the LP's when the plan is partial) */
+    bounds: { areaSheets: number; apartSheets: number | null; lpSheets: number | null };
     method: PlanMethod;
     /** why the work budget made the plan, or its last sheets, pattern by pattern; null when it did not */
     methodNote: string | null;

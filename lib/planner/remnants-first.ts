@@ -67,7 +67,7 @@ export async function planRemnantsFirst(
     turns: first.turns + second.turns,
     method: second.sheetsUsed > 0 ? second.method : first.method,
     methodNote: notes.filter(Boolean).join(" "),
-    bounds: { area: lowerBound, lp: null },
+    bounds: { area: lowerBound, apart: null, lp: null },
     lowerBound,
     provenFewest: sheetsUsed <= lowerBound,
   };

@@ -144,8 +144,11 @@ export interface Plan {
   method: PlanMethod;
   /** why the budget made the plan (or its last sheets) pattern by pattern; null when it did not */
   methodNote: string | null;
-  /** lower bounds on sheets: blank area over the largest sheet's usable area, and the LP bound rounded up (null when not computed) */
-  bounds: { area: number; lp: number | null };
+  /**
+   * lower bounds on sheets: blank area over the largest sheet's usable area; pieces that cannot share a sheet
+   * (`apartBound`; null when not computed); and the LP bound rounded up (null when not computed)
+   */
+  bounds: { area: number; apart: number | null; lp: number | null };
   /** no plan of two-stage patterns can cut the blanks this plan places (all it was asked for, when complete) from fewer sheets */
   lowerBound: number;
   /** the plan uses `lowerBound` sheets: provably the fewest */

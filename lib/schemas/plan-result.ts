@@ -117,7 +117,7 @@ export const PlanSummaryFiguresSchema = z
     estimateSeconds: z.number().openapi({ description: "The shear core's cycle estimate for every sheet of the plan" }),
     lowerBoundSheets: z.number().int().openapi({
       description:
-        "No plan of two-stage patterns (rip, then crosscut, then trim: the cuts this planner writes) can cut the blanks this plan places from fewer sheets; for a `complete` plan, everything asked for. The larger of `bounds.areaSheets` and `bounds.lpSheets`.",
+        "No plan of two-stage patterns (rip, then crosscut, then trim: the cuts this planner writes) can cut the blanks this plan places from fewer sheets; for a `complete` plan, everything asked for. The largest of `bounds.areaSheets`, `bounds.apartSheets` and `bounds.lpSheets`.",
       example: 2,
     }),
     provenFewest: z.boolean().openapi({
@@ -128,6 +128,11 @@ export const PlanSummaryFiguresSchema = z
         areaSheets: z.number().int().openapi({
           description:
             "The blank area placed over the largest usable sheet on hand (after the trim), rounded up: a bound for any way of cutting",
+        }),
+        apartSheets: z.number().int().nullable().openapi({
+          description:
+            "Pieces that cannot share a sheet: two pieces fit on one sheet only side by side (along or across it), so pieces no two of which fit side by side on any sheet on hand, either way round they may lie, each need a sheet of their own; with them, at least the area's worth of sheets for the pieces that can share a sheet with none of them. A bound for any way of cutting, and often the strongest for large blanks. Null when not computed (plans that cut remnants first, and plans stored before it was reported)",
+          example: 1,
         }),
         lpSheets: z.number().int().nullable().openapi({
           description:

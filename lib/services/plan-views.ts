@@ -53,7 +53,7 @@ export function planResultOf(order: PlanOrderT, planned: PlannedOrder): PlanResu
 const NO_BOUNDS = {
   lowerBoundSheets: 0,
   provenFewest: false,
-  bounds: { areaSheets: 0, lpSheets: null },
+  bounds: { areaSheets: 0, apartSheets: null, lpSheets: null },
   method: "greedy" as const,
   methodNote: "Planned before plans reported their lower bounds.",
 };
@@ -63,7 +63,12 @@ function normalised(stored: PlanResultT | null | undefined): PlanResultT | null 
   if (!stored) return null;
   return {
     ...stored,
-    summary: { ...NO_BOUNDS, ...stored.summary },
+    // plans stored before `apartSheets` was reported: not computed
+    summary: {
+      ...NO_BOUNDS,
+      ...stored.summary,
+      bounds: { ...NO_BOUNDS.bounds, ...stored.summary.bounds },
+    },
     patterns: stored.patterns.map((pattern) => ({
       ...pattern,
       strips: pattern.strips.map((strip) => ({

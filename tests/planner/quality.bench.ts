@@ -4,7 +4,7 @@
  * turnable; a shear whose blade and backgauge do not bind), the first instance of every 2D
  * bin-packing class and size (Berkey & Wang 1987, Martello & Vigo 1998) and the first two of every
  * Hopper (2000) category, all from `tests/fixtures/cutting/`. Printed per order: the area bound,
- * the LP bound (null when the area bound already proves the plan), Shearwire's sheets, those of
+ * the bound from pieces that cannot share a sheet, the LP bound (null when the area bound already proves the plan), Shearwire's sheets, those of
  * the pattern-by-pattern plan alone (no column generation), and the
  * bins of `maxrects-packer` (npm) as a reference, which packs without guillotine cuts: its
  * packing counts as cuttable on a shear only when every bin splits by edge-to-edge cuts
@@ -147,7 +147,7 @@ async function planAll(title: string, orders: Order[], limits: typeof FREE_SHEAR
   const line = (row: Row) => {
     const { plan } = row;
     const gap = plan.sheetsUsed - plan.lowerBound;
-    return `${row.order.name.padEnd(16)} ${String(row.order.blanks.length).padStart(3)} types  area ${String(plan.bounds.area).padStart(3)}  LP ${String(plan.bounds.lp ?? "-").padStart(3)}  Shearwire ${String(plan.sheetsUsed).padStart(3)}${gap ? ` (+${gap})` : "     "}  greedy alone ${String(row.greedy).padStart(3)}  maxrects ${String(row.maxrects.bins).padStart(3)}${row.maxrects.guillotine ? " guillotine" : "           "}  ${plan.method === "greedy" ? "greedy" : "c.g.  "} ${row.milliseconds.toFixed(0).padStart(6)} ms${plan.methodNote ? "  (budget ran out)" : ""}`;
+    return `${row.order.name.padEnd(16)} ${String(row.order.blanks.length).padStart(3)} types  area ${String(plan.bounds.area).padStart(3)}  apart ${String(plan.bounds.apart ?? "-").padStart(3)}  LP ${String(plan.bounds.lp ?? "-").padStart(3)}  Shearwire ${String(plan.sheetsUsed).padStart(3)}${gap ? ` (+${gap})` : "     "}  greedy alone ${String(row.greedy).padStart(3)}  maxrects ${String(row.maxrects.bins).padStart(3)}${row.maxrects.guillotine ? " guillotine" : "           "}  ${plan.method === "greedy" ? "greedy" : "c.g.  "} ${row.milliseconds.toFixed(0).padStart(6)} ms${plan.methodNote ? "  (budget ran out)" : ""}`;
   };
   console.log(`\n${title}\n  ${mine.map(line).join("\n  ")}\n  ${totals(mine)}`);
 }

@@ -108,7 +108,17 @@ export default async function PlanPage({ params }: { params: Promise<{ id: strin
         <Stat
           label="Sheets"
           value={totals.sheets}
-          hint={`${totals.patterns} pattern${totals.patterns === 1 ? "" : "s"}`}
+          hint={[
+            `${totals.patterns} pattern${totals.patterns === 1 ? "" : "s"}`,
+            // plans stored before bounds were reported state 0: nothing proved, nothing said
+            totals.provenFewest
+              ? "provably the fewest"
+              : totals.lowerBoundSheets > 0
+                ? `at least ${totals.lowerBoundSheets} needed`
+                : null,
+          ]
+            .filter(Boolean)
+            .join(" · ")}
         />
         <Stat
           label="Blanks"

@@ -15,7 +15,17 @@ import pg from "pg";
 import { benchDatabase } from "./lib/bench-setup";
 import { appEnv } from "./lib/env";
 import { cpuSnapshot } from "./lib/cpu";
-import { ensureBuild, daemon, daemonPid, startDaemon, startWeb, startWorker, stopDaemon, waitForHttp } from "./lib/web";
+import {
+  ensureBuild,
+  daemon,
+  daemonPid,
+  startDaemon,
+  startWeb,
+  startWorker,
+  stopDaemon,
+  waitForHttp,
+  webEnv,
+} from "./lib/web";
 
 const CONNECTIONS = 32;
 const SECONDS = Number(process.env.BENCH_SECONDS ?? 10);
@@ -111,7 +121,7 @@ for (const d of [web, worker, bareServer]) await stopDaemon(d);
 const profiled = (dir: string, script: string, ...args: string[]) =>
   ["--cpu-prof", `--cpu-prof-dir=${dir}`, "--import", "tsx", script, ...args] as string[];
 if (cpuProf)
-  startDaemon(web, process.execPath, profiled(cpuProf, "scripts/web-server.ts", "--port", String(PORT)), env);
+  startDaemon(web, process.execPath, profiled(cpuProf, "scripts/web-server.ts", "--port", String(PORT)), webEnv(env));
 else await startWeb(web, PORT, env);
 if (cpuProf) startDaemon(worker, process.execPath, profiled(`${cpuProf}/worker`, "scripts/worker.ts"), env);
 else startWorker(worker, env);

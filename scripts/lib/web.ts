@@ -75,11 +75,25 @@ export function ensureBuild(env: NodeJS.ProcessEnv, distDir: string) {
   if (process.env.BENCH_REBUILD === "1" || !existsSync(path.join(root, distDir, "BUILD_ID"))) buildApp(env);
 }
 
+/**
+ * V8 flags for the web server: a larger young generation (32 MB semi-spaces, 16 MB by default on this Node). Each
+ * request allocates its body, JSON and answer and drops them; with room for more of them, fewer collections run and
+ * fewer short-lived objects are copied into the old generation. Measured with `scripts/bench-api.ts` on 2 cores, two
+ * runs each way: the web server's CPU per health request 1.95–2.33 → 1.42–1.77 ms, per create 2.40–2.63 → 2.06–2.11 ms
+ * (health 482–570 → 627–785 req/s, create 381–417 → 464–474); a batch of 100 unchanged (~20 ms). Flags set in
+ * NODE_OPTIONS come after these, so they can override them.
+ */
+export const WEB_NODE_OPTIONS = "--max-semi-space-size=32";
+
+export function webEnv(env: NodeJS.ProcessEnv): NodeJS.ProcessEnv {
+  return { ...env, NODE_OPTIONS: [WEB_NODE_OPTIONS, env.NODE_OPTIONS].filter(Boolean).join(" ") };
+}
+
 export async function startWeb(service: Daemon, port: number, env: NodeJS.ProcessEnv) {
   if (await portInUse(port)) {
     throw new ServiceError(`port ${port} on 127.0.0.1 is busy with another program; stop it or set PORT`);
   }
-  startDaemon(service, bin("tsx"), [path.join(root, "scripts", "web-server.ts"), "--port", String(port)], env);
+  startDaemon(service, bin("tsx"), [path.join(root, "scripts", "web-server.ts"), "--port", String(port)], webEnv(env));
 }
 
 /** The worker process (webhooks, sweepers) in the background. */

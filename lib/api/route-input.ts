@@ -9,12 +9,45 @@ export type Location = "body" | "query" | "path" | "header";
 
 const escapePointer = (s: string | number | symbol) => String(s).replace(/~/g, "~0").replace(/\//g, "~1");
 
+const pointerOf = (path: PropertyKey[]) => (path.length ? `/${path.map(escapePointer).join("/")}` : "");
+
+/** An issue that says the value has another shape than a form of a union asks for: wrong as a whole, or lacking a key. */
+const structural = (issue: z.core.$ZodIssue) =>
+  issue.path.length === 0 || (issue.code === "invalid_type" && issue.message.endsWith("received undefined"));
+
+/** One form of a union, as what the value lacks or has too much of for it (`"value" required, unknown "mm"`). */
+function describeForm(issues: z.core.$ZodIssue[]): string {
+  return issues
+    .map((issue) => {
+      if (issue.code === "unrecognized_keys") return `unknown ${issue.keys.map((key) => `"${key}"`).join(", ")}`;
+      if (issue.code === "invalid_type" && issue.message.endsWith("received undefined") && issue.path.length)
+        return `"${issue.path.map(String).join("/")}" required`;
+      return `${pointerOf(issue.path)}${issue.path.length ? " " : ""}${issue.message}`;
+    })
+    .join(", ");
+}
+
+/**
+ * zod's issues as problem+json errors. A value that fits none of a union's forms says more than zod's
+ * "Invalid input": when one form fits its shape, that form's own issues (a gauge that is not whole); when
+ * none does, what each form lacks or does not know.
+ */
+function flatten(issue: z.core.$ZodIssue, prefix: PropertyKey[]): { pointer: string; message: string }[] {
+  const path = [...prefix, ...issue.path];
+  if (issue.code !== "invalid_union" || !issue.errors?.length)
+    return [{ pointer: pointerOf(path), message: issue.message }];
+  const fitting = issue.errors.filter((form) => form.length > 0 && !form.some(structural));
+  if (fitting.length === 1) return fitting[0].flatMap((inner) => flatten(inner, path));
+  const forms = [...new Set(issue.errors.map(describeForm))];
+  const message =
+    forms.length === 1
+      ? forms[0]
+      : `fits none of its ${forms.length} accepted forms: ${forms.map((form, index) => `(${index + 1}) ${form}`).join("; ")}`;
+  return [{ pointer: pointerOf(path), message }];
+}
+
 export function zodErrors(location: Location, error: z.ZodError) {
-  return error.issues.map((issue) => ({
-    location,
-    pointer: issue.path.length ? `/${issue.path.map(escapePointer).join("/")}` : "",
-    message: issue.message,
-  }));
+  return error.issues.flatMap((issue) => flatten(issue, []).map((one) => ({ location, ...one })));
 }
 
 const plural = (n: number, word: string) => `${n} ${word}${n === 1 ? "" : "s"}`;

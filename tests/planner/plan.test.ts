@@ -174,6 +174,30 @@ describe("planning blanks onto sheets", () => {
     expect(none.unplaced.map((u) => u.kind)).toEqual(["unplaceable", "unplaceable"]);
   });
 
+  it("a piece longer than the backgauge reaches is cut only after pieces that take the spare off first, and the rest are said to be why", async () => {
+    // 1300 > 1000: a 1300 × 700 panel is the last piece of its strip, left after 1200 of it went to other pieces
+    const stock: Stock[] = [{ length: 2500, width: 1250, count: null }];
+    const blanks: Blank[] = [
+      { label: "panel", length: 1300, width: 700, quantity: 10, canTurn: false },
+      { label: "tab", length: 100, width: 100, quantity: 20, canTurn: false },
+    ];
+    const plan = await planBlanks(stock, blanks, {
+      limits: { bladeLength: 3100, backgaugeMin: 5, backgaugeMax: 1000 },
+    });
+    checkPlan(plan, stock, blanks);
+    expect(plan.produced[0]).toBeGreaterThanOrEqual(1);
+    expect(plan.unplaced).toEqual([
+      {
+        blank: 0,
+        quantity: 10 - plan.produced[0],
+        kind: "unplaceable",
+        reason: expect.stringMatching(
+          new RegExp(`longer than the backgauge reaches \\(1000\\).*; ${plan.produced[0]} could be cut that way`),
+        ),
+      },
+    ]);
+  });
+
   it("over-production: never without an allowance, never beyond it, and said per blank", async () => {
     // 7 blanks 50 × 50 on 100 × 100 sheets: 4 per sheet, so 2 sheets hold 8; the eighth is an extra only with an allowance
     const stock: Stock[] = [{ length: 100, width: 100, count: null }];

@@ -11,17 +11,19 @@ const escapePointer = (s: string | number | symbol) => String(s).replace(/~/g, "
 
 const pointerOf = (path: PropertyKey[]) => (path.length ? `/${path.map(escapePointer).join("/")}` : "");
 
+/** zod's issue for a key the value lacks (an `invalid_type` that received nothing). */
+const missingKey = (issue: z.core.$ZodIssue) =>
+  issue.code === "invalid_type" && issue.path.length > 0 && issue.message.endsWith("received undefined");
+
 /** An issue that says the value has another shape than a form of a union asks for: wrong as a whole, or lacking a key. */
-const structural = (issue: z.core.$ZodIssue) =>
-  issue.path.length === 0 || (issue.code === "invalid_type" && issue.message.endsWith("received undefined"));
+const structural = (issue: z.core.$ZodIssue) => issue.path.length === 0 || missingKey(issue);
 
 /** One form of a union, as what the value lacks or has too much of for it (`"value" required, unknown "mm"`). */
 function describeForm(issues: z.core.$ZodIssue[]): string {
   return issues
     .map((issue) => {
       if (issue.code === "unrecognized_keys") return `unknown ${issue.keys.map((key) => `"${key}"`).join(", ")}`;
-      if (issue.code === "invalid_type" && issue.message.endsWith("received undefined") && issue.path.length)
-        return `"${issue.path.map(String).join("/")}" required`;
+      if (missingKey(issue)) return `"${issue.path.map(String).join("/")}" required`;
       return `${pointerOf(issue.path)}${issue.path.length ? " " : ""}${issue.message}`;
     })
     .join(", ");

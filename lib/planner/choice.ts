@@ -76,14 +76,16 @@ export function prefers(setup: PlanSetup, challenger: PlanBody, holder: PlanBody
   }
 }
 
+/** The ways the sheets on hand meet the blade (stock with a count of 0 is not on hand). */
+const onHandWays = (setup: PlanSetup) => setup.presentations.filter((way) => setup.stock[way.stock].count !== 0);
+
+/** The largest usable area of a sheet on hand (0: none). */
+const largestUsable = (setup: PlanSetup) =>
+  Math.max(0, ...onHandWays(setup).map((way) => way.length * way.usableWidth));
+
 /** Sheets any plan needs for this much blank area: on the largest usable sheet on hand, no fewer. */
 export function areaBound(setup: PlanSetup, area: number): number {
-  const largest = Math.max(
-    0,
-    ...setup.presentations
-      .filter((way) => setup.stock[way.stock].count !== 0)
-      .map((way) => way.length * way.usableWidth),
-  );
+  const largest = largestUsable(setup);
   return largest > 0 ? Math.ceil(area / largest) : 0;
 }
 
@@ -98,8 +100,8 @@ export function areaBound(setup: PlanSetup, area: number): number {
  * Vigo, 1998). `counts` are pieces per blank.
  */
 export function apartBound(setup: PlanSetup, counts: number[]): number {
-  const ways = setup.presentations.filter((way) => setup.stock[way.stock].count !== 0);
-  const largest = Math.max(0, ...ways.map((way) => way.length * way.usableWidth));
+  const ways = onHandWays(setup);
+  const largest = largestUsable(setup);
   if (largest === 0) return 0;
   const variants = ways.map((way) => {
     const of = new Map<number, Variant[]>();

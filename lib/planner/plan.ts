@@ -63,8 +63,8 @@ export async function planBlanks(stock: Stock[], blanks: Blank[], options: PlanO
   let lpBound: number | null = null;
   const greedyComplete = placesAll(greedy.produced);
   const budget = options.columnGenerationBudget ?? PLAN_COLUMN_GENERATION_BUDGET;
-  const proven =
-    greedyComplete && greedyPlan.sheetsUsed <= Math.max(areaBound(setup, wantedArea), apartBound(setup, wanted));
+  const apartWanted = apartBound(setup, wanted);
+  const proven = greedyComplete && greedyPlan.sheetsUsed <= Math.max(areaBound(setup, wantedArea), apartWanted);
   // Fewest strokes trades sheets for handling pattern by pattern; planning all sheets together serves the other objectives.
   const together = piecesWanted > 0 && !proven && setup.options.objective !== "fewest_strokes";
   if (together && budget <= 0)
@@ -102,10 +102,13 @@ export async function planBlanks(stock: Stock[], blanks: Blank[], options: PlanO
     report(chosen.patterns.length, produced);
   const complete = placesAll(chosen.produced);
   const area = areaBound(setup, placedArea(setup, chosen.produced));
-  const apart = apartBound(
-    setup,
-    chosen.produced.map((count, index) => Math.min(count, wanted[index])),
-  );
+  // a complete plan places what was wanted, whose bound is known; a partial one is bounded on what it places
+  const apart = complete
+    ? apartWanted
+    : apartBound(
+        setup,
+        chosen.produced.map((count, index) => Math.min(count, wanted[index])),
+      );
   const lowerBound = Math.max(area, apart, complete ? (lpBound ?? 0) : 0);
   return {
     ...chosen,

@@ -83,10 +83,9 @@ export function assemblePlan(setup: PlanSetup, unmerged: SheetPattern[], produce
             quantity: short,
             kind: "unplaceable",
             reason:
-              Math.min(blanks[index].length, blanks[index].width) > setup.gauge.max ||
-              (Math.max(blanks[index].length, blanks[index].width) > setup.gauge.max && produced[index] > 0)
-                ? // Longer than the backgauge reaches: only ever the last piece of a strip, once pieces before it took the spare.
-                  `${show(blanks[index].length)} × ${show(blanks[index].width)} is longer than the backgauge reaches (${show(setup.gauge.max)}), so it is cut only as the last piece of a strip or sheet, after pieces that take the spare off first; ${produced[index]} could be cut that way, the rest had no such pieces before them (front gauging is not planned)`
+              // longer than the backgauge reaches: only ever the last piece of a strip, once pieces before it took the spare
+              Math.max(blanks[index].length, blanks[index].width) > setup.gauge.max
+                ? `${show(blanks[index].length)} × ${show(blanks[index].width)} is longer than the backgauge reaches (${show(setup.gauge.max)}), so it is cut only as the last piece of a strip or sheet, after pieces that take the spare off first; ${produced[index]} could be cut that way, the rest had no such pieces before them (front gauging is not planned)`
                 : `${show(blanks[index].length)} × ${show(blanks[index].width)} cannot be cut from any of the stock sheets within the backgauge's travel`,
           },
     );

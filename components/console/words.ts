@@ -51,3 +51,22 @@ export const GAUGE_SYSTEM_WORDS: Record<string, string> = {
   ussg: "US Standard Gauge (1893): stainless sheet",
   awg: "American Wire Gauge (Brown & Sharpe): aluminium and copper sheet",
 };
+
+/** What a plan's sheet count is worth, from the bounds it states (the fields the plan's `summary` carries). */
+export interface SheetBounds {
+  lowerBoundSheets: number;
+  provenFewest: boolean;
+  bounds: { areaSheets: number; apartSheets: number | null };
+}
+
+/**
+ * "provably the fewest" or "at least N needed", said only for two-stage cutting when the LP bound, which holds
+ * for the two-stage patterns the planner writes and not for every way of cutting, is what proves it; nothing for
+ * plans stored before bounds were reported (0).
+ */
+export function sheetsHint({ lowerBoundSheets, provenFewest, bounds }: SheetBounds): string | null {
+  if (lowerBoundSheets <= 0) return null;
+  const claim = provenFewest ? "provably the fewest" : `at least ${lowerBoundSheets} needed`;
+  const anyCutting = Math.max(bounds.areaSheets, bounds.apartSheets ?? 0) >= lowerBoundSheets;
+  return anyCutting ? claim : `${claim} in two-stage cuts`;
+}

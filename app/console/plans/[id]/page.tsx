@@ -3,7 +3,7 @@ import { notFound } from "next/navigation";
 import { CutDrawing } from "@/components/console/CutDrawing";
 import { WritePrograms } from "@/components/console/PlanActions";
 import { PlanProgress } from "@/components/console/PlanProgress";
-import { groupName } from "@/components/console/words";
+import { groupName, sheetsHint } from "@/components/console/words";
 import { SafetyNote } from "@/components/SafetyNote";
 import { RoutingNote } from "@/components/console/RoutingNote";
 import { Badge, PageHeader, Stat, Table, Td } from "@/components/ui";
@@ -108,15 +108,7 @@ export default async function PlanPage({ params }: { params: Promise<{ id: strin
         <Stat
           label="Sheets"
           value={totals.sheets}
-          hint={[
-            `${totals.patterns} pattern${totals.patterns === 1 ? "" : "s"}`,
-            // plans stored before bounds were reported state 0: nothing proved, nothing said
-            totals.provenFewest
-              ? "provably the fewest"
-              : totals.lowerBoundSheets > 0
-                ? `at least ${totals.lowerBoundSheets} needed`
-                : null,
-          ]
+          hint={[`${totals.patterns} pattern${totals.patterns === 1 ? "" : "s"}`, sheetsHint(totals)]
             .filter(Boolean)
             .join(" · ")}
         />

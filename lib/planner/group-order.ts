@@ -3,8 +3,42 @@
  * that the piece flow's remnant rule makes exactly what the pattern shows: after a group's
  * strokes the workpiece left must not be the group's size (it would become one more piece),
  * and a group beyond the backgauge's reach can only be the last piece, named as the remnant.
- * When no order works, a lead-off cut takes spare off first.
+ * When no order works, a lead-off takes spare off first: one stroke, or, when the spare is more
+ * than the backgauge reaches, several (a piece beyond the reach is then what is left in front of
+ * the blade once everything behind it is cut off).
  */
+
+/** Strokes of one size, cut one after another. */
+export interface Strokes {
+  size: number;
+  count: number;
+}
+
+/**
+ * A lead-off as strokes within the backgauge's travel: one when it reaches; else as many at the
+ * farthest setting as fit and then the rest, so the spare comes off in the largest pieces the
+ * backgauge allows (kept offcuts are worth more large). A rest shorter than the nearest setting
+ * takes what it lacks from the stroke before it. Null when no strokes within the travel add up to it.
+ */
+export function leadStrokes(lead: number, gauge: { min: number; max: number }): Strokes[] | null {
+  if (lead <= 0) return [];
+  if (lead <= gauge.max) return [{ size: lead, count: 1 }];
+  const full = Math.floor(lead / gauge.max);
+  const rest = lead - full * gauge.max;
+  if (rest === 0) return [{ size: gauge.max, count: full }];
+  if (rest >= gauge.min)
+    return [
+      { size: gauge.max, count: full },
+      { size: rest, count: 1 },
+    ];
+  const shortened = gauge.max - (gauge.min - rest);
+  if (shortened < gauge.min) return null;
+  return [
+    ...(full > 1 ? [{ size: gauge.max, count: full - 1 }] : []),
+    { size: shortened, count: 1 },
+    { size: gauge.min, count: 1 },
+  ];
+}
 
 /**
  * An order of groups (each `count` pieces of `size` cut off a workpiece `total` long) that the
@@ -50,10 +84,14 @@ export function arrange<T extends { size: number; count: number }>(
   return search(total) ? order : null;
 }
 
-/** Lead-off lengths to try: none, then the whole spare, then parts of it; the whole cut (with the trim) stays within the backgauge's travel. */
+/**
+ * Lead-off lengths to try: none, then the whole spare, then parts of it, each (with the trim) one cut within the
+ * backgauge's travel; last, the whole spare in several strokes when one cannot take it.
+ */
 function leads(spare: number, fixedLead: number, gauge: { min: number; max: number }, tolerance: number): number[] {
   const out = [0];
   if (spare <= tolerance) return out;
+  const several = fixedLead + spare > gauge.max && leadStrokes(fixedLead + spare, gauge) !== null;
   const low = Math.max(1, gauge.min - fixedLead);
   const candidates = [
     spare,
@@ -70,6 +108,7 @@ function leads(spare: number, fixedLead: number, gauge: { min: number; max: numb
     if (candidate >= low && candidate <= spare && fixedLead + candidate <= gauge.max && !out.includes(candidate))
       out.push(candidate);
   }
+  if (several) out.push(spare);
   return out;
 }
 
@@ -84,7 +123,8 @@ export function arrangeWithLead<T extends { size: number; count: number }>(
   const used = items.reduce((sum, item) => sum + item.size * item.count, 0);
   for (const extra of leads(total - fixedLead - used, fixedLead, gauge, tolerance)) {
     const lead = fixedLead + extra;
-    if (lead > 0 && Math.abs(total - lead - lead) <= tolerance) continue; // the rest would become lead-off too
+    const last = leadStrokes(lead, gauge)?.at(-1)?.size ?? lead;
+    if (lead > 0 && Math.abs(total - lead - last) <= tolerance) continue; // the rest would become lead-off too
     const order = arrange(items, total - lead, tolerance, gauge.max);
     if (order) return { order, lead };
   }

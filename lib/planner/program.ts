@@ -12,8 +12,10 @@
  * and `null` says none worked. Pure: no I/O; integer dimensions (the planner's grid).
  */
 import { REMNANT_TOLERANCE_MM, simulateFlow, type FlowCut } from "../shear/flow";
-import { arrangeWithLead } from "./group-order";
+import { arrangeWithLead, leadStrokes } from "./group-order";
 import type { Leftover, PieceIn, PlacedPiece, PlacedStrip, PlanCut, StripIn, WrittenPattern } from "./written";
+
+type Gauge = { min: number; max: number };
 
 interface Segment {
   length: number;
@@ -56,11 +58,31 @@ interface Layout {
   kinds: (Kind & { lead: number })[];
 }
 
+/**
+ * A lead-off's cut groups (scrap): one stroke when the backgauge reaches it, else the strokes `leadStrokes` gives
+ * (`arrangeWithLead` proposes no lead-off it cannot split), the note saying how the spare is taken.
+ */
+function leadOff(lead: number, gauge: Gauge, note: string, show: (value: number) => string): PlanCut[] {
+  const strokes = leadStrokes(lead, gauge) ?? [{ size: lead, count: 1 }];
+  if (strokes.length === 1 && strokes[0].count === 1) return [{ backgauge: lead, count: 1, scrap: true, note }];
+  const total = strokes.reduce((sum, group) => sum + group.count, 0);
+  return strokes.map((group, index) => ({
+    backgauge: group.size,
+    count: group.count,
+    scrap: true,
+    note:
+      index === 0
+        ? `${note}, in ${total} strokes (more than the backgauge reaches at once): ${group.count} × ${show(group.size)}`
+        : `then ${group.count} × ${show(group.size)}${index === strokes.length - 1 ? ", the rest of that spare" : ""}`,
+  }));
+}
+
 function emit(
   sheet: { length: number; width: number },
   trim: number,
   layout: Layout,
   tolerance: number,
+  gauge: Gauge,
   show: (value: number) => string,
 ): { cuts: PlanCut[]; strips: PlacedStrip[]; leftovers: Leftover[] } {
   const cuts: PlanCut[] = [];
@@ -74,8 +96,20 @@ function emit(
         : lead === trim
           ? "trim the first edge"
           : `cut off ${show(lead)} of the sheet's spare width first`;
-    cuts.push({ backgauge: lead, count: 1, scrap: true, note });
-    leftovers.push({ x: 0, y: 0, length: sheet.length, width: lead, kind: lead > trim ? "sheet-end" : "trim" });
+    let y = 0;
+    leadOff(lead, gauge, note, show).forEach((cut) => {
+      cuts.push(cut);
+      for (let stroke = 0; stroke < cut.count; stroke++) {
+        leftovers.push({
+          x: 0,
+          y,
+          length: sheet.length,
+          width: cut.backgauge,
+          kind: lead > trim ? "sheet-end" : "trim",
+        });
+        y += cut.backgauge;
+      }
+    });
   }
   const usable = sheet.width - lead;
   const used = kinds.reduce((sum, kind) => sum + kind.width * kind.count, 0);
@@ -102,16 +136,19 @@ function emit(
       cut.turn = true;
       if (ripAt[kindIndex] !== cuts.length - 1) cut.from = ripAt[kindIndex];
     };
-    if (kind.lead > 0) {
-      const cut: PlanCut = {
-        backgauge: kind.lead,
-        count: 1,
-        scrap: true,
-        note: `turn the ${show(kind.width)} strips; cut off ${show(kind.lead)} of their spare length first`,
-      };
-      turnFrom(cut);
+    const kindLead =
+      kind.lead > 0
+        ? leadOff(
+            kind.lead,
+            gauge,
+            `turn the ${show(kind.width)} strips; cut off ${show(kind.lead)} of their spare length first`,
+            show,
+          )
+        : [];
+    kindLead.forEach((cut, index) => {
+      if (index === 0) turnFrom(cut);
       cuts.push(cut);
-    }
+    });
     kind.segments.forEach((segment, segmentIndex) => {
       const remnant = segmentIndex === kind.segments.length - 1 && full;
       const cut: PlanCut = {
@@ -137,10 +174,11 @@ function emit(
     }
     for (let copy = 0; copy < kind.count; copy++) {
       let x = 0;
-      if (kind.lead > 0) {
-        leftovers.push({ x: 0, y, length: kind.lead, width: kind.width, kind: "strip-end" });
-        x = kind.lead;
-      }
+      for (const cut of kindLead)
+        for (let stroke = 0; stroke < cut.count; stroke++) {
+          leftovers.push({ x, y, length: cut.backgauge, width: kind.width, kind: "strip-end" });
+          x += cut.backgauge;
+        }
       const pieces: PlacedPiece[] = [];
       const own = [...kind.instances[copy]]; // this strip's own blanks, handed out in cutting order
       for (const segment of kind.segments) {
@@ -220,7 +258,7 @@ export function writePattern(
     if (kinds.length === rip.order.length) layouts.push({ lead: rip.lead, kinds });
   }
   for (const layout of layouts) {
-    const written = emit(sheet, trim, layout, tolerance, show);
+    const written = emit(sheet, trim, layout, tolerance, gauge, show);
     // Every stroke is gauged within the travel (a trim the caller asked for is theirs, and reported).
     if (
       written.cuts.some(

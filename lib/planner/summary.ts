@@ -83,9 +83,10 @@ export function assemblePlan(setup: PlanSetup, unmerged: SheetPattern[], produce
             quantity: short,
             kind: "unplaceable",
             reason:
-              // longer than the backgauge reaches: only ever the last piece of a strip, once pieces before it took the spare
+              // longer than the backgauge reaches: only ever what is left of a strip or sheet, and here the spare
+              // cannot be cut off within the travel (strokes too short for the nearest setting) unless pieces take it
               Math.max(blanks[index].length, blanks[index].width) > setup.gauge.max
-                ? `${show(blanks[index].length)} × ${show(blanks[index].width)} is longer than the backgauge reaches (${show(setup.gauge.max)}), so it is cut only as the last piece of a strip or sheet, after pieces that take the spare off first; ${produced[index]} could be cut that way, the rest had no such pieces before them (front gauging is not planned)`
+                ? `${show(blanks[index].length)} × ${show(blanks[index].width)} is longer than the backgauge reaches (${show(setup.gauge.max)}), so it can only be what is left of a strip or sheet once everything behind it is cut off, and the spare behind it cannot be cut off in strokes within the backgauge's travel (${show(setup.gauge.min)} to ${show(setup.gauge.max)}); ${produced[index]} could be cut after other pieces took that spare (front gauging is not planned)`
                 : `${show(blanks[index].length)} × ${show(blanks[index].width)} cannot be cut from any of the stock sheets within the backgauge's travel`,
           },
     );

@@ -174,8 +174,8 @@ describe("planning blanks onto sheets", () => {
     expect(none.unplaced.map((u) => u.kind)).toEqual(["unplaceable", "unplaceable"]);
   });
 
-  it("a piece longer than the backgauge reaches is cut only after pieces that take the spare off first, and the rest are said to be why", async () => {
-    // 1300 > 1000: a 1300 × 700 panel is the last piece of its strip, left after 1200 of it went to other pieces
+  it("a piece longer than the backgauge reaches is what is left once the spare behind it is cut off, in several strokes when one cannot reach", async () => {
+    // 1300 > 1000: a 1300 × 700 panel is the last piece of its 2500 strip, the 1200 behind it cut off as 1000 + 200
     const stock: Stock[] = [{ length: 2500, width: 1250, count: null }];
     const blanks: Blank[] = [
       { label: "panel", length: 1300, width: 700, quantity: 10, canTurn: false },
@@ -185,14 +185,41 @@ describe("planning blanks onto sheets", () => {
       limits: { bladeLength: 3100, backgaugeMin: 5, backgaugeMax: 1000 },
     });
     checkPlan(plan, stock, blanks);
-    expect(plan.produced[0]).toBeGreaterThanOrEqual(1);
+    expect(plan.unplaced).toEqual([]);
+    // no two panels share a sheet (1300 + 1300 > 2500, 700 + 700 > 1250): 10 sheets, provably the fewest
+    expect(plan.sheetsUsed).toBe(10);
+    expect(plan.provenFewest).toBe(true);
+    for (const p of plan.patterns)
+      for (const c of p.cuts) if (c.count > 0) expect(c.backgauge).toBeLessThanOrEqual(1000);
+    const lead = plan.patterns.flatMap((p) => p.cuts).filter((c) => c.scrap && c.turn);
+    expect(lead.length).toBeGreaterThan(0);
+    const cuts = plan.patterns.find((p) => p.cuts.some((c) => c.scrap && c.turn))!.cuts;
+    const first = cuts.findIndex((c) => c.scrap && c.turn);
+    expect(cuts.slice(first, first + 2).map((c) => [c.backgauge, c.count, c.scrap])).toEqual([
+      [1000, 1, true],
+      [200, 1, true],
+    ]);
+    expect(cuts[first + 2]).toMatchObject({ backgauge: 1300, count: 0 }); // the panel is what is left, no stroke
+    // the spare behind each panel is kept as a 1000 × 700 offcut and a 200 × 700 one
+    const ends = plan.patterns[0].offcuts.filter((o) => o.kind === "strip-end" && o.width === 700).map((o) => o.length);
+    expect(ends.slice(0, 2)).toEqual([1000, 200]);
+  });
+
+  it("a piece beyond the reach whose spare cannot be cut within the travel is refused with the reason", async () => {
+    // spare 2400 - 1300 = 1100: one stroke reaches at most 1000, two are at least 2 × 600 = 1200
+    const stock: Stock[] = [{ length: 2400, width: 1250, count: null }];
+    const blanks: Blank[] = [{ label: "panel", length: 1300, width: 700, quantity: 2, canTurn: false }];
+    const plan = await planBlanks(stock, blanks, {
+      limits: { bladeLength: 3100, backgaugeMin: 600, backgaugeMax: 1000 },
+    });
+    checkPlan(plan, stock, blanks);
     expect(plan.unplaced).toEqual([
       {
         blank: 0,
-        quantity: 10 - plan.produced[0],
+        quantity: 2,
         kind: "unplaceable",
         reason: expect.stringMatching(
-          new RegExp(`longer than the backgauge reaches \\(1000\\).*; ${plan.produced[0]} could be cut that way`),
+          /longer than the backgauge reaches \(1000\).*cannot be cut off in strokes within the backgauge's travel \(600 to 1000\); 0 could be cut/,
         ),
       },
     ]);

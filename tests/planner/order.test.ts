@@ -5,6 +5,7 @@
 import { describe, expect, it } from "vitest";
 import { planOrder, type Order } from "../../lib/planner/order";
 import type { PlanProgress } from "../../lib/planner/plan";
+import { findGrade } from "../../lib/shear/grades";
 import { DEMO_SHEAR } from "../shear/fixtures";
 
 const base = { shear: "shr_demo", grade: "A36", thickness: { gauge: 10 } } as const;
@@ -78,5 +79,26 @@ describe("planning an order", () => {
       provenFewest: true,
       bounds: { areaSheets: 1, lpSheets: null },
     });
+  });
+
+  it("panels longer than the backgauge reaches: the programs take the spare off in strokes within the travel and pass the shear core's check", async () => {
+    // DEMO_SHEAR's backgauge reaches 1000 mm; each 1300 mm panel is what is left of its 2500 mm strip
+    const order: Order = {
+      ...base,
+      thickness: { value: 3 },
+      units: "mm",
+      stock: [{ length: 2500, width: 1250 }],
+      blanks: [
+        { label: "panel", length: 1300, width: 700, quantity: 10, canTurn: false },
+        { label: "tab", length: 100, width: 100, quantity: 20, canTurn: false },
+      ],
+    };
+    const planned = await planOrder(order, { shear: DEMO_SHEAR, grade: findGrade("A36") });
+    expect(planned.summary).toMatchObject({ sheets: 10, provenFewest: true });
+    expect(planned.findings.filter((finding) => finding.code === "pattern_not_releasable")).toEqual([]);
+    for (const pattern of planned.patterns) {
+      expect(pattern.check.findings.filter((finding) => finding.severity === "error")).toEqual([]);
+      for (const cut of pattern.cuts) if (cut.count > 0) expect(cut.backgauge).toBeLessThanOrEqual(1000);
+    }
   });
 });

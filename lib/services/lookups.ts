@@ -10,6 +10,7 @@ import { Grade, Program, Shear } from "../../entities";
 import { batchedLookup } from "../db/batched-lookup";
 import { runPrepared } from "../db/prepared";
 import type { GradeRecord, ShearRecord } from "./catalog";
+import { readsOf } from "../db/reads";
 
 const SHEAR_ID = /^shr_[0-9A-Z]{26}$/;
 const SEP = "\u0000";
@@ -104,14 +105,16 @@ async function each<V>(lookup: Lookup<V>, shopId: string, keys: string[]): Promi
 export async function shearsNamed(em: EntityManager, shopId: string, keys: string[]) {
   const ids = [...new Set(keys.filter((k) => SHEAR_ID.test(k)))];
   const byName = keys.some((k) => !SHEAR_ID.test(k));
-  const [withIds, inUse] = await Promise.all([
-    !ids.length
-      ? new Map<string, ShearRecord>()
-      : em.isInTransaction()
-        ? em.find(Shear, { id: { $in: ids }, shop: shopId }).then((f) => new Map(f.map((s) => [s.id, s])))
-        : each(lookups(em).shear, shopId, ids),
-    byName ? em.find(Shear, { shop: shopId, archivedAt: null }) : [],
-  ]);
+  const [withIds, inUse] = await readsOf(
+    em,
+    async () =>
+      !ids.length
+        ? new Map<string, ShearRecord>()
+        : em.isInTransaction()
+          ? em.find(Shear, { id: { $in: ids }, shop: shopId }).then((f) => new Map(f.map((s) => [s.id, s])))
+          : each(lookups(em).shear, shopId, ids),
+    async () => (byName ? em.find(Shear, { shop: shopId, archivedAt: null }) : []),
+  );
   const found = new Map<string, ShearRecord>(withIds);
   for (const s of inUse) found.set(s.name.trim().toLowerCase(), s);
   return (key: string) => found.get(SHEAR_ID.test(key) ? key : key.toLowerCase()) ?? null;

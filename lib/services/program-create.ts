@@ -19,6 +19,7 @@ import { OUTBOX_CHANNEL } from "./events";
 import { existingReferences, gradesByCode, shearsNamed } from "./lookups";
 import { viewProgram, type ProgramRecord } from "./program-view";
 import { routeProgram } from "./routing";
+import { readsOf } from "../db/reads";
 
 export const DEFAULT_PRIORITY = 5;
 
@@ -69,25 +70,29 @@ export async function checkPrograms(
   inputs: ProgramInputT[],
   { references = true }: { references?: boolean } = {},
 ): Promise<(Checked | ApiError)[]> {
-  const [shearOf, gradeOf, existing] = await Promise.all([
-    shearsNamed(
-      em,
-      shopId,
-      inputs.flatMap((i) => (i.shear === undefined ? [] : [i.shear.trim()])),
-    ),
-    gradesByCode(
-      em,
-      shopId,
-      inputs.map((i) => i.grade),
-    ),
-    references
-      ? existingReferences(
-          em,
-          shopId,
-          inputs.map((i) => i.reference),
-        )
-      : new Map<string, string>(),
-  ]);
+  const [shearOf, gradeOf, existing] = await readsOf(
+    em,
+    () =>
+      shearsNamed(
+        em,
+        shopId,
+        inputs.flatMap((i) => (i.shear === undefined ? [] : [i.shear.trim()])),
+      ),
+    () =>
+      gradesByCode(
+        em,
+        shopId,
+        inputs.map((i) => i.grade),
+      ),
+    async () =>
+      references
+        ? existingReferences(
+            em,
+            shopId,
+            inputs.map((i) => i.reference),
+          )
+        : new Map<string, string>(),
+  );
   const checked: (Checked | ApiError)[] = [];
   for (const input of inputs) {
     const existingId = existing.get(input.reference);

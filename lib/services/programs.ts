@@ -19,6 +19,7 @@ import { applyInput, duplicateReference, shearRefusal } from "./program-create";
 import { viewProgram } from "./program-view";
 import { activeShear, routeProgram } from "./routing";
 import { releaseForProgram } from "./stock";
+import { readsOf } from "../db/reads";
 
 export { createProgram } from "./program-create";
 
@@ -41,10 +42,11 @@ export async function runCheck(
     input.shear = routed.shear.id;
     return routed;
   }
-  const [shear, grade] = await Promise.all([
-    activeShear(em, shopId, input.shear),
-    gradeByCode(em, shopId, input.grade),
-  ]);
+  const [shear, grade] = await readsOf(
+    em,
+    () => activeShear(em, shopId, input.shear!),
+    () => gradeByCode(em, shopId, input.grade),
+  );
   const check = checkProgram(input, { shear: shearProfile(shear), grade: grade ? gradeProfile(grade) : null });
   // A shear named by name is stored by id: renaming it later changes nothing about the program.
   input.shear = shear.id;
@@ -65,10 +67,11 @@ export async function validateProgram(
     return { ...(check as CheckT), routing };
   }
   const key = input.shear.trim();
-  const [shearOf, grades] = await Promise.all([
-    shearsNamed(em, shopId, [key]),
-    gradesByCode(em, shopId, [input.grade]),
-  ]);
+  const [shearOf, grades] = await readsOf(
+    em,
+    () => shearsNamed(em, shopId, [key]),
+    () => gradesByCode(em, shopId, [input.grade]),
+  );
   const shear = shearOf(key);
   if (!shear || shear.archivedAt) throw shearRefusal("program", Boolean(shear));
   const grade = grades.get(input.grade);

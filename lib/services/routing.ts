@@ -14,6 +14,7 @@ import type { ProgramInputT } from "../schemas/program";
 import type { RoutingT } from "../schemas/settings";
 import { checkProgram, lengthToMm, roundTo, type CheckResult, type LengthUnit } from "../shear";
 import { gradeByCode, gradeProfile, shearProfile } from "./catalog";
+import { readsOf } from "../db/reads";
 
 /** The reasons shown for a shear that cannot cut: its first few errors. */
 const REASONS_SHOWN = 3;
@@ -165,11 +166,12 @@ async function rankShears(
   gradeCode: string,
   judge: (shear: ShearEntity, grade: ReturnType<typeof gradeProfile> | null) => Omit<Candidate, "shear" | "released">,
 ) {
-  const [shears, grade, shop] = await Promise.all([
-    activeShears(em, shopId),
-    gradeByCode(em, shopId, gradeCode),
-    em.findOneOrFail(Shop, { id: shopId }, { fields: ["routingRule"] }),
-  ]);
+  const [shears, grade, shop] = await readsOf(
+    em,
+    () => activeShears(em, shopId),
+    () => gradeByCode(em, shopId, gradeCode),
+    () => em.findOneOrFail(Shop, { id: shopId }, { fields: ["routingRule"] }),
+  );
   const released = await releasedCounts(
     em,
     shears.map((s) => s.id),

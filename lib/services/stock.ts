@@ -18,6 +18,7 @@ import type {
 } from "../schemas/stock";
 import type { StockKind } from "../schemas/enums";
 import { recordEvent } from "./events";
+import { readsOf } from "../db/reads";
 
 const iso = (d: Date | null | undefined) => d?.toISOString() ?? null;
 
@@ -249,10 +250,11 @@ async function releaseWhere(tx: EntityManager, shopId: string, where: string, pa
       row.quantity,
       row.item_id,
     ]);
-    const [item, reservation] = await Promise.all([
-      findStockItem(tx, shopId, row.item_id),
-      tx.findOneOrFail(StockReservation, { id: row.id }, { refresh: true }),
-    ]);
+    const [item, reservation] = await readsOf(
+      tx,
+      () => findStockItem(tx, shopId, row.item_id),
+      () => tx.findOneOrFail(StockReservation, { id: row.id }, { refresh: true }),
+    );
     const view = viewReservation(reservation);
     await recordEvent(tx, shopId, "stock.released", row.item_id, {
       item: viewStockItem(item),

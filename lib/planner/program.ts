@@ -97,7 +97,11 @@ function emit(
           ? "trim the first edge"
           : `cut off ${show(lead)} of the sheet's spare width first`;
     let y = 0;
-    leadOff(lead, gauge, note, show).forEach((cut) => {
+    // a trim alone is the caller's one cut, as asked (outside the travel it is reported, not split)
+    (lead === trim
+      ? [{ backgauge: lead, count: 1, scrap: true as const, note }]
+      : leadOff(lead, gauge, note, show)
+    ).forEach((cut) => {
       cuts.push(cut);
       for (let stroke = 0; stroke < cut.count; stroke++) {
         leftovers.push({

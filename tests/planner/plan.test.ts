@@ -205,6 +205,30 @@ describe("planning blanks onto sheets", () => {
     expect(ends.slice(0, 2)).toEqual([1000, 200]);
   });
 
+  it("across the sheet too: a strip wider than the backgauge reaches is what is left once the sheet's spare comes off in strokes", async () => {
+    // 2500 − 1300 = 1200 of the sheet's width before the 1300 strip: 1000 + 200; then 100 off the strip's 3000 length
+    const stock: Stock[] = [{ length: 3000, width: 2500, count: null }];
+    const blanks: Blank[] = [{ label: "plate", length: 2900, width: 1300, quantity: 2, canTurn: false }];
+    const plan = await planBlanks(stock, blanks, {
+      limits: { bladeLength: 3100, backgaugeMin: 5, backgaugeMax: 1000 },
+    });
+    checkPlan(plan, stock, blanks);
+    expect(plan.unplaced).toEqual([]);
+    expect(plan.sheetsUsed).toBe(2);
+    const [pattern] = plan.patterns;
+    expect(pattern.cuts.map((c) => [c.backgauge, c.count, c.scrap === true, c.turn === true])).toEqual([
+      [1000, 1, true, false],
+      [200, 1, true, false],
+      [1300, 0, false, false],
+      [100, 1, true, true],
+      [2900, 0, false, false],
+    ]);
+    expect(pattern.offcuts.filter((o) => o.kind === "sheet-end").map((o) => [o.y, o.width])).toEqual([
+      [0, 1000],
+      [1000, 200],
+    ]);
+  });
+
   it("a piece beyond the reach whose spare cannot be cut within the travel is refused with the reason", async () => {
     // spare 2400 - 1300 = 1100: one stroke reaches at most 1000, two are at least 2 × 600 = 1200
     const stock: Stock[] = [{ length: 2400, width: 1250, count: null }];

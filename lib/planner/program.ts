@@ -58,23 +58,38 @@ interface Layout {
   kinds: (Kind & { lead: number })[];
 }
 
+/** No backgauge limit: a caller's trim is one cut, as asked (outside the travel it is reported, not split). */
+const ONE_CUT: Gauge = { min: 0, max: Infinity };
+
 /**
- * A lead-off's cut groups (scrap): one stroke when the backgauge reaches it, else the strokes `leadStrokes` gives
- * (`arrangeWithLead` proposes no lead-off it cannot split), the note saying how the spare is taken.
+ * A lead-off's cut groups (scrap) and where each stroke's piece starts and how long it is: one stroke when
+ * the backgauge reaches it, else the strokes `leadStrokes` gives (`arrangeWithLead` proposes no lead-off it cannot
+ * split), the note saying how the spare is taken.
  */
-function leadOff(lead: number, gauge: Gauge, note: string, show: (value: number) => string): PlanCut[] {
+function leadOff(
+  lead: number,
+  gauge: Gauge,
+  note: string,
+  show: (value: number) => string,
+): { cuts: PlanCut[]; pieces: { at: number; size: number }[] } {
   const strokes = leadStrokes(lead, gauge) ?? [{ size: lead, count: 1 }];
-  if (strokes.length === 1 && strokes[0].count === 1) return [{ backgauge: lead, count: 1, scrap: true, note }];
   const total = strokes.reduce((sum, group) => sum + group.count, 0);
-  return strokes.map((group, index) => ({
+  const cuts: PlanCut[] = strokes.map((group, index) => ({
     backgauge: group.size,
     count: group.count,
     scrap: true,
     note:
-      index === 0
-        ? `${note}, in ${total} strokes (more than the backgauge reaches at once): ${group.count} × ${show(group.size)}`
-        : `then ${group.count} × ${show(group.size)}${index === strokes.length - 1 ? ", the rest of that spare" : ""}`,
+      total === 1
+        ? note
+        : index === 0
+          ? `${note}, in ${total} strokes (more than the backgauge reaches at once): ${group.count} × ${show(group.size)}`
+          : `then ${group.count} × ${show(group.size)}${index === strokes.length - 1 ? ", the rest of that spare" : ""}`,
   }));
+  const pieces: { at: number; size: number }[] = [];
+  let at = 0;
+  for (const group of strokes)
+    for (let stroke = 0; stroke < group.count; stroke++, at += group.size) pieces.push({ at, size: group.size });
+  return { cuts, pieces };
 }
 
 function emit(
@@ -96,24 +111,16 @@ function emit(
         : lead === trim
           ? "trim the first edge"
           : `cut off ${show(lead)} of the sheet's spare width first`;
-    let y = 0;
-    // a trim alone is the caller's one cut, as asked (outside the travel it is reported, not split)
-    (lead === trim
-      ? [{ backgauge: lead, count: 1, scrap: true as const, note }]
-      : leadOff(lead, gauge, note, show)
-    ).forEach((cut) => {
-      cuts.push(cut);
-      for (let stroke = 0; stroke < cut.count; stroke++) {
-        leftovers.push({
-          x: 0,
-          y,
-          length: sheet.length,
-          width: cut.backgauge,
-          kind: lead > trim ? "sheet-end" : "trim",
-        });
-        y += cut.backgauge;
-      }
-    });
+    const off = leadOff(lead, lead === trim ? ONE_CUT : gauge, note, show);
+    cuts.push(...off.cuts);
+    for (const piece of off.pieces)
+      leftovers.push({
+        x: 0,
+        y: piece.at,
+        length: sheet.length,
+        width: piece.size,
+        kind: lead > trim ? "sheet-end" : "trim",
+      });
   }
   const usable = sheet.width - lead;
   const used = kinds.reduce((sum, kind) => sum + kind.width * kind.count, 0);
@@ -140,16 +147,13 @@ function emit(
       cut.turn = true;
       if (ripAt[kindIndex] !== cuts.length - 1) cut.from = ripAt[kindIndex];
     };
-    const kindLead =
-      kind.lead > 0
-        ? leadOff(
-            kind.lead,
-            gauge,
-            `turn the ${show(kind.width)} strips; cut off ${show(kind.lead)} of their spare length first`,
-            show,
-          )
-        : [];
-    kindLead.forEach((cut, index) => {
+    const kindLead = leadOff(
+      kind.lead,
+      gauge,
+      `turn the ${show(kind.width)} strips; cut off ${show(kind.lead)} of their spare length first`,
+      show,
+    );
+    kindLead.cuts.forEach((cut, index) => {
       if (index === 0) turnFrom(cut);
       cuts.push(cut);
     });
@@ -177,12 +181,9 @@ function emit(
         });
     }
     for (let copy = 0; copy < kind.count; copy++) {
-      let x = 0;
-      for (const cut of kindLead)
-        for (let stroke = 0; stroke < cut.count; stroke++) {
-          leftovers.push({ x, y, length: cut.backgauge, width: kind.width, kind: "strip-end" });
-          x += cut.backgauge;
-        }
+      for (const piece of kindLead.pieces)
+        leftovers.push({ x: piece.at, y, length: piece.size, width: kind.width, kind: "strip-end" });
+      let x = kind.lead;
       const pieces: PlacedPiece[] = [];
       const own = [...kind.instances[copy]]; // this strip's own blanks, handed out in cutting order
       for (const segment of kind.segments) {

@@ -3,18 +3,18 @@
  * run, against the built app (web server and worker, as `npm run up` runs them) and real
  * PostgreSQL and Redis. The yardstick is the framework's own floor, `GET /api/v1/health` (one
  * PostgreSQL and one Redis round trip through the same route wrapper); a bare node:http INSERT
- * is printed for context. The load generator (autocannon, this process) shares a process with
- * no server it measures. Targets: POST /programs ≥ 0.5 × health with p99 ≤ 4 × its p50,
+ * is printed for context. The load generator (`scripts/lib/load.ts`, this process) shares a process
+ * with no server it measures. Targets: POST /programs ≥ 0.5 × health with p99 ≤ 4 × its p50,
  * validate ≥ 0.8 × health, batches of 100 ≥ 10 × single create in programs per second.
  * Not a test: it reports, it does not fail. `BENCH_ONLY=create,batch` runs those routes (health
  * always runs, as the yardstick); `BENCH_CPU_PROF=<folder>` writes the web server's CPU profile
  * there when it stops, and the worker's in its `worker` folder.
  */
-import autocannon from "autocannon";
 import pg from "pg";
 import { benchDatabase } from "./lib/bench-setup";
 import { appEnv } from "./lib/env";
 import { cpuSnapshot } from "./lib/cpu";
+import { load } from "./lib/load";
 import {
   ensureBuild,
   daemon,
@@ -79,29 +79,29 @@ async function run(
   const workerPid = daemonPid(worker);
   const before = cpuSnapshot();
   const ownBefore = process.cpuUsage();
-  const result = await autocannon({
+  const result = await load({
     url: `${base}${path}`,
     connections: CONNECTIONS,
-    duration: seconds,
+    seconds,
     method,
     headers: { "content-type": "application/json", authorization: `Bearer ${secret}` },
-    requests: body ? [{ setupRequest: (req) => ({ ...req, body: JSON.stringify(body()) }) }] : undefined,
+    body,
   });
   const after = cpuSnapshot();
   const own = process.cpuUsage(ownBefore);
-  const requests = Math.max(1, result.requests.total);
+  const requests = Math.max(1, result.total);
   const perRequest = (ms: (snapshot: typeof before) => number) => ((ms(after) - ms(before)) * 1000) / requests;
   const group = (leader: number | null) => (snapshot: typeof before) => (leader && snapshot.groups.get(leader)) || 0;
   return {
-    rps: result.requests.average,
+    rps: result.rps,
     webCpuUs: perRequest(group(pid)),
     machineCpuUs: perRequest((snapshot) => snapshot.machine),
     workerCpuUs: perRequest(group(workerPid)),
     postgresCpuUs: perRequest((snapshot) => snapshot.postgres),
     redisCpuUs: perRequest((snapshot) => snapshot.redis),
     loadCpuUs: (own.user + own.system) / requests,
-    p50: result.latency.p50,
-    p99: result.latency.p99,
+    p50: Math.round(result.p50),
+    p99: Math.round(result.p99),
     non2xx: result.non2xx,
     errors: result.errors,
   } satisfies Result;

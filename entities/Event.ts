@@ -34,6 +34,14 @@ export const Event = defineEntity({
      * stored text), never queried inside; `json` would only check it again on every insert (migration 20261204070000).
      */
     data: p.json<Record<string, unknown>>().columnType("text"),
+    /**
+     * Where the body borrows its program's check: the character position of the `null` written in the check's
+     * place, which readers replace with the program's check in the statement that reads the body
+     * (`lib/services/event-bodies.ts`); null when the body is whole. Set only on `program.created` events
+     * written with their program; a trigger gives them their own copy before the program's check changes
+     * (migration 20261204200000). Read bodies through `lib/services/event-bodies.ts`, never this entity's `data`.
+     */
+    checkAt: p.integer().nullable(),
     /** when the event was fanned out into deliveries, one per subscribed endpoint */
     dispatchedAt: p.datetime().nullable(),
     createdAt: p.datetime().onCreate(() => new Date()),

@@ -25,6 +25,7 @@ import { Migration20261203110000_json_bodies } from "./Migration20261203110000_j
 import { Migration20261203170000_pending_events } from "./Migration20261203170000_pending_events";
 import { Migration20261203220000_check_without_layout } from "./Migration20261203220000_check_without_layout";
 import { Migration20261204070000_json_as_text } from "./Migration20261204070000_json_as_text";
+import { Migration20261204200000_event_checks_once } from "./Migration20261204200000_event_checks_once";
 
 export const migrationsList: MigrationObject[] = [
   { name: "Migration20261201234604_initial", class: Migration20261201234604_initial },
@@ -48,4 +49,5 @@ export const migrationsList: MigrationObject[] = [
   { name: "Migration20261203170000_pending_events", class: Migration20261203170000_pending_events },
   { name: "Migration20261203220000_check_without_layout", class: Migration20261203220000_check_without_layout },
   { name: "Migration20261204070000_json_as_text", class: Migration20261204070000_json_as_text },
+  { name: "Migration20261204200000_event_checks_once", class: Migration20261204200000_event_checks_once },
 ];

@@ -7,6 +7,7 @@ import { Event, Shop } from "../../entities";
 
 import type { EventData } from "../schemas/events";
 import { webhookPayload } from "../schemas/webhook";
+import { readEvents } from "./event-bodies";
 import type { EventType } from "../schemas/enums";
 
 export type { EventType } from "../schemas/enums";
@@ -49,13 +50,8 @@ export async function recordEvents<T extends EventType>(
 
 /** Each event's webhook body (`webhookPayload`), by id, built around its stored JSON text; unknown ids are left out. */
 export async function eventPayloads(em: EntityManager, ids: readonly string[]): Promise<Map<string, string>> {
-  const unique = [...new Set(ids)];
-  if (!unique.length) return new Map();
-  const rows = await em
-    .getConnection()
-    .execute<{ id: string; type: string; data: string; created_at: Date }[]>(
-      `select id, type, data, created_at from events where id in (${unique.map(() => "?").join(", ")})`,
-      unique,
-    );
-  return new Map(rows.map((e) => [e.id, webhookPayload({ type: e.type, createdAt: e.created_at, dataJson: e.data })]));
+  const events = await readEvents(em, ids);
+  return new Map(
+    [...events.values()].map((e) => [e.id, webhookPayload({ type: e.type, createdAt: e.createdAt, dataJson: e.data })]),
+  );
 }

@@ -134,7 +134,9 @@ export async function checkPrograms(
  * at a unit separator. Those two are sent as their UTF-8 bytes (node-postgres binds a Buffer in
  * binary format, which for text is the text's bytes, checked as UTF-8 by PostgreSQL). The check and
  * the event's body are stored as that text (`text` columns: `JSON.stringify` wrote it, so it is not
- * checked as JSON again).
+ * checked as JSON again). The check is stored once: the event's body has `null` in its place, at
+ * `check_at` (after the 11 characters of `{"program":` and the head), and borrows the program's
+ * (lib/services/event-bodies.ts, migration 20261204200000).
  */
 const ROW =
   "id text, shop_id text, shear_id text, reference text, title text, revision int, input jsonb, grade_code text, units text, priority int, due_at timestamptz, validation text, metadata jsonb, routing jsonb, created_at timestamptz, updated_at timestamptz, event_id text, n int";
@@ -152,10 +154,10 @@ const INSERT = `with x as materialized (select * from json_to_recordset($1::json
   v as (select split_part(around, E'\\x1f', 1) as head, split_part(around, E'\\x1f', 2) as tail, n
         from string_to_table($3, E'\\x1e') with ordinality as v(around, n)),
   p as (insert into programs (${COLUMNS}, "check") select ${COLUMNS}, c."check" from x join c using (n) returning 1),
-  e as (insert into events (id, shop_id, type, subject_id, data, created_at)
-        select event_id, shop_id, 'program.created', id, ('{"program":' || v.head || c."check" || v.tail || '}'),
-          created_at
-        from x join c using (n) join v using (n) returning 1)
+  e as (insert into events (id, shop_id, type, subject_id, data, check_at, created_at)
+        select event_id, shop_id, 'program.created', id, ('{"program":' || v.head || 'null' || v.tail || '}'),
+          char_length(v.head) + 12, created_at
+        from x join v using (n) returning 1)
   select (select count(*) from p) as programs, (select count(*) from e) as events`;
 
 /**

@@ -22,12 +22,13 @@ export function viewEndpoint(endpoint: WebhookEndpointEntity, now = new Date()):
 }
 
 /** Refuse, at once, a literal address this install will never send to (names are checked at send time). */
-export function viewEvent(stored: EventEntity) {
+/** An event as the API shows it; `data` is its whole body (`borrowedBodies` in `./event-bodies`) when it borrows a check. */
+export function viewEvent(stored: EventEntity, data: Record<string, unknown> = stored.data) {
   return {
     id: stored.id,
     type: stored.type,
     subjectId: stored.subjectId,
-    data: stored.data,
+    data,
     createdAt: stored.createdAt.toISOString(),
   };
 }

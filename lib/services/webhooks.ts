@@ -12,6 +12,7 @@ import { literalRefusal } from "../network";
 import type { EndpointT } from "../schemas/webhook";
 import type { EventType } from "../schemas/enums";
 import { recordEvent } from "./events";
+import { borrowedBodies } from "./event-bodies";
 import { viewDelivery, viewEndpoint, viewEvent } from "./webhook-views";
 
 export const DEFAULT_OVERLAP_HOURS = 24;
@@ -185,13 +186,16 @@ export async function listEvents(
     ...(options.type ? { type: options.type } : {}),
     ...(options.subject ? { subjectId: options.subject } : {}),
   };
-  return findPage(em, Event, where, options, viewEvent);
+  const page = await findPage(em, Event, where, options, (stored) => stored);
+  const whole = await borrowedBodies(em, page.data);
+  return { data: page.data.map((stored) => viewEvent(stored, whole.get(stored.id))), next_cursor: page.next_cursor };
 }
 
 export async function getEvent(em: EntityManager, shopId: string, id: string) {
   const stored = await em.findOne(Event, { id, shop: shopId });
   if (!stored) throw notFound("event");
-  return viewEvent(stored);
+  const whole = await borrowedBodies(em, [stored]);
+  return viewEvent(stored, whole.get(stored.id));
 }
 
 async function findDelivery(em: EntityManager, shopId: string, id: string) {

@@ -16,6 +16,16 @@ export const OUTBOX_CHANNEL = "shearwire_outbox";
 /** Notified with a shear's id when one of its programs becomes claimable (released, or back after a lease ran out). */
 export const RELEASED_CHANNEL = "shearwire_released";
 
+/**
+ * SQL true when the webhook endpoint aliased `w` receives an event of type `type` (an SQL expression): it is
+ * enabled and subscribed to that type (an empty list subscribes to every type); test events go only to the
+ * endpoint that asked for one, never by fan-out. The worker's fan-out and the program writes share it.
+ */
+export function subscribesSql(w: string, type: string): string {
+  return `${w}.enabled and ${type} <> 'endpoint.test'
+    and (jsonb_array_length(${w}.event_types) = 0 or ${w}.event_types @> jsonb_build_array(${type}))`;
+}
+
 /** Wake the gateways waiting on this shear when the caller's transaction commits. */
 export async function announceRelease(em: EntityManager, shearId: string) {
   await em.execute(`select pg_notify('${RELEASED_CHANNEL}', ?)`, [shearId]);

@@ -15,7 +15,7 @@ import { newId } from "../ids";
 import { runPrepared } from "../db/prepared";
 import { jsonTextAround, rememberJsonBytes } from "../json-text";
 import { wakeAfterCommit } from "../db/wake";
-import { OUTBOX_CHANNEL } from "./events";
+import { OUTBOX_CHANNEL, subscribesSql } from "./events";
 import { existingReferences, gradesByCode, shearsNamed } from "./lookups";
 import { viewProgram, type ProgramRecord } from "./program-view";
 import { routeProgram } from "./routing";
@@ -136,7 +136,10 @@ export async function checkPrograms(
  * the event's body are stored as that text (`text` columns: `JSON.stringify` wrote it, so it is not
  * checked as JSON again). The check is stored once: the event's body has `null` in its place, at
  * `check_at` (after the 11 characters of `{"program":` and the head), and borrows the program's
- * (lib/services/event-bodies.ts, migration 20261204200000).
+ * (lib/services/event-bodies.ts, migration 20261204200000). When no endpoint of the shop takes
+ * `program.created` (none enabled and subscribed to it, read in the statement's snapshot), the events
+ * are written as already fanned out (`dispatched_at` set: into no deliveries) and the worker is not
+ * woken; an endpoint receives the events written after it was added, as it would from the worker.
  */
 const ROW =
   "id text, shop_id text, shear_id text, reference text, title text, revision int, input jsonb, grade_code text, units text, priority int, due_at timestamptz, validation text, metadata jsonb, routing jsonb, created_at timestamptz, updated_at timestamptz, event_id text, n int";
@@ -154,11 +157,13 @@ const INSERT = `with x as materialized (select * from json_to_recordset($1::json
   v as (select split_part(around, E'\\x1f', 1) as head, split_part(around, E'\\x1f', 2) as tail, n
         from string_to_table($3, E'\\x1e') with ordinality as v(around, n)),
   p as (insert into programs (${COLUMNS}, "check") select ${COLUMNS}, c."check" from x join c using (n) returning 1),
-  e as (insert into events (id, shop_id, type, subject_id, data, check_at, created_at)
+  s as (select exists (select 1 from webhook_endpoints w
+          where w.shop_id = $4 and ${subscribesSql("w", "'program.created'")}) as subscribed),
+  e as (insert into events (id, shop_id, type, subject_id, data, check_at, dispatched_at, created_at)
         select event_id, shop_id, 'program.created', id, ('{"program":' || v.head || 'null' || v.tail || '}'),
-          char_length(v.head) + 12, created_at
-        from x join v using (n) returning 1)
-  select (select count(*) from p) as programs, (select count(*) from e) as events`;
+          char_length(v.head) + 12, case when s.subscribed then null else created_at end, created_at
+        from x join v using (n) cross join s returning 1)
+  select (select count(*) from p) as programs, (select count(*) from e) as events, (select subscribed from s) as subscribed`;
 
 /**
  * The programs and their events in one statement (one round trip; on its own, one
@@ -235,22 +240,26 @@ async function insert(em: EntityManager, shopId: string, checked: Checked[]): Pr
     pieces.flatMap(([head, , tail], i) => [...(i ? [RECORD_BYTES] : []), head, UNIT_BYTES, tail]),
   );
   const inTransaction = em.isInTransaction();
+  let subscribed: boolean;
   try {
     // Bound parameters, not MikroORM's `execute`, which writes every value into the SQL text: a batch's JSON runs to
     // megabytes. Prepared: planning the statement cost about as much as running it for one program.
-    await runPrepared(
+    [{ subscribed }] = await runPrepared<{ subscribed: boolean }>(
       em,
       inTransaction ? "program-create-in-transaction" : "program-create",
-      inTransaction ? `${INSERT}, pg_notify('${OUTBOX_CHANNEL}', '')` : INSERT,
-      [JSON.stringify(rows), checks, around],
+      inTransaction
+        ? `${INSERT}, (select pg_notify('${OUTBOX_CHANNEL}', '') from s where s.subscribed) as woke`
+        : INSERT,
+      [JSON.stringify(rows), checks, around, shopId],
     );
   } catch (err) {
     if ((err as { code?: string }).code === "23505" && !(err instanceof UniqueConstraintViolationException))
       throw new UniqueConstraintViolationException(err as Error);
     throw err;
   }
-  // In the caller's transaction the NOTIFY above goes out at its commit; on its own the statement has committed.
-  if (!inTransaction) wakeAfterCommit(em, OUTBOX_CHANNEL);
+  // The worker has fan-out to do only when some endpoint takes the events (else they were written as dispatched). In
+  // the caller's transaction the NOTIFY above goes out at its commit; on its own the statement has committed.
+  if (subscribed && !inTransaction) wakeAfterCommit(em, OUTBOX_CHANNEL);
   return views;
 }
 

@@ -6,6 +6,7 @@
 import type { EntityManager } from "@mikro-orm/postgresql";
 import { rawTransaction } from "../db/prepared";
 import { newId } from "../ids";
+import { subscribesSql } from "../services/events";
 
 /** Events taken in one round; a full round means more may be waiting. */
 export const DISPATCH_BATCH = 200;
@@ -19,9 +20,7 @@ const OVERDUE_MS = 10_000;
 export const TAKE = `with taken as (select id from events where dispatched_at is null order by id limit ${DISPATCH_BATCH} for update skip locked),
   marked as (update events e set dispatched_at = $1 from taken where e.id = taken.id returning e.id, e.shop_id, e.type)
   select m.id, m.shop_id, w.id as endpoint_id
-  from marked m left join webhook_endpoints w on w.shop_id = m.shop_id and w.enabled
-    and m.type <> 'endpoint.test' -- test events go only to the endpoint that asked
-    and (jsonb_array_length(w.event_types) = 0 or w.event_types @> jsonb_build_array(m.type))
+  from marked m left join webhook_endpoints w on w.shop_id = m.shop_id and ${subscribesSql("w", "m.type")}
   order by m.id, w.id`;
 
 /**

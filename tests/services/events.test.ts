@@ -1,14 +1,60 @@
 import pg from "pg";
-import { afterAll, describe, expect, it } from "vitest";
-import { Event, Program } from "../../entities";
+import { afterAll, describe, expect, it, vi } from "vitest";
+import { Event, Program, Shop, WebhookEndpoint } from "../../entities";
 import { createProgram } from "../../lib/services/programs";
 import { viewProgram } from "../../lib/services/program-view";
-import { eventPayloads, OUTBOX_CHANNEL, recordEvent } from "../../lib/services/events";
+import { eventPayloads, OUTBOX_CHANNEL, recordEvent, type EventType } from "../../lib/services/events";
 import { createBatch } from "../../lib/services/program-batch";
 import { DATABASE_URL } from "../support/env";
 import { closeTestOrm, createTestShop, exampleProgram, testOrm } from "../support/fixtures";
 
 afterAll(closeTestOrm);
+
+/** An enabled endpoint of the shop taking `eventTypes` (all when empty); `enabled: false` for a disabled one. */
+async function subscribe(shopId: string, eventTypes: EventType[], enabled = true) {
+  const em = (await testOrm()).em.fork();
+  em.create(WebhookEndpoint, {
+    shop: em.getReference(Shop, shopId),
+    url: "https://erp.example/hooks",
+    secret: "whsec_dGVzdA==",
+    eventTypes,
+    enabled,
+  });
+  await em.flush();
+}
+
+/** How many deliveries the events about these programs have. */
+async function deliveries(programIds: string[]) {
+  const rows = await (
+    await testOrm()
+  ).em
+    .fork()
+    .getConnection()
+    .execute<{ n: string }[]>(
+      `select count(*) as n from deliveries d join events e on e.id = d.event_id
+       where e.subject_id in (${programIds.map(() => "?").join(", ")})`,
+      programIds,
+    );
+  return Number(rows[0].n);
+}
+
+/**
+ * The created programs' events: how many, and how many were written as already fanned out (their `dispatched_at` is
+ * the moment they were written; the worker's fan-out, which may come at any time, would mark them later than that).
+ */
+async function createdEvents(programIds: string[]) {
+  const rows = await (
+    await testOrm()
+  ).em
+    .fork()
+    .getConnection()
+    .execute<{ n: string; written: string }[]>(
+      `select count(*) as n, count(*) filter (where dispatched_at = created_at) as written from events
+       where type = 'program.created' and subject_id in (${programIds.map(() => "?").join(", ")})`,
+      programIds,
+    );
+  return { events: Number(rows[0].n), writtenFannedOut: Number(rows[0].written) };
+}
 
 describe("the outbox", () => {
   it("writes the event in the same transaction as the change: a rolled-back change leaves no event", async () => {
@@ -31,6 +77,7 @@ describe("the outbox", () => {
 
   it("wakes the worker on the database that holds the change, once the change is committed", async () => {
     const shop = await createTestShop("wake");
+    await subscribe(shop.shopId, ["program.created"]);
     const listener = new pg.Client({ connectionString: DATABASE_URL });
     await listener.connect();
     try {
@@ -50,6 +97,36 @@ describe("the outbox", () => {
       await listener.end();
     }
   });
+  it("writes created programs' events as fanned out when no endpoint of the shop takes them", async () => {
+    const shop = await createTestShop("unheard");
+    const em = (await testOrm()).em.fork();
+    const create = async () => [
+      (await createProgram(em, shop.shopId, exampleProgram(shop.shearId))).id,
+      ...(await createBatch(em, shop.shopId, [exampleProgram(shop.shearId), exampleProgram(shop.shearId)])).map(
+        (p) => p.id,
+      ),
+    ];
+    // no endpoint, a disabled one, one taking other types only: nothing for the worker to do
+    expect(await createdEvents(await create())).toEqual({ events: 3, writtenFannedOut: 3 });
+    await subscribe(shop.shopId, ["program.created"], false);
+    await subscribe(shop.shopId, ["program.completed", "program.failed"]);
+    expect(await createdEvents(await create())).toEqual({ events: 3, writtenFannedOut: 3 });
+    // inside a caller's transaction too
+    const inside = await em
+      .fork()
+      .transactional(async (tx) => createBatch(tx, shop.shopId, [exampleProgram(shop.shearId)]));
+    expect(await createdEvents(inside.map((p) => p.id))).toEqual({ events: 1, writtenFannedOut: 1 });
+    // an endpoint taking every type (an empty list) or program.created: the events wait for the worker's fan-out,
+    // which gives each its delivery (an event written as fanned out would never get one)
+    const everything = await createTestShop("everything");
+    await subscribe(everything.shopId, []);
+    const [one] = await createBatch(em, everything.shopId, [exampleProgram(everything.shearId)]);
+    await subscribe(shop.shopId, ["program.created"]);
+    const later = await create();
+    expect(await createdEvents(later)).toEqual({ events: 3, writtenFannedOut: 0 });
+    await vi.waitFor(async () => expect(await deliveries([one.id, ...later])).toBe(4), { timeout: 10_000 });
+  });
+
   it("builds each event's webhook body around its stored text, the bytes JSON.stringify writes for it", async () => {
     const shop = await createTestShop("payloads");
     const em = (await testOrm()).em.fork();

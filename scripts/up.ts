@@ -48,8 +48,9 @@ async function main() {
     buildApp(env);
   }
   await startMail(mail, profile.mail, env);
-  startWorker(worker, env);
-  await startWeb(web, port, env);
+  // supervised: a web server or worker that dies (killed, crashed) is started again
+  startWorker(worker, env, { supervised: true });
+  await startWeb(web, port, env, { supervised: true });
   await waitForHttp(`${env.SHEARWIRE_BASE_URL}/api/v1/health`, web);
 
   const base = env.SHEARWIRE_BASE_URL;

@@ -89,16 +89,38 @@ export function webEnv(env: NodeJS.ProcessEnv): NodeJS.ProcessEnv {
   return { ...env, NODE_OPTIONS: [WEB_NODE_OPTIONS, env.NODE_OPTIONS].filter(Boolean).join(" ") };
 }
 
-export async function startWeb(service: Daemon, port: number, env: NodeJS.ProcessEnv) {
+/** Run `script` (with `args`) as a daemon; `supervised`, under `scripts/supervise.ts`, which starts it again when it dies. */
+function startScript(
+  service: Daemon,
+  script: string,
+  args: string[],
+  env: NodeJS.ProcessEnv,
+  { supervised = false }: { supervised?: boolean } = {},
+) {
+  const target = [path.join(root, "scripts", script), ...args];
+  return startDaemon(
+    service,
+    bin("tsx"),
+    supervised ? [path.join(root, "scripts", "supervise.ts"), ...target] : target,
+    env,
+  );
+}
+
+export async function startWeb(
+  service: Daemon,
+  port: number,
+  env: NodeJS.ProcessEnv,
+  options: { supervised?: boolean } = {},
+) {
   if (await portInUse(port)) {
     throw new ServiceError(`port ${port} on 127.0.0.1 is busy with another program; stop it or set PORT`);
   }
-  startDaemon(service, bin("tsx"), [path.join(root, "scripts", "web-server.ts"), "--port", String(port)], webEnv(env));
+  startScript(service, "web-server.ts", ["--port", String(port)], webEnv(env), options);
 }
 
 /** The worker process (webhooks, sweepers) in the background. */
-export function startWorker(service: Daemon, env: NodeJS.ProcessEnv) {
-  return startDaemon(service, bin("tsx"), [path.join(root, "scripts", "worker.ts")], env);
+export function startWorker(service: Daemon, env: NodeJS.ProcessEnv, options: { supervised?: boolean } = {}) {
+  return startScript(service, "worker.ts", [], env, options);
 }
 
 /** The fake SMTP server and its inbox page, in the background. */

@@ -7,15 +7,7 @@ import { mkdtempSync, readFileSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import path from "node:path";
 import { describe, expect, it, vi } from "vitest";
-
-const alive = (pid: number) => {
-  try {
-    process.kill(pid, 0);
-    return true;
-  } catch {
-    return false;
-  }
-};
+import { pidAlive } from "../../scripts/lib/services";
 
 describe("supervise", () => {
   it("starts a killed process again, and stops it with itself on SIGTERM", async () => {
@@ -49,7 +41,7 @@ describe("supervise", () => {
       await vi.waitFor(() => expect(started()).toHaveLength(2), { timeout: 20_000, interval: 100 });
       const [, second] = started();
       expect(second).not.toBe(first);
-      expect(alive(second)).toBe(true);
+      expect(pidAlive(second)).toBe(true);
       // tsx, between the supervisor and the script, reports a death by SIGKILL as exit code 137 (128 + 9)
       expect(out).toMatch(/busy ended \((SIGKILL|exit code 137)\); starting it again/);
       // a stop signal reaches the process, which ends cleanly, and nothing is started again
@@ -59,7 +51,7 @@ describe("supervise", () => {
       expect(readFileSync(pids, "utf8")).toMatch(/stopped\n$/);
       await new Promise((r) => setTimeout(r, 1_500));
       expect(started()).toHaveLength(2);
-      expect(alive(second)).toBe(false);
+      expect(pidAlive(second)).toBe(false);
     } finally {
       try {
         process.kill(-supervisor.pid!, "SIGKILL");

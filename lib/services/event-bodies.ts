@@ -42,7 +42,7 @@ export async function borrowedBodies(
   em: EntityManager,
   events: readonly EventEntity[],
 ): Promise<Map<string, Record<string, unknown>>> {
-  const borrowing = events.filter((e) => e.checkAt !== null && e.checkAt !== undefined).map((e) => e.id);
+  const borrowing = events.filter((e) => e.checkAt != null).map((e) => e.id);
   const whole = await readEvents(em, borrowing);
   return new Map([...whole].map(([id, read]) => [id, JSON.parse(read.data) as Record<string, unknown>]));
 }

@@ -23,19 +23,20 @@ async function subscribe(shopId: string, eventTypes: EventType[], enabled = true
   await em.flush();
 }
 
+/** One row of counts about these programs: `sql` ends with `in` followed by the list of their ids. */
+async function countsAbout<Row>(sql: string, programIds: string[]): Promise<Row> {
+  const connection = (await testOrm()).em.fork().getConnection();
+  const [row] = await connection.execute<Row[]>(`${sql} (${programIds.map(() => "?").join(", ")})`, programIds);
+  return row;
+}
+
 /** How many deliveries the events about these programs have. */
 async function deliveries(programIds: string[]) {
-  const rows = await (
-    await testOrm()
-  ).em
-    .fork()
-    .getConnection()
-    .execute<{ n: string }[]>(
-      `select count(*) as n from deliveries d join events e on e.id = d.event_id
-       where e.subject_id in (${programIds.map(() => "?").join(", ")})`,
-      programIds,
-    );
-  return Number(rows[0].n);
+  const { n } = await countsAbout<{ n: string }>(
+    "select count(*) as n from deliveries d join events e on e.id = d.event_id where e.subject_id in",
+    programIds,
+  );
+  return Number(n);
 }
 
 /**
@@ -43,17 +44,12 @@ async function deliveries(programIds: string[]) {
  * the moment they were written; the worker's fan-out, which may come at any time, would mark them later than that).
  */
 async function createdEvents(programIds: string[]) {
-  const rows = await (
-    await testOrm()
-  ).em
-    .fork()
-    .getConnection()
-    .execute<{ n: string; written: string }[]>(
-      `select count(*) as n, count(*) filter (where dispatched_at = created_at) as written from events
-       where type = 'program.created' and subject_id in (${programIds.map(() => "?").join(", ")})`,
-      programIds,
-    );
-  return { events: Number(rows[0].n), writtenFannedOut: Number(rows[0].written) };
+  const { n, written } = await countsAbout<{ n: string; written: string }>(
+    `select count(*) as n, count(*) filter (where dispatched_at = created_at) as written from events
+     where type = 'program.created' and subject_id in`,
+    programIds,
+  );
+  return { events: Number(n), writtenFannedOut: Number(written) };
 }
 
 describe("the outbox", () => {

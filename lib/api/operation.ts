@@ -39,6 +39,11 @@ export interface Operation<
   body?: B;
   /** the success responses; error responses are added from the operation's traits */
   responses: R;
+  /**
+   * writes many programs in one request: after authorisation, at most a few such requests go on at once in one web
+   * server and the others wait their turn, their bodies unread (`lib/api/route.ts`)
+   */
+  heavy?: boolean;
   /** needs If-Match (412 on a stale revision, 428 when missing) */
   ifMatch?: boolean;
   /** extra error statuses this operation can answer, besides the common ones */

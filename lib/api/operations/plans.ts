@@ -105,6 +105,7 @@ export const cancelPlanOperation = defineOperation({
 
 export const writePlanProgramsOperation = defineOperation({
   operationId: "writePlanPrograms",
+  heavy: true,
   method: "post",
   path: "/plans/{id}/programs",
   tags,

@@ -39,6 +39,7 @@ export const createProgramOperation = defineOperation({
 
 export const createProgramBatchOperation = defineOperation({
   operationId: "createProgramBatch",
+  heavy: true,
   method: "post",
   path: "/programs/batch",
   tags,

@@ -4,7 +4,9 @@
  * PostgreSQL and Redis. The yardstick is the framework's own floor, `GET /api/v1/health` (one
  * PostgreSQL and one Redis round trip through the same route wrapper); a bare node:http INSERT
  * is printed for context. The load generator (`scripts/lib/load.ts`, this process) shares a process
- * with no server it measures. Targets: POST /programs ≥ 0.5 × health with p99 ≤ 4 × its p50,
+ * with no server it measures. Each route runs twice for half its seconds, the second pass in reverse order
+ * (A B C C B A), and its two halves are pooled: a linear drift of the machine's speed then weighs on every
+ * route alike instead of on whichever ran last. Targets: POST /programs ≥ 0.5 × health with p99 ≤ 4 × its p50,
  * validate ≥ 0.8 × health, batches of 100 ≥ 10 × single create in programs per second.
  * Not a test: it reports, it does not fail. `BENCH_ONLY=create,batch` runs those routes (health
  * always runs, as the yardstick); `BENCH_CPU_PROF=<folder>` writes the web server's CPU profile
@@ -14,7 +16,7 @@ import pg from "pg";
 import { benchDatabase } from "./lib/bench-setup";
 import { appEnv } from "./lib/env";
 import { cpuSnapshot } from "./lib/cpu";
-import { load } from "./lib/load";
+import { load, percentile } from "./lib/load";
 import {
   ensureBuild,
   daemon,
@@ -68,13 +70,24 @@ interface Result {
   errors: number;
 }
 
+/** One stretch of load on one route: what was answered and what each process spent meanwhile. */
+interface Window {
+  total: number;
+  elapsed: number;
+  latencies: number[];
+  non2xx: number;
+  errors: number;
+  /** CPU milliseconds spent during the window */
+  cpu: { web: number; worker: number; postgres: number; redis: number; machine: number; load: number };
+}
+
 async function run(
   path: string,
   method: "GET" | "POST",
   body?: () => object,
   base = `http://127.0.0.1:${PORT}`,
   seconds = SECONDS,
-) {
+): Promise<Window> {
   const pid = base.endsWith(`:${PORT}`) ? daemonPid(web) : daemonPid(bareServer);
   const workerPid = daemonPid(worker);
   const before = cpuSnapshot();
@@ -89,22 +102,45 @@ async function run(
   });
   const after = cpuSnapshot();
   const own = process.cpuUsage(ownBefore);
-  const requests = Math.max(1, result.total);
-  const perRequest = (ms: (snapshot: typeof before) => number) => ((ms(after) - ms(before)) * 1000) / requests;
+  const spent = (ms: (snapshot: typeof before) => number) => ms(after) - ms(before);
   const group = (leader: number | null) => (snapshot: typeof before) => (leader && snapshot.groups.get(leader)) || 0;
   return {
-    rps: result.rps,
-    webCpuUs: perRequest(group(pid)),
-    machineCpuUs: perRequest((snapshot) => snapshot.machine),
-    workerCpuUs: perRequest(group(workerPid)),
-    postgresCpuUs: perRequest((snapshot) => snapshot.postgres),
-    redisCpuUs: perRequest((snapshot) => snapshot.redis),
-    loadCpuUs: (own.user + own.system) / requests,
-    p50: Math.round(result.p50),
-    p99: Math.round(result.p99),
+    total: result.total,
+    elapsed: result.elapsed,
+    latencies: result.latencies,
     non2xx: result.non2xx,
     errors: result.errors,
-  } satisfies Result;
+    cpu: {
+      web: spent(group(pid)),
+      worker: spent(group(workerPid)),
+      postgres: spent((snapshot) => snapshot.postgres),
+      redis: spent((snapshot) => snapshot.redis),
+      machine: spent((snapshot) => snapshot.machine),
+      load: (own.user + own.system) / 1000,
+    },
+  };
+}
+
+/** A route's windows pooled: answers over their summed seconds, percentiles over all their answers, CPU per answer. */
+function summarise(windows: Window[]): Result {
+  const sum = (of: (w: Window) => number) => windows.reduce((total, w) => total + of(w), 0);
+  const answers = sum((w) => w.total);
+  const requests = Math.max(1, answers);
+  const latencies = windows.flatMap((w) => w.latencies).sort((a, b) => a - b);
+  const perRequest = (of: (cpu: Window["cpu"]) => number) => (sum((w) => of(w.cpu)) * 1000) / requests;
+  return {
+    rps: answers / sum((w) => w.elapsed),
+    webCpuUs: perRequest((cpu) => cpu.web),
+    machineCpuUs: perRequest((cpu) => cpu.machine),
+    workerCpuUs: perRequest((cpu) => cpu.worker),
+    postgresCpuUs: perRequest((cpu) => cpu.postgres),
+    redisCpuUs: perRequest((cpu) => cpu.redis),
+    loadCpuUs: perRequest((cpu) => cpu.load),
+    p50: Math.round(percentile(latencies, 0.5)),
+    p99: Math.round(percentile(latencies, 0.99)),
+    non2xx: sum((w) => w.non2xx),
+    errors: sum((w) => w.errors),
+  };
 }
 
 const env = { ...appEnv(profile, PORT), SHEARWIRE_DIST_DIR: DIST, DATABASE_URL: url };
@@ -152,20 +188,32 @@ try {
     }
     await db.query("checkpoint");
   };
-  const measure = async (name: string, path: string, method: "GET" | "POST", body?: () => object, base?: string) => {
-    if (!wanted(name)) return;
+  const windows: Record<string, Window[]> = {};
+  const measure = async (
+    name: string,
+    path: string,
+    method: "GET" | "POST",
+    body?: () => object,
+    base?: string,
+    seconds = SECONDS / 2,
+  ) => {
     await settle();
-    results[name] = await run(path, method, body, base);
+    (windows[name] ??= []).push(await run(path, method, body, base, seconds));
   };
-  await measure("health", "/api/v1/health", "GET");
-  await measure("shears", "/api/v1/shears", "GET");
-  await measure("validate", "/api/v1/programs/validate", "POST", program);
-  await measure("create", "/api/v1/programs", "POST", program);
-  await measure("batch", "/api/v1/programs/batch", "POST", () => ({
-    programs: Array.from({ length: BATCH }, program),
-  }));
+  const routes: [name: string, path: string, method: "GET" | "POST", body?: () => object][] = [
+    ["health", "/api/v1/health", "GET"],
+    ["shears", "/api/v1/shears", "GET"],
+    ["validate", "/api/v1/programs/validate", "POST", program],
+    ["create", "/api/v1/programs", "POST", program],
+    ["batch", "/api/v1/programs/batch", "POST", () => ({ programs: Array.from({ length: BATCH }, program) })],
+  ];
+  // Each route twice, half the seconds each, the second pass in reverse order (A B C C B A): the machine's speed drifts
+  // by a quarter within minutes here, and a ratio of two routes measured one after the other took that drift whole.
+  const chosen = routes.filter(([name]) => wanted(name));
+  for (const route of [...chosen, ...[...chosen].reverse()]) await measure(...route);
   // last: context only, and its many small writes would disturb the routes measured after it
-  await measure("bare", "/", "POST", program, `http://127.0.0.1:${BARE_PORT}`);
+  if (wanted("bare")) await measure("bare", "/", "POST", program, `http://127.0.0.1:${BARE_PORT}`, SECONDS);
+  for (const [name, measured] of Object.entries(windows)) results[name] = summarise(measured);
   await db.end();
 } finally {
   // a profiled server writes its profile only on a clean exit: let the requests still in flight end first
@@ -192,7 +240,7 @@ const verdicts = [
     `batch ≥ 10 × single create in programs/s: ${(batchPrograms / create.rps).toFixed(1)} × (${verdict(batchPrograms >= 10 * create.rps)})`,
 ].filter(Boolean);
 console.log(`
-API at ${CONNECTIONS} connections, ${SECONDS} s each (web server + worker + PostgreSQL + Redis on this machine)
+API at ${CONNECTIONS} connections, ${SECONDS} s each in two halves, A B C C B A (web server + worker + PostgreSQL + Redis on this machine)
 ${line("bare node:http INSERT (context)", results.bare)}
 ${line("GET /api/v1/health (the floor)", results.health)}
 ${line("GET /api/v1/shears", results.shears)}

@@ -32,6 +32,10 @@ export interface LoadResult {
   /** answers outside 2xx, and requests that failed without an answer */
   non2xx: number;
   errors: number;
+  /** seconds from the first request to the last answer */
+  elapsed: number;
+  /** every answer's latency in milliseconds, sorted (to pool several runs' percentiles) */
+  latencies: number[];
 }
 
 /** The value at `fraction` of the sorted latencies (nearest rank). */
@@ -98,5 +102,7 @@ export async function load(options: LoadOptions): Promise<LoadResult> {
     p99: percentile(latencies, 0.99),
     non2xx,
     errors,
+    elapsed,
+    latencies,
   };
 }

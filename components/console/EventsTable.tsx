@@ -2,7 +2,7 @@
 
 import { createColumnHelper } from "@tanstack/react-table";
 import Link from "next/link";
-import { when } from "@/components/ui";
+import { Moment } from "@/components/ui";
 import { LiveTable } from "./LiveTable";
 
 interface Row {
@@ -16,7 +16,7 @@ const col = createColumnHelper<Row>();
 const columns = [
   col.accessor("createdAt", {
     header: "When",
-    cell: (c) => <span className="whitespace-nowrap font-mono text-xs">{when(c.getValue())}</span>,
+    cell: (c) => <Moment value={c.getValue()} />,
   }),
   col.accessor("type", { header: "Type", cell: (c) => <span className="font-mono text-xs">{c.getValue()}</span> }),
   col.accessor((row) => row.about.label, {

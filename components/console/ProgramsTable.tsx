@@ -2,7 +2,7 @@
 
 import { createColumnHelper } from "@tanstack/react-table";
 import Link from "next/link";
-import { Badge, when } from "@/components/ui";
+import { Badge, Moment } from "@/components/ui";
 import { LiveTable } from "./LiveTable";
 
 interface Row {
@@ -38,11 +38,11 @@ const columns = [
   col.accessor("findings", { header: "Findings", cell: (c) => <span className="font-mono">{c.getValue()}</span> }),
   col.accessor("dueAt", {
     header: "Due",
-    cell: (c) => <span className="whitespace-nowrap font-mono text-xs">{when(c.getValue())}</span>,
+    cell: (c) => <Moment value={c.getValue()} />,
   }),
   col.accessor("updatedAt", {
     header: "Updated",
-    cell: (c) => <span className="whitespace-nowrap font-mono text-xs">{when(c.getValue())}</span>,
+    cell: (c) => <Moment value={c.getValue()} />,
   }),
 ];
 

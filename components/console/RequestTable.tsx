@@ -2,7 +2,7 @@
 
 import { createColumnHelper } from "@tanstack/react-table";
 import Link from "next/link";
-import { Badge, when } from "@/components/ui";
+import { Badge, Moment } from "@/components/ui";
 import { LiveTable } from "./LiveTable";
 
 interface Row {
@@ -22,7 +22,7 @@ export function RequestTable({ query, keyNames }: { query: string; keyNames: Rec
   const columns = [
     col.accessor("createdAt", {
       header: "When",
-      cell: (c) => <span className="whitespace-nowrap font-mono text-xs">{when(c.getValue())}</span>,
+      cell: (c) => <Moment value={c.getValue()} />,
     }),
     col.accessor("method", { header: "Method", cell: (c) => mono(c.getValue()) }),
     col.accessor("path", { header: "Path", cell: (c) => mono(c.getValue()) }),

@@ -80,3 +80,17 @@ export function Stat({ label, value, hint }: { label: string; value: ReactNode; 
 
 export const when = (moment: Date | string | null | undefined) =>
   moment ? new Date(moment).toISOString().replace("T", " ").slice(0, 19) + " UTC" : "—";
+
+/**
+ * A moment as `when` writes it, in a table cell: the date and the time each kept whole, so that on a
+ * narrow screen the cell breaks between them instead of pushing the columns after it out of view.
+ */
+export function Moment({ value }: { value: Date | string | null | undefined }) {
+  if (!value) return <span className="font-mono text-xs">—</span>;
+  const [date, time] = when(value).split(" ", 2);
+  return (
+    <time dateTime={new Date(value).toISOString()} className="font-mono text-xs">
+      <span className="whitespace-nowrap">{date}</span> <span className="whitespace-nowrap">{time} UTC</span>
+    </time>
+  );
+}

@@ -43,7 +43,15 @@ beforeAll(async () => {
     .set(auth)
     .send({ url: "http://localhost:9/hook", description: "ERP receiver" })
     .expect(201);
-  const event = (await api().get(`/api/v1/events?subject=${program.id}`).set(auth)).body.data[0];
+  // a program created after the endpoint: its event has a delivery (to a port where nothing listens), and Resend
+  const delivered = (
+    await api()
+      .post("/api/v1/programs")
+      .set(auth)
+      .send(exampleProgram(shop.shearId, `LAYOUT-${Date.now()}`))
+      .expect(201)
+  ).body;
+  const event = (await api().get(`/api/v1/events?subject=${delivered.id}`).set(auth)).body.data[0];
   const grade = (await api().get("/api/v1/grades?limit=1").set(auth)).body.data[0];
   await api()
     .post("/api/v1/stock")
@@ -115,6 +123,23 @@ describe.each(WIDTHS)("the console at $name width ($width px)", ({ name, width, 
     expect(overflowing).toEqual([]);
     await context.close();
   }, 180_000);
+
+  it("keeps what a person acts on in view: an event's Resend, the moments in a list", async () => {
+    const { context, page } = await signedIn(width, height);
+    const inView = async (locator: ReturnType<Page["locator"]>) => {
+      await locator.waitFor();
+      const box = (await locator.boundingBox())!;
+      return box.x >= 0 && box.x + box.width <= width;
+    };
+    await page.goto(`${BASE_URL}${pages.event}`);
+    expect(await inView(page.getByRole("button", { name: "Resend" }).first())).toBe(true);
+    await page.goto(`${BASE_URL}${pages.events}`);
+    await page.getByTestId("event-row").first().waitFor();
+    // the date and the time of a moment break apart rather than widen the table
+    const moment = page.getByTestId("event-row").first().locator("time");
+    expect(await inView(moment)).toBe(true);
+    await context.close();
+  });
 
   it("lets a person move between pages", async () => {
     const { context, page } = await signedIn(width, height);

@@ -40,15 +40,18 @@ export default async function EventPage({ params }: { params: Promise<{ id: stri
         }
       />
       <h2 className="mb-2 text-sm font-semibold">Deliveries and their attempts</h2>
-      <Table
-        head={["Endpoint", "State", "Attempts (time · answer · latency)", ""]}
-        empty="This event went to no endpoint."
-      >
+      <Table head={["Endpoint", "State", "Attempts (time · answer · latency)"]} empty="This event went to no endpoint.">
         {deliveries.data.map((delivery) => (
           <tr key={delivery.id}>
-            <Td mono>
+            <Td mono className="min-w-40 break-all">
               {url.get(delivery.endpointId) ?? delivery.endpointId}
               {delivery.manual ? " (resent or test)" : ""}
+              {/* under the endpoint, not in a column of its own: on a phone a last column is out of view */}
+              {manage && (
+                <div className="mt-1 break-normal font-sans">
+                  <ResendButton endpoint={delivery.endpointId} event={event.id} />
+                </div>
+              )}
             </Td>
             <Td>
               <Badge value={delivery.status} />
@@ -63,7 +66,6 @@ export default async function EventPage({ params }: { params: Promise<{ id: stri
               ))}
               {delivery.nextAttemptAt && <div className="text-ink-muted">next try {when(delivery.nextAttemptAt)}</div>}
             </Td>
-            <Td>{manage && <ResendButton endpoint={delivery.endpointId} event={event.id} />}</Td>
           </tr>
         ))}
       </Table>

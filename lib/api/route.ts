@@ -255,7 +255,8 @@ async function serveInput(
 
 /**
  * How many heavy requests (a batch of programs, a plan's programs) one web server works on at once; the others wait
- * in arrival order after authorisation, before their bodies are read. Each holds a few megabytes of parsed programs,
+ * in arrival order, authorised and holding only their body's text (at most `MAX_BODY_BYTES`), until a turn is free,
+ * and are parsed and run then. Each running one holds a few megabytes of parsed programs,
  * checks and serialised text while it waits for PostgreSQL: with every request let in at once (32 batches of 100 in
  * the benchmark), most of that survived each young-generation collection, and garbage collection took ~3–3.5 ms of
  * the web server's CPU per batch against ~2 ms with two at a time, for the same throughput. Two keep the web server

@@ -116,6 +116,8 @@ describe.each(WIDTHS)("the console at $name width ($width px)", ({ name, width, 
     for (const [label, url] of Object.entries(pages)) {
       await page.goto(`${BASE_URL}${url}`);
       await page.locator("main h1").first().waitFor();
+      // the live tables' rows, not their "Loading…": what is measured and drawn is the page as a person sees it
+      await page.getByRole("status").filter({ hasText: "Loading" }).first().waitFor({ state: "detached" });
       const extra = await sideways(page);
       if (extra > 1) overflowing.push(`${label} (${extra} px)`);
       await page.screenshot({ path: path.join(SCREENSHOTS, `${name}-${label}.png`), fullPage: true });

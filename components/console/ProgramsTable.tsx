@@ -28,13 +28,14 @@ const columns = [
       </Link>
     ),
   }),
+  // state and check next to the reference: on a phone they are what is in view without scrolling
+  col.accessor("status", { header: "State", cell: (c) => <Badge value={c.getValue()} /> }),
+  col.accessor("validation", { header: "Check", cell: (c) => <Badge value={c.getValue()} /> }),
   // at least 12rem wide: on a phone the table scrolls sideways rather than a title wrapping word by word
   col.accessor("title", {
     header: "Title",
     cell: (c) => <span className="block min-w-48">{c.getValue() ?? "—"}</span>,
   }),
-  col.accessor("status", { header: "State", cell: (c) => <Badge value={c.getValue()} /> }),
-  col.accessor("validation", { header: "Check", cell: (c) => <Badge value={c.getValue()} /> }),
   col.accessor("findings", { header: "Findings", cell: (c) => <span className="font-mono">{c.getValue()}</span> }),
   col.accessor("dueAt", {
     header: "Due",

@@ -126,7 +126,7 @@ describe.each(WIDTHS)("the console at $name width ($width px)", ({ name, width, 
     await context.close();
   }, 180_000);
 
-  it("keeps what a person acts on in view: an event's Resend, the moments in a list", async () => {
+  it("keeps what a person acts on in view: an event's Resend, the moments in a list, a program's state", async () => {
     const { context, page } = await signedIn(width, height);
     const inView = async (locator: ReturnType<Page["locator"]>) => {
       await locator.waitFor();
@@ -140,6 +140,11 @@ describe.each(WIDTHS)("the console at $name width ($width px)", ({ name, width, 
     // the date and the time of a moment break apart rather than widen the table
     const moment = page.getByTestId("event-row").first().locator("time");
     expect(await inView(moment)).toBe(true);
+    // a program's state and check beside its reference
+    await page.goto(`${BASE_URL}${pages.programs}`);
+    await page.getByTestId("program-row").first().waitFor();
+    for (const heading of ["State", "Check"])
+      expect(await inView(page.getByRole("columnheader", { name: heading }))).toBe(true);
     await context.close();
   });
 

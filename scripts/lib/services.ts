@@ -158,7 +158,14 @@ export async function startPostgres(opts: PgOptions): Promise<"started" | "reuse
   }
   const parent = path.dirname(opts.dataDir);
   mkdirSync(parent, { recursive: true });
+  const busy = () =>
+    new ServiceError(
+      `port ${opts.port} on 127.0.0.1 is busy with another program, so Shearwire's PostgreSQL cannot start there. ` +
+        "Stop that program or choose another port with SHEARWIRE_PG_PORT.",
+    );
   if (!existsSync(path.join(opts.dataDir, "PG_VERSION"))) {
+    // a new folder runs no server: a busy port is said at once, not after initdb's seconds
+    if (await portInUse(opts.port)) throw busy();
     log(`initialising PostgreSQL data folder ${opts.dataDir}`);
     givePostgres(opts.dataDir);
     const pwFile = path.join(opts.dataDir, "..", `.pw-${process.pid}`);
@@ -193,12 +200,7 @@ export async function startPostgres(opts: PgOptions): Promise<"started" | "reuse
     await ensureDatabase(opts);
     return "reused";
   }
-  if (await portInUse(opts.port)) {
-    throw new ServiceError(
-      `port ${opts.port} on 127.0.0.1 is busy with another program, so Shearwire's PostgreSQL cannot start there. ` +
-        "Stop that program or choose another port with SHEARWIRE_PG_PORT.",
-    );
-  }
+  if (await portInUse(opts.port)) throw busy();
   log(`starting PostgreSQL on 127.0.0.1:${opts.port}`);
   const logFile = path.join(opts.dataDir, "server.log");
   const logTail = () =>

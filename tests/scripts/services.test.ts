@@ -1,7 +1,7 @@
 import net from "node:net";
 import os from "node:os";
 import path from "node:path";
-import { mkdtempSync, rmSync } from "node:fs";
+import { existsSync, mkdtempSync, rmSync } from "node:fs";
 import pg from "pg";
 import { Redis } from "ioredis";
 import { afterAll, describe, expect, it } from "vitest";
@@ -90,16 +90,18 @@ describe("local PostgreSQL and Redis", () => {
   });
 
   it("says clearly when a port is taken by another program", async () => {
+    // A port the system hands out (a fixed one can be in use as another connection's own port, and listen then fails).
     const blocker = net.createServer();
-    await new Promise<void>((resolve) => blocker.listen(55462, "127.0.0.1", resolve));
+    await new Promise<void>((resolve, reject) => blocker.once("error", reject).listen(0, "127.0.0.1", resolve));
+    const { port } = blocker.address() as net.AddressInfo;
     try {
       const other = path.join(dataRoot, "other");
-      const pgErr = await startPostgres({ ...profile.pg, dataDir: path.join(other, "pg"), port: 55462 }).catch(
-        (e) => e,
-      );
+      const pgErr = await startPostgres({ ...profile.pg, dataDir: path.join(other, "pg"), port }).catch((e) => e);
       expect(pgErr).toBeInstanceOf(ServiceError);
-      expect(pgErr.message).toMatch(/port 55462 on 127\.0\.0\.1 is busy.*SHEARWIRE_PG_PORT/);
-      const redisErr = await startRedis({ dataDir: path.join(other, "redis"), port: 55462 }).catch((e) => e);
+      expect(pgErr.message).toMatch(new RegExp(`port ${port} on 127\\.0\\.0\\.1 is busy.*SHEARWIRE_PG_PORT`));
+      // a new folder is refused before initdb runs
+      expect(existsSync(path.join(other, "pg", "PG_VERSION"))).toBe(false);
+      const redisErr = await startRedis({ dataDir: path.join(other, "redis"), port }).catch((e) => e);
       expect(redisErr).toBeInstanceOf(ServiceError);
       expect(redisErr.message).toMatch(/busy.*SHEARWIRE_REDIS_PORT/);
     } finally {

@@ -2,7 +2,7 @@
 
 import { signIn } from "next-auth/react";
 import { useRouter, useSearchParams } from "next/navigation";
-import { useState } from "react";
+import { useState, type FormEvent } from "react";
 import { useHydrated } from "@/components/ui/useHydrated";
 import { safeCallbackPath } from "@/lib/auth/redirect";
 
@@ -19,7 +19,12 @@ export function SignInForm() {
   // Until the page's scripts run, the form cannot post (its action runs in the browser): the button says so by being disabled.
   const hydrated = useHydrated();
 
-  async function submit(form: FormData) {
+  // A submit handler, not a form action: React resets a form after its action, which emptied the e-mail a person had
+  // typed after every wrong password (and could empty what they typed next while the button came back).
+  async function submit(event: FormEvent<HTMLFormElement>) {
+    event.preventDefault();
+    const formElement = event.currentTarget;
+    const form = new FormData(formElement);
     setBusy(true);
     setError(null);
     const res = await signIn("credentials", {
@@ -27,6 +32,8 @@ export function SignInForm() {
       password: form.get("password"),
       redirect: false,
     });
+    // the password is cleared before the button comes back; the e-mail stays
+    if (!res?.ok || res.error) (formElement.elements.namedItem("password") as HTMLInputElement).value = "";
     setBusy(false);
     // Only a path on this site is followed after signing in; anything else goes to the console.
     if (res?.ok && !res.error) router.push(safeCallbackPath(params.get("callbackUrl")));
@@ -36,7 +43,7 @@ export function SignInForm() {
 
   const joined = params.get("joined");
   return (
-    <form action={submit} className="mt-8 space-y-4">
+    <form onSubmit={(event) => void submit(event)} className="mt-8 space-y-4">
       {joined && (
         <p role="status" className="rounded-md bg-ok-light px-3 py-2 text-sm text-ok">
           Welcome aboard. Sign in with your new password.

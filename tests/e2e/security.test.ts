@@ -224,6 +224,9 @@ describe("sign-in throttling", () => {
         for (let t = 0; t < 100 && (await wrong()) < i + 1; t++) await new Promise((r) => setTimeout(r, 100));
         expect(await wrong(), `wrong passwords recorded after attempt ${i + 1}`).toBe(i + 1);
         await page.getByRole("button", { name: "Sign in" }).and(page.locator(":enabled")).waitFor();
+        // after a wrong password the e-mail stays as typed and the password is empty
+        expect(await page.getByLabel("E-mail").inputValue()).toBe(email);
+        expect(await page.getByLabel("Password").inputValue()).toBe("");
       }
       // Now even the right password is refused, with a clear message.
       await page.getByLabel("E-mail").fill(email);

@@ -40,8 +40,8 @@ export interface Operation<
   /** the success responses; error responses are added from the operation's traits */
   responses: R;
   /**
-   * writes many programs in one request: after authorisation, at most a few such requests go on at once in one web
-   * server and the others wait their turn, their bodies unread (`lib/api/route.ts`)
+   * writes many programs in one request: after authorisation and reading its body's text, at most a few such requests
+   * go on at once in one web server and the others wait their turn (`lib/api/route.ts`)
    */
   heavy?: boolean;
   /** needs If-Match (412 on a stale revision, 428 when missing) */

@@ -14,6 +14,7 @@ import { newId } from "../ids";
 import { jsonBytes } from "../json-text";
 import { authenticate, type Principal } from "../services/keys";
 import { SECURITY_HEADERS } from "../security-headers";
+import { wholeNumberSetting } from "../settings-env";
 
 import { ApiError, badRequest, forbidden, internalError, unsupportedMediaType } from "../errors";
 import * as idempotency from "../services/idempotency";
@@ -132,7 +133,7 @@ async function readInput<P, Q, B>(op: Operation, request: Request, context: Rout
     }
     body = parse(op.body, value, "body", { textChecked: plainJsonText(rawBody) }) as B;
   }
-  return { params, query, body, rawBody };
+  return { params, query, body };
 }
 
 /** Step 3: reserve the Idempotency-Key, or answer with the response stored for it. */
@@ -235,7 +236,7 @@ async function serveInput(
   handler: Handler,
 ): Promise<Response> {
   const input = await readInput<unknown, unknown, unknown>(op, request, context, call.url, rawBody);
-  const replayed = await reserveIdempotency(call, op, request, input.rawBody);
+  const replayed = await reserveIdempotency(call, op, request, rawBody);
   if (replayed) return replayed;
   const handlerStarted = performance.now();
   const reply = await handler({
@@ -262,13 +263,8 @@ async function serveInput(
  * the web server's CPU per batch against ~2 ms with two at a time, for the same throughput. Two keep the web server
  * busy while PostgreSQL writes the other's statement. Light requests never wait here.
  */
-export const HEAVY_CONCURRENCY = positiveInteger(process.env.SHEARWIRE_HEAVY_CONCURRENCY, 2);
+export const HEAVY_CONCURRENCY = wholeNumberSetting(process.env, "SHEARWIRE_HEAVY_CONCURRENCY", "requests", () => 2);
 const heavyTurn = pLimit(HEAVY_CONCURRENCY);
-
-function positiveInteger(text: string | undefined, fallback: number): number {
-  const value = Number(text);
-  return text !== undefined && Number.isInteger(value) && value > 0 ? value : fallback;
-}
 
 export function route<
   P extends z.ZodObject<z.ZodRawShape> | undefined,

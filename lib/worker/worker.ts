@@ -19,6 +19,7 @@ import { dispatchAll, overdueDeliveries } from "./dispatch";
 import { bullConnection, closeQueue, enqueueAttempt, QUEUE_NAME, type DeliveryJob } from "../queue/queue";
 import { failLostPlan, planInThread, processStoredPlan, requeueOrphanPlans } from "./plan-jobs";
 import { PLAN_QUEUE, planTimeLimitMs, previewTimeLimitMs, type PlanJob } from "../queue/plan-queue";
+import { wholeNumberSetting } from "../settings-env";
 
 /** A plan job's lock: a worker that dies loses it within this, and another worker takes the plan over. */
 const PLAN_LOCK_MS = Number(process.env.SHEARWIRE_PLAN_LOCK_MS ?? 15_000);
@@ -29,8 +30,8 @@ const DISPATCH_INTERVAL_MS = Number(process.env.SHEARWIRE_DISPATCH_INTERVAL_MS ?
 const log = (msg: string) => console.log(`[worker] ${new Date().toISOString()} ${msg}`);
 
 export async function runWorker({
-  concurrency = Number(process.env.SHEARWIRE_WORKER_CONCURRENCY ?? 32),
-  planConcurrency = Number(process.env.SHEARWIRE_PLAN_CONCURRENCY ?? 1),
+  concurrency = wholeNumberSetting(process.env, "SHEARWIRE_WORKER_CONCURRENCY", "deliveries", () => 32),
+  planConcurrency = wholeNumberSetting(process.env, "SHEARWIRE_PLAN_CONCURRENCY", "plans", () => 1),
 } = {}) {
   const orm = await getOrm();
   const fork = () => orm.em.fork();
